@@ -1,0 +1,147 @@
+import { z } from "zod";
+
+// Parsed once at start-up. Each hosted service falls back to its local stand-in (fakes/) when its
+// variables are absent, so a fresh clone runs with no configuration at all.
+
+const port = z.coerce.number().int().min(1).max(65535);
+
+const EnvSchema = z
+  .object({
+    NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+    PORT: port.default(3000),
+    HOST: z.string().default("127.0.0.1"),
+    APP_URL: z.url().optional(),
+    SESSION_SECRET: z.string().min(32, "must be at least 32 characters").optional(),
+    DATABASE_URL: z.url().default("postgres://loadline@127.0.0.1:54329/loadline"),
+
+    S3_ENDPOINT: z.url().optional(),
+    S3_REGION: z.string().default("us-east-1"),
+    S3_ACCESS_KEY_ID: z.string().optional(),
+    S3_SECRET_ACCESS_KEY: z.string().optional(),
+    S3_BUCKET: z.string().regex(/^[a-z0-9.-]{3,63}$/, "must be a valid bucket name").default("loadline-media"),
+
+    SMTP_URL: z.url().optional(),
+    MAIL_FROM: z.string().default("Loadline <no-reply@loadline.test>"),
+
+    OAUTH_ISSUER: z.url().optional(),
+    OAUTH_CLIENT_ID: z.string().optional(),
+    OAUTH_CLIENT_SECRET: z.string().optional(),
+
+    STRIPE_SECRET_KEY: z.string().optional(),
+    STRIPE_WEBHOOK_SECRET: z.string().optional(),
+    STRIPE_API_URL: z.url().optional(),
+
+    // Ports of the local stand-ins (fakes/); `npm test` moves them so it can run beside `npm start`.
+    FAKE_S3_PORT: port.default(4569),
+    FAKE_SMTP_PORT: port.default(1025),
+    FAKE_MAIL_HTTP_PORT: port.default(1080),
+    FAKE_OAUTH_PORT: port.default(4010),
+    FAKE_STRIPE_PORT: port.default(12111),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === "production" && !env.SESSION_SECRET && env.APP_URL?.startsWith("https://")) {
+      ctx.addIssue({ code: "custom", path: ["SESSION_SECRET"], message: "is required when serving over https" });
+    }
+    const groups: [string, (keyof typeof env)[]][] = [
+      ["S3", ["S3_ENDPOINT", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"]],
+      ["OAuth", ["OAUTH_ISSUER", "OAUTH_CLIENT_ID", "OAUTH_CLIENT_SECRET"]],
+      ["Stripe", ["STRIPE_SECRET_KEY", "STRIPE_WEBHOOK_SECRET"]],
+    ];
+    for (const [name, keys] of groups) {
+      const set = keys.filter((k) => env[k] !== undefined);
+      if (set.length > 0 && set.length < keys.length) {
+        for (const k of keys.filter((k) => env[k] === undefined)) {
+          ctx.addIssue({ code: "custom", path: [k], message: `is required when the other ${name} variables are set` });
+        }
+      }
+    }
+  });
+
+export type ServiceMode = "real" | "fake";
+
+function resolve(raw: z.infer<typeof EnvSchema>) {
+  const local = "127.0.0.1";
+  const appUrl = raw.APP_URL ?? `http://${raw.HOST === "0.0.0.0" ? local : raw.HOST}:${raw.PORT}`;
+  return {
+    nodeEnv: raw.NODE_ENV,
+    port: raw.PORT,
+    host: raw.HOST,
+    appUrl,
+    secureCookies: appUrl.startsWith("https://"),
+    sessionSecret: raw.SESSION_SECRET ?? "loadline-local-development-secret-not-for-production",
+    databaseUrl: raw.DATABASE_URL,
+    s3: raw.S3_ENDPOINT
+      ? {
+          mode: "real" as ServiceMode,
+          endpoint: raw.S3_ENDPOINT,
+          region: raw.S3_REGION,
+          accessKeyId: raw.S3_ACCESS_KEY_ID!,
+          secretAccessKey: raw.S3_SECRET_ACCESS_KEY!,
+          bucket: raw.S3_BUCKET,
+        }
+      : {
+          mode: "fake" as ServiceMode,
+          endpoint: `http://${local}:${raw.FAKE_S3_PORT}`,
+          region: raw.S3_REGION,
+          accessKeyId: "S3RVER",
+          secretAccessKey: "S3RVER",
+          bucket: raw.S3_BUCKET,
+          port: raw.FAKE_S3_PORT,
+        },
+    mail: raw.SMTP_URL
+      ? { mode: "real" as ServiceMode, smtpUrl: raw.SMTP_URL, from: raw.MAIL_FROM }
+      : {
+          mode: "fake" as ServiceMode,
+          smtpUrl: `smtp://${local}:${raw.FAKE_SMTP_PORT}`,
+          from: raw.MAIL_FROM,
+          smtpPort: raw.FAKE_SMTP_PORT,
+          httpPort: raw.FAKE_MAIL_HTTP_PORT,
+          inboxUrl: `http://${local}:${raw.FAKE_MAIL_HTTP_PORT}`,
+        },
+    oauth: raw.OAUTH_ISSUER
+      ? {
+          mode: "real" as ServiceMode,
+          issuer: raw.OAUTH_ISSUER,
+          clientId: raw.OAUTH_CLIENT_ID!,
+          clientSecret: raw.OAUTH_CLIENT_SECRET!,
+        }
+      : {
+          mode: "fake" as ServiceMode,
+          issuer: `http://${local}:${raw.FAKE_OAUTH_PORT}`,
+          clientId: "loadline-local",
+          clientSecret: "loadline-local-secret",
+          port: raw.FAKE_OAUTH_PORT,
+        },
+    stripe: raw.STRIPE_SECRET_KEY
+      ? {
+          mode: "real" as ServiceMode,
+          secretKey: raw.STRIPE_SECRET_KEY,
+          webhookSecret: raw.STRIPE_WEBHOOK_SECRET!,
+          apiUrl: raw.STRIPE_API_URL,
+        }
+      : {
+          mode: "fake" as ServiceMode,
+          secretKey: "sk_test_loadline_local",
+          webhookSecret: "whsec_loadline_local",
+          apiUrl: `http://${local}:${raw.FAKE_STRIPE_PORT}`,
+          port: raw.FAKE_STRIPE_PORT,
+        },
+  };
+}
+
+export type Env = ReturnType<typeof resolve>;
+
+export function parseEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const result = EnvSchema.safeParse(source);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join(".") || "(environment)"} ${i.message}`);
+    throw new Error(`Loadline cannot start: bad environment variables:\n${lines.join("\n")}`);
+  }
+  return resolve(result.data);
+}
+
+let cached: Env | undefined;
+export function env(): Env {
+  cached ??= parseEnv();
+  return cached;
+}

@@ -1,0 +1,3 @@
+export default function Home() {
+  return <main><h1>Loadline</h1></main>;
+}
