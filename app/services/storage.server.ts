@@ -1,0 +1,150 @@
+import {
+  CreateBucketCommand,
+  DeleteObjectCommand,
+  DeleteObjectsCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  HeadObjectCommand,
+  NotFound,
+  NoSuchKey,
+  PutObjectCommand,
+  S3Client,
+  S3ServiceException,
+} from "@aws-sdk/client-s3";
+import { randomUUID } from "node:crypto";
+import type { Readable } from "node:stream";
+import { env, type Env } from "~/env.server";
+
+// Photos and captures live in object storage; the database keeps only their keys.
+
+export function createStorageClient(s3: Env["s3"] = env().s3): S3Client {
+  return new S3Client({
+    endpoint: s3.endpoint,
+    region: s3.region,
+    forcePathStyle: true,
+    credentials: { accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey },
+    // The local stand-in predates the SDK's default CRC32 trailers; checksums only where S3 demands them.
+    ...(s3.mode === "fake"
+      ? { requestChecksumCalculation: "WHEN_REQUIRED" as const, responseChecksumValidation: "WHEN_REQUIRED" as const }
+      : {}),
+  });
+}
+
+let client: S3Client | undefined;
+function s3(): S3Client {
+  client ??= createStorageClient();
+  return client;
+}
+const bucket = () => env().s3.bucket;
+
+/** A fresh, unguessable key such as `photos/2026/12/3f…e1.jpg`. */
+export function randomKey(prefix: string, ext: string): string {
+  const now = new Date();
+  const month = String(now.getUTCMonth() + 1).padStart(2, "0");
+  const clean = prefix.replace(/^\/+|\/+$/g, "");
+  const dot = ext.replace(/^\./, "").toLowerCase();
+  return `${clean}/${now.getUTCFullYear()}/${month}/${randomUUID()}${dot ? `.${dot}` : ""}`;
+}
+
+export async function putObject(
+  key: string,
+  body: Buffer | Uint8Array | string | Readable,
+  opts: { contentType: string; contentLength?: number; metadata?: Record<string, string> },
+): Promise<{ key: string; etag?: string }> {
+  const out = await s3().send(
+    new PutObjectCommand({
+      Bucket: bucket(),
+      Key: key,
+      Body: body,
+      ContentType: opts.contentType,
+      ContentLength: opts.contentLength,
+      Metadata: opts.metadata,
+    }),
+  );
+  return { key, etag: out.ETag };
+}
+
+export interface StoredObject {
+  body: Readable;
+  contentType?: string;
+  contentLength?: number;
+  etag?: string;
+  lastModified?: Date;
+}
+
+/** The object as a stream, or null when the key does not exist. */
+export async function getObject(key: string): Promise<StoredObject | null> {
+  try {
+    const out = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+    return {
+      body: out.Body as Readable,
+      contentType: out.ContentType,
+      contentLength: out.ContentLength,
+      etag: out.ETag,
+      lastModified: out.LastModified,
+    };
+  } catch (err) {
+    if (isMissing(err)) return null;
+    throw err;
+  }
+}
+
+export async function getObjectBuffer(key: string): Promise<Buffer | null> {
+  const obj = await getObject(key);
+  if (!obj) return null;
+  const chunks: Buffer[] = [];
+  for await (const chunk of obj.body) chunks.push(Buffer.from(chunk));
+  return Buffer.concat(chunks);
+}
+
+export async function headObject(
+  key: string,
+): Promise<{ contentType?: string; contentLength?: number; etag?: string; metadata?: Record<string, string> } | null> {
+  try {
+    const out = await s3().send(new HeadObjectCommand({ Bucket: bucket(), Key: key }));
+    return { contentType: out.ContentType, contentLength: out.ContentLength, etag: out.ETag, metadata: out.Metadata };
+  } catch (err) {
+    if (isMissing(err)) return null;
+    throw err;
+  }
+}
+
+export async function deleteObject(key: string): Promise<void> {
+  await s3().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
+}
+
+/** Deletes in batches of 1000 (the S3 limit); throws if any key could not be removed. */
+export async function deleteObjects(keys: string[]): Promise<void> {
+  for (let i = 0; i < keys.length; i += 1000) {
+    const batch = keys.slice(i, i + 1000);
+    const out = await s3().send(
+      new DeleteObjectsCommand({
+        Bucket: bucket(),
+        Delete: { Objects: batch.map((Key) => ({ Key })), Quiet: true },
+      }),
+    );
+    if (out.Errors?.length) {
+      const first = out.Errors[0];
+      throw new Error(`could not delete ${out.Errors.length} object(s), first ${first.Key}: ${first.Message}`);
+    }
+  }
+}
+
+/** Creates the bucket when it is missing (the stand-in creates it at start; a real bucket may be pre-made). */
+export async function ensureBucket(): Promise<void> {
+  try {
+    await s3().send(new HeadBucketCommand({ Bucket: bucket() }));
+  } catch (err) {
+    if (!isMissing(err)) throw err;
+    await s3().send(new CreateBucketCommand({ Bucket: bucket() }));
+  }
+}
+
+export async function ping(): Promise<void> {
+  await s3().send(new HeadBucketCommand({ Bucket: bucket() }));
+}
+
+function isMissing(err: unknown): boolean {
+  if (err instanceof NoSuchKey || err instanceof NotFound) return true;
+  return err instanceof S3ServiceException && (err.$metadata.httpStatusCode === 404 || err.name === "NoSuchBucket");
+}
