@@ -1,0 +1,7 @@
+import type { QueueName } from "~/services/jobs.server";
+
+// Every queue's handler, registered by the worker. A handler receives one job's data and throws to
+// let pg-boss retry it.
+export type JobHandler = (data: any, jobId: string) => Promise<unknown>;
+
+export const handlers: Partial<Record<QueueName, JobHandler>> = {};

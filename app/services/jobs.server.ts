@@ -1,0 +1,40 @@
+import PgBoss from "pg-boss";
+import { env } from "~/env.server";
+
+// Background work goes through pg-boss in the same PostgreSQL database, so app servers stay
+// stateless and any number of worker processes can share the queues.
+export const QUEUES = {
+  captureAnalyze: "capture-analyze",
+  photoProcess: "photo-process",
+} as const;
+export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
+
+const globalForJobs = globalThis as unknown as { __loadlineBoss?: Promise<PgBoss> };
+
+async function startBoss(options: Partial<PgBoss.ConstructorOptions> = {}): Promise<PgBoss> {
+  const boss = new PgBoss({ connectionString: env().databaseUrl, max: 4, ...options });
+  boss.on("error", (error) => console.error("[jobs]", error));
+  await boss.start();
+  for (const name of Object.values(QUEUES)) {
+    await boss.createQueue(name, { name, retryLimit: 2, retryDelay: 5, expireInSeconds: 300 });
+  }
+  return boss;
+}
+
+// Web processes only send; the worker process (app/jobs/worker.server.ts) supervises and schedules.
+export function getBoss(): Promise<PgBoss> {
+  globalForJobs.__loadlineBoss ??= startBoss({ supervise: false, schedule: false }).catch((error) => {
+    globalForJobs.__loadlineBoss = undefined;
+    throw error;
+  });
+  return globalForJobs.__loadlineBoss;
+}
+
+export async function enqueue(name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
+  const boss = await getBoss();
+  const id = await boss.send(name, data, options);
+  if (!id) throw new Error(`Could not queue a ${name} job`);
+  return id;
+}
+
+export { startBoss };

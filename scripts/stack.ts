@@ -1,0 +1,140 @@
+import { spawn, type ChildProcess } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+
+// Brings up what Loadline runs on: the local PostgreSQL cluster, the stand-ins for hosted services,
+// the schema and the demo scenario. Shared by `npm start`, `npm run dev` and `npm test`.
+
+export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+
+export type Profile = {
+  name: "dev" | "test";
+  dir: string;
+  pgPort: number;
+  database: string;
+  env: Record<string, string>;
+};
+
+export function profile(name: "dev" | "test"): Profile {
+  if (name === "dev") {
+    const port = process.env.PORT ?? "3000";
+    return {
+      name,
+      dir: path.join(root, ".local/dev"),
+      pgPort: 54329,
+      database: "loadline",
+      env: { PORT: port },
+    };
+  }
+  return {
+    name,
+    dir: path.join(root, ".local/test"),
+    pgPort: 54339,
+    database: "loadline_test",
+    env: {
+      PORT: "3100",
+      FAKE_S3_PORT: "4669",
+      FAKE_SMTP_PORT: "1125",
+      FAKE_MAIL_HTTP_PORT: "1180",
+      FAKE_OAUTH_PORT: "4110",
+      FAKE_STRIPE_PORT: "12211",
+      LOADLINE_FAST_HASH: "1",
+    },
+  };
+}
+
+export type Stack = { env: Record<string, string>; lines: string[]; stop: () => Promise<void> };
+
+export async function bringUp(p: Profile, { seed = true, log = console.log } = {}): Promise<Stack> {
+  const stops: (() => Promise<void>)[] = [];
+  const stop = async () => {
+    for (const s of stops.reverse()) await s().catch((e) => console.error(String(e)));
+  };
+  try {
+    const { startCluster } = await import("../db/cluster");
+    const cluster = await startCluster({
+      dir: path.join(p.dir, "pg"),
+      port: p.pgPort,
+      database: p.database,
+      fast: p.name === "test",
+      log,
+    });
+    stops.push(cluster.stop);
+
+    // Everything below reads the environment through app/env.server.ts, so set it before importing.
+    const env: Record<string, string> = { ...p.env, DATABASE_URL: process.env.DATABASE_URL ?? cluster.url };
+    Object.assign(process.env, env);
+
+    const { env: appEnv } = await import("../app/env.server");
+    const settings = appEnv();
+    const { startFakes } = await import("../fakes/index");
+    const fakes = await startFakes({
+      env: settings,
+      dataDir: path.join(p.dir, "fakes"),
+      webhookUrl: `${settings.appUrl}/api/v1/webhooks/stripe`,
+      log,
+    });
+    stops.push(fakes.stop);
+
+    const { migrateUp } = await import("../db/migrator");
+    const applied = await migrateUp(settings.databaseUrl);
+    if (applied.length) log(`Applied ${applied.length} migration(s)`);
+
+    const lines = [...fakes.lines];
+    if (seed) {
+      const { seedDemo } = await import("../db/seeds/demo");
+      const result = await seedDemo();
+      log(result.created ? "Loaded the demo scenario" : "Demo scenario already loaded");
+      lines.push("", "Demo accounts (password: bench-demo-2026)");
+      for (const a of result.accounts) lines.push(`  ${a.role.padEnd(10)} ${a.email}`);
+    }
+    const { sequelize } = await import("../app/db.server");
+    stops.push(() => sequelize.close());
+    return { env, lines, stop };
+  } catch (error) {
+    await stop();
+    throw error;
+  }
+}
+
+export function bin(name: string) {
+  return path.join(root, "node_modules/.bin", name);
+}
+
+export function launch(command: string, args: string[], env: Record<string, string>, quiet = false): ChildProcess {
+  return spawn(command, args, {
+    cwd: root,
+    env: { ...process.env, ...env },
+    stdio: quiet ? ["ignore", "ignore", "inherit"] : "inherit",
+  });
+}
+
+export function finished(child: ChildProcess): Promise<number> {
+  return new Promise((resolve) => {
+    if (child.exitCode !== null) return resolve(child.exitCode);
+    child.once("exit", (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+  });
+}
+
+export async function waitForHttp(url: string, timeoutMs = 60_000, child?: ChildProcess) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (child && child.exitCode !== null) throw new Error(`${url}: the process exited (${child.exitCode})`);
+    try {
+      const res = await fetch(url);
+      if (res.status < 500) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+}
+
+export async function stopChild(child: ChildProcess | undefined) {
+  if (!child || child.exitCode !== null || child.signalCode) return;
+  child.kill("SIGTERM");
+  const timer = setTimeout(() => child.kill("SIGKILL"), 8_000);
+  await finished(child);
+  clearTimeout(timer);
+}

@@ -1,0 +1,98 @@
+import fs from "node:fs";
+import path from "node:path";
+import type { ChildProcess } from "node:child_process";
+import { bin, bringUp, finished, launch, profile, stopChild, waitForHttp } from "./stack";
+
+// `npm test`: a throw-away cluster and stand-ins on their own ports, then typecheck, the unit,
+// reference and integration suites, and the browser suite against the built app. The last line is
+// the totals over all of them.
+const p = profile("test");
+fs.rmSync(p.dir, { recursive: true, force: true });
+const reports = path.join(p.dir, "reports");
+
+type Tally = { passed: number; failed: number; skipped: number };
+const total: Tally = { passed: 0, failed: 0, skipped: 0 };
+const failures: string[] = [];
+
+function count(name: string, file: string, exitCode: number) {
+  if (!fs.existsSync(file)) {
+    total.failed += 1;
+    failures.push(`${name}: the runner exited ${exitCode} without a report`);
+    return;
+  }
+  const r = JSON.parse(fs.readFileSync(file, "utf8"));
+  total.passed += r.numPassedTests;
+  total.failed += r.numFailedTests;
+  total.skipped += (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
+  if (r.numFailedTests > 0) failures.push(`${name}: ${r.numFailedTests} failed`);
+  // A suite that fails to load counts as a failure even when no test in it ran.
+  const broken = (r.testResults ?? []).filter((t: any) => t.status === "failed" && t.assertionResults.length === 0);
+  if (broken.length) {
+    total.failed += broken.length;
+    failures.push(`${name}: ${broken.length} file(s) failed to load`);
+  }
+  if (exitCode !== 0 && r.numFailedTests === 0 && broken.length === 0) {
+    total.failed += 1;
+    failures.push(`${name}: the runner exited ${exitCode}`);
+  }
+}
+
+async function vitest(name: string, projects: string[], env: Record<string, string>) {
+  const file = path.join(reports, `${name}.json`);
+  const args = ["run", ...projects.flatMap((pr) => ["--project", pr]), "--reporter=default", "--reporter=json",
+    `--outputFile.json=${file}`];
+  const code = await finished(launch(bin("vitest"), args, env));
+  count(name, file, code);
+}
+
+const children: ChildProcess[] = [];
+let stack: Awaited<ReturnType<typeof bringUp>> | undefined;
+let exitCode = 1;
+try {
+  stack = await bringUp(p, { log: (l) => console.log(`[setup] ${l}`) });
+  const env = { ...stack.env, NODE_ENV: "test" };
+  fs.mkdirSync(reports, { recursive: true });
+
+  console.log("\n== Typecheck");
+  const typegen = await finished(launch(bin("react-router"), ["typegen"], env));
+  const tsc = typegen === 0 ? await finished(launch(bin("tsc"), ["--noEmit", "-p", "."], env)) : 1;
+  if (tsc === 0) total.passed += 1;
+  else {
+    total.failed += 1;
+    failures.push("typecheck failed");
+  }
+
+  console.log("\n== Unit, reference and integration suites");
+  await vitest("main", ["unit", "reference", "integration"], env);
+
+  console.log("\n== Browser suite");
+  const build = await finished(launch(bin("react-router"), ["build"], env, true));
+  if (build !== 0) {
+    total.failed += 1;
+    failures.push("react-router build failed");
+  } else {
+    const serverEnv = { ...env, NODE_ENV: "production", HOST: "127.0.0.1" };
+    const web = launch(bin("react-router-serve"), ["./build/server/index.js"], serverEnv, true);
+    children.push(web, launch(bin("tsx"), ["scripts/worker.ts"], env, true));
+    const baseUrl = `http://127.0.0.1:${env.PORT}`;
+    await waitForHttp(`${baseUrl}/healthz`, 90_000, web);
+    await vitest("e2e", ["e2e"], {
+      ...env,
+      E2E_BASE_URL: baseUrl,
+      E2E_MAIL_URL: `http://127.0.0.1:${env.FAKE_MAIL_HTTP_PORT}`,
+    });
+  }
+  exitCode = total.failed > 0 ? 1 : 0;
+} catch (error) {
+  console.error(error instanceof Error ? error.stack : error);
+  total.failed += 1;
+  failures.push(`setup: ${error instanceof Error ? error.message : String(error)}`);
+} finally {
+  for (const c of children) await stopChild(c);
+  await stack?.stop();
+}
+
+if (failures.length) console.log(`\nFailures:\n${failures.map((f) => `  - ${f}`).join("\n")}`);
+console.log(`\n${total.passed} passed, ${total.failed} failed${total.skipped ? `, ${total.skipped} skipped` : ""}`);
+process.exit(exitCode || (total.failed > 0 ? 1 : 0));
+
