@@ -1,0 +1,38 @@
+import { User } from "~/models/user.server";
+import { Workshop } from "~/models/workshop.server";
+import { Listing } from "~/models/listing.server";
+import { ListingPhoto } from "~/models/listing-photo.server";
+import { BenchSheet } from "~/models/bench-sheet.server";
+import { RestorationEntry } from "~/models/restoration-entry.server";
+
+// Each model initialises itself on import; this module wires the catalogue's associations.
+// Import catalogue models from here so the associations are always in place.
+
+// Guarded per association: in development a module reload re-creates a model class, and the new
+// class needs its associations again while the untouched ones already have theirs.
+function wire(model: { associations: Record<string, unknown> }, alias: string, declare: () => void) {
+  if (!model.associations[alias]) declare();
+}
+
+wire(Workshop, "owner", () => Workshop.belongsTo(User, { foreignKey: "ownerId", as: "owner" }));
+wire(User, "workshop", () => User.hasOne(Workshop, { foreignKey: "ownerId", as: "workshop" }));
+
+wire(Listing, "seller", () => Listing.belongsTo(User, { foreignKey: "sellerId", as: "seller" }));
+wire(User, "listings", () => User.hasMany(Listing, { foreignKey: "sellerId", as: "listings" }));
+wire(Listing, "workshop", () => Listing.belongsTo(Workshop, { foreignKey: "workshopId", as: "workshop" }));
+wire(Workshop, "listings", () => Workshop.hasMany(Listing, { foreignKey: "workshopId", as: "listings" }));
+
+wire(Listing, "photos", () => Listing.hasMany(ListingPhoto, { foreignKey: "listingId", as: "photos" }));
+wire(ListingPhoto, "listing", () => ListingPhoto.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
+
+wire(Listing, "benchSheet", () => Listing.hasOne(BenchSheet, { foreignKey: "listingId", as: "benchSheet" }));
+wire(BenchSheet, "listing", () => BenchSheet.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
+
+wire(Listing, "restorationEntries", () =>
+  Listing.hasMany(RestorationEntry, { foreignKey: "listingId", as: "restorationEntries" }),
+);
+wire(RestorationEntry, "listing", () =>
+  RestorationEntry.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }),
+);
+
+export { User, Workshop, Listing, ListingPhoto, BenchSheet, RestorationEntry };

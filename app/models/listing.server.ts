@@ -1,0 +1,118 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { sequelize } from "~/db.server";
+import type { Category, CosmeticGrade, ListingStatus, ServiceState, ShippingOption } from "@shared/catalogue";
+
+/**
+ * A unit for sale. Fields a draft may still lack are nullable; the database refuses to move a listing
+ * past draft without maker, model, price, location, condition and a publish time (listings_publishable).
+ * The facet columns (power_8ohm_w …) copy figures from the checked bench sheet so the market can filter
+ * by them; they are null when the sheet has no such reading.
+ */
+export class Listing extends Model<InferAttributes<Listing>, InferCreationAttributes<Listing>> {
+  declare id: CreationOptional<string>;
+  declare sellerId: string;
+  declare workshopId: string | null;
+  declare status: CreationOptional<ListingStatus>;
+  declare category: Category;
+  declare maker: string | null;
+  declare model: string | null;
+  declare yearFrom: number | null;
+  declare yearTo: number | null;
+  /** Stored for disputes and theft checks; never sent to a public page. */
+  declare serialNumber: string | null;
+  declare mainsVoltageV: number | null;
+  declare mainsFrequencyHz: number | null;
+  declare mainsSwitchable: CreationOptional<boolean>;
+  declare weightG: number | null;
+  declare boxedLengthMm: number | null;
+  declare boxedWidthMm: number | null;
+  declare boxedHeightMm: number | null;
+  declare includesManual: CreationOptional<boolean>;
+  declare includesRemote: CreationOptional<boolean>;
+  declare includesOriginalPacking: CreationOptional<boolean>;
+  declare priceMinor: number | null;
+  declare currency: CreationOptional<string>;
+  declare offersWelcome: CreationOptional<boolean>;
+  declare country: string | null;
+  declare region: string | null;
+  declare town: string | null;
+  declare postcode: string | null;
+  declare shippingOptions: CreationOptional<ShippingOption[]>;
+  declare handlingDays: number | null;
+  declare cosmeticGrade: CosmeticGrade | null;
+  declare serviceState: ServiceState | null;
+  declare conditionNote: string | null;
+  declare benchVerified: CreationOptional<boolean>;
+  declare publishedAt: Date | null;
+  declare heldReason: string | null;
+  declare power8ohmW: number | null;
+  declare power4ohmW: number | null;
+  declare thdPct: number | null;
+  declare snrDb: number | null;
+  declare bandwidthHz: number | null;
+  declare wowFlutterPct: number | null;
+  declare sensitivityDb: number | null;
+  declare impedanceOhm: number | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+const nullable = (type: DataTypes.DataType) => ({ type, allowNull: true });
+
+Listing.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    sellerId: { type: DataTypes.UUID, allowNull: false },
+    workshopId: nullable(DataTypes.UUID),
+    status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "draft" },
+    category: { type: DataTypes.TEXT, allowNull: false },
+    maker: nullable(DataTypes.TEXT),
+    model: nullable(DataTypes.TEXT),
+    yearFrom: nullable(DataTypes.SMALLINT),
+    yearTo: nullable(DataTypes.SMALLINT),
+    serialNumber: nullable(DataTypes.TEXT),
+    mainsVoltageV: nullable(DataTypes.SMALLINT),
+    mainsFrequencyHz: nullable(DataTypes.SMALLINT),
+    mainsSwitchable: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    weightG: nullable(DataTypes.INTEGER),
+    boxedLengthMm: nullable(DataTypes.INTEGER),
+    boxedWidthMm: nullable(DataTypes.INTEGER),
+    boxedHeightMm: nullable(DataTypes.INTEGER),
+    includesManual: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    includesRemote: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    includesOriginalPacking: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    priceMinor: nullable(DataTypes.INTEGER),
+    currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "EUR" },
+    offersWelcome: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    country: nullable(DataTypes.CHAR(2)),
+    region: nullable(DataTypes.TEXT),
+    town: nullable(DataTypes.TEXT),
+    postcode: nullable(DataTypes.TEXT),
+    shippingOptions: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+    handlingDays: nullable(DataTypes.SMALLINT),
+    cosmeticGrade: nullable(DataTypes.TEXT),
+    serviceState: nullable(DataTypes.TEXT),
+    conditionNote: nullable(DataTypes.TEXT),
+    benchVerified: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    publishedAt: nullable(DataTypes.DATE),
+    heldReason: nullable(DataTypes.TEXT),
+    power8ohmW: { type: DataTypes.DOUBLE, allowNull: true, field: "power_8ohm_w" },
+    power4ohmW: { type: DataTypes.DOUBLE, allowNull: true, field: "power_4ohm_w" },
+    thdPct: nullable(DataTypes.DOUBLE),
+    snrDb: nullable(DataTypes.DOUBLE),
+    bandwidthHz: nullable(DataTypes.DOUBLE),
+    wowFlutterPct: nullable(DataTypes.DOUBLE),
+    sensitivityDb: nullable(DataTypes.DOUBLE),
+    impedanceOhm: nullable(DataTypes.DOUBLE),
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  {
+    sequelize,
+    tableName: "listings",
+    underscored: true,
+    // Keeps the serial number out of anything that serialises a listing by accident.
+    defaultScope: { attributes: { exclude: ["serialNumber"] } },
+    scopes: { withSerial: { attributes: { include: ["serialNumber"] } } },
+  },
+);
