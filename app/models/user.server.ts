@@ -1,0 +1,36 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { sequelize } from "~/db.server";
+import type { Role } from "~/auth/roles";
+
+export type AccountStatus = "active" | "suspended";
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<string>;
+  declare email: string;
+  declare emailVerifiedAt: Date | null;
+  declare passwordHash: string | null;
+  declare displayName: string;
+  declare roles: CreationOptional<Role[]>;
+  declare status: CreationOptional<AccountStatus>;
+  declare sessionVersion: CreationOptional<number>;
+  declare lastSignInAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+User.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    email: { type: DataTypes.CITEXT, allowNull: false, unique: true },
+    emailVerifiedAt: { type: DataTypes.DATE, allowNull: true },
+    passwordHash: { type: DataTypes.TEXT, allowNull: true },
+    displayName: { type: DataTypes.TEXT, allowNull: false },
+    roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: ["buyer"] },
+    status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "active" },
+    sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    lastSignInAt: { type: DataTypes.DATE, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "users", underscored: true },
+);
