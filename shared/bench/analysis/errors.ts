@@ -14,7 +14,8 @@ export type CaptureErrorCode =
   | "CSV_TOO_FEW_ROWS"
   | "CSV_NOT_INCREASING"
   | "SWEEP_INVALID"
-  | "SQUARE_NO_EDGE";
+  | "SQUARE_NO_EDGE"
+  | "KIND_MISMATCH";
 
 /** HTTP status that fits each code: 413 for size, 422 for a file we read but cannot accept. */
 export const CAPTURE_ERROR_STATUS: Record<CaptureErrorCode, 413 | 422> = {
@@ -32,6 +33,7 @@ export const CAPTURE_ERROR_STATUS: Record<CaptureErrorCode, 413 | 422> = {
   CSV_NOT_INCREASING: 422,
   SWEEP_INVALID: 422,
   SQUARE_NO_EDGE: 422,
+  KIND_MISMATCH: 422,
 };
 
 export class CaptureError extends Error {

@@ -9,3 +9,4 @@ export * from "./sweep";
 export * from "./csv";
 export * from "./clipping";
 export { aWeightingPowerTable } from "./weighting";
+export * from "./conditions";

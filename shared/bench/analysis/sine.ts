@@ -18,7 +18,7 @@ export interface SineConditions {
   /** Measurement bandwidth for THD+N, noise and which harmonics count (AES17: 20 Hz–20 kHz). */
   bandwidth?: { lowHz: number; highHz: number };
   /** Weighting applied to the residual (THD+N, noise, SNR). */
-  weighting?: "none" | "A";
+  weighting?: "unweighted" | "A";
   window?: WindowName;
   /** Finest frequency resolution asked for; the capture must be at least 1/resolution seconds long. */
   resolutionHz?: number;
@@ -26,7 +26,7 @@ export interface SineConditions {
 
 export const SINE_DEFAULTS = {
   bandwidth: { lowHz: 20, highHz: 20_000 },
-  weighting: "none" as const,
+  weighting: "unweighted" as const,
   window: "blackman-harris-7" as const,
   resolutionHz: 5,
 };
@@ -37,7 +37,7 @@ export interface ResolvedSineConditions {
   loadOhms: number | null;
   statedFundamentalHz: number | null;
   bandwidth: { lowHz: number; highHz: number };
-  weighting: "none" | "A";
+  weighting: "unweighted" | "A";
   window: WindowName;
   resolutionHz: number;
   sampleRate: number;
@@ -79,8 +79,8 @@ export interface SineChannelAnalysis {
   /** THD relative to the total of fundamental and harmonics (THD_R, IEC 60268 d_t). */
   thdR: { ratio: number; percent: Figure<"%"> };
   /** Everything in band but the fundamental, relative to the fundamental. */
-  thdN: { ratio: number; percent: Figure<"%">; db: Figure<"dB">; weighting: "none" | "A" };
-  noise: { rms: Figure<"V">; dBV: Figure<"dBV">; density: Figure<"V/√Hz">; weighting: "none" | "A" };
+  thdN: { ratio: number; percent: Figure<"%">; db: Figure<"dB">; weighting: "unweighted" | "A" };
+  noise: { rms: Figure<"V">; dBV: Figure<"dBV">; density: Figure<"V/√Hz">; weighting: "unweighted" | "A" };
   /** Fundamental over the in-band noise (harmonics excluded). */
   snr: Figure<"dB">;
 }

@@ -16,6 +16,8 @@ export interface SweepConditions {
 
 export interface SweepPoint {
   frequency: number;
+  /** Level as read, in dB (volts converted to dBV). */
+  levelDb: number;
   /** Response re 1 kHz, dB. */
   relativeDb: number;
   /** Target re 1 kHz, dB (0 for flat). */
@@ -82,7 +84,7 @@ export function analyseSweep(frequency: Float64Array, level: Float64Array, c: Sw
   const points: SweepPoint[] = Array.from(f, (fi, i) => {
     const relativeDb = db[i] - ref;
     const targetDb = reference === "riaa" ? riaaPlaybackDb(fi, { iecPole }) : 0;
-    return { frequency: fi, relativeDb, targetDb, deviationDb: relativeDb - targetDb };
+    return { frequency: fi, levelDb: db[i], relativeDb, targetDb, deviationDb: relativeDb - targetDb };
   });
 
   const band = { lowHz: Math.max(c.band?.lowHz ?? 20, lo), highHz: Math.min(c.band?.highHz ?? 20_000, hi) };

@@ -1,0 +1,74 @@
+// The conditions a capture is uploaded with, validated the same way in the browser form and on the server.
+import { z } from "zod";
+
+const hz = z.number().positive().max(1_000_000);
+const band = z
+  .strictObject({ lowHz: hz, highHz: hz })
+  .refine((b) => b.lowHz < b.highHz, { message: "The low end must be below the high end.", path: ["highHz"] });
+
+export const captureScaleSchema = z.discriminatedUnion("kind", [
+  z.strictObject({
+    kind: z.literal("volts-per-full-scale"),
+    /** Volts at the unit's output that a full-scale sample stands for. */
+    volts: z.number().positive().max(10_000),
+    /** "peak": the full-scale sample's own value; "rms": the rms of a sine that just reaches full scale. */
+    basis: z.enum(["peak", "rms"]),
+  }),
+  z.strictObject({
+    kind: z.literal("analyser"),
+    /** The analyser's full scale at its input, volts. */
+    fullScaleVolts: z.number().positive().max(1_000),
+    basis: z.enum(["peak", "rms"]),
+    /** Unit output ÷ analyser input: 1 direct, 10 for a 10:1 divider or probe. */
+    attenuation: z.number().positive().max(10_000),
+  }),
+]);
+
+const channel = z.enum(["left", "right", "mono", "both"]);
+
+export const sineCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("sine"),
+  scale: captureScaleSchema,
+  loadOhm: z.number().positive().max(1_000_000).optional(),
+  fundamentalHz: hz.optional(),
+  bandwidth: band.optional(),
+  weighting: z.enum(["unweighted", "A"]).default("unweighted"),
+  window: z.enum(["blackman-harris-7", "blackman-harris-4", "flat-top", "hann"]).default("blackman-harris-7"),
+  resolutionHz: z.number().positive().max(1_000).optional(),
+  /** For a mono file: which of the unit's channels it holds. A stereo file is left, right. */
+  channel: channel.optional(),
+  channelsDriven: z.enum(["one", "both", "all"]).optional(),
+  mainsV: z.number().positive().max(480).optional(),
+  warmUpS: z.number().nonnegative().max(7 * 86_400).optional(),
+});
+
+export const squareCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("square"),
+  channel: channel.optional(),
+  loadOhm: z.number().positive().max(1_000_000).optional(),
+  /** Square-wave repetition frequency, for the record. */
+  frequencyHz: hz.optional(),
+});
+
+export const sweepCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("sweep"),
+  levelUnit: z.enum(["dB", "V"]).optional(),
+  reference: z.enum(["flat", "riaa"]).default("flat"),
+  iecPole: z.boolean().default(false),
+  band: band.optional(),
+  channel: channel.optional(),
+  loadOhm: z.number().positive().max(1_000_000).optional(),
+});
+
+export const captureConditionsSchema = z.discriminatedUnion("kind", [
+  sineCaptureConditionsSchema,
+  squareCaptureConditionsSchema,
+  sweepCaptureConditionsSchema,
+]);
+
+export type CaptureConditions = z.infer<typeof captureConditionsSchema>;
+export type CaptureConditionsInput = z.input<typeof captureConditionsSchema>;
+export type SineCaptureConditions = z.infer<typeof sineCaptureConditionsSchema>;
+export type SquareCaptureConditions = z.infer<typeof squareCaptureConditionsSchema>;
+export type SweepCaptureConditions = z.infer<typeof sweepCaptureConditionsSchema>;
+export type CaptureKind = CaptureConditions["kind"];
