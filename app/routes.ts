@@ -2,4 +2,17 @@ import { type RouteConfig, index, route } from "@react-router/dev/routes";
 
 export default [
   index("routes/home.tsx"),
+
+  // Accounts, sign-in and roles
+  route("sign-up", "routes/account/sign-up.tsx"),
+  route("sign-in", "routes/account/sign-in.tsx"),
+  route("sign-out", "routes/account/sign-out.tsx"),
+  route("verify-email/:token", "routes/account/verify-email.tsx"),
+  route("forgot-password", "routes/account/forgot-password.tsx"),
+  route("reset-password/:token", "routes/account/reset-password.tsx"),
+  route("auth/oauth", "routes/account/oauth-start.tsx"),
+  route("auth/oauth/callback", "routes/account/oauth-callback.tsx"),
+  route("account", "routes/account/account.tsx"),
+  route("admin/users", "routes/admin/users.tsx"),
+  route("desk", "routes/desk/desk.tsx"),
 ] satisfies RouteConfig;

@@ -1,0 +1,93 @@
+import { data, redirect } from "react-router";
+import { User } from "~/models/user.server";
+import { getSession } from "~/auth/session.server";
+import { signInPath } from "~/auth/redirect";
+import { normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
+
+// THE path for authentication and authorisation: every loader, action and API route that needs a
+// signed-in account or a role goes through requireUser / requireRole here.
+
+export interface SessionUser {
+  id: string;
+  email: string;
+  displayName: string;
+  roles: Role[];
+  emailVerified: boolean;
+}
+
+// Root and route loaders of one request share the lookup.
+const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
+
+/** The signed-in account, or null. A cookie for a suspended account, or from before a password reset, counts as none. */
+export function getUser(request: Request): Promise<SessionUser | null> {
+  let pending = perRequest.get(request);
+  if (!pending) {
+    pending = loadUser(request);
+    perRequest.set(request, pending);
+  }
+  return pending;
+}
+
+async function loadUser(request: Request): Promise<SessionUser | null> {
+  const session = await getSession(request);
+  const userId = session.get("userId");
+  if (!userId || !/^[0-9a-f-]{36}$/i.test(userId)) return null;
+  const user = await User.findByPk(userId);
+  if (!user || user.status !== "active" || user.sessionVersion !== session.get("sessionVersion")) return null;
+  return {
+    id: user.id,
+    email: user.email,
+    displayName: user.displayName,
+    roles: normaliseRoles(user.roles),
+    emailVerified: user.emailVerifiedAt !== null,
+  };
+}
+
+export function isApiRequest(request: Request): boolean {
+  return new URL(request.url).pathname.startsWith("/api/");
+}
+
+/**
+ * The signed-in account, or a refusal: pages redirect to sign-in (and come back afterwards),
+ * API routes get 401 JSON.
+ */
+export async function requireUser(request: Request, options: { redirectTo?: string } = {}): Promise<SessionUser> {
+  const user = await getUser(request);
+  if (user) return user;
+  if (isApiRequest(request)) {
+    throw Response.json({ error: "unauthenticated", reason: "Sign in to use this." }, { status: 401 });
+  }
+  const url = new URL(request.url);
+  throw redirect(signInPath(options.redirectTo ?? `${url.pathname}${url.search}`));
+}
+
+export function hasRole(user: Pick<SessionUser, "roles"> | null, role: Role | readonly Role[]): boolean {
+  if (!user) return false;
+  const wanted = typeof role === "string" ? [role] : role;
+  return wanted.some((r) => user.roles.includes(r));
+}
+
+/** The body of a 403 page; the root error boundary shows `message`. */
+export interface ForbiddenData {
+  message: string;
+  roles: Role[];
+}
+
+/** Like requireUser, and the account must hold one of the roles: otherwise 403 (a page, or JSON for APIs). */
+export async function requireRole(request: Request, role: Role | readonly Role[]): Promise<SessionUser> {
+  const user = await requireUser(request);
+  if (hasRole(user, role)) return user;
+  const wanted = typeof role === "string" ? [role] : [...role];
+  const names = wanted.map((r) => ROLE_LABELS[r].toLowerCase() + "s");
+  if (isApiRequest(request)) {
+    const reason = `This needs the ${wanted.join(" or ")} role.`;
+    throw Response.json({ error: "forbidden", reason, roles: wanted }, { status: 403 });
+  }
+  const message = `This page is for ${names.join(" and ")} only. Your account does not have that role.`;
+  throw data<ForbiddenData>({ message, roles: wanted }, { status: 403, statusText: "Forbidden" });
+}
+
+/** For pages only a visitor who is not signed in should see (sign-in, sign-up): a signed-in one is sent on. */
+export async function redirectIfSignedIn(request: Request, to = "/account"): Promise<void> {
+  if (await getUser(request)) throw redirect(to);
+}

@@ -1,0 +1,77 @@
+import { CATEGORY_LABELS } from "@shared/catalogue";
+import { Listing, User, Workshop } from "~/models/index.server";
+
+// The review desk's queue: listings held for review and workshops waiting to be verified, oldest
+// first so nothing waits longest. (Acting on them arrives with the moderation work.)
+
+export const QUEUE_LIMIT = 100;
+
+export interface HeldListingItem {
+  id: string;
+  title: string;
+  category: string;
+  reason: string;
+  seller: string;
+  workshop: string | null;
+  since: string;
+}
+
+export interface WorkshopApplicationItem {
+  id: string;
+  name: string;
+  place: string;
+  owner: string;
+  ownerEmail: string;
+  since: string;
+}
+
+export async function reviewQueue() {
+  const [held, heldCount, applications, applicationCount] = await Promise.all([
+    Listing.findAll({
+      where: { status: "held" },
+      include: [
+        { model: User, as: "seller", attributes: ["displayName"] },
+        { model: Workshop, as: "workshop", attributes: ["name"] },
+      ],
+      order: [["updatedAt", "ASC"]],
+      limit: QUEUE_LIMIT,
+    }),
+    Listing.count({ where: { status: "held" } }),
+    Workshop.findAll({
+      where: { verificationStatus: "applied" },
+      include: [{ model: User, as: "owner", attributes: ["displayName", "email"] }],
+      order: [["createdAt", "ASC"]],
+      limit: QUEUE_LIMIT,
+    }),
+    Workshop.count({ where: { verificationStatus: "applied" } }),
+  ]);
+
+  type WithSeller = Listing & { seller?: User; workshop?: Workshop | null };
+  type WithOwner = Workshop & { owner?: User };
+
+  return {
+    heldListings: (held as WithSeller[]).map(
+      (l): HeldListingItem => ({
+        id: l.id,
+        title: [l.maker, l.model].filter(Boolean).join(" ") || "Untitled unit",
+        category: CATEGORY_LABELS[l.category]?.one ?? l.category,
+        reason: l.heldReason ?? "",
+        seller: l.seller?.displayName ?? "unknown seller",
+        workshop: l.workshop?.name ?? null,
+        since: l.updatedAt.toISOString(),
+      }),
+    ),
+    heldCount,
+    workshopApplications: (applications as WithOwner[]).map(
+      (w): WorkshopApplicationItem => ({
+        id: w.id,
+        name: w.name,
+        place: [w.town, w.region, w.country].filter(Boolean).join(", "),
+        owner: w.owner?.displayName ?? "unknown",
+        ownerEmail: w.owner?.email ?? "",
+        since: w.createdAt.toISOString(),
+      }),
+    ),
+    applicationCount,
+  };
+}

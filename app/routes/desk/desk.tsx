@@ -1,0 +1,89 @@
+import type { Route } from "./+types/desk";
+import { Badge } from "~/components/Badge";
+import { Card, CardTitle } from "~/components/Card";
+import { PageHeader } from "~/components/PageHeader";
+import { requireRole } from "~/auth/guards.server";
+import { reviewQueue, type HeldListingItem, type WorkshopApplicationItem } from "~/desk/queue.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Review desk · Loadline" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireRole(request, "moderator");
+  return reviewQueue();
+}
+
+function day(iso: string) {
+  return new Date(iso).toISOString().slice(0, 10);
+}
+
+export default function Desk({ loaderData }: Route.ComponentProps) {
+  const { heldListings, heldCount, workshopApplications, applicationCount } = loaderData;
+  const clear = heldCount === 0 && applicationCount === 0;
+  return (
+    <main className="mx-auto w-full max-w-5xl space-y-8 px-4 py-10">
+      <PageHeader
+        overline="Moderation"
+        title="Review desk"
+        lede={
+          clear
+            ? "The queue is clear: no listing is held for review and no workshop is waiting to be verified."
+            : `${heldCount} listing${heldCount === 1 ? "" : "s"} held for review · ${applicationCount} workshop application${applicationCount === 1 ? "" : "s"}, oldest first.`
+        }
+      />
+      <Queue title="Listings held for review" count={heldCount} empty="No listing is held for review.">
+        {heldListings.map((l) => (
+          <HeldListing key={l.id} item={l} />
+        ))}
+      </Queue>
+      <Queue title="Workshop applications" count={applicationCount} empty="No workshop is waiting to be verified.">
+        {workshopApplications.map((w) => (
+          <Application key={w.id} item={w} />
+        ))}
+      </Queue>
+    </main>
+  );
+}
+
+function Queue({ title, count, empty, children }: { title: string; count: number; empty: string; children: React.ReactNode }) {
+  return (
+    <Card className="space-y-4">
+      <div className="flex items-baseline justify-between gap-3">
+        <CardTitle>{title}</CardTitle>
+        <span className="figures text-sm text-ink-soft">{count}</span>
+      </div>
+      {count === 0 ? <p className="text-sm text-ink-soft">{empty}</p> : <ul className="divide-y divide-rule">{children}</ul>}
+    </Card>
+  );
+}
+
+function HeldListing({ item }: { item: HeldListingItem }) {
+  return (
+    <li className="space-y-1 py-3">
+      <p className="flex flex-wrap items-center gap-2">
+        <span className="font-serif text-lg">{item.title}</span>
+        <Badge tone="brass">Held for review</Badge>
+        <span className="text-sm text-ink-faint">{item.category}</span>
+      </p>
+      <p className="text-sm">{item.reason}</p>
+      <p className="text-xs text-ink-faint">
+        {item.workshop ? `${item.workshop} (${item.seller})` : item.seller} · held since{" "}
+        <span className="figures">{day(item.since)}</span>
+      </p>
+    </li>
+  );
+}
+
+function Application({ item }: { item: WorkshopApplicationItem }) {
+  return (
+    <li className="space-y-1 py-3">
+      <p className="flex flex-wrap items-center gap-2">
+        <span className="font-serif text-lg">{item.name}</span>
+        <Badge tone="walnut">Applied</Badge>
+      </p>
+      <p className="text-sm text-ink-soft">{item.place}</p>
+      <p className="text-xs text-ink-faint">
+        {item.owner} · {item.ownerEmail} · applied <span className="figures">{day(item.since)}</span>
+      </p>
+    </li>
+  );
+}
