@@ -1,11 +1,22 @@
 import { OAuth2Server, type MutableResponse, type MutableToken } from "oauth2-mock-server";
-import { createHash, timingSafeEqual } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { createHash } from "node:crypto";
 import { createServer, type IncomingMessage, type ServerResponse } from "node:http";
-import path from "node:path";
 import { z } from "zod";
 import { close, listen, readBody, redirect, sendHtml, sendJson } from "./http";
 import { badRequestPage, signInPage } from "./oauth-pages";
+import {
+  loadOrCreateKey,
+  nameFromEmail,
+  oauthEndpoints,
+  pick,
+  proxy,
+  safeDecode,
+  sameText,
+  subjectFor,
+  type OAuthEndpoints,
+} from "./oauth-support";
+
+export { nameFromEmail, oauthEndpoints, subjectFor, type OAuthEndpoints };
 
 // Local OpenID provider. oauth2-mock-server issues the tokens and serves discovery, JWKS and
 // userinfo; in front of it sits our own server that adds what the mock leaves out: a screen to
@@ -36,39 +47,6 @@ export interface RunningOAuthProvider {
   issuer: string;
   endpoints: OAuthEndpoints;
   stop(): Promise<void>;
-}
-
-export interface OAuthEndpoints {
-  discovery: string;
-  authorization: string;
-  token: string;
-  userinfo: string;
-  jwks: string;
-}
-
-export function oauthEndpoints(issuer: string): OAuthEndpoints {
-  const base = issuer.replace(/\/+$/, "");
-  return {
-    discovery: `${base}/.well-known/openid-configuration`,
-    authorization: `${base}/authorize`,
-    token: `${base}/token`,
-    userinfo: `${base}/userinfo`,
-    jwks: `${base}/jwks`,
-  };
-}
-
-/** Stable subject per address, so a returning person is recognised after a restart. */
-export function subjectFor(email: string): string {
-  return "lp-" + createHash("sha256").update(`loadline-local:${email.trim().toLowerCase()}`).digest("hex").slice(0, 24);
-}
-
-export function nameFromEmail(email: string): string {
-  const local = email.split("@")[0] ?? email;
-  return local
-    .split(/[._+-]+/)
-    .filter(Boolean)
-    .map((w) => w[0].toUpperCase() + w.slice(1))
-    .join(" ");
 }
 
 interface PendingCode {
@@ -301,47 +279,4 @@ export async function startOAuthProvider(opts: OAuthProviderOptions): Promise<Ru
       if (mock.listening) await mock.stop();
     },
   };
-}
-
-async function proxy(res: ServerResponse, url: string, init: RequestInit & { headers: Record<string, string> }) {
-  const answer = await fetch(url, { ...init, redirect: "manual" });
-  const headers: Record<string, string> = {};
-  for (const h of ["content-type", "cache-control", "pragma", "www-authenticate"]) {
-    const v = answer.headers.get(h);
-    if (v) headers[h] = v;
-  }
-  res.writeHead(answer.status, headers);
-  res.end(Buffer.from(await answer.arrayBuffer()));
-}
-
-function pick(req: IncomingMessage, names: string[]): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const n of names) if (typeof req.headers[n] === "string") out[n] = req.headers[n] as string;
-  return out;
-}
-
-function safeDecode(s: string): string {
-  try {
-    return decodeURIComponent(s.replace(/\+/g, " "));
-  } catch {
-    return s;
-  }
-}
-
-function sameText(a: string, b: string): boolean {
-  const x = Buffer.from(a);
-  const y = Buffer.from(b);
-  return x.length === y.length && timingSafeEqual(x, y);
-}
-
-async function loadOrCreateKey(mock: OAuth2Server, keyFile?: string): Promise<void> {
-  if (keyFile && existsSync(keyFile)) {
-    await mock.issuer.keys.add(JSON.parse(readFileSync(keyFile, "utf8")));
-    return;
-  }
-  const jwk = await mock.issuer.keys.generate("RS256");
-  if (keyFile) {
-    mkdirSync(path.dirname(keyFile), { recursive: true });
-    writeFileSync(keyFile, JSON.stringify(jwk), { mode: 0o600 });
-  }
 }
