@@ -10,3 +10,4 @@ export * from "./csv";
 export * from "./clipping";
 export { aWeightingPowerTable } from "./weighting";
 export * from "./conditions";
+export * from "./to-readings";

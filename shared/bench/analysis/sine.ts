@@ -231,21 +231,19 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
   let noise = 0;
   let noiseRaw = 0;
   let noiseBins = 0;
-  let residualBins = 0;
   for (let k = bLo; k <= bHi; k++) {
     const m = mask[k];
     if (m === 1) continue;
     const pk = weights ? p[k] * weights[k] : p[k];
     residual += pk;
-    residualBins++;
     if (m === 0) {
       noise += pk;
       noiseRaw += p[k];
       noiseBins++;
     }
   }
-  // Stand the noise in for the harmonic zones it could not be read in.
-  const noisePower = noiseBins > 0 ? (noise * residualBins) / noiseBins : 0;
+  // Noise is what the band holds outside the fundamental and harmonic zones (the zones are under 1 % of it).
+  const noisePower = noise;
 
   // A tone must stand well clear of the noise in the same number of bins (30 dB).
   const noisePerZone = noiseBins > 0 ? (noiseRaw / noiseBins) * (fz.hi - fz.lo + 1) : 0;

@@ -1,0 +1,194 @@
+// Capture files in, measurements out: identify, refuse what cannot be measured, analyse, map to readings.
+import {
+  CaptureError,
+  analyseSine,
+  analyseSquare,
+  analyseSweep,
+  captureConditionsSchema,
+  findClippedRun,
+  parseTwoColumnCsv,
+  headerUnit,
+  sineToReadings,
+  squareToReadings,
+  sweepToSheet,
+  SQUARE_COLUMNS,
+  SWEEP_COLUMNS,
+  SINE_DEFAULTS,
+  type CaptureConditions,
+  type CaptureKind,
+  type SineAnalysis,
+  type SineCaptureConditions,
+  type SquareAnalysis,
+  type SweepAnalysis,
+  type SweepCaptureConditions,
+} from "@shared/bench/analysis";
+import type { Reading, Sweep } from "@shared/bench/schema";
+import { sniff } from "./sniff.server";
+import { decodeWavData, readWavFormat, type DecodedWav, type WavFormat } from "./wav.server";
+
+export { CaptureError, isCaptureError } from "@shared/bench/analysis";
+
+export const CAPTURE_LIMITS = { maxBytes: 50 * 1024 * 1024, maxSeconds: 60 } as const;
+
+export type CaptureFileKind = "wav" | "csv";
+
+export type CaptureFormat =
+  | ({ file: "wav" } & WavFormat)
+  | { file: "csv"; rows: number; header: [string, string] | null };
+
+export type CaptureAnalysis =
+  | { kind: "sine"; analysis: SineAnalysis; readings: Reading[]; format: CaptureFormat }
+  | { kind: "square"; analysis: SquareAnalysis; readings: Reading[]; format: CaptureFormat }
+  | { kind: "sweep"; analysis: SweepAnalysis; readings: Reading[]; sweep: Sweep; format: CaptureFormat };
+
+const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
+
+/** WAV or CSV, judged by content; the name only sharpens the message. */
+export function identifyCapture(bytes: Uint8Array, filename: string): CaptureFileKind {
+  if (bytes.length === 0) throw new CaptureError("EMPTY_FILE", "The file is empty.");
+  if (bytes.length > CAPTURE_LIMITS.maxBytes) {
+    throw new CaptureError("FILE_TOO_LARGE", `The file is ${mb(bytes.length)}; captures are limited to ${mb(CAPTURE_LIMITS.maxBytes)}.`, {
+      bytes: bytes.length,
+      limit: CAPTURE_LIMITS.maxBytes,
+    });
+  }
+  const s = sniff(bytes);
+  const namedWav = /\.wave?$/i.test(filename);
+  if (s.kind === "wav") return "wav";
+  if (s.kind === "text") {
+    if (namedWav) throw new CaptureError("NOT_WAV", `"${filename}" is named as a WAV but holds text, not audio.`);
+    return "csv";
+  }
+  if (namedWav) throw new CaptureError("NOT_WAV", `"${filename}" is named as a WAV but is ${s.description}.`);
+  throw new CaptureError("UNSUPPORTED_FORMAT", `The file is ${s.description}; upload a WAV (PCM or float) or a CSV.`);
+}
+
+/** The kind the file implies when the uploader did not say: WAV → sine; CSV by its header. */
+export function inferKind(bytes: Uint8Array, file: CaptureFileKind): CaptureKind | null {
+  if (file === "wav") return "sine";
+  const head = new TextDecoder().decode(bytes.subarray(0, 2048)).toLowerCase();
+  const firstLine = head.split(/\r?\n/).find((l) => l.trim() !== "" && !l.trim().startsWith("#")) ?? "";
+  if (/\btime\b|^\s*t\s*[,;\t]/.test(firstLine)) return "square";
+  if (/freq|hz/.test(firstLine)) return "sweep";
+  return null;
+}
+
+const FILE_FOR_KIND: Record<CaptureKind, CaptureFileKind> = { sine: "wav", square: "csv", sweep: "csv" };
+const KIND_WORDS: Record<CaptureKind, string> = {
+  sine: "a sine capture (WAV)",
+  square: "a square-wave response (CSV time,volts)",
+  sweep: "a frequency sweep (CSV frequency,level)",
+};
+
+function checkKind(kind: CaptureKind, file: CaptureFileKind) {
+  if (FILE_FOR_KIND[kind] !== file) {
+    throw new CaptureError(
+      "KIND_MISMATCH",
+      `The conditions describe ${KIND_WORDS[kind]}, but the file is a ${file.toUpperCase()}.`,
+      { kind, file },
+    );
+  }
+}
+
+function checkWav(w: WavFormat, c: SineCaptureConditions) {
+  if (w.durationS > CAPTURE_LIMITS.maxSeconds) {
+    throw new CaptureError("TOO_LONG", `The capture lasts ${w.durationS.toFixed(1)} s; captures are limited to ${CAPTURE_LIMITS.maxSeconds} s.`, {
+      seconds: w.durationS,
+    });
+  }
+  const resolution = c.resolutionHz ?? SINE_DEFAULTS.resolutionHz;
+  const need = Math.ceil(w.sampleRate / resolution);
+  if (w.frames < need) {
+    throw new CaptureError(
+      "TOO_SHORT",
+      `The capture holds ${w.durationS.toFixed(3)} s (${w.frames} samples at ${w.sampleRate} Hz); a ${resolution} Hz resolution needs at least ${(need / w.sampleRate).toFixed(3)} s.`,
+      { frames: w.frames, neededFrames: need },
+    );
+  }
+}
+
+function checkSamples(d: DecodedWav) {
+  const names = d.channels === 1 ? ["mono"] : ["left", "right"];
+  d.samples.forEach((x, i) => {
+    const run = findClippedRun(x, d.positiveFullScale);
+    if (run) {
+      throw new CaptureError(
+        "CLIPPED",
+        `The ${names[i]} channel sits at digital full scale for ${run.length} samples from ${(run.index / d.sampleRate).toFixed(3)} s: the analyser input was overloaded. Add attenuation and capture again.`,
+        { channel: names[i], atSeconds: run.index / d.sampleRate, samples: run.length },
+      );
+    }
+    let peak = 0;
+    for (let k = 0; k < x.length; k++) peak = Math.max(peak, Math.abs(x[k]));
+    if (peak < 1e-7) throw new CaptureError("NO_FUNDAMENTAL", `No fundamental found: the ${names[i]} channel is silent.`, { channel: names[i] });
+  });
+}
+
+/**
+ * Everything that can be refused before the file is stored: kind, format, size, length, clipping, silence,
+ * CSV structure. Returns the validated conditions and what the file holds.
+ */
+export function preflightCapture(bytes: Uint8Array, filename: string, conditions: CaptureConditions): CaptureFormat {
+  const file = identifyCapture(bytes, filename);
+  checkKind(conditions.kind, file);
+  if (conditions.kind === "sine") {
+    const { format, data } = readWavFormat(bytes);
+    checkWav(format, conditions);
+    checkSamples(decodeWavData(format, data));
+    return { file: "wav", ...format };
+  }
+  const cols = readCsv(bytes, conditions.kind);
+  return { file: "csv", rows: cols.x.length, header: cols.header };
+}
+
+function readCsv(bytes: Uint8Array, kind: "square" | "sweep") {
+  const text = new TextDecoder("utf-8").decode(bytes);
+  return parseTwoColumnCsv(text, kind === "square" ? SQUARE_COLUMNS : SWEEP_COLUMNS);
+}
+
+/** The sweep's level unit: as stated, else as the header says, else dB. */
+function sweepLevelUnit(c: SweepCaptureConditions, header: [string, string] | null): "dB" | "V" {
+  if (c.levelUnit) return c.levelUnit;
+  const unit = header ? (headerUnit(header[1]) ?? header[1].toLowerCase()) : "";
+  return /^(v|volts?|vrms|voltage)$/.test(unit.trim()) ? "V" : "dB";
+}
+
+export function analyseCapture(bytes: Uint8Array, filename: string, conditions: CaptureConditions, captureId: string): CaptureAnalysis {
+  const file = identifyCapture(bytes, filename);
+  checkKind(conditions.kind, file);
+  if (conditions.kind === "sine") {
+    const { format: wavFormat, data } = readWavFormat(bytes);
+    checkWav(wavFormat, conditions);
+    const d = decodeWavData(wavFormat, data);
+    checkSamples(d);
+    const labels = d.channels === 1 ? ["mono"] : ["left", "right"];
+    const analysis = analyseSine(
+      d.samples,
+      d.sampleRate,
+      {
+        scale: conditions.scale,
+        loadOhms: conditions.loadOhm,
+        fundamentalHz: conditions.fundamentalHz,
+        bandwidth: conditions.bandwidth,
+        weighting: conditions.weighting,
+        window: conditions.window,
+        resolutionHz: conditions.resolutionHz,
+      },
+      labels,
+    );
+    const { samples: _omit, positiveFullScale: _pfs, ...format } = d;
+    return { kind: "sine", analysis, readings: sineToReadings(analysis, conditions, captureId), format: { file: "wav", ...format } };
+  }
+  const cols = readCsv(bytes, conditions.kind);
+  const format: CaptureFormat = { file: "csv", rows: cols.x.length, header: cols.header };
+  if (conditions.kind === "square") {
+    const analysis = analyseSquare(cols.x, cols.y);
+    return { kind: "square", analysis, readings: squareToReadings(analysis, conditions, captureId), format };
+  }
+  const levelUnit = sweepLevelUnit(conditions, cols.header);
+  const analysis = analyseSweep(cols.x, cols.y, { levelUnit, reference: conditions.reference, iecPole: conditions.iecPole, band: conditions.band });
+  const { sweep, readings } = sweepToSheet(analysis, { ...conditions, levelUnit }, captureId);
+  return { kind: "sweep", analysis, readings, sweep, format };
+}
+
+export { captureConditionsSchema };
