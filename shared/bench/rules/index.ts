@@ -1,0 +1,37 @@
+// Every rule the bench runs, in the order the verdict lists them: completeness first, then physics.
+import { channelBalance } from "./balance";
+import { analyserResolution, distortionConditions, noiseConditions, thdnNotBelowThd } from "./distortion";
+import { speakerImpedanceMinimum, speakerSensitivity } from "./loudspeaker";
+import { riaaAccuracy } from "./phono";
+import { halfLoadPower, peakWithinRails, powerRatingConditions, powerVoltageLoad, ratedVsMeasuredPower } from "./power";
+import { requiredReadings } from "./required";
+import { dampingVsImpedance, riseTimeBandwidth, slewRateFullPower } from "./response";
+import { speedError, wowFlutter } from "./transport";
+import type { Rule } from "./types";
+
+export const RULES: readonly Rule[] = [
+  requiredReadings,
+  powerRatingConditions,
+  distortionConditions,
+  noiseConditions,
+  powerVoltageLoad,
+  halfLoadPower,
+  peakWithinRails,
+  ratedVsMeasuredPower,
+  thdnNotBelowThd,
+  analyserResolution,
+  riseTimeBandwidth,
+  slewRateFullPower,
+  dampingVsImpedance,
+  channelBalance,
+  speakerImpedanceMinimum,
+  speakerSensitivity,
+  riaaAccuracy,
+  speedError,
+  wowFlutter,
+];
+
+/** Rule ids are stable: listings, flags and the API refer to them. */
+export const RULE_IDS = RULES.map((r) => r.id);
+
+export type { Rule } from "./types";

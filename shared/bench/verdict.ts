@@ -1,0 +1,142 @@
+// Runs every rule over a sheet and decides bench-verified.
+import { CATEGORY_LABELS, QUANTITY_INFO, type Category, type Quantity } from "./quantities";
+import type { BenchSheet, Reading } from "./schema";
+import { formatReadingValue } from "./describe";
+import { RULES } from "./rules";
+import { deriveFlatSweeps } from "./rules/phono";
+import {
+  OUTCOMES,
+  baseUnit,
+  type DerivedValue,
+  type Emit,
+  type Item,
+  type Outcome,
+  type RuleResult,
+  type SheetIndex,
+  type Shortfall,
+  type SkippedRule,
+  type SweepItem,
+} from "./rules/types";
+import { formatValue } from "./units";
+
+/** Bumped whenever a rule, threshold or requirement changes, so stored verdicts can be re-run. */
+export const BENCH_RULES_VERSION = 1;
+
+export type CaptureFigure = { ref: string; quantity: Quantity | "sweep"; label: string; display: string; captureId?: string };
+
+export type Verdict = {
+  category: Category;
+  benchVerified: boolean;
+  summary: string;
+  counts: Record<Outcome, number>;
+  results: RuleResult[];
+  /** Rules for this category that found nothing to check, and why. */
+  skipped: SkippedRule[];
+  derived: DerivedValue[];
+  /** Where the unit measures below its maker's rating or a standard's tolerance: reported, not held against it. */
+  shortfalls: Shortfall[];
+  /** Figures that came from captures (raw files analysed by the bench) rather than typed. */
+  fromCaptures: CaptureFigure[];
+  rulesVersion: number;
+};
+
+const EMPTY: Item[] = [];
+
+export function indexSheet(sheet: BenchSheet): SheetIndex {
+  const items: Item[] = sheet.readings.map((r, i) => ({ ...r, conditions: r.conditions ?? {}, ref: `readings.${i}` }));
+  const sweeps: SweepItem[] = (sheet.sweeps ?? []).map((s, i) => ({ ...s, ref: `sweeps.${i}` }));
+  const all = new Map<Quantity, Item[]>();
+  const measured = new Map<Quantity, Item[]>();
+  const rated = new Map<Quantity, Item[]>();
+  for (const it of items) {
+    push(all, it.quantity, it);
+    push(it.basis === "measured" ? measured : rated, it.quantity, it);
+  }
+  return {
+    sheet,
+    category: sheet.category,
+    items,
+    sweeps,
+    all: (q) => all.get(q) ?? EMPTY,
+    measured: (q) => measured.get(q) ?? EMPTY,
+    rated: (q) => rated.get(q) ?? EMPTY,
+  };
+}
+
+function push<K, V>(m: Map<K, V[]>, k: K, v: V) {
+  const a = m.get(k);
+  if (a) a.push(v);
+  else m.set(k, [v]);
+}
+
+/** Check a (schema-valid) bench sheet against every rule for its category. Pure and fast (well under 1 ms). */
+export function checkBenchSheet(sheet: BenchSheet): Verdict {
+  const ix = indexSheet(sheet);
+  const results: RuleResult[] = [];
+  const skipped: SkippedRule[] = [];
+  const derived: DerivedValue[] = [];
+  const shortfalls: Shortfall[] = [];
+  let ruleId = "";
+  const emit = (rule: (typeof RULES)[number]): Emit => ({
+    result: (r) =>
+      results.push({ ruleId: rule.id, title: rule.title, outcome: r.outcome, explanation: rule.explanation, source: rule.source, detail: r.detail, refs: r.refs, compared: r.compared ?? [] }),
+    derive: (d) =>
+      derived.push({ id: d.id, label: d.label, value: d.value, unit: baseUnit(d.kind), display: d.display ?? formatValue(d.value, d.kind, d.format), refs: d.refs }),
+    shortfall: (s) => shortfalls.push({ ruleId: rule.id, ...s }),
+  });
+  for (const rule of RULES) {
+    if (rule.categories && !rule.categories.includes(ix.category)) continue;
+    ruleId = rule.id;
+    const before = results.length;
+    const reason = rule.evaluate(ix, emit(rule));
+    if (results.length === before) skipped.push({ ruleId, title: rule.title, reason: reason || "Nothing to check on this sheet." });
+  }
+  deriveFlatSweeps(ix, emit({ id: "response-sweep", title: "", explanation: "", source: "", evaluate: () => undefined }));
+
+  const counts = { consistent: 0, questionable: 0, implausible: 0, missing: 0 } as Record<Outcome, number>;
+  for (const r of results) counts[r.outcome]++;
+  const benchVerified = counts.questionable + counts.implausible + counts.missing === 0 && results.some((r) => r.ruleId === "required-readings");
+  const fromCaptures = captureFigures(ix);
+  return {
+    category: sheet.category,
+    benchVerified,
+    summary: summarise(sheet.category, benchVerified, counts, results, shortfalls, fromCaptures.length),
+    counts,
+    results,
+    skipped,
+    derived,
+    shortfalls,
+    fromCaptures,
+    rulesVersion: BENCH_RULES_VERSION,
+  };
+}
+
+function captureFigures(ix: SheetIndex): CaptureFigure[] {
+  const out: CaptureFigure[] = [];
+  for (const r of ix.items)
+    if (r.origin === "capture")
+      out.push({ ref: r.ref, quantity: r.quantity, label: labelOf(r), display: formatReadingValue(r), ...(r.captureId ? { captureId: r.captureId } : {}) });
+  for (const s of ix.sweeps)
+    if (s.origin === "capture")
+      out.push({ ref: s.ref, quantity: "sweep", label: s.kind === "riaa" ? "RIAA response sweep" : "Response sweep", display: `${s.points.length} points, ${formatValue(s.points[0].frequencyHz, "frequency")}–${formatValue(s.points[s.points.length - 1].frequencyHz, "frequency")}`, ...(s.captureId ? { captureId: s.captureId } : {}) });
+  return out;
+}
+
+function labelOf(r: Reading): string {
+  return QUANTITY_INFO[r.quantity].label + (r.channel && r.channel !== "both" ? `, ${r.channel}` : "");
+}
+
+const SEVERITY: Outcome[] = ["implausible", "questionable", "missing"];
+
+function summarise(category: Category, verified: boolean, counts: Record<Outcome, number>, results: RuleResult[], shortfalls: Shortfall[], captures: number): string {
+  const fromCaptures = captures ? ` ${captures} figure${captures > 1 ? "s" : ""} came from captures.` : "";
+  const short = shortfalls.length ? ` ${shortfalls.length} figure${shortfalls.length > 1 ? "s fall" : " falls"} short of the rating: ${shortfalls[0].detail}` : "";
+  if (verified)
+    return `Bench-verified ${CATEGORY_LABELS[category].toLowerCase()}: every required reading is measured and all ${counts.consistent} checks are consistent.${fromCaptures}${short}`;
+  const tally = SEVERITY.filter((o) => counts[o]).map((o) => `${counts[o]} ${o}`).join(", ");
+  const first = SEVERITY.map((o) => results.find((r) => r.outcome === o)).find(Boolean);
+  return `Not bench-verified: ${tally}. ${first ? `${first.title}: ${first.detail}` : ""}${fromCaptures}${short}`.trim();
+}
+
+export { OUTCOMES };
+export type { DerivedValue, Outcome, RuleResult, Shortfall, SkippedRule };
