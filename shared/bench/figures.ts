@@ -1,0 +1,230 @@
+// Headline measured figures for listings, and numbers to index for buyers' filters.
+// Always the conservative reading: the weaker channel's power, the worse channel's distortion.
+import { QUANTITY_INFO, type Category, type Quantity } from "./quantities";
+import type { BenchSheet, Reading } from "./schema";
+import { describeConditions, formatReadingValue } from "./describe";
+import { bestRiaaFit } from "./rules/phono";
+import { near, weakestChannelBest } from "./rules/match";
+import { baseUnit, type Item, type SheetIndex } from "./rules/types";
+import { formatValue } from "./units";
+import { indexSheet } from "./verdict";
+
+export type KeyFigure = {
+  key: FigureKey;
+  label: string;
+  /** Base units (see `unit`). */
+  value: number;
+  unit: string;
+  /** "66 W", "0.018 %" */
+  display: string;
+  /** "into 8 Ω, 1 kHz, 0.1 % THD, both channels driven" */
+  conditions: string;
+  channel?: Reading["channel"];
+  fromCapture: boolean;
+  /** Path of the reading or sweep, e.g. "readings.4". */
+  ref: string;
+};
+
+export type FigureKey =
+  | "power8"
+  | "power4"
+  | "distortion"
+  | "snr"
+  | "bandwidthHigh"
+  | "bandwidthLow"
+  | "dampingFactor"
+  | "gain"
+  | "riaaDeviation"
+  | "sensitivity"
+  | "impedanceMinimum"
+  | "ratedImpedance"
+  | "wowFlutter"
+  | "speedError"
+  | "rumble";
+
+type Pick = { item?: Item; value?: number; display?: string; label?: string; ref?: string; fromCapture?: boolean; conditions?: string };
+
+const min = (xs: Item[]) => xs.reduce<Item | undefined>((a, b) => (!a || b.value < a.value ? b : a), undefined);
+const max = (xs: Item[]) => xs.reduce<Item | undefined>((a, b) => (!a || b.value > a.value ? b : a), undefined);
+const maxAbs = (xs: Item[]) => xs.reduce<Item | undefined>((a, b) => (!a || Math.abs(b.value) > Math.abs(a.value) ? b : a), undefined);
+const atLoad = (xs: Item[], ohm: number) => xs.filter((x) => x.conditions.loadOhm !== undefined && near(x.conditions.loadOhm, ohm, 0.05));
+
+function one(item: Item | undefined): Pick | undefined {
+  return item && { item };
+}
+
+/** THD+N (else THD) at the rated power into 8 Ω, or at the highest level measured; the worse channel. */
+function distortionAtRatedPower(ix: SheetIndex): Pick | undefined {
+  const q: Quantity = ix.measured("thd_n").length ? "thd_n" : "thd";
+  const xs = ix.measured(q);
+  if (!xs.length) return undefined;
+  const rated = ix.rated("output_power").find((r) => r.conditions.loadOhm !== undefined && near(r.conditions.loadOhm, 8, 0.05));
+  const atRated = rated ? xs.filter((x) => x.conditions.powerW !== undefined && near(x.conditions.powerW, rated.value, 0.2)) : [];
+  if (atRated.length) return { item: max(atRated)!, label: `${QUANTITY_INFO[q].label} at rated power` };
+  const top = Math.max(...xs.map((x) => x.conditions.powerW ?? 0));
+  return { item: max(xs.filter((x) => (x.conditions.powerW ?? 0) === top))!, label: QUANTITY_INFO[q].label };
+}
+
+function riaa(ix: SheetIndex): Pick | undefined {
+  let best: Pick | undefined;
+  for (const s of ix.sweeps) {
+    if (s.kind !== "riaa") continue;
+    const fit = bestRiaaFit(s);
+    if (!fit || (best && Math.abs(fit.worstDb) <= Math.abs(best.value!))) continue;
+    best = {
+      value: Math.abs(fit.worstDb),
+      display: `±${formatValue(Math.abs(fit.worstDb), "decibel", { sig: 2 })}`,
+      label: "RIAA deviation (worst)",
+      ref: s.ref,
+      fromCapture: s.origin === "capture",
+      conditions: `worst at ${formatValue(fit.atHz, "frequency")}, ${formatValue(fit.lowHz, "frequency")}–${formatValue(fit.highHz, "frequency")}`,
+    };
+  }
+  return best ?? one(maxAbs(ix.measured("riaa_deviation")));
+}
+
+/** Sensitivity at 2.83 V/1 m; a 1 W figure is converted with the rated impedance (+10·log10(8/Z)). */
+function sensitivity(ix: SheetIndex): Pick | undefined {
+  const s = min(ix.measured("sensitivity"));
+  if (!s) return undefined;
+  const v = s.conditions.voltageV;
+  const is283 = /2\.83/.test(s.unit) || (v !== undefined && near(v, Math.SQRT2 * 2, 0.01));
+  if (is283) return { item: s, label: "Sensitivity (2.83 V, 1 m)" };
+  const z = ix.all("nominal_impedance")[0];
+  if (!z) return { item: s };
+  const value = s.value + 10 * Math.log10(8 / z.value);
+  return { item: s, value, display: formatValue(value, "decibel"), label: "Sensitivity (2.83 V, 1 m)", conditions: `from ${formatReadingValue(s)} at 1 W into ${formatReadingValue(z)}` };
+}
+
+const PICKS: Record<FigureKey, (ix: SheetIndex) => Pick | undefined> = {
+  power8: (ix) => one(weakestChannelBest(atLoad(ix.measured("output_power"), 8))),
+  power4: (ix) => one(weakestChannelBest(atLoad(ix.measured("output_power"), 4))),
+  distortion: distortionAtRatedPower,
+  snr: (ix) => one(min(ix.measured("snr"))),
+  bandwidthHigh: (ix) => one(min(ix.measured("f3db_high"))),
+  bandwidthLow: (ix) => one(max(ix.measured("f3db_low"))),
+  dampingFactor: (ix) => one(min(ix.measured("damping_factor"))),
+  gain: (ix) => one(min(ix.measured("gain"))),
+  riaaDeviation: riaa,
+  sensitivity,
+  impedanceMinimum: (ix) => one(min(ix.measured("impedance_minimum"))),
+  ratedImpedance: (ix) => one(ix.all("nominal_impedance")[0]),
+  wowFlutter: (ix) => one(max(ix.measured("wow_flutter"))),
+  speedError: (ix) => one(maxAbs(ix.measured("speed_error"))),
+  rumble: (ix) => one(min(ix.measured("rumble"))),
+};
+
+const LABELS: Partial<Record<FigureKey, string>> = {
+  power8: "Power into 8 Ω",
+  power4: "Power into 4 Ω",
+  bandwidthHigh: "Upper −3 dB point",
+  bandwidthLow: "Lower −3 dB point",
+};
+
+const AMP_KEYS: FigureKey[] = ["power8", "power4", "distortion", "snr", "bandwidthHigh", "dampingFactor"];
+export const KEY_FIGURES: Record<Category, FigureKey[]> = {
+  integrated_amplifier: AMP_KEYS,
+  power_amplifier: AMP_KEYS,
+  receiver: AMP_KEYS,
+  preamplifier: ["gain", "distortion", "snr", "bandwidthHigh"],
+  phono_stage: ["gain", "riaaDeviation", "snr", "distortion"],
+  loudspeaker: ["sensitivity", "ratedImpedance", "impedanceMinimum", "bandwidthLow"],
+  turntable: ["speedError", "wowFlutter", "rumble"],
+  tape_deck: ["wowFlutter", "speedError", "snr", "bandwidthHigh"],
+};
+
+/** A pick either points at a reading or (sweeps) carries its own value, display, label and ref. */
+function toFigure(key: FigureKey, p: Pick): KeyFigure {
+  const it = p.item;
+  const kind = it ? QUANTITY_INFO[it.quantity].kind : "decibel";
+  return {
+    key,
+    label: p.label ?? LABELS[key] ?? (it ? QUANTITY_INFO[it.quantity].label : key),
+    value: p.value ?? it?.value ?? NaN,
+    unit: baseUnit(kind),
+    display: p.display ?? (it ? formatReadingValue(it) : ""),
+    conditions: p.conditions ?? describeConditions(it?.conditions),
+    ...(it?.channel ? { channel: it.channel } : {}),
+    fromCapture: p.fromCapture ?? it?.origin === "capture",
+    ref: p.ref ?? it?.ref ?? "",
+  };
+}
+
+/** The headline measured figures for the sheet's category, in listing order; only those the sheet has. */
+export function keyFigures(sheet: BenchSheet): KeyFigure[] {
+  const ix = indexSheet(sheet);
+  const out: KeyFigure[] = [];
+  for (const key of KEY_FIGURES[sheet.category]) {
+    const p = PICKS[key](ix);
+    if (p) out.push(toFigure(key, p));
+  }
+  return out;
+}
+
+/** Numbers to index for buyers' filters, in the units their names say; absent when the sheet has no measured figure. */
+export type SheetFacets = {
+  category: Category;
+  powerW8Ohm?: number;
+  powerW4Ohm?: number;
+  /** THD+N (else THD) at rated power into 8 Ω, worse channel, in %. */
+  distortionPct?: number;
+  snrDb?: number;
+  bandwidthHighHz?: number;
+  bandwidthLowHz?: number;
+  dampingFactor?: number;
+  gainDb?: number;
+  riaaDeviationDb?: number;
+  /** At 2.83 V, 1 m. */
+  sensitivityDb?: number;
+  impedanceMinOhm?: number;
+  ratedImpedanceOhm?: number;
+  wowFlutterPct?: number;
+  /** Absolute, in %. */
+  speedErrorPct?: number;
+  rumbleDb?: number;
+  measuredReadings: number;
+  captureFigures: number;
+};
+
+const FACET_OF: Record<FigureKey, [Exclude<keyof SheetFacets, "category" | "measuredReadings" | "captureFigures">, (v: number) => number]> = {
+  power8: ["powerW8Ohm", (v) => v],
+  power4: ["powerW4Ohm", (v) => v],
+  distortion: ["distortionPct", (v) => v * 100],
+  snr: ["snrDb", (v) => v],
+  bandwidthHigh: ["bandwidthHighHz", (v) => v],
+  bandwidthLow: ["bandwidthLowHz", (v) => v],
+  dampingFactor: ["dampingFactor", (v) => v],
+  gain: ["gainDb", (v) => v],
+  riaaDeviation: ["riaaDeviationDb", (v) => Math.abs(v)],
+  sensitivity: ["sensitivityDb", (v) => v],
+  impedanceMinimum: ["impedanceMinOhm", (v) => v],
+  ratedImpedance: ["ratedImpedanceOhm", (v) => v],
+  wowFlutter: ["wowFlutterPct", (v) => v * 100],
+  speedError: ["speedErrorPct", (v) => Math.abs(v) * 100],
+  rumble: ["rumbleDb", (v) => v],
+};
+
+const FACET_KEYS: Record<Category, FigureKey[]> = {
+  ...KEY_FIGURES,
+  integrated_amplifier: [...AMP_KEYS, "bandwidthLow"],
+  power_amplifier: [...AMP_KEYS, "bandwidthLow"],
+  receiver: [...AMP_KEYS, "bandwidthLow"],
+  preamplifier: [...KEY_FIGURES.preamplifier, "bandwidthLow"],
+};
+
+export function sheetFilterFacets(sheet: BenchSheet): SheetFacets {
+  const ix = indexSheet(sheet);
+  const facets: SheetFacets = {
+    category: sheet.category,
+    measuredReadings: ix.items.filter((i) => i.basis === "measured").length,
+    captureFigures: ix.items.filter((i) => i.origin === "capture").length + ix.sweeps.filter((s) => s.origin === "capture").length,
+  };
+  for (const key of FACET_KEYS[sheet.category]) {
+    const p = PICKS[key](ix);
+    if (!p) continue;
+    const [name, conv] = FACET_OF[key];
+    const v = p.value ?? p.item?.value;
+    if (v !== undefined) facets[name] = conv(v);
+  }
+  return facets;
+}
