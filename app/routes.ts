@@ -15,4 +15,7 @@ export default [
   route("account", "routes/account/account.tsx"),
   route("admin/users", "routes/admin/users.tsx"),
   route("desk", "routes/desk/desk.tsx"),
+  // Service health and the payments provider's webhook
+  route("healthz", "routes/healthz.ts"),
+  route("api/v1/webhooks/stripe", "routes/api.v1.webhooks.stripe.ts"),
 ] satisfies RouteConfig;
