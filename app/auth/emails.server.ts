@@ -29,14 +29,26 @@ function text(greeting: string, paragraphs: string[], action: { label: string; h
   return [greeting, ...paragraphs, ...(action ? [`${action.label}: ${action.href}`] : []), "--", footer].join("\n\n");
 }
 
+/** The mail relay refused or could not be reached; pages say so instead of failing whole. */
+export class MailDeliveryError extends Error {
+  override name = "MailDeliveryError";
+}
+
+export const MAIL_UNAVAILABLE = "We could not send e-mail just now, so nothing was changed. Please try again in a few minutes.";
+
 async function send(to: string, subject: string, greeting: string, paragraphs: string[], action: { label: string; href: string } | null) {
   const footer = "Loadline: the market where hi-fi is sold with its bench measurements checked.";
-  await sendMail({
-    to,
-    subject,
-    text: text(greeting, paragraphs, action, footer),
-    html: html(greeting, paragraphs, action, footer),
-  });
+  try {
+    await sendMail({
+      to,
+      subject,
+      text: text(greeting, paragraphs, action, footer),
+      html: html(greeting, paragraphs, action, footer),
+    });
+  } catch (error) {
+    console.error(`Mail to ${to} ("${subject}") failed:`, error);
+    throw new MailDeliveryError("mail relay unavailable", { cause: error });
+  }
 }
 
 export function verificationUrl(token: string) {

@@ -8,6 +8,7 @@ import { PageHeader } from "~/components/PageHeader";
 import { Notice } from "~/auth/AuthPanel";
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from "~/auth/roles";
 import { resendVerification, signInMethods } from "~/auth/accounts.server";
+import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requireUser } from "~/auth/guards.server";
 import { takeNotice } from "~/auth/session.server";
@@ -33,8 +34,13 @@ export async function action({ request }: Route.ActionArgs) {
   if (form.get("intent") !== "resend-verification") {
     return data({ ok: false, text: "Unknown request." }, { status: 400 });
   }
-  const result = RESEND_MESSAGES[await resendVerification(user.id)];
-  return data(result, { status: result.ok ? 200 : 429 });
+  try {
+    const result = RESEND_MESSAGES[await resendVerification(user.id)];
+    return data(result, { status: result.ok ? 200 : 429 });
+  } catch (error) {
+    if (!(error instanceof MailDeliveryError)) throw error;
+    return data({ ok: false, text: MAIL_UNAVAILABLE }, { status: 503 });
+  }
 }
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,11 +1,12 @@
 import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/forgot-password";
 import { Button } from "~/components/Button";
-import { Field } from "~/components/Field";
+import { Field, FormError } from "~/components/Field";
 import { AuthPanel, Notice } from "~/auth/AuthPanel";
 import { fieldErrors, ForgotPasswordForm } from "~/auth/forms";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requestPasswordReset } from "~/auth/recovery.server";
+import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Forgotten password · Loadline" }];
 
@@ -15,7 +16,12 @@ export async function action({ request }: Route.ActionArgs) {
   const email = String(form.get("email") ?? "");
   const parsed = ForgotPasswordForm.safeParse({ email });
   if (!parsed.success) return data({ sent: false as const, email, errors: fieldErrors(parsed.error) }, { status: 400 });
-  await requestPasswordReset(parsed.data.email);
+  try {
+    await requestPasswordReset(parsed.data.email);
+  } catch (error) {
+    if (!(error instanceof MailDeliveryError)) throw error;
+    return data({ sent: false as const, email, errors: { form: MAIL_UNAVAILABLE } as Record<string, string> }, { status: 503 });
+  }
   return { sent: true as const, email: parsed.data.email };
 }
 
@@ -38,6 +44,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
       lede="Enter the address you sign in with and we will e-mail you a link to choose a new one."
       footer={<Link to="/sign-in">Back to sign in</Link>}
     >
+      <FormError>{errors.form}</FormError>
       <Form method="post" className="space-y-4" noValidate>
         <Field
           label="E-mail address"

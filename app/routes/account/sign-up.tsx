@@ -1,11 +1,12 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-up";
 import { Button } from "~/components/Button";
-import { Field } from "~/components/Field";
+import { Field, FormError } from "~/components/Field";
 import { AuthPanel, Notice } from "~/auth/AuthPanel";
 import { fieldErrors, SignUpForm } from "~/auth/forms";
 import { safeRedirect } from "~/auth/redirect";
 import { registerAccount } from "~/auth/accounts.server";
+import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { getUser } from "~/auth/guards.server";
 
@@ -23,7 +24,12 @@ export async function action({ request }: Route.ActionArgs) {
   const values = { displayName: String(form.get("displayName") ?? ""), email: String(form.get("email") ?? "") };
   const parsed = SignUpForm.safeParse({ ...values, password: form.get("password") ?? "" });
   if (!parsed.success) return data({ sent: false as const, values, errors: fieldErrors(parsed.error) }, { status: 400 });
-  await registerAccount(parsed.data);
+  try {
+    await registerAccount(parsed.data);
+  } catch (error) {
+    if (!(error instanceof MailDeliveryError)) throw error;
+    return data({ sent: false as const, values, errors: { form: MAIL_UNAVAILABLE } as Record<string, string> }, { status: 503 });
+  }
   return { sent: true as const, email: parsed.data.email };
 }
 
@@ -52,6 +58,7 @@ export default function SignUp({ loaderData, actionData }: Route.ComponentProps)
         </p>
       }
     >
+      <FormError>{errors.form}</FormError>
       <Form method="post" className="space-y-4" noValidate>
         <Field
           label="Your name"
