@@ -147,3 +147,63 @@ export async function oversizeJpeg(bytes: number): Promise<Buffer> {
   jpeg.copy(out);
   return out;
 }
+
+/** The markers of a JPEG's header segments, up to the first scan (e.g. ["E0", "DB", "C0", "C4", "DA"]). */
+export function jpegHeaderMarkers(jpeg: Buffer): string[] {
+  const markers: string[] = [];
+  let pos = 2;
+  while (pos + 4 <= jpeg.length && jpeg[pos] === 0xff) {
+    const marker = jpeg[pos + 1];
+    markers.push(marker.toString(16).toUpperCase());
+    if (marker === 0xda) break;
+    pos += 2 + jpeg.readUInt16BE(pos + 2);
+  }
+  return markers;
+}
+
+/** The chunk types of a PNG in order. */
+export function pngChunkTypes(png: Buffer): string[] {
+  const types: string[] = [];
+  for (let pos = 8; pos + 8 <= png.length; pos += 12 + png.readUInt32BE(pos)) {
+    types.push(png.toString("latin1", pos + 4, pos + 8));
+  }
+  return types;
+}
+
+/** Mean red and blue of a band across the image at `yFraction` of its height (0 = top). */
+export async function bandColour(image: Buffer, yFraction: number): Promise<{ red: number; blue: number }> {
+  const decoded = await Jimp.fromBuffer(image);
+  const { width, height, data } = decoded.bitmap;
+  const y = Math.min(height - 1, Math.floor(height * yFraction));
+  let red = 0;
+  let blue = 0;
+  for (let x = 0; x < width; x++) {
+    red += data[(y * width + x) * 4];
+    blue += data[(y * width + x) * 4 + 2];
+  }
+  return { red: red / width, blue: blue / width };
+}
+
+/** A made-up "photo": coloured blocks placed by a seeded generator, the same picture at any size. */
+export async function sceneJpeg(seed: number, width: number, height: number, quality = 90): Promise<Buffer> {
+  let state = seed >>> 0 || 1;
+  const next = () => {
+    state ^= state << 13;
+    state ^= state >>> 17;
+    state ^= state << 5;
+    return (state >>> 0) / 2 ** 32;
+  };
+  const image = new Jimp({ width, height, color: 0xf5f0e6ff });
+  const d = image.bitmap.data;
+  for (let n = 0; n < 12; n++) {
+    const x0 = Math.floor(next() * width * 0.8);
+    const y0 = Math.floor(next() * height * 0.8);
+    const x1 = Math.min(width, x0 + Math.ceil(next() * width * 0.5));
+    const y1 = Math.min(height, y0 + Math.ceil(next() * height * 0.5));
+    const rgb = [next() * 255, next() * 255, next() * 255].map(Math.floor);
+    for (let y = y0; y < y1; y++) {
+      for (let x = x0; x < x1; x++) d.set(rgb, (y * width + x) * 4);
+    }
+  }
+  return image.getBuffer("image/jpeg", { quality });
+}

@@ -23,7 +23,7 @@ async function refusal(bytes: Uint8Array, name: string): Promise<PhotoRefusal> {
   throw new Error(`${name} was accepted`);
 }
 
-describe("inspectPhoto: what a seller may upload", () => {
+describe("inspectPhoto: what a seller may upload", { timeout: 20_000 }, () => {
   it("accepts a JPEG and reads its size from the frame header", async () => {
     const jpeg = withExif(await twoToneJpeg(320, 200), { orientation: 6 });
     await expect(inspectPhoto(jpeg, "amp-front.jpg")).resolves.toEqual({
