@@ -50,7 +50,7 @@ let stack: Awaited<ReturnType<typeof bringUp>> | undefined;
 let exitCode = 1;
 try {
   stack = await bringUp(p, { log: (l) => console.log(`[setup] ${l}`) });
-  const env = { ...stack.env, NODE_ENV: "test" };
+  const env: Record<string, string> = { ...stack.env, NODE_ENV: "test" };
   fs.mkdirSync(reports, { recursive: true });
 
   console.log("\n== Typecheck");
