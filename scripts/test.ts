@@ -66,7 +66,7 @@ try {
   await vitest("main", ["unit", "reference", "integration"], env);
 
   console.log("\n== Browser suite");
-  const build = await finished(launch(bin("react-router"), ["build"], env, true));
+  const build = await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true));
   if (build !== 0) {
     total.failed += 1;
     failures.push("react-router build failed");
