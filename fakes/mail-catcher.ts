@@ -34,6 +34,7 @@ export async function startMailCatcher(opts: MailCatcherOptions): Promise<Runnin
     authOptional: true,
     allowInsecureAuth: true,
     disabledCommands: ["STARTTLS"],
+    disableReverseLookup: true, // a DNS lookup per connection only slows local sends
     size: MAX_SIZE,
     logger: false,
     onAuth(auth, _session, callback) {
