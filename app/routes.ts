@@ -18,4 +18,7 @@ export default [
   // Service health and the payments provider's webhook
   route("healthz", "routes/healthz.ts"),
   route("api/v1/webhooks/stripe", "routes/api.v1.webhooks.stripe.ts"),
+  // Capture analysis (the bench)
+  route("api/v1/captures/analyze", "routes/api.v1.captures.analyze.ts"),
+  route("api/v1/captures/:id", "routes/api.v1.captures.$id.ts"),
 ] satisfies RouteConfig;

@@ -43,15 +43,20 @@ export type CaptureAnalysis =
 
 const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 
-/** WAV or CSV, judged by content; the name only sharpens the message. */
-export function identifyCapture(bytes: Uint8Array, filename: string): CaptureFileKind {
-  if (bytes.length === 0) throw new CaptureError("EMPTY_FILE", "The file is empty.");
-  if (bytes.length > CAPTURE_LIMITS.maxBytes) {
-    throw new CaptureError("FILE_TOO_LARGE", `The file is ${mb(bytes.length)}; captures are limited to ${mb(CAPTURE_LIMITS.maxBytes)}.`, {
-      bytes: bytes.length,
+/** Refuse an empty file or one over the size limit (before reading it). */
+export function checkSize(byteLength: number): void {
+  if (byteLength === 0) throw new CaptureError("EMPTY_FILE", "The file is empty.");
+  if (byteLength > CAPTURE_LIMITS.maxBytes) {
+    throw new CaptureError("FILE_TOO_LARGE", `The file is ${mb(byteLength)}; captures are limited to ${mb(CAPTURE_LIMITS.maxBytes)}.`, {
+      bytes: byteLength,
       limit: CAPTURE_LIMITS.maxBytes,
     });
   }
+}
+
+/** WAV or CSV, judged by content; the name only sharpens the message. */
+export function identifyCapture(bytes: Uint8Array, filename: string): CaptureFileKind {
+  checkSize(bytes.length);
   const s = sniff(bytes);
   const namedWav = /\.wave?$/i.test(filename);
   if (s.kind === "wav") return "wav";
@@ -125,8 +130,8 @@ function checkSamples(d: DecodedWav) {
 }
 
 /**
- * Everything that can be refused before the file is stored: kind, format, size, length, clipping, silence,
- * CSV structure. Returns the validated conditions and what the file holds.
+ * Everything that can be refused before the file is stored: kind, format, size, length, clipping,
+ * silence, and for CSV files the whole analysis. Returns what the file holds.
  */
 export function preflightCapture(bytes: Uint8Array, filename: string, conditions: CaptureConditions): CaptureFormat {
   const file = identifyCapture(bytes, filename);
@@ -137,8 +142,9 @@ export function preflightCapture(bytes: Uint8Array, filename: string, conditions
     checkSamples(decodeWavData(format, data));
     return { file: "wav", ...format };
   }
-  const cols = readCsv(bytes, conditions.kind);
-  return { file: "csv", rows: cols.x.length, header: cols.header };
+  // CSV analyses take milliseconds: run them here so every CSV refusal comes before storing.
+  const result = analyseCapture(bytes, filename, conditions, "preflight");
+  return result.format;
 }
 
 function readCsv(bytes: Uint8Array, kind: "square" | "sweep") {

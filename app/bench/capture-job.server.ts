@@ -1,0 +1,52 @@
+// The background analysis of one capture (queue "capture-analyze"). A file the analysis refuses ends
+// the capture as failed, with the reason, and its stored file is removed; anything else (storage or
+// database trouble) is thrown so pg-boss retries the job.
+import { captureConditionsSchema } from "@shared/bench/analysis";
+import { Capture } from "~/models/capture.server";
+import { deleteObject, getObjectBuffer } from "~/services/storage.server";
+import { analyseCapture, CaptureError } from "./captures.server";
+
+export interface CaptureJobData {
+  captureId: string;
+}
+
+export async function analyseCaptureJob(data: CaptureJobData): Promise<{ status: string }> {
+  const capture = await Capture.findByPk(data.captureId);
+  // Gone, or already finished by an earlier attempt: nothing to do.
+  if (!capture || capture.status === "done" || capture.status === "failed") return { status: capture?.status ?? "missing" };
+  await capture.update({ status: "running", startedAt: new Date() });
+
+  const bytes = capture.storageKey ? await getObjectBuffer(capture.storageKey) : null;
+  if (!bytes) {
+    await capture.update({
+      status: "failed",
+      errorCode: "FILE_MISSING",
+      errorMessage: "The stored capture file could not be found.",
+      finishedAt: new Date(),
+    });
+    return { status: "failed" };
+  }
+
+  try {
+    const conditions = captureConditionsSchema.parse(capture.conditions);
+    const result = analyseCapture(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength), capture.fileName, conditions, capture.id);
+    await capture.update({
+      status: "done",
+      analysis: result.analysis as unknown as Record<string, unknown>,
+      readings: result.readings,
+      sweep: result.kind === "sweep" ? result.sweep : null,
+      finishedAt: new Date(),
+    });
+    return { status: "done" };
+  } catch (e) {
+    if (!(e instanceof CaptureError)) {
+      await capture.update({ status: "queued" });
+      throw e;
+    }
+    const key = capture.storageKey;
+    await capture.update({ status: "failed", errorCode: e.code, errorMessage: e.message, storageKey: null, finishedAt: new Date() });
+    // The row no longer points at the file, so a failed delete leaves no half-state the app relies on.
+    if (key) await deleteObject(key).catch((err) => console.error(`[captures] could not remove refused file ${key}`, err));
+    return { status: "failed" };
+  }
+}
