@@ -72,7 +72,7 @@ dl { display:grid; grid-template-columns: max-content 1fr; gap:4px 16px; margin:
 dt { color:var(--muted); font-size:14px; } dd { margin:0; word-break:break-word; }
 pre { white-space:pre-wrap; word-break:break-word; background:var(--card); border:1px solid var(--line);
   border-radius:8px; padding:14px; font-size:14px; }
-iframe { width:100%; min-height:420px; border:1px solid var(--line); border-radius:8px; background:#fff; }
+iframe { width:100%; min-height:260px; border:1px solid var(--line); border-radius:8px; background:#fff; }
 .total { font-size:32px; font-weight:700; }
 `;
 

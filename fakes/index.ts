@@ -2,7 +2,7 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { parseEnv, type Env } from "../app/env.server";
 import { startMailCatcher } from "./mail-catcher";
-import { startOAuthProvider } from "./oauth-provider";
+import { startOAuthProvider, type Suggestions } from "./oauth-provider";
 import { startS3Fake } from "./s3";
 import { startStripeFake } from "./stripe/index";
 
@@ -15,8 +15,9 @@ export interface StartFakesOptions {
   /** Where the payments stand-in delivers events, e.g. `${APP_URL}/api/v1/webhooks/stripe`. */
   webhookUrl: string;
   log?: (line: string) => void;
-  /** Offered as one-click choices on the sign-in screen (the demo accounts). */
-  oauthSuggestions?: { email: string; name: string }[];
+  /** One-click choices on the sign-in screen (the demo accounts); a function is asked on each visit,
+   *  so it may answer once the demo scenario is loaded. */
+  oauthSuggestions?: Suggestions;
   /** Webhook retry waits; the default spreads retries over hours. */
   webhookRetryDelaysMs?: number[];
 }

@@ -37,11 +37,13 @@ export interface OAuthProviderOptions {
   clientSecret: string;
   /** The only redirect_uri accepted, e.g. `${APP_URL}/auth/oauth/callback`. */
   redirectUri: string;
-  /** Offered on the sign-in screen as one-click choices (the demo accounts). */
-  suggestions?: { email: string; name: string }[];
+  /** Offered on the sign-in screen as one-click choices (the demo accounts); a function is asked on each visit. */
+  suggestions?: Suggestions;
   /** Keeps the signing key across restarts; a fresh key each start when absent. */
   keyFile?: string;
 }
+
+export type Suggestions = { email: string; name: string }[] | (() => { email: string; name: string }[]);
 
 export interface RunningOAuthProvider {
   issuer: string;
@@ -145,7 +147,7 @@ export async function startOAuthProvider(opts: OAuthProviderOptions): Promise<Ru
     if (bad) return sendHtml(res, 400, badRequestPage(bad));
     const wrong = checkAuthorizeParams(p);
     if (wrong) return backToApp(res, p, wrong.error, wrong.description);
-    const suggestions = opts.suggestions ?? [];
+    const suggestions = (typeof opts.suggestions === "function" ? opts.suggestions() : opts.suggestions) ?? [];
     if (req.method !== "POST") return sendHtml(res, 200, signInPage({ params: carried(p), suggestions }));
 
     if (p.get("action") === "deny") return backToApp(res, p, "access_denied", "the person cancelled sign-in");
