@@ -162,8 +162,20 @@ function fold(text: string): string {
     .trim();
 }
 
+// Sheets repeat a handful of spellings; the verdict formats hundreds of values, so lookups are memoised.
+const LOOKUP_CACHE = new Map<string, UnitDef | null>();
+
 function lookupUnit(raw: string, kind: Kind | undefined): UnitDef | undefined {
-  const key = raw.replace(/\s+/g, "");
+  const cacheKey = `${kind ?? ""}|${raw}`;
+  const hit = LOOKUP_CACHE.get(cacheKey);
+  if (hit !== undefined) return hit ?? undefined;
+  const def = lookupUncached(raw, kind);
+  if (LOOKUP_CACHE.size < 2000) LOOKUP_CACHE.set(cacheKey, def ?? null);
+  return def;
+}
+
+function lookupUncached(raw: string, kind: Kind | undefined): UnitDef | undefined {
+  const key = fold(raw).replace(/\s+/g, "");
   const exact = EXACT.get(key);
   if (exact) return exact;
   const lower = key.toLowerCase();
@@ -288,7 +300,7 @@ export function toUnit(base: number, unit: string, kind?: Kind): number {
 
 /** Whether a unit spelling is known, and its kind (used by the schema to check a reading's unit). */
 export function unitKind(unit: string, expected?: Kind): Kind | undefined {
-  return lookupUnit(fold(unit), expected)?.kind;
+  return lookupUnit(unit, expected)?.kind;
 }
 
 // ---- display ----
@@ -300,8 +312,13 @@ export function formatNumber(x: number, sig = 3, keepZeros = false): string {
   const abs = Math.abs(x);
   if (abs >= 10 ** sig) return String(Math.round(x));
   let s = x.toPrecision(sig);
-  if (s.includes("e")) s = String(Number(s));
-  if (!keepZeros && s.includes(".")) s = s.replace(/0+$/, "").replace(/\.$/, "");
+  if (s.indexOf("e") >= 0) s = String(Number(s));
+  if (!keepZeros && s.indexOf(".") >= 0) {
+    let end = s.length;
+    while (s.charCodeAt(end - 1) === 48) end--; // "0"
+    if (s.charCodeAt(end - 1) === 46) end--; // "."
+    s = s.slice(0, end);
+  }
   return s;
 }
 
@@ -330,33 +347,39 @@ export type FormatOptions = {
 };
 
 /** "112 W", "0.010 %", "17.5 µs", "28.3 V", "40 Vpk", "5.03 V/µs", "-80 dB". */
-export function formatValue(value: number, kind: Kind, opts: FormatOptions = {}): string {
-  const sign = (s: string) => (opts.signed && value > 0 ? `+${s}` : s);
+const NO_OPTS: FormatOptions = {};
+
+export function formatValue(value: number, kind: Kind, opts: FormatOptions = NO_OPTS): string {
+  const s = formatUnsigned(value, kind, opts);
+  return opts.signed && value > 0 ? `+${s}` : s;
+}
+
+function formatUnsigned(value: number, kind: Kind, opts: FormatOptions): string {
   if (opts.unit !== undefined) {
     const n = toUnit(value, opts.unit, kind);
     const isRatioPct = kind === "ratio" && opts.unit !== "dB";
     const num = isRatioPct ? formatNumber(n, opts.sig ?? 2, !opts.trimZeros) : formatNumber(n, opts.sig ?? 3);
-    return sign(opts.unit ? `${num} ${opts.unit}` : num);
+    return opts.unit ? `${num} ${opts.unit}` : num;
   }
   switch (kind) {
     case "ratio":
-      return sign(`${formatNumber(value * 100, opts.sig ?? 2, !opts.trimZeros)} %`);
+      return `${formatNumber(value * 100, opts.sig ?? 2, !opts.trimZeros)} %`;
     case "decibel":
-      return sign(`${formatNumber(value, opts.sig ?? 3)} dB`);
+      return `${formatNumber(value, opts.sig ?? 3)} dB`;
     case "slewRate":
-      return sign(`${formatNumber(value / 1e6, opts.sig ?? 3)} V/µs`);
+      return `${formatNumber(value / 1e6, opts.sig ?? 3)} V/µs`;
     case "number":
-      return sign(formatNumber(value, opts.sig ?? 3));
+      return formatNumber(value, opts.sig ?? 3);
     case "voltage": {
       const form = opts.form ?? "rms";
       const v = form === "peak" ? value * SQRT2 : form === "pp" ? value * 2 * SQRT2 : value;
       const s = scaled(v, "voltage", opts.sig);
       const suffix = form === "peak" ? "pk" : form === "pp" ? "pp" : "";
-      return sign(`${s.num} ${s.unit}${suffix}`);
+      return `${s.num} ${s.unit}${suffix}`;
     }
     default: {
       const s = scaled(value, kind, opts.sig);
-      return sign(`${s.num} ${s.unit}`);
+      return `${s.num} ${s.unit}`;
     }
   }
 }

@@ -11,6 +11,7 @@ import {
   type Emit,
   type Item,
   type Outcome,
+  type Rule,
   type RuleResult,
   type SheetIndex,
   type Shortfall,
@@ -42,25 +43,54 @@ export type Verdict = {
 
 const EMPTY: Item[] = [];
 
-export function indexSheet(sheet: BenchSheet): SheetIndex {
-  const items: Item[] = sheet.readings.map((r, i) => ({ ...r, conditions: r.conditions ?? {}, ref: `readings.${i}` }));
-  const sweeps: SweepItem[] = (sheet.sweeps ?? []).map((s, i) => ({ ...s, ref: `sweeps.${i}` }));
-  const all = new Map<Quantity, Item[]>();
-  const measured = new Map<Quantity, Item[]>();
-  const rated = new Map<Quantity, Item[]>();
-  for (const it of items) {
-    push(all, it.quantity, it);
-    push(it.basis === "measured" ? measured : rated, it.quantity, it);
+class Index implements SheetIndex {
+  readonly category: Category;
+  readonly items: Item[];
+  readonly sweeps: SweepItem[];
+  private readonly byAll = new Map<Quantity, Item[]>();
+  private readonly byMeasured = new Map<Quantity, Item[]>();
+  private readonly byRated = new Map<Quantity, Item[]>();
+
+  constructor(readonly sheet: BenchSheet) {
+    this.category = sheet.category;
+    this.items = sheet.readings.map((r, i) => ({ ...r, conditions: r.conditions ?? {}, ref: `readings.${i}` }));
+    this.sweeps = (sheet.sweeps ?? []).map((s, i) => ({ ...s, ref: `sweeps.${i}` }));
+    for (const it of this.items) {
+      push(this.byAll, it.quantity, it);
+      push(it.basis === "measured" ? this.byMeasured : this.byRated, it.quantity, it);
+    }
   }
-  return {
-    sheet,
-    category: sheet.category,
-    items,
-    sweeps,
-    all: (q) => all.get(q) ?? EMPTY,
-    measured: (q) => measured.get(q) ?? EMPTY,
-    rated: (q) => rated.get(q) ?? EMPTY,
-  };
+  all(q: Quantity): Item[] {
+    return this.byAll.get(q) ?? EMPTY;
+  }
+  measured(q: Quantity): Item[] {
+    return this.byMeasured.get(q) ?? EMPTY;
+  }
+  rated(q: Quantity): Item[] {
+    return this.byRated.get(q) ?? EMPTY;
+  }
+}
+
+export function indexSheet(sheet: BenchSheet): SheetIndex {
+  return new Index(sheet);
+}
+
+/** Collects what the rules emit; `rule` is the one running. */
+class Collector implements Emit {
+  rule: Rule | undefined;
+  readonly results: RuleResult[] = [];
+  readonly derived: DerivedValue[] = [];
+  readonly shortfalls: Shortfall[] = [];
+  result(r: Parameters<Emit["result"]>[0]): void {
+    const rule = this.rule!;
+    this.results.push({ ruleId: rule.id, title: rule.title, outcome: r.outcome, explanation: rule.explanation, source: rule.source, detail: r.detail, refs: r.refs, compared: r.compared ?? [] });
+  }
+  derive(d: Parameters<Emit["derive"]>[0]): void {
+    this.derived.push({ id: d.id, label: d.label, value: d.value, unit: baseUnit(d.kind), display: d.display ?? formatValue(d.value, d.kind, d.format), refs: d.refs });
+  }
+  shortfall(s: Parameters<Emit["shortfall"]>[0]): void {
+    this.shortfalls.push({ ruleId: this.rule?.id ?? "", ...s });
+  }
 }
 
 function push<K, V>(m: Map<K, V[]>, k: K, v: V) {
@@ -71,27 +101,19 @@ function push<K, V>(m: Map<K, V[]>, k: K, v: V) {
 
 /** Check a (schema-valid) bench sheet against every rule for its category. Pure and fast (well under 1 ms). */
 export function checkBenchSheet(sheet: BenchSheet): Verdict {
-  const ix = indexSheet(sheet);
-  const results: RuleResult[] = [];
+  const ix = new Index(sheet);
+  const out = new Collector();
+  const { results, derived, shortfalls } = out;
   const skipped: SkippedRule[] = [];
-  const derived: DerivedValue[] = [];
-  const shortfalls: Shortfall[] = [];
-  let ruleId = "";
-  const emit = (rule: (typeof RULES)[number]): Emit => ({
-    result: (r) =>
-      results.push({ ruleId: rule.id, title: rule.title, outcome: r.outcome, explanation: rule.explanation, source: rule.source, detail: r.detail, refs: r.refs, compared: r.compared ?? [] }),
-    derive: (d) =>
-      derived.push({ id: d.id, label: d.label, value: d.value, unit: baseUnit(d.kind), display: d.display ?? formatValue(d.value, d.kind, d.format), refs: d.refs }),
-    shortfall: (s) => shortfalls.push({ ruleId: rule.id, ...s }),
-  });
   for (const rule of RULES) {
     if (rule.categories && !rule.categories.includes(ix.category)) continue;
-    ruleId = rule.id;
+    out.rule = rule;
     const before = results.length;
-    const reason = rule.evaluate(ix, emit(rule));
-    if (results.length === before) skipped.push({ ruleId, title: rule.title, reason: reason || "Nothing to check on this sheet." });
+    const reason = rule.evaluate(ix, out);
+    if (results.length === before) skipped.push({ ruleId: rule.id, title: rule.title, reason: reason || "Nothing to check on this sheet." });
   }
-  deriveFlatSweeps(ix, emit({ id: "response-sweep", title: "", explanation: "", source: "", evaluate: () => undefined }));
+  out.rule = undefined;
+  deriveFlatSweeps(ix, out);
 
   const counts = { consistent: 0, questionable: 0, implausible: 0, missing: 0 } as Record<Outcome, number>;
   for (const r of results) counts[r.outcome]++;
