@@ -21,4 +21,6 @@ export default [
   // Capture analysis (the bench)
   route("api/v1/captures/analyze", "routes/api.v1.captures.analyze.ts"),
   route("api/v1/captures/:id", "routes/api.v1.captures.$id.ts"),
+  // Bench-sheet check (open to anyone)
+  route("api/v1/bench-sheets/check", "routes/api.v1.bench-sheets.check.ts"),
 ] satisfies RouteConfig;
