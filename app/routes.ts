@@ -15,6 +15,8 @@ export default [
   route("account", "routes/account/account.tsx"),
   route("admin/users", "routes/admin/users.tsx"),
   route("desk", "routes/desk/desk.tsx"),
+  // The public listing page (watch is its action)
+  route("listings/:id", "routes/listings/listing.tsx"),
   // Service health and the payments provider's webhook
   route("healthz", "routes/healthz.ts"),
   route("api/v1/webhooks/stripe", "routes/api.v1.webhooks.stripe.ts"),
@@ -23,4 +25,7 @@ export default [
   route("api/v1/captures/:id", "routes/api.v1.captures.$id.ts"),
   // Bench-sheet check (open to anyone)
   route("api/v1/bench-sheets/check", "routes/api.v1.bench-sheets.check.ts"),
+  // Listing photos (seller only)
+  route("api/v1/listings/:id/photos", "routes/api.v1.listings.$id.photos.ts"),
+  route("api/v1/listings/:id/photos/:photoId", "routes/api.v1.listings.$id.photos.$photoId.ts"),
 ] satisfies RouteConfig;
