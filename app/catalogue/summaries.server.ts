@@ -1,0 +1,78 @@
+import { QueryTypes } from "sequelize";
+import { sequelize } from "~/db.server";
+import { BenchSheet, Listing, User, Workshop } from "~/models/index.server";
+import { benchSheetSchema, type BenchSheet as Sheet } from "@shared/bench/schema";
+import { formatEra, listingTitle } from "@shared/catalogue";
+import { leadFigure } from "@shared/listing-facets";
+import type { ListingSummary, PhotoRef } from "./types";
+import { mediaUrl } from "./media-url";
+
+// Turns listing rows into what list pages show. Loads what a card needs in three queries per page
+// (listings with seller and sheet, then covers), however many listings there are.
+
+export const summaryInclude = [
+  { model: User, as: "seller", attributes: ["id", "displayName"] },
+  { model: Workshop, as: "workshop", attributes: ["id", "name", "slug", "verificationStatus"] },
+  { model: BenchSheet, as: "benchSheet", attributes: ["sheet"] },
+];
+
+type Row = Listing & {
+  seller?: User;
+  workshop?: Workshop | null;
+  benchSheet?: BenchSheet | null;
+};
+
+export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
+  const covers = await coversFor(rows.map((r) => r.id));
+  return (rows as Row[]).map((l) => ({
+    id: l.id,
+    title: listingTitle(l.maker, l.model),
+    maker: l.maker ?? "",
+    model: l.model ?? "",
+    category: l.category,
+    era: formatEra(l.yearFrom, l.yearTo),
+    priceMinor: l.priceMinor ?? 0,
+    currency: l.currency,
+    offersWelcome: l.offersWelcome,
+    cosmeticGrade: l.cosmeticGrade!,
+    serviceState: l.serviceState!,
+    benchVerified: l.benchVerified,
+    place: [l.town, l.region].filter(Boolean).join(", ") || (l.country ?? ""),
+    seller: l.workshop
+      ? { name: l.workshop.name, kind: "workshop", verified: l.workshop.verificationStatus === "verified" }
+      : // Private sellers go by first name in lists.
+        { name: (l.seller?.displayName ?? "").split(/\s+/)[0] ?? "", kind: "private", verified: false },
+    cover: covers.get(l.id) ?? null,
+    keyFigure: leadFigure(readSheet(l.benchSheet?.sheet)),
+    publishedAt: (l.publishedAt ?? l.createdAt).toISOString(),
+  }));
+}
+
+/** A stored sheet that no longer parses (an older shape) shows no figure rather than a wrong one. */
+function readSheet(raw: unknown): Sheet | null {
+  if (!raw) return null;
+  const parsed = benchSheetSchema.safeParse(raw);
+  return parsed.success ? parsed.data : null;
+}
+
+async function coversFor(listingIds: string[]): Promise<Map<string, PhotoRef>> {
+  const out = new Map<string, PhotoRef>();
+  if (listingIds.length === 0) return out;
+  // The marked cover, else the first ready photo.
+  const rows = await sequelize.query<{ listing_id: string; thumb_key: string; listing_key: string; width: number; height: number }>(
+    `SELECT DISTINCT ON (listing_id) listing_id, thumb_key, listing_key, width, height
+       FROM listing_photos
+      WHERE listing_id IN (:ids) AND status = 'ready'
+      ORDER BY listing_id, is_cover DESC, position`,
+    { replacements: { ids: listingIds }, type: QueryTypes.SELECT },
+  );
+  for (const r of rows) {
+    out.set(r.listing_id, {
+      thumbUrl: mediaUrl(r.thumb_key),
+      listingUrl: mediaUrl(r.listing_key),
+      width: r.width,
+      height: r.height,
+    });
+  }
+  return out;
+}

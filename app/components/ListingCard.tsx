@@ -1,0 +1,76 @@
+import { Link } from "react-router";
+import { CATEGORY_LABELS, COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice } from "@shared/catalogue";
+import type { ListingSummary } from "~/catalogue/types";
+import { BenchVerifiedMark } from "./BenchVerifiedMark";
+import { Figure } from "./Figure";
+import { cx } from "./cx";
+
+/**
+ * One unit in a list: the photo, the title in serif, the key measured figure with its conditions,
+ * price, condition and the bench-verified mark. The whole card is one link (the title), so keyboard
+ * users meet one tab stop per unit.
+ */
+export function ListingCard({ listing, href, className }: { listing: ListingSummary; href: string; className?: string }) {
+  const l = listing;
+  return (
+    <article
+      className={cx(
+        "group relative flex flex-col overflow-hidden rounded-panel border border-rule bg-card shadow-panel transition-shadow",
+        "hover:border-rule-strong hover:shadow-[0_2px_0_rgb(31_26_21/0.04),0_6px_18px_rgb(31_26_21/0.08)]",
+        "focus-within:border-walnut",
+        className,
+      )}
+    >
+      <div className="relative aspect-[4/3] bg-sunk">
+        {l.cover ? (
+          <img
+            src={l.cover.thumbUrl}
+            alt=""
+            width={l.cover.width}
+            height={l.cover.height}
+            loading="lazy"
+            decoding="async"
+            className="size-full object-cover"
+          />
+        ) : (
+          <div className="flex size-full items-center justify-center text-sm text-ink-faint">No photo yet</div>
+        )}
+        {l.benchVerified ? (
+          <BenchVerifiedMark compact className="absolute left-2.5 top-2.5 bg-card/95 backdrop-blur-sm" />
+        ) : null}
+      </div>
+      <div className="flex flex-1 flex-col gap-3 p-4">
+        <div className="space-y-0.5">
+          <p className="text-xs font-medium text-ink-faint">
+            {CATEGORY_LABELS[l.category].one}
+            {l.era ? <> · {l.era}</> : null}
+          </p>
+          <h3 className="font-serif text-[1.1875rem] font-semibold leading-snug text-ink">
+            <Link to={href} className="no-underline after:absolute after:inset-0 after:content-[''] focus-visible:outline-none">
+              {l.title}
+            </Link>
+          </h3>
+        </div>
+        {l.keyFigure ? (
+          <Figure size="sm" value={l.keyFigure.value} unit={l.keyFigure.unit} conditions={l.keyFigure.conditions} />
+        ) : (
+          <p className="text-[0.8125rem] text-ink-faint">No bench figures given</p>
+        )}
+        <div className="mt-auto flex items-end justify-between gap-3 border-t border-rule pt-3">
+          <div className="min-w-0 text-[0.8125rem] leading-snug text-ink-soft">
+            <p className="truncate">
+              {COSMETIC_GRADE_TEXT[l.cosmeticGrade].label} · {SERVICE_STATE_TEXT[l.serviceState].label}
+            </p>
+            <p className="truncate text-ink-faint">
+              {l.seller.kind === "workshop" ? l.seller.name : "Private seller"} · {l.place}
+            </p>
+          </div>
+          <div className="shrink-0 text-right">
+            <p className="figures text-lg font-semibold text-ink">{formatPrice(l.priceMinor, l.currency)}</p>
+            {l.offersWelcome ? <p className="text-xs text-brass-ink">Offers welcome</p> : null}
+          </div>
+        </div>
+      </div>
+    </article>
+  );
+}

@@ -1,0 +1,43 @@
+import { Link } from "react-router";
+import { cx } from "./cx";
+
+/** Previous / page n of m / next, as plain links so it works without JavaScript. */
+export function Pagination({
+  page,
+  pageCount,
+  hrefFor,
+  className,
+}: {
+  page: number;
+  pageCount: number;
+  hrefFor: (page: number) => string;
+  className?: string;
+}) {
+  if (pageCount <= 1) return null;
+  const item = "inline-flex h-9 items-center rounded-md border px-3 text-sm font-medium no-underline";
+  return (
+    <nav aria-label="Pages" className={cx("flex items-center justify-between gap-3", className)}>
+      {page > 1 ? (
+        <Link to={hrefFor(page - 1)} rel="prev" className={cx(item, "border-rule-strong bg-card text-ink hover:border-walnut")}>
+          ← Newer
+        </Link>
+      ) : (
+        <span className={cx(item, "border-rule text-ink-faint/70")} aria-hidden="true">
+          ← Newer
+        </span>
+      )}
+      <p className="text-sm text-ink-soft">
+        Page <span className="figures">{page}</span> of <span className="figures">{pageCount}</span>
+      </p>
+      {page < pageCount ? (
+        <Link to={hrefFor(page + 1)} rel="next" className={cx(item, "border-rule-strong bg-card text-ink hover:border-walnut")}>
+          Older →
+        </Link>
+      ) : (
+        <span className={cx(item, "border-rule text-ink-faint/70")} aria-hidden="true">
+          Older →
+        </span>
+      )}
+    </nav>
+  );
+}
