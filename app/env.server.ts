@@ -37,6 +37,8 @@ const EnvSchema = z
     FAKE_MAIL_HTTP_PORT: port.default(1080),
     FAKE_OAUTH_PORT: port.default(4010),
     FAKE_STRIPE_PORT: port.default(12111),
+    // Test runs only: bcrypt at its minimum cost so sign-ins in the browser suite stay quick.
+    LOADLINE_FAST_HASH: z.enum(["0", "1"], "must be 0 or 1").default("0"),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === "production" && !env.SESSION_SECRET && env.APP_URL?.startsWith("https://")) {
@@ -69,10 +71,11 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
     appUrl,
     secureCookies: appUrl.startsWith("https://"),
     sessionSecret: raw.SESSION_SECRET ?? "loadline-local-development-secret-not-for-production",
+    passwordHashCost: raw.LOADLINE_FAST_HASH === "1" || raw.NODE_ENV === "test" ? 4 : 12,
     databaseUrl: raw.DATABASE_URL,
     s3: raw.S3_ENDPOINT
       ? {
-          mode: "real" as ServiceMode,
+          mode: "real" as const,
           endpoint: raw.S3_ENDPOINT,
           region: raw.S3_REGION,
           accessKeyId: raw.S3_ACCESS_KEY_ID!,
@@ -80,7 +83,7 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
           bucket: raw.S3_BUCKET,
         }
       : {
-          mode: "fake" as ServiceMode,
+          mode: "fake" as const,
           endpoint: `http://${local}:${raw.FAKE_S3_PORT}`,
           region: raw.S3_REGION,
           accessKeyId: "S3RVER",
@@ -89,9 +92,9 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
           port: raw.FAKE_S3_PORT,
         },
     mail: raw.SMTP_URL
-      ? { mode: "real" as ServiceMode, smtpUrl: raw.SMTP_URL, from: raw.MAIL_FROM }
+      ? { mode: "real" as const, smtpUrl: raw.SMTP_URL, from: raw.MAIL_FROM }
       : {
-          mode: "fake" as ServiceMode,
+          mode: "fake" as const,
           smtpUrl: `smtp://${local}:${raw.FAKE_SMTP_PORT}`,
           from: raw.MAIL_FROM,
           smtpPort: raw.FAKE_SMTP_PORT,
@@ -100,13 +103,13 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
         },
     oauth: raw.OAUTH_ISSUER
       ? {
-          mode: "real" as ServiceMode,
+          mode: "real" as const,
           issuer: raw.OAUTH_ISSUER,
           clientId: raw.OAUTH_CLIENT_ID!,
           clientSecret: raw.OAUTH_CLIENT_SECRET!,
         }
       : {
-          mode: "fake" as ServiceMode,
+          mode: "fake" as const,
           issuer: `http://${local}:${raw.FAKE_OAUTH_PORT}`,
           clientId: "loadline-local",
           clientSecret: "loadline-local-secret",
@@ -114,13 +117,13 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
         },
     stripe: raw.STRIPE_SECRET_KEY
       ? {
-          mode: "real" as ServiceMode,
+          mode: "real" as const,
           secretKey: raw.STRIPE_SECRET_KEY,
           webhookSecret: raw.STRIPE_WEBHOOK_SECRET!,
           apiUrl: raw.STRIPE_API_URL,
         }
       : {
-          mode: "fake" as ServiceMode,
+          mode: "fake" as const,
           secretKey: "sk_test_loadline_local",
           webhookSecret: "whsec_loadline_local",
           apiUrl: `http://${local}:${raw.FAKE_STRIPE_PORT}`,
@@ -132,7 +135,9 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
 export type Env = ReturnType<typeof resolve>;
 
 export function parseEnv(source: NodeJS.ProcessEnv = process.env): Env {
-  const result = EnvSchema.safeParse(source);
+  // An exported but empty variable (as copied from .env.example) means "not set".
+  const present = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ""));
+  const result = EnvSchema.safeParse(present);
   if (!result.success) {
     const lines = result.error.issues.map((i) => `  ${i.path.join(".") || "(environment)"} ${i.message}`);
     throw new Error(`Loadline cannot start: bad environment variables:\n${lines.join("\n")}`);
