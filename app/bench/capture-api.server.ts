@@ -116,6 +116,14 @@ export function capturePath(id: string): string {
   return `/api/v1/captures/${id}`;
 }
 
+/** Six significant figures: more than any bench instrument resolves, without float noise. */
+function rounded<T>(x: T): T {
+  if (typeof x === "number") return (Number.isFinite(x) && x !== 0 ? Number(x.toPrecision(6)) : x) as T;
+  if (Array.isArray(x)) return x.map(rounded) as T;
+  if (x && typeof x === "object") return Object.fromEntries(Object.entries(x).map(([k, v]) => [k, rounded(v)])) as T;
+  return x;
+}
+
 /** The public shape of a capture. */
 export function presentCapture(c: Capture) {
   return {
@@ -128,7 +136,9 @@ export function presentCapture(c: Capture) {
     conditions: c.conditions,
     createdAt: c.createdAt.toISOString(),
     finishedAt: c.finishedAt?.toISOString() ?? null,
-    ...(c.status === "done" ? { analysis: c.analysis, readings: c.readings, ...(c.sweep ? { sweep: c.sweep } : {}) } : {}),
+    ...(c.status === "done"
+      ? { analysis: rounded(c.analysis), readings: rounded(c.readings), ...(c.sweep ? { sweep: rounded(c.sweep) } : {}) }
+      : {}),
     ...(c.status === "failed" ? { error: { error: c.errorCode, message: c.errorMessage } } : {}),
   };
 }

@@ -112,6 +112,8 @@ function checkWav(w: WavFormat, c: SineCaptureConditions) {
   }
 }
 
+const when = (s: number) => (s < 1 ? `${(s * 1000).toFixed(1)} ms` : `${s.toFixed(3)} s`);
+
 function checkSamples(d: DecodedWav) {
   const names = d.channels === 1 ? ["mono"] : ["left", "right"];
   d.samples.forEach((x, i) => {
@@ -119,7 +121,7 @@ function checkSamples(d: DecodedWav) {
     if (run) {
       throw new CaptureError(
         "CLIPPED",
-        `The ${names[i]} channel sits at digital full scale for ${run.length} samples from ${(run.index / d.sampleRate).toFixed(3)} s: the analyser input was overloaded. Add attenuation and capture again.`,
+        `The ${names[i]} channel sits at digital full scale for ${run.length} samples from ${when(run.index / d.sampleRate)}: the analyser input was overloaded. Add attenuation and capture again.`,
         { channel: names[i], atSeconds: run.index / d.sampleRate, samples: run.length },
       );
     }

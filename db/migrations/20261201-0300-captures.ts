@@ -19,11 +19,12 @@ export const up: Migration = async ({ context: qi }) => {
       byte_size integer NOT NULL CHECK (byte_size > 0 AND byte_size <= 52428800),
       -- Null once a file the analysis refused has been removed from storage.
       storage_key text UNIQUE,
-      format jsonb NOT NULL CHECK (jsonb_typeof(format) = 'object'),
-      conditions jsonb NOT NULL CHECK (jsonb_typeof(conditions) = 'object'),
-      analysis jsonb CHECK (analysis IS NULL OR jsonb_typeof(analysis) = 'object'),
-      readings jsonb CHECK (readings IS NULL OR jsonb_typeof(readings) = 'array'),
-      sweep jsonb CHECK (sweep IS NULL OR jsonb_typeof(sweep) = 'object'),
+      -- json, not jsonb: the API hands these back as written, keys in their reading order.
+      format json NOT NULL CHECK (json_typeof(format) = 'object'),
+      conditions json NOT NULL CHECK (json_typeof(conditions) = 'object'),
+      analysis json CHECK (analysis IS NULL OR json_typeof(analysis) = 'object'),
+      readings json CHECK (readings IS NULL OR json_typeof(readings) = 'array'),
+      sweep json CHECK (sweep IS NULL OR json_typeof(sweep) = 'object'),
       error_code text,
       error_message text,
       started_at timestamptz,

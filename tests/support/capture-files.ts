@@ -37,6 +37,8 @@ export interface ToneSpec {
   peak: number;
   /** Second channel's level relative to the first (stereo only). */
   rightGain?: number;
+  /** White noise, rms as a fraction of full scale (seeded, so repeatable). */
+  noiseRms?: number;
 }
 
 /** The tone as samples scaled to full scale ±1. */
@@ -50,6 +52,11 @@ export function toneSamples(s: ToneSpec): Float64Array {
     for (let k = 0; k < h.length; k++) if (h[k]) v += h[k] * Math.sin(w * (k + 1) * s.f0 * i + 0.7 * k);
     for (const [f, a] of s.extra ?? []) v += a * Math.sin(w * f * i + 0.3);
     x[i] = v * s.peak;
+  }
+  if (s.noiseRms) {
+    const r = prng(77);
+    const k = s.noiseRms * Math.sqrt(12);
+    for (let i = 0; i < n; i++) x[i] += (r() - 0.5) * k;
   }
   return x;
 }

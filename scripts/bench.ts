@@ -1,0 +1,102 @@
+// `npm run bench`: timing figures with their limits; exits non-zero when a limit is missed.
+// Capture analysis: a 10 s stereo 96 kHz 24-bit WAV, from its bytes to readings, against a bare
+// fft.js transform of the same samples (both channels, the same FFT size). Runs alternate, and the
+// median of several decides, because the machine is shared; the cold first run is shown as well.
+import wavefile from "wavefile";
+import { analyseCapture } from "../app/bench/captures.server";
+import { decodeWavData, readWavFormat } from "../app/bench/wav.server";
+import { bareFft, nextPowerOfTwo } from "../shared/bench/analysis";
+
+type Figure = { label: string; value: number; unit: string; limit?: number };
+const { WaveFile } = wavefile as unknown as {
+  WaveFile: new () => { fromScratch(c: number, r: number, b: string, s: ArrayLike<number>[]): void; toBuffer(): Uint8Array };
+};
+
+function captureWav(seconds: number, sampleRate: number): Uint8Array {
+  const n = seconds * sampleRate;
+  const left = new Int32Array(n);
+  const right = new Int32Array(n);
+  let seed = 12345;
+  const noise = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32 - 0.5) * 2e-6;
+  for (let i = 0; i < n; i++) {
+    const ph = (2 * Math.PI * 997 * i) / sampleRate;
+    const v = 0.5 * Math.sin(ph) + 5e-5 * Math.sin(2 * ph) + 2e-5 * Math.sin(3 * ph);
+    left[i] = Math.round((v + noise()) * 8388607);
+    right[i] = Math.round((0.98 * v + noise()) * 8388607);
+  }
+  const w = new WaveFile();
+  w.fromScratch(2, sampleRate, "24", [left, right]);
+  return w.toBuffer();
+}
+
+const median = (a: number[]) => [...a].sort((x, y) => x - y)[a.length >> 1];
+const ms = (x: number) => Math.round(x * 10) / 10;
+
+async function captureFigures(): Promise<Figure[]> {
+  const bytes = captureWav(10, 96_000);
+  const conditions = {
+    kind: "sine" as const,
+    scale: { kind: "analyser" as const, fullScaleVolts: 2, basis: "rms" as const, attenuation: 10 },
+    loadOhm: 8,
+    weighting: "A" as const,
+    window: "blackman-harris-7" as const,
+  };
+  const { format, data } = readWavFormat(bytes);
+  const channels = decodeWavData(format, data).samples;
+
+  const analyse = () => {
+    const t = performance.now();
+    const r = analyseCapture(bytes, "bench.wav", conditions, "bench");
+    if (r.kind !== "sine" || r.readings.length === 0) throw new Error("the bench capture did not analyse");
+    return performance.now() - t;
+  };
+  const bare = () => {
+    const t = performance.now();
+    for (const ch of channels) bareFft(ch);
+    return performance.now() - t;
+  };
+
+  const cold = analyse();
+  bare();
+  analyse();
+  const runs = 9;
+  const tA: number[] = [];
+  const tF: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    tA.push(analyse());
+    tF.push(bare());
+  }
+  const a = median(tA);
+  const f = median(tF);
+  const size = nextPowerOfTwo(channels[0].length);
+  return [
+    { label: `capture analysis, 10 s stereo 96 kHz 24-bit WAV (${(bytes.length / 1048576).toFixed(1)} MB), first run (FFT tables, window, A-weighting built)`, value: ms(cold), unit: "ms" },
+    { label: `capture analysis, same file, median of ${runs} (min ${ms(Math.min(...tA))} ms)`, value: ms(a), unit: "ms", limit: 300 },
+    { label: `bare fft.js real FFT of both channels (2 × ${size} points), median of ${runs} (min ${ms(Math.min(...tF))} ms)`, value: ms(f), unit: "ms" },
+    { label: "capture analysis ÷ bare FFT (medians)", value: Math.round((a / f) * 100) / 100, unit: "×", limit: 2 },
+  ];
+}
+
+async function sheetFigures(): Promise<{ figures: Figure[]; note?: string }> {
+  try {
+    const mod = (await import("./bench/sheet")) as { benchSheetCheck: () => Promise<Figure[]> };
+    return { figures: await mod.benchSheetCheck() };
+  } catch (e) {
+    return { figures: [], note: `bench-sheet check timing not available (scripts/bench/sheet.ts: ${(e as Error).message})` };
+  }
+}
+
+const figures = await captureFigures();
+const sheet = await sheetFigures();
+figures.push(...sheet.figures);
+
+let missed = 0;
+for (const f of figures) {
+  const over = f.limit !== undefined && !(f.value < f.limit);
+  if (over) missed++;
+  const limit = f.limit !== undefined ? `  (limit < ${f.limit} ${f.unit}${over ? ", MISSED" : ", ok"})` : "";
+  console.log(`${f.label}: ${f.value} ${f.unit}${limit}`);
+}
+if (sheet.note) console.log(sheet.note);
+console.log(missed ? `\n${missed} limit(s) missed` : "\nAll limits met");
+process.exit(missed ? 1 : 0);
