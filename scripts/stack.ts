@@ -68,7 +68,10 @@ export async function bringUp(p: Profile, { seed = true, log = console.log } = {
     const { env: appEnv } = await import("../app/env.server");
     const settings = appEnv();
     const { startFakes } = await import("../fakes/index");
+    // The sign-in provider offers the demo accounts, which exist only once the seed below has run.
+    let suggestions: { email: string; name: string }[] = [];
     const fakes = await startFakes({
+      oauthSuggestions: () => suggestions,
       env: settings,
       dataDir: path.join(p.dir, "fakes"),
       webhookUrl: `${settings.appUrl}/api/v1/webhooks/stripe`,
@@ -87,6 +90,7 @@ export async function bringUp(p: Profile, { seed = true, log = console.log } = {
       log(result.created ? "Loaded the demo scenario" : "Demo scenario already loaded");
       lines.push("", "Demo accounts (password: bench-demo-2026)");
       for (const a of result.accounts) lines.push(`  ${a.role.padEnd(10)} ${a.email}`);
+      suggestions = result.accounts.map((a) => ({ email: a.email, name: a.name ?? a.email }));
     }
     const { sequelize } = await import("../app/db.server");
     stops.push(() => sequelize.close());
