@@ -83,7 +83,7 @@ class Collector implements Emit {
   readonly shortfalls: Shortfall[] = [];
   result(r: Parameters<Emit["result"]>[0]): void {
     const rule = this.rule!;
-    this.results.push({ ruleId: rule.id, title: rule.title, outcome: r.outcome, explanation: rule.explanation, source: rule.source, detail: r.detail, refs: r.refs, compared: r.compared ?? [] });
+    this.results.push({ ruleId: rule.id, title: rule.title, outcome: r.outcome, explanation: rule.explanation, source: rule.source, detail: sentence(r.detail), refs: r.refs, compared: r.compared ?? [] });
   }
   derive(d: Parameters<Emit["derive"]>[0]): void {
     this.derived.push({ id: d.id, label: d.label, value: d.value, unit: baseUnit(d.kind), display: d.display ?? formatValue(d.value, d.kind, d.format), refs: d.refs });
@@ -91,6 +91,11 @@ class Collector implements Emit {
   shortfall(s: Parameters<Emit["shortfall"]>[0]): void {
     this.shortfalls.push({ ruleId: this.rule?.id ?? "", ...s });
   }
+}
+
+/** Details often open with a reading's name ("left THD 0.012 % …"); a sentence starts with a capital. */
+function sentence(s: string): string {
+  return s && s[0] !== s[0].toUpperCase() ? s[0].toUpperCase() + s.slice(1) : s;
 }
 
 function push<K, V>(m: Map<K, V[]>, k: K, v: V) {

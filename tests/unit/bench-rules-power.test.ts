@@ -87,7 +87,7 @@ describe("measured-vs-rated-power", () => {
   });
   it("uses the weaker channel", () => {
     const v = checkBenchSheet(amp(rating, measured("output_power", 104, "W", full8, { channel: "left" }), measured("output_power", 95, "W", full8, { channel: "right" })));
-    expect(resultsFor(v, "measured-vs-rated-power")[0].detail).toMatch(/^right output power 95 W/);
+    expect(resultsFor(v, "measured-vs-rated-power")[0].detail).toMatch(/^Right output power 95 W/);
   });
   it("questions a measurement far above the rating", () => {
     expect(outcomes(amp(rating, measured("output_power", 160, "W", full8)), "measured-vs-rated-power")).toEqual(["questionable"]);
