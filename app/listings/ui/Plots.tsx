@@ -1,0 +1,190 @@
+import { lazy, Suspense, useSyncExternalStore, type ReactNode } from "react";
+import type { PlotSet, ResponsePlot, SpectrumPlot, SquarePlot } from "../types";
+import { CaptureTag } from "./CaptureTag";
+
+// Charts load in the browser only, in their own chunk: the page's text arrives first, and the numbers
+// behind every chart are in a table beside it for readers who would rather read, or have no script.
+const Charts = {
+  Spectrum: lazy(() => import("./charts").then((m) => ({ default: m.SpectrumChart }))),
+  Response: lazy(() => import("./charts").then((m) => ({ default: m.ResponseChart }))),
+  Square: lazy(() => import("./charts").then((m) => ({ default: m.SquareChart }))),
+};
+
+const subscribe = () => () => {};
+function useHydrated(): boolean {
+  return useSyncExternalStore(subscribe, () => true, () => false);
+}
+
+function ChartFrame({ height, children }: { height: number; children: ReactNode }) {
+  const hydrated = useHydrated();
+  const placeholder = <div style={{ height }} className="rounded-md bg-sunk/60" aria-hidden="true" />;
+  return (
+    <div className="chart" data-chart-ready={hydrated ? "true" : undefined}>
+      {hydrated ? <Suspense fallback={placeholder}>{children}</Suspense> : placeholder}
+    </div>
+  );
+}
+
+function PlotFigure({
+  id,
+  title,
+  conditions,
+  fromCapture,
+  children,
+  numbers,
+}: {
+  id: string;
+  title: string;
+  conditions: string;
+  fromCapture: boolean;
+  children: ReactNode;
+  numbers: ReactNode;
+}) {
+  return (
+    <figure aria-labelledby={`${id}-title`} className="space-y-3 rounded-panel border border-rule bg-card p-4 shadow-panel sm:p-5">
+      <figcaption className="space-y-1">
+        <div className="flex flex-wrap items-center gap-2">
+          <h3 id={`${id}-title`} className="text-[1.0625rem] leading-snug">
+            {title}
+          </h3>
+          {fromCapture ? <CaptureTag /> : null}
+        </div>
+        <p className="text-[0.8125rem] text-ink-faint">{conditions}</p>
+      </figcaption>
+      {children}
+      <details className="group text-sm">
+        <summary className="cursor-pointer select-none text-[0.8125rem] font-medium text-walnut hover:text-walnut-deep">
+          The numbers behind this plot
+        </summary>
+        <div className="mt-2 overflow-x-auto">{numbers}</div>
+      </details>
+    </figure>
+  );
+}
+
+const th = "border-b border-rule px-2 py-1 text-left text-xs font-semibold text-ink-soft";
+const td = "border-b border-rule/60 px-2 py-1 figures text-[0.8125rem]";
+
+function SpectrumNumbers({ plot }: { plot: SpectrumPlot }) {
+  return (
+    <table className="min-w-full">
+      <thead>
+        <tr>
+          <th className={th}>Harmonic</th>
+          <th className={th}>Frequency</th>
+          {plot.channels.map((c) => (
+            <th key={c.key} className={th}>
+              {c.label}, dB re fundamental
+            </th>
+          ))}
+        </tr>
+      </thead>
+      <tbody>
+        {plot.bars.map((b) => (
+          <tr key={b.order}>
+            <td className={td}>{b.label}</td>
+            <td className={td}>{b.frequencyHz >= 1000 ? `${Number((b.frequencyHz / 1000).toPrecision(4))} kHz` : `${Math.round(b.frequencyHz)} Hz`}</td>
+            {plot.channels.map((c) => (
+              <td key={c.key} className={td}>
+                {b.levels[c.key] !== undefined ? b.levels[c.key].toFixed(1).replace(/^-/, "−") : "—"}
+              </td>
+            ))}
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function ResponseNumbers({ plot }: { plot: ResponsePlot }) {
+  const step = Math.max(1, Math.ceil(plot.points.length / 24));
+  const rows = plot.points.filter((_, i) => i % step === 0 || i === plot.points.length - 1);
+  const riaa = plot.kind === "riaa";
+  const db = (x: number | undefined) => (x === undefined ? "—" : `${x >= 0 ? "+" : "−"}${Math.abs(x).toFixed(2)}`);
+  return (
+    <table className="min-w-full">
+      <thead>
+        <tr>
+          <th className={th}>Frequency</th>
+          <th className={th}>Level re 1 kHz, dB</th>
+          {riaa ? <th className={th}>RIAA curve, dB</th> : null}
+          {riaa ? <th className={th}>Deviation, dB</th> : null}
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((p) => (
+          <tr key={p.f}>
+            <td className={td}>{p.f >= 1000 ? `${Number((p.f / 1000).toPrecision(3))} kHz` : `${Number(p.f.toPrecision(3))} Hz`}</td>
+            <td className={td}>{db(p.level)}</td>
+            {riaa ? <td className={td}>{db(p.target)}</td> : null}
+            {riaa ? <td className={td}>{db(p.deviation)}</td> : null}
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function FigureList({ figures }: { figures: { label: string; display: string }[] }) {
+  return (
+    <dl className="grid gap-x-6 gap-y-1 sm:grid-cols-3">
+      {figures.map((f) => (
+        <div key={f.label}>
+          <dt className="text-xs text-ink-faint">{f.label}</dt>
+          <dd className="figures text-[0.9375rem] text-ink">{f.display}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+export function Plots({ plots }: { plots: PlotSet }) {
+  const count = plots.spectra.length + plots.responses.length + plots.squares.length;
+  if (count === 0) return null;
+  return (
+    <section aria-labelledby="plots-heading" className="space-y-4">
+      <div className="space-y-1">
+        <h2 id="plots-heading" className="text-2xl">
+          What the bench saw
+        </h2>
+        <p className="text-sm text-ink-soft">Plotted from the seller's sweeps and captures, exactly as measured.</p>
+      </div>
+      <div className="grid gap-4 xl:grid-cols-2">
+        {plots.spectra.map((p) => (
+          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<SpectrumNumbers plot={p} />}>
+            <ChartFrame height={260}>
+              <Charts.Spectrum plot={p} />
+            </ChartFrame>
+            <ul className="flex flex-wrap gap-x-5 gap-y-1 text-[0.8125rem] text-ink-soft">
+              {p.channels.map((c) => (
+                <li key={c.key}>
+                  <span className="font-medium text-ink">{c.label}:</span> <span className="figures">{c.thd}</span>
+                </li>
+              ))}
+            </ul>
+          </PlotFigure>
+        ))}
+        {plots.responses.map((p) => (
+          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture={p.fromCapture} numbers={<ResponseNumbers plot={p} />}>
+            <ChartFrame height={p.kind === "riaa" ? 394 : 260}>
+              <Charts.Response plot={p} />
+            </ChartFrame>
+            {p.riaa ? (
+              <p className="text-[0.8125rem] text-ink-soft">
+                Against {p.riaa.variant} (brass, dashed); worst deviation <span className="figures text-ink">{p.riaa.worst}</span>.
+              </p>
+            ) : null}
+          </PlotFigure>
+        ))}
+        {plots.squares.map((p) => (
+          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<FigureList figures={p.figures} />}>
+            <ChartFrame height={240}>
+              <Charts.Square plot={p} />
+            </ChartFrame>
+            <FigureList figures={p.figures} />
+          </PlotFigure>
+        ))}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,128 @@
+import { data, isRouteErrorResponse, Link } from "react-router";
+import { z } from "zod";
+import type { Route } from "./+types/listing";
+import { assertSameOrigin } from "~/auth/csrf.server";
+import { getUser, requireUser } from "~/auth/guards.server";
+import { ButtonLink } from "~/components/Button";
+import { loadListingPage } from "~/listings/public.server";
+import { setWatch } from "~/listings/watch.server";
+import { BenchSheetSection, KeyFigures } from "~/listings/ui/BenchSheetSection";
+import { Gallery } from "~/listings/ui/Gallery";
+import { ListingTitle, PriceAndCondition, StatusBanner, WatchControl } from "~/listings/ui/ListingHeader";
+import { Plots } from "~/listings/ui/Plots";
+import { RestorationLog } from "~/listings/ui/RestorationLog";
+import { SafetyCautions, SellerCard, ShippingPanel } from "~/listings/ui/SidePanels";
+import { UnitDetails } from "~/listings/ui/UnitDetails";
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const url = new URL(request.url);
+  const page = await loadListingPage({
+    id: params.id,
+    viewer: await getUser(request),
+    zone: url.searchParams.get("zone"),
+    acceptLanguage: request.headers.get("Accept-Language"),
+  });
+  if (!page) throw data({ message: "There is no listing here." }, { status: 404, statusText: "Not Found" });
+  const photo = Number(url.searchParams.get("photo"));
+  // The page differs per viewer (watch state, held banner): never from a shared cache.
+  return data({ ...page, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 }, { headers: { "Cache-Control": "private, no-store" } });
+}
+
+const WatchForm = z.object({ intent: z.enum(["watch", "unwatch"], { message: "Choose watch or unwatch." }) });
+
+export async function action({ request, params }: Route.ActionArgs) {
+  assertSameOrigin(request);
+  const user = await requireUser(request, { redirectTo: `/listings/${params.id}` });
+  const parsed = WatchForm.safeParse(Object.fromEntries(await request.formData()));
+  if (!parsed.success) return data({ reason: parsed.error.issues[0].message, path: "intent" }, { status: 400 });
+  const result = await setWatch(user, params.id, parsed.data.intent === "watch");
+  if (!result.ok) {
+    if (result.status === 404) throw data({ message: result.reason }, { status: 404, statusText: "Not Found" });
+    return data({ reason: result.reason }, { status: result.status });
+  }
+  return { watching: result.watching };
+}
+
+export function meta({ data: page }: Route.MetaArgs) {
+  if (!page) return [{ title: "No listing here · Loadline" }];
+  const l = page.listing;
+  const lead = page.keyFigures[0];
+  const description = [l.categoryLabel, l.era, lead ? `${lead.label} ${lead.value} ${lead.unit} ${lead.conditions}` : null, l.priceText]
+    .filter(Boolean)
+    .join(" · ");
+  return [
+    { title: `${l.title} · Loadline` },
+    { name: "description", content: description },
+    ...(l.status === "live" || l.status === "sold" ? [] : [{ name: "robots", content: "noindex" }]),
+  ];
+}
+
+export default function ListingPage({ loaderData }: Route.ComponentProps) {
+  const { listing, viewer, photos, keyFigures, bench, plots, restoration, seller, shipping, initialPhoto } = loaderData;
+  return (
+    <main className="mx-auto w-full max-w-7xl space-y-10 px-4 pb-16 pt-6 sm:px-6 lg:px-8">
+      <nav aria-label="Breadcrumb" className="text-sm text-ink-faint">
+        <Link to="/" className="no-underline hover:text-walnut">
+          Loadline
+        </Link>
+        <span aria-hidden="true"> / </span>
+        <span>{listing.categoryLabel}</span>
+      </nav>
+
+      <StatusBanner listing={listing} viewer={viewer} />
+
+      <div className="grid gap-8 lg:grid-cols-12 lg:gap-10">
+        <div className="lg:col-span-7">
+          <Gallery photos={photos} initial={initialPhoto} title={listing.title} />
+        </div>
+        <div className="space-y-6 lg:col-span-5">
+          <ListingTitle listing={listing} />
+          <PriceAndCondition listing={listing} />
+          <WatchControl listing={listing} viewer={viewer} />
+          <div className="border-t border-rule pt-5">
+            <KeyFigures figures={keyFigures} verified={listing.benchVerified} />
+          </div>
+        </div>
+      </div>
+
+      <div className="grid gap-10 lg:grid-cols-12">
+        <aside className="space-y-5 lg:col-span-4 lg:col-start-9 lg:row-start-1" aria-label="Seller and delivery">
+          <SellerCard seller={seller} />
+          <ShippingPanel shipping={shipping} />
+          <SafetyCautions listing={listing} />
+        </aside>
+        <div className="min-w-0 space-y-12 lg:col-span-8 lg:row-start-1">
+          <Plots plots={plots} />
+          {bench ? (
+            <BenchSheetSection bench={bench} listingVerified={listing.benchVerified} />
+          ) : (
+            <section className="space-y-2">
+              <h2 className="text-2xl">Bench sheet</h2>
+              <p className="text-sm text-ink-soft">The seller has not given a bench sheet for this unit.</p>
+            </section>
+          )}
+          <RestorationLog entries={restoration} />
+          <UnitDetails listing={listing} />
+        </div>
+      </div>
+    </main>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  const notFound = isRouteErrorResponse(error) && error.status === 404;
+  return (
+    <main className="mx-auto flex w-full max-w-2xl flex-col items-start gap-4 px-4 py-20">
+      <p className="figures text-sm font-medium text-brass-ink">{notFound ? "404" : isRouteErrorResponse(error) ? error.status : 500}</p>
+      <h1 className="text-3xl sm:text-4xl">{notFound ? "No unit here" : "This page could not be shown"}</h1>
+      <p className="text-ink-soft">
+        {notFound
+          ? "The listing may have been sold and cleared, withdrawn by its seller, or the link is mistyped."
+          : "Something went wrong on our side. Please try again in a moment."}
+      </p>
+      <ButtonLink to="/" variant="secondary">
+        Back to the market
+      </ButtonLink>
+    </main>
+  );
+}
