@@ -1,18 +1,65 @@
-import { Links, Meta, Outlet, Scripts, ScrollRestoration, isRouteErrorResponse } from "react-router";
+import { useState } from "react";
+import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { data, isRouteErrorResponse, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import type { Route } from "./+types/root";
+import { getUser } from "~/auth/guards.server";
+import { takeNotice } from "~/auth/session.server";
+import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
+import { ErrorPage } from "~/components/ErrorPage";
+import "@fontsource/source-serif-4/400.css";
+import "@fontsource/source-serif-4/600.css";
+import "@fontsource/inter/400.css";
+import "@fontsource/inter/500.css";
+import "@fontsource/inter/600.css";
+import "@fontsource/jetbrains-mono/400.css";
+import "@fontsource/jetbrains-mono/500.css";
 import "./app.css";
 
+export async function loader({ request }: Route.LoaderArgs) {
+  const [user, { notice, headers }] = await Promise.all([getUser(request), takeNotice(request)]);
+  const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
+  return data({ user: header, notice }, { headers });
+}
+
+export const meta: Route.MetaFunction = () => [
+  { title: "Loadline · used and vintage hi-fi with checked bench measurements" },
+  {
+    name: "description",
+    content:
+      "A market for used and vintage amplifiers, turntables, tape decks and loudspeakers whose bench measurements are checked against physics and the trade's standards.",
+  },
+];
+
 export function Layout({ children }: { children: React.ReactNode }) {
+  // Undefined when the root loader itself failed; the header then shows the signed-out state.
+  const root = useRouteLoaderData<typeof loader>("root");
   return (
-    <html lang="en">
+    <html lang="en-GB">
       <head>
         <meta charSet="utf-8" />
         <meta name="viewport" content="width=device-width, initial-scale=1" />
+        <meta name="theme-color" content="#f5f0e6" />
+        <link rel="icon" href="/favicon.svg" type="image/svg+xml" />
         <Meta />
         <Links />
       </head>
-      <body>
-        {children}
+      <body className="flex min-h-dvh flex-col">
+        <a
+          href="#main"
+          className="sr-only z-50 rounded-md bg-walnut px-3 py-2 text-card focus:not-sr-only focus:fixed focus:left-3 focus:top-3"
+        >
+          Skip to content
+        </a>
+        <SiteHeader user={root?.user ?? null} />
+        {root?.notice ? (
+          <div role="status" className="border-b border-trace/25 bg-trace-wash">
+            <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
+          </div>
+        ) : null}
+        <div id="main" className="flex flex-1 flex-col">
+          {children}
+        </div>
+        <SiteFooter />
         <ScrollRestoration />
         <Scripts />
       </body>
@@ -21,14 +68,20 @@ export function Layout({ children }: { children: React.ReactNode }) {
 }
 
 export default function App() {
-  return <Outlet />;
+  // One client per browser session (not per render), so cached API answers survive navigation.
+  const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1 } } }));
+  return (
+    <QueryClientProvider client={queryClient}>
+      <Outlet />
+    </QueryClientProvider>
+  );
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  const status = isRouteErrorResponse(error) ? error.status : 500;
-  return (
-    <main>
-      <h1>{status}</h1>
-    </main>
-  );
+  if (isRouteErrorResponse(error)) {
+    const message = typeof error.data === "object" && error.data && "message" in error.data ? String(error.data.message) : undefined;
+    return <ErrorPage status={error.status} message={message} />;
+  }
+  const detail = import.meta.env.DEV && error instanceof Error ? error.stack ?? error.message : undefined;
+  return <ErrorPage status={500} detail={detail} />;
 }

@@ -2,6 +2,9 @@ import { type RouteConfig, index, route } from "@react-router/dev/routes";
 
 export default [
   index("routes/home.tsx"),
+  route("market", "routes/market.tsx"),
+  // Photo sizes from object storage
+  route("media/*", "routes/media.ts"),
 
   // Accounts, sign-in and roles
   route("sign-up", "routes/account/sign-up.tsx"),
