@@ -1,5 +1,6 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { RUN, testEmail, TEST_EMAIL_PATTERN } from "./auth-support";
+import type { Role } from "~/auth/roles";
 
 // Admin work on accounts and the review desk's queue, against the real database.
 const { sequelize } = await import("~/db.server");
@@ -16,7 +17,7 @@ afterAll(async () => {
   await sequelize.close();
 });
 
-async function sessionUserOf(label: string, roles: ("admin" | "moderator" | "seller")[] = []) {
+async function sessionUserOf(label: string, roles: Role[] = []) {
   const u = await createAccount({ email: testEmail(label), displayName: `Person ${label}`, roles, emailVerified: true });
   return { id: u.id, email: u.email, displayName: u.displayName, roles: u.roles, emailVerified: true };
 }
