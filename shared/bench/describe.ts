@@ -2,7 +2,8 @@
 // "66 W into 8 Ω, 1 kHz, 0.1 % THD, both channels driven".
 import { QUANTITY_INFO } from "./quantities";
 import { WEIGHTING_LABELS, type Conditions, type Reading } from "./schema";
-import { formatValue, unitKind } from "./units";
+import { unitKind } from "./units";
+import { formatValue } from "./format";
 
 /** The reading's value in the unit it was typed in ("80 Vpp", "-80 dB", "0.010 %"), falling back to a chosen unit. */
 export function formatReadingValue(r: Pick<Reading, "quantity" | "value" | "unit">): string {

@@ -6,7 +6,7 @@ import { describeConditions, formatReadingValue } from "./describe";
 import { bestRiaaFit } from "./rules/phono";
 import { near, weakestChannelBest } from "./rules/match";
 import { baseUnit, type Item, type SheetIndex } from "./rules/types";
-import { formatValue } from "./units";
+import { formatValue } from "./format";
 import { indexSheet } from "./verdict";
 
 export type KeyFigure = {

@@ -18,7 +18,7 @@ import {
   type SkippedRule,
   type SweepItem,
 } from "./rules/types";
-import { formatValue } from "./units";
+import { formatValue } from "./format";
 
 /** Bumped whenever a rule, threshold or requirement changes, so stored verdicts can be re-run. */
 export const BENCH_RULES_VERSION = 1;
@@ -89,7 +89,7 @@ class Collector implements Emit {
     this.derived.push({ id: d.id, label: d.label, value: d.value, unit: baseUnit(d.kind), display: d.display ?? formatValue(d.value, d.kind, d.format), refs: d.refs });
   }
   shortfall(s: Parameters<Emit["shortfall"]>[0]): void {
-    this.shortfalls.push({ ruleId: this.rule?.id ?? "", ...s });
+    this.shortfalls.push({ ruleId: this.rule?.id ?? "", detail: sentence(s.detail), percent: s.percent, refs: s.refs });
   }
 }
 

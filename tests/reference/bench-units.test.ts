@@ -1,7 +1,8 @@
 // Unit conversions against published worked examples and the trade's own rules of thumb.
 // Each check names its source; see ../shared/REFERENCES.md for how sure each one is.
 import { describe, expect, it } from "vitest";
-import { formatValue, parseValue, powerFromVrms, ratioToDb, toUnit, vpkFromPower, vrmsFromPower, type ParseResult } from "@shared/bench/units";
+import { parseValue, powerFromVrms, ratioToDb, toUnit, vpkFromPower, vrmsFromPower, type ParseResult } from "@shared/bench/units";
+import { formatValue } from "@shared/bench/format";
 
 const v = (r: ParseResult) => {
   if (!r.ok) throw new Error(r.error);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { formatValue, parseRange, parseValue, toUnit, unitKind, type ParseResult } from "@shared/bench/units";
+import { parseRange, parseValue, toUnit, unitKind, type ParseResult } from "@shared/bench/units";
+import { formatValue } from "@shared/bench/format";
 
 function ok(r: ParseResult) {
   if (!r.ok) throw new Error(`expected a value, got ${r.code}: ${r.error}`);

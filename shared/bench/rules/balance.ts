@@ -1,7 +1,8 @@
 // Left and right channels match in level and distortion.
 import { STEREO_ELECTRONICS, type Quantity } from "../quantities";
 import { formatReadingValue } from "../describe";
-import { formatValue } from "../units";
+import { formatValue } from "../format";
+import type { Kind } from "../units";
 import { conditionsCompatible, ALL_KEYS } from "./match";
 import { fig, type Item, type Rule } from "./types";
 
@@ -13,11 +14,11 @@ export const SPEAKER_BALANCE_DB = 1;
 export const DISTORTION_SPREAD = 3;
 export const DISTORTION_FLOOR = 1e-4;
 
-const LEVELS: { q: Quantity; db: (l: number, r: number) => number }[] = [
-  { q: "output_power", db: (l, r) => 10 * Math.log10(l / r) },
-  { q: "output_voltage", db: (l, r) => 20 * Math.log10(l / r) },
-  { q: "gain", db: (l, r) => l - r },
-  { q: "sensitivity", db: (l, r) => l - r },
+const LEVELS: { q: Quantity; kind: Kind; db: (l: number, r: number) => number }[] = [
+  { q: "output_power", kind: "power", db: (l, r) => 10 * Math.log10(l / r) },
+  { q: "output_voltage", kind: "voltage", db: (l, r) => 20 * Math.log10(l / r) },
+  { q: "gain", kind: "decibel", db: (l, r) => l - r },
+  { q: "sensitivity", kind: "decibel", db: (l, r) => l - r },
 ];
 const DISTORTIONS: Quantity[] = ["thd", "thd_n"];
 
@@ -41,7 +42,7 @@ export const channelBalance: Rule = {
     if ((ix.sheet.channelCount ?? 2) < 2) return "Single-channel unit.";
     let checked = 0;
     const tol = ix.category === "loudspeaker" ? SPEAKER_BALANCE_DB : BALANCE_DB;
-    for (const { q, db } of LEVELS) {
+    for (const { q, kind, db } of LEVELS) {
       const ms = ix.measured(q);
       for (const [l, r] of pairs(ms.filter((m) => m.channel === "left"), ms.filter((m) => m.channel === "right"))) {
         checked++;
@@ -50,7 +51,7 @@ export const channelBalance: Rule = {
           outcome: Math.abs(d) <= tol ? "consistent" : "questionable",
           detail: `Left ${formatReadingValue(l)} and right ${formatReadingValue(r)} differ by ${formatValue(Math.abs(d), "decibel", { sig: 2 })} (limit ${formatValue(tol, "decibel")}).`,
           refs: [l.ref, r.ref],
-          compared: [fig("left", l.value, l.quantity === "output_power" ? "power" : l.quantity === "output_voltage" ? "voltage" : "decibel"), fig("right", r.value, r.quantity === "output_power" ? "power" : r.quantity === "output_voltage" ? "voltage" : "decibel"), fig("difference", Math.abs(d), "decibel"), fig("limit", tol, "decibel")],
+          compared: [fig("left", l.value, kind), fig("right", r.value, kind), fig("difference", Math.abs(d), "decibel"), fig("limit", tol, "decibel")],
         });
       }
     }

@@ -1,6 +1,6 @@
 // Loudspeakers: impedance minimum against the rating, and a sensitivity with its reference.
 import { formatReadingValue } from "../describe";
-import { formatValue } from "../units";
+import { formatValue } from "../format";
 import { near } from "./match";
 import { fig, type Item, type Rule, type SheetIndex } from "./types";
 

@@ -3,7 +3,7 @@ import { riaaPlaybackDb } from "../curves";
 import { RIAA_CATEGORIES } from "../quantities";
 import type { Sweep } from "../schema";
 import { formatReadingValue } from "../describe";
-import { formatValue } from "../units";
+import { formatValue } from "../format";
 import { channelsCompatible } from "./match";
 import { fig, type Emit, type SheetIndex, type Rule, type SweepItem } from "./types";
 

@@ -1,7 +1,8 @@
 // Amplifier power: voltage, load and power agree; half-load power; supply rails; measured vs rated.
 import { AMPLIFIER_CATEGORIES } from "../quantities";
 import { formatReadingValue } from "../describe";
-import { formatValue, powerFromVrms, SQRT2, vpkFromPower } from "../units";
+import { powerFromVrms, SQRT2, vpkFromPower } from "../units";
+import { formatValue } from "../format";
 import { channelsCompatible, conditionsCompatible, nameOf, near, pct, weakestChannelBest } from "./match";
 import { fig, type Item, type Rule, type SheetIndex } from "./types";
 

@@ -1,7 +1,7 @@
 // Speed of the amplifier: rise time against bandwidth, slew rate against the full-power bandwidth; damping factor.
 import { AMPLIFIER_CATEGORIES } from "../quantities";
 import { formatReadingValue } from "../describe";
-import { formatValue } from "../units";
+import { formatValue } from "../format";
 import { channelsCompatible, conditionsCompatible, nameOf } from "./match";
 import { maxPeakVoltage } from "./power";
 import { fig, type Rule } from "./types";

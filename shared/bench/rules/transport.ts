@@ -1,7 +1,7 @@
 // Turntables and tape decks: speed error, and wow & flutter with its weighting and test tone.
 import { formatReadingValue, describeConditions } from "../describe";
 import { WEIGHTING_LABELS } from "../schema";
-import { formatValue } from "../units";
+import { formatValue } from "../format";
 import { conditionsCompatible, nameOf, near, pct } from "./match";
 import { fig, type Rule } from "./types";
 

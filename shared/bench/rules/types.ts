@@ -1,6 +1,7 @@
 import type { Category, Quantity } from "../quantities";
 import type { BenchSheet, Reading, Sweep } from "../schema";
-import { formatValue, type FormatOptions, type Kind } from "../units";
+import { type Kind } from "../units";
+import { formatValue, type FormatOptions } from "../format";
 
 export const OUTCOMES = ["consistent", "questionable", "implausible", "missing"] as const;
 export type Outcome = (typeof OUTCOMES)[number];
@@ -25,7 +26,10 @@ export type RuleResult = {
 
 export type DerivedValue = { id: string; label: string; value: number; unit: string; display: string; refs: string[] };
 
-/** A unit that measures below its maker's rating: reported, not held against the sheet. */
+/**
+ * A unit that measures below its maker's rating (or a standard's tolerance): reported, not held against the sheet.
+ * `percent`: how far it misses, in percent of the yardstick (88 W against 100 W rated → 12).
+ */
 export type Shortfall = { ruleId: string; detail: string; percent: number; refs: string[] };
 
 export type SkippedRule = { ruleId: string; title: string; reason: string };
