@@ -114,8 +114,13 @@ function checkWav(w: WavFormat, c: SineCaptureConditions) {
 
 const when = (s: number) => (s < 1 ? `${(s * 1000).toFixed(1)} ms` : `${s.toFixed(3)} s`);
 
-function checkSamples(d: DecodedWav) {
+/**
+ * Refuse clipping on any channel; return the channels that are not digital silence. A stereo file
+ * with one side left empty is analysed on the other.
+ */
+function checkSamples(d: DecodedWav): { samples: Float64Array[]; labels: string[] } {
   const names = d.channels === 1 ? ["mono"] : ["left", "right"];
+  const live: number[] = [];
   d.samples.forEach((x, i) => {
     const run = findClippedRun(x, d.positiveFullScale);
     if (run) {
@@ -127,8 +132,13 @@ function checkSamples(d: DecodedWav) {
     }
     let peak = 0;
     for (let k = 0; k < x.length; k++) peak = Math.max(peak, Math.abs(x[k]));
-    if (peak < 1e-7) throw new CaptureError("NO_FUNDAMENTAL", `No fundamental found: the ${names[i]} channel is silent.`, { channel: names[i] });
+    if (peak >= 1e-7) live.push(i);
   });
+  if (live.length === 0) {
+    const which = names.length === 1 ? `the ${names[0]} channel is` : "both channels are";
+    throw new CaptureError("NO_FUNDAMENTAL", `No fundamental found: ${which} silent.`);
+  }
+  return { samples: live.map((i) => d.samples[i]), labels: live.map((i) => names[i]) };
 }
 
 /**
@@ -168,10 +178,9 @@ export function analyseCapture(bytes: Uint8Array, filename: string, conditions: 
     const { format: wavFormat, data } = readWavFormat(bytes);
     checkWav(wavFormat, conditions);
     const d = decodeWavData(wavFormat, data);
-    checkSamples(d);
-    const labels = d.channels === 1 ? ["mono"] : ["left", "right"];
+    const { samples, labels } = checkSamples(d);
     const analysis = analyseSine(
-      d.samples,
+      samples,
       d.sampleRate,
       {
         scale: conditions.scale,

@@ -64,7 +64,7 @@ const sineConditions = JSON.stringify({
   loadOhm: 8,
   fundamentalHz: 1000,
 });
-const wavBlob = (bytes: Uint8Array) => new Blob([bytes], { type: "audio/wav" });
+const wavBlob = (bytes: Uint8Array) => new Blob([new Uint8Array(bytes)], { type: "audio/wav" });
 const goodWav = () => toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000, harmonics: [1, 0.001], peak: 0.5, bits: "24", channels: 2 });
 
 beforeAll(async () => {

@@ -118,6 +118,17 @@ describe("WAV files that cannot be measured", () => {
     expect(e.message).toBe("No fundamental found: the mono channel is silent.");
   });
 
+  it("a stereo file with one channel empty is analysed on the other; both empty is silence", () => {
+    const x = toneSamples({ sampleRate: 48_000, seconds: 0.5, f0: 1000, peak: 0.5 });
+    const r = analyseCapture(wavFromSamples([new Float64Array(x.length), x], 48_000, "24"), "one-side.wav", sine, "cap");
+    if (r.kind !== "sine") throw new Error("expected a sine analysis");
+    expect(r.analysis.channels.map((c) => c.channel)).toEqual(["right"]);
+    // The left side holds only the converter's dither: named as skipped, with the reason.
+    expect(r.analysis.skipped).toEqual([{ channel: "left", error: "NO_FUNDAMENTAL", message: expect.stringContaining("does not stand 30 dB clear") }]);
+    const quiet = wavFromSamples([new Float64Array(24_000), new Float64Array(24_000)], 48_000, "32f");
+    expect(refusedBoth(quiet, "quiet.wav").message).toBe("No fundamental found: both channels are silent.");
+  });
+
   it("noise without a tone: no fundamental (found only by the analysis)", () => {
     const r = prng(3);
     const noise = Float64Array.from({ length: 48_000 }, () => (r() - 0.5) * 0.01);

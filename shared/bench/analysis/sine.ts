@@ -88,6 +88,8 @@ export interface SineChannelAnalysis {
 export interface SineAnalysis {
   kind: "sine";
   channels: SineChannelAnalysis[];
+  /** Channels of a multi-channel capture that held no fundamental (e.g. the undriven side), and why. */
+  skipped: { channel: string; error: string; message: string }[];
   conditions: ResolvedSineConditions;
 }
 
@@ -290,6 +292,19 @@ export function analyseSine(channels: Float64Array[], sampleRate: number, condit
   if (channels.length === 0) throw new CaptureError("NO_FUNDAMENTAL", "The capture has no channels.");
   const rc = resolveSineConditions(conditions, sampleRate, channels[0].length);
   const names = labels ?? (channels.length === 1 ? ["mono"] : channels.length === 2 ? ["left", "right"] : channels.map((_, i) => `ch${i + 1}`));
-  const out = channels.map((ch, i) => analyseSineChannel(ch, names[i], rc));
-  return { kind: "sine", channels: out, conditions: rc };
+  const out: SineChannelAnalysis[] = [];
+  const skipped: SineAnalysis["skipped"] = [];
+  let firstError: CaptureError | null = null;
+  channels.forEach((ch, i) => {
+    try {
+      out.push(analyseSineChannel(ch, names[i], rc));
+    } catch (e) {
+      // One side of a stereo file may be empty; the capture stands if another side has the tone.
+      if (!(e instanceof CaptureError) || e.code !== "NO_FUNDAMENTAL" || channels.length === 1) throw e;
+      firstError ??= e;
+      skipped.push({ channel: names[i], error: e.code, message: e.message });
+    }
+  });
+  if (out.length === 0 && firstError) throw firstError;
+  return { kind: "sine", channels: out, skipped, conditions: rc };
 }
