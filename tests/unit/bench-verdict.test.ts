@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import {
+  CATEGORIES,
   OUTCOMES,
+  REQUIRED_READINGS,
   RULES,
   checkBenchSheet,
   doctoredIntegratedAmplifierSheet,
@@ -8,7 +10,7 @@ import {
   keyFigures,
   sheetFilterFacets,
 } from "@shared/bench";
-import { full8, measured, rated, sheet } from "./bench-fixtures";
+import { full8, measured, rated, riaaSweep, sheet } from "./bench-fixtures";
 
 describe("checkBenchSheet", () => {
   it("marks the example integrated amplifier bench-verified", () => {
@@ -73,6 +75,35 @@ describe("checkBenchSheet", () => {
   it("explains why a rule had nothing to check", () => {
     const v = checkBenchSheet(exampleIntegratedAmplifierSheet());
     expect(v.skipped).toContainEqual(expect.objectContaining({ ruleId: "riaa-deviation", reason: expect.stringMatching(/No RIAA sweep/) }));
+  });
+
+  it("never verifies an empty sheet, and names what each category needs", () => {
+    for (const category of CATEGORIES) {
+      const v = checkBenchSheet(sheet(category, []));
+      expect(v.benchVerified).toBe(false);
+      const missing = v.results.filter((r) => r.ruleId === "required-readings" && r.outcome === "missing");
+      expect(missing.length).toBe(REQUIRED_READINGS[category].length);
+      expect(v.summary).toMatch(/^Not bench-verified: \d+ missing/);
+    }
+  });
+
+  it("verifies a complete phono stage sheet with a RIAA sweep, and a loudspeaker sheet", () => {
+    const phono = sheet(
+      "phono_stage",
+      [
+        measured("gain", 40, "dB", { frequencyHz: 1000 }, { channel: "left" }),
+        measured("gain", 40.1, "dB", { frequencyHz: 1000 }, { channel: "right" }),
+        measured("snr", 82, "dB(A)", { voltageV: 0.005, weighting: "A" }),
+      ],
+      { sweeps: [riaaSweep({ offsetDb: 40 })] },
+    );
+    expect(checkBenchSheet(phono).benchVerified).toBe(true);
+    const speaker = sheet("loudspeaker", [
+      rated("nominal_impedance", 8, "Ω"),
+      measured("impedance_minimum", 6.6, "Ω", { frequencyHz: 210 }),
+      measured("sensitivity", 87.5, "dB/2.83 V/1 m"),
+    ]);
+    expect(checkBenchSheet(speaker).benchVerified).toBe(true);
   });
 
   it("verifies a complete turntable sheet", () => {
