@@ -11,14 +11,13 @@ import { resendVerification, signInMethods } from "~/auth/accounts.server";
 import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requireUser } from "~/auth/guards.server";
-import { takeNotice } from "~/auth/session.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Loadline" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const [{ notice, headers }, methods] = await Promise.all([takeNotice(request), signInMethods(user.id)]);
-  return data({ user, methods, notice }, { headers });
+  // One-time notices (e.g. "confirmed") are shown by the root layout.
+  return { user, methods: await signInMethods(user.id) };
 }
 
 const RESEND_MESSAGES = {
@@ -44,12 +43,11 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
-  const { user, methods, notice } = loaderData;
+  const { user, methods } = loaderData;
   const busy = useNavigation().state === "submitting";
   return (
     <main className="mx-auto w-full max-w-3xl space-y-8 px-4 py-10">
       <PageHeader overline="Your account" title={user.displayName} lede={user.email} />
-      <Notice>{notice}</Notice>
 
       <Card className="space-y-4">
         <CardTitle>E-mail address</CardTitle>

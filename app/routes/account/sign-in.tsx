@@ -2,14 +2,14 @@ import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-in";
 import { Button } from "~/components/Button";
 import { Field, FormError } from "~/components/Field";
-import { AuthPanel, Notice } from "~/auth/AuthPanel";
+import { AuthPanel } from "~/auth/AuthPanel";
 import { fieldErrors, SignInForm } from "~/auth/forms";
 import { safeRedirect } from "~/auth/redirect";
 import { authenticator, PASSWORD } from "~/auth/authenticator.server";
 import { SignInError } from "~/auth/accounts.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { getUser } from "~/auth/guards.server";
-import { startSession, takeNotice } from "~/auth/session.server";
+import { startSession } from "~/auth/session.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Loadline" }];
 
@@ -25,9 +25,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const redirectTo = safeRedirect(url.searchParams.get("redirectTo"), "/");
   if (await getUser(request)) throw redirect(redirectTo);
-  const { notice, headers } = await takeNotice(request);
   const oauthError = OAUTH_MESSAGES[url.searchParams.get("oauth") ?? ""] ?? null;
-  return data({ redirectTo, notice, oauthError }, { headers });
+  return { redirectTo, oauthError };
 }
 
 export async function action({ request }: Route.ActionArgs) {
@@ -54,7 +53,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function SignIn({ loaderData, actionData }: Route.ComponentProps) {
-  const { redirectTo, notice, oauthError } = loaderData;
+  const { redirectTo, oauthError } = loaderData;
   const busy = useNavigation().state === "submitting";
   const errors: Record<string, string> = actionData?.errors ?? {};
   const back = redirectTo !== "/" ? `?${new URLSearchParams({ redirectTo })}` : "";
@@ -68,7 +67,6 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
         </p>
       }
     >
-      <Notice>{notice}</Notice>
       <FormError>{actionData?.formError ?? oauthError}</FormError>
       <Form method="post" className="space-y-4" noValidate>
         <input type="hidden" name="redirectTo" value={redirectTo} />

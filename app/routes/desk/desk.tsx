@@ -1,3 +1,4 @@
+import { Link } from "react-router";
 import type { Route } from "./+types/desk";
 import { Badge } from "~/components/Badge";
 import { Card, CardTitle } from "~/components/Card";
@@ -60,7 +61,9 @@ function HeldListing({ item }: { item: HeldListingItem }) {
   return (
     <li className="space-y-1 py-3">
       <p className="flex flex-wrap items-center gap-2">
-        <span className="font-serif text-lg">{item.title}</span>
+        <Link to={`/listings/${item.id}`} className="font-serif text-lg">
+          {item.title}
+        </Link>
         <Badge tone="brass">Held for review</Badge>
         <span className="text-sm text-ink-faint">{item.category}</span>
       </p>

@@ -34,7 +34,7 @@ export async function newContext(
     locale: "en-GB",
     timezoneId: "UTC",
   });
-  context.setDefaultTimeout(15_000);
+  context.setDefaultTimeout(30_000);
   context.setDefaultNavigationTimeout(30_000);
   return context;
 }
