@@ -138,3 +138,15 @@ export async function createDatabase(clusterUrl: string, name: string, { fresh =
   url.pathname = `/${name}`;
   return url.toString();
 }
+
+export async function dropDatabase(clusterUrl: string, name: string) {
+  const adminUrl = new URL(clusterUrl);
+  adminUrl.pathname = "/postgres";
+  const admin = new pg.Client({ connectionString: adminUrl.toString() });
+  await admin.connect();
+  try {
+    await admin.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+  } finally {
+    await admin.end();
+  }
+}

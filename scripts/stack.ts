@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from "node:child_process";
+import net from "node:net";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -45,7 +46,37 @@ export function profile(name: "dev" | "test"): Profile {
 
 export type Stack = { env: Record<string, string>; lines: string[]; stop: () => Promise<void> };
 
+function portFree(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const probe = net.createServer();
+    probe.once("error", () => resolve(false));
+    probe.listen(port, "127.0.0.1", () => probe.close(() => resolve(true)));
+  });
+}
+
+// A clear message beats a crash deep inside a stand-in when another run still holds a port.
+async function assertPortsFree(p: Profile) {
+  const wanted: [string, number][] = [
+    ["the app", Number(p.env.PORT)],
+    ["object storage stand-in", Number(p.env.FAKE_S3_PORT ?? 4569)],
+    ["SMTP stand-in", Number(p.env.FAKE_SMTP_PORT ?? 1025)],
+    ["mail inbox", Number(p.env.FAKE_MAIL_HTTP_PORT ?? 1080)],
+    ["sign-in provider stand-in", Number(p.env.FAKE_OAUTH_PORT ?? 4010)],
+    ["payments stand-in", Number(p.env.FAKE_STRIPE_PORT ?? 12111)],
+  ];
+  // `npm start` may resume a cluster it left running; the test cluster is always new.
+  if (p.name === "test") wanted.push(["PostgreSQL", p.pgPort]);
+  const busy: string[] = [];
+  for (const [what, port] of wanted) if (!(await portFree(port))) busy.push(`${port} (${what})`);
+  if (busy.length) {
+    throw new Error(
+      `Port${busy.length > 1 ? "s" : ""} ${busy.join(", ")} already in use: is another \`npm ${p.name === "test" ? "test" : "start"}\` running?`,
+    );
+  }
+}
+
 export async function bringUp(p: Profile, { seed = true, log = console.log } = {}): Promise<Stack> {
+  await assertPortsFree(p);
   const stops: (() => Promise<void>)[] = [];
   const stop = async () => {
     for (const s of stops.reverse()) await s().catch((e) => console.error(String(e)));
@@ -90,7 +121,7 @@ export async function bringUp(p: Profile, { seed = true, log = console.log } = {
       log(result.created ? "Loaded the demo scenario" : "Demo scenario already loaded");
       lines.push("", "Demo accounts (password: bench-demo-2026)");
       for (const a of result.accounts) lines.push(`  ${a.role.padEnd(10)} ${a.email}`);
-      suggestions = result.accounts.map((a) => ({ email: a.email, name: a.name ?? a.email }));
+      suggestions = result.accounts.map((a) => ({ email: a.email, name: `Demo ${a.role}` }));
     }
     const { sequelize } = await import("../app/db.server");
     stops.push(() => sequelize.close());

@@ -19,6 +19,10 @@ async function shutdown(code = 0) {
 }
 process.on("SIGINT", () => void shutdown(0));
 process.on("SIGTERM", () => void shutdown(0));
+process.on("uncaughtException", (error) => {
+  console.error(error);
+  void shutdown(1);
+});
 
 try {
   const env = { ...stack.env };

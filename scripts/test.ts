@@ -46,6 +46,14 @@ async function vitest(name: string, projects: string[], env: Record<string, stri
 }
 
 const children: ChildProcess[] = [];
+// Whatever crashes, stop what was started and still print the totals.
+process.on("uncaughtException", async (error) => {
+  console.error(error);
+  for (const c of children) await stopChild(c);
+  await stack?.stop();
+  console.log(`\n${total.passed} passed, ${total.failed + 1} failed`);
+  process.exit(1);
+});
 let stack: Awaited<ReturnType<typeof bringUp>> | undefined;
 let exitCode = 1;
 try {

@@ -1,19 +1,22 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Sequelize } from "sequelize";
-import { createDatabase } from "../../db/cluster";
+import { createDatabase, dropDatabase } from "../../db/cluster";
 import { createMigrator } from "../../db/migrator";
 
 // Runs every migration on an empty database of its own, then rolls them all back, so a release can
 // be undone step by step.
 describe("migrations", () => {
   let sequelize: Sequelize;
+  // A database of its own per run, so runs sharing a cluster do not see each other's tables.
+  const name = `loadline_migration_check_${process.pid}`;
 
   beforeAll(async () => {
-    const url = await createDatabase(process.env.DATABASE_URL!, "loadline_migration_check", { fresh: true });
+    const url = await createDatabase(process.env.DATABASE_URL!, name, { fresh: true });
     sequelize = new Sequelize(url, { logging: false, dialect: "postgres" });
   });
   afterAll(async () => {
     await sequelize?.close();
+    await dropDatabase(process.env.DATABASE_URL!, name);
   });
 
   async function userTables() {
