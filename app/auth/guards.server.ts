@@ -86,8 +86,3 @@ export async function requireRole(request: Request, role: Role | readonly Role[]
   const message = `This page is for ${names.join(" and ")} only. Your account does not have that role.`;
   throw data<ForbiddenData>({ message, roles: wanted }, { status: 403, statusText: "Forbidden" });
 }
-
-/** For pages only a visitor who is not signed in should see (sign-in, sign-up): a signed-in one is sent on. */
-export async function redirectIfSignedIn(request: Request, to = "/account"): Promise<void> {
-  if (await getUser(request)) throw redirect(to);
-}

@@ -58,7 +58,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         {user.emailVerified ? null : (
           <>
             <p className="text-sm text-ink-soft">
-              Confirm your address with the link we e-mailed you. Selling and paying need a confirmed address.
+              Confirm your address with the link we e-mailed you. Publishing a listing needs a confirmed address.
             </p>
             {actionData ? actionData.ok ? <Notice>{actionData.text}</Notice> : <FormError>{actionData.text}</FormError> : null}
             <Form method="post">

@@ -7,7 +7,13 @@ import { assertSameOrigin } from "~/auth/csrf.server";
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const form = await request.clone().formData();
-  return startOAuth(request, String(form.get("redirectTo") ?? "/"));
+  try {
+    return await startOAuth(request, String(form.get("redirectTo") ?? "/"));
+  } catch (error) {
+    // The provider's discovery document could not be read: say so on the sign-in page.
+    console.error("OAuth sign-in could not start:", error);
+    return redirect("/sign-in?oauth=unavailable");
+  }
 }
 
 export function loader() {

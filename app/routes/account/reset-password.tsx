@@ -18,6 +18,9 @@ const PROBLEMS = {
   suspended: "The password is changed, but this account is suspended, so it cannot sign in.",
 } as const;
 
+// The token is in the address: never pass it on to another site in a Referer header.
+export const headers: Route.HeadersFunction = () => ({ "Referrer-Policy": "no-referrer" });
+
 export async function loader({ params }: Route.LoaderArgs) {
   const state = await inspectToken(params.token, "reset_password");
   return data({ problem: state.ok ? null : PROBLEMS[state.reason] }, { status: state.ok ? 200 : 410 });

@@ -16,6 +16,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Sign in · Loadline" }]
 const OAUTH_MESSAGES: Record<string, string> = {
   cancelled: "Signing in with Loadline ID was cancelled. You can try again, or use your password.",
   failed: "Signing in with Loadline ID did not complete. Please try again.",
+  unavailable: "Loadline ID is not answering just now. Sign in with your password, or try again in a few minutes.",
   unverified:
     "Your Loadline ID has not confirmed its e-mail address, so it cannot sign in here yet. Confirm it there, or sign in with your password.",
   suspended: "This account is suspended, so it cannot sign in. Write to the moderators if you think this is a mistake.",

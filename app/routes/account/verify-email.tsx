@@ -19,6 +19,9 @@ const PROBLEMS = {
 
 // Opening the link shows a button; confirming (which also signs in) is a POST, so mail scanners
 // that fetch links do not use the token up, and another site cannot sign a visitor in with it.
+// The token is in the address: never pass it on to another site in a Referer header.
+export const headers: Route.HeadersFunction = () => ({ "Referrer-Policy": "no-referrer" });
+
 export async function loader({ params }: Route.LoaderArgs) {
   const state = await inspectToken(params.token, "verify_email");
   return data({ problem: state.ok ? null : PROBLEMS[state.reason] }, { status: state.ok ? 200 : 410 });
