@@ -1,7 +1,8 @@
 // The listing's facet columns (what the market filters by) from its bench sheet, and the one figure a
 // card leads with. The picks themselves are the bench's (shared/bench/figures.ts): measured readings
 // only, the weaker channel.
-import { keyFigures, sheetFilterFacets, type KeyFigure as BenchKeyFigure } from "./bench/figures";
+import { keyFigures, sheetFilterFacets, type FigureKey, type KeyFigure as BenchKeyFigure } from "./bench/figures";
+import type { Category } from "./bench/quantities";
 import type { BenchSheet } from "./bench/schema";
 
 /** Columns on `listings` that copy measured figures; null when the sheet has no such reading. */
@@ -50,17 +51,67 @@ export interface CardFigure {
   conditions: string;
 }
 
+// What a card leads with, by category: the figure buyers compare units of that kind by.
+const CARD_ORDER: Record<Category, FigureKey[]> = {
+  integrated_amplifier: ["power8", "power4", "distortion"],
+  power_amplifier: ["power8", "power4", "distortion"],
+  receiver: ["power8", "power4", "distortion"],
+  preamplifier: ["distortion", "snr", "gain"],
+  phono_stage: ["riaaDeviation", "snr", "gain"],
+  turntable: ["wowFlutter", "speedError", "rumble"],
+  tape_deck: ["wowFlutter", "snr", "speedError"],
+  loudspeaker: ["sensitivity", "impedanceMinimum", "ratedImpedance"],
+};
+
+// Conditions a card can leave to the listing page: they matter on the sheet, not in a one-line summary.
+const CARD_DROPS = [/ V mains$/, /^after .* warm-up$/];
+
 export function toCardFigure(k: BenchKeyFigure): CardFigure {
   const display = k.display.trim();
   const i = display.indexOf(" ");
   const value = (i < 0 ? display : display.slice(0, i)).replace(/^-/, "−");
   const unit = i < 0 ? "" : display.slice(i + 1);
-  return { label: k.label, value, unit, conditions: k.conditions || "conditions not stated" };
+  const conditions = k.conditions
+    .split(", ")
+    .filter((part) => part && !CARD_DROPS.some((re) => re.test(part)))
+    .join(", ");
+  return { label: k.label, value, unit, conditions: conditions || "conditions not stated" };
 }
 
-/** The figure a listing card leads with: the first of the category's key figures the sheet has. */
+/** The figure a listing card leads with, or null when the sheet has none of the category's key figures. */
 export function leadFigure(sheet: BenchSheet | null | undefined): CardFigure | null {
   if (!sheet) return null;
-  const first = keyFigures(sheet)[0];
-  return first ? toCardFigure(first) : null;
+  const figures = keyFigures(sheet);
+  for (const key of CARD_ORDER[sheet.category]) {
+    const hit = figures.find((f) => f.key === key);
+    if (hit) return toCardFigure(hit);
+  }
+  return figures[0] ? toCardFigure(figures[0]) : null;
+}
+
+/** The parts of a bench verdict the listing row keeps: the mark, and whether publishing holds it for the desk. */
+export interface PublishState {
+  status: "live" | "held";
+  benchVerified: boolean;
+  heldReason: string | null;
+}
+
+type VerdictLike = {
+  benchVerified: boolean;
+  counts: { implausible: number };
+  results: { outcome: string; title: string; detail: string }[];
+};
+
+/** A published listing goes live unless its sheet has an implausible outcome: then a moderator looks first. */
+export function publishState(verdict: VerdictLike | null | undefined): PublishState {
+  if (!verdict) return { status: "live", benchVerified: false, heldReason: null };
+  const implausible = verdict.results.find((r) => r.outcome === "implausible");
+  if (verdict.counts.implausible > 0 && implausible) {
+    return {
+      status: "held",
+      benchVerified: false,
+      heldReason: `The bench found an implausible figure. ${implausible.title}: ${implausible.detail}`,
+    };
+  }
+  return { status: "live", benchVerified: verdict.benchVerified, heldReason: null };
 }

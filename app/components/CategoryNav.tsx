@@ -15,7 +15,7 @@ export function CategoryNav({
   const total = counts.reduce((n, c) => n + c.live, 0);
   const chip = (active: boolean) =>
     cx(
-      "inline-flex h-9 shrink-0 items-center gap-2 rounded-full border px-3.5 text-sm font-medium no-underline transition-colors",
+      "inline-flex h-9 shrink-0 items-center gap-2 whitespace-nowrap rounded-full border px-3.5 text-sm font-medium no-underline transition-colors",
       active ? "border-walnut bg-walnut text-card" : "border-rule-strong bg-card text-ink-soft hover:border-walnut hover:text-ink",
     );
   const count = (n: number, active: boolean) => (

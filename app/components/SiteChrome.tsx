@@ -68,7 +68,7 @@ function SignedOut() {
       <Link to="/sign-in" className={buttonClass("quiet", "sm")}>
         Sign in
       </Link>
-      <Link to="/sign-up" className={buttonClass("secondary", "sm", "hidden sm:inline-flex")}>
+      <Link to="/sign-up" className={buttonClass("secondary", "sm", "max-sm:hidden")}>
         Create account
       </Link>
     </>

@@ -32,7 +32,7 @@ export default function Home({ loaderData }: Route.ComponentProps) {
                 Browse the market
               </Link>
               <span className="inline-flex items-center gap-2 text-sm text-ink-soft">
-                <BenchGlyph className="size-5 text-trace" />
+                <BenchGlyph className="size-5 shrink-0 text-trace" />
                 Bench-verified figures come with their conditions
               </span>
             </div>
@@ -127,7 +127,7 @@ export default function Home({ loaderData }: Route.ComponentProps) {
 function Stat({ value, label }: { value: number; label: string }) {
   // Label after the number on screen, before it for screen readers.
   return (
-    <div className="flex flex-col-reverse">
+    <div className="flex flex-col-reverse justify-end">
       <dt className="text-sm text-ink-faint">{label}</dt>
       <dd className="figures text-2xl font-medium text-ink">{value}</dd>
     </div>

@@ -40,8 +40,8 @@ export default function Market({ loaderData }: Route.ComponentProps) {
         }
       />
       <CategoryNav counts={counts} current={category} hrefFor={(c) => marketHref(c)} />
-      <p className="flex items-center gap-2 text-sm text-ink-soft">
-        <BenchGlyph className="size-4 text-trace" />
+      <p className="flex items-start gap-2 text-sm text-ink-soft">
+        <BenchGlyph className="mt-0.5 size-4 shrink-0 text-trace" />
         <span>
           <strong className="font-semibold text-trace">Bench-verified</strong>: the unit's bench sheet passed every
           check against physics and the trade's standards.

@@ -1,0 +1,19 @@
+import { sequelize } from "~/db.server";
+import { seedDemo } from "./seeds/demo";
+import { DEMO_PASSWORD } from "./seeds/demo-data";
+
+// `npx tsx db/seed.ts`: loads the demo scenario into DATABASE_URL (object storage must be up for the
+// photos). Safe to run again: it adds only what is missing.
+const started = Date.now();
+try {
+  const result = await seedDemo();
+  const secs = ((Date.now() - started) / 1000).toFixed(1);
+  console.log(result.created ? `Demo scenario loaded in ${secs} s.` : `Demo scenario already present (checked in ${secs} s).`);
+  console.log(`Demo accounts (password ${DEMO_PASSWORD}):`);
+  for (const a of result.accounts) console.log(`  ${a.email.padEnd(26)} ${a.role}`);
+} catch (error) {
+  console.error("Seeding the demo scenario failed:", error);
+  process.exitCode = 1;
+} finally {
+  await sequelize.close();
+}

@@ -1,0 +1,76 @@
+import { mkdir, readFile, writeFile } from "node:fs/promises";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { Jimp } from "jimp";
+import type { Category } from "@shared/catalogue";
+import { shrink } from "~/photos/pixels.server";
+import { drawUnit } from "./demo-photos";
+
+// The demo's photo files: drawn once, encoded as the photo pipeline would store them, and kept in a
+// git-ignored cache so a fresh test database seeds in seconds. Bump GENERATION when the drawing changes.
+
+const GENERATION = 4;
+const here = path.dirname(fileURLToPath(import.meta.url));
+const CACHE = path.resolve(here, "../../.local/cache/demo-photos", `g${GENERATION}`);
+
+/** The pipeline's thumbnail long edge; listing and zoom are not enlarged past the drawing (1024 × 768). */
+const THUMB = { width: 400, height: 300 };
+
+export interface DemoPhotoFiles {
+  /** 1024 × 768 JPEG, stored as original, zoom and listing size (the pipeline never enlarges). */
+  full: Buffer;
+  thumb: Buffer;
+  width: number;
+  height: number;
+  phash: string;
+}
+
+export async function demoPhotoFiles(category: Category, key: string, view: number): Promise<DemoPhotoFiles> {
+  const base = path.join(CACHE, `${key}-${view}`);
+  try {
+    const [full, thumb, meta] = await Promise.all([
+      readFile(`${base}.full.jpg`),
+      readFile(`${base}.thumb.jpg`),
+      readFile(`${base}.json`, "utf8"),
+    ]);
+    return { full, thumb, ...(JSON.parse(meta) as { width: number; height: number; phash: string }) };
+  } catch {
+    // Not cached yet.
+  }
+  const cv = drawUnit(category, key, view);
+  const bitmap = { data: Buffer.from(cv.data.buffer, cv.data.byteOffset, cv.data.byteLength), width: cv.width, height: cv.height };
+  const small = shrink(bitmap, THUMB.width, THUMB.height);
+  const [full, thumb] = await Promise.all([encodeJpeg(bitmap, 84), encodeJpeg(small, 80)]);
+  const phash = pipelineHash(small);
+  const out = { full, thumb, width: cv.width, height: cv.height, phash };
+  await mkdir(CACHE, { recursive: true });
+  await Promise.all([
+    writeFile(`${base}.full.jpg`, full),
+    writeFile(`${base}.thumb.jpg`, thumb),
+    writeFile(`${base}.json`, JSON.stringify({ width: out.width, height: out.height, phash })),
+  ]);
+  return out;
+}
+
+type Bitmap = { data: Buffer; width: number; height: number };
+
+type Encoder = (bitmap: Bitmap, opts: { quality: number }) => Buffer | Promise<Buffer>;
+let jpegEncoder: Encoder | undefined;
+
+/** jimp's JPEG codec called on the bitmap directly (its image export composites pixel by pixel first). */
+async function encodeJpeg(bitmap: Bitmap, quality: number): Promise<Buffer> {
+  if (!jpegEncoder) {
+    const probe = new Jimp({ width: 1, height: 1 });
+    const format = probe.formats.find((f) => f.mime === "image/jpeg");
+    if (!format?.encode) throw new Error("jimp has no JPEG encoder");
+    jpegEncoder = format.encode as unknown as Encoder;
+  }
+  return Buffer.from(await jpegEncoder({ data: bitmap.data, width: bitmap.width, height: bitmap.height }, { quality }));
+}
+
+/** The same hash the photo pipeline stores (app/photos/render.server.ts): jimp's DCT hash of the smallest size. */
+function pipelineHash(smallest: Bitmap): string {
+  const side = Math.min(32, smallest.width, smallest.height);
+  const bits = Jimp.fromBitmap(shrink(smallest, side, side)).pHash();
+  return BigInt(`0b${bits}`).toString(16).padStart(16, "0");
+}

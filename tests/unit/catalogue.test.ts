@@ -1,0 +1,103 @@
+import { describe, expect, it } from "vitest";
+import {
+  CATEGORIES,
+  CATEGORY_LABELS,
+  COSMETIC_GRADE_TEXT,
+  SERVICE_STATE_TEXT,
+  ShippingOptionsSchema,
+  categoryFromSlug,
+  formatEra,
+  formatPrice,
+  formatWeight,
+} from "@shared/catalogue";
+import { leadFigure, listingFacets, publishState } from "@shared/listing-facets";
+import { checkBenchSheet, doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet } from "@shared/bench";
+
+describe("catalogue words", () => {
+  it("uses Loadline's condition words with a line for sellers", () => {
+    expect(Object.values(COSMETIC_GRADE_TEXT).map((g) => g.label)).toEqual(["Showroom", "Clean", "Lived-in", "Rough"]);
+    expect(Object.values(SERVICE_STATE_TEXT).map((s) => s.label)).toEqual([
+      "Serviced & measured",
+      "Working, unserviced",
+      "Needs work",
+      "Parts only",
+    ]);
+    for (const t of [...Object.values(COSMETIC_GRADE_TEXT), ...Object.values(SERVICE_STATE_TEXT)]) {
+      expect(t.description.length).toBeGreaterThan(20);
+      expect(t.description.length).toBeLessThan(140);
+    }
+  });
+
+  it("maps every category to a unique URL slug and back", () => {
+    const slugs = CATEGORIES.map((c) => CATEGORY_LABELS[c].slug);
+    expect(new Set(slugs).size).toBe(CATEGORIES.length);
+    for (const c of CATEGORIES) expect(categoryFromSlug(CATEGORY_LABELS[c].slug)).toBe(c);
+    expect(categoryFromSlug("jukeboxes")).toBeNull();
+    expect(categoryFromSlug(undefined)).toBeNull();
+  });
+});
+
+describe("formatting", () => {
+  it("writes a year, a span or a decade", () => {
+    expect(formatEra(1978, 1978)).toBe("1978");
+    expect(formatEra(1975, 1979)).toBe("1975–79");
+    expect(formatEra(1970, 1979)).toBe("the 1970s");
+    expect(formatEra(1998, 2003)).toBe("1998–2003");
+    expect(formatEra(1980, null)).toBe("c. 1980");
+    expect(formatEra(null, null)).toBeNull();
+  });
+
+  it("shows money from integer minor units with the currency's own decimals", () => {
+    expect(formatPrice(68_500, "GBP")).toBe("£685");
+    expect(formatPrice(68_550, "GBP")).toBe("£685.50");
+    expect(formatPrice(145_000, "EUR")).toBe("€1,450");
+    expect(formatPrice(98_000, "JPY")).toBe("JP¥98,000"); // yen has no minor unit (ISO 4217)
+  });
+
+  it("writes weights in kg above a kilogram", () => {
+    expect(formatWeight(850)).toBe("850 g");
+    expect(formatWeight(11_200)).toBe("11.2 kg");
+    expect(formatWeight(34_000)).toBe("34 kg");
+  });
+});
+
+describe("shipping options", () => {
+  it("accepts collection, parcel and freight with prices per zone in minor units", () => {
+    const ok = ShippingOptionsSchema.safeParse([
+      { method: "collection", note: "By appointment" },
+      { method: "parcel", prices: { domestic: 2500, nearby: 6000 } },
+      { method: "freight", prices: { domestic: 9500 } },
+    ]);
+    expect(ok.success).toBe(true);
+  });
+
+  it("refuses a method twice, a method without any price, and fractional money", () => {
+    expect(ShippingOptionsSchema.safeParse([{ method: "collection" }, { method: "collection" }]).success).toBe(false);
+    expect(ShippingOptionsSchema.safeParse([{ method: "parcel", prices: {} }]).success).toBe(false);
+    expect(ShippingOptionsSchema.safeParse([{ method: "parcel", prices: { domestic: 24.5 } }]).success).toBe(false);
+    expect(ShippingOptionsSchema.safeParse([{ method: "drone", prices: { domestic: 100 } }]).success).toBe(false);
+  });
+});
+
+describe("listing state from the bench", () => {
+  it("leads a card with power into 8 Ω of the weaker channel, with its conditions", () => {
+    // Example sheet: 66 W left, 65 W right into 8 Ω at 1 kHz, 0.1 % THD, both driven.
+    expect(leadFigure(exampleIntegratedAmplifierSheet())).toEqual({
+      label: "Power into 8 Ω",
+      value: "65",
+      unit: "W",
+      conditions: "into 8 Ω, 1 kHz, 0.1 % THD, both channels driven",
+    });
+    expect(listingFacets(exampleIntegratedAmplifierSheet())).toMatchObject({ power8ohmW: 65, power4ohmW: 96 });
+    expect(listingFacets(null).power8ohmW).toBeNull();
+  });
+
+  it("goes live with the mark when every check passes and is held when one is implausible", () => {
+    expect(publishState(checkBenchSheet(exampleIntegratedAmplifierSheet()))).toEqual({ status: "live", benchVerified: true, heldReason: null });
+    const held = publishState(checkBenchSheet(doctoredIntegratedAmplifierSheet()));
+    expect(held.status).toBe("held");
+    expect(held.benchVerified).toBe(false);
+    expect(held.heldReason).toMatch(/implausible/);
+    expect(publishState(null)).toEqual({ status: "live", benchVerified: false, heldReason: null });
+  });
+});
