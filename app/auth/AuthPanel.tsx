@@ -1,5 +1,7 @@
 import type { ReactNode } from "react";
+import { Link, type LinkProps } from "react-router";
 import { Card } from "~/components/Card";
+import { cx } from "~/components/cx";
 
 /** The narrow, centred panel the sign-in family of pages share. */
 export function AuthPanel({ title, lede, children, footer }: { title: string; lede?: ReactNode; children: ReactNode; footer?: ReactNode }) {
@@ -25,4 +27,12 @@ export function Notice({ children }: { children?: ReactNode }) {
       {children}
     </div>
   );
+}
+
+export const textLinkClass =
+  "font-medium text-walnut underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep hover:decoration-walnut";
+
+/** A link inside running text, visibly a link. */
+export function TextLink({ className, ...rest }: LinkProps) {
+  return <Link className={cx(textLinkClass, className as string | undefined)} {...rest} />;
 }

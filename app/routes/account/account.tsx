@@ -1,11 +1,11 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/account";
 import { Badge } from "~/components/Badge";
 import { Button } from "~/components/Button";
 import { Card, CardTitle } from "~/components/Card";
 import { FormError } from "~/components/Field";
 import { PageHeader } from "~/components/PageHeader";
-import { Notice } from "~/auth/AuthPanel";
+import { Notice, TextLink } from "~/auth/AuthPanel";
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from "~/auth/roles";
 import { resendVerification, signInMethods } from "~/auth/accounts.server";
 import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
@@ -91,7 +91,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
               "With your e-mail address and password."
             ) : (
               <>
-                No password yet. <Link to="/forgot-password">Choose one with a link by e-mail</Link>.
+                No password yet. <TextLink to="/forgot-password">Choose one with a link by e-mail</TextLink>.
               </>
             )}
           </li>

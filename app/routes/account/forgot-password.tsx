@@ -1,8 +1,8 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/forgot-password";
 import { Button } from "~/components/Button";
 import { Field, FormError } from "~/components/Field";
-import { AuthPanel, Notice } from "~/auth/AuthPanel";
+import { AuthPanel, Notice, TextLink } from "~/auth/AuthPanel";
 import { fieldErrors, ForgotPasswordForm } from "~/auth/forms";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requestPasswordReset } from "~/auth/recovery.server";
@@ -29,7 +29,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
   const busy = useNavigation().state === "submitting";
   if (actionData?.sent) {
     return (
-      <AuthPanel title="Check your inbox" footer={<Link to="/sign-in">Back to sign in</Link>}>
+      <AuthPanel title="Check your inbox" footer={<TextLink to="/sign-in">Back to sign in</TextLink>}>
         <Notice>
           If a Loadline account uses {actionData.email}, we have sent it a link to choose a new password. The link works
           once and for one hour.
@@ -42,7 +42,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
     <AuthPanel
       title="Forgotten your password?"
       lede="Enter the address you sign in with and we will e-mail you a link to choose a new one."
-      footer={<Link to="/sign-in">Back to sign in</Link>}
+      footer={<TextLink to="/sign-in">Back to sign in</TextLink>}
     >
       <FormError>{errors.form}</FormError>
       <Form method="post" className="space-y-4" noValidate>

@@ -1,8 +1,8 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/reset-password";
 import { Button } from "~/components/Button";
 import { Field, FormError } from "~/components/Field";
-import { AuthPanel } from "~/auth/AuthPanel";
+import { AuthPanel, TextLink } from "~/auth/AuthPanel";
 import { fieldErrors, ResetPasswordForm } from "~/auth/forms";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { resetPassword } from "~/auth/recovery.server";
@@ -44,7 +44,7 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
       <AuthPanel title="Choose a new password">
         <FormError>{problem}</FormError>
         <p className="text-sm">
-          <Link to="/forgot-password">Send me a new link</Link>
+          <TextLink to="/forgot-password">Send me a new link</TextLink>
         </p>
       </AuthPanel>
     );

@@ -1,8 +1,8 @@
-import { data, Form, Link, redirect, useNavigation } from "react-router";
+import { data, Form, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-in";
 import { Button } from "~/components/Button";
 import { Field, FormError } from "~/components/Field";
-import { AuthPanel } from "~/auth/AuthPanel";
+import { AuthPanel, TextLink } from "~/auth/AuthPanel";
 import { fieldErrors, SignInForm } from "~/auth/forms";
 import { safeRedirect } from "~/auth/redirect";
 import { authenticator, PASSWORD } from "~/auth/authenticator.server";
@@ -64,7 +64,7 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
       lede="Welcome back to the bench."
       footer={
         <p>
-          New to Loadline? <Link to={`/sign-up${back}`}>Create an account</Link>
+          New to Loadline? <TextLink to={`/sign-up${back}`}>Create an account</TextLink>
         </p>
       }
     >
@@ -92,9 +92,9 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
           <Button type="submit" busy={busy}>
             Sign in
           </Button>
-          <Link to="/forgot-password" className="text-sm">
+          <TextLink to="/forgot-password" className="text-sm">
             Forgotten your password?
-          </Link>
+          </TextLink>
         </div>
       </Form>
       <div className="flex items-center gap-3 text-xs uppercase tracking-[0.14em] text-ink-faint" aria-hidden="true">

@@ -1,8 +1,8 @@
-import { data, Form, Link, redirect, useNavigation } from "react-router";
+import { data, Form, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-up";
 import { Button } from "~/components/Button";
 import { Field, FormError } from "~/components/Field";
-import { AuthPanel, Notice } from "~/auth/AuthPanel";
+import { AuthPanel, Notice, TextLink } from "~/auth/AuthPanel";
 import { fieldErrors, SignUpForm } from "~/auth/forms";
 import { safeRedirect } from "~/auth/redirect";
 import { registerAccount } from "~/auth/accounts.server";
@@ -40,7 +40,7 @@ export default function SignUp({ loaderData, actionData }: Route.ComponentProps)
       <AuthPanel title="Check your inbox" lede={<>We have sent a message to <strong>{actionData.email}</strong>.</>}>
         <Notice>Open the link in it to confirm your address and sign in. The link works for 24 hours.</Notice>
         <p className="text-sm text-ink-soft">
-          Nothing there after a few minutes? Look in the spam folder, or <Link to="/sign-up">start again</Link> with the
+          Nothing there after a few minutes? Look in the spam folder, or <TextLink to="/sign-up">start again</TextLink> with the
           right address.
         </p>
       </AuthPanel>
@@ -54,7 +54,7 @@ export default function SignUp({ loaderData, actionData }: Route.ComponentProps)
       lede="Buy hi-fi whose measurements have been checked, and sell your own with a bench sheet."
       footer={
         <p>
-          Already have an account? <Link to={`/sign-in${back}`}>Sign in</Link>
+          Already have an account? <TextLink to={`/sign-in${back}`}>Sign in</TextLink>
         </p>
       }
     >

@@ -1,8 +1,8 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/verify-email";
 import { Button } from "~/components/Button";
 import { FormError } from "~/components/Field";
-import { AuthPanel } from "~/auth/AuthPanel";
+import { AuthPanel, TextLink } from "~/auth/AuthPanel";
 import { confirmEmail } from "~/auth/accounts.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { startSession } from "~/auth/session.server";
@@ -42,7 +42,7 @@ export default function VerifyEmail({ loaderData, actionData }: Route.ComponentP
       <AuthPanel title="Confirm your e-mail address">
         <FormError>{problem}</FormError>
         <p className="text-sm">
-          <Link to="/sign-in">Go to sign in</Link>
+          <TextLink to="/sign-in">Go to sign in</TextLink>
         </p>
       </AuthPanel>
     );

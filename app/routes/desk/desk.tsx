@@ -61,7 +61,7 @@ function HeldListing({ item }: { item: HeldListingItem }) {
   return (
     <li className="space-y-1 py-3">
       <p className="flex flex-wrap items-center gap-2">
-        <Link to={`/listings/${item.id}`} className="font-serif text-lg">
+        <Link to={`/listings/${item.id}`} className="font-serif text-lg text-ink underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep">
           {item.title}
         </Link>
         <Badge tone="brass">Held for review</Badge>
