@@ -7,12 +7,13 @@ import {
   formatReadingValue,
   keyFigures,
   type BenchSheet,
+  type Outcome,
   type Verdict,
 } from "@shared/bench";
 import type { BenchSheet as BenchSheetRow } from "~/models/bench-sheet.server";
 import type { Capture } from "~/models/capture.server";
 import { captureNote } from "./captures.server";
-import type { BenchView, KeyFigureView } from "./types";
+import type { BenchView, CheckRow, KeyFigureView } from "./types";
 
 // The bench sheet as the listing page shows it: rows built field by field from the parsed sheet, so
 // nothing else stored in it (the equipment's serial number in particular) reaches the page.
@@ -50,6 +51,40 @@ export function keyFigureViews(sheet: BenchSheet | null): KeyFigureView[] {
   });
 }
 
+// Problems first, so a buyer meets them before thirty consistent rows.
+const SEVERITY: Record<Outcome, number> = { implausible: 0, questionable: 1, missing: 2, consistent: 3 };
+
+function groupChecks(verdict: Verdict, captureRefs: Set<string>): CheckRow[] {
+  const rows = new Map<string, CheckRow>();
+  for (const r of verdict.results) {
+    const finding = {
+      outcome: r.outcome,
+      detail: r.detail,
+      compared: (r.compared ?? []).map((f) => ({ label: f.label, display: f.display })),
+      usesCapture: (r.refs ?? []).some((ref) => captureRefs.has(ref)),
+    };
+    const row = rows.get(r.ruleId);
+    if (!row) {
+      rows.set(r.ruleId, {
+        ruleId: r.ruleId,
+        title: r.title,
+        outcome: r.outcome,
+        explanation: r.explanation,
+        source: r.source,
+        findings: [finding],
+        usesCapture: finding.usesCapture,
+      });
+      continue;
+    }
+    row.findings.push(finding);
+    row.usesCapture ||= finding.usesCapture;
+    if (SEVERITY[r.outcome] < SEVERITY[row.outcome]) row.outcome = r.outcome;
+  }
+  return [...rows.values()]
+    .map((row) => ({ ...row, findings: [...row.findings].sort((a, b) => SEVERITY[a.outcome] - SEVERITY[b.outcome]) }))
+    .sort((a, b) => SEVERITY[a.outcome] - SEVERITY[b.outcome]);
+}
+
 export function benchView(row: BenchSheetRow, sheet: BenchSheet, captures: Map<string, Capture>): BenchView {
   const verdict = verdictFor(row, sheet);
   const captureRefs = new Set([
@@ -75,16 +110,7 @@ export function benchView(row: BenchSheetRow, sheet: BenchSheet, captures: Map<s
       captureNote: r.origin === "capture" ? captureNote(r.captureId ? captures.get(r.captureId) : undefined) : null,
       note: r.note ?? null,
     })),
-    checks: verdict.results.map((r) => ({
-      ruleId: r.ruleId,
-      title: r.title,
-      outcome: r.outcome,
-      explanation: r.explanation,
-      source: r.source,
-      detail: r.detail,
-      compared: (r.compared ?? []).map((f) => ({ label: f.label, display: f.display })),
-      usesCapture: (r.refs ?? []).some((ref) => captureRefs.has(ref)),
-    })),
+    checks: groupChecks(verdict, captureRefs),
     skipped: (verdict.skipped ?? []).map((s) => ({ title: s.title, reason: s.reason })),
     shortfalls: (verdict.shortfalls ?? []).map((s) => s.detail),
     derived: (verdict.derived ?? []).map((d) => ({ label: d.label, display: d.display })),

@@ -10,6 +10,9 @@ import type { PlotSet, ResponsePlot, SpectrumPlot, SquarePlot } from "./types";
 
 const MAX_PLOTS_EACH = 3;
 const CHANNEL_LABEL: Record<string, string> = { left: "Left", right: "Right", mono: "Mono", both: "Both channels" };
+const CHANNEL_WORDS: Record<string, string> = { left: "left channel", right: "right channel", mono: "mono", both: "both channels" };
+/** 0.99999 V reads as "1 V", not "1000 mV". */
+const tidy = (x: number) => Number(x.toPrecision(3));
 
 export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, Capture>): Promise<PlotSet> {
   if (!sheet) return { spectra: [], responses: [], squares: [] };
@@ -97,12 +100,12 @@ function responses(sheet: BenchSheet): ResponsePlot[] {
   return (sheet.sweeps ?? []).slice(0, MAX_PLOTS_EACH).map((sweep, i) => {
     const series = responseSeries(sweep);
     const riaa = sweep.kind === "riaa";
-    const channel = sweep.channel ? CHANNEL_LABEL[sweep.channel] : null;
+    const channel = sweep.channel ? CHANNEL_WORDS[sweep.channel] : null;
     const first = sweep.points[0].frequencyHz;
     const last = sweep.points[sweep.points.length - 1].frequencyHz;
     const conditions = [
-      channel,
       describeConditions({ ...sweep.conditions, frequencyRange: undefined }) || null,
+      channel,
       `${sweep.points.length} points, ${formatValue(first, "frequency")}–${formatValue(last, "frequency")}`,
       `level re ${formatValue(series.referenceHz, "frequency")}`,
       sweep.origin === "capture" ? "from a capture" : "as typed",
@@ -169,8 +172,8 @@ async function squares(captures: Capture[]): Promise<SquarePlot[]> {
     const conditions = [
       c.frequencyHz ? `${formatValue(c.frequencyHz, "frequency")} square wave` : "square wave",
       c.loadOhm ? `into ${formatValue(c.loadOhm, "resistance")}` : null,
-      c.channel ? CHANNEL_LABEL[c.channel] : null,
-      `${formatValue(a.amplitude.value, "voltage")} step`,
+      c.channel ? CHANNEL_WORDS[c.channel] : null,
+      `${formatValue(tidy(a.amplitude.value), "voltage")} step`,
     ];
     out.push({
       id: `square-${out.length}`,

@@ -106,6 +106,8 @@ function head(listing: Listing, title: string, mayReadHeldReason: boolean, seria
     id: listing.id,
     status: listing.status,
     title,
+    maker: listing.maker,
+    model: listing.model,
     category: listing.category,
     categoryLabel: CATEGORY_LABELS[listing.category].one,
     era: formatEra(listing.yearFrom, listing.yearTo),

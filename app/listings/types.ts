@@ -21,6 +21,8 @@ export interface ListingHead {
   id: string;
   status: ListingStatus;
   title: string;
+  maker: string | null;
+  model: string | null;
   category: Category;
   categoryLabel: string;
   era: string | null;
@@ -95,15 +97,23 @@ export interface ReadingRow {
   note: string | null;
 }
 
+export interface CheckFinding {
+  outcome: Outcome;
+  detail: string;
+  compared: { label: string; display: string }[];
+  /** Any of the figures this finding compared came from a capture. */
+  usesCapture: boolean;
+}
+
+/** One rule of the bench, with what it found on this sheet (a rule may look at several figures). */
 export interface CheckRow {
   ruleId: string;
   title: string;
+  /** The worst of its findings. */
   outcome: Outcome;
   explanation: string;
   source: string;
-  detail: string;
-  compared: { label: string; display: string }[];
-  /** Any of the figures this check compared came from a capture. */
+  findings: CheckFinding[];
   usesCapture: boolean;
 }
 

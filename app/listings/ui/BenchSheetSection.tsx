@@ -120,7 +120,9 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
         <table className="w-full border-collapse text-sm">
           <caption className="border-b border-rule px-3 py-2.5 text-left font-serif text-base font-semibold text-ink">
             Checks
-            <span className="ml-2 font-sans text-xs font-normal text-ink-faint">each against physics or a published standard</span>
+            <span className="ml-2 font-sans text-xs font-normal text-ink-faint">
+              {bench.checks.length} rules, each against physics, a published standard or the trade's practice
+            </span>
           </caption>
           <thead className="bg-sunk/50 max-md:hidden">
             <tr>
@@ -130,27 +132,36 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
             </tr>
           </thead>
           <tbody>
-            {bench.checks.map((c, i) => (
-              <tr key={`${c.ruleId}-${i}`} className="border-t border-rule/70 max-md:block max-md:px-3 max-md:py-3" data-rule={c.ruleId}>
-                <th scope="row" className={cx(cell, "w-[32%] text-left font-medium text-ink")}>
+            {bench.checks.map((c) => (
+              <tr key={c.ruleId} className="border-t border-rule/70 max-md:block max-md:px-3 max-md:py-3" data-rule={c.ruleId}>
+                <th scope="row" className={cx(cell, "text-left font-medium text-ink md:w-[32%]")}>
                   {c.title}
                   {c.usesCapture ? <CaptureTag className="ml-1.5 align-middle" /> : null}
                 </th>
-                <td className={cx(cell, "w-[9rem]")}>
+                <td className={cx(cell, "md:w-[9rem]")}>
                   <OutcomeBadge outcome={c.outcome} />
                 </td>
                 <td className={cx(cell, "text-ink-soft")}>
-                  <p className="text-ink">{c.detail}</p>
-                  {c.compared.length ? (
-                    <dl className="mt-1.5 flex flex-wrap gap-x-4 gap-y-1">
-                      {c.compared.map((f, j) => (
-                        <div key={j} className="flex items-baseline gap-1.5">
-                          <dt className="text-xs text-ink-faint">{f.label}</dt>
-                          <dd className="figures text-[0.8125rem] text-ink">{f.display}</dd>
-                        </div>
-                      ))}
-                    </dl>
-                  ) : null}
+                  <ul className="space-y-1.5">
+                    {c.findings.map((f, j) => (
+                      <li key={j}>
+                        <p className="text-ink">
+                          {c.findings.length > 1 && f.outcome !== "consistent" ? <OutcomeBadge outcome={f.outcome} className="mr-1.5 align-middle" /> : null}
+                          {f.detail}
+                        </p>
+                        {f.compared.length ? (
+                          <dl className="mt-0.5 flex flex-wrap gap-x-4 gap-y-0.5">
+                            {f.compared.map((x, k) => (
+                              <div key={k} className="flex items-baseline gap-1.5">
+                                <dt className="text-xs text-ink-faint">{x.label}</dt>
+                                <dd className="figures text-[0.8125rem] text-ink">{x.display}</dd>
+                              </div>
+                            ))}
+                          </dl>
+                        ) : null}
+                      </li>
+                    ))}
+                  </ul>
                   <details className="mt-1.5">
                     <summary className="cursor-pointer select-none text-xs font-medium text-walnut hover:text-walnut-deep">Why this check</summary>
                     <p className="mt-1 text-[0.8125rem] leading-relaxed">{c.explanation}</p>

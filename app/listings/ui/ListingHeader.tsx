@@ -69,7 +69,15 @@ export function ListingTitle({ listing }: { listing: ListingHead }) {
         {listing.categoryLabel}
         {listing.era ? <span className="text-ink-faint"> · {listing.era}</span> : null}
       </p>
-      <h1 className="text-[2rem] leading-[1.15] sm:text-[2.5rem]">{listing.title}</h1>
+      <h1 className="text-[2rem] leading-[1.15] text-balance sm:text-[2.5rem]">
+        {listing.maker && listing.model ? (
+          <>
+            {listing.maker} <span className="whitespace-nowrap">{listing.model}</span>
+          </>
+        ) : (
+          listing.title
+        )}
+      </h1>
       {listing.benchVerified ? <BenchVerifiedMark /> : null}
     </div>
   );

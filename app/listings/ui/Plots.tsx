@@ -32,7 +32,9 @@ function PlotFigure({
   fromCapture,
   children,
   numbers,
+  wide = false,
 }: {
+  wide?: boolean;
   id: string;
   title: string;
   conditions: string;
@@ -41,7 +43,10 @@ function PlotFigure({
   numbers: ReactNode;
 }) {
   return (
-    <figure aria-labelledby={`${id}-title`} className="space-y-3 rounded-panel border border-rule bg-card p-4 shadow-panel sm:p-5">
+    <figure
+      aria-labelledby={`${id}-title`}
+      className={`space-y-3 rounded-panel border border-rule bg-card p-4 shadow-panel sm:p-5 ${wide ? "xl:col-span-2" : ""}`}
+    >
       <figcaption className="space-y-1">
         <div className="flex flex-wrap items-center gap-2">
           <h3 id={`${id}-title`} className="text-[1.0625rem] leading-snug">
@@ -127,11 +132,11 @@ function ResponseNumbers({ plot }: { plot: ResponsePlot }) {
 
 function FigureList({ figures }: { figures: { label: string; display: string }[] }) {
   return (
-    <dl className="grid gap-x-6 gap-y-1 sm:grid-cols-3">
+    <dl className="divide-y divide-rule/60 text-sm">
       {figures.map((f) => (
-        <div key={f.label}>
-          <dt className="text-xs text-ink-faint">{f.label}</dt>
-          <dd className="figures text-[0.9375rem] text-ink">{f.display}</dd>
+        <div key={f.label} className="flex items-baseline justify-between gap-3 py-1">
+          <dt className="text-ink-soft">{f.label}</dt>
+          <dd className="figures text-ink">{f.display}</dd>
         </div>
       ))}
     </dl>
@@ -164,8 +169,16 @@ export function Plots({ plots }: { plots: PlotSet }) {
             </ul>
           </PlotFigure>
         ))}
+        {plots.squares.map((p) => (
+          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<FigureList figures={p.figures} />}>
+            <ChartFrame height={240}>
+              <Charts.Square plot={p} />
+            </ChartFrame>
+            <FigureList figures={p.figures} />
+          </PlotFigure>
+        ))}
         {plots.responses.map((p) => (
-          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture={p.fromCapture} numbers={<ResponseNumbers plot={p} />}>
+          <PlotFigure key={p.id} wide id={p.id} title={p.title} conditions={p.conditions} fromCapture={p.fromCapture} numbers={<ResponseNumbers plot={p} />}>
             <ChartFrame height={p.kind === "riaa" ? 394 : 260}>
               <Charts.Response plot={p} />
             </ChartFrame>
@@ -174,14 +187,6 @@ export function Plots({ plots }: { plots: PlotSet }) {
                 Against {p.riaa.variant} (brass, dashed); worst deviation <span className="figures text-ink">{p.riaa.worst}</span>.
               </p>
             ) : null}
-          </PlotFigure>
-        ))}
-        {plots.squares.map((p) => (
-          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<FigureList figures={p.figures} />}>
-            <ChartFrame height={240}>
-              <Charts.Square plot={p} />
-            </ChartFrame>
-            <FigureList figures={p.figures} />
           </PlotFigure>
         ))}
       </div>

@@ -28,7 +28,7 @@ const axisLabel = (value: string, angle = 0) => ({
   value,
   angle,
   position: angle ? ("insideLeft" as const) : ("insideBottom" as const),
-  offset: angle ? 14 : -2,
+  offset: angle ? 4 : -2,
   style: { fill: INK, fontSize: 12, textAnchor: "middle" as const },
 });
 const tooltipStyle = {
@@ -36,12 +36,32 @@ const tooltipStyle = {
   labelStyle: { color: INK, fontWeight: 600 },
 };
 
+/** "1 kHz", "500 Hz": for labels in prose. */
+function hzWords(f: number): string {
+  return f >= 1000 ? `${Number((f / 1000).toPrecision(3))} kHz` : `${Number(f.toPrecision(3))} Hz`;
+}
+
+/** "1k", "500": for ticks. */
 export function hz(f: number): string {
   if (f >= 1000) return `${Number((f / 1000).toPrecision(3))}k`;
   return `${Number(f.toPrecision(3))}`;
 }
 
-const LOG_TICKS = [10, 20, 50, 100, 200, 500, 1000, 2000, 5000, 10_000, 20_000, 50_000, 100_000, 200_000];
+// Decades only: on a phone-width log axis anything finer collides.
+const LOG_TICKS = [1, 10, 100, 1000, 10_000, 100_000, 1_000_000];
+
+/** Every `step` from lo to hi (the domain is already on whole steps). */
+function linearTicks([lo, hi]: [number, number], step: number): number[] {
+  const out: number[] = [];
+  for (let v = lo; v <= hi + 1e-9; v += step) out.push(Math.round(v * 1000) / 1000);
+  return out;
+}
+
+/** 1, 2 or 5 × 10^n at or above x: a time axis that ends on a round number. */
+function niceCeil(x: number): number {
+  const p = 10 ** Math.floor(Math.log10(x));
+  return [1, 2, 5, 10].map((m) => m * p).find((v) => v >= x - 1e-9) ?? 10 * p;
+}
 
 export function SpectrumChart({ plot }: { plot: SpectrumPlot }) {
   // Bars rise from the floor of the plot: heights are dB above the floor, labelled back in dB re fundamental.
@@ -61,7 +81,7 @@ export function SpectrumChart({ plot }: { plot: SpectrumPlot }) {
           tick={tick}
           tickLine={false}
           axisLine={{ stroke: RULE }}
-          label={axisLabel(`Harmonic of ${hz(plot.fundamentalHz)}Hz`)}
+          label={axisLabel(`Harmonic of ${hzWords(plot.fundamentalHz)}`)}
         />
         <YAxis
           domain={[0, -floor]}
@@ -79,7 +99,7 @@ export function SpectrumChart({ plot }: { plot: SpectrumPlot }) {
           formatter={(v, name) => [`${(Number(v) + floor).toFixed(1)} dB`, plot.channels.find((c) => c.key === name)?.label ?? String(name)]}
           labelFormatter={(label, items) => {
             const f = items?.[0]?.payload?.frequency as number | undefined;
-            return f ? `${label} · ${hz(f)}Hz` : String(label);
+            return f ? `${label} · ${hzWords(f)}` : String(label);
           }}
         />
         {plot.channels.length > 1 ? (
@@ -109,6 +129,8 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
   const domain = logDomain(plot.points);
   const ticks = LOG_TICKS.filter((t) => t >= domain[0] && t <= domain[1]);
   const riaa = plot.kind === "riaa";
+  const span = plot.domain.level[1] - plot.domain.level[0];
+  const levelTicks = linearTicks(plot.domain.level, riaa ? 5 : span > 12 ? 3 : 1);
   return (
     <div className="space-y-1">
       <ResponsiveContainer width="100%" height={riaa ? 240 : 260}>
@@ -120,6 +142,7 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
             scale="log"
             domain={domain}
             ticks={ticks}
+            interval={0}
             tickFormatter={hz}
             tick={tick}
             tickLine={false}
@@ -129,6 +152,8 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
           />
           <YAxis
             domain={plot.domain.level}
+            ticks={levelTicks}
+            interval={0}
             tick={tick}
             width={52}
             tickLine={false}
@@ -139,7 +164,7 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
           <ReferenceLine y={0} stroke={FAINT} strokeOpacity={0.5} />
           <Tooltip
             {...tooltipStyle}
-            labelFormatter={(f) => `${hz(Number(f))}Hz`}
+            labelFormatter={(f) => hzWords(Number(f))}
             formatter={(v, name) => [`${Number(v).toFixed(2)} dB`, name === "target" ? "RIAA curve" : "Measured"]}
           />
           {riaa ? (
@@ -167,6 +192,8 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
             />
             <YAxis
               domain={plot.domain.deviation}
+              ticks={linearTicks(plot.domain.deviation, 0.5)}
+              interval={0}
               tick={tick}
               width={52}
               tickLine={false}
@@ -175,7 +202,7 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
               label={axisLabel("Deviation (dB)", -90)}
             />
             <ReferenceLine y={0} stroke={BRASS} strokeDasharray="5 4" />
-            <Tooltip {...tooltipStyle} labelFormatter={(f) => `${hz(Number(f))}Hz`} formatter={(v) => [`${Number(v).toFixed(2)} dB`, "Deviation from RIAA"]} />
+            <Tooltip {...tooltipStyle} labelFormatter={(f) => hzWords(Number(f))} formatter={(v) => [`${Number(v).toFixed(2)} dB`, "Deviation from RIAA"]} />
             <Line dataKey="deviation" stroke={TRACE} strokeWidth={2} dot={false} isAnimationActive={false} />
           </LineChart>
         </ResponsiveContainer>
@@ -185,7 +212,7 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
 }
 
 export function SquareChart({ plot }: { plot: SquarePlot }) {
-  const last = plot.points[plot.points.length - 1]?.t ?? 1;
+  const last = niceCeil(plot.points[plot.points.length - 1]?.t || 1);
   return (
     <ResponsiveContainer width="100%" height={240}>
       <LineChart data={plot.points} margin={{ top: 8, right: 12, bottom: 22, left: 14 }}>
@@ -194,6 +221,8 @@ export function SquareChart({ plot }: { plot: SquarePlot }) {
           dataKey="t"
           type="number"
           domain={[0, last]}
+          ticks={linearTicks([0, last], last / 4)}
+          interval={0}
           tick={tick}
           tickFormatter={(t: number) => String(Number(t.toPrecision(3)))}
           tickLine={false}

@@ -3,7 +3,8 @@ import { z } from "zod";
 import type { Route } from "./+types/listing";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { getUser, requireUser } from "~/auth/guards.server";
-import { ButtonLink } from "~/components/Button";
+import { ErrorPage } from "~/components/ErrorPage";
+import { CATEGORY_LABELS } from "@shared/catalogue";
 import { loadListingPage } from "~/listings/public.server";
 import { setWatch } from "~/listings/watch.server";
 import { BenchSheetSection, KeyFigures } from "~/listings/ui/BenchSheetSection";
@@ -60,13 +61,15 @@ export function meta({ data: page }: Route.MetaArgs) {
 export default function ListingPage({ loaderData }: Route.ComponentProps) {
   const { listing, viewer, photos, keyFigures, bench, plots, restoration, seller, shipping, initialPhoto } = loaderData;
   return (
-    <main className="mx-auto w-full max-w-7xl space-y-10 px-4 pb-16 pt-6 sm:px-6 lg:px-8">
+    <main className="mx-auto w-full max-w-6xl space-y-10 px-4 pb-16 pt-6 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-sm text-ink-faint">
-        <Link to="/" className="no-underline hover:text-walnut">
-          Loadline
+        <Link to="/market" className="no-underline hover:text-walnut">
+          Market
         </Link>
         <span aria-hidden="true"> / </span>
-        <span>{listing.categoryLabel}</span>
+        <Link to={`/market?category=${CATEGORY_LABELS[listing.category].slug}`} className="no-underline hover:text-walnut">
+          {CATEGORY_LABELS[listing.category].many}
+        </Link>
       </nav>
 
       <StatusBanner listing={listing} viewer={viewer} />
@@ -110,19 +113,6 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  const notFound = isRouteErrorResponse(error) && error.status === 404;
-  return (
-    <main className="mx-auto flex w-full max-w-2xl flex-col items-start gap-4 px-4 py-20">
-      <p className="figures text-sm font-medium text-brass-ink">{notFound ? "404" : isRouteErrorResponse(error) ? error.status : 500}</p>
-      <h1 className="text-3xl sm:text-4xl">{notFound ? "No unit here" : "This page could not be shown"}</h1>
-      <p className="text-ink-soft">
-        {notFound
-          ? "The listing may have been sold and cleared, withdrawn by its seller, or the link is mistyped."
-          : "Something went wrong on our side. Please try again in a moment."}
-      </p>
-      <ButtonLink to="/" variant="secondary">
-        Back to the market
-      </ButtonLink>
-    </main>
-  );
+  if (isRouteErrorResponse(error)) return <ErrorPage status={error.status} />;
+  return <ErrorPage status={500} />;
 }
