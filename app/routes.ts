@@ -28,6 +28,19 @@ export default [
   route("api/v1/captures/:id", "routes/api.v1.captures.$id.ts"),
   // Bench-sheet check (open to anyone)
   route("api/v1/bench-sheets/check", "routes/api.v1.bench-sheets.check.ts"),
+  // The seller's path: your listings, a new draft, the editor's steps, and the owner's listing API
+  route("sell", "routes/sell/index.tsx"),
+  route("sell/new", "routes/sell/new.tsx"),
+  route("sell/:id", "routes/sell/editor.tsx", [
+    index("routes/sell/editor-index.tsx"),
+    route("item", "routes/sell/item.tsx"),
+    route("condition", "routes/sell/condition.tsx"),
+    route("restoration", "routes/sell/restoration.tsx"),
+    route("photos", "routes/sell/photos.tsx"),
+    route("bench", "routes/sell/bench.tsx"),
+    route("review", "routes/sell/review.tsx"),
+  ]),
+  route("api/v1/listings/:id", "routes/api.v1.listings.$id.ts"),
   // Listing photos (seller only)
   route("api/v1/listings/:id/photos", "routes/api.v1.listings.$id.photos.ts"),
   route("api/v1/listings/:id/photos/:photoId", "routes/api.v1.listings.$id.photos.$photoId.ts"),

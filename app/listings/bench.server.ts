@@ -1,0 +1,153 @@
+import { Op, type Transaction } from "sequelize";
+import { sequelize } from "~/db.server";
+import { BenchSheet, Listing } from "~/models/index.server";
+import { Capture } from "~/models/capture.server";
+import { checkBenchSheet, parseBenchSheet, sheetFilterFacets, type BenchSheet as Sheet, type Verdict } from "@shared/bench";
+import { CATEGORY_QUANTITIES } from "@shared/bench/quantities";
+import type { Reading, Sweep } from "@shared/bench/schema";
+import { sheetFingerprint } from "@shared/bench-form/state";
+import { assertEditable, isPublished, ownListing } from "./access.server";
+import { ListingInputError, type Issue } from "./errors.server";
+
+// The bench sheet step. The server is the authority: it re-reads the sheet, puts the readings of each
+// capture back exactly as the bench derived them (a typed figure cannot pass itself off as captured),
+// checks it, stores sheet and verdict, and copies the filter figures to the listing. On a published
+// listing a changed sheet loses bench-verified at once and gets it back only from this re-check.
+
+export type SheetSaveResult = {
+  listing: Listing;
+  sheet: Sheet;
+  verdict: Verdict;
+  /** The sheet differs from the one stored before. */
+  changed: boolean;
+  /** On a published listing: whether it carried the mark before this save. */
+  wasVerified: boolean;
+};
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** Readings and sweeps of origin "capture" replaced by the stored analysis of captures this seller owns. */
+async function fromOwnCaptures(sheet: Sheet, sellerId: string, transaction: Transaction): Promise<Sheet> {
+  const issues: Issue[] = [];
+  const ids = new Set<string>();
+  sheet.readings.forEach((r, i) => {
+    if (r.origin !== "capture") return;
+    if (!r.captureId || !UUID.test(r.captureId)) issues.push({ path: `readings.${i}.captureId`, message: "A figure from a capture must name a capture you uploaded." });
+    else ids.add(r.captureId);
+  });
+  (sheet.sweeps ?? []).forEach((s, i) => {
+    if (s.origin !== "capture") return;
+    if (!s.captureId || !UUID.test(s.captureId)) issues.push({ path: `sweeps.${i}.captureId`, message: "A sweep from a capture must name a capture you uploaded." });
+    else ids.add(s.captureId);
+  });
+  if (issues.length) throw new ListingInputError(issues);
+  if (!ids.size) return sheet;
+  const captures = await Capture.findAll({ where: { id: { [Op.in]: [...ids] }, ownerId: sellerId }, transaction });
+  const byId = new Map(captures.map((c) => [c.id, c]));
+  sheet.readings.forEach((r, i) => {
+    if (r.origin !== "capture") return;
+    const c = byId.get(r.captureId!);
+    if (!c) issues.push({ path: `readings.${i}.captureId`, message: "No capture of yours has that id." });
+    else if (c.status !== "done") issues.push({ path: `readings.${i}.captureId`, message: `The capture ${c.fileName} is not analysed yet.` });
+  });
+  if (issues.length) throw new ListingInputError(issues);
+  const allowed = new Set<string>(CATEGORY_QUANTITIES[sheet.category]);
+  const readings: Reading[] = [];
+  const placed = new Set<string>();
+  for (const r of sheet.readings) {
+    if (r.origin !== "capture") readings.push(r);
+    else if (!placed.has(r.captureId!)) {
+      placed.add(r.captureId!);
+      // The capture's own readings, where the seller's first one stood; quantities this kind of unit does not have are left out.
+      for (const cr of byId.get(r.captureId!)?.readings ?? []) if (allowed.has(cr.quantity)) readings.push(cr);
+    }
+  }
+  const sweeps: Sweep[] = [];
+  for (const s of sheet.sweeps ?? []) {
+    if (s.origin !== "capture") sweeps.push(s);
+    else {
+      const stored = byId.get(s.captureId!)?.sweep;
+      if (stored && !placed.has(`sweep:${s.captureId}`)) {
+        placed.add(`sweep:${s.captureId}`);
+        sweeps.push(stored);
+      }
+    }
+  }
+  return { ...sheet, readings, sweeps };
+}
+
+/** Why a sheet goes to the review desk instead of the market, or null. */
+export function heldReasonFor(verdict: Verdict): string | null {
+  const implausible = verdict.results.filter((r) => r.outcome === "implausible");
+  if (!implausible.length) return null;
+  const first = implausible[0];
+  const more = implausible.length > 1 ? ` (and ${implausible.length - 1} more)` : "";
+  return `Bench check: ${first.title.toLowerCase()} — implausible. ${first.detail}${more}`.slice(0, 1000);
+}
+
+/** Listing columns the market filters by, from the sheet's conservative figures. */
+export function facetColumns(sheet: Sheet | null) {
+  const f = sheet ? sheetFilterFacets(sheet) : null;
+  const positive = (v: number | undefined) => (v !== undefined && Number.isFinite(v) && v > 0 ? v : null);
+  const nonNegative = (v: number | undefined) => (v !== undefined && Number.isFinite(v) && v >= 0 ? v : null);
+  const finite = (v: number | undefined) => (v !== undefined && Number.isFinite(v) ? v : null);
+  return {
+    power8ohmW: positive(f?.powerW8Ohm),
+    power4ohmW: positive(f?.powerW4Ohm),
+    thdPct: nonNegative(f?.distortionPct),
+    snrDb: finite(f?.snrDb),
+    bandwidthHz: positive(f?.bandwidthHighHz),
+    wowFlutterPct: nonNegative(f?.wowFlutterPct),
+    sensitivityDb: finite(f?.sensitivityDb),
+    impedanceOhm: positive(f?.ratedImpedanceOhm ?? f?.impedanceMinOhm),
+  };
+}
+
+/** Apply a fresh verdict to a published listing: the mark, the facets, and the desk for implausible sheets. */
+export function verdictUpdate(listing: Listing, sheet: Sheet | null, verdict: Verdict | null) {
+  const reason = verdict ? heldReasonFor(verdict) : null;
+  const update: Partial<Listing> = { ...facetColumns(sheet), benchVerified: !!verdict?.benchVerified && !reason };
+  if (reason) {
+    update.status = "held";
+    update.heldReason = reason;
+  }
+  return update;
+}
+
+export async function saveBenchSheet(listingId: string, sellerId: string, input: unknown, opts: { transaction?: Transaction } = {}): Promise<SheetSaveResult> {
+  const parsed = parseBenchSheet(input);
+  if (!parsed.ok) throw new ListingInputError(parsed.issues);
+  const run = async (transaction: Transaction): Promise<SheetSaveResult> => {
+    const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
+    assertEditable(listing);
+    if (parsed.sheet.category !== listing.category)
+      throw new ListingInputError([{ path: "category", message: `This listing is for a ${listing.category.replace(/_/g, " ")}; the sheet must be too.` }]);
+    const merged = await fromOwnCaptures(parsed.sheet, sellerId, transaction);
+    const again = parseBenchSheet(merged);
+    if (!again.ok) throw new ListingInputError(again.issues);
+    const sheet = again.sheet;
+    const stored = await BenchSheet.findOne({ where: { listingId }, transaction, lock: transaction.LOCK.UPDATE });
+    const changed = sheetFingerprint(stored?.sheet as Sheet | undefined) !== sheetFingerprint(sheet);
+    const wasVerified = listing.benchVerified;
+    if (changed && isPublished(listing) && listing.benchVerified) {
+      // The mark belongs to the sheet that was checked; a different sheet has none until the check below.
+      await listing.update({ benchVerified: false }, { transaction });
+    }
+    const verdict = checkBenchSheet(sheet);
+    const checkedAt = new Date();
+    if (stored) await stored.update({ sheet: sheet as Record<string, unknown>, verdict: verdict as unknown as Record<string, unknown>, checkedAt }, { transaction });
+    else await BenchSheet.create({ listingId, sheet: sheet as Record<string, unknown>, verdict: verdict as unknown as Record<string, unknown>, checkedAt }, { transaction });
+    if (isPublished(listing)) await listing.update(verdictUpdate(listing, sheet, verdict), { transaction });
+    else await listing.update(facetColumns(sheet), { transaction });
+    return { listing, sheet, verdict, changed, wasVerified };
+  };
+  return opts.transaction ? run(opts.transaction) : sequelize.transaction(run);
+}
+
+/** The stored sheet and verdict of a listing the caller already owns. A sheet that no longer reads is null. */
+export async function storedSheet(listingId: string, transaction?: Transaction): Promise<{ sheet: Sheet | null; verdict: Verdict | null; checkedAt: Date | null }> {
+  const row = await BenchSheet.findOne({ where: { listingId }, transaction });
+  if (!row) return { sheet: null, verdict: null, checkedAt: null };
+  const parsed = parseBenchSheet(row.sheet);
+  return { sheet: parsed.ok ? parsed.sheet : null, verdict: (row.verdict as unknown as Verdict) ?? null, checkedAt: row.checkedAt };
+}

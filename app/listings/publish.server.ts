@@ -1,0 +1,75 @@
+import { fn, col, type Transaction } from "sequelize";
+import { sequelize } from "~/db.server";
+import { BenchSheet, Listing, ListingPhoto, RestorationEntry } from "~/models/index.server";
+import type { SessionUser } from "~/auth/guards.server";
+import { checkBenchSheet, parseBenchSheet, type Verdict } from "@shared/bench";
+import { publishChecklist, type ChecklistItem } from "@shared/publish-checklist";
+import { assertEditable, ownListing } from "./access.server";
+import { verdictUpdate } from "./bench.server";
+import { ListingInputError, ListingStateError } from "./errors.server";
+
+// Publishing: everything a buyer needs is present, the bench runs on the stored sheet (never on what
+// the browser showed), and the listing goes live — or, with an implausible outcome, to the review desk
+// as held, where a moderator clears it before the market shows it.
+
+export type PhotoCounts = { ready: number; processing: number; failed: number };
+
+export async function photoCounts(listingId: string, transaction?: Transaction): Promise<PhotoCounts> {
+  const rows = (await ListingPhoto.findAll({
+    where: { listingId },
+    attributes: ["status", [fn("count", col("id")), "n"]],
+    group: ["status"],
+    raw: true,
+    transaction,
+  })) as unknown as { status: keyof PhotoCounts; n: string }[];
+  const out: PhotoCounts = { ready: 0, processing: 0, failed: 0 };
+  for (const r of rows) out[r.status] = Number(r.n);
+  return out;
+}
+
+export async function checklistFor(listing: Listing, user: Pick<SessionUser, "emailVerified">, transaction?: Transaction): Promise<ChecklistItem[]> {
+  const [sheetRow, entries, photos] = await Promise.all([
+    BenchSheet.findOne({ where: { listingId: listing.id }, transaction }),
+    RestorationEntry.count({ where: { listingId: listing.id }, transaction }),
+    photoCounts(listing.id, transaction),
+  ]);
+  const readings = (sheetRow?.sheet.readings as { basis?: string }[] | undefined) ?? [];
+  return publishChecklist({
+    listing,
+    sheet: sheetRow ? { readings: readings.length, measured: readings.filter((r) => r.basis === "measured").length } : null,
+    restorationEntries: entries,
+    photos,
+    emailVerified: user.emailVerified,
+  });
+}
+
+export type PublishResult = { listing: Listing; verdict: Verdict | null };
+
+export async function publishListing(listingId: string, user: SessionUser): Promise<PublishResult> {
+  return sequelize.transaction(async (transaction) => {
+    const listing = await ownListing(listingId, user.id, { transaction, lock: true });
+    assertEditable(listing);
+    if (listing.status === "live" || listing.status === "held")
+      throw new ListingStateError(listing.status === "live" ? "This listing is already live." : "This listing is already waiting at the review desk.", "published");
+    const open = (await checklistFor(listing, user, transaction)).filter((c) => !c.ok);
+    if (open.length) throw new ListingInputError(open.map((c) => ({ path: `${c.step}.${c.id}`, message: `${c.label}: ${c.hint}` })), "Some things are still missing.");
+
+    const row = await BenchSheet.findOne({ where: { listingId }, transaction, lock: transaction.LOCK.UPDATE });
+    let verdict: Verdict | null = null;
+    let sheet = null;
+    if (row) {
+      const parsed = parseBenchSheet(row.sheet);
+      if (!parsed.ok)
+        throw new ListingInputError([{ path: "bench.sheet", message: "The stored bench sheet no longer reads; open the bench sheet step and save it again." }]);
+      sheet = parsed.sheet;
+      verdict = checkBenchSheet(sheet);
+      await row.update({ verdict: verdict as unknown as Record<string, unknown>, checkedAt: new Date() }, { transaction });
+    }
+    const update = verdictUpdate(listing, sheet, verdict);
+    await listing.update(
+      { ...update, status: update.status ?? "live", heldReason: update.heldReason ?? null, publishedAt: new Date() },
+      { transaction },
+    );
+    return { listing, verdict };
+  });
+}

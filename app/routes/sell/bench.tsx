@@ -1,0 +1,58 @@
+import { data, redirect, useNavigation } from "react-router";
+import type { Route } from "./+types/bench";
+import { requireUser } from "~/auth/guards.server";
+import { assertSameOrigin } from "~/auth/csrf.server";
+import { ownListing } from "~/listings/access.server";
+import { saveBenchSheet } from "~/listings/bench.server";
+import { ListingInputError, ListingNotFound } from "~/listings/errors.server";
+import { notFoundPage, stepFailure } from "~/listings/http.server";
+import { BenchSheetEditor } from "~/sell/bench/BenchSheetEditor";
+import { useEditor } from "./editor";
+import { readSheetForm, readSheetState, sheetToState, type SheetFormState } from "@shared/bench-form/state";
+
+// The bench sheet step. Without JavaScript the whole form posts here and the server reads it the same
+// way the browser does; with it, the sheet autosaves through the listing API and outcomes update live.
+
+export async function action({ request, params }: Route.ActionArgs) {
+  assertSameOrigin(request);
+  const user = await requireUser(request);
+  const listing = await ownListing(params.id, user.id).catch((e) => (e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e)));
+  const form = await request.formData();
+  const state = readSheetForm(form, listing.category);
+  const read = readSheetState(state);
+  if (!read.sheet) return data({ ok: false as const, state, formError: `The sheet was not saved: ${read.errorCount} field${read.errorCount === 1 ? " needs" : "s need"} attention.`, issues: [] as string[] }, { status: 400 });
+  try {
+    const saved = await saveBenchSheet(params.id, user.id, read.sheet);
+    if (form.get("intent") === "next") return redirect(`/sell/${params.id}/review`);
+    const lost = saved.wasVerified && !saved.listing.benchVerified;
+    return { ok: true as const, notice: lost ? "Saved. The changed sheet no longer earns the bench-verified mark." : "Saved and checked." };
+  } catch (e) {
+    if (e instanceof ListingInputError) return data({ ok: false as const, state, formError: "The sheet was not saved.", issues: e.issues.map((i) => `${i.path}: ${i.message}`) }, { status: 400 });
+    const failure = stepFailure(e);
+    return data({ ok: false as const, state, formError: failure.ok ? undefined : failure.formError, issues: [] as string[] }, { status: 409 });
+  }
+}
+
+export default function BenchStep({ actionData }: Route.ComponentProps) {
+  const { listing, sheet } = useEditor();
+  const busy = useNavigation().state === "submitting";
+  const failed = actionData && !actionData.ok ? actionData : null;
+  const initial: SheetFormState = (failed?.state as SheetFormState | undefined) ?? sheetToState(sheet, listing.category);
+  return (
+    <>
+      {actionData?.ok ? (
+        <p role="status" className="rounded-md border border-trace/30 bg-trace-wash px-3 py-2 text-sm font-medium text-trace">
+          {actionData.notice}
+        </p>
+      ) : null}
+      <BenchSheetEditor
+        listingId={listing.id}
+        initial={initial}
+        published={listing.status === "live" || listing.status === "held"}
+        serverErrors={failed?.issues}
+        formError={failed?.formError}
+        busy={busy}
+      />
+    </>
+  );
+}

@@ -1,0 +1,40 @@
+import { data, redirect, useNavigation } from "react-router";
+import type { Route } from "./+types/condition";
+import { requireUser } from "~/auth/guards.server";
+import { assertSameOrigin } from "~/auth/csrf.server";
+import { saveCondition } from "~/listings/drafts.server";
+import { stepFailure } from "~/listings/http.server";
+import { ConditionForm } from "~/sell/ConditionForm";
+import { useEditor } from "./editor";
+import { readConditionForm, type ConditionValues } from "@shared/listing-draft";
+
+export async function action({ request, params }: Route.ActionArgs) {
+  assertSameOrigin(request);
+  const user = await requireUser(request);
+  const form = await request.formData();
+  const values = { cosmeticGrade: form.get("cosmeticGrade"), serviceState: form.get("serviceState"), conditionNote: String(form.get("conditionNote") ?? "") } as ConditionValues;
+  const read = readConditionForm(form);
+  if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined as string | undefined, values }, { status: 400 });
+  try {
+    await saveCondition(params.id, user.id, read.value);
+  } catch (e) {
+    return data({ ...stepFailure(e, {}), values }, { status: 400 });
+  }
+  if (form.get("intent") === "next") return redirect(`/sell/${params.id}/restoration`);
+  return { ok: true as const, notice: "Saved." };
+}
+
+export default function ConditionStep({ actionData }: Route.ComponentProps) {
+  const { listing } = useEditor();
+  const busy = useNavigation().state === "submitting";
+  const failed = actionData && !actionData.ok ? actionData : null;
+  return (
+    <ConditionForm
+      listingId={listing.id}
+      values={failed?.values ?? { cosmeticGrade: listing.cosmeticGrade, serviceState: listing.serviceState, conditionNote: listing.conditionNote }}
+      errors={failed?.errors}
+      formError={failed?.formError}
+      busy={busy}
+    />
+  );
+}

@@ -1,0 +1,27 @@
+import { Button } from "~/components/Button";
+import { cx } from "~/components/cx";
+import { describeSave, type SaveState } from "./useAutosave";
+
+/** The foot of a step form: what the autosave did, Save, and Save and go on. Works without JavaScript. */
+export function SaveBar({ state, busy, next, disabled }: { state?: SaveState; busy?: boolean; next?: { label: string }; disabled?: boolean }) {
+  const bad = state?.status === "invalid" || state?.status === "failed";
+  return (
+    <div className="sticky bottom-0 z-10 -mx-4 border-t border-rule bg-paper/95 px-4 py-3 backdrop-blur-sm sm:mx-0 sm:rounded-b-panel sm:px-0">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <p aria-live="polite" className={cx("text-sm", bad ? "font-medium text-fault" : "text-ink-faint")} data-save-status={state?.status ?? "idle"}>
+          {state ? describeSave(state) : "Save when you are done with this step."}
+        </p>
+        <div className="flex flex-wrap gap-2">
+          <Button type="submit" name="intent" value="save" variant="secondary" busy={busy} disabled={disabled}>
+            Save
+          </Button>
+          {next ? (
+            <Button type="submit" name="intent" value="next" disabled={disabled || busy}>
+              {next.label}
+            </Button>
+          ) : null}
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,200 @@
+import { useId, useState } from "react";
+import { Button } from "~/components/Button";
+import { Badge } from "~/components/Badge";
+import { controlClass } from "~/components/Field";
+import { cx } from "~/components/cx";
+import { describeReading, type Reading, type Sweep } from "@shared/bench";
+
+// Raw measurement files (WAV, CSV) sent to the capture API with the conditions they were taken in; the
+// analysis comes back as readings that the sheet takes over, marked as from a capture. Needs JavaScript.
+
+export type CaptureResult = { id: string; fileName: string; readings: Reading[]; sweep?: Sweep };
+type Item = { key: number; fileName: string; state: "uploading" | "analysing" | "done" | "failed"; progress: number; message?: string; result?: CaptureResult };
+
+const selectClass = cx(controlClass, "h-9 py-1 text-sm appearance-auto");
+const inputClass = cx(controlClass, "h-9 py-1.5 text-sm figures");
+
+function upload(form: FormData, onProgress: (p: number) => void): Promise<{ status: number; body: any }> {
+  return new Promise((resolve) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open("POST", "/api/v1/captures/analyze?wait=8");
+    xhr.responseType = "json";
+    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
+    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
+    xhr.onerror = () => resolve({ status: 0, body: { message: "The connection dropped; check it and try again." } });
+    xhr.send(form);
+  });
+}
+
+async function poll(url: string): Promise<{ status: number; body: any }> {
+  for (let i = 0; i < 90; i++) {
+    await new Promise((r) => setTimeout(r, 1000));
+    const res = await fetch(url, { headers: { Accept: "application/json" } });
+    const body = await res.json().catch(() => null);
+    if (!res.ok) return { status: res.status, body };
+    if (body?.status === "done" || body?.status === "failed") return { status: 200, body };
+  }
+  return { status: 504, body: { message: "The analysis is taking unusually long; reload the page later." } };
+}
+
+function Field({ label, children, className }: { label: string; children: React.ReactNode; className?: string }) {
+  return (
+    <label className={cx("block space-y-1", className)}>
+      <span className="text-xs font-medium text-ink-soft">{label}</span>
+      {children}
+    </label>
+  );
+}
+
+export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => void }) {
+  const fileId = useId();
+  const [kind, setKind] = useState<"sine" | "square" | "sweep">("sine");
+  const [items, setItems] = useState<Item[]>([]);
+  const [problem, setProblem] = useState<string | null>(null);
+  const update = (key: number, patch: Partial<Item>) => setItems((all) => all.map((i) => (i.key === key ? { ...i, ...patch } : i)));
+
+  async function analyse(form: HTMLFormElement) {
+    const data = new FormData(form);
+    const file = data.get("file");
+    if (!(file instanceof File) || !file.name) return setProblem("Choose a WAV or CSV file first.");
+    setProblem(null);
+    // Blank optional fields are left out so the API applies its defaults.
+    for (const [k, v] of [...data.entries()]) if (typeof v === "string" && !v.trim()) data.delete(k);
+    const key = Date.now();
+    setItems((all) => [{ key, fileName: file.name, state: "uploading", progress: 0 }, ...all]);
+    let answer = await upload(data, (p) => update(key, { progress: p }));
+    if (answer.status === 202 && answer.body?.poll) {
+      update(key, { state: "analysing", progress: 1 });
+      answer = await poll(answer.body.poll);
+    }
+    const b = answer.body ?? {};
+    if (answer.status === 200 && b.status === "done") {
+      const result: CaptureResult = { id: b.id, fileName: b.fileName, readings: b.readings ?? [], ...(b.sweep ? { sweep: b.sweep } : {}) };
+      update(key, { state: "done", progress: 1, result });
+      onCapture(result);
+      form.reset();
+      setKind("sine");
+    } else {
+      const message = b.error?.message ?? b.message ?? `The server answered ${answer.status}.`;
+      update(key, { state: "failed", message });
+    }
+  }
+
+  return (
+    <div className="space-y-4">
+      <form
+        className="space-y-3"
+        aria-label="Add a capture"
+        onSubmit={(e) => {
+          e.preventDefault();
+          void analyse(e.currentTarget);
+        }}
+      >
+        <div className="grid gap-3 sm:grid-cols-2">
+          <label className="block space-y-1 sm:col-span-2" htmlFor={fileId}>
+            <span className="text-sm font-medium">Capture file (WAV or CSV)</span>
+            <input id={fileId} name="file" type="file" accept=".wav,.csv,audio/wav,audio/x-wav,text/csv" className="block w-full text-sm file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:font-medium" />
+          </label>
+          <Field label="What it holds">
+            <select name="kind" value={kind} onChange={(e) => setKind(e.target.value as typeof kind)} className={selectClass}>
+              <option value="sine">Sine at the output (distortion, level, noise)</option>
+              <option value="square">Square wave (rise time)</option>
+              <option value="sweep">Frequency sweep (response)</option>
+            </select>
+          </Field>
+          <Field label="Load">
+            <input name="loadOhm" inputMode="decimal" placeholder="8" className={inputClass} aria-describedby={`${fileId}-ohm`} />
+            <span id={`${fileId}-ohm`} className="text-xs text-ink-faint">Ω, the dummy load the output drove</span>
+          </Field>
+          <Field label="Channel (for a mono file)">
+            <select name="channel" className={selectClass} defaultValue="">
+              <option value="">Stereo file: left, right</option>
+              <option value="left">Left</option>
+              <option value="right">Right</option>
+              <option value="mono">Mono unit</option>
+            </select>
+          </Field>
+          {kind === "sine" ? (
+            <>
+              <input type="hidden" name="scale" value="volts-per-full-scale" />
+              <Field label="Full scale stands for">
+                <div className="flex gap-2">
+                  <input name="volts" inputMode="decimal" placeholder="40" required className={inputClass} aria-label="Volts at full scale" />
+                  <select name="basis" className={cx(selectClass, "w-28")} defaultValue="peak" aria-label="Peak or rms">
+                    <option value="peak">V peak</option>
+                    <option value="rms">V rms</option>
+                  </select>
+                </div>
+              </Field>
+              <Field label="Channels driven">
+                <select name="channelsDriven" className={selectClass} defaultValue="both">
+                  <option value="both">Both channels</option>
+                  <option value="one">One channel</option>
+                  <option value="all">All channels</option>
+                </select>
+              </Field>
+              <Field label="Measurement bandwidth (Hz)">
+                <div className="flex items-center gap-2">
+                  <input name="bandwidthLowHz" inputMode="decimal" defaultValue="20" className={inputClass} aria-label="Low end, Hz" />
+                  <span aria-hidden="true">–</span>
+                  <input name="bandwidthHighHz" inputMode="decimal" defaultValue="20000" className={inputClass} aria-label="High end, Hz" />
+                </div>
+              </Field>
+            </>
+          ) : null}
+          {kind === "square" ? (
+            <Field label="Square-wave frequency (Hz)">
+              <input name="frequencyHz" inputMode="decimal" placeholder="10000" className={inputClass} />
+            </Field>
+          ) : null}
+          {kind === "sweep" ? (
+            <>
+              <Field label="Compare with">
+                <select name="reference" className={selectClass} defaultValue="flat">
+                  <option value="flat">Flat response</option>
+                  <option value="riaa">RIAA playback curve (phono)</option>
+                </select>
+              </Field>
+              <Field label="Level column in">
+                <select name="levelUnit" className={selectClass} defaultValue="dB">
+                  <option value="dB">dB</option>
+                  <option value="V">Volts</option>
+                </select>
+              </Field>
+            </>
+          ) : null}
+        </div>
+        {problem ? <p role="alert" className="text-sm font-medium text-fault">{problem}</p> : null}
+        <Button type="submit" variant="secondary">
+          Upload and analyse
+        </Button>
+      </form>
+      {items.length ? (
+        <ul className="space-y-2" aria-label="Captures">
+          {items.map((i) => (
+            <li key={i.key} className="space-y-1.5 rounded-md border border-rule bg-card p-3 text-sm" data-capture-state={i.state}>
+              <div className="flex flex-wrap items-center justify-between gap-2">
+                <span className="truncate font-medium">{i.fileName}</span>
+                <Badge tone={i.state === "done" ? "trace" : i.state === "failed" ? "fault" : "brass"}>
+                  {i.state === "uploading" ? "Uploading" : i.state === "analysing" ? "Analysing" : i.state === "done" ? "Analysed" : "Refused"}
+                </Badge>
+              </div>
+              {i.state === "uploading" || i.state === "analysing" ? (
+                <progress max={1} value={i.state === "uploading" ? i.progress : undefined} className="h-1.5 w-full accent-walnut" aria-label={`${i.fileName}: ${i.state}`} />
+              ) : null}
+              {i.message ? <p role="alert" className="text-fault">{i.message}</p> : null}
+              {i.result ? (
+                <ul className="text-xs text-ink-soft">
+                  {i.result.readings.map((r, n) => (
+                    <li key={n}>{describeReading(r)}</li>
+                  ))}
+                  {i.result.sweep ? <li>Response sweep with {i.result.sweep.points.length} points</li> : null}
+                </ul>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
