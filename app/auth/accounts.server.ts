@@ -1,4 +1,4 @@
-import { UniqueConstraintError, type Transaction } from "sequelize";
+import { QueryTypes, UniqueConstraintError, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { User } from "~/models/user.server";
 import { OAuthIdentity } from "~/models/oauth-identity.server";
@@ -78,7 +78,7 @@ export async function registerAccount(input: { displayName: string; email: strin
   const passwordHash = await hashPassword(input.password);
   const existing = await findAccountByEmail(input.email);
   if (existing) {
-    await sendAccountExistsEmail(existing);
+    await noteSignUpAttempt(existing);
     return;
   }
   // The e-mail goes out inside the transaction: if it cannot be sent, no account is left behind
@@ -93,8 +93,19 @@ export async function registerAccount(input: { displayName: string; email: strin
     // Two sign-ups with one address at the same moment: the loser is told as if it came second.
     if (!(error instanceof EmailTakenError)) throw error;
     const winner = await findAccountByEmail(input.email);
-    if (winner) await sendAccountExistsEmail(winner);
+    if (winner) await noteSignUpAttempt(winner);
   }
+}
+
+/** Tells an account's owner that someone tried to sign up with their address; at most once an hour. */
+async function noteSignUpAttempt(account: User): Promise<void> {
+  const [claimed] = await sequelize.query(
+    `UPDATE users SET exists_notice_at = now()
+      WHERE id = :id AND (exists_notice_at IS NULL OR exists_notice_at < now() - interval '1 hour')
+      RETURNING id`,
+    { replacements: { id: account.id }, type: QueryTypes.SELECT },
+  );
+  if (claimed) await sendAccountExistsEmail(account);
 }
 
 /** Password sign-in with the rate limits; throws SignInError with a message fit to show. */
