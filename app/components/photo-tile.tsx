@@ -12,14 +12,15 @@ export interface PhotoTileProps {
   photo: PhotoView;
   index: number;
   count: number;
-  busy: boolean;
+  /** This photo's delete is on its way. */
+  deleting: boolean;
   onMove: (to: number) => void;
   onCover: () => void;
   onDelete: () => void;
   onDropPhoto: (photoId: string) => void;
 }
 
-export function PhotoTile({ photo, index, count, busy, onMove, onCover, onDelete, onDropPhoto }: PhotoTileProps) {
+export function PhotoTile({ photo, index, count, deleting, onMove, onCover, onDelete, onDropPhoto }: PhotoTileProps) {
   const [confirming, setConfirming] = useState(false);
   const [dropTarget, setDropTarget] = useState(false);
   const keepRef = useRef<HTMLButtonElement>(null);
@@ -41,7 +42,7 @@ export function PhotoTile({ photo, index, count, busy, onMove, onCover, onDelete
     <li
       data-photo-id={photo.id}
       aria-label={label}
-      draggable={!busy && !confirming}
+      draggable={!deleting && !confirming}
       onDragStart={(e) => {
         e.dataTransfer.setData(PHOTO_DRAG_TYPE, photo.id);
         e.dataTransfer.effectAllowed = "move";
@@ -62,7 +63,7 @@ export function PhotoTile({ photo, index, count, busy, onMove, onCover, onDelete
         dropTarget && "ring-2 ring-walnut ring-offset-2 ring-offset-paper",
       )}
     >
-      <div className="relative aspect-[4/3] bg-sunk">
+      <div className="relative aspect-[4/3] overflow-hidden bg-sunk">
         <Picture photo={photo} n={n} />
         <span className="figures absolute left-2 top-2 rounded bg-ink/75 px-1.5 py-0.5 text-xs text-card">{n}</span>
         {photo.isCover ? (
@@ -83,57 +84,68 @@ export function PhotoTile({ photo, index, count, busy, onMove, onCover, onDelete
         >
           <p className="text-sm text-ink">Delete photo {n}? Its stored sizes go too; this cannot be undone.</p>
           <div className="flex flex-wrap gap-2">
-            <Button variant="danger" size="sm" busy={busy} onClick={onDelete}>
+            <Button variant="danger" size="sm" busy={deleting} onClick={onDelete}>
               Delete photo
             </Button>
-            <Button ref={keepRef} variant="secondary" size="sm" onClick={() => setConfirming(false)}>
+            <Button ref={keepRef} variant="secondary" size="sm" disabled={deleting} onClick={() => setConfirming(false)}>
               Keep
             </Button>
           </div>
         </div>
       ) : (
-        <div className="flex flex-wrap items-center gap-1 border-t border-rule p-2">
-          <Button
-            variant="quiet"
-            size="sm"
-            data-action="earlier"
-            aria-label={`Move photo ${n} earlier`}
-            disabled={busy || index === 0}
-            onClick={() => onMove(index - 1)}
-          >
-            <Arrow direction="left" />
-          </Button>
-          <Button
-            variant="quiet"
-            size="sm"
-            data-action="later"
-            aria-label={`Move photo ${n} later`}
-            disabled={busy || index === count - 1}
-            onClick={() => onMove(index + 1)}
-          >
-            <Arrow direction="right" />
-          </Button>
+        <div className="space-y-1 border-t border-rule p-2">
           <Button
             variant={photo.isCover ? "secondary" : "quiet"}
             size="sm"
             data-action="cover"
+            className={cx("w-full", photo.isCover && "border-brass text-brass-ink hover:border-brass hover:text-brass-ink")}
+            aria-label={`Use photo ${n} as the cover`}
             aria-pressed={photo.isCover}
-            disabled={busy || photo.status === "failed"}
+            disabled={photo.status === "failed"}
             onClick={() => !photo.isCover && onCover()}
           >
-            {photo.isCover ? "Cover" : "Make cover"}
+            {photo.isCover ? (
+              <>
+                <Tick /> Cover photo
+              </>
+            ) : (
+              "Make cover"
+            )}
           </Button>
-          <Button
-            variant="quiet"
-            size="sm"
-            data-action="delete"
-            className="ml-auto text-fault hover:bg-fault-wash hover:text-fault"
-            aria-label={`Delete photo ${n}`}
-            disabled={busy}
-            onClick={() => setConfirming(true)}
-          >
-            Delete
-          </Button>
+          <div className="flex items-center gap-1">
+            <Button
+              variant="quiet"
+              size="sm"
+              data-action="earlier"
+              className="px-2"
+              aria-label={`Move photo ${n} earlier`}
+              disabled={index === 0}
+              onClick={() => onMove(index - 1)}
+            >
+              <Arrow direction="left" />
+            </Button>
+            <Button
+              variant="quiet"
+              size="sm"
+              data-action="later"
+              className="px-2"
+              aria-label={`Move photo ${n} later`}
+              disabled={index === count - 1}
+              onClick={() => onMove(index + 1)}
+            >
+              <Arrow direction="right" />
+            </Button>
+            <Button
+              variant="quiet"
+              size="sm"
+              data-action="delete"
+              className="ml-auto text-fault hover:bg-fault-wash hover:text-fault"
+              aria-label={`Delete photo ${n}`}
+              onClick={() => setConfirming(true)}
+            >
+              Delete
+            </Button>
+          </div>
         </div>
       )}
     </li>
@@ -149,7 +161,7 @@ function Picture({ photo, n }: { photo: PhotoView; n: number }) {
         width={photo.width ?? undefined}
         height={photo.height ?? undefined}
         loading="lazy"
-        className="h-full w-full object-cover"
+        className="absolute inset-0 h-full w-full object-cover"
       />
     );
   }
@@ -169,6 +181,14 @@ function Picture({ photo, n }: { photo: PhotoView; n: number }) {
       </svg>
       <p className="text-sm">Preparing sizes…</p>
     </div>
+  );
+}
+
+function Tick() {
+  return (
+    <svg aria-hidden="true" viewBox="0 0 16 16" className="size-4">
+      <path d="M3.5 8.5l3 3 6-7" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+    </svg>
   );
 }
 

@@ -40,8 +40,11 @@ interface UploadItem {
   photoId?: string;
 }
 
-/** Files on the wire at once; the rest wait their turn (each still shows its own bar). */
-const PARALLEL = 3;
+/**
+ * Files on the wire at once. One: the uplink is the limit anyway, and photos then arrive (and take
+ * their places) in the order the seller chose them. The rest wait, each with its own bar.
+ */
+const PARALLEL = 1;
 const POLL_MS = 1500;
 
 export function PhotoUploader({ listingId, initialPhotos, onChange, className }: PhotoUploaderProps) {
@@ -147,7 +150,10 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
     (enabled.find((b) => b.dataset.action === target.action) ?? enabled[0])?.focus();
   });
 
+  // One after another, in the order the seller made them; the buttons stay usable (and focused)
+  // while a change is on its way.
   const arrange = useMutation({
+    scope: { id: `listing-photos-${listingId}` },
     mutationFn: (body: ArrangeBody) => arrangePhotos(listingId, body),
     onMutate: async (body) => {
       setProblem(null);
@@ -180,7 +186,6 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
     },
   });
 
-  const busy = arrange.isPending || remove.isPending;
   const inFlight = uploads.filter((u) => u.state !== "refused").length;
   const slotsLeft = maxPhotos - photos.length - inFlight;
 
@@ -298,14 +303,14 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
       ) : null}
 
       {photos.length > 0 ? (
-        <ol ref={gridRef} aria-label="Photos, in listing order" className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-4">
+        <ol ref={gridRef} aria-label="Photos, in listing order" className="grid grid-cols-2 items-start gap-3 sm:grid-cols-3">
           {photos.map((photo, index) => (
             <PhotoTile
               key={photo.id}
               photo={photo}
               index={index}
               count={photos.length}
-              busy={busy}
+              deleting={remove.isPending && remove.variables === photo.id}
               onMove={(to) => move(photo.id, to, to < index ? "earlier" : "later")}
               onCover={() => {
                 pendingFocus.current = { photoId: photo.id, action: "cover", index };
@@ -358,7 +363,11 @@ function UploadRow({ item, onCancel, onDismiss }: { item: UploadItem; onCancel: 
       ) : (
         <div className="mt-1.5 flex items-center gap-3">
           <progress
-            className="h-2 w-full accent-walnut"
+            className={cx(
+              "h-2 w-full appearance-none overflow-hidden rounded-full bg-sunk",
+              "[&::-webkit-progress-bar]:bg-sunk [&::-webkit-progress-value]:bg-walnut [&::-moz-progress-bar]:bg-walnut",
+              item.state === "sent" && "[&::-webkit-progress-value]:bg-trace [&::-moz-progress-bar]:bg-trace",
+            )}
             max={100}
             value={percent}
             aria-label={`Uploading ${item.file.name}`}

@@ -69,12 +69,19 @@ describe("PhotoUploader", () => {
     mount();
     pick([new File(["x".repeat(100)], "front.jpg", { type: "image/jpeg" }), new File(["y"], "notes.jpg", { type: "image/jpeg" })]);
 
-    await waitFor(() => expect(net.sendPhoto).toHaveBeenCalledTimes(2));
-    expect(net.sendPhoto.mock.calls.map((c) => (c[1] as File).name)).toEqual(["front.jpg", "notes.jpg"]);
+    // One at a time, in the order chosen; the second waits with its own bar.
+    await waitFor(() => expect(net.sendPhoto).toHaveBeenCalledTimes(1));
+    expect((net.sendPhoto.mock.calls[0][1] as File).name).toBe("front.jpg");
     act(() => progress[0](50, 100));
     const bar = screen.getByRole("progressbar", { name: "Uploading front.jpg" }) as HTMLProgressElement;
     expect(bar.value).toBe(50);
-    expect(screen.getByRole("progressbar", { name: "Uploading notes.jpg" })).toBeTruthy();
+    expect((screen.getByRole("progressbar", { name: "Uploading notes.jpg" }) as HTMLProgressElement).value).toBe(0);
+
+    const id = "cccccccc-0000-4000-8000-000000000009";
+    net.fetchPhotos.mockResolvedValue(listOf([...three(), photo(id, 3, { status: "processing", urls: null })]));
+    await act(async () => finishers[0]({ ok: true, photo: photo(id, 3, { status: "processing", urls: null }) }));
+    await waitFor(() => expect(net.sendPhoto).toHaveBeenCalledTimes(2));
+    expect((net.sendPhoto.mock.calls[1][1] as File).name).toBe("notes.jpg");
 
     const message = "“notes.jpg” cannot be used (named .jpg, but it is really a text file). Upload JPEG or PNG photos only.";
     await act(async () => {
@@ -84,7 +91,9 @@ describe("PhotoUploader", () => {
     const refusedRow = within(uploads).getByTitle("notes.jpg").closest("li")!;
     expect(within(refusedRow).getByText(message)).toBeTruthy();
     expect(within(refusedRow).queryByRole("progressbar")).toBeNull();
-    expect(screen.getByRole("progressbar", { name: "Uploading front.jpg" })).toBeTruthy();
+    // The accepted one has become a photo tile, still preparing its sizes.
+    await waitFor(() => expect(screen.getAllByText("Preparing sizes…")).toHaveLength(2));
+    expect(within(uploads).queryByTitle("front.jpg")).toBeNull();
   });
 
   it("refuses a file over 20 MB and files beyond the 24th without sending them", async () => {
@@ -121,9 +130,12 @@ describe("PhotoUploader", () => {
     net.arrangePhotos.mockResolvedValue(listOf(three().map((p) => ({ ...p, isCover: p.id === ids[1] }))));
     mount();
     const second = screen.getAllByRole("listitem").find((li) => li.getAttribute("data-photo-id") === ids[1])!;
-    fireEvent.click(within(second).getByRole("button", { name: "Make cover" }));
+    const toggle = within(second).getByRole("button", { name: "Use photo 2 as the cover" });
+    expect(toggle.getAttribute("aria-pressed")).toBe("false");
+    fireEvent.click(toggle);
     await waitFor(() => expect(net.arrangePhotos).toHaveBeenCalledWith("listing-1", { coverId: ids[1] }));
-    await waitFor(() => expect(within(second).getByRole("button", { name: "Cover" }).getAttribute("aria-pressed")).toBe("true"));
+    await waitFor(() => expect(toggle.getAttribute("aria-pressed")).toBe("true"));
+    expect(toggle.textContent).toBe(" Cover photo");
   });
 
   it("deletes only after the seller confirms", async () => {
