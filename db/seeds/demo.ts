@@ -10,6 +10,7 @@ import { ShippingOptionsSchema, type ShippingOption } from "@shared/catalogue";
 import { listingFacets, publishState } from "@shared/listing-facets";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES, type AccountKey, type DemoUnit } from "./demo-data";
 import { demoPhotoFiles } from "./demo-photo-files";
+import { seedDemoCaptures } from "./demo-captures";
 
 // Loads the invented demo scenario. Idempotent: accounts are matched by e-mail, workshops by slug and
 // listings by (seller, serial number); anything already there is left exactly as it is, so a restart
@@ -56,6 +57,7 @@ export async function seedDemo(): Promise<SeedResult> {
   // A concurrent seeder may have created some listings first: their photos here belong to nobody.
   const orphans = uploadedKeys.filter((k) => !usedKeys.has(k));
   if (orphans.length) await deleteObjects(orphans);
+  created = (await seedDemoCaptures()).created || created;
   return { created, accounts };
 }
 
