@@ -28,11 +28,10 @@ export async function photoCounts(listingId: string, transaction?: Transaction):
 }
 
 export async function checklistFor(listing: Listing, user: Pick<SessionUser, "emailVerified">, transaction?: Transaction): Promise<ChecklistItem[]> {
-  const [sheetRow, entries, photos] = await Promise.all([
-    BenchSheet.findOne({ where: { listingId: listing.id }, transaction }),
-    RestorationEntry.count({ where: { listingId: listing.id }, transaction }),
-    photoCounts(listing.id, transaction),
-  ]);
+  // One after another: inside a transaction they share one connection.
+  const sheetRow = await BenchSheet.findOne({ where: { listingId: listing.id }, transaction });
+  const entries = await RestorationEntry.count({ where: { listingId: listing.id }, transaction });
+  const photos = await photoCounts(listing.id, transaction);
   const readings = (sheetRow?.sheet.readings as { basis?: string }[] | undefined) ?? [];
   return publishChecklist({
     listing,

@@ -10,7 +10,7 @@ import { SaveBar } from "../SaveBar";
 import { Section } from "../Section";
 import { useAutosave } from "../useAutosave";
 import { BenchCautions } from "./BenchCautions";
-import { CapturePanel, type CaptureResult } from "./CapturePanel";
+import { CAPTURE_FORM_ID, CapturePanel, type CaptureResult } from "./CapturePanel";
 import { ReadingRow } from "./ReadingRow";
 import { OutcomeCounts, VerdictPanel } from "./VerdictPanel";
 
@@ -55,13 +55,11 @@ export function BenchSheetEditor({
   const autosave = useAutosave(listingId);
   const latest = useRef(read);
   latest.current = read;
-  const started = useRef(false);
+  // Only the seller's own edits save; opening the page (or React re-running effects) does not.
+  const dirty = useRef(false);
 
   useEffect(() => {
-    if (!started.current) {
-      started.current = true;
-      return;
-    }
+    if (!dirty.current) return;
     autosave.schedule(() => {
       const r = latest.current;
       if (r.sheet) return { ok: true, body: { benchSheet: r.sheet } };
@@ -70,7 +68,10 @@ export function BenchSheetEditor({
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [state]);
 
-  const set = (next: (s: SheetFormState) => SheetFormState) => setState((s) => withSpareRows(next(s)));
+  const set = (next: (s: SheetFormState) => SheetFormState) => {
+    dirty.current = true;
+    setState((s) => withSpareRows(next(s)));
+  };
   const patchRow = (key: string, patch: Partial<SheetRow>) => set((s) => ({ ...s, rows: s.rows.map((r) => (r.key === key ? { ...r, ...patch } : r)) }));
   const removeRow = (key: string) => set((s) => ({ ...s, rows: s.rows.filter((r) => r.key !== key) }));
   const addRow = (basis: SheetRow["basis"]) => set((s) => ({ ...s, rows: [...s.rows, blankRow(`add-${Date.now()}`, basis)] }));
@@ -209,6 +210,8 @@ export function BenchSheetEditor({
           </Section>
           <SaveBar state={autosave.state} busy={busy} next={{ label: "Save and review" }} />
         </Form>
+        {/* The capture inputs belong to this form (form attribute), so they never post with the sheet. */}
+        <form id={CAPTURE_FORM_ID} hidden onSubmit={(e) => e.preventDefault()} />
         <aside className="space-y-3 lg:sticky lg:top-4">
           <VerdictPanel verdict={verdict} stale={fresh ? 0 : read.errorCount} published={published} rowLabel={rowLabel} />
           <p className="text-xs text-ink-faint">

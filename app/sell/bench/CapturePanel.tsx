@@ -46,6 +46,9 @@ function Field({ label, children, className }: { label: string; children: React.
   );
 }
 
+/** The id of the (empty) form the capture inputs belong to; it sits outside the sheet's form so the two never mix. */
+export const CAPTURE_FORM_ID = "capture-form";
+
 export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => void }) {
   const fileId = useId();
   const [kind, setKind] = useState<"sine" | "square" | "sweep">("sine");
@@ -82,32 +85,25 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
 
   return (
     <div className="space-y-4">
-      <form
-        className="space-y-3"
-        aria-label="Add a capture"
-        onSubmit={(e) => {
-          e.preventDefault();
-          void analyse(e.currentTarget);
-        }}
-      >
+      <div className="space-y-3" role="group" aria-label="Add a capture">
         <div className="grid gap-3 sm:grid-cols-2">
           <label className="block space-y-1 sm:col-span-2" htmlFor={fileId}>
             <span className="text-sm font-medium">Capture file (WAV or CSV)</span>
-            <input id={fileId} name="file" type="file" accept=".wav,.csv,audio/wav,audio/x-wav,text/csv" className="block w-full text-sm file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:font-medium" />
+            <input form={CAPTURE_FORM_ID} id={fileId} name="file" type="file" accept=".wav,.csv,audio/wav,audio/x-wav,text/csv" className="block w-full text-sm file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:font-medium" />
           </label>
           <Field label="What it holds">
-            <select name="kind" value={kind} onChange={(e) => setKind(e.target.value as typeof kind)} className={selectClass}>
+            <select form={CAPTURE_FORM_ID} name="kind" value={kind} onChange={(e) => setKind(e.target.value as typeof kind)} className={selectClass}>
               <option value="sine">Sine at the output (distortion, level, noise)</option>
               <option value="square">Square wave (rise time)</option>
               <option value="sweep">Frequency sweep (response)</option>
             </select>
           </Field>
           <Field label="Load">
-            <input name="loadOhm" inputMode="decimal" placeholder="8" className={inputClass} aria-describedby={`${fileId}-ohm`} />
+            <input form={CAPTURE_FORM_ID} name="loadOhm" inputMode="decimal" placeholder="8" className={inputClass} aria-describedby={`${fileId}-ohm`} />
             <span id={`${fileId}-ohm`} className="text-xs text-ink-faint">Ω, the dummy load the output drove</span>
           </Field>
           <Field label="Channel (for a mono file)">
-            <select name="channel" className={selectClass} defaultValue="">
+            <select form={CAPTURE_FORM_ID} name="channel" className={selectClass} defaultValue="">
               <option value="">Stereo file: left, right</option>
               <option value="left">Left</option>
               <option value="right">Right</option>
@@ -116,18 +112,18 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
           </Field>
           {kind === "sine" ? (
             <>
-              <input type="hidden" name="scale" value="volts-per-full-scale" />
+              <input form={CAPTURE_FORM_ID} type="hidden" name="scale" value="volts-per-full-scale" />
               <Field label="Full scale stands for">
                 <div className="flex gap-2">
-                  <input name="volts" inputMode="decimal" placeholder="40" required className={inputClass} aria-label="Volts at full scale" />
-                  <select name="basis" className={cx(selectClass, "w-28")} defaultValue="peak" aria-label="Peak or rms">
+                  <input form={CAPTURE_FORM_ID} name="volts" inputMode="decimal" placeholder="40" required className={inputClass} aria-label="Volts at full scale" />
+                  <select form={CAPTURE_FORM_ID} name="basis" className={cx(selectClass, "w-28")} defaultValue="peak" aria-label="Peak or rms">
                     <option value="peak">V peak</option>
                     <option value="rms">V rms</option>
                   </select>
                 </div>
               </Field>
               <Field label="Channels driven">
-                <select name="channelsDriven" className={selectClass} defaultValue="both">
+                <select form={CAPTURE_FORM_ID} name="channelsDriven" className={selectClass} defaultValue="both">
                   <option value="both">Both channels</option>
                   <option value="one">One channel</option>
                   <option value="all">All channels</option>
@@ -135,28 +131,28 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               </Field>
               <Field label="Measurement bandwidth (Hz)">
                 <div className="flex items-center gap-2">
-                  <input name="bandwidthLowHz" inputMode="decimal" defaultValue="20" className={inputClass} aria-label="Low end, Hz" />
+                  <input form={CAPTURE_FORM_ID} name="bandwidthLowHz" inputMode="decimal" defaultValue="20" className={inputClass} aria-label="Low end, Hz" />
                   <span aria-hidden="true">–</span>
-                  <input name="bandwidthHighHz" inputMode="decimal" defaultValue="20000" className={inputClass} aria-label="High end, Hz" />
+                  <input form={CAPTURE_FORM_ID} name="bandwidthHighHz" inputMode="decimal" defaultValue="20000" className={inputClass} aria-label="High end, Hz" />
                 </div>
               </Field>
             </>
           ) : null}
           {kind === "square" ? (
             <Field label="Square-wave frequency (Hz)">
-              <input name="frequencyHz" inputMode="decimal" placeholder="10000" className={inputClass} />
+              <input form={CAPTURE_FORM_ID} name="frequencyHz" inputMode="decimal" placeholder="10000" className={inputClass} />
             </Field>
           ) : null}
           {kind === "sweep" ? (
             <>
               <Field label="Compare with">
-                <select name="reference" className={selectClass} defaultValue="flat">
+                <select form={CAPTURE_FORM_ID} name="reference" className={selectClass} defaultValue="flat">
                   <option value="flat">Flat response</option>
                   <option value="riaa">RIAA playback curve (phono)</option>
                 </select>
               </Field>
               <Field label="Level column in">
-                <select name="levelUnit" className={selectClass} defaultValue="dB">
+                <select form={CAPTURE_FORM_ID} name="levelUnit" className={selectClass} defaultValue="dB">
                   <option value="dB">dB</option>
                   <option value="V">Volts</option>
                 </select>
@@ -165,10 +161,16 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
           ) : null}
         </div>
         {problem ? <p role="alert" className="text-sm font-medium text-fault">{problem}</p> : null}
-        <Button type="submit" variant="secondary">
+        <Button
+          variant="secondary"
+          onClick={() => {
+            const form = document.getElementById(CAPTURE_FORM_ID);
+            if (form instanceof HTMLFormElement) void analyse(form);
+          }}
+        >
           Upload and analyse
         </Button>
-      </form>
+      </div>
       {items.length ? (
         <ul className="space-y-2" aria-label="Captures">
           {items.map((i) => (
