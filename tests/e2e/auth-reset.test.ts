@@ -61,7 +61,7 @@ describe("password reset by e-mail", () => {
     await otherPage.waitForURL("**/account");
     await other.close();
     await context.close();
-  });
+  }, 180_000); // two browsers and a sign-up on the way: longer than the suite's default
 
   it("gives the same answer for an address with no account, and sends nothing", async () => {
     const context = await newContext(browser);
