@@ -18,7 +18,7 @@ export type SignInFailure = "invalid" | "rate_limited" | "suspended";
 export class SignInError extends Error {
   override name = "SignInError";
   constructor(
-    readonly code: SignInFailure | "oauth_unverified" | "oauth_failed",
+    readonly code: SignInFailure | "oauth_unverified",
     message: string,
     readonly retryAfterSeconds?: number,
   ) {

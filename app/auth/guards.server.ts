@@ -1,6 +1,6 @@
 import { data, redirect } from "react-router";
 import { User } from "~/models/user.server";
-import { getSession } from "~/auth/session.server";
+import { getSession, SESSION_MAX_AGE_SECONDS } from "~/auth/session.server";
 import { signInPath } from "~/auth/redirect";
 import { normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
 
@@ -32,6 +32,9 @@ async function loadUser(request: Request): Promise<SessionUser | null> {
   const session = await getSession(request);
   const userId = session.get("userId");
   if (!userId || !/^[0-9a-f-]{36}$/i.test(userId)) return null;
+  // The cookie's own expiry is the browser's business; a copied cookie stops working here too.
+  const signedInAt = Date.parse(session.get("signedInAt") ?? "");
+  if (!(Date.now() - signedInAt < SESSION_MAX_AGE_SECONDS * 1000)) return null;
   const user = await User.findByPk(userId);
   if (!user || user.status !== "active" || user.sessionVersion !== session.get("sessionVersion")) return null;
   return {

@@ -7,7 +7,7 @@ import { env } from "~/env.server";
 export type SessionData = { userId: string; sessionVersion: number; signedInAt: string };
 type FlashData = { notice: string };
 
-const MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
+export const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
 
 function createStorage() {
   const { secureCookies, sessionSecret } = env();
@@ -19,7 +19,7 @@ function createStorage() {
       sameSite: "lax",
       secure: secureCookies,
       path: "/",
-      maxAge: MAX_AGE_SECONDS,
+      maxAge: SESSION_MAX_AGE_SECONDS,
       secrets: [sessionSecret],
     },
   });

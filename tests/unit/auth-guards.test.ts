@@ -25,11 +25,11 @@ function account(overrides: Record<string, unknown> = {}) {
   };
 }
 
-async function cookieFor(userId: string, sessionVersion: number) {
+async function cookieFor(userId: string, sessionVersion: number, signedInAt = new Date()) {
   const session = await sessionStorage().getSession();
   session.set("userId", userId);
   session.set("sessionVersion", sessionVersion);
-  session.set("signedInAt", new Date().toISOString());
+  session.set("signedInAt", signedInAt.toISOString());
   return (await sessionStorage().commitSession(session)).split(";")[0];
 }
 
@@ -60,6 +60,13 @@ describe("getUser", () => {
     expect(await getUser(await request("/", await cookieFor(ADA, 3)))).toBeNull();
     accounts.set(ADA, account({ status: "suspended" }));
     expect(await getUser(await request("/", await cookieFor(ADA, 3)))).toBeNull();
+  });
+
+  it("treats a session older than 14 days as signed out, whatever the cookie says", async () => {
+    accounts.set(ADA, account());
+    const day = 24 * 60 * 60 * 1000;
+    expect(await getUser(await request("/", await cookieFor(ADA, 3, new Date(Date.now() - 13 * day))))).not.toBeNull();
+    expect(await getUser(await request("/", await cookieFor(ADA, 3, new Date(Date.now() - 15 * day))))).toBeNull();
   });
 
   it("ignores a cookie whose signature does not match", async () => {
