@@ -2,7 +2,7 @@ import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/users";
 import { Badge } from "~/components/Badge";
 import { Button } from "~/components/Button";
-import { FormError } from "~/components/Field";
+import { controlClass, FormError } from "~/components/Field";
 import { PageHeader } from "~/components/PageHeader";
 import { Pagination } from "~/components/Pagination";
 import { Notice } from "~/auth/AuthPanel";
@@ -67,7 +67,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
           type="search"
           defaultValue={query}
           placeholder="Name or e-mail address"
-          className="block w-full rounded-md border border-rule-strong bg-card px-3 py-2 text-[0.9375rem]"
+          className={controlClass}
         />
         <Button type="submit" variant="secondary">
           Find
