@@ -11,6 +11,13 @@ export function Gallery({ photos, initial = 0, title }: { photos: GalleryPhoto[]
   const [index, setIndex] = useState(Math.min(Math.max(0, initial), Math.max(0, photos.length - 1)));
   const [zoomOpen, setZoomOpen] = useState(false);
   const zoomButton = useRef<HTMLAnchorElement>(null);
+  const wasOpen = useRef(false);
+
+  // Back to the Zoom link once the dialog is gone (while it is open, everything behind it is inert).
+  useEffect(() => {
+    if (wasOpen.current && !zoomOpen) zoomButton.current?.focus();
+    wasOpen.current = zoomOpen;
+  }, [zoomOpen]);
 
   if (photos.length === 0) {
     return (
@@ -28,16 +35,16 @@ export function Gallery({ photos, initial = 0, title }: { photos: GalleryPhoto[]
   return (
     <div className="space-y-3">
       <div className="relative overflow-hidden rounded-panel border border-rule bg-sunk shadow-panel">
-        <a href={photo.zoomUrl} onClick={open} className="block cursor-zoom-in" tabIndex={-1} aria-hidden="true">
-          <img
-            src={photo.listingUrl}
-            alt={photo.alt}
-            width={photo.width}
-            height={photo.height}
-            className="aspect-[4/3] w-full object-cover"
-            fetchPriority={index === 0 ? "high" : undefined}
-          />
-        </a>
+        {/* A click on the photo zooms too; keyboard users have the Zoom link (one tab stop, not two). */}
+        <img
+          src={photo.listingUrl}
+          alt={photo.alt}
+          width={photo.width}
+          height={photo.height}
+          onClick={open}
+          className="aspect-[4/3] w-full cursor-zoom-in object-cover"
+          fetchPriority={index === 0 ? "high" : undefined}
+        />
         <a
           ref={zoomButton}
           href={photo.zoomUrl}
@@ -86,10 +93,7 @@ export function Gallery({ photos, initial = 0, title }: { photos: GalleryPhoto[]
           photos={photos}
           index={index}
           onIndex={setIndex}
-          onClose={() => {
-            setZoomOpen(false);
-            zoomButton.current?.focus();
-          }}
+          onClose={() => setZoomOpen(false)}
         />
       ) : null}
     </div>
@@ -113,10 +117,11 @@ function ZoomDialog({
   const [focusPoint, setFocusPoint] = useState<{ x: number; y: number } | null>(null);
   const photo = photos[index];
 
+  // No close() on cleanup: unmounting takes the dialog out of the top layer, and a close() here would
+  // fire onClose during React's development double-mount and shut the dialog it just opened.
   useEffect(() => {
     const d = dialog.current;
     if (d && !d.open) d.showModal();
-    return () => d?.close();
   }, []);
 
   // After switching to actual size, scroll so the point that was clicked sits in the middle.

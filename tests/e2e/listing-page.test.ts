@@ -1,0 +1,116 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { launchBrowser, newContext, screenshot } from "./support/browser";
+import { DEMO, DEMO_PASSWORD, submitSignIn } from "./support/accounts";
+
+// A buyer finds the seeded, bench-verified Carrowain CA-460 in the market and reads its page: the mark,
+// the key figures with units, plots drawn from its captures, photos from object storage and the zoom;
+// then signs in from the page and watches it.
+
+async function openDemoAmplifier(page: Page): Promise<string> {
+  await page.goto("/market?category=integrated-amplifiers");
+  await page.getByRole("link", { name: "Carrowain CA-460" }).click();
+  await page.waitForURL(/\/listings\/[0-9a-f-]{36}$/);
+  await page.getByRole("heading", { level: 1, name: "Carrowain CA-460" }).waitFor();
+  return new URL(page.url()).pathname;
+}
+
+describe("the listing page", () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("shows a bench-verified amplifier with its figures, plots, photos and zoom", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    await openDemoAmplifier(page);
+
+    expect(await page.getByText("Bench-verified", { exact: true }).first().isVisible()).toBe(true);
+
+    // Key figures lead, each with its unit and conditions.
+    const power8 = page.locator('[data-figure="power8"]');
+    expect(await power8.textContent()).toMatch(/Power into 8 Ω\s*65\s*W\s*into 8 Ω, 1 kHz, 0\.1 % THD/);
+    expect(await page.locator('[data-figure="power4"]').textContent()).toMatch(/96\s*W\s*into 4 Ω/);
+    expect(await page.locator('[data-figure="distortion"]').textContent()).toMatch(/\d\.\d+\s*%.*at 60 W/);
+
+    // Plots: drawn in the browser as SVG, with labelled axes.
+    await page.locator(".chart svg.recharts-surface").first().waitFor();
+    expect(await page.locator(".chart svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
+    expect(await page.getByRole("figure", { name: /Harmonic spectrum/ }).locator("svg").first().isVisible()).toBe(true);
+    expect(await page.getByText("dB re fundamental").first().isVisible()).toBe(true);
+    expect(await page.getByText("Frequency (Hz)").first().isVisible()).toBe(true);
+
+    // Photos come from the media route, which streams them from object storage.
+    const cover = page.getByRole("img", { name: /Carrowain CA-460, photo 1 of/ }).first();
+    const src = await cover.getAttribute("src");
+    expect(src).toMatch(/^\/media\/photos\/listing\//);
+    const res = await page.request.get(src!);
+    expect(res.status()).toBe(200);
+    expect(res.headers()["content-type"]).toBe("image/jpeg");
+    expect(await cover.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBeGreaterThan(0);
+    await screenshot(page, "listing-page-1280");
+
+    // Zoom opens a dialog on the zoom size; the keyboard steps through photos and Esc closes it.
+    const zoom = page.getByRole("link", { name: /^Zoom/ });
+    await zoom.focus();
+    await page.keyboard.press("Enter");
+    const dialog = page.getByRole("dialog");
+    await dialog.waitFor();
+    const zoomed = dialog.getByRole("img");
+    expect(await zoomed.getAttribute("src")).toMatch(/^\/media\/photos\/zoom\//);
+    await page.waitForFunction(() => (document.querySelector("dialog img") as HTMLImageElement | null)?.naturalWidth! > 0);
+    expect(await dialog.getByText("Photo 1 of 2").isVisible()).toBe(true);
+    await page.keyboard.press("ArrowRight");
+    await dialog.getByText("Photo 2 of 2").waitFor();
+    await screenshot(page, "listing-page-zoom");
+    await page.keyboard.press("Escape");
+    await dialog.waitFor({ state: "detached" });
+    // Focus goes back to where the visitor was.
+    expect(await page.evaluate(() => document.activeElement?.tagName === "A" && document.activeElement.textContent?.trim())).toMatch(/^Zoom/);
+    await context.close();
+  });
+
+  it("lets a buyer sign in from the page and watch the unit", async () => {
+    const context = await newContext(browser, { viewport: { width: 375, height: 812 } });
+    const page = await context.newPage();
+    const path = await openDemoAmplifier(page);
+    await page.getByRole("link", { name: "Sign in to watch" }).click();
+    await page.waitForURL("**/sign-in?**");
+    await submitSignIn(page, DEMO.buyer, DEMO_PASSWORD);
+    await page.waitForURL((url) => url.pathname === path);
+
+    const watch = page.getByRole("button", { name: /Watch this unit|Watching/ });
+    // Leave the demo as found, whatever an earlier run did.
+    if ((await watch.getAttribute("aria-pressed")) === "true") {
+      await watch.click();
+      await page.getByRole("button", { name: "Watch this unit" }).waitFor();
+    }
+    await page.getByRole("button", { name: "Watch this unit" }).click();
+    const watching = page.getByRole("button", { name: "Watching" });
+    await watching.waitFor();
+    expect(await watching.getAttribute("aria-pressed")).toBe("true");
+    await screenshot(page, "listing-page-375-watching");
+
+    // It is stored, not just shown: a fresh load still says so.
+    await page.reload();
+    await page.getByRole("button", { name: "Watching" }).waitFor();
+    await page.getByRole("button", { name: "Watching" }).click();
+    await page.getByRole("button", { name: "Watch this unit" }).waitFor();
+    await page.reload();
+    expect(await page.getByRole("button", { name: "Watch this unit" }).getAttribute("aria-pressed")).toBe("false");
+    await context.close();
+  });
+
+  it("answers a listing that is not there with a 404 page", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    const res = await page.goto("/listings/3f1b7a9e-0000-4000-8000-000000000000");
+    expect(res?.status()).toBe(404);
+    await page.getByRole("link", { name: "Go to the market" }).waitFor();
+    await context.close();
+  });
+});
