@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { launchBrowser, newContext, screenshot } from "./support/browser";
+import { baseUrl, launchBrowser, newContext, screenshot, uniqueEmail } from "./support/browser";
 import { DEMO, signIn, submitSignIn } from "./support/accounts";
 
 // The review desk is for moderators, the accounts page for admins. Others get a 403 page; visitors
@@ -66,4 +66,33 @@ describe("role-only pages", () => {
     await expectForbidden(page, "/admin/users");
     await context.close();
   });
+
+  it("lets an admin grant the moderator role, which opens the desk at once", async () => {
+    // A fresh account, made the quick way (Loadline ID).
+    const email = uniqueEmail("promoted");
+    const person = await newContext(browser);
+    const page = await person.newPage();
+    await page.goto("/sign-in");
+    await page.getByRole("button", { name: "Sign in with Loadline ID" }).click();
+    await page.waitForURL(/\/authorize\?/);
+    await page.getByLabel("E-mail address").fill(email);
+    await page.getByRole("button", { name: "Continue" }).click();
+    await page.waitForURL((url) => url.origin === new URL(baseUrl()).origin && url.pathname === "/");
+    await expectForbidden(page, "/desk");
+
+    const admin = await newContext(browser);
+    const adminPage = await admin.newPage();
+    await signIn(adminPage, DEMO.admin);
+    await adminPage.goto(`/admin/users?q=${encodeURIComponent(email)}`);
+    const row = adminPage.getByRole("listitem", { name: email });
+    await row.getByRole("checkbox", { name: "Moderator" }).check();
+    await row.getByRole("button", { name: "Save roles" }).click();
+    await row.getByText("Roles of").waitFor();
+    expect(await row.getByRole("checkbox", { name: "Moderator" }).isChecked()).toBe(true);
+
+    await page.goto("/desk");
+    await page.getByRole("heading", { name: "Review desk" }).waitFor();
+    await admin.close();
+    await person.close();
+  }, 180_000);
 });
