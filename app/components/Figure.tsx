@@ -22,7 +22,7 @@ export function Figure({
 }) {
   return (
     <div className={cx("min-w-0", className)}>
-      {label ? <div className="text-[0.6875rem] font-semibold uppercase tracking-[0.12em] text-ink-faint">{label}</div> : null}
+      {label ? <div className="mb-0.5 text-[0.6875rem] font-semibold uppercase tracking-[0.1em] text-ink-faint">{label}</div> : null}
       <div className="flex flex-wrap items-baseline gap-x-2 gap-y-0.5">
         <span
           className={cx(

@@ -15,7 +15,7 @@ export function ListingCard({ listing, href, className }: { listing: ListingSumm
   return (
     <article
       className={cx(
-        "group relative flex flex-col overflow-hidden rounded-panel border border-rule bg-card shadow-panel transition-shadow",
+        "group relative flex min-w-0 flex-col overflow-hidden rounded-panel border border-rule bg-card shadow-panel transition-shadow",
         "hover:border-rule-strong hover:shadow-[0_2px_0_rgb(31_26_21/0.04),0_6px_18px_rgb(31_26_21/0.08)]",
         "focus-within:border-walnut",
         className,
@@ -52,7 +52,7 @@ export function ListingCard({ listing, href, className }: { listing: ListingSumm
           </h3>
         </div>
         {l.keyFigure ? (
-          <Figure size="sm" value={l.keyFigure.value} unit={l.keyFigure.unit} conditions={l.keyFigure.conditions} />
+          <Figure size="sm" label={l.keyFigure.label} value={l.keyFigure.value} unit={l.keyFigure.unit} conditions={l.keyFigure.conditions} />
         ) : (
           <p className="text-[0.8125rem] text-ink-faint">No bench figures given</p>
         )}

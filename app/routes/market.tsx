@@ -48,9 +48,9 @@ export default function Market({ loaderData }: Route.ComponentProps) {
         </span>
       </p>
       {items.length ? (
-        <ul className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
+        <ul className="grid grid-cols-1 gap-5 sm:grid-cols-2 lg:grid-cols-3">
           {items.map((l) => (
-            <li key={l.id} className="flex">
+            <li key={l.id} className="flex min-w-0">
               <ListingCard listing={l} href={`/listings/${l.id}`} className="w-full" />
             </li>
           ))}

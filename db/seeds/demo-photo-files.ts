@@ -1,4 +1,6 @@
 import { mkdir, readFile, writeFile } from "node:fs/promises";
+import os from "node:os";
+import { Worker } from "node:worker_threads";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { Jimp } from "jimp";
@@ -9,7 +11,7 @@ import { drawUnit } from "./demo-photos";
 // The demo's photo files: drawn once, encoded as the photo pipeline would store them, and kept in a
 // git-ignored cache so a fresh test database seeds in seconds. Bump GENERATION when the drawing changes.
 
-const GENERATION = 4;
+const GENERATION = 6;
 const here = path.dirname(fileURLToPath(import.meta.url));
 const CACHE = path.resolve(here, "../../.local/cache/demo-photos", `g${GENERATION}`);
 
@@ -25,7 +27,60 @@ export interface DemoPhotoFiles {
   phash: string;
 }
 
-export async function demoPhotoFiles(category: Category, key: string, view: number): Promise<DemoPhotoFiles> {
+export interface PhotoJob {
+  category: Category;
+  key: string;
+  view: number;
+}
+
+/**
+ * The files for many photos, drawn on up to two worker threads (drawing and JPEG encoding are pure
+ * CPU); falls back to this thread where workers cannot start.
+ */
+export async function drawDemoPhotos(jobs: PhotoJob[]): Promise<DemoPhotoFiles[]> {
+  const out: DemoPhotoFiles[] = new Array(jobs.length);
+  const todo: number[] = [];
+  for (const [i, job] of jobs.entries()) {
+    const hit = await cached(job.key, job.view);
+    if (hit) out[i] = hit;
+    else todo.push(i);
+  }
+  const threads = Math.min(2, os.availableParallelism(), todo.length);
+  if (threads < 2) {
+    for (const i of todo) out[i] = await demoPhotoFiles(jobs[i].category, jobs[i].key, jobs[i].view);
+    return out;
+  }
+  // The worker is TypeScript: register tsx's loader in the new thread before importing it.
+  const entry = new URL("./demo-photo-worker.ts", import.meta.url).href;
+  const boot = `import("tsx/esm/api").then(({ register }) => { register(); return import(${JSON.stringify(entry)}); })`;
+  const workers = Array.from({ length: threads }, () => new Worker(boot, { eval: true }));
+  try {
+    await Promise.all(
+      workers.map(async (worker) => {
+        while (todo.length) {
+          const i = todo.shift()!;
+          out[i] = await new Promise<DemoPhotoFiles>((resolve, reject) => {
+            const onMessage = (msg: { id: number; files?: DemoPhotoFiles; error?: string }) => {
+              if (msg.id !== i) return;
+              worker.off("message", onMessage);
+              worker.off("error", reject);
+              if (msg.error) reject(new Error(msg.error));
+              else resolve({ ...msg.files!, full: Buffer.from(msg.files!.full), thumb: Buffer.from(msg.files!.thumb) });
+            };
+            worker.on("message", onMessage);
+            worker.once("error", reject);
+            worker.postMessage({ id: i, ...jobs[i] });
+          });
+        }
+      }),
+    );
+  } finally {
+    await Promise.all(workers.map((w) => w.terminate()));
+  }
+  return out;
+}
+
+async function cached(key: string, view: number): Promise<DemoPhotoFiles | null> {
   const base = path.join(CACHE, `${key}-${view}`);
   try {
     const [full, thumb, meta] = await Promise.all([
@@ -35,8 +90,14 @@ export async function demoPhotoFiles(category: Category, key: string, view: numb
     ]);
     return { full, thumb, ...(JSON.parse(meta) as { width: number; height: number; phash: string }) };
   } catch {
-    // Not cached yet.
+    return null; // not drawn yet
   }
+}
+
+export async function demoPhotoFiles(category: Category, key: string, view: number): Promise<DemoPhotoFiles> {
+  const hit = await cached(key, view);
+  if (hit) return hit;
+  const base = path.join(CACHE, `${key}-${view}`);
   const cv = drawUnit(category, key, view);
   const bitmap = { data: Buffer.from(cv.data.buffer, cv.data.byteOffset, cv.data.byteLength), width: cv.width, height: cv.height };
   const small = shrink(bitmap, THUMB.width, THUMB.height);

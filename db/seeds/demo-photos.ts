@@ -56,16 +56,42 @@ function setting(cv: Canvas, r: Rand, horizon: number) {
   const beamSlant = between(r, -0.6, 0.6);
   const beamStrength = between(r, 0.06, 0.2);
   const sideDark = between(r, -0.16, 0.16);
-  cv.paint(0, 0, cv.width, horizon, (u, v, x, y) => {
-    const glow = Math.max(0, 1 - Math.hypot(x - lightX, y - lightY) / (cv.width * 0.7));
-    const bx = x - beamX - y * beamSlant;
-    const beam = Math.max(0, 1 - Math.abs(bx) / beamW) ** 2;
-    return shade(mix(wall, shade(wall, -0.14), v), glow * 0.3 + beam * beamStrength - Math.max(0, sideDark * (u - 0.5) * 2));
-  });
-  cv.paint(0, horizon, cv.width, cv.height - horizon, (u, v, x, y) => {
-    const g = Math.sin(y * grainFreq * 3 + Math.sin(x * 0.004 + seedPhase) * 2.2) * grain;
-    return shade(mix(shade(table, 0.1), shade(table, -0.22), v), g - Math.max(0, sideDark * (u - 0.5) * 2));
-  });
+  // Written straight into the buffer: this covers every pixel, so no per-pixel closures or arrays.
+  const d = cv.data;
+  const W = cv.width;
+  const reach = cv.width * 0.7;
+  for (let y = 0; y < cv.height; y++) {
+    const onWall = y < horizon;
+    const v = onWall ? y / horizon : (y - horizon) / (cv.height - horizon);
+    // Base colour for the row: the wall darkens towards the table, the table towards the camera.
+    const base = onWall ? shade(wall, -0.14 * v) : shade(table, 0.1 - 0.32 * v);
+    const grainRow = y * grainFreq * 3;
+    for (let x = 0; x < W; x++) {
+      const u = x / W;
+      let f = -Math.max(0, sideDark * (u - 0.5) * 2);
+      if (onWall) {
+        const dx = x - lightX;
+        const dy = y - lightY;
+        const glow = 1 - Math.sqrt(dx * dx + dy * dy) / reach;
+        if (glow > 0) f += glow * 0.3;
+        const bx = Math.abs(x - beamX - y * beamSlant) / beamW;
+        if (bx < 1) f += (1 - bx) * (1 - bx) * beamStrength;
+      } else {
+        f += Math.sin(grainRow + Math.sin(x * 0.004 + seedPhase) * 2.2) * grain;
+      }
+      const i = (y * W + x) * 4;
+      if (f >= 0) {
+        d[i] = base[0] + (255 - base[0]) * f;
+        d[i + 1] = base[1] + (255 - base[1]) * f;
+        d[i + 2] = base[2] + (255 - base[2]) * f;
+      } else {
+        d[i] = base[0] * (1 + f);
+        d[i + 1] = base[1] * (1 + f);
+        d[i + 2] = base[2] * (1 + f);
+      }
+      d[i + 3] = 255;
+    }
+  }
   cv.paint(0, horizon - 2, cv.width, 4, () => shade(table, -0.35), 0.6);
 }
 
@@ -258,8 +284,10 @@ function loudspeakers(cv: Canvas, r: Rand, p: Rand, horizon: number) {
   const pair = r() < 0.75;
   const floor = r() < 0.4;
   const cw = cv.width * (floor ? between(r, 0.19, 0.23) : between(r, 0.23, 0.29));
-  const ch = floor ? cv.height * between(r, 0.72, 0.8) : cw * between(r, 1.35, 1.7);
+  const wanted = floor ? cv.height * between(r, 0.72, 0.8) : cw * between(r, 1.35, 1.7);
   const bottom = horizon + cv.height * between(p, 0.08, 0.16);
+  // Tall cabinets stay inside the frame, with a little wall above them.
+  const ch = Math.min(wanted, bottom - cv.height * 0.06);
   const veneer = choose(r, [...WOODS, hex("#2a2724")]);
   const baffle = r() < 0.5 ? shade(veneer, -0.35) : hex(choose(r, ["#1e1c1a", "#d9d0c0", "#3a3631"]));
   const grille = r() < 0.35;

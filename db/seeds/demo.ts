@@ -8,8 +8,16 @@ import { checkBenchSheet } from "@shared/bench/verdict";
 import { benchSheetSchema } from "@shared/bench/schema";
 import { ShippingOptionsSchema, type ShippingOption } from "@shared/catalogue";
 import { listingFacets, publishState } from "@shared/listing-facets";
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES, type AccountKey, type DemoUnit } from "./demo-data";
-import { demoPhotoFiles } from "./demo-photo-files";
+import {
+  DEMO_ACCOUNTS,
+  DEMO_PASSWORD,
+  DEMO_UNITS,
+  DEMO_WORKSHOPS,
+  SELLER_PLACES,
+  type AccountKey,
+  type DemoUnit,
+} from "./demo-data";
+import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 
 // Loads the invented demo scenario. Idempotent: accounts are matched by e-mail, workshops by slug and
@@ -83,29 +91,51 @@ interface UploadedPhoto {
 }
 
 async function uploadPhotos(units: DemoUnit[]): Promise<{ serial: string; photos: UploadedPhoto[] }[]> {
-  const out: { serial: string; photos: UploadedPhoto[] }[] = [];
-  for (const unit of units) {
-    const photos: UploadedPhoto[] = [];
-    for (let view = 0; view < (unit.photos ?? 1); view++) {
-      const files = await demoPhotoFiles(unit.category, unit.serial, view);
-      const keys = {
-        originalKey: randomKey(photoKeyPrefix("original"), "jpg"),
-        thumbKey: randomKey(photoKeyPrefix("thumb"), "jpg"),
-        listingKey: randomKey(photoKeyPrefix("listing"), "jpg"),
-        zoomKey: randomKey(photoKeyPrefix("zoom"), "jpg"),
-      };
-      const jpeg = { contentType: "image/jpeg" };
-      await Promise.all([
-        putObject(keys.originalKey, files.full, jpeg),
-        putObject(keys.thumbKey, files.thumb, jpeg),
-        putObject(keys.listingKey, files.full, jpeg),
-        putObject(keys.zoomKey, files.full, jpeg),
-      ]);
-      photos.push({ ...keys, width: files.width, height: files.height, phash: files.phash, byteSize: files.full.length });
+  const jobs = units.flatMap((u) =>
+    Array.from({ length: u.photos ?? 1 }, (_, view) => ({ category: u.category, key: u.serial, view })),
+  );
+  const files = await drawDemoPhotos(jobs);
+  const bySerial = new Map<string, UploadedPhoto[]>(units.map((u) => [u.serial, []]));
+  const jpeg = { contentType: "image/jpeg" };
+  const written: string[] = [];
+  const put = async (key: string, body: Buffer) => {
+    await putObject(key, body, jpeg);
+    written.push(key);
+  };
+  try {
+    // A few uploads at a time: enough to keep the connection busy, few enough for the local stand-in.
+    for (let start = 0; start < jobs.length; start += 6) {
+      await Promise.all(
+        jobs.slice(start, start + 6).map(async (job, k) => {
+          const f = files[start + k];
+          const keys = {
+            originalKey: randomKey(photoKeyPrefix("original"), "jpg"),
+            thumbKey: randomKey(photoKeyPrefix("thumb"), "jpg"),
+            listingKey: randomKey(photoKeyPrefix("listing"), "jpg"),
+            zoomKey: randomKey(photoKeyPrefix("zoom"), "jpg"),
+          };
+          await Promise.all([
+            put(keys.originalKey, f.full),
+            put(keys.thumbKey, f.thumb),
+            put(keys.listingKey, f.full),
+            put(keys.zoomKey, f.full),
+          ]);
+          bySerial.get(job.key)![job.view] = {
+            ...keys,
+            width: f.width,
+            height: f.height,
+            phash: f.phash,
+            byteSize: f.full.length,
+          };
+        }),
+      );
     }
-    out.push({ serial: unit.serial, photos });
+  } catch (error) {
+    // Nothing half-made: photos uploaded before the failure would belong to no listing.
+    await deleteObjects(written).catch(() => undefined);
+    throw error;
   }
-  return out;
+  return [...bySerial].map(([serial, photos]) => ({ serial, photos }));
 }
 
 async function ensureAccounts(t: Transaction): Promise<{ ids: Record<AccountKey, string>; created: boolean }> {
@@ -120,7 +150,14 @@ async function ensureAccounts(t: Transaction): Promise<{ ids: Record<AccountKey,
     }
     hash ??= await hashPassword(DEMO_PASSWORD);
     const user = await User.create(
-      { email: a.email, displayName: a.displayName, roles: a.roles, passwordHash: hash, emailVerifiedAt: new Date(), lastSignInAt: null },
+      {
+        email: a.email,
+        displayName: a.displayName,
+        roles: a.roles,
+        passwordHash: hash,
+        emailVerifiedAt: new Date(),
+        lastSignInAt: null,
+      },
       { transaction: t },
     );
     ids[a.key] = user.id;
@@ -166,7 +203,11 @@ function shippingFor(unit: DemoUnit, town: string): ShippingOption[] {
   if (kg < 25) {
     options.push({
       method: "parcel",
-      prices: { domestic: pence(12 + kg * 1.2), nearby: pence(35 + kg * 2.5), ...(kg < 12 ? { worldwide: pence(80 + kg * 6) } : {}) },
+      prices: {
+        domestic: pence(12 + kg * 1.2),
+        nearby: pence(35 + kg * 2.5),
+        ...(kg < 12 ? { worldwide: pence(80 + kg * 6) } : {}),
+      },
     });
   }
   if (kg >= 15) options.push({ method: "freight", prices: { domestic: pence(85 + kg * 1.5), nearby: pence(160 + kg * 3) } });
