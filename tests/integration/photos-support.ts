@@ -56,7 +56,7 @@ async function call(run: () => Promise<unknown>): Promise<Response> {
 
 export function uploadRequest(listingId: string, file: Uint8Array, name: string, cookie?: string): Request {
   const form = new FormData();
-  form.append("photo", new Blob([file], { type: "image/jpeg" }), name);
+  form.append("photo", new Blob([new Uint8Array(file)], { type: "image/jpeg" }), name);
   return new Request(`${BASE}/api/v1/listings/${listingId}/photos`, {
     method: "POST",
     body: form,

@@ -90,8 +90,8 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
 
     const two = new FormData();
     const jpeg = await twoToneJpeg(64, 48);
-    two.append("photo", new Blob([jpeg]), "a.jpg");
-    two.append("photo", new Blob([jpeg]), "b.jpg");
+    two.append("photo", new Blob([new Uint8Array(jpeg)]), "a.jpg");
+    two.append("photo", new Blob([new Uint8Array(jpeg)]), "b.jpg");
     const res2 = (await action({
       request: new Request(`http://127.0.0.1/api/v1/listings/${listing.id}/photos`, {
         method: "POST",
