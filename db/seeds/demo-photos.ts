@@ -1,6 +1,5 @@
-import { Jimp } from "jimp";
 import type { Category } from "@shared/catalogue";
-import { Canvas, hex, mix, prng, resample, shade, type RGB } from "./raster";
+import { Canvas, hex, mix, prng, shade, type RGB } from "./raster";
 
 // Product pictures for the demo scenario, drawn from scratch: a front panel with knobs and meters for
 // electronics, a plinth and platter for turntables, cabinets with drivers for loudspeakers. Every
@@ -329,30 +328,4 @@ function driver(cv: Canvas, x: number, y: number, rad: number) {
   cv.ellipse(x, y, rad, rad, (u, v) => shade(hex("#3a3633"), 0.15 - 0.15 * (u + v)));
   cv.ellipse(x, y, rad * 0.84, rad * 0.84, (u, v) => shade(hex("#26221f"), 0.1 * Math.hypot(u, v) - 0.05 * (u + v)));
   cv.ellipse(x, y, rad * 0.3, rad * 0.3, (u, v) => shade(hex("#4a4440"), 0.25 - 0.2 * (u + v)));
-}
-
-export interface PhotoSet {
-  zoom: Buffer;
-  listing: Buffer;
-  thumb: Buffer;
-  width: number;
-  height: number;
-  phash: string;
-}
-
-export const SIZES = { zoom: [PHOTO_W, PHOTO_H], listing: [640, 480], thumb: [320, 240] } as const;
-
-/** The three sizes the site shows (JPEG) and the picture's perceptual hash (from the thumbnail). */
-export async function renderSizes(cv: Canvas): Promise<PhotoSet> {
-  const full = { x: 0, y: 0, w: cv.width, h: cv.height };
-  const encode = async (data: Uint8Array, width: number, height: number, quality: number) => {
-    const image = new Jimp({ width, height, data: Buffer.from(data.buffer, data.byteOffset, data.byteLength) });
-    return { image, jpeg: await image.getBuffer("image/jpeg", { quality }) };
-  };
-  const zoom = await encode(cv.data, cv.width, cv.height, 84);
-  const [lw, lh] = SIZES.listing;
-  const listing = await encode(resample(cv.data, cv.width, full, lw, lh), lw, lh, 82);
-  const [tw, th] = SIZES.thumb;
-  const thumb = await encode(resample(cv.data, cv.width, full, tw, th), tw, th, 80);
-  return { zoom: zoom.jpeg, listing: listing.jpeg, thumb: thumb.jpeg, width: cv.width, height: cv.height, phash: thumb.image.pHash() };
 }
