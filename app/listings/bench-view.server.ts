@@ -32,6 +32,14 @@ function verdictFor(row: BenchSheetRow, sheet: BenchSheet): Verdict {
   return checkBenchSheet(sheet);
 }
 
+const dayFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
+/** "2025-03-14" → "14 March 2025"; anything else as written. */
+function dayText(iso: string): string {
+  const d = new Date(`${iso}T00:00:00Z`);
+  return /^\d{4}-\d{2}-\d{2}$/.test(iso) && !Number.isNaN(d.getTime()) ? dayFormat.format(d) : iso;
+}
+
 /** "65" + "W" from "65 W"; "±0.3" + "dB"; a bare number has no unit. */
 function splitDisplay(display: string): { value: string; unit: string } {
   const i = display.indexOf(" ");
@@ -93,7 +101,7 @@ export function benchView(row: BenchSheetRow, sheet: BenchSheet, captures: Map<s
   ]);
   return {
     measuredBy: sheet.measuredBy ?? null,
-    measuredOn: sheet.measuredOn ?? null,
+    measuredOn: sheet.measuredOn ? dayText(sheet.measuredOn) : null,
     notes: sheet.notes ?? null,
     checkedAt: row.checkedAt ? row.checkedAt.toISOString() : null,
     summary: verdict.summary,

@@ -122,7 +122,7 @@ function responses(sheet: BenchSheet): ResponsePlot[] {
       riaa: series.riaa
         ? {
             variant: series.riaa.variant === "riaa_iec" ? "RIAA with the IEC 7950 µs pole" : "RIAA (IEC 60098)",
-            worst: `${formatValue(series.riaa.worstDb, "decibel", { signed: true, sig: 2 })} at ${formatValue(series.riaa.atHz, "frequency")}`,
+            worst: `${formatValue(series.riaa.worstDb, "decibel", { signed: true, sig: 2 }).replace(/^-/, "−")} at ${formatValue(series.riaa.atHz, "frequency")}`,
           }
         : null,
       domain: {

@@ -72,15 +72,15 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
         <OutcomeTally counts={bench.counts} />
       </div>
 
-      <div className="overflow-x-auto rounded-panel border border-rule bg-card shadow-panel">
-        <table className="w-full min-w-[40rem] border-collapse text-sm">
+      <div className="rounded-panel border border-rule bg-card shadow-panel">
+        <table className="w-full border-collapse text-sm">
           <caption className="border-b border-rule px-3 py-2.5 text-left font-serif text-base font-semibold text-ink">
             Readings
             <span className="ml-2 font-sans text-xs font-normal text-ink-faint">
               {bench.readings.length} on the sheet{bench.captureCount ? ` · ${bench.captureCount} from captures` : ""}
             </span>
           </caption>
-          <thead className="bg-sunk/50">
+          <thead className="bg-sunk/50 max-md:hidden">
             <tr>
               <th scope="col" className={th}>What</th>
               <th scope="col" className={th}>Value</th>
@@ -90,19 +90,20 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
           </thead>
           <tbody>
             {bench.readings.map((r) => (
-              <tr key={r.ref} className="border-t border-rule/70" data-ref={r.ref}>
-                <th scope="row" className="px-3 py-2 text-left align-top font-medium text-ink">
+              // On a phone each reading is a small card: what and value on one line, then conditions and source.
+              <tr key={r.ref} className="border-t border-rule/70 max-md:grid max-md:grid-cols-[1fr_auto] max-md:gap-x-3 max-md:px-3 max-md:py-2.5" data-ref={r.ref}>
+                <th scope="row" className="px-3 py-2 text-left align-top font-medium text-ink max-md:p-0">
                   {r.quantity}
                   {r.channel ? <span className="block text-xs font-normal text-ink-faint">{r.channel}</span> : null}
                 </th>
-                <td className="figures whitespace-nowrap px-3 py-2 align-top text-ink">{r.value}</td>
-                <td className="px-3 py-2 align-top text-ink-soft">
-                  {r.conditions || <span className="text-ink-faint">not given</span>}
+                <td className="figures whitespace-nowrap px-3 py-2 align-top text-ink max-md:p-0 max-md:text-right">{r.value}</td>
+                <td className="px-3 py-2 align-top text-ink-soft max-md:col-span-2 max-md:p-0 max-md:pt-1 max-md:text-[0.8125rem]">
+                  {r.conditions || <span className="text-ink-faint">conditions not given</span>}
                   {r.note ? <span className="block text-xs text-ink-faint">{r.note}</span> : null}
                 </td>
-                <td className="px-3 py-2 align-top">
+                <td className="px-3 py-2 align-top max-md:col-span-2 max-md:p-0 max-md:pt-1">
                   {r.fromCapture ? (
-                    <span className="space-y-0.5">
+                    <span className="space-y-0.5 max-md:flex max-md:flex-wrap max-md:items-center max-md:gap-2 max-md:space-y-0">
                       <CaptureTag />
                       <span className="block text-xs text-ink-faint">{r.captureNote}</span>
                     </span>

@@ -122,6 +122,29 @@ export function PriceAndCondition({ listing }: { listing: ListingHead }) {
   );
 }
 
+/** The seller's way to their editor, and the desk's way back to its queue; both pages exist. */
+export function OwnerLinks({ listing, viewer }: { listing: ListingHead; viewer: ViewerState }) {
+  const editable = listing.status !== "sold" && listing.status !== "removed";
+  if (viewer.isSeller && editable) {
+    return (
+      <div className="flex flex-wrap items-center gap-3">
+        <ButtonLink to={`/sell/${listing.id}`} variant="secondary">
+          Edit this listing
+        </ButtonLink>
+        <p className="text-xs text-ink-faint">This is your listing; buyers see it as below.</p>
+      </div>
+    );
+  }
+  if (viewer.isModerator && listing.status === "held") {
+    return (
+      <ButtonLink to="/desk" variant="secondary">
+        Back to the review desk
+      </ButtonLink>
+    );
+  }
+  return null;
+}
+
 /** Watch for signed-in buyers (a form, so it works without script); a sign-in link for visitors. */
 export function WatchControl({ listing, viewer }: { listing: ListingHead; viewer: ViewerState }) {
   const fetcher = useFetcher<{ watching?: boolean; reason?: string }>();

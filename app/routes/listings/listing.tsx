@@ -9,7 +9,7 @@ import { loadListingPage } from "~/listings/public.server";
 import { setWatch } from "~/listings/watch.server";
 import { BenchSheetSection, KeyFigures } from "~/listings/ui/BenchSheetSection";
 import { Gallery } from "~/listings/ui/Gallery";
-import { ListingTitle, PriceAndCondition, StatusBanner, WatchControl } from "~/listings/ui/ListingHeader";
+import { ListingTitle, OwnerLinks, PriceAndCondition, StatusBanner, WatchControl } from "~/listings/ui/ListingHeader";
 import { Plots } from "~/listings/ui/Plots";
 import { RestorationLog } from "~/listings/ui/RestorationLog";
 import { SafetyCautions, SellerCard, ShippingPanel } from "~/listings/ui/SidePanels";
@@ -82,6 +82,7 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
           <ListingTitle listing={listing} />
           <PriceAndCondition listing={listing} />
           <WatchControl listing={listing} viewer={viewer} />
+          <OwnerLinks listing={listing} viewer={viewer} />
           <div className="border-t border-rule pt-5">
             <KeyFigures figures={keyFigures} verified={listing.benchVerified} />
           </div>
