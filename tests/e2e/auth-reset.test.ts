@@ -27,6 +27,8 @@ describe("password reset by e-mail", () => {
     const page = await context.newPage();
     await page.goto("/sign-in");
     await page.getByRole("link", { name: "Forgotten your password?" }).click();
+    // Wait for the new page: the sign-in form has an "E-mail address" field too.
+    await page.getByRole("heading", { name: "Forgotten your password?" }).waitFor();
     await page.getByLabel("E-mail address").fill(email);
     await page.getByRole("button", { name: "Send me a link" }).click();
     await page.getByText(`If a Loadline account uses ${email}`).waitFor();

@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { onTestFailed } from "vitest";
 
 // Headless Debian Chromium for the browser suites. The app's address comes from the test runner
 // (E2E_BASE_URL); nothing here starts servers.
@@ -36,6 +37,12 @@ export async function newContext(
   });
   context.setDefaultTimeout(30_000);
   context.setDefaultNavigationTimeout(30_000);
+  // When the test that made this context fails, keep a picture of each of its pages.
+  onTestFailed(async ({ task }) => {
+    for (const [i, page] of context.pages().entries()) {
+      await screenshot(page, `FAILED-${task.name.slice(0, 60)}-${i}`).catch(() => undefined);
+    }
+  });
   return context;
 }
 
