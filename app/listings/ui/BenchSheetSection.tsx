@@ -193,7 +193,7 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
                 {bench.derived.map((d, i) => (
                   <div key={i} className="flex items-baseline justify-between gap-3">
                     <dt>{d.label}</dt>
-                    <dd className="figures text-ink">{d.display}</dd>
+                    <dd className="figures whitespace-nowrap text-ink">{d.display.replace(/^-/, "−")}</dd>
                   </div>
                 ))}
               </dl>
