@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState, type DragEvent } from "react";
+import { useEffect, useId, useLayoutEffect, useRef, useState, type DragEvent } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { PHOTO_LIMITS, formatBytes, type PhotoListView, type PhotoView } from "~/photos/limits";
 import {
@@ -9,11 +9,11 @@ import {
   moveId,
   photosQueryKey,
   planSelection,
-  sendPhoto,
   type ArrangeBody,
 } from "~/photos/client";
 import { Button } from "./Button";
 import { PhotoTile, PHOTO_DRAG_TYPE } from "./photo-tile";
+import { UploadRow, useUploadQueue } from "./photo-upload-queue";
 import { cx } from "./cx";
 
 // The photo part of the seller's listing editor: choose or drop up to 24 JPEG/PNG files at once;
@@ -26,40 +26,22 @@ export interface PhotoUploaderProps {
   initialPhotos?: PhotoView[];
   /** Told whenever the server's list of photos changes. */
   onChange?: (photos: PhotoView[]) => void;
+  /** The heading above the drop zone; null when the page already titles this part. */
+  title?: string | null;
   className?: string;
 }
 
-type UploadState = "waiting" | "uploading" | "sent" | "refused";
-interface UploadItem {
-  key: string;
-  file: File;
-  state: UploadState;
-  loaded: number;
-  total: number;
-  message?: string;
-  photoId?: string;
-}
-
-/**
- * Files on the wire at once. One: the uplink is the limit anyway, and photos then arrive (and take
- * their places) in the order the seller chose them. The rest wait, each with its own bar.
- */
-const PARALLEL = 1;
 const POLL_MS = 1500;
 
-export function PhotoUploader({ listingId, initialPhotos, onChange, className }: PhotoUploaderProps) {
+export function PhotoUploader({ listingId, initialPhotos, onChange, title = "Photos", className }: PhotoUploaderProps) {
   const queryClient = useQueryClient();
   const queryKey = photosQueryKey(listingId);
   const inputId = useId();
   const hintId = useId();
   const inputRef = useRef<HTMLInputElement>(null);
   const gridRef = useRef<HTMLOListElement>(null);
-  const aborts = useRef(new Map<string, () => void>());
-  const started = useRef(new Set<string>());
-  const nextKey = useRef(0);
   // Where keyboard focus goes once the list shows a change: a photo's control at its new place.
   const pendingFocus = useRef<{ photoId: string; action: string; index: number } | "chooser" | null>(null);
-  const [uploads, setUploads] = useState<UploadItem[]>([]);
   const [announcement, setAnnouncement] = useState("");
   const [problem, setProblem] = useState<string | null>(null);
   const [dropping, setDropping] = useState(false);
@@ -78,46 +60,17 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
   const maxPhotos = list?.maxPhotos ?? PHOTO_LIMITS.maxPhotos;
   const maxBytes = list?.maxBytes ?? PHOTO_LIMITS.maxBytes;
 
-  const update = useCallback((key: string, change: Partial<UploadItem>) => {
-    setUploads((all) => all.map((u) => (u.key === key ? { ...u, ...change } : u)));
-  }, []);
-
-  // Start waiting files, a few at a time.
-  useEffect(() => {
-    const active = uploads.filter((u) => u.state === "uploading").length;
-    const ready = uploads.filter((u) => u.state === "waiting" && !started.current.has(u.key));
-    for (const item of ready.slice(0, Math.max(0, PARALLEL - active))) {
-      started.current.add(item.key);
-      update(item.key, { state: "uploading" });
-      const handle = sendPhoto(listingId, item.file, (loaded, total) => update(item.key, { loaded, total }));
-      aborts.current.set(item.key, handle.abort);
-      void handle.done.then((result) => {
-        aborts.current.delete(item.key);
-        if (result.ok) {
-          update(item.key, { state: "sent", loaded: item.file.size, total: item.file.size, photoId: result.photo.id });
-          void queryClient.invalidateQueries({ queryKey });
-        } else if (result.aborted) {
-          setUploads((all) => all.filter((u) => u.key !== item.key));
-          setAnnouncement(`Upload of ${item.file.name} cancelled.`);
-        } else {
-          update(item.key, { state: "refused", message: result.failure.message });
-          setAnnouncement(`${item.file.name} was not accepted: ${result.failure.message}`);
-          if (result.failure.code === "too_many_photos") void queryClient.invalidateQueries({ queryKey });
-        }
-      });
-    }
-  }, [uploads, listingId, queryClient, queryKey, update]);
-
-  // A sent file's row gives way to its photo once the list shows it.
-  useEffect(() => {
-    const shown = new Set(photos.map((p) => p.id));
-    if (uploads.some((u) => u.state === "sent" && u.photoId && shown.has(u.photoId))) {
-      setUploads((all) => all.filter((u) => !(u.state === "sent" && u.photoId && shown.has(u.photoId))));
-    }
-  }, [photos, uploads]);
-
-  // Stop uploads when the editor goes away.
-  useEffect(() => () => aborts.current.forEach((abort) => abort()), []);
+  const queue = useUploadQueue({
+    listingId,
+    shownIds: photos.map((p) => p.id),
+    onSent: () => void queryClient.invalidateQueries({ queryKey }),
+    onRefused: (file, failure) => {
+      setAnnouncement(`${file.name} was not accepted: ${failure.message}`);
+      if (failure.code === "too_many_photos") void queryClient.invalidateQueries({ queryKey });
+    },
+    onCancelled: (file) => setAnnouncement(`Upload of ${file.name} cancelled.`),
+  });
+  const uploads = queue.items;
 
   // Say when photos finish, and pass the list on.
   const lastStatus = useRef(new Map<string, PhotoView["status"]>());
@@ -186,28 +139,16 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
     },
   });
 
-  const inFlight = uploads.filter((u) => u.state !== "refused").length;
-  const slotsLeft = maxPhotos - photos.length - inFlight;
+  const slotsLeft = maxPhotos - photos.length - queue.pending;
 
   function addFiles(files: File[]) {
     if (files.length === 0) return;
     const plan = planSelection(files, slotsLeft, { maxPhotos, maxBytes });
-    const items: UploadItem[] = files.map((file, i) => {
-      const step = plan[i];
-      return {
-        key: `u${nextKey.current++}`,
-        file,
-        state: step.send ? "waiting" : "refused",
-        loaded: 0,
-        total: file.size,
-        message: step.send ? undefined : step.message,
-      };
-    });
-    setUploads((all) => [...all, ...items]);
-    const sending = items.filter((i) => i.state === "waiting").length;
+    queue.add(files, plan);
+    const sending = plan.filter((p) => p.send).length;
     setAnnouncement(
       `${sending} photo${sending === 1 ? "" : "s"} uploading` +
-        (sending < items.length ? `; ${items.length - sending} not sent (see the list).` : "."),
+        (sending < files.length ? `; ${files.length - sending} not sent (see the list).` : "."),
     );
   }
 
@@ -227,12 +168,18 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
   };
 
   return (
-    <section className={cx("space-y-5", className)} aria-labelledby={`${inputId}-title`}>
+    <section
+      className={cx("space-y-5", className)}
+      aria-labelledby={title ? `${inputId}-title` : undefined}
+      aria-label={title ? undefined : "Photos"}
+    >
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id={`${inputId}-title`} className="text-xl">
-          Photos
-        </h2>
-        <p className="figures text-sm text-ink-soft">
+        {title ? (
+          <h2 id={`${inputId}-title`} className="text-xl">
+            {title}
+          </h2>
+        ) : null}
+        <p className="figures ml-auto text-sm text-ink-soft">
           {photos.length} of {maxPhotos}
         </p>
       </div>
@@ -280,12 +227,8 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
             <UploadRow
               key={u.key}
               item={u}
-              onCancel={() => {
-                const abort = aborts.current.get(u.key);
-                if (abort) abort();
-                else setUploads((all) => all.filter((x) => x.key !== u.key)); // not started yet
-              }}
-              onDismiss={() => setUploads((all) => all.filter((x) => x.key !== u.key))}
+              onCancel={() => queue.cancel(u.key)}
+              onDismiss={() => queue.dismiss(u.key)}
             />
           ))}
         </ul>
@@ -330,53 +273,5 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, className }:
         {announcement}
       </p>
     </section>
-  );
-}
-
-function UploadRow({ item, onCancel, onDismiss }: { item: UploadItem; onCancel: () => void; onDismiss: () => void }) {
-  const percent = item.total > 0 ? Math.round((item.loaded / item.total) * 100) : 0;
-  const refused = item.state === "refused";
-  return (
-    <li
-      className={cx(
-        "rounded-md border px-3 py-2",
-        refused ? "border-fault/35 bg-fault-wash" : "border-rule bg-card",
-      )}
-    >
-      <div className="flex items-center justify-between gap-3">
-        <p className="min-w-0 truncate text-sm font-medium text-ink" title={item.file.name}>
-          {item.file.name}
-          <span className="figures ml-2 font-normal text-ink-faint">{formatBytes(item.file.size)}</span>
-        </p>
-        {item.state === "uploading" || item.state === "waiting" ? (
-          <Button variant="quiet" size="sm" onClick={onCancel} aria-label={`Cancel upload of ${item.file.name}`}>
-            Cancel
-          </Button>
-        ) : refused ? (
-          <Button variant="quiet" size="sm" onClick={onDismiss} aria-label={`Dismiss ${item.file.name}`}>
-            Dismiss
-          </Button>
-        ) : null}
-      </div>
-      {refused ? (
-        <p className="mt-1 text-sm text-fault">{item.message}</p>
-      ) : (
-        <div className="mt-1.5 flex items-center gap-3">
-          <progress
-            className={cx(
-              "h-2 w-full appearance-none overflow-hidden rounded-full bg-sunk",
-              "[&::-webkit-progress-bar]:bg-sunk [&::-webkit-progress-value]:bg-walnut [&::-moz-progress-bar]:bg-walnut",
-              item.state === "sent" && "[&::-webkit-progress-value]:bg-trace [&::-moz-progress-bar]:bg-trace",
-            )}
-            max={100}
-            value={percent}
-            aria-label={`Uploading ${item.file.name}`}
-          />
-          <span className="figures w-24 shrink-0 text-right text-xs text-ink-soft">
-            {item.state === "waiting" ? "waiting" : item.state === "sent" ? "processing" : `${percent} %`}
-          </span>
-        </div>
-      )}
-    </li>
   );
 }
