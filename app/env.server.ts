@@ -38,6 +38,8 @@ const EnvSchema = z
     FAKE_OAUTH_PORT: port.default(4010),
     FAKE_STRIPE_PORT: port.default(12111),
     // Test runs only: bcrypt at its minimum cost so sign-ins in the browser suite stay quick.
+    // Behind a load balancer that sets X-Forwarded-For; otherwise the socket's address is used.
+    TRUST_PROXY: z.enum(["0", "1"], "must be 0 or 1").default("0"),
     LOADLINE_FAST_HASH: z.enum(["0", "1"], "must be 0 or 1").default("0"),
   })
   .superRefine((env, ctx) => {
@@ -71,6 +73,7 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
     appUrl,
     secureCookies: appUrl.startsWith("https://"),
     sessionSecret: raw.SESSION_SECRET ?? "loadline-local-development-secret-not-for-production",
+    trustProxy: raw.TRUST_PROXY === "1",
     passwordHashCost: raw.LOADLINE_FAST_HASH === "1" || raw.NODE_ENV === "test" ? 4 : 12,
     databaseUrl: raw.DATABASE_URL,
     s3: raw.S3_ENDPOINT

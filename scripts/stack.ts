@@ -120,7 +120,8 @@ export async function bringUp(p: Profile, { seed = true, log = console.log } = {
       const result = await seedDemo();
       log(result.created ? "Loaded the demo scenario" : "Demo scenario already loaded");
       lines.push("", "Demo accounts (password: bench-demo-2026)");
-      for (const a of result.accounts) lines.push(`  ${a.role.padEnd(10)} ${a.email}`);
+      const width = Math.max(...result.accounts.map((a) => a.email.length));
+      for (const a of result.accounts) lines.push(`  ${a.email.padEnd(width)}  ${a.role}`);
       suggestions = result.accounts.map((a) => ({ email: a.email, name: `Demo ${a.role}` }));
     }
     const { sequelize } = await import("../app/db.server");

@@ -33,7 +33,7 @@ try {
     console.log("Building the app…");
     const build = launch(bin("react-router"), ["build"], env, true);
     if ((await finished(build)) !== 0) throw new Error("react-router build failed");
-    web = launch(bin("react-router-serve"), ["./build/server/index.js"], {
+    web = launch(bin("tsx"), ["scripts/serve.ts"], {
       ...env,
       NODE_ENV: "production",
       HOST: "127.0.0.1",

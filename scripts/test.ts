@@ -80,7 +80,7 @@ try {
     failures.push("react-router build failed");
   } else {
     const serverEnv = { ...env, NODE_ENV: "production", HOST: "127.0.0.1" };
-    const web = launch(bin("react-router-serve"), ["./build/server/index.js"], serverEnv, true);
+    const web = launch(bin("tsx"), ["scripts/serve.ts"], serverEnv, true);
     children.push(web, launch(bin("tsx"), ["scripts/worker.ts"], env, true));
     const baseUrl = `http://127.0.0.1:${env.PORT}`;
     await waitForHttp(`${baseUrl}/healthz`, 90_000, web);
