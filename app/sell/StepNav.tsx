@@ -1,11 +1,18 @@
-import { NavLink } from "react-router";
+import { useEffect, useRef } from "react";
+import { NavLink, useLocation } from "react-router";
 import { cx } from "~/components/cx";
 import { EDITOR_STEPS, type EditorStep } from "@shared/listing-draft";
 
 /** The editor's steps as numbered tabs; a tick where the step has what publishing needs. */
 export function StepNav({ listingId, done }: { listingId: string; done: Partial<Record<EditorStep, boolean>> }) {
+  const nav = useRef<HTMLElement>(null);
+  const { pathname } = useLocation();
+  // On a phone the tabs scroll sideways: keep the current step in view.
+  useEffect(() => {
+    nav.current?.querySelector('[aria-current="page"]')?.scrollIntoView({ block: "nearest", inline: "center" });
+  }, [pathname]);
   return (
-    <nav aria-label="Listing steps" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+    <nav ref={nav} aria-label="Listing steps" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
       <ol className="flex min-w-max gap-1 border-b border-rule">
         {EDITOR_STEPS.map((s, i) => (
           <li key={s.id}>

@@ -188,8 +188,19 @@ const SUGGESTED: Record<Category, Suggestion[]> = {
 
 /** Blank rows, conditions filled in, for the readings a category needs that the sheet does not have yet. */
 export function suggestedRows(category: Category, existing: SheetRow[]): SheetRow[] {
+  // A reading "covers" a suggestion when it is the same quantity and basis, on that channel (or both), at that load.
+  const covers = (r: SheetRow, s: Suggestion) => {
+    const channel = r.capture?.channel ?? r.channel;
+    const load = r.capture ? text(r.capture.conditions?.loadOhm, "resistance") : r.load;
+    return (
+      r.quantity === s.quantity &&
+      r.basis === (s.basis ?? "measured") &&
+      (channel === (s.channel ?? "") || channel === "both" || s.channel === "both") &&
+      (!s.load || !load || load === s.load)
+    );
+  };
   return SUGGESTED[category]
-    .filter((s) => !existing.some((r) => r.quantity === s.quantity && (r.basis === (s.basis ?? "measured")) && (r.channel || "") === (s.channel ?? "") && (!s.load || r.load === s.load)))
+    .filter((s) => !existing.some((r) => covers(r, s)))
     .map((s, i) => blankRow(`s${i}`, s.basis ?? "measured", s));
 }
 
@@ -206,6 +217,7 @@ export function readSheetForm(form: FormLike, category: Category): SheetFormStat
   };
   const count = Math.min(MAX_ROWS, Math.max(0, Number(get("rows")) || 0));
   const removed = get("remove");
+  const removedCapture = get("removeCapture");
   const rows: SheetRow[] = [];
   for (let i = 0; i < count; i++) {
     if (removed === String(i)) continue;
@@ -233,6 +245,7 @@ export function readSheetForm(form: FormLike, category: Category): SheetFormStat
       } catch {
         continue; // a mangled capture row is dropped; the server rebuilds capture readings from the capture anyway
       }
+      if (removedCapture && row.capture.captureId === removedCapture) continue;
     }
     rows.push(row);
   }

@@ -146,8 +146,8 @@ describe("listing a restored integrated amplifier", () => {
     await page.locator('[data-capture-state="done"]').waitFor({ timeout: 90_000 });
     const fromCapture = page.locator('li[data-origin="capture"]');
     expect(await fromCapture.count()).toBe(12);
-    expect(await fromCapture.filter({ hasText: /THD, left: 0\.011 %/ }).count()).toBe(1);
-    expect(await fromCapture.filter({ hasText: /Output power, left: 66 W into 8 Ω/ }).count()).toBe(1);
+    expect(await fromCapture.filter({ hasText: /THD, left:\s*0\.011 %/ }).count()).toBe(1);
+    expect(await fromCapture.filter({ hasText: /Output power, left:\s*66 W\s*into 8 Ω, 1 kHz/ }).count()).toBe(1);
 
     // The live verdict: every rule consistent, so the sheet earns the mark.
     const verdict = page.locator('[data-verdict="verified"]');

@@ -38,7 +38,7 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
     <article className="space-y-3" aria-label={`Log entry of ${e.doneOn}`}>
       <header className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-base">
-          <time dateTime={e.doneOn} className="figures">
+          <time dateTime={e.doneOn}>
             {new Date(`${e.doneOn}T00:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" })}
           </time>
           {e.technician ? <span className="font-sans text-sm font-normal text-ink-soft"> · {e.technician}</span> : null}

@@ -11,6 +11,7 @@ import { Section } from "../Section";
 import { useAutosave } from "../useAutosave";
 import { BenchCautions } from "./BenchCautions";
 import { CAPTURE_FORM_ID, CapturePanel, type CaptureResult } from "./CapturePanel";
+import { CaptureGroup, type CaptureItem } from "./CaptureGroup";
 import { ReadingRow } from "./ReadingRow";
 import { OutcomeCounts, VerdictPanel } from "./VerdictPanel";
 
@@ -75,6 +76,7 @@ export function BenchSheetEditor({
   const patchRow = (key: string, patch: Partial<SheetRow>) => set((s) => ({ ...s, rows: s.rows.map((r) => (r.key === key ? { ...r, ...patch } : r)) }));
   const removeRow = (key: string) => set((s) => ({ ...s, rows: s.rows.filter((r) => r.key !== key) }));
   const addRow = (basis: SheetRow["basis"]) => set((s) => ({ ...s, rows: [...s.rows, blankRow(`add-${Date.now()}`, basis)] }));
+  const removeCapture = (id: string | undefined) => set((s) => ({ ...s, rows: s.rows.filter((r) => !r.capture || r.capture.captureId !== id) }));
   const setMeta = (patch: Partial<SheetFormState["meta"]>) => set((s) => ({ ...s, meta: { ...s.meta, ...patch } }));
   const foldCapture = (c: CaptureResult) =>
     set((s) => {
@@ -107,25 +109,41 @@ export function BenchSheetEditor({
   const amp = AMPLIFIER_CATEGORIES.includes(state.category);
   const saveErrors = [...(serverErrors ?? []), ...autosave.serverIssues.map((i) => `${i.path.replace(/^benchSheet\./, "")}: ${i.message}`)];
 
-  const group = (basis: SheetRow["basis"]) => (
-    <ol className="space-y-3">
-      {state.rows.map((row, index) =>
-        row.basis === basis ? (
-          <ReadingRow
-            key={row.key}
-            row={row}
-            index={index}
-            label={labels.get(row.key)!}
-            quantities={quantities}
-            result={read.rows[row.key]}
-            outcome={worst.get(row.key)}
-            onChange={(p) => patchRow(row.key, p)}
-            onRemove={() => removeRow(row.key)}
-          />
-        ) : null,
-      )}
-    </ol>
-  );
+  // Typed rows one by one; the readings of one capture together.
+  const group = (basis: SheetRow["basis"]) => {
+    const out: React.ReactNode[] = [];
+    let captured: CaptureItem[] = [];
+    const flush = () => {
+      if (!captured.length) return;
+      const id = captured[0].row.capture!.captureId;
+      out.push(<CaptureGroup key={`capture-${id}-${captured[0].row.key}`} items={captured} onRemove={() => removeCapture(id)} />);
+      captured = [];
+    };
+    state.rows.forEach((row, index) => {
+      if (row.basis !== basis) return;
+      if (row.capture) {
+        if (captured.length && captured[0].row.capture!.captureId !== row.capture.captureId) flush();
+        captured.push({ row, index, label: labels.get(row.key)!, outcome: worst.get(row.key) });
+        return;
+      }
+      flush();
+      out.push(
+        <ReadingRow
+          key={row.key}
+          row={row}
+          index={index}
+          label={labels.get(row.key)!}
+          quantities={quantities}
+          result={read.rows[row.key]}
+          outcome={worst.get(row.key)}
+          onChange={(p) => patchRow(row.key, p)}
+          onRemove={() => removeRow(row.key)}
+        />,
+      );
+    });
+    flush();
+    return <ol className="space-y-3">{out}</ol>;
+  };
 
   return (
     <div className="space-y-5">

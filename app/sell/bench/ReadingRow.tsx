@@ -1,7 +1,7 @@
-import { OutcomeBadge, Badge } from "~/components/Badge";
+import { OutcomeBadge } from "~/components/Badge";
 import { controlClass } from "~/components/Field";
 import { cx } from "~/components/cx";
-import { describeReading, QUANTITY_INFO, WEIGHTING_LABELS, type Outcome, type Quantity } from "@shared/bench";
+import { QUANTITY_INFO, WEIGHTING_LABELS, type Outcome, type Quantity } from "@shared/bench";
 import { CONDITION_FIELDS, FIELD_LABELS, SELECT_FIELDS, type ConditionField, type RowResult, type SheetRow } from "@shared/bench-form/rows";
 import { rowField } from "@shared/bench-form/state";
 
@@ -81,26 +81,6 @@ export function ReadingRow({
     </button>
   );
 
-  if (row.capture) {
-    return (
-      <li id={`reading-${row.key}`} className="flex items-start gap-3 rounded-md border border-trace/30 bg-trace-wash/50 p-3" data-row={label} data-origin="capture">
-        {hidden}
-        <input type="hidden" name={name("quantity")} value={row.capture.quantity} />
-        <input type="hidden" name={name("capture")} value={JSON.stringify(row.capture)} />
-        <span className="figures mt-0.5 text-xs text-ink-faint">{label}</span>
-        <div className="min-w-0 flex-1 space-y-1 text-sm">
-          <div className="flex flex-wrap items-center gap-2">
-            <Badge tone="trace">From a capture</Badge>
-            {outcome && outcome !== "consistent" ? <OutcomeBadge outcome={outcome} /> : null}
-          </div>
-          <p className="text-ink">{describeReading(row.capture)}</p>
-          {row.capture.note ? <p className="text-xs text-ink-faint">{row.capture.note}</p> : null}
-        </div>
-        {remove}
-      </li>
-    );
-  }
-
   const info = row.quantity ? QUANTITY_INFO[row.quantity] : null;
   const fields: ConditionField[] = row.quantity ? CONDITION_FIELDS[row.quantity] : [];
   return (
@@ -113,37 +93,35 @@ export function ReadingRow({
       data-row={label}
     >
       {hidden}
-      <div className="flex items-start gap-2">
-        <span className="figures mt-2 w-7 shrink-0 text-xs text-ink-faint">{label}</span>
-        <div className="grid min-w-0 flex-1 gap-2 sm:grid-cols-[1fr_9rem]">
-          <label className="block">
-            <span className="sr-only">Reading {label}: what was measured</span>
-            <select name={name("quantity")} value={row.quantity} onChange={(e) => onChange({ quantity: e.target.value as Quantity })} className={selectClass} aria-invalid={errors.quantity ? true : undefined}>
-              <option value="">Choose the reading…</option>
-              {quantities.map((q) => (
-                <option key={q} value={q}>
-                  {QUANTITY_INFO[q].label}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="block">
-            <span className="sr-only">Channel</span>
-            <select name={name("channel")} value={row.channel} onChange={(e) => onChange({ channel: e.target.value as SheetRow["channel"] })} className={selectClass}>
-              <option value="">Channel…</option>
-              <option value="left">Left</option>
-              <option value="right">Right</option>
-              <option value="both">Both</option>
-              <option value="mono">Mono</option>
-            </select>
-          </label>
-        </div>
-        {outcome && outcome !== "consistent" ? <OutcomeBadge outcome={outcome} className="mt-1.5 hidden sm:inline-flex" /> : null}
+      <div className="flex flex-wrap items-center gap-2">
+        <span className="figures w-7 shrink-0 text-xs text-ink-faint">{label}</span>
+        <label className="min-w-0 flex-1 basis-48">
+          <span className="sr-only">Reading {label}: what was measured</span>
+          <select name={name("quantity")} value={row.quantity} onChange={(e) => onChange({ quantity: e.target.value as Quantity })} className={selectClass} aria-invalid={errors.quantity ? true : undefined}>
+            <option value="">Choose the reading…</option>
+            {quantities.map((q) => (
+              <option key={q} value={q}>
+                {QUANTITY_INFO[q].label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="w-32 shrink-0 max-sm:ml-9 max-sm:flex-1">
+          <span className="sr-only">Channel</span>
+          <select name={name("channel")} value={row.channel} onChange={(e) => onChange({ channel: e.target.value as SheetRow["channel"] })} className={selectClass}>
+            <option value="">Channel…</option>
+            <option value="left">Left</option>
+            <option value="right">Right</option>
+            <option value="both">Both</option>
+            <option value="mono">Mono</option>
+          </select>
+        </label>
+        {outcome && outcome !== "consistent" ? <OutcomeBadge outcome={outcome} /> : null}
         {remove}
       </div>
-      {errors.quantity ? <p className="pl-9 text-xs font-medium text-fault">{errors.quantity}</p> : null}
-      <div className="grid gap-3 pl-9 sm:grid-cols-2 lg:grid-cols-3">
-        <label className="block space-y-1">
+      {errors.quantity ? <p className="text-xs font-medium text-fault sm:pl-9">{errors.quantity}</p> : null}
+      <div className="grid grid-cols-2 gap-x-3 gap-y-2.5 sm:pl-9 lg:grid-cols-3">
+        <label className="block space-y-1 max-sm:col-span-2">
           <span className="text-xs font-semibold text-ink">{row.basis === "rated" ? "Rated value" : "Measured value"}</span>
           <input
             name={name("value")}
@@ -190,10 +168,10 @@ export function ReadingRow({
             </label>
           );
         })}
-        <label className="block space-y-1 sm:col-span-2 lg:col-span-3">
-          <span className="text-xs font-medium text-ink-soft">Note</span>
-          <input name={name("note")} value={row.note} onChange={(e) => onChange({ note: e.target.value })} maxLength={500} placeholder="Optional: how or where it was taken" className={cx(controlClass, "h-9 py-1.5 text-sm")} />
-        </label>
+        <details className="group col-span-2 lg:col-span-3" open={row.note ? true : undefined}>
+          <summary className="cursor-pointer select-none text-xs font-medium text-ink-soft">{row.note ? "Note" : "Add a note"}</summary>
+          <input name={name("note")} value={row.note} onChange={(e) => onChange({ note: e.target.value })} maxLength={500} placeholder="How or where it was taken" aria-label={`Reading ${label}: note`} className={cx(controlClass, "mt-1 h-9 py-1.5 text-sm")} />
+        </details>
       </div>
     </li>
   );

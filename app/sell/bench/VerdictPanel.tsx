@@ -19,7 +19,7 @@ export function OutcomeCounts({ verdict, className }: { verdict: Verdict; classN
 }
 
 function Result({ r, rowLabel }: { r: RuleResult; rowLabel: (ref: string) => string | null }) {
-  const rows = r.refs.map(rowLabel).filter(Boolean) as string[];
+  const rows = (r.refs.map(rowLabel).filter(Boolean) as string[]).sort((a, b) => a.localeCompare(b, "en", { numeric: true }));
   return (
     <li className={cx("space-y-1.5 py-3", r.outcome === "implausible" && "rounded-md bg-fault-wash/60 px-3")} data-outcome={r.outcome} data-rule={r.ruleId}>
       <div className="flex flex-wrap items-center gap-2">
@@ -66,6 +66,8 @@ export function VerdictPanel({
       </div>
     );
   const sorted = [...verdict.results].sort((a, b) => ORDER.indexOf(a.outcome) - ORDER.indexOf(b.outcome));
+  const problems = sorted.filter((r) => r.outcome !== "consistent");
+  const consistent = sorted.filter((r) => r.outcome === "consistent");
   const implausible = verdict.counts.implausible > 0;
   return (
     <section aria-labelledby="verdict-title" className={cx("space-y-4 rounded-panel border bg-card p-5 shadow-panel", implausible ? "border-fault/40" : verdict.benchVerified ? "border-trace/40" : "border-rule")} data-verdict={verdict.benchVerified ? "verified" : implausible ? "implausible" : "not-verified"}>
@@ -95,11 +97,29 @@ export function VerdictPanel({
         ) : null}
         <OutcomeCounts verdict={verdict} />
       </header>
-      <ul className="divide-y divide-rule">
-        {sorted.map((r, i) => (
-          <Result key={`${r.ruleId}-${i}`} r={r} rowLabel={rowLabel} />
-        ))}
-      </ul>
+      {problems.length ? (
+        <ul className="divide-y divide-rule">
+          {problems.map((r, i) => (
+            <Result key={`${r.ruleId}-${i}`} r={r} rowLabel={rowLabel} />
+          ))}
+        </ul>
+      ) : null}
+      {consistent.length ? (
+        <details className="group rounded-md border border-rule">
+          <summary className="flex cursor-pointer select-none items-center justify-between gap-2 px-3 py-2 text-sm font-medium">
+            <span>
+              <span className="figures">{consistent.length}</span> consistent check{consistent.length > 1 ? "s" : ""}
+            </span>
+            <span className="text-xs text-ink-faint group-open:hidden">Show each with its numbers</span>
+            <span className="hidden text-xs text-ink-faint group-open:inline">Hide</span>
+          </summary>
+          <ul className="divide-y divide-rule border-t border-rule px-3">
+            {consistent.map((r, i) => (
+              <Result key={`${r.ruleId}-${i}`} r={r} rowLabel={rowLabel} />
+            ))}
+          </ul>
+        </details>
+      ) : null}
       {verdict.shortfalls.length ? (
         <div className="space-y-1 text-sm">
           <h4 className="font-sans font-semibold">Below the maker's rating</h4>
