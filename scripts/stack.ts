@@ -24,7 +24,11 @@ export function profile(name: "dev" | "test"): Profile {
       dir: path.join(root, ".local/dev"),
       pgPort: 54329,
       database: "loadline",
-      env: { PORT: port },
+      // The stand-ins' ports may be moved through the environment (FAKE_*_PORT), as may PORT.
+      env: {
+        PORT: port,
+        ...Object.fromEntries(Object.entries(process.env).filter(([k, v]) => k.startsWith("FAKE_") && v)),
+      } as Record<string, string>,
     };
   }
   return {
