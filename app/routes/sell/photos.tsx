@@ -1,6 +1,6 @@
 import { Link, useRevalidator } from "react-router";
 import { PhotoUploader } from "~/components/photo-uploader";
-import { Section } from "~/sell/Section";
+import { Card } from "~/components/Card";
 import { useEditor } from "./editor";
 
 // The photo uploader (its own API under /api/v1/listings/:id/photos) inside the editor. Photos upload as
@@ -11,10 +11,11 @@ export default function PhotosStep() {
   const readyBefore = photos.filter((p) => p.status === "ready").length;
   return (
     <div className="space-y-5">
-      <Section
-        title="Photos"
-        lede="Up to 24 JPEG or PNG photos, each up to 20 MB. Show the front, the back panel with its connectors and mains label, the inside after the work, and every mark you mention in the condition note."
-      >
+      <Card className="space-y-4">
+        <p className="text-sm text-ink-soft">
+          Show the front, the back panel with its connectors and mains label, the inside after the work, and every mark
+          you mention in the condition note.
+        </p>
         <PhotoUploader
           listingId={listing.id}
           initialPhotos={photos}
@@ -26,7 +27,7 @@ export default function PhotosStep() {
         <noscript>
           <p className="text-sm text-fault">Uploading photos needs JavaScript. Every other step works without it.</p>
         </noscript>
-      </Section>
+      </Card>
       <p className="text-sm text-ink-soft">
         Photos are stripped of their metadata (including location) before anyone else sees them.{" "}
         <Link to={`/sell/${listing.id}/bench`}>Next: the bench sheet →</Link>

@@ -12,7 +12,7 @@ export function CaptureGroup({ items, onRemove }: { items: CaptureItem[]; onRemo
     <li className="space-y-2 rounded-md border border-trace/30 bg-trace-wash/40 p-3" data-capture={captureId}>
       <div className="flex flex-wrap items-center justify-between gap-2">
         <div className="flex items-center gap-2">
-          <Badge tone="trace">From a capture</Badge>
+          <Badge tone="trace" className="whitespace-nowrap">From a capture</Badge>
           <span className="text-xs text-ink-faint">
             {items.length} reading{items.length > 1 ? "s" : ""} measured by the bench from the uploaded file
           </span>

@@ -110,8 +110,8 @@ export function VerdictPanel({
             <span>
               <span className="figures">{consistent.length}</span> consistent check{consistent.length > 1 ? "s" : ""}
             </span>
-            <span className="text-xs text-ink-faint group-open:hidden">Show each with its numbers</span>
-            <span className="hidden text-xs text-ink-faint group-open:inline">Hide</span>
+            <span className="hidden text-xs text-ink-faint group-open:hidden sm:inline">Show each with its numbers</span>
+            <span className="hidden text-xs text-ink-faint sm:group-open:inline">Hide</span>
           </summary>
           <ul className="divide-y divide-rule border-t border-rule px-3">
             {consistent.map((r, i) => (
