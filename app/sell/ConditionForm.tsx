@@ -15,12 +15,14 @@ export function ConditionForm({
   errors: serverErrors = {},
   formError,
   busy,
+  notice,
 }: {
   listingId: string;
   values: ConditionValues;
   errors?: FieldErrors;
   formError?: string;
   busy: boolean;
+  notice?: string;
 }) {
   const formRef = useRef<HTMLFormElement>(null);
   const autosave = useAutosave(listingId);
@@ -66,7 +68,7 @@ export function ConditionForm({
           hint="Marks, missing parts, noisy controls, known faults. A unit that needs work or is for parts must say what is wrong."
         />
       </Section>
-      <SaveBar state={autosave.state} busy={busy} next={{ label: "Save and go to the restoration log" }} />
+      <SaveBar state={autosave.state} busy={busy} notice={notice} next={{ label: "Save and go to the restoration log" }} />
     </Form>
   );
 }

@@ -29,6 +29,7 @@ export function ItemForm({
   formError,
   published,
   busy,
+  notice,
 }: {
   listingId: string;
   values: Values;
@@ -36,6 +37,7 @@ export function ItemForm({
   formError?: string;
   published: boolean;
   busy: boolean;
+  notice?: string;
 }) {
   const formRef = useRef<HTMLFormElement>(null);
   const [live, setLive] = useState<Values>(values);
@@ -217,7 +219,7 @@ export function ItemForm({
         />
       </Section>
 
-      <SaveBar state={autosave.state} busy={busy} next={{ label: "Save and go to condition" }} />
+      <SaveBar state={autosave.state} busy={busy} notice={notice} next={{ label: "Save and go to condition" }} />
     </Form>
   );
 }

@@ -90,12 +90,13 @@ export function blankRow(key: string, basis: SheetRow["basis"] = "measured", res
 }
 
 /** What a parsed value reads as, e.g. "28.3 V rms", "0.030 % (−70.5 dB)". */
-export function showParsed(p: ParsedValue, dc = false): string {
+export function showParsed(p: ParsedValue, dc = false, inDb = false): string {
   switch (p.kind) {
     case "voltage":
       return `${formatValue(p.value, "voltage")} ${p.form === "dc" || dc ? "DC" : "rms"}`;
     case "ratio":
-      return p.value > 0 ? `${formatValue(p.value, "ratio")} (${formatNumber(ratioToDb(p.value))} dB)` : formatValue(p.value, "ratio");
+      // Distortion reads both ways in the trade (0.03 % = −70.5 dB); a speed error does not.
+      return inDb && p.value > 0 ? `${formatValue(p.value, "ratio")} (${formatNumber(ratioToDb(p.value))} dB)` : formatValue(p.value, "ratio");
     case "number":
       return formatValue(p.value, "number");
     default:
@@ -132,7 +133,7 @@ export function readRow(row: SheetRow): RowResult {
   const value = parseValue(row.value, { kind: info.kind, voltageForm: info.dc ? "dc" : "rms" });
   if (!value.ok) errors.value = value.error;
   else {
-    shown.value = showParsed(value, info.dc);
+    shown.value = showParsed(value, info.dc, row.quantity === "thd" || row.quantity === "thd_n" || row.quantity === "imd");
     if (value.channels && value.channels > 1 && !channel) channel = "both";
     if (value.weighting === "A") conditions.weighting = "A";
     if (value.plusMinus && row.quantity === "rail_voltage") conditions.supply = "split";

@@ -40,11 +40,6 @@ export default function BenchStep({ actionData }: Route.ComponentProps) {
   const initial: SheetFormState = (failed?.state as SheetFormState | undefined) ?? sheetToState(sheet, listing.category);
   return (
     <>
-      {actionData?.ok ? (
-        <p role="status" className="rounded-md border border-trace/30 bg-trace-wash px-3 py-2 text-sm font-medium text-trace">
-          {actionData.notice}
-        </p>
-      ) : null}
       <BenchSheetEditor
         listingId={listing.id}
         initial={initial}
@@ -52,6 +47,7 @@ export default function BenchStep({ actionData }: Route.ComponentProps) {
         serverErrors={failed?.issues}
         formError={failed?.formError}
         busy={busy}
+        notice={actionData?.ok ? actionData.notice : undefined}
       />
     </>
   );

@@ -35,6 +35,7 @@ export default function ConditionStep({ actionData }: Route.ComponentProps) {
       errors={failed?.errors}
       formError={failed?.formError}
       busy={busy}
+      notice={actionData?.ok ? actionData.notice : undefined}
     />
   );
 }

@@ -36,6 +36,7 @@ export default function ItemStep({ actionData }: Route.ComponentProps) {
       formError={failed?.formError}
       published={listing.status !== "draft"}
       busy={busy}
+      notice={actionData?.ok ? actionData.notice : undefined}
     />
   );
 }

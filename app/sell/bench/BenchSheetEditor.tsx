@@ -38,7 +38,9 @@ export function BenchSheetEditor({
   serverErrors,
   formError,
   busy,
+  notice,
 }: {
+  notice?: string;
   listingId: string;
   initial: SheetFormState;
   published: boolean;
@@ -53,7 +55,17 @@ export function BenchSheetEditor({
   const lastGood = useRef<Verdict | null>(fresh);
   if (fresh) lastGood.current = fresh;
   const verdict = fresh ?? lastGood.current;
-  const autosave = useAutosave(listingId);
+  // What the last save did to a published listing's standing, in words.
+  const [standing, setStanding] = useState<string | null>(null);
+  const autosave = useAutosave(listingId, {
+    onSaved: (a) => {
+      if (!a.sheetChanged) return;
+      if (a.listing?.status === "held") setStanding("The saved sheet has an implausible outcome: the listing is now held for the review desk.");
+      else if (a.wasVerified && !a.listing?.benchVerified) setStanding("The changed sheet no longer earns the bench-verified mark; the mark is off the listing until the sheet passes again.");
+      else if (a.listing?.benchVerified) setStanding(a.wasVerified ? null : "Checked again: the listing carries the bench-verified mark.");
+      else setStanding(null);
+    },
+  });
   const latest = useRef(read);
   latest.current = read;
   // Only the seller's own edits save; opening the page (or React re-running effects) does not.
@@ -226,11 +238,16 @@ export function BenchSheetEditor({
               <TextareaField label="Notes" name="notes" rows={3} value={state.meta.notes} onChange={(e) => setMeta({ notes: e.target.value })} optional error={read.metaErrors.notes} className="sm:col-span-2" hint="Equipment used, mains voltage during the test, anything a buyer re-measuring should know." />
             </div>
           </Section>
-          <SaveBar state={autosave.state} busy={busy} next={{ label: "Save and review" }} />
+          <SaveBar state={autosave.state} busy={busy} notice={notice} next={{ label: "Save and review", short: "Review" }} />
         </Form>
         {/* The capture inputs belong to this form (form attribute), so they never post with the sheet. */}
         <form id={CAPTURE_FORM_ID} hidden onSubmit={(e) => e.preventDefault()} />
         <aside className="space-y-3 lg:sticky lg:top-4">
+          {standing ? (
+            <p role="status" className="rounded-md border border-brass/50 bg-brass-wash px-3 py-2 text-sm text-brass-ink">
+              {standing}
+            </p>
+          ) : null}
           <VerdictPanel verdict={verdict} stale={fresh ? 0 : read.errorCount} published={published} rowLabel={rowLabel} />
           <p className="text-xs text-ink-faint">
             The outcomes update as you type. The server checks the sheet again when it is saved and when you publish; its
