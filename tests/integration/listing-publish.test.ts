@@ -6,7 +6,8 @@ import { ListingInputError, ListingStateError } from "~/listings/errors.server";
 import { publishListing } from "~/listings/publish.server";
 import { withdrawListing } from "~/listings/drafts.server";
 import { doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet, type Verdict } from "@shared/bench";
-import { cleanUp, makeAccount, makeCapture, readyDraft, reload, withOwnCaptures } from "./listing-support";
+import { action as sellAction } from "~/routes/sell/index";
+import { BASE, call, cleanUp, makeAccount, makeCapture, readyDraft, reload, withOwnCaptures } from "./listing-support";
 
 // Save, publish, hold and the bench-verified mark on real PostgreSQL. The sheets are the bench core's
 // invented demo amplifier (2 × 60 W into 8 Ω) and its doctored twin whose 4 Ω power is tripled.
@@ -95,6 +96,32 @@ describe("publishing a listing", () => {
     expect((await reload(draft.id)).listing.status).toBe("withdrawn");
     await publishListing(draft.id, seller.session);
     expect((await reload(draft.id)).listing.status).toBe("live");
+  });
+});
+
+describe("withdrawing from the seller's list", () => {
+  it("needs the confirmation, and only the owner can do it", async () => {
+    const seller = await makeAccount("withdraw-page");
+    const other = await makeAccount("withdraw-other");
+    const draft = await readyDraft(seller);
+    await saveBenchSheet(draft.id, seller.user.id, await verifiedSheet(seller.user.id));
+    await publishListing(draft.id, seller.session);
+    const post = (cookie: string, fields: Record<string, string>) =>
+      call(() =>
+        sellAction({
+          request: new Request(`${BASE}/sell`, { method: "POST", headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" }, body: new URLSearchParams(fields) }),
+          params: {},
+          context: {},
+        } as never),
+      );
+    const unconfirmed = await post(seller.cookie, { intent: "withdraw", listingId: draft.id });
+    expect(unconfirmed.body).toMatchObject({ ok: false, formError: expect.stringMatching(/Confirm/) });
+    const stranger = await post(other.cookie, { intent: "withdraw", listingId: draft.id, confirm: "yes" });
+    expect(stranger.status).toBe(404);
+    expect((await reload(draft.id)).listing.status).toBe("live");
+    const done = await post(seller.cookie, { intent: "withdraw", listingId: draft.id, confirm: "yes" });
+    expect(done.status).toBe(302);
+    expect((await reload(draft.id)).listing.status).toBe("withdrawn");
   });
 });
 
