@@ -50,6 +50,12 @@ async function fromOwnCaptures(sheet: Sheet, sellerId: string, transaction: Tran
     if (!c) issues.push({ path: `readings.${i}.captureId`, message: "No capture of yours has that id." });
     else if (c.status !== "done") issues.push({ path: `readings.${i}.captureId`, message: `The capture ${c.fileName} is not analysed yet.` });
   });
+  (sheet.sweeps ?? []).forEach((sw, i) => {
+    if (sw.origin !== "capture") return;
+    const c = byId.get(sw.captureId!);
+    if (!c) issues.push({ path: `sweeps.${i}.captureId`, message: "No capture of yours has that id." });
+    else if (c.status !== "done" || !c.sweep) issues.push({ path: `sweeps.${i}.captureId`, message: `The capture ${c.fileName} holds no analysed sweep.` });
+  });
   if (issues.length) throw new ListingInputError(issues);
   const allowed = new Set<string>(CATEGORY_QUANTITIES[sheet.category]);
   const readings: Reading[] = [];

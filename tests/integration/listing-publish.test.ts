@@ -209,4 +209,23 @@ describe("figures from captures", () => {
     }
     expect((await reload(draft.id)).sheet).toBeNull();
   });
+
+  it("cannot pass off a typed response sweep as captured", async () => {
+    const seller = await makeAccount("sweep-forger");
+    const draft = await readyDraft(seller);
+    const sheet = exampleIntegratedAmplifierSheet();
+    sheet.readings = sheet.readings.filter((r) => r.origin !== "capture");
+    sheet.sweeps = [
+      {
+        kind: "flat",
+        origin: "capture",
+        captureId: "00000000-0000-4000-8000-000000000000",
+        conditions: {},
+        points: [20, 1000, 20_000].map((f) => ({ frequencyHz: f, levelDb: 0 })),
+      },
+    ];
+    const err = (await saveBenchSheet(draft.id, seller.user.id, sheet).catch((e) => e)) as ListingInputError;
+    expect(err).toBeInstanceOf(ListingInputError);
+    expect(err.issues.map((i) => i.path)).toEqual(["sweeps.0.captureId"]);
+  });
 });
