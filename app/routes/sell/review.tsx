@@ -78,7 +78,10 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
             </div>
             <div>
               <dt className="text-ink-faint">Price</dt>
-              <dd className="figures">{listing.priceMinor !== null ? formatPrice(listing.priceMinor, listing.currency) : "—"}{listing.offersWelcome ? " · offers welcome" : ""}</dd>
+              <dd>
+                <span className="figures">{listing.priceMinor !== null ? formatPrice(listing.priceMinor, listing.currency) : "—"}</span>
+                {listing.offersWelcome ? " · offers welcome" : ""}
+              </dd>
             </div>
             <div>
               <dt className="text-ink-faint">Condition</dt>
