@@ -25,6 +25,15 @@ describe("power-voltage-load", () => {
   it("calls a 10 % mismatch questionable", () => {
     expect(outcomes(amp(measured("output_power", 110, "W", full8), measured("output_voltage", 28.28, "V", full8)), "power-voltage-load")).toEqual(["questionable"]);
   });
+  it("does not pair a capture taken below full power with a typed full-power reading", () => {
+    // A 1 kHz capture at 23 V rms into 8 Ω (66 W) says nothing about the 100 W clipping figure.
+    const captured = measured("output_voltage", 23, "V", { loadOhm: 8, frequencyHz: 1000 }, { origin: "capture", captureId: "cap-1" });
+    const capturedPower = measured("output_power", 23 ** 2 / 8, "W", { loadOhm: 8, frequencyHz: 1000 }, { origin: "capture", captureId: "cap-1" });
+    const v = checkBenchSheet(amp(measured("output_power", 100, "W", full8), captured, capturedPower));
+    const results = resultsFor(v, "power-voltage-load");
+    expect(results.map((r) => r.outcome)).toEqual(["consistent"]);
+    expect(results[0].refs).toEqual(["readings.1", "readings.2"]);
+  });
   it("does not pair readings at different loads", () => {
     const v = checkBenchSheet(amp(measured("output_power", 100, "W", full8), measured("output_voltage", 28.3, "V", full4)));
     expect(resultsFor(v, "power-voltage-load")).toEqual([]);

@@ -42,9 +42,7 @@ export const powerVoltageLoad: Rule = {
       const R = v.conditions.loadOhm!;
       const pv = powerFromVrms(v.value, R);
       out.derive({ id: `power-from-voltage:${v.ref}`, label: `Power from ${formatReadingValue(v)} into ${formatValue(R, "resistance")}`, value: pv, kind: "power", refs: [v.ref] });
-      const p = powers.find(
-        (p) => channelsCompatible(p.channel, v.channel) && conditionsCompatible(p.conditions, v.conditions, ["loadOhm", "frequencyHz", "distortion", "channelsDriven"]),
-      );
+      const p = powers.find((p) => sameOperatingPoint(p, v));
       if (!p) continue;
       compared++;
       const ratio = p.value / pv;
@@ -71,6 +69,16 @@ export const powerVoltageLoad: Rule = {
     if (!compared) return "No measured power at the same load and channel as the measured output voltage.";
   },
 };
+
+// A voltage and a power describe the same output only at the same operating point. A capture is taken
+// at whatever level the seller chose, so it pairs with readings of the same capture, never with a
+// typed full-power figure; typed readings pair when both or neither state a distortion limit.
+function sameOperatingPoint(p: Item, v: Item): boolean {
+  if (!channelsCompatible(p.channel, v.channel)) return false;
+  if (!conditionsCompatible(p.conditions, v.conditions, ["loadOhm", "frequencyHz", "distortion", "channelsDriven"])) return false;
+  if (p.captureId || v.captureId) return p.captureId === v.captureId;
+  return (p.conditions.atDistortion === undefined) === (v.conditions.atDistortion === undefined);
+}
 
 export const halfLoadPower: Rule = {
   id: "half-load-power",
