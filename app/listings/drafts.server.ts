@@ -8,6 +8,7 @@ import { CATEGORIES, type Category } from "@shared/catalogue";
 import { ConditionPatchSchema, ConditionSchema, ItemPatchSchema, ItemSchema } from "@shared/listing-draft";
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, ListingStateError, type Issue } from "./errors.server";
+import { NO_FACETS } from "@shared/listing-facets";
 
 // Drafts and the item and condition steps. Who may list: any signed-in account. Listing for the first
 // time makes the account a seller (the role is added with the draft, in one transaction); a workshop
@@ -52,14 +53,7 @@ export async function createDraft(user: SessionUser, category: unknown): Promise
         conditionNote: null,
         publishedAt: null,
         heldReason: null,
-        power8ohmW: null,
-        power4ohmW: null,
-        thdPct: null,
-        snrDb: null,
-        bandwidthHz: null,
-        wowFlutterPct: null,
-        sensitivityDb: null,
-        impedanceOhm: null,
+        ...NO_FACETS,
       },
       { transaction },
     );

@@ -52,7 +52,7 @@ describe("RIAA playback curve (IEC 60098, time constants 3180/318/75 µs)", () =
 
 describe("A-weighting (IEC 61672-1:2013, Annex E analytic form, +2.00 dB)", () => {
   // Source: IEC 61672-1:2013 Table 3 nominal A-weightings, which are the formula at the exact base-10
-  // frequencies 1000·10^(n/10) rounded to 0.1 dB [REFERENCES §2, confirmed in two open-source transcriptions].
+  // frequencies 1000·10^(n/10) rounded to 0.1 dB [REFERENCES §2, confirmed in two open-source copies of the table].
   const table: [nominal: number, n: number, db: number][] = [
     [31.5, -15, -39.4],
     [63, -12, -26.2],
