@@ -31,18 +31,21 @@ export function profile(name: "dev" | "test"): Profile {
       } as Record<string, string>,
     };
   }
+  // TEST_PORT_OFFSET moves every port of the throw-away stack, so two checkouts can test at once.
+  const offset = Number(process.env.TEST_PORT_OFFSET ?? 0) || 0;
+  const at = (port: number) => String(port + offset);
   return {
     name,
     dir: path.join(root, ".local/test"),
-    pgPort: 54339,
+    pgPort: 54339 + offset,
     database: "loadline_test",
     env: {
-      PORT: "3100",
-      FAKE_S3_PORT: "4669",
-      FAKE_SMTP_PORT: "1125",
-      FAKE_MAIL_HTTP_PORT: "1180",
-      FAKE_OAUTH_PORT: "4110",
-      FAKE_STRIPE_PORT: "12211",
+      PORT: at(3100),
+      FAKE_S3_PORT: at(4669),
+      FAKE_SMTP_PORT: at(1125),
+      FAKE_MAIL_HTTP_PORT: at(1180),
+      FAKE_OAUTH_PORT: at(4110),
+      FAKE_STRIPE_PORT: at(12211),
       LOADLINE_FAST_HASH: "1",
     },
   };

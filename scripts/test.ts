@@ -6,6 +6,12 @@ import { bin, bringUp, finished, launch, profile, stopChild, waitForHttp } from 
 // `npm test`: a throw-away cluster and stand-ins on their own ports, then typecheck, the unit,
 // reference and integration suites, and the browser suite against the built app. The last line is
 // the totals over all of them.
+// `npm test -- [--skip-typecheck] [--skip-browser] [file filters…]` narrows a run while working;
+// with no arguments everything runs (CI).
+const argv = process.argv.slice(2);
+const skipTypecheck = argv.includes("--skip-typecheck");
+const filters = argv.filter((a) => !a.startsWith("--"));
+const skipBrowser = argv.includes("--skip-browser") || (filters.length > 0 && !filters.some((f) => f.includes("e2e")));
 const p = profile("test");
 fs.rmSync(p.dir, { recursive: true, force: true });
 const reports = path.join(p.dir, "reports");
@@ -40,7 +46,7 @@ function count(name: string, file: string, exitCode: number) {
 async function vitest(name: string, projects: string[], env: Record<string, string>) {
   const file = path.join(reports, `${name}.json`);
   const args = ["run", ...projects.flatMap((pr) => ["--project", pr]), "--reporter=default", "--reporter=json",
-    `--outputFile.json=${file}`];
+    `--outputFile.json=${file}`, ...(filters.length ? ["--passWithNoTests", ...filters] : [])];
   const code = await finished(launch(bin("vitest"), args, env));
   count(name, file, code);
 }
@@ -61,6 +67,23 @@ try {
   const env: Record<string, string> = { ...stack.env, NODE_ENV: "test" };
   fs.mkdirSync(reports, { recursive: true });
 
+  if (!skipTypecheck) await typecheck(env);
+
+  console.log("\n== Unit, reference and integration suites");
+  await vitest("main", ["unit", "reference", "integration"], env);
+
+  if (!skipBrowser) await browserSuite(env);
+  exitCode = total.failed > 0 ? 1 : 0;
+} catch (error) {
+  console.error(error instanceof Error ? error.stack : error);
+  total.failed += 1;
+  failures.push(`setup: ${error instanceof Error ? error.message : String(error)}`);
+} finally {
+  for (const c of children) await stopChild(c);
+  await stack?.stop();
+}
+
+async function typecheck(env: Record<string, string>) {
   console.log("\n== Typecheck");
   const typegen = await finished(launch(bin("react-router"), ["typegen"], env));
   const tsc = typegen === 0 ? await finished(launch(bin("tsc"), ["--noEmit", "-p", "."], env)) : 1;
@@ -69,10 +92,9 @@ try {
     total.failed += 1;
     failures.push("typecheck failed");
   }
+}
 
-  console.log("\n== Unit, reference and integration suites");
-  await vitest("main", ["unit", "reference", "integration"], env);
-
+async function browserSuite(env: Record<string, string>) {
   console.log("\n== Browser suite");
   const build = await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true));
   if (build !== 0) {
@@ -90,14 +112,6 @@ try {
       E2E_MAIL_URL: `http://127.0.0.1:${env.FAKE_MAIL_HTTP_PORT}`,
     });
   }
-  exitCode = total.failed > 0 ? 1 : 0;
-} catch (error) {
-  console.error(error instanceof Error ? error.stack : error);
-  total.failed += 1;
-  failures.push(`setup: ${error instanceof Error ? error.message : String(error)}`);
-} finally {
-  for (const c of children) await stopChild(c);
-  await stack?.stop();
 }
 
 if (failures.length) console.log(`\nFailures:\n${failures.map((f) => `  - ${f}`).join("\n")}`);
