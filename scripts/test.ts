@@ -3,13 +3,15 @@ import path from "node:path";
 import type { ChildProcess } from "node:child_process";
 import { bin, bringUp, finished, launch, profile, stopChild, waitForHttp } from "./stack";
 
-// `npm test`: a throw-away cluster and stand-ins on their own ports, then typecheck, the unit,
+// `npm test`: a throw-away cluster and stand-ins on their own ports, then typecheck, lint, the unit,
 // reference and integration suites, and the browser suite against the built app. The last line is
 // the totals over all of them.
-// `npm test -- [--skip-typecheck] [--skip-browser] [file filters…]` narrows a run while working;
-// with no arguments everything runs (CI).
+// `npm test -- [--skip-typecheck] [--skip-lint] [--skip-browser] [file filters…]` narrows a run while
+// working; with no arguments everything runs (CI). Lint needs the route types the typecheck
+// generates, so --skip-typecheck skips it too.
 const argv = process.argv.slice(2);
 const skipTypecheck = argv.includes("--skip-typecheck");
+const skipLint = skipTypecheck || argv.includes("--skip-lint");
 const filters = argv.filter((a) => !a.startsWith("--"));
 const skipBrowser = argv.includes("--skip-browser") || (filters.length > 0 && !filters.some((f) => f.includes("e2e")));
 const p = profile("test");
@@ -68,6 +70,7 @@ try {
   fs.mkdirSync(reports, { recursive: true });
 
   if (!skipTypecheck) await typecheck(env);
+  if (!skipLint) await lint(env);
 
   console.log("\n== Unit, reference and integration suites");
   await vitest("main", ["unit", "reference", "integration"], env);
@@ -91,6 +94,18 @@ async function typecheck(env: Record<string, string>) {
   else {
     total.failed += 1;
     failures.push("typecheck failed");
+  }
+}
+
+// `npm run lint`: ESLint, then Prettier's check; one entry in the totals like the typecheck.
+async function lint(env: Record<string, string>) {
+  console.log("\n== Lint");
+  const eslint = await finished(launch(bin("eslint"), ["--max-warnings", "0", "."], env));
+  const prettier = await finished(launch(bin("prettier"), ["--check", "--log-level", "warn", "."], env));
+  if (eslint === 0 && prettier === 0) total.passed += 1;
+  else {
+    total.failed += 1;
+    failures.push(`lint failed (${[eslint && "eslint", prettier && "prettier --check"].filter(Boolean).join(", ")})`);
   }
 }
 
