@@ -4,7 +4,7 @@ import { sequelize } from "~/db.server";
 import { Capture } from "~/models/capture.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { deleteObject, putObject, randomKey } from "~/services/storage.server";
-import { CAPTURE_LIMITS, CaptureError, checkSize, identifyCapture, inferKind, preflightCapture } from "./captures.server";
+import { CAPTURE_LIMITS, CaptureError, checkSize, identifyCapture, inferKind, preflightCapture, type CaptureFormat } from "./captures.server";
 import { readConditions, type ConditionsIssue } from "./capture-form.server";
 
 export type ApiError = { error: string; message: string; issues?: ConditionsIssue[]; details?: Record<string, unknown> };
@@ -66,14 +66,14 @@ export async function submitCapture(request: Request, ownerId: string): Promise<
 /** File, row and job together: if the row or the job cannot be written, the file goes too. */
 async function store(
   bytes: Uint8Array,
-  meta: Pick<Capture, "ownerId" | "kind" | "fileName" | "contentType" | "conditions"> & { format: object },
+  meta: Pick<Capture, "ownerId" | "kind" | "fileName" | "contentType" | "conditions"> & { format: CaptureFormat },
 ): Promise<Capture> {
   const key = randomKey("captures", meta.contentType === "audio/wav" ? "wav" : "csv");
   await putObject(key, bytes, { contentType: meta.contentType, contentLength: bytes.length });
   try {
     return await sequelize.transaction(async (transaction) => {
       const capture = await Capture.create(
-        { ...meta, format: meta.format as Record<string, unknown>, byteSize: bytes.length, storageKey: key },
+        { ...meta, byteSize: bytes.length, storageKey: key },
         { transaction },
       );
       // The job is written in the same transaction, so a worker never sees a job without its row.

@@ -32,7 +32,7 @@ export async function analyseCaptureJob(data: CaptureJobData): Promise<{ status:
     const result = analyseCapture(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength), capture.fileName, conditions, capture.id);
     await capture.update({
       status: "done",
-      analysis: result.analysis as unknown as Record<string, unknown>,
+      analysis: result.analysis,
       readings: result.readings,
       sweep: result.kind === "sweep" ? result.sweep : null,
       finishedAt: new Date(),

@@ -1,7 +1,6 @@
 import { QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { BenchSheet, Listing, User, Workshop } from "~/models/index.server";
-import { benchSheetSchema, type BenchSheet as Sheet } from "@shared/bench/schema";
 import { formatEra, listingTitle } from "@shared/catalogue";
 import { leadFigure } from "@shared/listing-facets";
 import type { ListingSummary, PhotoRef } from "./types";
@@ -16,15 +15,9 @@ export const summaryInclude = [
   { model: BenchSheet, as: "benchSheet", attributes: ["sheet"] },
 ];
 
-type Row = Listing & {
-  seller?: User;
-  workshop?: Workshop | null;
-  benchSheet?: BenchSheet | null;
-};
-
 export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
   const covers = await coversFor(rows.map((r) => r.id));
-  return (rows as Row[]).map((l) => ({
+  return rows.map((l) => ({
     id: l.id,
     title: listingTitle(l.maker, l.model),
     maker: l.maker ?? "",
@@ -43,16 +36,9 @@ export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
       : // Private sellers go by first name in lists.
         { name: (l.seller?.displayName ?? "").split(/\s+/)[0] ?? "", kind: "private", verified: false },
     cover: covers.get(l.id) ?? null,
-    keyFigure: leadFigure(readSheet(l.benchSheet?.sheet)),
+    keyFigure: leadFigure(l.benchSheet?.sheet),
     publishedAt: (l.publishedAt ?? l.createdAt).toISOString(),
   }));
-}
-
-/** A stored sheet that no longer parses (an older shape) shows no figure rather than a wrong one. */
-function readSheet(raw: unknown): Sheet | null {
-  if (!raw) return null;
-  const parsed = benchSheetSchema.safeParse(raw);
-  return parsed.success ? parsed.data : null;
 }
 
 async function coversFor(listingIds: string[]): Promise<Map<string, PhotoRef>> {

@@ -46,11 +46,8 @@ export async function reviewQueue() {
     Workshop.count({ where: { verificationStatus: "applied" } }),
   ]);
 
-  type WithSeller = Listing & { seller?: User; workshop?: Workshop | null };
-  type WithOwner = Workshop & { owner?: User };
-
   return {
-    heldListings: (held as WithSeller[]).map(
+    heldListings: held.map(
       (l): HeldListingItem => ({
         id: l.id,
         title: [l.maker, l.model].filter(Boolean).join(" ") || "Untitled unit",
@@ -62,7 +59,7 @@ export async function reviewQueue() {
       }),
     ),
     heldCount,
-    workshopApplications: (applications as WithOwner[]).map(
+    workshopApplications: applications.map(
       (w): WorkshopApplicationItem => ({
         id: w.id,
         name: w.name,

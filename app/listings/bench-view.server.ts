@@ -1,6 +1,5 @@
 import {
   QUANTITY_INFO,
-  benchSheetSchema,
   channelLabel,
   checkBenchSheet,
   describeConditions,
@@ -18,18 +17,9 @@ import type { BenchView, CheckRow, KeyFigureView } from "./types";
 // The bench sheet as the listing page shows it: rows built field by field from the parsed sheet, so
 // nothing else stored in it (the equipment's serial number in particular) reaches the page.
 
-/** The stored sheet, or null when it no longer parses (an older shape shows no figures rather than wrong ones). */
-export function readSheet(row: BenchSheetRow | null | undefined): BenchSheet | null {
-  if (!row) return null;
-  const parsed = benchSheetSchema.safeParse(row.sheet);
-  return parsed.success ? parsed.data : null;
-}
-
-/** The verdict the bench stored when it checked the sheet; checked afresh only if none was stored. */
+/** The verdict the bench stored when it checked the sheet; checked afresh only if none (readable) was stored. */
 function verdictFor(row: BenchSheetRow, sheet: BenchSheet): Verdict {
-  const v = row.verdict as Partial<Verdict> | null;
-  if (v && Array.isArray(v.results) && v.counts && typeof v.summary === "string") return v as Verdict;
-  return checkBenchSheet(sheet);
+  return row.verdict ?? checkBenchSheet(sheet);
 }
 
 const dayFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });

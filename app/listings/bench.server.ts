@@ -133,7 +133,7 @@ export async function saveBenchSheet(listingId: string, sellerId: string, input:
     if (!again.ok) throw new ListingInputError(again.issues);
     const sheet = again.sheet;
     const stored = await BenchSheet.findOne({ where: { listingId }, transaction, lock: transaction.LOCK.UPDATE });
-    const changed = sheetFingerprint(stored?.sheet as Sheet | undefined) !== sheetFingerprint(sheet);
+    const changed = sheetFingerprint(stored?.sheet) !== sheetFingerprint(sheet);
     const wasVerified = listing.benchVerified;
     if (changed && isPublished(listing) && listing.benchVerified) {
       // The mark belongs to the sheet that was checked; a different sheet has none until the check below.
@@ -141,8 +141,8 @@ export async function saveBenchSheet(listingId: string, sellerId: string, input:
     }
     const verdict = checkBenchSheet(sheet);
     const checkedAt = new Date();
-    if (stored) await stored.update({ sheet: sheet as Record<string, unknown>, verdict: verdict as unknown as Record<string, unknown>, checkedAt }, { transaction });
-    else await BenchSheet.create({ listingId, sheet: sheet as Record<string, unknown>, verdict: verdict as unknown as Record<string, unknown>, checkedAt }, { transaction });
+    if (stored) await stored.update({ sheet, verdict, checkedAt }, { transaction });
+    else await BenchSheet.create({ listingId, sheet, verdict, checkedAt }, { transaction });
     if (isPublished(listing)) await listing.update(verdictUpdate(listing, sheet, verdict), { transaction });
     else await listing.update(facetColumns(sheet), { transaction });
     return { listing, sheet, verdict, changed, wasVerified };
@@ -154,6 +154,5 @@ export async function saveBenchSheet(listingId: string, sellerId: string, input:
 export async function storedSheet(listingId: string, transaction?: Transaction): Promise<{ sheet: Sheet | null; verdict: Verdict | null; checkedAt: Date | null }> {
   const row = await BenchSheet.findOne({ where: { listingId }, transaction });
   if (!row) return { sheet: null, verdict: null, checkedAt: null };
-  const parsed = parseBenchSheet(row.sheet);
-  return { sheet: parsed.ok ? parsed.sheet : null, verdict: (row.verdict as unknown as Verdict) ?? null, checkedAt: row.checkedAt };
+  return { sheet: row.sheet, verdict: row.verdict, checkedAt: row.checkedAt };
 }

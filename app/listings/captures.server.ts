@@ -31,15 +31,9 @@ const KIND_WORDS = { sine: "sine capture", square: "square-wave capture", sweep:
 /** "from a sine capture (WAV, 48 kHz, 24-bit)" — how the figure was obtained, without the file's name. */
 export function captureNote(capture: Capture | undefined): string {
   if (!capture) return "from a capture";
-  const f = capture.format as Record<string, unknown>;
+  const f = capture.format;
   const bits: string[] = [];
-  if (f.file === "wav") {
-    bits.push("WAV");
-    if (typeof f.sampleRate === "number") bits.push(`${Number((f.sampleRate / 1000).toFixed(1))} kHz`);
-    if (typeof f.bitDepth === "number") bits.push(`${f.bitDepth}-bit${f.encoding === "float" ? " float" : ""}`);
-  } else if (f.file === "csv") {
-    bits.push("CSV");
-    if (typeof f.rows === "number") bits.push(`${f.rows} rows`);
-  }
+  if (f?.file === "wav") bits.push("WAV", `${Number((f.sampleRate / 1000).toFixed(1))} kHz`, `${f.bitDepth}-bit${f.encoding === "float" ? " float" : ""}`);
+  else if (f?.file === "csv") bits.push("CSV", `${f.rows} rows`);
   return `from a ${KIND_WORDS[capture.kind]}${bits.length ? ` (${bits.join(", ")})` : ""}`;
 }

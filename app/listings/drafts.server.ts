@@ -87,7 +87,8 @@ export async function saveItem(listingId: string, sellerId: string, patch: unkno
         issues.push({ path: "category", message: "The kind of unit cannot change once the listing has been published." });
       else {
         const sheet = await BenchSheet.findOne({ where: { listingId }, transaction });
-        const used = sheet && (((sheet.sheet.readings as unknown[]) ?? []).length > 0 || ((sheet.sheet.sweeps as unknown[]) ?? []).length > 0);
+        // A sheet that no longer reads (null) may still hold readings: keep it rather than guess.
+        const used = sheet && (!sheet.sheet || sheet.sheet.readings.length > 0 || sheet.sheet.sweeps.length > 0);
         if (used) issues.push({ path: "category", message: "The bench sheet holds readings for the current kind of unit; clear them first." });
         else if (sheet) await sheet.destroy({ transaction });
       }

@@ -1,5 +1,5 @@
 import { describeConditions, formatValue, type BenchSheet } from "@shared/bench";
-import { parseTwoColumnCsv, SQUARE_COLUMNS, type SineAnalysis, type SquareAnalysis } from "@shared/bench/analysis";
+import { parseTwoColumnCsv, SQUARE_COLUMNS, type SineAnalysis, type SquareCaptureConditions } from "@shared/bench/analysis";
 import type { Capture } from "~/models/capture.server";
 import { getObjectBuffer } from "~/services/storage.server";
 import { dbDomain, decimateMinMax, responseSeries } from "./plot-math";
@@ -27,8 +27,7 @@ export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, C
 // ---- harmonic spectrum ---------------------------------------------------------------------------
 
 function sineAnalysis(c: Capture): SineAnalysis | null {
-  const a = c.analysis as unknown as SineAnalysis | null;
-  return a && a.kind === "sine" && Array.isArray(a.channels) ? a : null;
+  return c.analysis?.kind === "sine" ? c.analysis : null;
 }
 
 /** One chart per test frequency and load; the channels of every capture taken there side by side. */
@@ -42,14 +41,14 @@ function spectra(sines: Capture[]): SpectrumPlot[] {
     groups.set(key, [...(groups.get(key) ?? []), { capture, analysis }]);
   }
   const out: SpectrumPlot[] = [];
-  const side = (c: Capture) => ["left", "right", "mono", "both"].indexOf((c.conditions as { channel?: string }).channel ?? "mono");
+  const side = (c: Capture) => ["left", "right", "mono", "both"].indexOf(c.conditions?.channel ?? "mono");
   for (const [key, unsorted] of groups) {
     const members = [...unsorted].sort((a, b) => side(a.capture) - side(b.capture));
     const bars = new Map<number, SpectrumPlot["bars"][number]>();
     const channels: SpectrumPlot["channels"] = [];
     const levels: number[] = [];
     for (const { capture, analysis } of members) {
-      const stated = (capture.conditions as { channel?: string }).channel;
+      const stated = capture.conditions?.channel;
       for (const ch of analysis.channels) {
         const name = ch.channel === "mono" && stated ? stated : ch.channel;
         let chKey = name;
@@ -164,11 +163,11 @@ async function traceOf(capture: Capture): Promise<{ t: number; v: number }[] | n
 async function squares(captures: Capture[]): Promise<SquarePlot[]> {
   const out: SquarePlot[] = [];
   for (const capture of captures.slice(0, MAX_PLOTS_EACH)) {
-    const a = capture.analysis as unknown as SquareAnalysis | null;
-    if (!a || a.kind !== "square") continue;
+    const a = capture.analysis;
+    if (a?.kind !== "square") continue;
     const points = await traceOf(capture);
     if (!points || points.length < 2) continue;
-    const c = capture.conditions as { channel?: string; loadOhm?: number; frequencyHz?: number };
+    const c: Partial<SquareCaptureConditions> = capture.conditions?.kind === "square" ? capture.conditions : {};
     const conditions = [
       c.frequencyHz ? `${formatValue(c.frequencyHz, "frequency")} square wave` : "square wave",
       c.loadOhm ? `into ${formatValue(c.loadOhm, "resistance")}` : null,

@@ -11,7 +11,7 @@ import {
 import { mediaUrl } from "~/catalogue/media-url";
 import { signInPath } from "~/auth/redirect";
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry, User, Workshop } from "~/models/index.server";
-import { benchView, keyFigureViews, readSheet } from "./bench-view.server";
+import { benchView, keyFigureViews } from "./bench-view.server";
 import { capturesForSheet } from "./captures.server";
 import { plotsFor } from "./plots.server";
 import { countryName, restorationLog, sellerCard, shippingView } from "./sections.server";
@@ -49,9 +49,7 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
     ],
   });
   if (!listing || !canViewListing(listing.status, listing.sellerId, req.viewer)) return null;
-  const row = listing as Listing & { seller?: User; workshop?: Workshop | null; benchSheet?: BenchSheet | null };
-
-  const sheet = readSheet(row.benchSheet);
+  const sheet = listing.benchSheet?.sheet ?? null;
   const [photos, entries, captures, watching, serialOnFile] = await Promise.all([
     ListingPhoto.findAll({
       where: { listingId: listing.id, status: "ready" },
@@ -82,10 +80,10 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
     },
     photos: gallery(photos, title),
     keyFigures: keyFigureViews(sheet),
-    bench: row.benchSheet && sheet ? benchView(row.benchSheet, sheet, captures) : null,
+    bench: listing.benchSheet && sheet ? benchView(listing.benchSheet, sheet, captures) : null,
     plots: await plotsFor(sheet, captures),
     restoration: restorationLog(entries),
-    seller: sellerCard(listing, row.seller, row.workshop),
+    seller: sellerCard(listing, listing.seller, listing.workshop),
     shipping: shippingView(listing, zone, req.zone ? null : guessed ? countryName(guessed) : null),
   };
 }

@@ -2,7 +2,7 @@ import { fn, col, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry } from "~/models/index.server";
 import type { SessionUser } from "~/auth/guards.server";
-import { checkBenchSheet, parseBenchSheet, type Verdict } from "@shared/bench";
+import { checkBenchSheet, type Verdict } from "@shared/bench";
 import { publishChecklist, type ChecklistItem } from "@shared/publish-checklist";
 import { assertEditable, ownListing } from "./access.server";
 import { verdictUpdate } from "./bench.server";
@@ -32,7 +32,7 @@ export async function checklistFor(listing: Listing, user: Pick<SessionUser, "em
   const sheetRow = await BenchSheet.findOne({ where: { listingId: listing.id }, transaction });
   const entries = await RestorationEntry.count({ where: { listingId: listing.id }, transaction });
   const photos = await photoCounts(listing.id, transaction);
-  const readings = (sheetRow?.sheet.readings as { basis?: string }[] | undefined) ?? [];
+  const readings = sheetRow?.sheet?.readings ?? [];
   return publishChecklist({
     listing,
     sheet: sheetRow ? { readings: readings.length, measured: readings.filter((r) => r.basis === "measured").length } : null,
@@ -57,12 +57,11 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
     let verdict: Verdict | null = null;
     let sheet = null;
     if (row) {
-      const parsed = parseBenchSheet(row.sheet);
-      if (!parsed.ok)
+      if (!row.sheet)
         throw new ListingInputError([{ path: "bench.sheet", message: "The stored bench sheet no longer reads; open the bench sheet step and save it again." }]);
-      sheet = parsed.sheet;
+      sheet = row.sheet;
       verdict = checkBenchSheet(sheet);
-      await row.update({ verdict: verdict as unknown as Record<string, unknown>, checkedAt: new Date() }, { transaction });
+      await row.update({ verdict, checkedAt: new Date() }, { transaction });
     }
     const update = verdictUpdate(listing, sheet, verdict);
     await listing.update(

@@ -5,7 +5,6 @@ import {
   TWO_PERSON_LIFT_G,
   formatPrice,
   type RestorationReading,
-  type ShippingOption,
   type ShippingZone,
 } from "@shared/catalogue";
 import type { Listing, RestorationEntry, User, Workshop } from "~/models/index.server";
@@ -100,7 +99,7 @@ export function shippingView(
   guessedFrom: string | null,
 ): ShippingView {
   const heavy = (listing.weightG ?? 0) >= TWO_PERSON_LIFT_G;
-  const offered = (listing.shippingOptions ?? []) as ShippingOption[];
+  const offered = listing.shippingOptions;
   const parcelWithheld = heavy && offered.some((o) => o.method === "parcel");
   const order = { collection: 0, parcel: 1, freight: 2 } as const;
   const options = offered

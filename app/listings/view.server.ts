@@ -45,7 +45,7 @@ export async function sellerListings(sellerId: string): Promise<SellerListingRow
   const coverOf = new Map<string, string>();
   for (const p of covers) if (p.thumbKey && (p.isCover || !coverOf.has(p.listingId))) coverOf.set(p.listingId, mediaUrl(p.thumbKey));
   return rows.map((l) => {
-    const verdict = (l as Listing & { benchSheet?: BenchSheet | null }).benchSheet?.verdict as { counts?: Record<Outcome, number> } | null | undefined;
+    const verdict = l.benchSheet?.verdict;
     return {
       id: l.id,
       title: listingTitle(l.maker, l.model),

@@ -1,13 +1,17 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { z } from "zod";
 import { sequelize } from "~/db.server";
-import type { CaptureConditions, CaptureKind } from "@shared/bench/analysis";
-import type { Reading, Sweep } from "@shared/bench/schema";
+import type { CaptureFormat } from "~/bench/captures.server";
+import { captureConditionsSchema, storedAnalysisSchema, type AnyAnalysis, type CaptureConditions, type CaptureKind } from "@shared/bench/analysis";
+import { readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench/schema";
+import { jsonColumn, none } from "./json-column.server";
 
 export type CaptureStatus = "queued" | "running" | "done" | "failed";
 
 /**
  * A raw measurement file (WAV or CSV) a seller uploaded, with its stated conditions; the background
  * job fills in the analysis and the bench-sheet readings, or the reason it refused the file.
+ * The JSON columns read through their schemas; a value stored in an older shape reads as null.
  */
 export class Capture extends Model<InferAttributes<Capture>, InferCreationAttributes<Capture>> {
   declare id: CreationOptional<string>;
@@ -18,9 +22,9 @@ export class Capture extends Model<InferAttributes<Capture>, InferCreationAttrib
   declare contentType: string;
   declare byteSize: number;
   declare storageKey: string | null;
-  declare format: Record<string, unknown>;
-  declare conditions: CaptureConditions;
-  declare analysis: CreationOptional<Record<string, unknown> | null>;
+  declare format: CaptureFormat | null;
+  declare conditions: CaptureConditions | null;
+  declare analysis: CreationOptional<AnyAnalysis | null>;
   declare readings: CreationOptional<Reading[] | null>;
   declare sweep: CreationOptional<Sweep | null>;
   declare errorCode: CreationOptional<string | null>;
@@ -30,6 +34,30 @@ export class Capture extends Model<InferAttributes<Capture>, InferCreationAttrib
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
+
+const header = z.tuple([z.string(), z.string()]).nullable();
+const captureFormatSchema = z.discriminatedUnion("file", [
+  z.object({
+    file: z.literal("wav"),
+    container: z.enum(["RIFF", "RIFX", "RF64"]),
+    encoding: z.enum(["pcm", "float"]),
+    bitDepth: z.literal([16, 24, 32]),
+    channels: z.literal([1, 2]),
+    sampleRate: z.number(),
+    frames: z.number(),
+    durationS: z.number(),
+  }),
+  z.object({ file: z.literal("csv"), rows: z.number(), header }),
+]);
+// Compile-time proof that the schema reads what the bench writes.
+const _format: (f: z.infer<typeof captureFormatSchema>) => CaptureFormat = (f) => f;
+void _format;
+
+const readFormat = jsonColumn("captures.format", captureFormatSchema, none);
+const readConditions = jsonColumn("captures.conditions", captureConditionsSchema, none);
+const readAnalysis = jsonColumn("captures.analysis", storedAnalysisSchema, none);
+const readReadings = jsonColumn("captures.readings", z.array(readingSchema), none);
+const readSweep = jsonColumn("captures.sweep", sweepSchema, none);
 
 Capture.init(
   {
@@ -41,11 +69,41 @@ Capture.init(
     contentType: { type: DataTypes.TEXT, allowNull: false },
     byteSize: { type: DataTypes.INTEGER, allowNull: false },
     storageKey: { type: DataTypes.TEXT, allowNull: true, unique: true },
-    format: { type: DataTypes.JSON, allowNull: false },
-    conditions: { type: DataTypes.JSON, allowNull: false },
-    analysis: { type: DataTypes.JSON, allowNull: true },
-    readings: { type: DataTypes.JSON, allowNull: true },
-    sweep: { type: DataTypes.JSON, allowNull: true },
+    format: {
+      type: DataTypes.JSON,
+      allowNull: false,
+      get() {
+        return readFormat(this.getDataValue("format"));
+      },
+    },
+    conditions: {
+      type: DataTypes.JSON,
+      allowNull: false,
+      get() {
+        return readConditions(this.getDataValue("conditions"));
+      },
+    },
+    analysis: {
+      type: DataTypes.JSON,
+      allowNull: true,
+      get() {
+        return readAnalysis(this.getDataValue("analysis"));
+      },
+    },
+    readings: {
+      type: DataTypes.JSON,
+      allowNull: true,
+      get() {
+        return readReadings(this.getDataValue("readings"));
+      },
+    },
+    sweep: {
+      type: DataTypes.JSON,
+      allowNull: true,
+      get() {
+        return readSweep(this.getDataValue("sweep"));
+      },
+    },
     errorCode: { type: DataTypes.TEXT, allowNull: true },
     errorMessage: { type: DataTypes.TEXT, allowNull: true },
     startedAt: { type: DataTypes.DATE, allowNull: true },

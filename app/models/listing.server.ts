@@ -1,6 +1,19 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+} from "sequelize";
 import { sequelize } from "~/db.server";
-import type { Category, CosmeticGrade, ListingStatus, ServiceState, ShippingOption } from "@shared/catalogue";
+import { ShippingOptionsSchema, type Category, type CosmeticGrade, type ListingStatus, type ServiceState, type ShippingOption } from "@shared/catalogue";
+import type { BenchSheet } from "./bench-sheet.server";
+import { jsonColumn } from "./json-column.server";
+import type { ListingPhoto } from "./listing-photo.server";
+import type { RestorationEntry } from "./restoration-entry.server";
+import type { User } from "./user.server";
+import type { Workshop } from "./workshop.server";
 
 /**
  * A unit for sale. Fields a draft may still lack are nullable; the database refuses to move a listing
@@ -55,7 +68,16 @@ export class Listing extends Model<InferAttributes<Listing>, InferCreationAttrib
   declare impedanceOhm: number | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+
+  // Associations (models/index.server.ts), present when a query includes them.
+  declare seller?: NonAttribute<User>;
+  declare workshop?: NonAttribute<Workshop | null>;
+  declare benchSheet?: NonAttribute<BenchSheet | null>;
+  declare photos?: NonAttribute<ListingPhoto[]>;
+  declare restorationEntries?: NonAttribute<RestorationEntry[]>;
 }
+
+const readShippingOptions = jsonColumn("listings.shipping_options", ShippingOptionsSchema, (): ShippingOption[] => []);
 
 const nullable = (type: DataTypes.DataType) => ({ type, allowNull: true });
 
@@ -88,7 +110,14 @@ Listing.init(
     region: nullable(DataTypes.TEXT),
     town: nullable(DataTypes.TEXT),
     postcode: nullable(DataTypes.TEXT),
-    shippingOptions: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+    shippingOptions: {
+      type: DataTypes.JSONB,
+      allowNull: false,
+      defaultValue: [],
+      get() {
+        return readShippingOptions(this.getDataValue("shippingOptions"));
+      },
+    },
     handlingDays: nullable(DataTypes.SMALLINT),
     cosmeticGrade: nullable(DataTypes.TEXT),
     serviceState: nullable(DataTypes.TEXT),

@@ -15,21 +15,22 @@ export class PaymentEvent extends Model<InferAttributes<PaymentEvent>, InferCrea
   declare type: string;
   declare objectId: string | null;
   declare livemode: boolean;
-  declare payload: Record<string, unknown>;
+  /** The event as received, for the record; its signature was checked before it got here. */
+  declare payload: Stripe.Event;
   declare eventCreatedAt: Date;
   declare receivedAt: CreationOptional<Date>;
   declare processedAt: Date | null;
 
   /** Stores the event once; `duplicate` is true when this id was already recorded. */
   static async record(event: Stripe.Event): Promise<{ event: PaymentEvent; duplicate: boolean }> {
-    const object = event.data.object as { id?: unknown };
+    const object = event.data.object;
     try {
       const row = await PaymentEvent.create({
         eventId: event.id,
         type: event.type,
-        objectId: typeof object.id === "string" ? object.id : null,
+        objectId: "id" in object && typeof object.id === "string" ? object.id : null,
         livemode: event.livemode,
-        payload: event as unknown as Record<string, unknown>,
+        payload: event,
         eventCreatedAt: new Date(event.created * 1000),
         processedAt: null,
       });

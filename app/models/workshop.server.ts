@@ -1,6 +1,14 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+} from "sequelize";
 import { sequelize } from "~/db.server";
 import type { WorkshopStatus } from "@shared/catalogue";
+import type { User } from "./user.server";
 
 /** A restoration business; a moderator verifies it before its listings carry the workshop's name as verified. */
 export class Workshop extends Model<InferAttributes<Workshop>, InferCreationAttributes<Workshop>> {
@@ -16,6 +24,9 @@ export class Workshop extends Model<InferAttributes<Workshop>, InferCreationAttr
   declare verifiedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+
+  /** Present when a query includes it (models/index.server.ts). */
+  declare owner?: NonAttribute<User>;
 }
 
 Workshop.init(

@@ -276,8 +276,8 @@ async function ensureListing(
     await BenchSheet.create(
       {
         listingId: listing.id,
-        sheet: sheet as unknown as Record<string, unknown>,
-        verdict: verdict as unknown as Record<string, unknown>,
+        sheet,
+        verdict,
         checkedAt: publishedAt,
       },
       { transaction: t },

@@ -104,19 +104,22 @@ export const QUANTITY_INFO: Record<Quantity, QuantityInfo> = {
   rumble: { label: "Rumble", kind: "decibel", baseUnit: "dB" },
 };
 
-const AMP: Quantity[] = [
+/** Never empty: a category's readings form a zod enum. */
+type QuantityList = readonly [Quantity, ...Quantity[]];
+
+const AMP: QuantityList = [
   "output_power", "output_voltage", "thd", "thd_n", "imd", "snr", "noise", "response_deviation", "f3db_low",
   "f3db_high", "power_bandwidth", "rise_time", "slew_rate", "damping_factor", "output_impedance", "input_impedance",
   "input_sensitivity", "gain", "channel_balance", "crosstalk", "rail_voltage", "dc_offset",
 ];
-const PHONO_INPUT: Quantity[] = ["riaa_deviation", "overload_margin"];
-const LINE: Quantity[] = [
+const PHONO_INPUT: QuantityList = ["riaa_deviation", "overload_margin"];
+const LINE: QuantityList = [
   "output_voltage", "thd", "thd_n", "imd", "snr", "noise", "response_deviation", "f3db_low", "f3db_high", "rise_time",
   "slew_rate", "output_impedance", "input_impedance", "input_sensitivity", "gain", "channel_balance", "crosstalk",
   "rail_voltage", "dc_offset",
 ];
 
-export const CATEGORY_QUANTITIES: Record<Category, readonly Quantity[]> = {
+export const CATEGORY_QUANTITIES: Record<Category, QuantityList> = {
   integrated_amplifier: [...AMP, ...PHONO_INPUT],
   power_amplifier: AMP,
   receiver: [...AMP, ...PHONO_INPUT],

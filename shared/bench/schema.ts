@@ -101,9 +101,9 @@ function checkReading(r: ReadingLike, ctx: z.RefinementCtx) {
     ctx.addIssue({ code: "custom", path: ["captureId"], message: 'A captureId needs origin "capture".' });
 }
 
-const allReadingSchema = z.strictObject(readingFields(QUANTITIES)).superRefine(checkReading);
-export type Reading = z.infer<typeof allReadingSchema>;
-export type ReadingInput = z.input<typeof allReadingSchema>;
+export const readingSchema = z.strictObject(readingFields(QUANTITIES)).superRefine(checkReading);
+export type Reading = z.infer<typeof readingSchema>;
+export type ReadingInput = z.input<typeof readingSchema>;
 
 export const sweepPointSchema = z.strictObject({ frequencyHz: hz, levelDb: z.number().min(-300).max(300) });
 
@@ -140,7 +140,7 @@ export const equipmentSchema = z.strictObject({
 });
 
 function sheetSchemaFor<C extends Category>(category: C) {
-  const qs = CATEGORY_QUANTITIES[category] as unknown as [Quantity, ...Quantity[]];
+  const qs = CATEGORY_QUANTITIES[category];
   return z
     .strictObject({
       id: z.string().max(64).optional(),
@@ -178,7 +178,7 @@ export const categorySheetSchemas = {
 } satisfies Record<Category, unknown>;
 
 /** The general shape every category's sheet fits; the per-category schemas narrow `readings.quantity`. */
-const anySheetShape = z.strictObject({
+export const anySheetShape = z.strictObject({
   id: z.string().optional(),
   category: z.enum(CATEGORIES),
   equipment: equipmentSchema.optional(),
@@ -186,7 +186,7 @@ const anySheetShape = z.strictObject({
   bridged: z.boolean().optional(),
   measuredOn: z.string().optional(),
   measuredBy: z.string().optional(),
-  readings: z.array(allReadingSchema),
+  readings: z.array(readingSchema),
   sweeps: z.array(sweepSchema).default([]),
   notes: z.string().optional(),
 });
@@ -203,12 +203,9 @@ const unionSchema = z.discriminatedUnion("category", [
   categorySheetSchemas.turntable,
   categorySheetSchemas.tape_deck,
 ]);
-// Compile-time proof that every category's sheet is a BenchSheet.
-const _fits: (s: z.infer<typeof unionSchema>) => BenchSheet = (s) => s;
-void _fits;
 
-/** Validates a bench sheet of any category (discriminated by `category`). */
-export const benchSheetSchema = unionSchema as unknown as z.ZodType<BenchSheet, BenchSheetInput>;
+/** Validates a bench sheet of any category (discriminated by `category`); typed as the general shape, which every category's sheet fits. */
+export const benchSheetSchema: z.ZodType<BenchSheet, BenchSheetInput> = unionSchema;
 
 export type SheetIssue = { path: string; message: string };
 

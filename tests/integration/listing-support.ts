@@ -100,7 +100,7 @@ export async function readyDraft(seller: Seller): Promise<Listing> {
   return (await Listing.scope("withSerial").findByPk(listing.id))!;
 }
 
-/** A finished capture owning these readings, as the analysis job stores it. */
+/** A finished capture owning these readings, as the analysis job stores it (less the analysis: only the readings matter here). */
 export async function makeCapture(ownerId: string, readings: Omit<Reading, "captureId">[]): Promise<Capture> {
   const capture = await Capture.create({
     ownerId,
@@ -109,13 +109,12 @@ export async function makeCapture(ownerId: string, readings: Omit<Reading, "capt
     contentType: "audio/wav",
     byteSize: 96_044,
     storageKey: `it/${RUN}/${randomBytes(6).toString("hex")}.wav`,
-    format: { container: "wav" },
+    format: { file: "wav", container: "RIFF", encoding: "pcm", bitDepth: 24, channels: 1, sampleRate: 48_000, frames: 48_000, durationS: 1 },
     conditions: { kind: "sine", scale: { kind: "volts-per-full-scale", volts: 40, basis: "peak" }, weighting: "unweighted", window: "blackman-harris-7" },
   });
   await capture.update({
     status: "done",
-    analysis: { note: "stored by the test" },
-    readings: readings.map((r) => ({ ...r, origin: "capture", captureId: capture.id }) as Reading),
+    readings: readings.map((r): Reading => ({ ...r, origin: "capture", captureId: capture.id })),
     finishedAt: new Date(),
   });
   return capture;

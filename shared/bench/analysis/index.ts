@@ -11,3 +11,4 @@ export * from "./clipping";
 export { aWeightingPowerTable } from "./weighting";
 export * from "./conditions";
 export * from "./to-readings";
+export * from "./stored";
