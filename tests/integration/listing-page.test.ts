@@ -192,9 +192,9 @@ describe("what the page carries", () => {
     const other = await createAmplifierListing({ label: "borrower" });
     try {
       const row = await BenchSheet.findOne({ where: { listingId: other.listing.id } });
-      const sheet = structuredClone(row!.sheet) as { readings: { captureId?: string }[] };
+      const sheet = structuredClone(row!.sheet!);
       for (const r of sheet.readings) if (r.captureId === other.captures.left.id) r.captureId = live.captures.left.id;
-      await row!.update({ sheet: sheet as never });
+      await row!.update({ sheet });
       const { body } = await open(other.listing.id);
       // Only its own right-channel capture is plotted.
       expect(body!.plots.spectra[0].channels.map((c) => c.key)).toEqual(["right"]);

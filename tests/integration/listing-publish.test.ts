@@ -5,7 +5,7 @@ import { saveItem } from "~/listings/drafts.server";
 import { ListingInputError, ListingStateError } from "~/listings/errors.server";
 import { publishListing } from "~/listings/publish.server";
 import { withdrawListing } from "~/listings/drafts.server";
-import { doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet, type Verdict } from "@shared/bench";
+import { doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { action as sellAction } from "~/routes/sell/index";
 import { BASE, call, cleanUp, makeAccount, makeCapture, readyDraft, reload, withOwnCaptures } from "./listing-support";
 
@@ -57,7 +57,7 @@ describe("publishing a listing", () => {
     expect(listing.benchVerified).toBe(true);
     expect(listing.publishedAt).toBeInstanceOf(Date);
     expect(listing.heldReason).toBeNull();
-    const verdict = sheet!.verdict as unknown as Verdict;
+    const verdict = sheet!.verdict!;
     expect(verdict.benchVerified).toBe(true);
     expect(verdict.counts.implausible + verdict.counts.questionable + verdict.counts.missing).toBe(0);
     expect(sheet!.checkedAt).toBeInstanceOf(Date);
@@ -148,7 +148,7 @@ describe("changing the bench sheet of a published listing", () => {
     let { listing, sheet } = await reload(draft.id);
     expect(listing.status).toBe("live");
     expect(listing.benchVerified).toBe(false);
-    expect((sheet!.verdict as unknown as Verdict).benchVerified).toBe(false);
+    expect(sheet!.verdict!.benchVerified).toBe(false);
     expect(listing.snrDb).toBeNull();
 
     // Put back, re-checked on save: verified again.

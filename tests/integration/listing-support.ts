@@ -7,6 +7,8 @@ import { normaliseRoles, type Role } from "~/auth/roles";
 import { createDraft, saveCondition, saveItem } from "~/listings/drafts.server";
 import { addRestorationEntry } from "~/listings/restoration.server";
 import type { BenchSheet as Sheet, Reading } from "@shared/bench";
+import { analyseSine, type SineAnalysis } from "@shared/bench/analysis";
+import { toneSamples } from "../support/capture-files";
 
 // Shared by the listing suites: accounts with session cookies, a listing filled in step by step as a
 // seller would, captures as the analysis job leaves them, and clean-up.
@@ -100,7 +102,15 @@ export async function readyDraft(seller: Seller): Promise<Listing> {
   return (await Listing.scope("withSerial").findByPk(listing.id))!;
 }
 
-/** A finished capture owning these readings, as the analysis job stores it (less the analysis: only the readings matter here). */
+const SCALE = { kind: "volts-per-full-scale", volts: 40, basis: "peak" } as const;
+let tone: SineAnalysis | undefined;
+/** A real analysis for the stored captures to carry; these suites look only at their readings. */
+function toneAnalysis(): SineAnalysis {
+  tone ??= analyseSine([toneSamples({ sampleRate: 48_000, seconds: 0.25, f0: 1000, peak: 0.5 })], 48_000, { scale: SCALE, fundamentalHz: 1000 }, ["mono"]);
+  return tone;
+}
+
+/** A finished capture owning these readings, as the analysis job stores it. */
 export async function makeCapture(ownerId: string, readings: Omit<Reading, "captureId">[]): Promise<Capture> {
   const capture = await Capture.create({
     ownerId,
@@ -110,10 +120,11 @@ export async function makeCapture(ownerId: string, readings: Omit<Reading, "capt
     byteSize: 96_044,
     storageKey: `it/${RUN}/${randomBytes(6).toString("hex")}.wav`,
     format: { file: "wav", container: "RIFF", encoding: "pcm", bitDepth: 24, channels: 1, sampleRate: 48_000, frames: 48_000, durationS: 1 },
-    conditions: { kind: "sine", scale: { kind: "volts-per-full-scale", volts: 40, basis: "peak" }, weighting: "unweighted", window: "blackman-harris-7" },
+    conditions: { kind: "sine", scale: SCALE, weighting: "unweighted", window: "blackman-harris-7" },
   });
   await capture.update({
     status: "done",
+    analysis: toneAnalysis(),
     readings: readings.map((r): Reading => ({ ...r, origin: "capture", captureId: capture.id })),
     finishedAt: new Date(),
   });

@@ -62,10 +62,10 @@ async function sineCapture(ownerId: string, channel: "left" | "right", h3: numbe
     storageKey: `captures/test/${randomUUID()}.wav`,
     format: { file: "wav", container: "RIFF", encoding: "pcm", bitDepth: 24, channels: 1, sampleRate: fs, frames: fs, durationS: 1 },
     conditions,
-    analysis: analysis as unknown as Record<string, unknown>,
+    analysis,
     readings: [],
     finishedAt: new Date(),
-  } as never);
+  });
 }
 
 export async function createAmplifierListing(opts: {
@@ -88,7 +88,7 @@ export async function createAmplifierListing(opts: {
     about: "Two benches, one scope, forty years of amplifiers.",
     verificationStatus: "verified",
     verifiedAt: new Date(),
-  } as never);
+  });
 
   const left = await sineCapture(seller.id, "left", 0.00011);
   const right = await sineCapture(seller.id, "right", 0.00013);
@@ -106,10 +106,10 @@ export async function createAmplifierListing(opts: {
     storageKey: squareKey,
     format: { file: "csv", rows: cols.x.length, header: ["time", "volts"] },
     conditions: { kind: "square", channel: "left", loadOhm: 8, frequencyHz: 10_000 },
-    analysis: analyseSquare(cols.x, cols.y) as unknown as Record<string, unknown>,
+    analysis: analyseSquare(cols.x, cols.y),
     readings: [],
     finishedAt: new Date(),
-  } as never);
+  });
 
   const sheet: Sheet = exampleIntegratedAmplifierSheet();
   sheet.equipment = { ...sheet.equipment, serial: FIXTURE_SERIAL };
@@ -168,8 +168,8 @@ export async function createAmplifierListing(opts: {
     publishedAt: status === "draft" ? null : new Date(),
     heldReason: status === "held" ? (opts.heldReason ?? "Power into 4 Ω is implausible for these rails.") : null,
     ...listingFacets(sheet),
-  } as never);
-  await BenchSheet.create({ listingId: listing.id, sheet: sheet as never, verdict: verdict as never, checkedAt: new Date() });
+  });
+  await BenchSheet.create({ listingId: listing.id, sheet, verdict, checkedAt: new Date() });
   await RestorationEntry.bulkCreate([
     {
       listingId: listing.id,
@@ -192,7 +192,7 @@ export async function createAmplifierListing(opts: {
       readingsBefore: [],
       readingsAfter: [{ quantity: "Idle current per channel", value: 32, unit: "mA", conditions: "after 2 h warm-up" }],
     },
-  ] as never);
+  ]);
   await ListingPhoto.bulkCreate(
     [0, 1].map((i) => ({
       listingId: listing.id,
