@@ -9,6 +9,7 @@ import { ConditionPatchSchema, ConditionSchema, ItemPatchSchema, ItemSchema } fr
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, ListingStateError, type Issue } from "./errors.server";
 import { NO_FACETS } from "@shared/listing-facets";
+import { isOneOf } from "@shared/one-of";
 
 // Drafts and the item and condition steps. Who may list: any signed-in account. Listing for the first
 // time makes the account a seller (the role is added with the draft, in one transaction); a workshop
@@ -18,7 +19,7 @@ const zodIssues = (issues: readonly { path: PropertyKey[]; message: string }[], 
   issues.map((i) => ({ path: prefix + i.path.map(String).join("."), message: i.message }));
 
 export async function createDraft(user: SessionUser, category: unknown): Promise<Listing> {
-  if (typeof category !== "string" || !(CATEGORIES as readonly string[]).includes(category))
+  if (!isOneOf(CATEGORIES, category))
     throw new ListingInputError([{ path: "category", message: "Choose what kind of unit you are listing." }]);
   return sequelize.transaction(async (transaction) => {
     if (!hasRole(user, ["seller", "workshop"])) {
@@ -30,7 +31,7 @@ export async function createDraft(user: SessionUser, category: unknown): Promise
       {
         sellerId: user.id,
         workshopId: workshop?.id ?? null,
-        category: category as Category,
+        category,
         maker: null,
         model: null,
         yearFrom: null,

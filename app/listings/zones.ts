@@ -1,4 +1,5 @@
 import { SHIPPING_ZONES, type ShippingZone } from "@shared/catalogue";
+import { isOneOf } from "@shared/one-of";
 
 // Which of a seller's shipping zones a visitor is in. Zones are relative to the seller's country:
 // domestic, neighbouring countries, the rest of the world. The visitor's country is a guess from the
@@ -66,5 +67,5 @@ export function zoneFor(sellerCountry: string | null, visitorCountry: string | n
 }
 
 export function parseZone(value: string | null | undefined): ShippingZone | null {
-  return value && (SHIPPING_ZONES as readonly string[]).includes(value) ? (value as ShippingZone) : null;
+  return isOneOf(SHIPPING_ZONES, value) ? value : null;
 }

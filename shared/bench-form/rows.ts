@@ -3,6 +3,7 @@
 import { QUANTITY_INFO, type Quantity } from "../bench/quantities";
 import { CHANNELS, CHANNELS_DRIVEN, WEIGHTINGS, type Conditions, type Reading } from "../bench/schema";
 import { formatNumber, formatValue, parseRange, parseValue, ratioToDb, type Kind, type ParsedValue } from "../bench/units";
+import { isOneOf } from "../one-of";
 
 export const ROW_FIELDS = [
   "load", "frequency", "range", "level", "limit", "bandwidth", "weighting", "driven", "tone", "speed", "supply", "distance",
@@ -83,10 +84,12 @@ export const SELECT_FIELDS: Partial<Record<ConditionField, readonly string[]>> =
 export type RowErrors = Partial<Record<"quantity" | "value" | "channel" | "basis" | "note" | ConditionField, string>>;
 export type RowResult = { reading: Reading | null; errors: RowErrors; /** Parsed value per field, to show beside it. */ shown: Partial<Record<"value" | ConditionField, string>> };
 
+const NO_CONDITIONS: Record<ConditionField, string> = {
+  load: "", frequency: "", range: "", level: "", limit: "", bandwidth: "", weighting: "", driven: "", tone: "", speed: "", supply: "", distance: "",
+};
+
 export function blankRow(key: string, basis: SheetRow["basis"] = "measured", rest: Partial<SheetRow> = {}): SheetRow {
-  const row = { key, quantity: "", basis, channel: "", value: "", note: "" } as SheetRow;
-  for (const f of ROW_FIELDS) row[f] = "";
-  return { ...row, ...rest };
+  return { key, quantity: "", basis, channel: "", value: "", note: "", ...NO_CONDITIONS, ...rest };
 }
 
 /** What a parsed value reads as, e.g. "28.3 V rms", "0.030 % (−70.5 dB)". */
@@ -217,11 +220,11 @@ export function readRow(row: SheetRow): RowResult {
         break;
       }
       case "weighting":
-        if ((WEIGHTINGS as readonly string[]).includes(t)) conditions.weighting = t as Conditions["weighting"];
+        if (isOneOf(WEIGHTINGS, t)) conditions.weighting = t;
         else errors.weighting = "Choose a weighting from the list.";
         break;
       case "driven":
-        if ((CHANNELS_DRIVEN as readonly string[]).includes(t)) conditions.channelsDriven = t as Conditions["channelsDriven"];
+        if (isOneOf(CHANNELS_DRIVEN, t)) conditions.channelsDriven = t;
         else errors.driven = "Choose from the list.";
         break;
       case "supply":

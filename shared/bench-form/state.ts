@@ -1,10 +1,20 @@
 // The whole bench sheet form: rows and sheet details to a bench sheet and back, the HTML form's fields,
 // and the rows a new sheet starts with. Used by the browser (live outcomes) and the server (the authority).
-import { CATEGORY_QUANTITIES, QUANTITY_INFO, type Category, type Quantity } from "../bench/quantities";
-import { conditionsSchema, equipmentSchema, parseBenchSheet, sweepSchema, type BenchSheet, type Conditions, type Reading, type Sweep } from "../bench/schema";
+import { CATEGORY_QUANTITIES, QUANTITIES, QUANTITY_INFO, type Category, type Quantity } from "../bench/quantities";
+import { CHANNELS, conditionsSchema, equipmentSchema, parseBenchSheet, readingSchema, sweepSchema, type BenchSheet, type Conditions, type Reading, type Sweep } from "../bench/schema";
+import { isOneOf } from "../one-of";
 import { formatValue } from "../bench/units";
 import type { FormLike } from "../listing-draft";
 import { blankRow, CONDITION_FIELDS, fieldOfPath, readRow, ROW_FIELDS, type ConditionField, type RowErrors, type RowResult, type SheetRow } from "./rows";
+
+/** A form field's JSON, or undefined when it does not parse (the schema after it then refuses it). */
+function parseJson(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+}
 
 /** The stored condition keys each form field writes. */
 const CONDITION_KEYS: Record<ConditionField, (keyof Conditions)[]> = {
@@ -103,8 +113,8 @@ export function readingToRow(r: Reading, key: string): SheetRow {
     (r.unit || info.kind === "number"
       ? formatValue(r.value, info.kind, { unit: r.unit, sig: 6, trimZeros: true })
       : formatValue(r.value, info.kind, { sig: 6 }));
-  const shownKeys = new Set(CONDITION_FIELDS[r.quantity].flatMap((f) => CONDITION_KEYS[f]));
-  const kept = Object.fromEntries(Object.entries(c).filter(([k]) => !shownKeys.has(k as keyof Conditions)));
+  const shownKeys = new Set<string>(CONDITION_FIELDS[r.quantity].flatMap((f) => CONDITION_KEYS[f]));
+  const kept = Object.fromEntries(Object.entries(c).filter(([k]) => !shownKeys.has(k)));
   const range = (b?: { lowHz: number; highHz: number }) => (b ? `${text(b.lowHz, "frequency")} – ${text(b.highHz, "frequency")}` : "");
   return blankRow(key, r.basis, {
     quantity: r.quantity,
@@ -123,7 +133,7 @@ export function readingToRow(r: Reading, key: string): SheetRow {
     speed: c.speedRpm !== undefined ? `${+c.speedRpm.toFixed(3)} rpm` : c.tapeSpeedCmS !== undefined ? `${+c.tapeSpeedCmS.toFixed(3)} cm/s` : "",
     supply: c.supply ?? "",
     distance: c.distanceM !== undefined ? `${c.distanceM} m` : "",
-    ...(Object.keys(kept).length ? { keep: kept as Conditions } : {}),
+    ...(Object.keys(kept).length ? { keep: kept } : {}),
   });
 }
 
@@ -222,9 +232,11 @@ export function readSheetForm(form: FormLike, category: Category): SheetFormStat
   for (let i = 0; i < count; i++) {
     if (removed === String(i)) continue;
     const basis = get(rowField(i, "basis")) === "rated" ? "rated" : "measured";
+    const quantity = get(rowField(i, "quantity"));
+    const channel = get(rowField(i, "channel"));
     const row = blankRow(get(rowField(i, "key")) || `f${i}`, basis, {
-      quantity: (get(rowField(i, "quantity")) as Quantity) || "",
-      channel: (get(rowField(i, "channel")) as SheetRow["channel"]) || "",
+      quantity: isOneOf(QUANTITIES, quantity) ? quantity : "",
+      channel: isOneOf(CHANNELS, channel) ? channel : "",
       value: get(rowField(i, "value")),
       note: get(rowField(i, "note")),
     });
@@ -240,22 +252,18 @@ export function readSheetForm(form: FormLike, category: Category): SheetFormStat
     }
     const captured = get(rowField(i, "capture"));
     if (captured) {
-      try {
-        row.capture = JSON.parse(captured) as Reading;
-      } catch {
-        continue; // a mangled capture row is dropped; the server rebuilds capture readings from the capture anyway
-      }
+      // A mangled capture row is dropped; the server rebuilds capture readings from the capture anyway.
+      const reading = readingSchema.safeParse(parseJson(captured));
+      if (!reading.success) continue;
+      row.capture = reading.data;
       if (removedCapture && row.capture.captureId === removedCapture) continue;
     }
     rows.push(row);
   }
-  let sweeps: Sweep[] = [];
-  try {
-    const raw = JSON.parse(get("sweeps") || "[]");
-    if (Array.isArray(raw)) sweeps = raw.map((s) => sweepSchema.safeParse(s)).filter((r) => r.success).map((r) => r.data);
-  } catch {
-    sweeps = [];
-  }
+  const rawSweeps = parseJson(get("sweeps") || "[]");
+  const sweeps: Sweep[] = Array.isArray(rawSweeps)
+    ? rawSweeps.map((s) => sweepSchema.safeParse(s)).filter((r) => r.success).map((r) => r.data)
+    : [];
   let equipment: BenchSheet["equipment"];
   try {
     const e = equipmentSchema.safeParse(JSON.parse(get("equipment") || "null"));
@@ -285,10 +293,10 @@ export function sheetFingerprint(sheet: BenchSheet | null | undefined): string {
     if (Array.isArray(v)) return v.map(norm);
     if (v && typeof v === "object")
       return Object.fromEntries(
-        Object.keys(v)
-          .filter((k) => k !== "text" && k !== "id" && (v as Record<string, unknown>)[k] !== undefined)
-          .sort()
-          .map((k) => [k, norm((v as Record<string, unknown>)[k])]),
+        Object.entries(v)
+          .filter(([k, x]) => k !== "text" && k !== "id" && x !== undefined)
+          .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
+          .map(([k, x]) => [k, norm(x)]),
       );
     return v;
   };

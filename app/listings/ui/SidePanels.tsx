@@ -4,6 +4,7 @@ import { Badge } from "~/components/Badge";
 import { Card } from "~/components/Card";
 import { TWO_PERSON_LIFT_G, type ShippingZone } from "@shared/catalogue";
 import type { ListingHead, SellerCard as Seller, ShippingView } from "../types";
+import { parseZone } from "../zones";
 
 // The seller's card, the shipping options for the visitor's zone, and the safety cautions.
 
@@ -56,7 +57,7 @@ export function ShippingPanel({ shipping }: { shipping: ShippingView }) {
             id="zone"
             name="zone"
             value={zone}
-            onChange={(e) => setZone(e.target.value as ShippingZone)}
+            onChange={(e) => setZone(parseZone(e.target.value) ?? "domestic")}
             className="block w-full rounded-md border border-rule-strong bg-card px-3 py-2 text-[0.9375rem] text-ink"
           >
             {shipping.zones.map((z) => (

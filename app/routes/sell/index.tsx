@@ -12,6 +12,7 @@ import { OutcomeBadge } from "~/components/Badge";
 import { FormError } from "~/components/Field";
 import { PageHeader } from "~/components/PageHeader";
 import { StatusBadge } from "~/sell/StatusBadge";
+import { isOneOf } from "@shared/one-of";
 import { CATEGORY_LABELS, formatPrice, listingTitle } from "@shared/catalogue";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your listings · Sell · Loadline" }];
@@ -67,7 +68,7 @@ export default function SellIndex({ loaderData, actionData }: Route.ComponentPro
         </div>
       ) : (
         GROUPS.map((g) => {
-          const rows = listings.filter((l) => (g.statuses as readonly string[]).includes(l.status));
+          const rows = listings.filter((l) => isOneOf(g.statuses, l.status));
           if (!rows.length) return null;
           return (
             <section key={g.title} className="space-y-3" aria-labelledby={`g-${g.statuses[0]}`}>

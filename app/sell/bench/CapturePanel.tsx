@@ -4,6 +4,10 @@ import { Badge } from "~/components/Badge";
 import { controlClass } from "~/components/Field";
 import { cx } from "~/components/cx";
 import { describeReading, type Reading, type Sweep } from "@shared/bench";
+import { isOneOf } from "@shared/one-of";
+
+const CAPTURE_KINDS = ["sine", "square", "sweep"] as const;
+type CaptureKind = (typeof CAPTURE_KINDS)[number];
 
 // Raw measurement files (WAV, CSV) sent to the capture API with the conditions they were taken in; the
 // analysis comes back as readings that the sheet takes over, marked as from a capture. Needs JavaScript.
@@ -51,7 +55,7 @@ export const CAPTURE_FORM_ID = "capture-form";
 
 export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => void }) {
   const fileId = useId();
-  const [kind, setKind] = useState<"sine" | "square" | "sweep">("sine");
+  const [kind, setKind] = useState<CaptureKind>("sine");
   const [items, setItems] = useState<Item[]>([]);
   const [problem, setProblem] = useState<string | null>(null);
   const update = (key: number, patch: Partial<Item>) => setItems((all) => all.map((i) => (i.key === key ? { ...i, ...patch } : i)));
@@ -92,7 +96,7 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
             <input form={CAPTURE_FORM_ID} id={fileId} name="file" type="file" accept=".wav,.csv,audio/wav,audio/x-wav,text/csv" className="block w-full text-sm file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:font-medium" />
           </label>
           <Field label="What it holds">
-            <select form={CAPTURE_FORM_ID} name="kind" value={kind} onChange={(e) => setKind(e.target.value as typeof kind)} className={selectClass}>
+            <select form={CAPTURE_FORM_ID} name="kind" value={kind} onChange={(e) => setKind(isOneOf(CAPTURE_KINDS, e.target.value) ? e.target.value : "sine")} className={selectClass}>
               <option value="sine">Sine at the output (distortion, level, noise)</option>
               <option value="square">Square wave (rise time)</option>
               <option value="sweep">Frequency sweep (response)</option>

@@ -1,7 +1,8 @@
 import { OutcomeBadge } from "~/components/Badge";
 import { controlClass } from "~/components/Field";
 import { cx } from "~/components/cx";
-import { QUANTITY_INFO, WEIGHTING_LABELS, type Outcome, type Quantity } from "@shared/bench";
+import { CHANNELS, QUANTITY_INFO, WEIGHTING_LABELS, type Outcome, type Quantity } from "@shared/bench";
+import { isOneOf } from "@shared/one-of";
 import { CONDITION_FIELDS, FIELD_LABELS, SELECT_FIELDS, type ConditionField, type RowResult, type SheetRow } from "@shared/bench-form/rows";
 import { rowField } from "@shared/bench-form/state";
 
@@ -97,7 +98,7 @@ export function ReadingRow({
         <span className="figures w-7 shrink-0 text-xs text-ink-faint">{label}</span>
         <label className="min-w-0 flex-1 basis-48">
           <span className="sr-only">Reading {label}: what was measured</span>
-          <select name={name("quantity")} value={row.quantity} onChange={(e) => onChange({ quantity: e.target.value as Quantity })} className={selectClass} aria-invalid={errors.quantity ? true : undefined}>
+          <select name={name("quantity")} value={row.quantity} onChange={(e) => onChange({ quantity: isOneOf(quantities, e.target.value) ? e.target.value : "" })} className={selectClass} aria-invalid={errors.quantity ? true : undefined}>
             <option value="">Choose the reading…</option>
             {quantities.map((q) => (
               <option key={q} value={q}>
@@ -108,7 +109,7 @@ export function ReadingRow({
         </label>
         <label className="w-32 shrink-0 max-sm:ml-9 max-sm:flex-1">
           <span className="sr-only">Channel</span>
-          <select name={name("channel")} value={row.channel} onChange={(e) => onChange({ channel: e.target.value as SheetRow["channel"] })} className={selectClass}>
+          <select name={name("channel")} value={row.channel} onChange={(e) => onChange({ channel: isOneOf(CHANNELS, e.target.value) ? e.target.value : "" })} className={selectClass}>
             <option value="">Channel…</option>
             <option value="left">Left</option>
             <option value="right">Right</option>
