@@ -79,7 +79,8 @@ export default function App() {
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   if (isRouteErrorResponse(error)) {
-    const message = typeof error.data === "object" && error.data && "message" in error.data ? String(error.data.message) : undefined;
+    const body: unknown = error.data;
+    const message = typeof body === "object" && body && "message" in body ? String(body.message) : undefined;
     return <ErrorPage status={error.status} message={message} />;
   }
   const detail = import.meta.env.DEV && error instanceof Error ? error.stack ?? error.message : undefined;

@@ -52,7 +52,7 @@ export async function proxy(res: ServerResponse, url: string, init: RequestInit 
 
 export function pick(req: IncomingMessage, names: string[]): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const n of names) if (typeof req.headers[n] === "string") out[n] = req.headers[n] as string;
+  for (const n of names) if (typeof req.headers[n] === "string") out[n] = req.headers[n];
   return out;
 }
 

@@ -94,7 +94,7 @@ async function captureFigures(): Promise<Figure[]> {
 
 async function sheetFigures(): Promise<{ figures: Figure[]; note?: string }> {
   try {
-    const mod = (await import("./bench/sheet")) as { benchSheetCheck: () => Promise<Figure[]> };
+    const mod = await import("./bench/sheet");
     return { figures: await mod.benchSheetCheck() };
   } catch (e) {
     return { figures: [], note: `bench-sheet check timing not available (scripts/bench/sheet.ts: ${(e as Error).message})` };

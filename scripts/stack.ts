@@ -28,7 +28,7 @@ export function profile(name: "dev" | "test"): Profile {
       env: {
         PORT: port,
         ...Object.fromEntries(Object.entries(process.env).filter(([k, v]) => k.startsWith("FAKE_") && v)),
-      } as Record<string, string>,
+      },
     };
   }
   // TEST_PORT_OFFSET moves every port of the throw-away stack, so two checkouts can test at once.

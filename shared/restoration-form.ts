@@ -91,7 +91,7 @@ export function readRestorationForm(
   if (Object.keys(errors).length) return { ok: false, errors };
   const parsed = RestorationEntrySchema.safeParse(raw);
   if (!parsed.success) {
-    const named = Object.entries(issuesToFields(parsed.error.issues)).map(([k, m]) => [
+    const named = Object.entries(issuesToFields(parsed.error.issues)).map(([k, m]): [string, typeof m] => [
       k.replace(/^readingsBefore/, "before").replace(/^readingsAfter/, "after").replace(/\.unit$/, ".value"),
       m,
     ]);

@@ -34,5 +34,5 @@ export const textLinkClass =
 
 /** A link inside running text, visibly a link. */
 export function TextLink({ className, ...rest }: LinkProps) {
-  return <Link className={cx(textLinkClass, className as string | undefined)} {...rest} />;
+  return <Link className={cx(textLinkClass, className)} {...rest} />;
 }

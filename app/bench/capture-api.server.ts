@@ -86,7 +86,7 @@ async function store(
             return { rows };
           },
         },
-      } as object);
+      });
       return capture;
     });
   } catch (error) {

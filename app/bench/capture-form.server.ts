@@ -82,7 +82,7 @@ export function readConditions(form: FormData, inferred: CaptureKind | null): Co
         issues: [{ path: "kind", message: "required" }],
       };
     }
-    raw = { ...(raw as object), kind: inferred };
+    raw = { ...raw, kind: inferred };
   }
   // A flat form may carry fields for every kind; keep those of this kind. JSON is taken as sent.
   if (typeof json !== "string" || json.trim() === "") raw = onlyFieldsOfKind(raw as Record<string, unknown>);

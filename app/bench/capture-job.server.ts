@@ -1,17 +1,18 @@
 // The background analysis of one capture (queue "capture-analyze"). A file the analysis refuses ends
 // the capture as failed, with the reason, and its stored file is removed; anything else (storage or
 // database trouble) is thrown so pg-boss retries the job.
+import { z } from "zod";
 import { captureConditionsSchema } from "@shared/bench/analysis";
+import { idSchema } from "@shared/ids";
 import { Capture } from "~/models/capture.server";
 import { deleteObject, getObjectBuffer } from "~/services/storage.server";
 import { analyseCapture, CaptureError } from "./captures.server";
 
-export interface CaptureJobData {
-  captureId: string;
-}
+const JobData = z.object({ captureId: idSchema("capture") });
+export type CaptureJobData = z.infer<typeof JobData>;
 
-export async function analyseCaptureJob(data: CaptureJobData): Promise<{ status: string }> {
-  const capture = await Capture.findByPk(data.captureId);
+export async function analyseCaptureJob(data: unknown): Promise<{ status: string }> {
+  const capture = await Capture.findByPk(JobData.parse(data).captureId);
   // Gone, or already finished by an earlier attempt: nothing to do.
   if (!capture || capture.status === "done" || capture.status === "failed") return { status: capture?.status ?? "missing" };
   await capture.update({ status: "running", startedAt: new Date() });

@@ -95,7 +95,7 @@ export function readWavFormat(bytes: Uint8Array): { format: WavFormat; data: Uin
       container: wav.container as WavFormat["container"],
       encoding,
       bitDepth: bits as 16 | 24 | 32,
-      channels: fmt.numChannels as 1 | 2,
+      channels: fmt.numChannels,
       sampleRate: fmt.sampleRate,
       frames,
       durationS: frames / fmt.sampleRate,

@@ -60,7 +60,7 @@ export interface ButtonLinkProps extends LinkProps {
 
 /** A link that looks like a button, for navigation (never for actions that change data). */
 export function ButtonLink({ variant = "primary", size = "md", className, ...rest }: ButtonLinkProps) {
-  return <Link className={buttonClass(variant, size, className as string | undefined)} {...rest} />;
+  return <Link className={buttonClass(variant, size, className)} {...rest} />;
 }
 
 function Spinner() {

@@ -81,7 +81,7 @@ function AccountMenu({ user }: { user: HeaderUser }) {
     .split(/\s+/)
     .filter(Boolean)
     .slice(0, 2)
-    .map((w) => w[0]!.toUpperCase())
+    .map((w) => w[0].toUpperCase())
     .join("");
   return (
     <>

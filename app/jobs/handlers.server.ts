@@ -2,9 +2,9 @@ import { QUEUES, type QueueName } from "~/services/jobs.server";
 import { processPhoto } from "~/photos/process.server";
 import { analyseCaptureJob } from "~/bench/capture-job.server";
 
-// Every queue's handler, registered by the worker. A handler receives one job's data and throws to
-// let pg-boss retry it.
-export type JobHandler = (data: any, jobId: string) => Promise<unknown>;
+// Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
+// parses it) and throws to let pg-boss retry it.
+export type JobHandler = (data: unknown, jobId: string) => Promise<unknown>;
 
 export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.photoProcess]: processPhoto,

@@ -4,7 +4,7 @@ import { BenchSheet, Listing, User, Workshop } from "~/models/index.server";
 import type { SessionUser } from "~/auth/guards.server";
 import { hasRole } from "~/auth/guards.server";
 import { normaliseRoles } from "~/auth/roles";
-import { CATEGORIES, type Category } from "@shared/catalogue";
+import { CATEGORIES } from "@shared/catalogue";
 import { ConditionPatchSchema, ConditionSchema, ItemPatchSchema, ItemSchema } from "@shared/listing-draft";
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, ListingStateError, type Issue } from "./errors.server";

@@ -11,6 +11,7 @@ import {
 import { mediaUrl } from "~/catalogue/media-url";
 import { signInPath } from "~/auth/redirect";
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry, User, Workshop } from "~/models/index.server";
+import type { Capture } from "~/models/capture.server";
 import { benchView, keyFigureViews } from "./bench-view.server";
 import { capturesForSheet } from "./captures.server";
 import { plotsFor } from "./plots.server";
@@ -57,7 +58,7 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
       order: [["position", "ASC"]],
     }),
     RestorationEntry.findAll({ where: { listingId: listing.id } }),
-    sheet ? capturesForSheet(sheet, listing.sellerId) : Promise.resolve(new Map()),
+    sheet ? capturesForSheet(sheet, listing.sellerId) : Promise.resolve(new Map<string, Capture>()),
     req.viewer ? isWatching(req.viewer.id, listing.id) : Promise.resolve(false),
     hasSerial(listing.id),
   ]);

@@ -3,7 +3,6 @@ import { BenchSheet, Listing, ListingPhoto } from "~/models/index.server";
 import type { SessionUser } from "~/auth/guards.server";
 import { mediaUrl } from "~/catalogue/media-url";
 import { photoView } from "~/photos/access.server";
-import type { PhotoView } from "~/photos/limits";
 import { listingTitle, type ListingStatus } from "@shared/catalogue";
 import type { Outcome } from "@shared/bench";
 import { ownListing } from "./access.server";
@@ -90,7 +89,7 @@ export async function editorData(listingId: string, user: SessionUser) {
     verdict: bench.verdict,
     checkedAt: bench.checkedAt?.toISOString() ?? null,
     restoration,
-    photos: photos.map(photoView) as PhotoView[],
+    photos: photos.map(photoView),
     checklist,
   };
 }

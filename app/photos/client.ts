@@ -17,7 +17,7 @@ export class PhotoApiFailure extends Error {
 }
 
 async function readJson<T>(res: Response): Promise<T> {
-  const body = await res.json().catch(() => null);
+  const body: unknown = await res.json().catch(() => null);
   if (!res.ok) throw failureFrom(res.status, body);
   return body as T;
 }

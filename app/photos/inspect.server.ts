@@ -139,7 +139,7 @@ function looksLikeText(bytes: Uint8Array): boolean {
 }
 
 function lastCharBoundary(sample: Uint8Array): number {
-  let end = sample.length;
+  const end = sample.length;
   for (let i = 1; i <= 3 && end - i >= 0; i++) {
     const c = sample[end - i];
     if ((c & 0xc0) === 0xc0) return end - i; // a lead byte whose sequence may be incomplete
@@ -149,7 +149,6 @@ function lastCharBoundary(sample: Uint8Array): number {
 }
 
 function displayName(fileName: string): string {
-  // eslint-disable-next-line no-control-regex
   const clean = fileName.replace(/[\u0000-\u001f\u007f]/g, "").trim();
   if (!clean || clean === "This file") return "This file";
   const short = clean.length > 80 ? `${clean.slice(0, 77)}…` : clean;

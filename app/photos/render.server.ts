@@ -1,5 +1,5 @@
 import { Jimp } from "jimp";
-import { PHOTO_LIMITS, PHOTO_SIZES, PHOTO_SIZE_NAMES, type PhotoSize } from "./limits";
+import { PHOTO_LIMITS, PHOTO_SIZES, type PhotoSize } from "./limits";
 import { fitWithin, flattenOnWhite, hasTransparency, shrink, type Bitmap } from "./pixels.server";
 
 // Decodes an upload that passed the checks, turns it upright, and re-encodes everything from the
@@ -45,15 +45,16 @@ export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "im
       : { body: await encode.jpeg(full, QUALITY.original), contentType, width: full.width, height: full.height };
 
   // Largest to smallest, each step shrinking the previous one.
-  const sizes = {} as Record<PhotoSize, RenderedImage>;
   let source = hasTransparency(full) ? flattenOnWhite(full) : full;
-  for (const size of [...PHOTO_SIZE_NAMES].sort((a, b) => PHOTO_SIZES[b] - PHOTO_SIZES[a])) {
+  const next = async (size: PhotoSize): Promise<RenderedImage> => {
     const target = fitWithin(source.width, source.height, PHOTO_SIZES[size]);
-    const step = shrink(source, target.width, target.height);
-    sizes[size] = { body: await encode.jpeg(step, QUALITY[size]), contentType: "image/jpeg", ...target };
-    source = step;
-  }
-  return { original, sizes, phash: perceptualHash(source) };
+    source = shrink(source, target.width, target.height);
+    return { body: await encode.jpeg(source, QUALITY[size]), contentType: "image/jpeg", ...target };
+  };
+  const zoom = await next("zoom");
+  const listing = await next("listing");
+  const thumb = await next("thumb");
+  return { original, sizes: { zoom, listing, thumb }, phash: perceptualHash(source) };
 }
 
 // jimp's DCT hash squeezes the picture to 32 × 32 first; doing that step here with the area average
@@ -61,7 +62,8 @@ export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "im
 function perceptualHash(smallest: Bitmap): string {
   const side = Math.min(32, smallest.width, smallest.height);
   const squeezed = shrink(smallest, side, side);
-  return bitsToHex(Jimp.fromBitmap(squeezed).pHash());
+  // jimp types the instance fromBitmap makes as any.
+  return bitsToHex((Jimp.fromBitmap(squeezed) as { pHash(): string }).pHash());
 }
 
 // The codecs jimp registered, called on a bitmap directly: jimp's own JPEG export first composites

@@ -130,7 +130,7 @@ type PgClient = { query(text: string, values?: unknown[]): Promise<{ rows: unkno
 function transactionDb(transaction: Transaction) {
   const client = (transaction as unknown as { connection?: PgClient }).connection;
   if (!client || typeof client.query !== "function") throw new Error("the transaction has no connection");
-  return { executeSql: (text: string, values: unknown[]) => client.query(text, values) as Promise<{ rows: any[] }> };
+  return { executeSql: (text: string, values: unknown[]) => client.query(text, values) };
 }
 
 /** The route's whole job: ownership before reading the body, then the file, then acceptance. */

@@ -43,9 +43,9 @@ export function ItemForm({
   const [live, setLive] = useState<Values>(values);
   const autosave = useAutosave(listingId);
   const errors: FieldErrors = { ...serverErrors, ...issuesByField(autosave.serverIssues, "item"), ...autosave.clientErrors };
-  const v = (k: string) => (typeof values[k] === "string" ? (values[k] as string) : "");
+  const v = (k: string) => (typeof values[k] === "string" ? values[k] : "");
   const on = (k: string) => values[k] === true;
-  const liveText = (k: string) => (typeof live[k] === "string" ? (live[k] as string) : "");
+  const liveText = (k: string) => (typeof live[k] === "string" ? live[k] : "");
 
   const onChange = () => {
     const form = formRef.current;

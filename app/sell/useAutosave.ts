@@ -36,7 +36,8 @@ export function useAutosave(listingId: string, { delay = 900, onSaved }: { delay
     setClientErrors({});
     build.current = null;
     setState({ status: "saving" });
-    fetcher.submit(r.body as never, { method: "PATCH", action, encType: "application/json" });
+    // The answer arrives as fetcher.data (the effect below); a failed request shows there too.
+    void fetcher.submit(r.body as never, { method: "PATCH", action, encType: "application/json" });
   }, [fetcher, action]);
 
   /** Call on every change; `b` reads the form when the pause is over. */
@@ -63,7 +64,7 @@ export function useAutosave(listingId: string, { delay = 900, onSaved }: { delay
       onSaved?.(answer);
     }
     if (build.current && !timer.current) timer.current = setTimeout(send, 50);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- once per answer: onSaved is a new function on every render
   }, [fetcher.state, fetcher.data]);
 
   // Leaving the step with a change still waiting: send it anyway (keepalive survives the navigation).

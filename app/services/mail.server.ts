@@ -1,4 +1,5 @@
 import nodemailer, { type Transporter } from "nodemailer";
+import type SMTPTransport from "nodemailer/lib/smtp-transport";
 import { env, type Env } from "~/env.server";
 
 // Outgoing mail over SMTP: the local catcher when SMTP_URL is absent, a real relay otherwise.
@@ -11,7 +12,9 @@ export interface OutgoingMail {
   replyTo?: string;
 }
 
-export function createMailTransport(mail: Env["mail"] = env().mail): Transporter {
+type Mailer = Transporter<SMTPTransport.SentMessageInfo>;
+
+export function createMailTransport(mail: Env["mail"] = env().mail): Mailer {
   return nodemailer.createTransport({
     url: mail.smtpUrl,
     // A relay that never answers must not hold a request open for minutes.
@@ -21,8 +24,8 @@ export function createMailTransport(mail: Env["mail"] = env().mail): Transporter
   });
 }
 
-let transport: Transporter | undefined;
-function transporter(): Transporter {
+let transport: Mailer | undefined;
+function transporter(): Mailer {
   transport ??= createMailTransport();
   return transport;
 }

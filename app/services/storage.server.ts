@@ -13,6 +13,7 @@ import {
 } from "@aws-sdk/client-s3";
 import { randomUUID } from "node:crypto";
 import type { Readable } from "node:stream";
+import { buffer } from "node:stream/consumers";
 import { env, type Env } from "~/env.server";
 
 // Photos and captures live in object storage; the database keeps only their keys.
@@ -92,9 +93,7 @@ export async function getObject(key: string): Promise<StoredObject | null> {
 export async function getObjectBuffer(key: string): Promise<Buffer | null> {
   const obj = await getObject(key);
   if (!obj) return null;
-  const chunks: Buffer[] = [];
-  for await (const chunk of obj.body) chunks.push(Buffer.from(chunk));
-  return Buffer.concat(chunks);
+  return buffer(obj.body);
 }
 
 export async function headObject(

@@ -18,7 +18,7 @@ function pretty(v: unknown, indent = ""): string {
     return flat.replace(/":/g, '": ').replace(/,"/g, ', "').replace(/},{/g, "}, {");
   const inner = indent + "  ";
   if (Array.isArray(v)) return `[\n${v.map((x) => inner + pretty(x, inner)).join(",\n")}\n${indent}]`;
-  return `{\n${Object.entries(v as object).map(([k, x]) => `${inner}${JSON.stringify(k)}: ${pretty(x, inner)}`).join(",\n")}\n${indent}}`;
+  return `{\n${Object.entries(v).map(([k, x]) => `${inner}${JSON.stringify(k)}: ${pretty(x, inner)}`).join(",\n")}\n${indent}}`;
 }
 
 export function benchSheetApiSection(): string {

@@ -133,7 +133,7 @@ add(["ns"], { kind: "time", unit: "ns", factor: 1e-9 });
 
 add(["Ω", "ohm", "ohms", "R"], { kind: "resistance", unit: "Ω", factor: 1 });
 add(["kΩ", "kohm", "kohms"], { kind: "resistance", unit: "kΩ", factor: 1e3 });
-for (const [k, def] of [
+const CASE_SENSITIVE: [string, UnitDef][] = [
   ["mΩ", { kind: "resistance", unit: "mΩ", factor: 1e-3 }],
   ["mohm", { kind: "resistance", unit: "mΩ", factor: 1e-3 }],
   ["mohms", { kind: "resistance", unit: "mΩ", factor: 1e-3 }],
@@ -141,8 +141,8 @@ for (const [k, def] of [
   ["Mohm", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
   ["Mohms", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
   ["MOhm", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
-] as [string, UnitDef][])
-  EXACT.set(k, def);
+];
+for (const [k, def] of CASE_SENSITIVE) EXACT.set(k, def);
 
 add(["V/µs", "V/us"], { kind: "slewRate", unit: "V/µs", factor: 1e6 });
 add(["V/ms"], { kind: "slewRate", unit: "V/ms", factor: 1e3 });
@@ -203,6 +203,7 @@ function parseNumber(s: string): number {
 
 const NUMBER_RE = /^(±|\+|-)?\s*((?:\d[\d,]*(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
 const RKM_RE = /^(\d+)([RKM])(\d*)$/; // 4R7 = 4.7 Ω, 0R05 = 0.05 Ω, 4K7 = 4.7 kΩ
+const RKM_UNITS: Record<string, { factor: number; unit: string }> = { R: { factor: 1, unit: "Ω" }, K: { factor: 1e3, unit: "kΩ" }, M: { factor: 1e6, unit: "MΩ" } };
 const CHANNELS_RE = /^([1-9])\s*[x×]\s*(?=[\d.])/i;
 
 function fail(code: ParseErrorCode, error: string): ParseError {
@@ -221,10 +222,9 @@ export function parseValue(input: string, opts: ParseOptions = {}): ParseResult 
   }
   const rkm = RKM_RE.exec(text);
   if (rkm) {
-    const mult = { R: 1, K: 1e3, M: 1e6 }[rkm[2] as "R" | "K" | "M"];
+    const { factor, unit } = RKM_UNITS[rkm[2]] ?? RKM_UNITS.R;
     const n = Number(`${rkm[1]}.${rkm[3] || "0"}`);
-    const unit = { R: "Ω", K: "kΩ", M: "MΩ" }[rkm[2] as "R" | "K" | "M"];
-    return finish({ kind: "resistance", unit, factor: mult }, n, false, opts, channels);
+    return finish({ kind: "resistance", unit, factor }, n, false, opts, channels);
   }
   const m = NUMBER_RE.exec(text);
   if (!m) return fail("no_number", `"${input}" does not start with a number.`);

@@ -120,7 +120,7 @@ export function checkBenchSheet(sheet: BenchSheet): Verdict {
   out.rule = undefined;
   deriveFlatSweeps(ix, out);
 
-  const counts = { consistent: 0, questionable: 0, implausible: 0, missing: 0 } as Record<Outcome, number>;
+  const counts: Record<Outcome, number> = { consistent: 0, questionable: 0, implausible: 0, missing: 0 };
   for (const r of results) counts[r.outcome]++;
   const benchVerified = counts.questionable + counts.implausible + counts.missing === 0 && results.some((r) => r.ruleId === "required-readings");
   const fromCaptures = captureFigures(ix);

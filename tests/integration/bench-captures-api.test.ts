@@ -13,6 +13,7 @@ import { action as analyze } from "~/routes/api.v1.captures.analyze";
 import { loader as show } from "~/routes/api.v1.captures.$id";
 import { parseBenchSheet } from "@shared/bench/schema";
 import { prng, toneWav, wavFromSamples } from "../support/capture-files";
+import { routeArgs } from "../support/route-args";
 
 // The capture API against the real database, object storage stand-in and job queue.
 
@@ -41,7 +42,7 @@ function upload(parts: Record<string, string | Blob>, { cookie = ownerCookie, wa
 
 async function post(req: Request): Promise<Response> {
   try {
-    return (await analyze({ request: req, params: {}, context: {} } as never)) as Response;
+    return await analyze(routeArgs(req, {}));
   } catch (thrown) {
     if (thrown instanceof Response) return thrown;
     throw thrown;
@@ -50,7 +51,7 @@ async function post(req: Request): Promise<Response> {
 
 async function get(id: string, cookie = ownerCookie): Promise<Response> {
   const request = new Request(`${BASE}/api/v1/captures/${id}`, { headers: { Cookie: cookie } });
-  return (await show({ request, params: { id }, context: {} } as never)) as Response;
+  return await show(routeArgs(request, { id }));
 }
 
 async function storedCaptureKeys(): Promise<string[]> {
@@ -124,7 +125,7 @@ describe("POST /api/v1/captures/analyze", () => {
     const boss = await startBoss({ supervise: false, schedule: false });
     try {
       await boss.work(QUEUES.captureAnalyze, { pollingIntervalSeconds: 0.5 }, async ([job]) => {
-        await analyseCaptureJob(job.data as { captureId: string });
+        await analyseCaptureJob(job.data);
       });
       const res = await post(upload({ file: wavBlob(goodWav()), conditions: sineConditions }, { wait: 10 }));
       expect(res.status).toBe(200);

@@ -12,6 +12,7 @@ import { action as benchAction } from "~/routes/sell/bench";
 import { loader as sellLoader } from "~/routes/sell/index";
 import { exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { AMP_ITEM, BASE, call, cleanUp, makeAccount, reload, type Seller } from "./listing-support";
+import { routeArgs } from "../support/route-args";
 
 // A seller's drafts are theirs alone: another account gets "not found" from the services, the pages and
 // the API alike, and nothing changes.
@@ -29,7 +30,7 @@ beforeAll(async () => {
 });
 afterAll(cleanUp);
 
-const args = (request: Request, params: Record<string, string>) => ({ request, params, context: {} }) as never;
+const args = routeArgs;
 const get = (path: string, cookie?: string) => new Request(`${BASE}${path}`, { headers: cookie ? { Cookie: cookie } : {} });
 const patch = (id: string, body: unknown, cookie?: string) =>
   new Request(`${BASE}/api/v1/listings/${id}`, {

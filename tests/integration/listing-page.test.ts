@@ -11,6 +11,7 @@ import {
   removeFixtureUsers,
   type AmplifierFixture,
 } from "../support/listing-fixtures";
+import { routeArgs } from "../support/route-args";
 
 // The listing page's loader and its watch action, called as the server calls them, against the real
 // database: who may see which listing, that the serial number never leaves the server, and watching.
@@ -42,7 +43,7 @@ function open(id: string, cookie?: string, init: { zone?: string; lang?: string 
   if (cookie) headers.Cookie = cookie;
   if (init.lang) headers["Accept-Language"] = init.lang;
   const request = new Request(url, { headers });
-  return run(() => loader({ request, params: { id }, context: {} } as never));
+  return run(() => loader(routeArgs(request, { id })));
 }
 
 function watchPost(id: string, intent: string, cookie?: string) {
@@ -50,7 +51,7 @@ function watchPost(id: string, intent: string, cookie?: string) {
   const headers: Record<string, string> = { "Content-Type": "application/x-www-form-urlencoded", Origin: BASE };
   if (cookie) headers.Cookie = cookie;
   const request = new Request(`${BASE}/listings/${id}`, { method: "POST", body, headers });
-  return run(() => action({ request, params: { id }, context: {} } as never));
+  return run(() => action(routeArgs(request, { id })));
 }
 
 let live: AmplifierFixture;

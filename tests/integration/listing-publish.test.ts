@@ -8,6 +8,7 @@ import { withdrawListing } from "~/listings/drafts.server";
 import { doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { action as sellAction } from "~/routes/sell/index";
 import { BASE, call, cleanUp, makeAccount, makeCapture, readyDraft, reload, withOwnCaptures } from "./listing-support";
+import { routeArgs } from "../support/route-args";
 
 // Save, publish, hold and the bench-verified mark on real PostgreSQL. The sheets are the bench core's
 // invented demo amplifier (2 × 60 W into 8 Ω) and its doctored twin whose 4 Ω power is tripled.
@@ -108,11 +109,9 @@ describe("withdrawing from the seller's list", () => {
     await publishListing(draft.id, seller.session);
     const post = (cookie: string, fields: Record<string, string>) =>
       call(() =>
-        sellAction({
-          request: new Request(`${BASE}/sell`, { method: "POST", headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" }, body: new URLSearchParams(fields) }),
-          params: {},
-          context: {},
-        } as never),
+        sellAction(
+          routeArgs(new Request(`${BASE}/sell`, { method: "POST", headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" }, body: new URLSearchParams(fields) }), {}),
+        ),
       );
     const unconfirmed = await post(seller.cookie, { intent: "withdraw", listingId: draft.id });
     expect(unconfirmed.body).toMatchObject({ ok: false, formError: expect.stringMatching(/Confirm/) });

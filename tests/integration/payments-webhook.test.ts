@@ -3,6 +3,7 @@ import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import Stripe from "stripe";
 import { startStripeFake, signatureHeader, type RunningStripeFake } from "../../fakes/stripe/index";
+import { routeArgs } from "../support/route-args";
 
 // The app's webhook receiver (POST /api/v1/webhooks/stripe) fed by the payments stand-in: the signature
 // is checked on the raw body, and each event id is stored once in payment_events (real PostgreSQL).
@@ -27,7 +28,7 @@ describe("payments webhook receiver", () => {
         headers: Object.entries(req.headers).flatMap(([k, v]) => (typeof v === "string" ? [[k, v] as [string, string]] : [])),
         body: Buffer.concat(chunks),
       });
-      const response = await route.action({ request, params: {}, context: {} } as never);
+      const response = await route.action(routeArgs(request, {}));
       const body = await response.json();
       answers.push({ status: response.status, body });
       res.writeHead(response.status, { "content-type": "application/json" }).end(JSON.stringify(body));

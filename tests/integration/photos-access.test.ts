@@ -21,7 +21,7 @@ import {
 let owner: Awaited<ReturnType<typeof makeSeller>>;
 let other: Awaited<ReturnType<typeof makeSeller>>;
 let listing: Listing;
-let ids: string[] = [];
+const ids: string[] = [];
 
 const notFound = { error: "not_found", message: "There is no such listing among yours." };
 

@@ -10,6 +10,7 @@ import { createStorageClient, deleteObjects } from "~/services/storage.server";
 import { QUEUES } from "~/services/jobs.server";
 import { action as photosAction, loader as photosLoader } from "~/routes/api.v1.listings.$id.photos";
 import { action as photoAction } from "~/routes/api.v1.listings.$id.photos.$photoId";
+import { routeArgs } from "../support/route-args";
 
 // Shared by the photo integration suites: sellers with session cookies, draft listings, the photo
 // routes called as the server would call them, and what object storage and the queue hold.
@@ -65,40 +66,38 @@ export function uploadRequest(listingId: string, file: Uint8Array, name: string,
 }
 
 export const upload = (listingId: string, file: Uint8Array, name: string, cookie?: string) =>
-  call(() => photosAction({ request: uploadRequest(listingId, file, name, cookie), params: { id: listingId }, context: {} } as never));
+  call(() => photosAction(routeArgs(uploadRequest(listingId, file, name, cookie), { id: listingId })));
 
 export const listPhotos = (listingId: string, cookie?: string) =>
   call(() =>
-    photosLoader({
-      request: new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { headers: cookie ? { Cookie: cookie } : {} }),
-      params: { id: listingId },
-      context: {},
-    } as never),
+    photosLoader(routeArgs(new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { headers: cookie ? { Cookie: cookie } : {} }), { id: listingId })),
   );
 
 export const arrange = (listingId: string, body: unknown, cookie?: string) =>
   call(() =>
-    photosAction({
-      request: new Request(`${BASE}/api/v1/listings/${listingId}/photos`, {
-        method: "PATCH",
-        body: JSON.stringify(body),
-        headers: { "Content-Type": "application/json", ...(cookie ? { Cookie: cookie } : {}) },
-      }),
-      params: { id: listingId },
-      context: {},
-    } as never),
+    photosAction(
+      routeArgs(
+        new Request(`${BASE}/api/v1/listings/${listingId}/photos`, {
+          method: "PATCH",
+          body: JSON.stringify(body),
+          headers: { "Content-Type": "application/json", ...(cookie ? { Cookie: cookie } : {}) },
+        }),
+        { id: listingId },
+      ),
+    ),
   );
 
 export const removePhoto = (listingId: string, photoId: string, cookie?: string) =>
   call(() =>
-    photoAction({
-      request: new Request(`${BASE}/api/v1/listings/${listingId}/photos/${photoId}`, {
-        method: "DELETE",
-        headers: cookie ? { Cookie: cookie } : {},
-      }),
-      params: { id: listingId, photoId },
-      context: {},
-    } as never),
+    photoAction(
+      routeArgs(
+        new Request(`${BASE}/api/v1/listings/${listingId}/photos/${photoId}`, {
+          method: "DELETE",
+          headers: cookie ? { Cookie: cookie } : {},
+        }),
+        { id: listingId, photoId },
+      ),
+    ),
   );
 
 /** Every key under the prefixes the photo pipeline writes to. */

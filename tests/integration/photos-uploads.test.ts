@@ -5,6 +5,7 @@ import { getBoss } from "~/services/jobs.server";
 import { processPhoto } from "~/photos/process.server";
 import { incomingKey } from "~/photos/access.server";
 import type { Listing } from "~/models/index.server";
+import { routeArgs } from "../support/route-args";
 import {
   GPS_MARK,
   bandColour,
@@ -76,15 +77,16 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
     const none = new FormData();
     none.append("note", "no photo here");
     const { action } = await import("~/routes/api.v1.listings.$id.photos");
-    const res = (await action({
-      request: new Request(`http://127.0.0.1/api/v1/listings/${listing.id}/photos`, {
-        method: "POST",
-        body: none,
-        headers: { Cookie: seller.cookie },
-      }),
-      params: { id: listing.id },
-      context: {},
-    } as never)) as Response;
+    const res = await action(
+      routeArgs(
+        new Request(`http://127.0.0.1/api/v1/listings/${listing.id}/photos`, {
+          method: "POST",
+          body: none,
+          headers: { Cookie: seller.cookie },
+        }),
+        { id: listing.id },
+      ),
+    );
     expect(res.status).toBe(400);
     expect((await res.json()).error).toBe("no_file");
 
@@ -92,15 +94,16 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
     const jpeg = await twoToneJpeg(64, 48);
     two.append("photo", new Blob([new Uint8Array(jpeg)]), "a.jpg");
     two.append("photo", new Blob([new Uint8Array(jpeg)]), "b.jpg");
-    const res2 = (await action({
-      request: new Request(`http://127.0.0.1/api/v1/listings/${listing.id}/photos`, {
-        method: "POST",
-        body: two,
-        headers: { Cookie: seller.cookie },
-      }),
-      params: { id: listing.id },
-      context: {},
-    } as never)) as Response;
+    const res2 = await action(
+      routeArgs(
+        new Request(`http://127.0.0.1/api/v1/listings/${listing.id}/photos`, {
+          method: "POST",
+          body: two,
+          headers: { Cookie: seller.cookie },
+        }),
+        { id: listing.id },
+      ),
+    );
     expect(res2.status).toBe(400);
     expect((await res2.json()).error).toBe("one_file_only");
     expect(await ListingPhoto.count({ where: { listingId: listing.id } })).toBe(0);
@@ -142,7 +145,7 @@ describe("a good photo", { timeout: 120_000 }, () => {
       thumbKey: [200, 400],
     };
     for (const [column, [w, h]] of Object.entries(expected)) {
-      const key = row![column as "originalKey"]!;
+      const key = row![column as "originalKey"];
       const stored = await getObjectBuffer(key);
       expect(stored, column).not.toBeNull();
       expect(jpegHeaderMarkers(stored!).filter((m) => /^E[1-9A-F]$|^FE$/.test(m)), column).toEqual([]);

@@ -1,13 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { action, loader } from "~/routes/api.v1.bench-sheets.check";
 import { exampleIntegratedAmplifierRequest, doctoredIntegratedAmplifierSheet } from "@shared/bench";
+import { routeArgs } from "../support/route-args";
 
 const URL_ = "http://localhost/api/v1/bench-sheets/check";
-type Args = Parameters<typeof action>[0];
 
 async function post(body: string) {
   const request = new Request(URL_, { method: "POST", body, headers: { "content-type": "application/json" } });
-  const res = await action({ request, params: {}, context: {} } as unknown as Args);
+  const res = await action(routeArgs(request, {}));
   return { status: res.status, body: await res.json() };
 }
 
@@ -43,10 +43,10 @@ describe("POST /api/v1/bench-sheets/check", () => {
   });
 
   it("answers other methods with 405", async () => {
-    const put = await action({ request: new Request(URL_, { method: "PUT", body: "{}" }), params: {}, context: {} } as unknown as Args);
+    const put = await action(routeArgs(new Request(URL_, { method: "PUT", body: "{}" }), {}));
     expect(put.status).toBe(405);
     expect(put.headers.get("Allow")).toBe("POST");
-    const get = loader({ request: new Request(URL_), params: {}, context: {} } as unknown as Parameters<typeof loader>[0]);
+    const get = loader(routeArgs(new Request(URL_), {}));
     expect(get.status).toBe(405);
   });
 

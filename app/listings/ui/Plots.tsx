@@ -1,5 +1,5 @@
 import { lazy, Suspense, useSyncExternalStore, type ReactNode } from "react";
-import type { PlotSet, ResponsePlot, SpectrumPlot, SquarePlot } from "../types";
+import type { PlotSet, ResponsePlot, SpectrumPlot } from "../types";
 import { CaptureTag } from "./CaptureTag";
 
 // Charts load in the browser only, in their own chunk: the page's text arrives first, and the numbers

@@ -97,9 +97,9 @@ export function SpectrumChart({ plot }: { plot: SpectrumPlot }) {
           {...tooltipStyle}
           cursor={{ fill: "rgb(46 106 78 / 0.06)" }}
           formatter={(v, name) => [`${(Number(v) + floor).toFixed(1)} dB`, plot.channels.find((c) => c.key === name)?.label ?? String(name)]}
-          labelFormatter={(label, items) => {
-            const f = items?.[0]?.payload?.frequency as number | undefined;
-            return f ? `${label} · ${hzWords(f)}` : String(label);
+          labelFormatter={(label) => {
+            const bar = plot.bars.find((b) => b.label === label);
+            return bar ? `${bar.label} · ${hzWords(bar.frequencyHz)}` : label;
           }}
         />
         {plot.channels.length > 1 ? (

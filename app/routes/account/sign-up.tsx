@@ -28,7 +28,7 @@ export async function action({ request }: Route.ActionArgs) {
     await registerAccount(parsed.data);
   } catch (error) {
     if (!(error instanceof MailDeliveryError)) throw error;
-    return data({ sent: false as const, values, errors: { form: MAIL_UNAVAILABLE } as Record<string, string> }, { status: 503 });
+    return data({ sent: false as const, values, errors: { form: MAIL_UNAVAILABLE } }, { status: 503 });
   }
   return { sent: true as const, email: parsed.data.email };
 }

@@ -13,23 +13,25 @@ import { readSheetForm, readSheetState, sheetToState, type SheetFormState } from
 // The bench sheet step. Without JavaScript the whole form posts here and the server reads it the same
 // way the browser does; with it, the sheet autosaves through the listing API and outcomes update live.
 
+type Failure = { ok: false; state: SheetFormState; formError?: string; issues: string[] };
+
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const listing = await ownListing(params.id, user.id).catch((e) => (e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e)));
+  const listing = await ownListing(params.id, user.id).catch((e: unknown) => (e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e)));
   const form = await request.formData();
   const state = readSheetForm(form, listing.category);
   const read = readSheetState(state);
-  if (!read.sheet) return data({ ok: false as const, state, formError: `The sheet was not saved: ${read.errorCount} field${read.errorCount === 1 ? " needs" : "s need"} attention.`, issues: [] as string[] }, { status: 400 });
+  if (!read.sheet) return data<Failure>({ ok: false, state, formError: `The sheet was not saved: ${read.errorCount} field${read.errorCount === 1 ? " needs" : "s need"} attention.`, issues: [] }, { status: 400 });
   try {
     const saved = await saveBenchSheet(params.id, user.id, read.sheet);
     if (form.get("intent") === "next") return redirect(`/sell/${params.id}/review`);
     const lost = saved.wasVerified && !saved.listing.benchVerified;
     return { ok: true as const, notice: lost ? "Saved. The changed sheet no longer earns the bench-verified mark." : "Saved and checked." };
   } catch (e) {
-    if (e instanceof ListingInputError) return data({ ok: false as const, state, formError: "The sheet was not saved.", issues: e.issues.map((i) => `${i.path}: ${i.message}`) }, { status: 400 });
+    if (e instanceof ListingInputError) return data<Failure>({ ok: false, state, formError: "The sheet was not saved.", issues: e.issues.map((i) => `${i.path}: ${i.message}`) }, { status: 400 });
     const failure = stepFailure(e);
-    return data({ ok: false as const, state, formError: failure.ok ? undefined : failure.formError, issues: [] as string[] }, { status: 409 });
+    return data<Failure>({ ok: false, state, formError: failure.ok ? undefined : failure.formError, issues: [] }, { status: 409 });
   }
 }
 
@@ -37,7 +39,7 @@ export default function BenchStep({ actionData }: Route.ComponentProps) {
   const { listing, sheet } = useEditor();
   const busy = useNavigation().state === "submitting";
   const failed = actionData && !actionData.ok ? actionData : null;
-  const initial: SheetFormState = (failed?.state as SheetFormState | undefined) ?? sheetToState(sheet, listing.category);
+  const initial: SheetFormState = failed?.state ?? sheetToState(sheet, listing.category);
   return (
     <>
       <BenchSheetEditor

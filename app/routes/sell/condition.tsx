@@ -7,14 +7,23 @@ import { stepFailure } from "~/listings/http.server";
 import { ConditionForm } from "~/sell/ConditionForm";
 import { useEditor } from "./editor";
 import { readConditionForm, type ConditionValues } from "@shared/listing-draft";
+import { COSMETIC_GRADES, SERVICE_STATES } from "@shared/catalogue";
+import { isOneOf } from "@shared/one-of";
 
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
   const form = await request.formData();
-  const values = { cosmeticGrade: form.get("cosmeticGrade"), serviceState: form.get("serviceState"), conditionNote: String(form.get("conditionNote") ?? "") } as ConditionValues;
+  const grade = form.get("cosmeticGrade");
+  const service = form.get("serviceState");
+  // What was sent, to fill the form in again next to its messages.
+  const values: ConditionValues = {
+    cosmeticGrade: isOneOf(COSMETIC_GRADES, grade) ? grade : null,
+    serviceState: isOneOf(SERVICE_STATES, service) ? service : null,
+    conditionNote: String(form.get("conditionNote") ?? ""),
+  };
   const read = readConditionForm(form);
-  if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined as string | undefined, values }, { status: 400 });
+  if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined, values }, { status: 400 });
   try {
     await saveCondition(params.id, user.id, read.value);
   } catch (e) {

@@ -14,7 +14,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = await request.formData();
   const values = Object.fromEntries([...form.entries()].map(([k, v]) => [k, typeof v === "string" ? (v === "on" ? true : v) : ""]));
   const read = readItemForm(form);
-  if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined as string | undefined, values }, { status: 400 });
+  if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined, values }, { status: 400 });
   try {
     await saveItem(params.id, user.id, read.value);
   } catch (e) {
@@ -31,7 +31,7 @@ export default function ItemStep({ actionData }: Route.ComponentProps) {
   return (
     <ItemForm
       listingId={listing.id}
-      values={(failed?.values as Record<string, string | boolean> | undefined) ?? itemFormValues(listing)}
+      values={failed?.values ?? itemFormValues(listing)}
       errors={failed?.errors}
       formError={failed?.formError}
       published={listing.status !== "draft"}

@@ -19,12 +19,12 @@ export async function action({ request, params }: Route.ActionArgs) {
   const values = Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
   try {
     if (intent === "delete") {
-      if (form.get("confirm") !== "yes") return data({ ok: false as const, intent: "delete", entryId, errors: {}, formError: "Confirm the deletion." as string | undefined, values }, { status: 400 });
+      if (form.get("confirm") !== "yes") return data({ ok: false as const, intent: "delete", entryId, errors: {}, formError: "Confirm the deletion.", values }, { status: 400 });
       await deleteRestorationEntry(params.id, user.id, entryId);
       return redirect(`/sell/${params.id}/restoration`);
     }
     const read = readRestorationForm(form);
-    if (!read.ok) return data({ ok: false as const, intent: String(intent), entryId, errors: read.errors, formError: undefined as string | undefined, values }, { status: 400 });
+    if (!read.ok) return data({ ok: false as const, intent: String(intent), entryId, errors: read.errors, formError: undefined, values }, { status: 400 });
     if (intent === "update") await updateRestorationEntry(params.id, user.id, entryId, read.value);
     else await addRestorationEntry(params.id, user.id, read.value);
     return redirect(`/sell/${params.id}/restoration`);

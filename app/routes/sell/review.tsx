@@ -15,11 +15,13 @@ import { useEditor } from "./editor";
 import { COSMETIC_GRADE_TEXT, formatEra, formatPrice, formatWeight, SERVICE_STATE_TEXT, SHIPPING_METHOD_LABELS, listingTitle } from "@shared/catalogue";
 import { countryName } from "@shared/countries";
 
+type Failure = { formError?: string; issues: string[] };
+
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
   const form = await request.formData();
-  if (form.get("intent") !== "publish") return data({ formError: "Unknown request.", issues: [] as string[] }, { status: 400 });
+  if (form.get("intent") !== "publish") return data<Failure>({ formError: "Unknown request.", issues: [] }, { status: 400 });
   try {
     const { listing, verdict } = await publishListing(params.id, user);
     const title = listingTitle(listing.maker, listing.model);
@@ -31,9 +33,9 @@ export async function action({ request, params }: Route.ActionArgs) {
           : `${title} is live.${verdict ? " It does not carry the bench-verified mark; the verdict says why." : ""}`;
     return redirectWithNotice(request, `/sell/${params.id}/review`, notice);
   } catch (e) {
-    if (e instanceof ListingInputError) return data({ formError: e.message, issues: e.issues.map((i) => i.message) }, { status: 400 });
+    if (e instanceof ListingInputError) return data<Failure>({ formError: e.message, issues: e.issues.map((i) => i.message) }, { status: 400 });
     const failure = stepFailure(e);
-    return data({ formError: failure.ok ? undefined : failure.formError, issues: [] as string[] }, { status: 409 });
+    return data<Failure>({ formError: failure.ok ? undefined : failure.formError, issues: [] }, { status: 409 });
   }
 }
 

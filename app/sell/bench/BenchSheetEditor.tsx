@@ -76,9 +76,9 @@ export function BenchSheetEditor({
     autosave.schedule(() => {
       const r = latest.current;
       if (r.sheet) return { ok: true, body: { benchSheet: r.sheet } };
-      return { ok: false, errors: Object.fromEntries(Object.entries(r.rowErrors).flatMap(([k, e]) => Object.entries(e).map(([f, m]) => [`${k}.${f}`, m!]))) };
+      return { ok: false, errors: Object.fromEntries(Object.entries(r.rowErrors).flatMap(([k, e]) => Object.entries(e).map(([f, m]) => [`${k}.${f}`, m]))) };
     });
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- once per edit: autosave is a new object on every render
   }, [state]);
 
   const set = (next: (s: SheetFormState) => SheetFormState) => {

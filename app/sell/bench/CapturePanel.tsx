@@ -3,7 +3,8 @@ import { Button } from "~/components/Button";
 import { Badge } from "~/components/Badge";
 import { controlClass } from "~/components/Field";
 import { cx } from "~/components/cx";
-import { describeReading, type Reading, type Sweep } from "@shared/bench";
+import { z } from "zod";
+import { describeReading, readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench";
 import { isOneOf } from "@shared/one-of";
 
 const CAPTURE_KINDS = ["sine", "square", "sweep"] as const;
@@ -18,25 +19,45 @@ type Item = { key: number; fileName: string; state: "uploading" | "analysing" | 
 const selectClass = cx(controlClass, "h-9 py-1 text-sm appearance-auto");
 const inputClass = cx(controlClass, "h-9 py-1.5 text-sm figures");
 
-function upload(form: FormData, onProgress: (p: number) => void): Promise<{ status: number; body: any }> {
+/** What the capture API answers, read loosely: on an error most fields are missing. */
+const AnswerSchema = z
+  .object({
+    id: z.string(),
+    fileName: z.string(),
+    status: z.string(),
+    poll: z.string(),
+    readings: z.array(readingSchema),
+    sweep: sweepSchema,
+    message: z.string(),
+    error: z.union([z.string(), z.object({ message: z.string().nullable() })]),
+  })
+  .partial();
+type Answer = { status: number; body: z.infer<typeof AnswerSchema> };
+
+function readAnswer(status: number, body: unknown): Answer {
+  const parsed = AnswerSchema.safeParse(body ?? {});
+  return parsed.success ? { status, body: parsed.data } : { status: status === 200 ? 502 : status, body: { message: "The server's answer could not be read." } };
+}
+
+function upload(form: FormData, onProgress: (p: number) => void): Promise<Answer> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open("POST", "/api/v1/captures/analyze?wait=8");
     xhr.responseType = "json";
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
-    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
+    xhr.onload = () => resolve(readAnswer(xhr.status, xhr.response));
     xhr.onerror = () => resolve({ status: 0, body: { message: "The connection dropped; check it and try again." } });
     xhr.send(form);
   });
 }
 
-async function poll(url: string): Promise<{ status: number; body: any }> {
+async function poll(url: string): Promise<Answer> {
   for (let i = 0; i < 90; i++) {
     await new Promise((r) => setTimeout(r, 1000));
     const res = await fetch(url, { headers: { Accept: "application/json" } });
-    const body = await res.json().catch(() => null);
-    if (!res.ok) return { status: res.status, body };
-    if (body?.status === "done" || body?.status === "failed") return { status: 200, body };
+    const answer = readAnswer(res.status, await res.json().catch(() => null));
+    if (!res.ok) return answer;
+    if (answer.body.status === "done" || answer.body.status === "failed") return answer;
   }
   return { status: 504, body: { message: "The analysis is taking unusually long; reload the page later." } };
 }
@@ -70,19 +91,19 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
     const key = Date.now();
     setItems((all) => [{ key, fileName: file.name, state: "uploading", progress: 0 }, ...all]);
     let answer = await upload(data, (p) => update(key, { progress: p }));
-    if (answer.status === 202 && answer.body?.poll) {
+    if (answer.status === 202 && answer.body.poll) {
       update(key, { state: "analysing", progress: 1 });
       answer = await poll(answer.body.poll);
     }
-    const b = answer.body ?? {};
-    if (answer.status === 200 && b.status === "done") {
-      const result: CaptureResult = { id: b.id, fileName: b.fileName, readings: b.readings ?? [], ...(b.sweep ? { sweep: b.sweep } : {}) };
+    const b = answer.body;
+    if (answer.status === 200 && b.status === "done" && b.id) {
+      const result: CaptureResult = { id: b.id, fileName: b.fileName ?? file.name, readings: b.readings ?? [], ...(b.sweep ? { sweep: b.sweep } : {}) };
       update(key, { state: "done", progress: 1, result });
       onCapture(result);
       form.reset();
       setKind("sine");
     } else {
-      const message = b.error?.message ?? b.message ?? `The server answered ${answer.status}.`;
+      const message = (typeof b.error === "object" ? b.error.message : null) ?? b.message ?? `The server answered ${answer.status}.`;
       update(key, { state: "failed", message });
     }
   }

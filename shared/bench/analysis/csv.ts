@@ -22,14 +22,14 @@ const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 function headerWord(s: string): string {
   return s
     .replace(/^\uFEFF/, "")
-    .replace(/[(\[].*?[)\]]/g, "")
+    .replace(/[([].*?[)\]]/g, "")
     .toLowerCase()
     .replace(/[^a-z0-9]/g, "");
 }
 
 /** Unit written in a header cell: "Level (dB)" → "db". */
 export function headerUnit(s: string): string | null {
-  const m = /[(\[]\s*([^)\]]+?)\s*[)\]]/.exec(s);
+  const m = /[([]\s*([^)\]]+?)\s*[)\]]/.exec(s);
   return m ? m[1].toLowerCase() : null;
 }
 

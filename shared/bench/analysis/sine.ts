@@ -162,7 +162,6 @@ export function analyseSineChannel(samples: Float64Array, channel: string, rc: R
 function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineConditions): SineChannelAnalysis {
   const { power: p, binHz, toneHalfWidthBins: h } = spec;
   const last = p.length - 1;
-  const nyquist = last * binHz;
   const vpfs = rc.peakVoltsPerFullScale;
   rc.binsSummedPerTone = 2 * h + 1;
 
@@ -295,7 +294,7 @@ export function analyseSine(channels: Float64Array[], sampleRate: number, condit
   const out: SineChannelAnalysis[] = [];
   const skipped: SineAnalysis["skipped"] = [];
   let firstError: CaptureError | null = null;
-  channels.forEach((ch, i) => {
+  for (const [i, ch] of channels.entries()) {
     try {
       out.push(analyseSineChannel(ch, names[i], rc));
     } catch (e) {
@@ -304,7 +303,7 @@ export function analyseSine(channels: Float64Array[], sampleRate: number, condit
       firstError ??= e;
       skipped.push({ channel: names[i], error: e.code, message: e.message });
     }
-  });
+  }
   if (out.length === 0 && firstError) throw firstError;
   return { kind: "sine", channels: out, skipped, conditions: rc };
 }

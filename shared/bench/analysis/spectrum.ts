@@ -26,7 +26,7 @@ const kits = new Map<number, FftKit>();
 function kitFor(n: number): FftKit {
   let k = kits.get(n);
   if (!k) {
-    if (kits.size >= 3) kits.delete(kits.keys().next().value as number);
+    if (kits.size >= 3) kits.delete(kits.keys().next().value!);
     k = { fft: new FFT(n), input: new Float64Array(n), out: new Float64Array(2 * n) };
     kits.set(n, k);
   }

@@ -1,5 +1,6 @@
 // Capture analyses as bench-sheet readings (origin "capture"), so the checks can weigh them above typed figures.
-import type { Conditions, Reading, Sweep } from "../schema";
+import { CHANNELS, type Conditions, type Reading, type Sweep } from "../schema";
+import { isOneOf } from "../../one-of";
 import type { SineAnalysis } from "./sine";
 import type { SquareAnalysis } from "./square";
 import type { SweepAnalysis } from "./sweep";
@@ -14,7 +15,7 @@ function clean<T extends object>(o: T): T {
 }
 
 function reading(captureId: string, r: Omit<Reading, "basis" | "origin" | "captureId">): Reading {
-  return { ...r, conditions: clean(r.conditions ?? {}), basis: "measured", origin: "capture", captureId } as Reading;
+  return { ...r, conditions: clean(r.conditions ?? {}), basis: "measured", origin: "capture", captureId };
 }
 
 /** A display unit for small voltages, so 23 µV does not read as 0.000023 V. */
@@ -28,7 +29,7 @@ export function sineToReadings(a: SineAnalysis, c: SineCaptureConditions, captur
   const bw = a.conditions.bandwidth;
   const weighting = c.weighting === "A" ? "A" : "unweighted";
   for (const ch of a.channels) {
-    const channel: Channel = ch.channel === "mono" ? (c.channel ?? "mono") : (ch.channel as Channel);
+    const channel: Channel = ch.channel === "mono" || !isOneOf(CHANNELS, ch.channel) ? (c.channel ?? "mono") : ch.channel;
     const f = Math.round(ch.fundamental.frequency.value * 100) / 100;
     const vrms = ch.fundamental.rms.value;
     const watts = ch.fundamental.power?.value;
@@ -116,7 +117,7 @@ export function sweepToSheet(
 ): { sweep: Sweep; readings: Reading[] } {
   const riaa = a.conditions.reference === "riaa";
   const range = a.conditions.sweepRange;
-  const sweep = {
+  const sweep: Sweep = {
     kind: riaa ? "riaa" : "flat",
     ...(riaa ? { variant: c.iecPole ? "riaa_iec" : "riaa" } : {}),
     ...(c.channel ? { channel: c.channel } : {}),
@@ -124,7 +125,7 @@ export function sweepToSheet(
     captureId,
     conditions: clean({ loadOhm: c.loadOhm, frequencyRange: { lowHz: range.lowHz, highHz: range.highHz } }),
     points: thin(a.points.map((p) => ({ frequencyHz: p.frequency, levelDb: p.levelDb }))),
-  } as Sweep;
+  };
   const band = a.conditions.band;
   const readings: Reading[] = [
     reading(captureId, {

@@ -15,7 +15,7 @@ export function aWeightingPowerTable(nFft: number, sampleRate: number): Float64A
       const g = aWeightingGain(k * binHz);
       t[k] = g * g;
     }
-    if (tables.size >= 4) tables.delete(tables.keys().next().value as string);
+    if (tables.size >= 4) tables.delete(tables.keys().next().value!);
     tables.set(key, t);
   }
   return t;

@@ -60,7 +60,7 @@ export function getWindow(name: WindowName, n: number): Float64Array {
   let w = cache.get(key);
   if (!w) {
     w = computeWindow(name, n);
-    if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
+    if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
     cache.set(key, w);
   }
   return w;

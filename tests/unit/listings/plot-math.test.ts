@@ -29,7 +29,7 @@ describe("thinning a square-wave trace for the plot", () => {
 });
 
 const sweep = (kind: "flat" | "riaa", points: [number, number][]): Sweep =>
-  ({ kind, origin: "typed", conditions: {}, points: points.map(([frequencyHz, levelDb]) => ({ frequencyHz, levelDb })) }) as Sweep;
+  ({ kind, origin: "typed", conditions: {}, points: points.map(([frequencyHz, levelDb]) => ({ frequencyHz, levelDb })) });
 
 describe("frequency response for the plot", () => {
   it("is shown relative to its level at 1 kHz, interpolated in log frequency (common practice)", () => {

@@ -85,7 +85,7 @@ describe("PhotoUploader", () => {
 
     const message = "“notes.jpg” cannot be used (named .jpg, but it is really a text file). Upload JPEG or PNG photos only.";
     await act(async () => {
-      finishers[1]({ ok: false, failure: Object.assign(new Error(message), { status: 415, code: "unsupported_type" }) as never });
+      finishers[1]({ ok: false, failure: Object.assign(new Error(message), { status: 415, code: "unsupported_type" }) });
     });
     const uploads = screen.getByRole("list", { name: "Uploads" });
     const refusedRow = within(uploads).getByTitle("notes.jpg").closest("li")!;
