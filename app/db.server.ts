@@ -1,12 +1,15 @@
 import { Sequelize } from "sequelize";
 import { env } from "~/env.server";
 
-// One pool per process; route modules and jobs share it.
-const globalForDb = globalThis as unknown as { __loadlineSequelize?: Sequelize };
+// One pool per process; route modules and jobs share it (kept on globalThis so a development
+// module reload does not open another).
+declare global {
+  var __loadlineSequelize: Sequelize | undefined;
+}
 
 export const sequelize: Sequelize =
-  globalForDb.__loadlineSequelize ??
-  (globalForDb.__loadlineSequelize = new Sequelize(env().databaseUrl, {
+  globalThis.__loadlineSequelize ??
+  (globalThis.__loadlineSequelize = new Sequelize(env().databaseUrl, {
     dialect: "postgres",
     logging: false,
     pool: { max: 8, min: 0, idle: 10_000 },

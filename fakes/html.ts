@@ -1,8 +1,8 @@
 // Shared look for the stand-ins' own pages (mail inbox, sign-in, payment, onboarding): Loadline's
 // warm paper and dark ink, plus a clear band saying this is a local stand-in, not the real service.
 
-export function escapeHtml(value: unknown): string {
-  return String(value ?? "")
+export function escapeHtml(value: string): string {
+  return value
     .replace(/&/g, "&amp;")
     .replace(/</g, "&lt;")
     .replace(/>/g, "&gt;")
@@ -31,7 +31,8 @@ function render(v: unknown): string {
   if (v instanceof Raw) return v.value;
   if (Array.isArray(v)) return v.map(render).join("");
   if (v === false || v === null || v === undefined) return "";
-  return escapeHtml(v);
+  if (typeof v === "string" || typeof v === "number" || typeof v === "boolean") return escapeHtml(String(v));
+  return escapeHtml(JSON.stringify(v));
 }
 
 const styles = `
@@ -79,7 +80,7 @@ iframe { width:100%; min-height:260px; border:1px solid var(--line); border-radi
 export function page(opts: { title: string; service: string; body: Raw; narrow?: boolean; head?: Raw }): string {
   return `<!doctype html><html lang="en"><head><meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(opts.title)}</title><style>${styles}</style>${opts.head ?? ""}</head>
+<title>${escapeHtml(opts.title)}</title><style>${styles}</style>${opts.head?.value ?? ""}</head>
 <body><div class="band"><b>Loadline local stand-in</b> · ${escapeHtml(opts.service)} · nothing here reaches a real service</div>
-<main${opts.narrow ? ' class="narrow"' : ""}>${opts.body}</main></body></html>`;
+<main${opts.narrow ? ' class="narrow"' : ""}>${opts.body.value}</main></body></html>`;
 }

@@ -23,7 +23,7 @@ export interface StartFakesOptions {
 }
 
 export interface RunningFakes {
-  stop(): Promise<void>;
+  stop: () => Promise<void>;
   lines: string[];
 }
 
@@ -107,7 +107,7 @@ async function guard<T>(name: string, port: number, start: () => Promise<T>): Pr
     return await start();
   } catch (err) {
     if ((err as NodeJS.ErrnoException).code === "EADDRINUSE") {
-      throw new Error(`The local ${name} cannot listen on 127.0.0.1:${port}: the port is taken (is another Loadline running?).`);
+      throw new Error(`The local ${name} cannot listen on 127.0.0.1:${port}: the port is taken (is another Loadline running?).`, { cause: err });
     }
     throw err;
   }
@@ -124,7 +124,7 @@ if (process.argv[1] && import.meta.url === pathToFileURL(path.resolve(process.ar
   });
   console.log(["Local stand-ins running:", ...running.lines.map((l) => `  ${l}`), "Ctrl-C stops them."].join("\n"));
   const shutdown = () => {
-    running.stop().then(() => process.exit(0));
+    void running.stop().then(() => process.exit(0));
   };
   process.once("SIGINT", shutdown);
   process.once("SIGTERM", shutdown);

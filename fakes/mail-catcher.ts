@@ -20,7 +20,7 @@ export interface RunningMailCatcher {
   smtpUrl: string;
   inboxUrl: string;
   store: MailStore;
-  stop(): Promise<void>;
+  stop: () => Promise<void>;
 }
 
 const MAX_SIZE = 25 * 1024 * 1024;

@@ -48,7 +48,7 @@ export type Suggestions = { email: string; name: string }[] | (() => { email: st
 export interface RunningOAuthProvider {
   issuer: string;
   endpoints: OAuthEndpoints;
-  stop(): Promise<void>;
+  stop: () => Promise<void>;
 }
 
 interface PendingCode {

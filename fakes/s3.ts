@@ -13,7 +13,7 @@ export interface S3FakeOptions {
 
 export interface RunningS3Fake {
   endpoint: string;
-  stop(): Promise<void>;
+  stop: () => Promise<void>;
 }
 
 // CORS so the browser may upload straight to a presigned URL during development.

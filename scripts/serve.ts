@@ -22,7 +22,8 @@ app.use((req, _res, next) => {
 });
 app.use("/assets", express.static(path.join(root, "build/client/assets"), { immutable: true, maxAge: "1y" }));
 app.use(express.static(path.join(root, "build/client"), { maxAge: "1h" }));
-app.all("*", createRequestHandler({ build, mode: "production" }));
+const handle = createRequestHandler({ build, mode: "production" });
+app.all("*", (req, res, next) => void handle(req, res, next).catch(next));
 
 const server = app.listen(settings.port, settings.host, () => {
   console.log(`[web] listening on http://${settings.host}:${settings.port}`);

@@ -34,7 +34,7 @@ function count(name: string, file: string, exitCode: number) {
   total.skipped += (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
   if (r.numFailedTests > 0) failures.push(`${name}: ${r.numFailedTests} failed`);
   // A suite that fails to load counts as a failure even when no test in it ran.
-  const broken = (r.testResults ?? []).filter((t: any) => t.status === "failed" && t.assertionResults.length === 0);
+  const broken = (r.testResults ?? []).filter((t: { status: string; assertionResults: unknown[] }) => t.status === "failed" && t.assertionResults.length === 0);
   if (broken.length) {
     total.failed += broken.length;
     failures.push(`${name}: ${broken.length} file(s) failed to load`);
@@ -55,13 +55,14 @@ async function vitest(name: string, projects: string[], env: Record<string, stri
 
 const children: ChildProcess[] = [];
 // Whatever crashes, stop what was started and still print the totals.
-process.on("uncaughtException", async (error) => {
+process.on("uncaughtException", (error) => void crashed(error));
+async function crashed(error: Error) {
   console.error(error);
   for (const c of children) await stopChild(c);
   await stack?.stop();
   console.log(`\n${total.passed} passed, ${total.failed + 1} failed`);
   process.exit(1);
-});
+}
 let stack: Awaited<ReturnType<typeof bringUp>> | undefined;
 let exitCode = 1;
 try {

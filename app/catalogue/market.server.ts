@@ -1,4 +1,4 @@
-import { Op, type WhereOptions } from "sequelize";
+import { Op, QueryTypes, type WhereOptions } from "sequelize";
 import { z } from "zod";
 import { sequelize } from "~/db.server";
 import { Listing, Workshop } from "~/models/index.server";
@@ -61,12 +61,10 @@ export async function marketPage(search: MarketSearch, pageSize = MARKET_PAGE_SI
 
 /** How many live listings each category has (every category, zero included), in catalogue order. */
 export async function liveCountsByCategory(): Promise<CategoryCount[]> {
-  const rows = (await Listing.findAll({
-    attributes: ["category", [sequelize.fn("count", sequelize.col("id")), "live"]],
-    where: { status: "live" },
-    group: ["category"],
-    raw: true,
-  })) as unknown as { category: Category; live: string }[];
+  const rows = await sequelize.query<{ category: Category; live: string }>(
+    "SELECT category, count(*) AS live FROM listings WHERE status = 'live' GROUP BY category",
+    { type: QueryTypes.SELECT },
+  );
   const by = new Map(rows.map((r) => [r.category, Number(r.live)]));
   return CATEGORIES.map((category) => ({ category, live: by.get(category) ?? 0 }));
 }

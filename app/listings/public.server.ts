@@ -1,3 +1,4 @@
+import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import {
   CATEGORY_LABELS,
@@ -91,11 +92,11 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
 
 /** Whether a serial number is on file, asked without ever loading the number. */
 async function hasSerial(listingId: string): Promise<boolean> {
-  const [rows] = await Listing.sequelize!.query(
+  const rows = await Listing.sequelize!.query<{ on_file: boolean }>(
     "SELECT serial_number IS NOT NULL AND btrim(serial_number) <> '' AS on_file FROM listings WHERE id = :id",
-    { replacements: { id: listingId } },
+    { replacements: { id: listingId }, type: QueryTypes.SELECT },
   );
-  return Boolean((rows as { on_file: boolean }[])[0]?.on_file);
+  return Boolean(rows[0]?.on_file);
 }
 
 function head(listing: Listing, title: string, mayReadHeldReason: boolean, serialOnFile: boolean): ListingHead {

@@ -1,6 +1,6 @@
-import { fn, col, type Transaction } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
-import { BenchSheet, Listing, ListingPhoto, RestorationEntry } from "~/models/index.server";
+import { BenchSheet, Listing, RestorationEntry } from "~/models/index.server";
 import type { SessionUser } from "~/auth/guards.server";
 import { checkBenchSheet, type Verdict } from "@shared/bench";
 import { publishChecklist, type ChecklistItem } from "@shared/publish-checklist";
@@ -15,13 +15,10 @@ import { ListingInputError, ListingStateError } from "./errors.server";
 export type PhotoCounts = { ready: number; processing: number; failed: number };
 
 export async function photoCounts(listingId: string, transaction?: Transaction): Promise<PhotoCounts> {
-  const rows = (await ListingPhoto.findAll({
-    where: { listingId },
-    attributes: ["status", [fn("count", col("id")), "n"]],
-    group: ["status"],
-    raw: true,
-    transaction,
-  })) as unknown as { status: keyof PhotoCounts; n: string }[];
+  const rows = await sequelize.query<{ status: keyof PhotoCounts; n: string }>(
+    "SELECT status, count(*) AS n FROM listing_photos WHERE listing_id = :listingId GROUP BY status",
+    { replacements: { listingId }, type: QueryTypes.SELECT, transaction },
+  );
   const out: PhotoCounts = { ready: 0, processing: 0, failed: 0 };
   for (const r of rows) out[r.status] = Number(r.n);
   return out;

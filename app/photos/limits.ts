@@ -14,7 +14,6 @@ export const PHOTO_LIMITS = {
 /** Long edge in pixels of each derived size; smaller images are never enlarged. */
 export const PHOTO_SIZES = { thumb: 400, listing: 1200, zoom: 2400 } as const;
 export type PhotoSize = keyof typeof PHOTO_SIZES;
-export const PHOTO_SIZE_NAMES = Object.keys(PHOTO_SIZES) as PhotoSize[];
 
 /** `20 MB`, `1.4 MB`, `812 kB` — binary multiples, as the limit above. */
 export function formatBytes(bytes: number): string {

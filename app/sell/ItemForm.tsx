@@ -58,8 +58,9 @@ export function ItemForm({
     });
   };
 
-  const currency = isCurrency(liveText("currency")) ? liveText("currency") : "EUR";
-  const price = liveText("price").trim() ? parsePrice(liveText("price"), currency as never) : null;
+  const typedCurrency = liveText("currency");
+  const currency = isCurrency(typedCurrency) ? typedCurrency : "EUR";
+  const price = liveText("price").trim() ? parsePrice(liveText("price"), currency) : null;
   const era = parseEra(liveText("era"));
   const weight = parseWeight(liveText("weight"));
   const heavy = weight.ok && weight.value !== null && weight.value >= TWO_PERSON_LIFT_G;

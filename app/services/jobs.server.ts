@@ -9,7 +9,9 @@ export const QUEUES = {
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
-const globalForJobs = globalThis as unknown as { __loadlineBoss?: Promise<PgBoss> };
+declare global {
+  var __loadlineBoss: Promise<PgBoss> | undefined;
+}
 
 async function startBoss(options: Partial<PgBoss.ConstructorOptions> = {}): Promise<PgBoss> {
   const boss = new PgBoss({ connectionString: env().databaseUrl, max: 4, ...options });
@@ -23,11 +25,11 @@ async function startBoss(options: Partial<PgBoss.ConstructorOptions> = {}): Prom
 
 // Web processes only send; the worker process (app/jobs/worker.server.ts) supervises and schedules.
 export function getBoss(): Promise<PgBoss> {
-  globalForJobs.__loadlineBoss ??= startBoss({ supervise: false, schedule: false }).catch((error) => {
-    globalForJobs.__loadlineBoss = undefined;
+  globalThis.__loadlineBoss ??= startBoss({ supervise: false, schedule: false }).catch((error) => {
+    globalThis.__loadlineBoss = undefined;
     throw error;
   });
-  return globalForJobs.__loadlineBoss;
+  return globalThis.__loadlineBoss;
 }
 
 export async function enqueue(name: QueueName, data: object, options: PgBoss.SendOptions = {}) {

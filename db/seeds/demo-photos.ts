@@ -1,5 +1,5 @@
 import type { Category } from "@shared/catalogue";
-import { Canvas, hex, mix, prng, shade, type RGB } from "./raster";
+import { Canvas, hex, prng, shade, type RGB } from "./raster";
 
 // Product pictures for the demo scenario, drawn from scratch: a front panel with knobs and meters for
 // electronics, a plinth and platter for turntables, cabinets with drivers for loudspeakers. Every

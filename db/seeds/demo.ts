@@ -139,7 +139,7 @@ async function uploadPhotos(units: DemoUnit[]): Promise<{ serial: string; photos
 }
 
 async function ensureAccounts(t: Transaction): Promise<{ ids: Record<AccountKey, string>; created: boolean }> {
-  const ids = {} as Record<AccountKey, string>;
+  const ids: Partial<Record<AccountKey, string>> = {};
   let created = false;
   let hash: string | undefined;
   for (const a of DEMO_ACCOUNTS) {
@@ -163,7 +163,8 @@ async function ensureAccounts(t: Transaction): Promise<{ ids: Record<AccountKey,
     ids[a.key] = user.id;
     created = true;
   }
-  return { ids, created };
+  // The loop above visits every demo account.
+  return { ids: ids as Record<AccountKey, string>, created };
 }
 
 async function ensureWorkshops(users: Record<AccountKey, string>, t: Transaction) {

@@ -33,7 +33,7 @@ export interface RunningStripeFake {
   store: StripeStore;
   /** Resolves when every webhook first attempt queued so far has been made. */
   webhooksIdle(): Promise<void>;
-  stop(): Promise<void>;
+  stop: () => Promise<void>;
 }
 
 export async function startStripeFake(opts: StripeFakeOptions): Promise<RunningStripeFake> {

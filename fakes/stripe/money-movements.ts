@@ -106,7 +106,7 @@ function createTransfer(ctx: Ctx, params: Params): StripeObject {
     destination_payment: ctx.store.newId("py"),
     livemode: false,
     metadata: p.metadata(),
-    reversals: { object: "list", data: [] as StripeObject[], has_more: false, url: "" },
+    reversals: { object: "list", data: [], has_more: false, url: "" },
     reversed: false,
     source_transaction: sourceId ?? null,
     transfer_group: p.str("transfer_group") ?? null,

@@ -42,7 +42,8 @@ export class WebhookSender {
   private enqueue(event: StripeObject): void {
     if (!this.target) return;
     event.pending_webhooks = 1;
-    event._deliveries = [] as DeliveryAttempt[];
+    const deliveries: DeliveryAttempt[] = [];
+    event._deliveries = deliveries;
     // First attempts go out one at a time in creation order, after the API answer that caused them.
     this.chain = this.chain.then(() => new Promise((resolve) => setImmediate(resolve))).then(() => this.attempt(event, 0));
   }

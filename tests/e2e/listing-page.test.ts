@@ -62,7 +62,7 @@ describe("the listing page", () => {
     await dialog.waitFor();
     const zoomed = dialog.getByRole("img");
     expect(await zoomed.getAttribute("src")).toMatch(/^\/media\/photos\/zoom\//);
-    await page.waitForFunction(() => (document.querySelector("dialog img") as HTMLImageElement | null)?.naturalWidth! > 0);
+    await page.waitForFunction(() => (document.querySelector<HTMLImageElement>("dialog img")?.naturalWidth ?? 0) > 0);
     expect(await dialog.getByText("Photo 1 of 2").isVisible()).toBe(true);
     await page.keyboard.press("ArrowRight");
     await dialog.getByText("Photo 2 of 2").waitFor();

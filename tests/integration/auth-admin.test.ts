@@ -1,6 +1,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { RUN, testEmail, TEST_EMAIL_PATTERN } from "./auth-support";
 import type { Role } from "~/auth/roles";
+import { blankListing } from "../support/blank-listing";
 
 // Admin work on accounts and the review desk's queue, against the real database.
 const { sequelize } = await import("~/db.server");
@@ -91,8 +92,8 @@ describe("review desk queue", () => {
       sellerId: owner.id, category: "integrated_amplifier" as const, maker: "Harrowgate", priceMinor: 42_000,
       country: "NL", cosmeticGrade: "clean" as const, serviceState: "serviced_measured" as const, publishedAt: new Date(),
     };
-    const held = await Listing.create({ ...base, model: `HA-${RUN}`, status: "held", heldReason: "Power claim above the supply's limit" } as never);
-    const live = await Listing.create({ ...base, model: `LV-${RUN}`, status: "live" } as never);
+    const held = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `HA-${RUN}`, status: "held", heldReason: "Power claim above the supply's limit" }));
+    const live = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `LV-${RUN}`, status: "live" }));
 
     const queue = await reviewQueue();
     expect(queue.heldListings).toContainEqual(expect.objectContaining({

@@ -7,7 +7,7 @@ import { publishListing } from "~/listings/publish.server";
 import { addRestorationEntry, deleteRestorationEntry, restorationLog, updateRestorationEntry } from "~/listings/restoration.server";
 import { readItemForm } from "@shared/listing-draft";
 import { exampleIntegratedAmplifierSheet } from "@shared/bench";
-import { AMP_ITEM, cleanUp, makeAccount, readyDraft, reload, withOwnCaptures } from "./listing-support";
+import { AMP_ITEM, cleanUp, inputError, makeAccount, readyDraft, reload, withOwnCaptures } from "./listing-support";
 
 afterAll(cleanUp);
 
@@ -81,13 +81,13 @@ describe("saving the item and condition steps", () => {
     const seller = await makeAccount("item-bad");
     const draft = await createDraft(seller.session, "integrated_amplifier");
     await saveItem(draft.id, seller.user.id, { maker: "Harrowgate Sound" });
-    const err = (await saveItem(draft.id, seller.user.id, { model: "HS-120", priceMinor: -5, mainsFrequencyHz: 55 }).catch((e) => e)) as ListingInputError;
+    const err = await inputError(saveItem(draft.id, seller.user.id, { model: "HS-120", priceMinor: -5, mainsFrequencyHz: 55 }));
     expect(err).toBeInstanceOf(ListingInputError);
     expect(err.issues.map((i) => i.path).sort()).toEqual(["mainsFrequencyHz", "priceMinor"]);
     const { listing } = await reload(draft.id);
     expect(listing.maker).toBe("Harrowgate Sound");
     expect(listing.model).toBeNull();
-    const era = (await saveItem(draft.id, seller.user.id, { yearFrom: 1981, yearTo: 1978 }).catch((e) => e)) as ListingInputError;
+    const era = await inputError(saveItem(draft.id, seller.user.id, { yearFrom: 1981, yearTo: 1978 }));
     expect(era.issues[0].path).toBe("yearTo");
   });
 
@@ -96,11 +96,11 @@ describe("saving the item and condition steps", () => {
     const draft = await readyDraft(seller);
     await saveBenchSheet(draft.id, seller.user.id, await withOwnCaptures(exampleIntegratedAmplifierSheet(), seller.user.id));
     await publishListing(draft.id, seller.session);
-    const cleared = (await saveItem(draft.id, seller.user.id, { maker: null, priceMinor: null }).catch((e) => e)) as ListingInputError;
+    const cleared = await inputError(saveItem(draft.id, seller.user.id, { maker: null, priceMinor: null }));
     expect(cleared.issues.map((i) => i.path).sort()).toEqual(["maker", "priceMinor"]);
-    const kind = (await saveItem(draft.id, seller.user.id, { category: "turntable" }).catch((e) => e)) as ListingInputError;
+    const kind = await inputError(saveItem(draft.id, seller.user.id, { category: "turntable" }));
     expect(kind.issues[0].path).toBe("category");
-    const cond = (await saveCondition(draft.id, seller.user.id, { serviceState: null }).catch((e) => e)) as ListingInputError;
+    const cond = await inputError(saveCondition(draft.id, seller.user.id, { serviceState: null }));
     expect(cond.issues[0].path).toBe("serviceState");
     // A price change is fine.
     await saveItem(draft.id, seller.user.id, { priceMinor: 119_000 });
@@ -111,7 +111,7 @@ describe("saving the item and condition steps", () => {
     const seller = await makeAccount("category-change");
     const draft = await readyDraft(seller);
     await saveBenchSheet(draft.id, seller.user.id, await withOwnCaptures(exampleIntegratedAmplifierSheet(), seller.user.id));
-    const err = (await saveItem(draft.id, seller.user.id, { ...AMP_ITEM, category: "power_amplifier" }).catch((e) => e)) as ListingInputError;
+    const err = await inputError(saveItem(draft.id, seller.user.id, { ...AMP_ITEM, category: "power_amplifier" }));
     expect(err.issues[0].message).toMatch(/bench sheet/);
     expect((await reload(draft.id)).listing.category).toBe("integrated_amplifier");
   });
@@ -134,7 +134,7 @@ describe("the restoration log", () => {
     const log = await restorationLog(draft.id);
     expect(log).toHaveLength(1);
     expect(log[0]).toMatchObject({ doneOn: "2025-01-11", technician: "Bench 1", parts: [] });
-    const future = (await addRestorationEntry(draft.id, seller.user.id, { doneOn: "2999-01-01", work: "x", parts: [], technician: null, readingsBefore: [], readingsAfter: [] }).catch((e) => e)) as ListingInputError;
+    const future = await inputError(addRestorationEntry(draft.id, seller.user.id, { doneOn: "2999-01-01", work: "x", parts: [], technician: null, readingsBefore: [], readingsAfter: [] }));
     expect(future.issues[0].path).toBe("doneOn");
     await deleteRestorationEntry(draft.id, seller.user.id, entry.id);
     expect((await reload(draft.id)).entries).toBe(0);

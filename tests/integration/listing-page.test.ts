@@ -12,6 +12,7 @@ import {
   type AmplifierFixture,
 } from "../support/listing-fixtures";
 import { routeArgs } from "../support/route-args";
+import { UNSAFE_DataWithResponseInit as DataWithResponseInit } from "react-router";
 
 // The listing page's loader and its watch action, called as the server calls them, against the real
 // database: who may see which listing, that the serial number never leaves the server, and watching.
@@ -29,9 +30,8 @@ async function run(fn: () => Promise<unknown>): Promise<Outcome> {
     value = thrown;
   }
   if (value instanceof Response) return { status: value.status, location: value.headers.get("Location"), headers: value.headers };
-  const v = value as { type?: string; data?: unknown; init?: ResponseInit | null };
-  if (v && v.type === "DataWithResponseInit") {
-    return { status: v.init?.status ?? 200, body: v.data as Outcome["body"], headers: new Headers(v.init?.headers) };
+  if (value instanceof DataWithResponseInit) {
+    return { status: value.init?.status ?? 200, body: value.data as Outcome["body"], headers: new Headers(value.init?.headers) };
   }
   return { status: 200, body: value as Outcome["body"] };
 }

@@ -6,8 +6,10 @@ import type { SessionUser } from "~/auth/guards.server";
 import { normaliseRoles, type Role } from "~/auth/roles";
 import { createDraft, saveCondition, saveItem } from "~/listings/drafts.server";
 import { addRestorationEntry } from "~/listings/restoration.server";
+import { ListingInputError } from "~/listings/errors.server";
 import type { BenchSheet as Sheet, Reading } from "@shared/bench";
 import { analyseSine, type SineAnalysis } from "@shared/bench/analysis";
+import { UNSAFE_DataWithResponseInit as DataWithResponseInit } from "react-router";
 import { toneSamples } from "../support/capture-files";
 
 // Shared by the listing suites: accounts with session cookies, a listing filled in step by step as a
@@ -154,17 +156,21 @@ export async function call(run: () => Promise<unknown>): Promise<{ status: numbe
   try {
     const out = await run();
     if (out instanceof Response) return { status: out.status, body: await out.json().catch(() => null) };
-    if (out && typeof out === "object" && "type" in out && (out as { type: string }).type === "DataWithResponseInit") {
-      const d = out as unknown as { data: unknown; init: { status?: number } | null };
-      return { status: d.init?.status ?? 200, body: d.data };
-    }
+    if (out instanceof DataWithResponseInit) return { status: out.init?.status ?? 200, body: out.data };
     return { status: 200, body: out };
   } catch (thrown) {
     if (thrown instanceof Response) return { status: thrown.status, body: await thrown.json().catch(() => null) };
-    if (thrown && typeof thrown === "object" && "type" in thrown && (thrown as { type: string }).type === "DataWithResponseInit") {
-      const d = thrown as unknown as { data: unknown; init: { status?: number } | null };
-      return { status: d.init?.status ?? 500, body: d.data };
-    }
+    if (thrown instanceof DataWithResponseInit) return { status: thrown.init?.status ?? 500, body: thrown.data };
     throw thrown;
   }
+}
+
+/** The ListingInputError a call must end in; anything else fails the test. */
+export async function inputError(call: Promise<unknown>): Promise<ListingInputError> {
+  const outcome = await call.then(
+    () => undefined,
+    (e: unknown) => e,
+  );
+  if (outcome instanceof ListingInputError) return outcome;
+  throw new Error(`expected a ListingInputError, got ${outcome instanceof Error ? outcome.message : "success"}`);
 }

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { createServer, type Server } from "node:http";
+import { createServer, type IncomingMessage, type Server, type ServerResponse } from "node:http";
 import type { AddressInfo } from "node:net";
 import Stripe from "stripe";
 import { startStripeFake, signatureHeader, type RunningStripeFake } from "../../fakes/stripe/index";
@@ -20,19 +20,20 @@ describe("payments webhook receiver", () => {
 
   beforeAll(async () => {
     // Hands each HTTP request to the route's action as the framework would, as a Fetch Request.
-    app = createServer(async (req, res) => {
+    const relay = async (req: IncomingMessage, res: ServerResponse) => {
       const chunks: Buffer[] = [];
       for await (const c of req) chunks.push(c as Buffer);
       const request = new Request(`http://127.0.0.1${req.url}`, {
         method: req.method,
-        headers: Object.entries(req.headers).flatMap(([k, v]) => (typeof v === "string" ? [[k, v] as [string, string]] : [])),
+        headers: Object.entries(req.headers).flatMap(([k, v]): [string, string][] => (typeof v === "string" ? [[k, v]] : [])),
         body: Buffer.concat(chunks),
       });
       const response = await route.action(routeArgs(request, {}));
       const body = await response.json();
       answers.push({ status: response.status, body });
       res.writeHead(response.status, { "content-type": "application/json" }).end(JSON.stringify(body));
-    });
+    };
+    app = createServer((req, res) => void relay(req, res));
     await new Promise<void>((r) => app.listen(0, "127.0.0.1", r));
     appUrl = `http://127.0.0.1:${(app.address() as AddressInfo).port}`;
     fake = await startStripeFake({

@@ -1,5 +1,6 @@
 import { ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { randomBytes } from "node:crypto";
+import { QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { env } from "~/env.server";
 import { User } from "~/models/user.server";
@@ -11,6 +12,7 @@ import { QUEUES } from "~/services/jobs.server";
 import { action as photosAction, loader as photosLoader } from "~/routes/api.v1.listings.$id.photos";
 import { action as photoAction } from "~/routes/api.v1.listings.$id.photos.$photoId";
 import { routeArgs } from "../support/route-args";
+import { blankListing } from "../support/blank-listing";
 
 // Shared by the photo integration suites: sellers with session cookies, draft listings, the photo
 // routes called as the server would call them, and what object storage and the queue hold.
@@ -35,7 +37,7 @@ export async function makeSeller(label: string): Promise<{ user: User; cookie: s
 }
 
 export function makeDraft(sellerId: string): Promise<Listing> {
-  return Listing.create({ sellerId, category: "integrated_amplifier" } as never);
+  return Listing.create(blankListing(sellerId, "integrated_amplifier"));
 }
 
 export async function removeSellers(ids: string[]) {
@@ -46,9 +48,9 @@ export async function removeSellers(ids: string[]) {
   await User.destroy({ where: { id: ids } });
 }
 
-async function call(run: () => Promise<unknown>): Promise<Response> {
+async function call(run: () => Promise<Response>): Promise<Response> {
   try {
-    return (await run()) as Response;
+    return await run();
   } catch (thrown) {
     if (thrown instanceof Response) return thrown;
     throw thrown;
@@ -118,15 +120,17 @@ export async function photoObjectKeys(): Promise<Set<string>> {
 }
 
 export async function photoJobCount(): Promise<number> {
-  const [rows] = await sequelize.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = $1`, {
+  const rows = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = $1`, {
     bind: [QUEUES.photoProcess],
+    type: QueryTypes.SELECT,
   });
-  return (rows as { n: number }[])[0]?.n ?? 0;
+  return rows[0]?.n ?? 0;
 }
 
 export async function jobsFor(photoId: string): Promise<number> {
-  const [rows] = await sequelize.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = $1 AND data->>'photoId' = $2`, {
+  const rows = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = $1 AND data->>'photoId' = $2`, {
     bind: [QUEUES.photoProcess, photoId],
+    type: QueryTypes.SELECT,
   });
-  return (rows as { n: number }[])[0]?.n ?? 0;
+  return rows[0]?.n ?? 0;
 }

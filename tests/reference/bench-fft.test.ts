@@ -38,7 +38,8 @@ describe("fft.js against fft-js (general-purpose reference FFT)", () => {
     // A sine of amplitude A has mean square A²/2 whatever the window, once the bins around it are summed.
     const n = 8192;
     const x = Float64Array.from({ length: n }, (_, i) => 0.8 * Math.sin((2 * Math.PI * 1234.5 * i) / 48_000));
-    for (const w of ["blackman-harris-7", "blackman-harris-4", "hann", "flat-top"] as WindowName[]) {
+    const windows: WindowName[] = ["blackman-harris-7", "blackman-harris-4", "hann", "flat-top"];
+    for (const w of windows) {
       const s = powerSpectrum(x, 48_000, w);
       let sum = 0;
       for (let k = 1; k < s.power.length; k++) sum += s.power[k];

@@ -16,13 +16,14 @@ export async function startReceiver(answer: (req: Received, index: number) => nu
   const server = createServer((req, res) => {
     const chunks: Buffer[] = [];
     req.on("data", (c) => chunks.push(c));
-    req.on("end", async () => {
+    const reply = async () => {
       const entry = { method: req.method ?? "", path: req.url ?? "", headers: req.headers, body: Buffer.concat(chunks).toString("utf8") };
       received.push(entry);
       const status = await answer(entry, received.length - 1);
       res.writeHead(status, { "content-type": "application/json" }).end(JSON.stringify({ status }));
       for (const w of waiters.filter((w) => received.length >= w.count)) w.resolve();
-    });
+    };
+    req.on("end", () => void reply());
   });
   await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;

@@ -9,7 +9,7 @@ import { ButtonLink } from "~/components/Button";
 import { StatusBadge } from "~/sell/StatusBadge";
 import { StepNav } from "~/sell/StepNav";
 import { CATEGORY_LABELS } from "@shared/catalogue";
-import { EDITOR_STEPS, type EditorStep } from "@shared/listing-draft";
+import type { EditorStep } from "@shared/listing-draft";
 
 // The listing editor's frame: title, state and the steps. Each step is a child route with its own form.
 
@@ -27,17 +27,22 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.listing
 
 /** The editor's data in a step route. */
 export function useEditor(): EditorData {
-  return useRouteLoaderData<typeof loader>("routes/sell/editor") as EditorData;
+  const data = useRouteLoaderData<typeof loader>("routes/sell/editor");
+  if (!data) throw new Error("useEditor belongs in the editor's step routes.");
+  return data;
 }
 
 export default function Editor({ loaderData }: Route.ComponentProps) {
   const { listing, checklist, verdict } = loaderData;
-  const done = Object.fromEntries(
-    EDITOR_STEPS.map((s) => [s.id, s.id === "review" ? listing.status !== "draft" && listing.status !== "withdrawn" : !checklist.some((c) => c.step === s.id && !c.ok)]),
-  ) as Record<EditorStep, boolean>;
-  done.photos = loaderData.photos.some((p) => p.status === "ready");
-  done.bench = !!verdict?.benchVerified;
-  done.restoration = loaderData.restoration.length > 0;
+  const checked = (step: EditorStep) => !checklist.some((c) => c.step === step && !c.ok);
+  const done: Record<EditorStep, boolean> = {
+    item: checked("item"),
+    condition: checked("condition"),
+    restoration: loaderData.restoration.length > 0,
+    photos: loaderData.photos.some((p) => p.status === "ready"),
+    bench: !!verdict?.benchVerified,
+    review: listing.status !== "draft" && listing.status !== "withdrawn",
+  };
   const untitled = listing.title === "Untitled unit";
   return (
     <main className="mx-auto w-full max-w-6xl space-y-6 px-4 py-6 sm:px-6 sm:py-8">

@@ -92,7 +92,7 @@ export function BenchSheetEditor({
   const setMeta = (patch: Partial<SheetFormState["meta"]>) => set((s) => ({ ...s, meta: { ...s.meta, ...patch } }));
   const foldCapture = (c: CaptureResult) =>
     set((s) => {
-      const allowed = CATEGORY_QUANTITIES[s.category] as readonly string[];
+      const allowed = CATEGORY_QUANTITIES[s.category];
       const kept = s.rows.filter((r) => r.capture?.captureId !== c.id);
       const added = c.readings.filter((r) => allowed.includes(r.quantity)).map((r, i) => readingToRow(r, `cap-${c.id}-${i}`));
       const firstBlank = kept.findIndex((r) => r.basis === "measured" && !r.capture && !r.value.trim());

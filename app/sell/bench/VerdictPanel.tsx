@@ -19,7 +19,10 @@ export function OutcomeCounts({ verdict, className }: { verdict: Verdict; classN
 }
 
 function Result({ r, rowLabel }: { r: RuleResult; rowLabel: (ref: string) => string | null }) {
-  const rows = (r.refs.map(rowLabel).filter(Boolean) as string[]).sort((a, b) => a.localeCompare(b, "en", { numeric: true }));
+  const rows = r.refs
+    .map(rowLabel)
+    .filter((label) => label !== null)
+    .sort((a, b) => a.localeCompare(b, "en", { numeric: true }));
   return (
     <li className={cx("space-y-1.5 py-3", r.outcome === "implausible" && "rounded-md bg-fault-wash/60 px-3")} data-outcome={r.outcome} data-rule={r.ruleId}>
       <div className="flex flex-wrap items-center gap-2">

@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { areNeighbours, countryFromAcceptLanguage, parseZone, zoneFor } from "~/listings/zones";
-import { canViewListing } from "~/listings/visibility";
-import type { Role } from "~/auth/roles";
+import { canViewListing, type Viewer } from "~/listings/visibility";
 
 describe("the visitor's country from Accept-Language (RFC 9110 §12.5.4 weights)", () => {
   it("takes the region of the most preferred tag", () => {
@@ -40,10 +39,10 @@ describe("shipping zone relative to the seller's country", () => {
 });
 
 describe("who may open a listing's page", () => {
-  const seller = { id: "s", roles: ["buyer", "workshop"] as Role[] };
-  const buyer = { id: "b", roles: ["buyer"] as Role[] };
-  const moderator = { id: "m", roles: ["buyer", "moderator"] as Role[] };
-  const view = (status: Parameters<typeof canViewListing>[0], viewer: typeof buyer | null) => canViewListing(status, "s", viewer);
+  const seller: Viewer = { id: "s", roles: ["buyer", "workshop"] };
+  const buyer: Viewer = { id: "b", roles: ["buyer"] };
+  const moderator: Viewer = { id: "m", roles: ["buyer", "moderator"] };
+  const view = (status: Parameters<typeof canViewListing>[0], viewer: Viewer | null) => canViewListing(status, "s", viewer);
 
   it("live and sold units are public", () => {
     for (const status of ["live", "sold"] as const) {

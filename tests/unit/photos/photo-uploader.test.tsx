@@ -73,9 +73,9 @@ describe("PhotoUploader", () => {
     await waitFor(() => expect(net.sendPhoto).toHaveBeenCalledTimes(1));
     expect((net.sendPhoto.mock.calls[0][1] as File).name).toBe("front.jpg");
     act(() => progress[0](50, 100));
-    const bar = screen.getByRole("progressbar", { name: "Uploading front.jpg" }) as HTMLProgressElement;
+    const bar = screen.getByRole<HTMLProgressElement>("progressbar", { name: "Uploading front.jpg" });
     expect(bar.value).toBe(50);
-    expect((screen.getByRole("progressbar", { name: "Uploading notes.jpg" }) as HTMLProgressElement).value).toBe(0);
+    expect(screen.getByRole<HTMLProgressElement>("progressbar", { name: "Uploading notes.jpg" }).value).toBe(0);
 
     const id = "cccccccc-0000-4000-8000-000000000009";
     net.fetchPhotos.mockResolvedValue(listOf([...three(), photo(id, 3, { status: "processing", urls: null })]));
