@@ -11,8 +11,7 @@ import {
   removeFixtureUsers,
   type AmplifierFixture,
 } from "../support/listing-fixtures";
-import { routeArgs } from "../support/route-args";
-import { UNSAFE_DataWithResponseInit as DataWithResponseInit } from "react-router";
+import { isData, routeArgs } from "../support/route-args";
 
 // The listing page's loader and its watch action, called as the server calls them, against the real
 // database: who may see which listing, that the serial number never leaves the server, and watching.
@@ -30,7 +29,7 @@ async function run(fn: () => Promise<unknown>): Promise<Outcome> {
     value = thrown;
   }
   if (value instanceof Response) return { status: value.status, location: value.headers.get("Location"), headers: value.headers };
-  if (value instanceof DataWithResponseInit) {
+  if (isData(value)) {
     return { status: value.init?.status ?? 200, body: value.data as Outcome["body"], headers: new Headers(value.init?.headers) };
   }
   return { status: 200, body: value as Outcome["body"] };

@@ -9,8 +9,8 @@ import { addRestorationEntry } from "~/listings/restoration.server";
 import { ListingInputError } from "~/listings/errors.server";
 import type { BenchSheet as Sheet, Reading } from "@shared/bench";
 import { analyseSine, type SineAnalysis } from "@shared/bench/analysis";
-import { UNSAFE_DataWithResponseInit as DataWithResponseInit } from "react-router";
 import { toneSamples } from "../support/capture-files";
+import { isData } from "../support/route-args";
 
 // Shared by the listing suites: accounts with session cookies, a listing filled in step by step as a
 // seller would, captures as the analysis job leaves them, and clean-up.
@@ -156,11 +156,11 @@ export async function call(run: () => Promise<unknown>): Promise<{ status: numbe
   try {
     const out = await run();
     if (out instanceof Response) return { status: out.status, body: await out.json().catch(() => null) };
-    if (out instanceof DataWithResponseInit) return { status: out.init?.status ?? 200, body: out.data };
+    if (isData(out)) return { status: out.init?.status ?? 200, body: out.data };
     return { status: 200, body: out };
   } catch (thrown) {
     if (thrown instanceof Response) return { status: thrown.status, body: await thrown.json().catch(() => null) };
-    if (thrown instanceof DataWithResponseInit) return { status: thrown.init?.status ?? 500, body: thrown.data };
+    if (isData(thrown)) return { status: thrown.init?.status ?? 500, body: thrown.data };
     throw thrown;
   }
 }
