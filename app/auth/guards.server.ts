@@ -2,7 +2,7 @@ import { data, redirect } from "react-router";
 import { User } from "~/models/user.server";
 import { getSession, SESSION_MAX_AGE_SECONDS } from "~/auth/session.server";
 import { signInPath } from "~/auth/redirect";
-import { normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
+import { holdsRole, normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
 
 // THE path for authentication and authorisation: every loader, action and API route that needs a
 // signed-in account or a role goes through requireUser / requireRole here.
@@ -64,10 +64,11 @@ export async function requireUser(request: Request, options: { redirectTo?: stri
   throw redirect(signInPath(options.redirectTo ?? `${url.pathname}${url.search}`));
 }
 
+/** Whether the account holds one of the roles, granted or included by another (an admin is a moderator). */
 export function hasRole(user: Pick<SessionUser, "roles"> | null, role: Role | readonly Role[]): boolean {
   if (!user) return false;
   const wanted = typeof role === "string" ? [role] : role;
-  return wanted.some((r) => user.roles.includes(r));
+  return wanted.some((r) => holdsRole(user.roles, r));
 }
 
 /** The body of a 403 page; the root error boundary shows `message`. */
