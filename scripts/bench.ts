@@ -105,6 +105,7 @@ const figures = await captureFigures();
 const sheet = await sheetFigures();
 figures.push(...sheet.figures);
 const notes = [sheet.note];
+figures.push(...(await (await import("./bench/photos")).photoFigures()));
 
 // Health checks under load need a running app: `npm start` in another terminal, or BENCH_URL.
 const health = await import("./bench/health");
