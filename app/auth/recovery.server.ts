@@ -4,6 +4,7 @@ import { findAccountByEmail } from "~/auth/accounts.server";
 import { hashPassword } from "~/auth/password.server";
 import { consumeToken, issueToken, recentTokenCount, retireTokens, TOKENS_PER_HOUR } from "~/auth/tokens.server";
 import { sendPasswordResetEmail } from "~/auth/emails.server";
+import { revokeAllSessions } from "~/auth/session-store.server";
 
 /**
  * "Forgot password": mails a reset link when an active account uses the address. The caller shows
@@ -23,7 +24,7 @@ export type ResetResult = { ok: true; user: User } | { ok: false; reason: "unkno
 
 /**
  * Sets a new password from a reset link. The link proves the mailbox, so the address counts as
- * verified; every other open session ends (session version bump) and older reset links stop working.
+ * verified; every open session ends (the route then starts a fresh one) and older reset links stop working.
  */
 export async function resetPassword(token: string, password: string): Promise<ResetResult> {
   const passwordHash = await hashPassword(password);
@@ -36,12 +37,12 @@ export async function resetPassword(token: string, password: string): Promise<Re
       {
         passwordHash,
         emailVerifiedAt: user.emailVerifiedAt ?? new Date(),
-        sessionVersion: user.sessionVersion + 1,
         lastSignInAt: user.status === "active" ? new Date() : user.lastSignInAt,
       },
       { transaction },
     );
     await retireTokens(user.id, "reset_password", transaction);
+    await revokeAllSessions(user.id, transaction);
     if (user.status !== "active") return { ok: false, reason: "suspended" };
     return { ok: true, user };
   });

@@ -1,5 +1,6 @@
 import { afterAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { linkToken, testEmail, TEST_EMAIL_PATTERN, type SentMail } from "./auth-support";
+import { signedInAs, signedInCookie } from "../support/sessions";
 
 // Sign-up, confirmation, password sign-in with its limits, and password reset, against the real
 // database. Outgoing mail is captured in memory so the links can be followed.
@@ -215,6 +216,7 @@ describe("password reset", () => {
   it("sets the new password, confirms the address, ends other sessions and retires older links", async () => {
     const email = await signUp("reset");
     const before = (await User.findOne({ where: { email } }))!;
+    const [phone, laptop] = [await signedInCookie(before), await signedInCookie(before)];
     await requestPasswordReset(email);
     await requestPasswordReset(email);
     const [older, newer] = mailTo(email).filter((m) => /password/.test(m.subject)).map((m) => linkToken(m, "/reset-password/"));
@@ -222,7 +224,8 @@ describe("password reset", () => {
     const result = await resetPassword(newer, "a-brand-new-password");
     expect(result.ok).toBe(true);
     const after = (await User.findOne({ where: { email } }))!;
-    expect(after.sessionVersion).toBe(before.sessionVersion + 1);
+    expect(await signedInAs(phone)).toBeNull();
+    expect(await signedInAs(laptop)).toBeNull();
     expect(after.emailVerifiedAt).toBeInstanceOf(Date);
     expect(await resetPassword(older, "yet-another-password")).toEqual({ ok: false, reason: "used" });
     expect(await resetPassword(newer, "yet-another-password")).toEqual({ ok: false, reason: "used" });
