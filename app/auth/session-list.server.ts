@@ -1,4 +1,5 @@
 import { listOpenSessions } from "~/auth/session-store.server";
+import { describeBrowser } from "~/auth/browser-name";
 
 // What /account shows of an account's open sessions. Only the row id leaves the server (the forms
 // post it back); the token never does.
@@ -32,31 +33,4 @@ export async function sessionList(userId: string, currentSessionId: string): Pro
   }));
   // This device first, then the most recently used.
   return [...list.filter((s) => s.current), ...list.filter((s) => !s.current)];
-}
-
-const BROWSERS: [RegExp, string][] = [
-  [/Edg(e|A|iOS)?\//, "Edge"],
-  [/OPR\/|Opera/, "Opera"],
-  [/Firefox\/|FxiOS\//, "Firefox"],
-  [/Chrome\/|Chromium\/|CriOS\//, "Chrome"],
-  [/Safari\//, "Safari"],
-];
-
-const SYSTEMS: [RegExp, string][] = [
-  [/iPhone|iPad|iPod/, "iOS"],
-  [/Android/, "Android"],
-  [/Windows/, "Windows"],
-  [/Mac OS X|Macintosh/, "macOS"],
-  [/CrOS/, "ChromeOS"],
-  [/Linux/, "Linux"],
-];
-
-/** "Firefox on Linux" from a user agent; the raw string (shortened) when it is none we know. */
-export function describeBrowser(userAgent: string | null): string {
-  if (!userAgent) return "Unknown browser";
-  const browser = BROWSERS.find(([re]) => re.test(userAgent))?.[1];
-  const system = SYSTEMS.find(([re]) => re.test(userAgent))?.[1];
-  if (browser && system) return `${browser} on ${system}`;
-  if (browser || system) return browser ?? `A browser on ${system}`;
-  return userAgent.length > 60 ? `${userAgent.slice(0, 57)}…` : userAgent;
 }

@@ -2,6 +2,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterEach, describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { parseEnv } from "~/env.server";
 import { localSessionSecret, SECRET_FILE } from "../../scripts/local-secret";
 
@@ -40,6 +41,17 @@ describe("SESSION_SECRET", () => {
   it("takes several, comma-separated, in order: the first signs, all verify", () => {
     expect(parseEnv({ SESSION_SECRET: A }).sessionSecrets).toEqual([A]);
     expect(parseEnv({ SESSION_SECRET: ` ${B} , ${A} ` }).sessionSecrets).toEqual([B, A]);
+  });
+
+  it("reads any list of secrets back in order, whatever the spacing around the commas", () => {
+    const secret = fc.string({ minLength: 32, maxLength: 80 }).filter((s) => !s.includes(",") && s.trim() === s && s.length >= 32);
+    const space = fc.constantFrom("", " ", "  ", "\t");
+    fc.assert(
+      fc.property(fc.array(fc.tuple(secret, space, space), { minLength: 1, maxLength: 4 }), (parts) => {
+        const value = parts.map(([s, before, after]) => `${before}${s}${after}`).join(",");
+        expect(parseEnv({ SESSION_SECRET: value }).sessionSecrets).toEqual(parts.map(([s]) => s));
+      }),
+    );
   });
 
   it("keeps no secret of its own in the source", () => {
