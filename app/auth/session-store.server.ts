@@ -37,6 +37,7 @@ export async function createSessionRecord(
       tokenHash: hashToken(token),
       address: client.address,
       userAgent: client.userAgent,
+      createdAt: new Date(now),
       expiresAt: new Date(now + SESSION_LIFETIME_MS),
     },
     { transaction },
