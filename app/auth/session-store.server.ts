@@ -59,7 +59,11 @@ export async function findLiveSession(token: string): Promise<LiveSession | null
     where: { tokenHash: hashToken(token), revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
     include: [{ model: User, as: "user", required: true }],
   });
-  return record?.user ? (record as LiveSession) : null;
+  return record && hasUser(record) ? record : null;
+}
+
+function hasUser(record: AccountSession): record is LiveSession {
+  return record.user !== undefined;
 }
 
 /** Notes that the session was used (and from where), at most once a minute. */
