@@ -25,9 +25,9 @@ export const MATRIX: Record<string, Entry> = {
   "/market": { cases: [{ get: everyone("ok") }] },
   "/media/*": {
     cases: [
-      { name: "a live listing's photo size", params: (f) => ({ "*": f.media!.public }), get: everyone("ok") },
+      { name: "a live listing's photo size", params: (f) => ({ "*": f.media.public }), get: everyone("ok") },
       // Originals keep their metadata (location, serial numbers on labels): never served.
-      { name: "an original", params: (f) => ({ "*": f.media!.original }), get: everyone(404) },
+      { name: "an original", params: (f) => ({ "*": f.media.original }), get: everyone(404) },
     ],
   },
 
@@ -96,7 +96,11 @@ export const MATRIX: Record<string, Entry> = {
     cases: [{ params: draft, get: { anonymous: { anyOf: ["sign-in", { to: "/sell/:id/item" }] }, others: { to: "/sell/:id/item" } } }],
   },
   "/sell/:id/item": {
-    cases: [{ params: draft, get: ownerOnly(), post: { body: form({ category: "integrated_amplifier", maker: "" }), expect: ownerOnly() } }],
+    cases: [
+      { name: "draft", params: draft, get: ownerOnly(), post: { body: form({ category: "integrated_amplifier", maker: "" }), expect: ownerOnly() } },
+      // The desk reads a held listing on its public page; editing it stays the seller's.
+      { name: "held", params: (f) => ({ id: f.held.id }), get: ownerOnly() },
+    ],
   },
   "/sell/:id/condition": {
     cases: [{ params: draft, get: ownerOnly(), post: { body: form({ cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: "" }), expect: ownerOnly() } }],

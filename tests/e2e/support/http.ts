@@ -1,3 +1,4 @@
+import net from "node:net";
 import { baseUrl } from "./browser";
 
 // Plain HTTP against the served app, as a browser without scripts (or an attacker's tool) would talk
@@ -35,9 +36,13 @@ export class Agent {
     return this.jar.size > 0;
   }
 
+  get cookieHeader(): string {
+    return [...this.jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  }
+
   async request(method: string, path: string, options: RequestOptions = {}): Promise<Answer> {
     const headers = new Headers(options.headers);
-    if (this.jar.size && !headers.has("Cookie")) headers.set("Cookie", [...this.jar].map(([k, v]) => `${k}=${v}`).join("; "));
+    if (this.jar.size && !headers.has("Cookie")) headers.set("Cookie", this.cookieHeader);
     if (method !== "GET" && method !== "HEAD" && !options.noOrigin && !headers.has("Origin")) headers.set("Origin", baseUrl());
     let body: BodyInit | undefined;
     const b = options.body;
@@ -94,8 +99,9 @@ export function singleFetchRedirect(text: string): string | null {
   if (key < 0) return null;
   for (const item of flat) {
     if (item && typeof item === "object" && !Array.isArray(item)) {
-      const at = (item as Record<string, unknown>)[`_${key}`];
-      if (typeof at === "number" && typeof flat[at] === "string") return flat[at] as string;
+      const at: unknown = Object.getOwnPropertyDescriptor(item, `_${key}`)?.value;
+      const target: unknown = typeof at === "number" ? flat[at] : undefined;
+      if (typeof target === "string") return target;
     }
   }
   return null;
@@ -122,4 +128,33 @@ export async function inParallel<T>(jobs: (() => Promise<T>)[], width = 8): Prom
   }
   await Promise.all(Array.from({ length: Math.min(width, jobs.length) }, lane));
   return out;
+}
+
+/**
+ * Sends `head` + `body` over a bare socket (for what fetch refuses to send, such as a Content-Length
+ * that does not match the body) and reads the first status line; null when none came within `waitMs`.
+ */
+export function rawExchange(head: string, body: Uint8Array, waitMs: number): Promise<number | null> {
+  const url = new URL(baseUrl());
+  return new Promise((resolve) => {
+    const socket = net.connect(Number(url.port), url.hostname);
+    let received = "";
+    const done = (status: number | null) => {
+      clearTimeout(timer);
+      socket.destroy();
+      resolve(status);
+    };
+    const timer = setTimeout(() => done(null), waitMs);
+    socket.on("connect", () => {
+      socket.write(head);
+      socket.write(body);
+    });
+    socket.on("data", (chunk) => {
+      received += chunk.toString("latin1");
+      const line = /^HTTP\/1\.[01] (\d{3})/.exec(received);
+      if (line) done(Number(line[1]));
+    });
+    socket.on("error", () => done(null));
+    socket.on("close", () => done(null));
+  });
 }

@@ -37,7 +37,7 @@ export interface Fixtures {
   photo: ListingPhoto;
   capture: Capture;
   /** A ready photo of a live demo listing (its public size key and its private original key). */
-  media: { public: string; original: string } | null;
+  media: { public: string; original: string };
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -62,17 +62,23 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
   const run = randomBytes(4).toString("hex");
   const password = `matrix-${randomBytes(6).toString("hex")}`;
   const passwordHash = await hashPassword(password);
-  const users = {} as Fixtures["users"];
-  for (const [persona, roles] of Object.entries(ROLES_OF) as [keyof typeof ROLES_OF, Role[]][]) {
-    users[persona] = await User.create({
+  const account = (persona: keyof typeof ROLES_OF) =>
+    User.create({
       email: `${label}-${run}-${persona}@example.test`,
       displayName: `${label} ${persona}`,
       passwordHash,
-      roles,
+      roles: ROLES_OF[persona],
       emailVerifiedAt: new Date(),
       lastSignInAt: null,
     });
-  }
+  const users = {
+    buyer: await account("buyer"),
+    owner: await account("owner"),
+    seller: await account("seller"),
+    workshop: await account("workshop"),
+    moderator: await account("moderator"),
+    admin: await account("admin"),
+  };
   const ownerId = users.owner.id;
   const [draft, held, live] = [await listing(ownerId, "draft"), await listing(ownerId, "held"), await listing(ownerId, "live")];
   const photo = await ListingPhoto.create({
@@ -109,15 +115,22 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     where: { status: "ready", listingKey: { [Op.ne]: null } },
     include: [{ model: Listing, as: "listing", where: { status: "live" }, attributes: [] }],
   });
-  const media = demoPhoto?.listingKey ? { public: demoPhoto.listingKey, original: demoPhoto.originalKey } : null;
+  if (!demoPhoto?.listingKey) throw new Error("The demo scenario has no ready photo of a live listing: is the seed loaded?");
+  const media = { public: demoPhoto.listingKey, original: demoPhoto.originalKey };
   return { run, password, users, draft, held, live, photo, capture, media };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
 export async function signInAll(f: Fixtures): Promise<Record<Persona, Agent>> {
-  const agents = { anonymous: new Agent("anonymous") } as Record<Persona, Agent>;
-  for (const persona of PERSONAS) if (persona !== "anonymous") agents[persona] = await signInAs(f, persona);
-  return agents;
+  return {
+    anonymous: new Agent("anonymous"),
+    buyer: await signInAs(f, "buyer"),
+    owner: await signInAs(f, "owner"),
+    seller: await signInAs(f, "seller"),
+    workshop: await signInAs(f, "workshop"),
+    moderator: await signInAs(f, "moderator"),
+    admin: await signInAs(f, "admin"),
+  };
 }
 
 export function signInAs(f: Fixtures, persona: Exclude<Persona, "anonymous">): Promise<Agent> {

@@ -22,7 +22,7 @@ export const METHODS: readonly Method[] = ["GET", "POST", "PUT", "PATCH", "DELET
 export interface Write {
   body?: (f: Fixtures) => Body;
   expect: ByPersona;
-  /** Changes what other probes see (deletes the fixture, ends the session): runs after all others. */
+  /** The owner's request changes what the others see (it deletes the fixture): it runs after all others. */
   last?: boolean;
   /** Needs its own session (it ends the one it is sent with). */
   fresh?: boolean;
@@ -58,6 +58,13 @@ export const apiOwnerOnly = (o: Outcome = "ok"): ByPersona => ({ anonymous: 401,
 
 export function outcomeFor(row: ByPersona, persona: Persona): Outcome | undefined {
   return row[persona] ?? row.others;
+}
+
+/** The outcome for `persona`; the table check has already reported rows that leave one out. */
+export function outcomeOf(row: ByPersona, persona: Persona): Outcome {
+  const o = outcomeFor(row, persona);
+  if (o === undefined) throw new Error(`no outcome for ${persona}`);
+  return o;
 }
 
 export function describeOutcome(o: Outcome): string {
@@ -104,9 +111,10 @@ export function apiErrorShapeProblem(answer: Answer): string | null {
   } catch {
     return "a body that is not JSON";
   }
-  const b = body as Record<string, unknown> | null;
-  if (!b || typeof b !== "object" || Array.isArray(b)) return `body ${answer.text.slice(0, 120)}`;
-  if (typeof b.error !== "string" || !/^[a-z][a-z0-9_]*$/.test(b.error)) return `"error" is ${JSON.stringify(b.error)}, not a lower_snake code`;
-  if (typeof b.message !== "string" || !b.message.trim()) return `"message" is ${JSON.stringify(b.message)}, not a sentence`;
+  if (!body || typeof body !== "object" || Array.isArray(body)) return `body ${answer.text.slice(0, 120)}`;
+  const error: unknown = "error" in body ? body.error : undefined;
+  const message: unknown = "message" in body ? body.message : undefined;
+  if (typeof error !== "string" || !/^[a-z][a-z0-9_]*$/.test(error)) return `"error" is ${JSON.stringify(error)}, not a lower_snake code`;
+  if (typeof message !== "string" || !message.trim()) return `"message" is ${JSON.stringify(message)}, not a sentence`;
   return null;
 }
