@@ -113,7 +113,7 @@ export const oddQuery: fc.Arbitrary<string> = fc.oneof(
 );
 
 /** Values for route params that are not what the route expects. */
-export const ODD_PARAMS = ["not-a-uuid", "%00", "%E2%80%AE", "..%2F..", "00000000-0000-0000-0000-00000000000g", "A0EEBC99-9C0B-4EF8-BB6D-6BB9BD380A11", "%20", "x".repeat(3_000), "1e999", "%F0%28%8C%28"];
+export const ODD_PARAMS = ["not-a-uuid", "%00", "%0D%0ASet-Cookie:%20x=1", "%E2%80%AE", "..%2F..", "00000000-0000-0000-0000-00000000000g", "A0EEBC99-9C0B-4EF8-BB6D-6BB9BD380A11", "%20", "x".repeat(3_000), "1e999", "%F0%28%8C%28"];
 
 /** Generated values from `arb`, the same for the same seed. */
 export function sample<T>(arb: fc.Arbitrary<T>, count: number, seed: number): T[] {
