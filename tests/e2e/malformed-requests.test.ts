@@ -7,7 +7,7 @@ import { Agent, inParallel, rawExchange } from "./support/http";
 import { baseUrl } from "./support/browser";
 import { makeFixtures, removeFixtures, signInAs, type Fixtures } from "./support/matrix-fixtures";
 import { dataPath, fill, routeLeaves, type RouteLeaf } from "./support/route-table";
-import { fillTemplate, hostileText, templates } from "./support/fuzz-templates";
+import { ALWAYS, fillTemplate, hostileText, places, templates } from "./support/fuzz-templates";
 import { MALFORMED_KINDS, malformedBody, ODD_PARAMS, oddQuery, sample, type Malformed } from "./support/malformed";
 import type { Method } from "./support/matrix";
 import { MATRIX } from "./authorization-matrix.table";
@@ -96,8 +96,14 @@ function plan(f: Fixtures): Shot[] {
       }
     }
     // Hostile text in bodies that pass the door, so it reaches the services and the database.
-    for (let i = 0; i < 6; i++) {
-      for (const t of wellFormed(leaf.pattern)) shots.push({ persona: t.who, method: t.method, path: main, what: "", body: fillTemplate(t, () => take(hostile)) });
+    for (const [j, t] of wellFormed(leaf.pattern).entries()) {
+      for (let place = 0; place < places(t); place++) {
+        for (const text of [...ALWAYS, take(hostile)]) {
+          // A fresh template each time: sign-up wants a new address per account.
+          const fresh = wellFormed(leaf.pattern)[j];
+          shots.push({ persona: t.who, method: t.method, path: main, what: `${JSON.stringify(text)} in text place ${place + 1}`, body: fillTemplate(fresh, place, text) });
+        }
+      }
     }
     // Params that are not what the route expects, one param at a time.
     const names = [...leaf.pattern.matchAll(/:(\w+)|\*$/g)].map((m) => m[1] ?? "*");

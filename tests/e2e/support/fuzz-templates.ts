@@ -41,16 +41,27 @@ export function templates(f: Fixtures, n: () => number): Record<string, Template
   };
 }
 
-// NUL, the bidi overrides, other controls, a lone surrogate, and text that is only that.
+// NUL, the bidi overrides, other controls, a lone surrogate, and text that is only that. Each place
+// gets NUL and U+202E for certain, then generated ones.
+export const ALWAYS = ["Amp a\u0000b", "\u202Eevil\u202C"];
 const HOSTILE = ["a\u0000b", "\u0000", "\u202Eevil\u202C", "\u2066x\u2069", "a\u0007b", "\u001b[31m", "x\uD800y", "\u0085", "\uFEFF", "\u00A0", "e\u0301", "\u200B"];
 export const hostileText: fc.Arbitrary<string> = fc.oneof(
   fc.constantFrom(...HOSTILE),
   fc.tuple(fc.string({ maxLength: 8 }), fc.constantFrom(...HOSTILE), fc.string({ maxLength: 8 })).map(([a, h, b]) => `Amp ${a}${h}${b}`),
 );
 
-/** The template with each `TEXT` replaced by the next hostile string, as a request body. */
-export function fillTemplate(t: Template, next: () => string): Malformed {
-  const text = (v: string) => (v.includes(TEXT) ? v.split(TEXT).join(next()) : v);
+/** How many `TEXT` places a template has. */
+export function places(t: Template): number {
+  return (JSON.stringify(t.form ?? t.json).match(/\\u0000TEXT\\u0000/g) ?? []).length;
+}
+
+/**
+ * The template as a request body, with `hostile` in its `focus`-th `TEXT` place and plain words in
+ * the others: one field at a time, so the rest of the body passes and the hostile text gets through.
+ */
+export function fillTemplate(t: Template, focus: number, hostile: string): Malformed {
+  let place = 0;
+  const text = (v: string) => v.split(TEXT).reduce((out, part, i) => (i === 0 ? part : `${out}${place++ === focus ? hostile : "Fenwold"}${part}`), "");
   const swap = (v: unknown): unknown => {
     if (typeof v === "string") return text(v);
     if (Array.isArray(v)) return v.map(swap);
