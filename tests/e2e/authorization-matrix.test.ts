@@ -154,6 +154,7 @@ describe("authorization matrix", () => {
     const last = (p: Probe) => p.last && p.persona === "owner";
     await inParallel(probes.filter((p) => !last(p)).map(run), 8);
     await inParallel(probes.filter(last).map(run), 8);
+    console.log(`[matrix] ${probes.length} requests over ${leaves.length} routes; ${[...failures.values()].flat().length} differ from the table`);
   });
 
   afterAll(async () => {
