@@ -40,16 +40,6 @@ export async function load(url: string, { connections = 20, seconds = 5 } = {}):
   return { requests: latencies.length, perSecond: latencies.length / elapsed, p50: at(0.5), p95: at(0.95), failures };
 }
 
-/** Whether something answers at `baseUrl` (the bench skips these figures otherwise). */
-export async function reachable(baseUrl: string): Promise<boolean> {
-  try {
-    const res = await fetch(`${baseUrl}/healthz/live`, { signal: AbortSignal.timeout(2000) });
-    return res.ok;
-  } catch {
-    return false;
-  }
-}
-
 export async function healthFigures(baseUrl: string): Promise<Figure[]> {
   const figures: Figure[] = [];
   for (const [name, path, limit] of [

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { User } from "~/models/index.server";
 import { loader } from "~/routes/account/sign-in";
-import { cookieFor, makeUser, removeFixtureUsers } from "../support/listing-fixtures";
+import { makeUser, removeFixtureUsers } from "../support/listing-fixtures";
+import { signedInCookie } from "../support/sessions";
 
 // A signed-in visitor who opens /sign-in is sent straight on to `redirectTo`. The four targets from
 // the report each resolved to "//evil.example", which the browser followed to the other site.
@@ -11,7 +12,7 @@ let cookie: string;
 
 beforeAll(async () => {
   visitor = await makeUser("redirect-visitor");
-  cookie = await cookieFor(visitor);
+  cookie = await signedInCookie(visitor);
 });
 afterAll(async () => {
   await removeFixtureUsers([visitor].filter(Boolean));

@@ -3,7 +3,8 @@ import type { User } from "~/models/index.server";
 import { loader as deskLoader } from "~/routes/desk/desk";
 import { loader as usersLoader } from "~/routes/admin/users";
 import { loader as listingLoader } from "~/routes/listings/listing";
-import { cookieFor, createAmplifierListing, makeUser, removeFixtureUsers, type AmplifierFixture } from "../support/listing-fixtures";
+import { createAmplifierListing, makeUser, removeFixtureUsers, type AmplifierFixture } from "../support/listing-fixtures";
+import { signedInCookie } from "../support/sessions";
 
 // The role hierarchy through the real loaders (README, "Roles"): an admin includes the moderator,
 // a moderator does not include the admin.
@@ -36,8 +37,8 @@ beforeAll(async () => {
   held = await createAmplifierListing({ label: "roles-held", status: "held", heldReason: "Rated power above what the supply can give." });
   admin = await makeUser("roles-admin", ["buyer", "admin"]);
   moderator = await makeUser("roles-moderator", ["buyer", "moderator"]);
-  cookies.admin = await cookieFor(admin);
-  cookies.moderator = await cookieFor(moderator);
+  cookies.admin = await signedInCookie(admin);
+  cookies.moderator = await signedInCookie(moderator);
 }, 60_000);
 
 afterAll(async () => {
