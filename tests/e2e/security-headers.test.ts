@@ -110,7 +110,7 @@ describe("security headers and the content security policy", () => {
     await context.close();
   });
 
-  it("the seller's editor (live bench checks, the photo uploader) and /admin/users run without a policy violation", async () => {
+  it("the seller's editor (live bench checks, the photo uploader), /admin/users, the desk and the account page run without a policy violation", async () => {
     const context = await newContext(browser);
     const violations = await watchPolicy(context);
     const page = await context.newPage();
@@ -142,9 +142,11 @@ describe("security headers and the content security policy", () => {
     await page.getByRole("link", { name: "Sign out" }).or(page.getByRole("button", { name: "Sign out" })).first().click();
     await page.waitForLoadState("load");
     await signIn(page, DEMO.admin);
-    await page.goto("/admin/users");
-    await page.getByRole("heading", { level: 1 }).waitFor();
-    await settle(page);
+    for (const path of ["/admin/users", "/desk", "/account"]) {
+      await page.goto(path);
+      await page.getByRole("heading", { level: 1 }).waitFor();
+      await settle(page);
+    }
     expect(violations).toEqual([]);
     await context.close();
   });
