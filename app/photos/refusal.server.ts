@@ -11,6 +11,7 @@ export type RefusalCode =
   | "damaged_file"
   | "truncated_file"
   | "too_many_pixels"
+  | "too_large_to_process"
   | "too_many_photos"
   | "listing_closed"
   | "bad_order"
@@ -28,6 +29,7 @@ const STATUS: Record<RefusalCode, number> = {
   damaged_file: 422,
   truncated_file: 422,
   too_many_pixels: 422,
+  too_large_to_process: 422,
   too_many_photos: 422,
   listing_closed: 422,
   bad_order: 422,

@@ -10,6 +10,8 @@ import {
   GPS_MARK,
   bandColour,
   bilevelPng,
+  interlacedPngBomb,
+  plainPng,
   jpegHeaderMarkers,
   mp3Audio,
   oversizeJpeg,
@@ -194,6 +196,26 @@ describe("a good photo", { timeout: 120_000 }, () => {
     expect(await photoObjectKeys()).toEqual(before);
     const listed = await (await listPhotos(listing.id, seller.cookie)).json();
     expect(listed.photos[1]).toMatchObject({ status: "failed", error: row!.error, urls: null, isCover: false });
+  });
+
+  it("that is an image bomb (an interlaced PNG whose data inflates to 1 GiB) is marked failed, saying why, and leaves no objects", async () => {
+    const res = await upload(listing.id, await plainPng(64, 64), "bomb.png", seller.cookie);
+    expect(res.status).toBe(202);
+    const { photo } = await res.json();
+    // The job meets the bomb as it would if a check at upload had been missed.
+    await putObject(incomingKey(photo.id), interlacedPngBomb(), { contentType: "image/png" });
+    const before = await photoObjectKeys();
+
+    expect(await processPhoto({ photoId: photo.id })).toBe("failed");
+
+    const row = await ListingPhoto.findByPk(photo.id);
+    expect(row).toMatchObject({ status: "failed", thumbKey: null, listingKey: null, zoomKey: null });
+    expect(row!.error).toBe(
+      "The photo could not be decoded: its image data unpacks to more than the 64 × 64 pixels its header gives. " +
+        "Export the photo again and upload the new file.",
+    );
+    before.delete(incomingKey(photo.id));
+    expect(await photoObjectKeys()).toEqual(before);
   });
 
   it("a job for a photo deleted while queued only removes the waiting upload", async () => {

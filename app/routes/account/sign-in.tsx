@@ -39,7 +39,7 @@ export async function action({ request }: Route.ActionArgs) {
   if (!parsed.success) return data({ email, errors: fieldErrors(parsed.error), formError: null }, { status: 400 });
   try {
     const user = await authenticator.authenticate(PASSWORD, request);
-    return startSession(user, redirectTo);
+    return startSession(request, user, redirectTo);
   } catch (error) {
     if (!(error instanceof SignInError)) throw error;
     const limited = error.code === "rate_limited";
