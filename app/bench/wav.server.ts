@@ -55,7 +55,7 @@ export function readWavFormat(bytes: Uint8Array): { format: WavFormat; data: Uin
     // With samples: the data chunk's bytes come back as their own array (clamped to the file's end).
     wav.fromBuffer(bytes, true);
   } catch (e) {
-    throw new CaptureError("NOT_WAV", `The file starts like a WAV but cannot be read: ${(e as Error).message}.`);
+    throw new CaptureError("NOT_WAV", `The file starts like a WAV but cannot be read: ${e instanceof Error ? e.message : String(e)}.`);
   }
   const fmt = wav.fmt;
   let code = fmt.audioFormat;

@@ -18,7 +18,7 @@ export function checkBenchSheetJson(text: string): CheckResponse {
   try {
     data = JSON.parse(text);
   } catch (e) {
-    return { status: 400, body: { error: "invalid_json", message: `The body is not valid JSON: ${(e as Error).message}` } };
+    return { status: 400, body: { error: "invalid_json", message: `The body is not valid JSON: ${e instanceof Error ? e.message : String(e)}` } };
   }
   const parsed = parseBenchSheet(data);
   if (!parsed.ok)
