@@ -3,6 +3,8 @@ import { User } from "~/models/user.server";
 import { getSession, SESSION_MAX_AGE_SECONDS } from "~/auth/session.server";
 import { signInPath } from "~/auth/redirect";
 import { normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
+import { apiError } from "~/http/errors.server";
+import { isId } from "@shared/ids";
 
 // THE path for authentication and authorisation: every loader, action and API route that needs a
 // signed-in account or a role goes through requireUser / requireRole here.
@@ -31,7 +33,7 @@ export function getUser(request: Request): Promise<SessionUser | null> {
 async function loadUser(request: Request): Promise<SessionUser | null> {
   const session = await getSession(request);
   const userId = session.get("userId");
-  if (!userId || !/^[0-9a-f-]{36}$/i.test(userId)) return null;
+  if (!isId(userId)) return null;
   // The cookie's own expiry is the browser's business; a copied cookie stops working here too.
   const signedInAt = Date.parse(session.get("signedInAt") ?? "");
   if (!(Date.now() - signedInAt < SESSION_MAX_AGE_SECONDS * 1000)) return null;
@@ -58,7 +60,7 @@ export async function requireUser(request: Request, options: { redirectTo?: stri
   const user = await getUser(request);
   if (user) return user;
   if (isApiRequest(request)) {
-    throw Response.json({ error: "unauthenticated", reason: "Sign in to use this." }, { status: 401 });
+    throw apiError("unauthenticated", "Sign in to use this.");
   }
   const url = new URL(request.url);
   throw redirect(signInPath(options.redirectTo ?? `${url.pathname}${url.search}`));
@@ -83,8 +85,7 @@ export async function requireRole(request: Request, role: Role | readonly Role[]
   const wanted = typeof role === "string" ? [role] : [...role];
   const names = wanted.map((r) => ROLE_LABELS[r].toLowerCase() + "s");
   if (isApiRequest(request)) {
-    const reason = `This needs the ${wanted.join(" or ")} role.`;
-    throw Response.json({ error: "forbidden", reason, roles: wanted }, { status: 403 });
+    throw apiError("forbidden", `This needs the ${wanted.join(" or ")} role.`);
   }
   const message = `This page is for ${names.join(" and ")} only. Your account does not have that role.`;
   throw data<ForbiddenData>({ message, roles: wanted }, { status: 403, statusText: "Forbidden" });

@@ -15,7 +15,11 @@ export type InspectedPhoto = {
   byteSize: number;
 };
 
-export async function inspectPhoto(bytes: Uint8Array, fileName = "This file"): Promise<InspectedPhoto> {
+/**
+ * `partial`: `bytes` are only the first part of the upload (the web process reads a header while the
+ * rest streams to storage); a structure cut short is then expected, and the job checks the whole file.
+ */
+export async function inspectPhoto(bytes: Uint8Array, fileName = "This file", options: { partial?: boolean } = {}): Promise<InspectedPhoto> {
   const name = displayName(fileName);
   if (bytes.byteLength === 0) {
     throw new PhotoRefusal("empty_file", `${name} is empty (0 bytes); choose the photo again.`);
@@ -44,7 +48,7 @@ export async function inspectPhoto(bytes: Uint8Array, fileName = "This file"): P
         `photos may have at most ${PHOTO_LIMITS.maxMegapixels} megapixels. Scale it down and upload it again.`,
     );
   }
-  if (structure.problem) {
+  if (structure.problem && !(options.partial && structure.problem.code === "truncated_file")) {
     const { code, detail } = structure.problem;
     const label = kind.type === "image/jpeg" ? "JPEG" : "PNG";
     const advice =

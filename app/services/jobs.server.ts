@@ -1,4 +1,6 @@
 import PgBoss from "pg-boss";
+import type { Transaction } from "sequelize";
+import { sequelize } from "~/db.server";
 import { env } from "~/env.server";
 
 // Background work goes through pg-boss in the same PostgreSQL database, so app servers stay
@@ -30,11 +32,29 @@ export function getBoss(): Promise<PgBoss> {
   return globalForJobs.__loadlineBoss;
 }
 
-export async function enqueue(name: QueueName, data: object, options: PgBoss.SendOptions = {}) {
+export type EnqueueOptions = Omit<PgBoss.SendOptions, "db"> & {
+  /** Insert the job through this open transaction: it exists exactly when the rows written with it do. */
+  transaction?: Transaction;
+};
+
+export async function enqueue(name: QueueName, data: object, options: EnqueueOptions = {}) {
+  const { transaction, ...send } = options;
   const boss = await getBoss();
-  const id = await boss.send(name, data, options);
+  const id = await boss.send(name, data, transaction ? { ...send, db: transactionDb(transaction) } : send);
   if (!id) throw new Error(`Could not queue a ${name} job`);
   return id;
+}
+
+// pg-boss accepts any executor for its insert; this one runs it on the transaction's connection.
+function transactionDb(transaction: Transaction): PgBoss.Db {
+  return {
+    executeSql: async (text, values) => {
+      // pg reads undefined as NULL; Sequelize's bind wants it said.
+      const bind = values.map((v) => (v === undefined ? null : v));
+      const [rows] = await sequelize.query(text, { bind, transaction });
+      return { rows: rows as unknown[] };
+    },
+  };
 }
 
 export { startBoss };

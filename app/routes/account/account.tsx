@@ -10,6 +10,7 @@ import { ROLE_DESCRIPTIONS, ROLE_LABELS } from "~/auth/roles";
 import { resendVerification, signInMethods } from "~/auth/accounts.server";
 import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { requireUser } from "~/auth/guards.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Loadline" }];
@@ -29,7 +30,7 @@ const RESEND_MESSAGES = {
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   if (form.get("intent") !== "resend-verification") {
     return data({ ok: false, text: "Unknown request." }, { status: 400 });
   }

@@ -2,11 +2,12 @@ import { redirect } from "react-router";
 import type { Route } from "./+types/oauth-start";
 import { startOAuth } from "~/auth/authenticator.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 
 // POST /auth/oauth: off to the identity provider (authorization code with PKCE and state).
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const form = await request.clone().formData();
+  const form = await readPageForm(request);
   try {
     return await startOAuth(request, String(form.get("redirectTo") ?? "/"));
   } catch (error) {

@@ -8,6 +8,7 @@ import { safeRedirect } from "~/auth/redirect";
 import { registerAccount } from "~/auth/accounts.server";
 import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { getUser } from "~/auth/guards.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create an account · Loadline" }];
@@ -20,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const values = { displayName: String(form.get("displayName") ?? ""), email: String(form.get("email") ?? "") };
   const parsed = SignUpForm.safeParse({ ...values, password: form.get("password") ?? "" });
   if (!parsed.success) return data({ sent: false as const, values, errors: fieldErrors(parsed.error) }, { status: 400 });
