@@ -101,11 +101,23 @@ async function sheetFigures(): Promise<{ figures: Figure[]; note?: string }> {
   }
 }
 
+async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[]; failed?: boolean }> {
+  if (process.argv.includes("--no-server")) return { figures: [], notes: ["server figures left out (--no-server)"] };
+  try {
+    const mod = await import("./bench/edge");
+    return await mod.edgeFigures();
+  } catch (e) {
+    return { figures: [], notes: [`server figures could not be measured: ${(e as Error).message}`], failed: true };
+  }
+}
+
 const figures = await captureFigures();
 const sheet = await sheetFigures();
 figures.push(...sheet.figures);
+const edge = await edgeFigures();
+figures.push(...edge.figures);
 
-let missed = 0;
+let missed = edge.failed ? 1 : 0;
 for (const f of figures) {
   const over = f.limit !== undefined && !(f.value < f.limit);
   if (over) missed++;
@@ -113,5 +125,6 @@ for (const f of figures) {
   console.log(`${f.label}: ${f.value} ${f.unit}${limit}`);
 }
 if (sheet.note) console.log(sheet.note);
+for (const note of edge.notes) console.log(note);
 console.log(missed ? `\n${missed} limit(s) missed` : "\nAll limits met");
 process.exit(missed ? 1 : 0);
