@@ -23,16 +23,33 @@ export function apiRoute<A extends Args>(handlers: Partial<Record<Method, Handle
   const handle = async (args: A): Promise<Response> => {
     const method = args.request.method.toUpperCase();
     const handler = handlers[method as Method] ?? (method === "HEAD" ? handlers.GET : undefined);
+    let response: Response;
     try {
-      if (!handler) return methodNotAllowed(allowed);
-      if (!options.anyOrigin) assertSameOrigin(args.request);
-      return await handler(args);
+      if (!handler) response = methodNotAllowed(allowed);
+      else {
+        if (!options.anyOrigin) assertSameOrigin(args.request);
+        response = await handler(args);
+      }
     } catch (error) {
-      return errorResponse(error);
+      response = errorResponse(error);
     }
+    return closeIfUnread(args.request, response);
   };
   // React Router sends GET and HEAD to the loader and every other method to the action.
   return { loader: handle, action: handle };
+}
+
+// Refused before its body was read (401, 403, 405 …): the rest of the upload is not wanted, so the
+// connection closes after the answer instead of waiting on a half-read request.
+function closeIfUnread(request: Request, response: Response): Response {
+  if (request.body && !request.bodyUsed && !response.headers.has("Connection")) {
+    try {
+      response.headers.set("Connection", "close");
+    } catch {
+      // a Response with immutable headers: left as it is
+    }
+  }
+  return response;
 }
 
 /** A JSON answer that no cache keeps (everything under /api/ is per caller or per moment). */
