@@ -4,7 +4,8 @@
 import { sequelize } from "~/db.server";
 import { Capture } from "~/models/capture.server";
 import { findOwn } from "~/auth/ownership.server";
-import { readMultipart, sizeText, splitHead, type FilePart } from "~/http/body.server";
+import { sizeText } from "~/http/limited-stream.server";
+import { readMultipart, splitHead, type FilePart } from "~/http/multipart.server";
 import { refusal, type HttpError } from "~/http/errors.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { deleteObjects, putObjectStream, randomKey } from "~/services/storage.server";

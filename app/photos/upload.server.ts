@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { sequelize } from "~/db.server";
 import { ListingPhoto } from "~/models/index.server";
-import { readMultipart, splitHead, type FilePart } from "~/http/body.server";
+import { readMultipart, splitHead, type FilePart } from "~/http/multipart.server";
 import { refusal } from "~/http/errors.server";
 import { deleteObject, putObjectStream, randomKey } from "~/services/storage.server";
 import { QUEUES, enqueue } from "~/services/jobs.server";

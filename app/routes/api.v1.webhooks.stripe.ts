@@ -1,7 +1,7 @@
 import type { Route } from "./+types/api.v1.webhooks.stripe";
 import { PaymentEvent } from "~/models/payment-event.server";
 import { apiRoute, json } from "~/http/api-route.server";
-import { KiB, readBytes, tooLarge } from "~/http/body.server";
+import { KiB, readBytes, tooLarge } from "~/http/limited-stream.server";
 import { refusal } from "~/http/errors.server";
 import { verifyWebhook, WebhookSignatureError } from "~/services/payments.server";
 

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { HttpError } from "~/http/errors.server";
-import { readForm, readJson, readMultipart, readPageForm } from "~/http/body.server";
+import { readForm, readJson, readPageForm } from "~/http/body.server";
+import { readMultipart } from "~/http/multipart.server";
 import { chunkedRequest, countingBody, MiB, multipartFrame } from "../support/bodies";
 
 // The one body reader: every limit holds for bodies sent without a Content-Length, and the reader
