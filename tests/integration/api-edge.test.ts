@@ -176,6 +176,18 @@ describe("client mistakes are 400, 405 or 415, never 500", () => {
   }
 });
 
+describe("forms read by the body reader still reach the sign-in strategies", () => {
+  it("a well-formed sign-in signs in, and a well-formed /auth/oauth goes to the provider", async () => {
+    const form = (fields: Record<string, string>) => ({ method: "POST", body: new URLSearchParams(fields), headers: { Origin: BASE } });
+    const signedIn = await call(signIn, new Request(`${BASE}/sign-in`, form({ email: "seller@loadline.test", password: "bench-demo-2026", redirectTo: "/sell" })));
+    expect(signedIn.status).toBe(302);
+    expect(signedIn.headers.get("Location")).toBe("/sell");
+    const oauth = await call(oauthStart, new Request(`${BASE}/auth/oauth`, form({ redirectTo: "/sell" })));
+    expect(oauth.status).toBe(302);
+    expect(oauth.headers.get("Location")).toMatch(/\/authorize\?.*response_type=code/);
+  });
+});
+
 describe("state-changing API calls from another origin are refused", () => {
   const foreign = [
     ["a page on another port (same site)", { "Sec-Fetch-Site": "same-site", Origin: "http://127.0.0.1:4000" }],
