@@ -1,9 +1,25 @@
 import { z } from "zod";
 
 // Parsed once at start-up. Each hosted service falls back to its local stand-in (fakes/) when its
-// variables are absent, so a fresh clone runs with no configuration at all.
+// variables are absent, so a fresh clone runs with no configuration at all. SESSION_SECRET has no
+// fallback: without it nothing starts; `npm start` and `npm test` pass their profile's own secret
+// (scripts/local-secret.ts).
 
 const port = z.coerce.number().int().min(1).max(65535);
+
+// Cookies are signed with the first secret and accepted with any of them, so a new secret can be put
+// first while cookies signed with the old one keep working until the old one is dropped.
+const sessionSecrets = z
+  .string({
+    error:
+      "is not set. Set at least 32 random characters (e.g. `openssl rand -base64 48`); `npm start` and `npm test` make their own",
+  })
+  .transform((value) => value.split(",").map((s) => s.trim()).filter(Boolean))
+  .pipe(
+    z
+      .array(z.string().min(32, "must be at least 32 characters (each one, when several are given)"))
+      .min(1, "has no secret in it"),
+  );
 
 const EnvSchema = z
   .object({
@@ -11,7 +27,7 @@ const EnvSchema = z
     PORT: port.default(3000),
     HOST: z.string().default("127.0.0.1"),
     APP_URL: z.url().optional(),
-    SESSION_SECRET: z.string().min(32, "must be at least 32 characters").optional(),
+    SESSION_SECRET: sessionSecrets,
     DATABASE_URL: z.url().default("postgres://loadline@127.0.0.1:54329/loadline"),
 
     S3_ENDPOINT: z.url().optional(),
@@ -43,9 +59,6 @@ const EnvSchema = z
     LOADLINE_FAST_HASH: z.enum(["0", "1"], "must be 0 or 1").default("0"),
   })
   .superRefine((env, ctx) => {
-    if (env.NODE_ENV === "production" && !env.SESSION_SECRET && env.APP_URL?.startsWith("https://")) {
-      ctx.addIssue({ code: "custom", path: ["SESSION_SECRET"], message: "is required when serving over https" });
-    }
     const groups: [string, (keyof typeof env)[]][] = [
       ["S3", ["S3_ENDPOINT", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"]],
       ["OAuth", ["OAUTH_ISSUER", "OAUTH_CLIENT_ID", "OAUTH_CLIENT_SECRET"]],
@@ -72,7 +85,7 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
     host: raw.HOST,
     appUrl,
     secureCookies: appUrl.startsWith("https://"),
-    sessionSecret: raw.SESSION_SECRET ?? "loadline-local-development-secret-not-for-production",
+    sessionSecrets: raw.SESSION_SECRET,
     trustProxy: raw.TRUST_PROXY === "1",
     passwordHashCost: raw.LOADLINE_FAST_HASH === "1" || raw.NODE_ENV === "test" ? 4 : 12,
     databaseUrl: raw.DATABASE_URL,

@@ -1,9 +1,14 @@
-import { sequelize } from "~/db.server";
-import { seedDemo } from "./seeds/demo";
-import { DEMO_PASSWORD } from "./seeds/demo-data";
-
 // `npx tsx db/seed.ts`: loads the demo scenario into DATABASE_URL (object storage must be up for the
 // photos). Safe to run again: it adds only what is missing.
+import { randomBytes } from "node:crypto";
+
+// The seed signs no cookie, but the app's environment rules want a session secret: a throw-away one
+// will do. Set before the app's modules are imported, since they read the environment on import.
+process.env.SESSION_SECRET ||= randomBytes(48).toString("base64url");
+const { sequelize } = await import("~/db.server");
+const { seedDemo } = await import("./seeds/demo");
+const { DEMO_PASSWORD } = await import("./seeds/demo-data");
+
 const started = Date.now();
 try {
   const result = await seedDemo();

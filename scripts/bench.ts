@@ -117,6 +117,12 @@ figures.push(...sheet.figures);
 const edge = await edgeFigures();
 figures.push(...edge.figures);
 
+// The anonymous account forms' timing needs a running app: `npm start`, or BENCH_URL.
+const benchUrl = process.env.BENCH_URL ?? "http://127.0.0.1:3000";
+const answers = await fetch(`${benchUrl}/healthz`, { signal: AbortSignal.timeout(5000) }).then(() => true, () => false);
+const accountNote = answers ? undefined : `account-form timing skipped: nothing answers at ${benchUrl} (run \`npm start\`, or set BENCH_URL)`;
+if (answers) figures.push(...(await (await import("./bench/account-timing")).accountTimingFigures(benchUrl)));
+
 let missed = edge.failed ? 1 : 0;
 for (const f of figures) {
   const over = f.limit !== undefined && !(f.value < f.limit);
@@ -126,5 +132,6 @@ for (const f of figures) {
 }
 if (sheet.note) console.log(sheet.note);
 for (const note of edge.notes) console.log(note);
+if (accountNote) console.log(accountNote);
 console.log(missed ? `\n${missed} limit(s) missed` : "\nAll limits met");
 process.exit(missed ? 1 : 0);

@@ -2,6 +2,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import net from "node:net";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { localSessionSecret } from "./local-secret";
 
 // Brings up what Loadline runs on: the local PostgreSQL cluster, the stand-ins for hosted services,
 // the schema and the demo scenario. Shared by `npm start`, `npm run dev` and `npm test`.
@@ -100,7 +101,13 @@ export async function bringUp(p: Profile, { seed = true, log = console.log } = {
     stops.push(cluster.stop);
 
     // Everything below reads the environment through app/env.server.ts, so set it before importing.
-    const env: Record<string, string> = { ...p.env, DATABASE_URL: process.env.DATABASE_URL ?? cluster.url };
+    // The profile keeps its own session secret unless one is given (app/env.server.ts has none).
+    const secret = process.env.SESSION_SECRET || localSessionSecret(p.dir).secret;
+    const env: Record<string, string> = {
+      ...p.env,
+      DATABASE_URL: process.env.DATABASE_URL ?? cluster.url,
+      SESSION_SECRET: secret,
+    };
     Object.assign(process.env, env);
 
     const { env: appEnv } = await import("../app/env.server");

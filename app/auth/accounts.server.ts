@@ -7,6 +7,7 @@ import { hashPassword, needsRehash, verifyPassword } from "~/auth/password.serve
 import { checkSignInAllowed, recordSignInAttempt, tooManyAttemptsMessage } from "~/auth/rate-limit.server";
 import { consumeToken, issueToken, recentTokenCount, TOKENS_PER_HOUR } from "~/auth/tokens.server";
 import { sendAccountExistsEmail, sendVerificationEmail } from "~/auth/emails.server";
+import { queueAccountMail } from "~/auth/account-mail.server";
 
 /** One message for an unknown address and a wrong password alike, so it reveals neither. */
 export const INVALID_CREDENTIALS = "That e-mail address and password do not match an account. Check both and try again.";
@@ -70,42 +71,48 @@ export function findAccountByEmail(email: string, transaction?: Transaction) {
 }
 
 /**
- * Sign-up. A new address gets an account and a confirmation link; an address that already has an
- * account gets a note saying so. Both end on the same "check your inbox" page.
+ * Sign-up. The request does the same work whether or not the address is taken: hash the password,
+ * try the insert (in a savepoint, so a taken address does not spoil the transaction) and queue one
+ * job beside it. The worker then mails a new account its confirmation link, or the owner of a taken
+ * address a note (mailSignUp); the page says "check your inbox" either way.
  */
 export async function registerAccount(input: { displayName: string; email: string; password: string }): Promise<void> {
-  // Hashing first, whatever happens, keeps both paths about as slow as each other.
   const passwordHash = await hashPassword(input.password);
-  const existing = await findAccountByEmail(input.email);
-  if (existing) {
-    await noteSignUpAttempt(existing);
-    return;
-  }
-  // The e-mail goes out inside the transaction: if it cannot be sent, no account is left behind
-  // that its owner was never told about.
-  try {
-    await sequelize.transaction(async (transaction) => {
-      const user = await createAccount({ ...input, passwordHash }, transaction);
-      const token = await issueToken(user.id, "verify_email", transaction);
-      await sendVerificationEmail(user, token);
-    });
-  } catch (error) {
-    // Two sign-ups with one address at the same moment: the loser is told as if it came second.
-    if (!(error instanceof EmailTakenError)) throw error;
-    const winner = await findAccountByEmail(input.email);
-    if (winner) await noteSignUpAttempt(winner);
-  }
+  await sequelize.transaction(async (transaction) => {
+    let created = false;
+    try {
+      await sequelize.transaction({ transaction }, (savepoint) => createAccount({ ...input, passwordHash }, savepoint));
+      created = true;
+    } catch (error) {
+      if (!(error instanceof EmailTakenError)) throw error;
+    }
+    await queueAccountMail({ kind: "sign-up", email: normaliseEmail(input.email), created }, transaction);
+  });
+}
+
+/** The worker's half of sign-up. A failed send throws, rolling the link back, and the job is retried. */
+export async function mailSignUp(email: string, created: boolean): Promise<void> {
+  const user = await findAccountByEmail(email);
+  if (!user) return;
+  if (!created) return noteSignUpAttempt(user);
+  if (user.emailVerifiedAt) return;
+  await sequelize.transaction(async (transaction) => {
+    const token = await issueToken(user.id, "verify_email", transaction);
+    await sendVerificationEmail(user, token);
+  });
 }
 
 /** Tells an account's owner that someone tried to sign up with their address; at most once an hour. */
 async function noteSignUpAttempt(account: User): Promise<void> {
-  const [claimed] = await sequelize.query(
-    `UPDATE users SET exists_notice_at = now()
-      WHERE id = :id AND (exists_notice_at IS NULL OR exists_notice_at < now() - interval '1 hour')
-      RETURNING id`,
-    { replacements: { id: account.id }, type: QueryTypes.SELECT },
-  );
-  if (claimed) await sendAccountExistsEmail(account);
+  await sequelize.transaction(async (transaction) => {
+    const [claimed] = await sequelize.query(
+      `UPDATE users SET exists_notice_at = now()
+        WHERE id = :id AND (exists_notice_at IS NULL OR exists_notice_at < now() - interval '1 hour')
+        RETURNING id`,
+      { replacements: { id: account.id }, type: QueryTypes.SELECT, transaction },
+    );
+    if (claimed) await sendAccountExistsEmail(account);
+  });
 }
 
 /** Password sign-in with the rate limits; throws SignInError with a message fit to show. */

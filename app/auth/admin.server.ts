@@ -3,6 +3,7 @@ import { sequelize } from "~/db.server";
 import { User, type AccountStatus } from "~/models/user.server";
 import { normaliseRoles, type Role } from "~/auth/roles";
 import type { SessionUser } from "~/auth/guards.server";
+import { revokeAllSessions } from "~/auth/session-store.server";
 
 // Admin work on accounts. Callers have already passed requireRole(request, "admin").
 
@@ -64,14 +65,15 @@ export async function setAccountRoles(actor: SessionUser, userId: string, roles:
   });
 }
 
-/** Suspending ends the account's sessions at once (session version bump) and blocks sign-in. */
+/** Suspending ends the account's sessions at once (all revoked) and blocks sign-in. */
 export async function setAccountStatus(actor: SessionUser, userId: string, status: AccountStatus): Promise<AdminResult> {
   if (userId === actor.id && status !== "active") return { ok: false, message: "You cannot suspend your own account." };
   return sequelize.transaction(async (transaction) => {
     const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!user) return { ok: false, message: "That account no longer exists." };
     if (user.status === status) return { ok: true, message: `${user.displayName} is already ${status}.` };
-    await user.update({ status, sessionVersion: user.sessionVersion + 1 }, { transaction });
+    await user.update({ status }, { transaction });
+    if (status !== "active") await revokeAllSessions(user.id, transaction);
     return {
       ok: true,
       message: status === "suspended" ? `${user.displayName} is suspended and signed out everywhere.` : `${user.displayName} is active again.`,

@@ -111,7 +111,7 @@ const returnCookie = createCookie("loadline_return_to", {
   sameSite: "lax",
   maxAge: 10 * 60,
   secure: env().secureCookies,
-  secrets: [env().sessionSecret],
+  secrets: env().sessionSecrets,
 });
 
 /** Starts OAuth sign-in: the redirect to the provider, with the return path remembered. */

@@ -98,3 +98,21 @@ export async function sendAccountExistsEmail(to: { email: string; displayName: s
     { label: "Sign in to Loadline", href: link("/sign-in") },
   );
 }
+
+/** Repeated wrong passwords for an account: its owner hears once an hour at most (rate-limit.server.ts). */
+export async function sendSignInWarningEmail(
+  to: { email: string; displayName: string },
+  seen: { failures: number; addresses: number },
+) {
+  const from = seen.addresses === 1 ? "one address" : `${seen.addresses} addresses`;
+  await send(
+    to.email,
+    "Failed sign-ins to your Loadline account",
+    `Hello ${to.displayName},`,
+    [
+      `In the last hour someone typed a wrong password for your Loadline account ${seen.failures} times, from ${from}.`,
+      "If it was you, nothing needs doing. If not, your password kept them out, and you can still sign in from your usual devices; they are being slowed down. If your password is short or used elsewhere, choose a new one.",
+    ],
+    { label: "Choose a new password", href: link("/forgot-password") },
+  );
+}

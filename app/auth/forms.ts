@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { ROLES } from "~/auth/roles";
 import { nameText } from "@shared/text";
-import { UUID_PATTERN } from "@shared/ids";
+import { idSchema, UUID_PATTERN } from "@shared/ids";
 
 // The account forms' rules. Isomorphic, but enforced on the server: every action parses with these.
 
@@ -49,6 +49,17 @@ export const StatusForm = z.object({
   userId: z.string().regex(UUID_PATTERN, "Unknown account."),
   status: z.enum(["active", "suspended"], "Unknown status."),
 });
+
+// The account page's own forms: a new confirmation link, and ending sessions.
+export const AccountActionForm = z.discriminatedUnion(
+  "intent",
+  [
+    z.object({ intent: z.literal("resend-verification") }),
+    z.object({ intent: z.literal("sign-out-session"), sessionId: idSchema("session") }),
+    z.object({ intent: z.literal("sign-out-others") }),
+  ],
+  { error: "Unknown request." },
+);
 
 export type FieldErrors = Record<string, string>;
 

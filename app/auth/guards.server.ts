@@ -1,10 +1,8 @@
 import { data, redirect } from "react-router";
-import { User } from "~/models/user.server";
-import { getSession, SESSION_MAX_AGE_SECONDS } from "~/auth/session.server";
+import { readSession } from "~/auth/session.server";
 import { signInPath } from "~/auth/redirect";
 import { normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
 import { apiError } from "~/http/errors.server";
-import { isId } from "@shared/ids";
 
 // THE path for authentication and authorisation: every loader, action and API route that needs a
 // signed-in account or a role goes through requireUser / requireRole here.
@@ -17,34 +15,42 @@ export interface SessionUser {
   emailVerified: boolean;
 }
 
-// Root and route loaders of one request share the lookup.
-const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
+/** The account a request is signed in as, and the id of the session (row) it came with. */
+export interface SignedIn {
+  user: SessionUser;
+  sessionId: string;
+}
 
-/** The signed-in account, or null. A cookie for a suspended account, or from before a password reset, counts as none. */
-export function getUser(request: Request): Promise<SessionUser | null> {
+// Root and route loaders of one request share the lookup.
+const perRequest = new WeakMap<Request, Promise<SignedIn | null>>();
+
+function signedIn(request: Request): Promise<SignedIn | null> {
   let pending = perRequest.get(request);
   if (!pending) {
-    pending = loadUser(request);
+    pending = loadSignedIn(request);
     perRequest.set(request, pending);
   }
   return pending;
 }
 
-async function loadUser(request: Request): Promise<SessionUser | null> {
-  const session = await getSession(request);
-  const userId = session.get("userId");
-  if (!isId(userId)) return null;
-  // The cookie's own expiry is the browser's business; a copied cookie stops working here too.
-  const signedInAt = Date.parse(session.get("signedInAt") ?? "");
-  if (!(Date.now() - signedInAt < SESSION_MAX_AGE_SECONDS * 1000)) return null;
-  const user = await User.findByPk(userId);
-  if (!user || user.status !== "active" || user.sessionVersion !== session.get("sessionVersion")) return null;
+/** The signed-in account, or null. A revoked or expired session, or a suspended account, counts as none. */
+export async function getUser(request: Request): Promise<SessionUser | null> {
+  return (await signedIn(request))?.user ?? null;
+}
+
+async function loadSignedIn(request: Request): Promise<SignedIn | null> {
+  const session = await readSession(request);
+  if (!session || session.user.status !== "active") return null;
+  const user = session.user;
   return {
-    id: user.id,
-    email: user.email,
-    displayName: user.displayName,
-    roles: normaliseRoles(user.roles),
-    emailVerified: user.emailVerifiedAt !== null,
+    sessionId: session.id,
+    user: {
+      id: user.id,
+      email: user.email,
+      displayName: user.displayName,
+      roles: normaliseRoles(user.roles),
+      emailVerified: user.emailVerifiedAt !== null,
+    },
   };
 }
 
@@ -64,6 +70,15 @@ export async function requireUser(request: Request, options: { redirectTo?: stri
   }
   const url = new URL(request.url);
   throw redirect(signInPath(options.redirectTo ?? `${url.pathname}${url.search}`));
+}
+
+/** Like requireUser, with the session the request came with (the account page lists and ends sessions). */
+export async function requireSession(request: Request): Promise<SignedIn> {
+  const user = await requireUser(request);
+  const found = await signedIn(request);
+  // requireUser read the same cached lookup, so this only guards against a broken cache.
+  if (found?.user.id !== user.id) throw new Error("the session lookup changed within one request");
+  return found;
 }
 
 export function hasRole(user: Pick<SessionUser, "roles"> | null, role: Role | readonly Role[]): boolean {

@@ -3,6 +3,7 @@ import { sequelize } from "~/db.server";
 import { User } from "~/models/user.server";
 import { OAuthIdentity } from "~/models/oauth-identity.server";
 import { createAccount, normaliseEmail, SignInError, SUSPENDED } from "~/auth/accounts.server";
+import { revokeAllSessions } from "~/auth/session-store.server";
 
 export interface ProviderProfile {
   provider: string;
@@ -49,10 +50,8 @@ async function linkOrCreate(profile: ProviderProfile): Promise<User> {
     if (user && !user.emailVerifiedAt) {
       // Someone may have signed this address up without owning it. The provider has now shown who
       // owns it, so the unconfirmed password is dropped and any session made with it ends.
-      await user.update(
-        { emailVerifiedAt: new Date(), passwordHash: null, sessionVersion: user.sessionVersion + 1 },
-        { transaction },
-      );
+      await user.update({ emailVerifiedAt: new Date(), passwordHash: null }, { transaction });
+      await revokeAllSessions(user.id, transaction);
     }
     user ??= await createAccount(
       { email, displayName: profile.name?.trim() || email.split("@")[0], emailVerified: true },

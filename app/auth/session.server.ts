@@ -1,17 +1,25 @@
 import { createCookieSessionStorage, redirect } from "react-router";
 import { env } from "~/env.server";
+import {
+  clientInfo,
+  createSessionRecord,
+  findLiveSession,
+  revokeSessionToken,
+  SESSION_LIFETIME_MS,
+  touchSession,
+  type ClientInfo,
+  type LiveSession,
+} from "~/auth/session-store.server";
 
-// Cookie sessions keep the app servers stateless. The cookie holds only who signed in and the
-// account's session version at that moment; guards re-read the account on every request, so a
-// password reset or a suspension (both bump the version) ends every open session.
-export type SessionData = { userId: string; sessionVersion: number; signedInAt: string };
+// The session cookie. Signed, and it carries no account id: only the random token of a row in the
+// sessions table (session-store.server.ts), which is what makes a session end when it is revoked.
+// One-time notices ride in the same cookie, so they work for visitors who are not signed in too.
+type CookieData = { sid: string };
 type FlashData = { notice: string };
 
-export const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
-
 function createStorage() {
-  const { secureCookies, sessionSecret } = env();
-  return createCookieSessionStorage<SessionData, FlashData>({
+  const { secureCookies, sessionSecrets } = env();
+  return createCookieSessionStorage<CookieData, FlashData>({
     cookie: {
       // The __Host- prefix makes browsers refuse the cookie unless it is Secure, host-only and path=/.
       name: secureCookies ? "__Host-loadline_session" : "loadline_session",
@@ -19,44 +27,71 @@ function createStorage() {
       sameSite: "lax",
       secure: secureCookies,
       path: "/",
-      maxAge: SESSION_MAX_AGE_SECONDS,
-      secrets: [sessionSecret],
+      maxAge: SESSION_LIFETIME_MS / 1000,
+      // The first signs, all verify: rotation without signing everyone out at once.
+      secrets: sessionSecrets,
     },
   });
 }
 
 let storage: ReturnType<typeof createStorage> | undefined;
-export function sessionStorage() {
+function sessionStorage() {
   storage ??= createStorage();
   return storage;
 }
 
-export function getSession(request: Request) {
+function getSession(request: Request) {
   return sessionStorage().getSession(request.headers.get("Cookie"));
 }
 
+/** The live session this request's cookie points at (its account may be suspended: the guards decide). */
+export async function readSession(request: Request): Promise<LiveSession | null> {
+  const token = (await getSession(request)).get("sid");
+  if (!token) return null;
+  const record = await findLiveSession(token);
+  if (record) await touchSession(record, clientInfo(request));
+  return record;
+}
+
 /**
- * Signs an account in with a brand-new session sent on a redirect. Nothing is carried over from
- * the cookie the browser had: the fresh cookie of the same name replaces it whole.
+ * Opens a session row for the account and returns the Set-Cookie value that carries it. The one
+ * way a session begins: sign-in routes through startSession, test helpers directly.
+ */
+export async function openSession(
+  userId: string,
+  client: ClientInfo,
+  notice?: string,
+): Promise<{ setCookie: string; sessionId: string }> {
+  const { token, record } = await createSessionRecord(userId, client);
+  const fresh = await sessionStorage().getSession();
+  fresh.set("sid", token);
+  if (notice) fresh.flash("notice", notice);
+  return { setCookie: await sessionStorage().commitSession(fresh), sessionId: record.id };
+}
+
+/**
+ * Signs an account in with a brand-new session sent on a redirect. The session the browser had
+ * before (another account's, say) ends, and the fresh cookie replaces the old one whole.
  */
 export async function startSession(
-  account: { id: string; sessionVersion: number },
+  request: Request,
+  account: { id: string },
   redirectTo: string,
   options: { notice?: string; headers?: HeadersInit } = {},
 ): Promise<Response> {
-  const fresh = await sessionStorage().getSession();
-  fresh.set("userId", account.id);
-  fresh.set("sessionVersion", account.sessionVersion);
-  fresh.set("signedInAt", new Date().toISOString());
-  if (options.notice) fresh.flash("notice", options.notice);
+  const previous = (await getSession(request)).get("sid");
+  if (previous) await revokeSessionToken(previous);
+  const { setCookie } = await openSession(account.id, clientInfo(request), options.notice);
   const headers = new Headers(options.headers);
-  headers.append("Set-Cookie", await sessionStorage().commitSession(fresh));
+  headers.append("Set-Cookie", setCookie);
   return redirect(redirectTo, { headers });
 }
 
-/** Signs out: the cookie is expired and the browser is sent on. */
+/** Signs out: the session row is revoked, so a copy of the cookie is worthless too; the cookie is expired. */
 export async function endSession(request: Request, redirectTo = "/"): Promise<Response> {
   const session = await getSession(request);
+  const token = session.get("sid");
+  if (token) await revokeSessionToken(token);
   return redirect(redirectTo, { headers: { "Set-Cookie": await sessionStorage().destroySession(session) } });
 }
 

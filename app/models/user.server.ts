@@ -12,7 +12,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare displayName: string;
   declare roles: CreationOptional<Role[]>;
   declare status: CreationOptional<AccountStatus>;
-  declare sessionVersion: CreationOptional<number>;
   declare lastSignInAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -27,7 +26,6 @@ User.init(
     displayName: { type: DataTypes.TEXT, allowNull: false },
     roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: ["buyer"] },
     status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "active" },
-    sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     lastSignInAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

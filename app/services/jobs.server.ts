@@ -1,13 +1,14 @@
 import PgBoss from "pg-boss";
 import type { Transaction } from "sequelize";
-import { sequelize } from "~/db.server";
 import { env } from "~/env.server";
+import { sequelize } from "~/db.server";
 
 // Background work goes through pg-boss in the same PostgreSQL database, so app servers stay
 // stateless and any number of worker processes can share the queues.
 export const QUEUES = {
   captureAnalyze: "capture-analyze",
   photoProcess: "photo-process",
+  accountMail: "account-mail",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
@@ -32,23 +33,25 @@ export function getBoss(): Promise<PgBoss> {
   return globalForJobs.__loadlineBoss;
 }
 
-export type EnqueueOptions = Omit<PgBoss.SendOptions, "db"> & {
-  /** Insert the job through this open transaction: it exists exactly when the rows written with it do. */
-  transaction?: Transaction;
-};
-
-export async function enqueue(name: QueueName, data: object, options: EnqueueOptions = {}) {
-  const { transaction, ...send } = options;
+/**
+ * Queues a job. With `transaction`, the job is written in that transaction: it exists exactly when
+ * the rows written beside it do, and a worker never sees it before they are committed.
+ */
+export async function enqueue(
+  name: QueueName,
+  data: object,
+  { transaction, ...options }: PgBoss.SendOptions & { transaction?: Transaction } = {},
+) {
   const boss = await getBoss();
-  const id = await boss.send(name, data, transaction ? { ...send, db: transactionDb(transaction) } : send);
+  const id = await boss.send(name, data, transaction ? { ...options, db: transactionDb(transaction) } : options);
   if (!id) throw new Error(`Could not queue a ${name} job`);
   return id;
 }
 
-// pg-boss accepts any executor for its insert; this one runs it on the transaction's connection.
-function transactionDb(transaction: Transaction): PgBoss.Db {
+// pg-boss runs its insert through any executor; this one is our open transaction.
+function transactionDb(transaction: Transaction) {
   return {
-    executeSql: async (text, values) => {
+    executeSql: async (text: string, values: unknown[] = []) => {
       // pg reads undefined as NULL; Sequelize's bind wants it said.
       const bind = values.map((v) => (v === undefined ? null : v));
       const [rows] = await sequelize.query(text, { bind, transaction });

@@ -1,6 +1,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { RUN, testEmail, TEST_EMAIL_PATTERN } from "./auth-support";
 import type { Role } from "~/auth/roles";
+import { signedInAs, signedInCookie } from "../support/sessions";
 
 // Admin work on accounts and the review desk's queue, against the real database.
 const { sequelize } = await import("~/db.server");
@@ -55,13 +56,17 @@ describe("suspension", () => {
   it("suspends (ending every session) and reinstates; an admin cannot suspend themself", async () => {
     const admin = await sessionUserOf("admin-c", ["admin"]);
     const target = await sessionUserOf("target-c");
-    const before = (await User.findByPk(target.id))!.sessionVersion;
+    const [phone, laptop] = [await signedInCookie(target), await signedInCookie(target)];
     expect(await setAccountStatus(admin, target.id, "suspended")).toMatchObject({ ok: true });
     const suspended = (await User.findByPk(target.id))!;
     expect(suspended.status).toBe("suspended");
-    expect(suspended.sessionVersion).toBe(before + 1);
+    expect(await signedInAs(phone)).toBeNull();
     expect(await setAccountStatus(admin, target.id, "active")).toMatchObject({ ok: true });
     expect((await User.findByPk(target.id))!.status).toBe("active");
+    // Reinstating does not bring the ended sessions back: the account signs in afresh.
+    expect(await signedInAs(phone)).toBeNull();
+    expect(await signedInAs(laptop)).toBeNull();
+    expect(await signedInAs(await signedInCookie(target))).toBe(target.id);
     expect(await setAccountStatus(admin, admin.id, "suspended")).toMatchObject({ ok: false });
   });
 });

@@ -1,5 +1,6 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { RUN, testEmail, TEST_EMAIL_PATTERN } from "./auth-support";
+import { signedInAs, signedInCookie } from "../support/sessions";
 
 // Loadline ID sign-in against the running local identity provider (started by the test stack):
 // the app's remix-auth-oauth2 strategy does the real authorization-code + PKCE + state exchange,
@@ -110,12 +111,15 @@ describe("linking identities to accounts", () => {
 
   it("takes over an unconfirmed account's address from whoever typed the unproven password", async () => {
     const squatter = await createAccount({ email: testEmail("squatted"), displayName: "Not The Owner", password: "squatters-password" });
+    const squattersCookie = await signedInCookie(squatter);
+    expect(await signedInAs(squattersCookie)).toBe(squatter.id);
     const user = await signInWithIdentity(profile("squatted"));
     expect(user.id).toBe(squatter.id);
     await user.reload();
     expect(user.passwordHash).toBeNull();
     expect(user.emailVerifiedAt).toBeInstanceOf(Date);
-    expect(user.sessionVersion).toBe(squatter.sessionVersion + 1);
+    // The session made with the unproven password ends.
+    expect(await signedInAs(squattersCookie)).toBeNull();
   });
 
   it("recognises a returning identity even after its address changed at the provider", async () => {

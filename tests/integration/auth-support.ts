@@ -23,3 +23,34 @@ export function linkToken(mail: SentMail | undefined, prefix: string): string {
   if (!match) throw new Error(`no ${prefix} link in ${mail?.subject ?? "(no mail)"}`);
   return match[1];
 }
+
+/**
+ * Runs the account-mail jobs waiting in the queue, as the worker would (the integration suite runs
+ * no worker). Returns how many ran.
+ */
+export async function deliverAccountMail(): Promise<number> {
+  const { getBoss, QUEUES } = await import("~/services/jobs.server");
+  const { deliverAccountMail: deliver } = await import("~/auth/account-mail-delivery.server");
+  const boss = await getBoss();
+  let ran = 0;
+  for (;;) {
+    const jobs = await boss.fetch<unknown>(QUEUES.accountMail, { batchSize: 20 });
+    if (jobs.length === 0) return ran;
+    for (const job of jobs) {
+      await deliver(job.data);
+      await boss.complete(QUEUES.accountMail, job.id);
+      ran++;
+    }
+  }
+}
+
+/** Account-mail jobs queued (in any state) for an address or an account id. */
+export async function accountMailJobs(key: { email: string } | { userId: string }): Promise<{ kind: string }[]> {
+  const { sequelize } = await import("~/db.server");
+  const [field, value] = "email" in key ? ["email", key.email] : ["userId", key.userId];
+  const [rows] = await sequelize.query(
+    `SELECT data FROM pgboss.job WHERE name = 'account-mail' AND data->>'${field}' = $1 ORDER BY created_on`,
+    { bind: [value] },
+  );
+  return (rows as { data: { kind: string } }[]).map((r) => r.data);
+}

@@ -5,7 +5,7 @@ import { sequelize } from "~/db.server";
 import { env } from "~/env.server";
 import { User } from "~/models/user.server";
 import { Capture } from "~/models/capture.server";
-import { sessionStorage } from "~/auth/session.server";
+import { signedInCookie } from "../support/sessions";
 import { createStorageClient, ensureBucket, headObject } from "~/services/storage.server";
 import { QUEUES, startBoss } from "~/services/jobs.server";
 import { analyseCaptureJob } from "~/bench/capture-job.server";
@@ -22,13 +22,6 @@ let stranger: User;
 let ownerCookie: string;
 let strangerCookie: string;
 
-async function cookieFor(user: User): Promise<string> {
-  const s = await sessionStorage().getSession();
-  s.set("userId", user.id);
-  s.set("sessionVersion", user.sessionVersion);
-  s.set("signedInAt", new Date().toISOString());
-  return (await sessionStorage().commitSession(s)).split(";")[0];
-}
 
 function upload(parts: Record<string, string | Blob>, { cookie = ownerCookie, wait = 0, name = "capture.wav" } = {}) {
   const form = new FormData();
@@ -72,8 +65,8 @@ beforeAll(async () => {
   const tag = randomUUID().slice(0, 8);
   owner = await User.create({ email: `bench-owner-${tag}@example.test`, displayName: "Bench owner", passwordHash: null, emailVerifiedAt: new Date(), lastSignInAt: null });
   stranger = await User.create({ email: `bench-other-${tag}@example.test`, displayName: "Someone else", passwordHash: null, emailVerifiedAt: new Date(), lastSignInAt: null });
-  ownerCookie = await cookieFor(owner);
-  strangerCookie = await cookieFor(stranger);
+  ownerCookie = await signedInCookie(owner);
+  strangerCookie = await signedInCookie(stranger);
 });
 
 afterAll(async () => {

@@ -5,12 +5,12 @@ import { action, loader } from "~/routes/listings/listing";
 import type { ListingPageData } from "~/listings/types";
 import {
   FIXTURE_SERIAL,
-  cookieFor,
   createAmplifierListing,
   makeUser,
   removeFixtureUsers,
   type AmplifierFixture,
 } from "../support/listing-fixtures";
+import { signedInCookie } from "../support/sessions";
 
 // The listing page's loader and its watch action, called as the server calls them, against the real
 // database: who may see which listing, that the serial number never leaves the server, and watching.
@@ -66,11 +66,11 @@ beforeAll(async () => {
   draft = await createAmplifierListing({ label: "draft", status: "draft" });
   buyer = await makeUser("buyer");
   moderator = await makeUser("moderator", ["buyer", "moderator"]);
-  cookies.buyer = await cookieFor(buyer);
-  cookies.moderator = await cookieFor(moderator);
-  cookies.liveSeller = await cookieFor(live.seller);
-  cookies.heldSeller = await cookieFor(held.seller);
-  cookies.draftSeller = await cookieFor(draft.seller);
+  cookies.buyer = await signedInCookie(buyer);
+  cookies.moderator = await signedInCookie(moderator);
+  cookies.liveSeller = await signedInCookie(live.seller);
+  cookies.heldSeller = await signedInCookie(held.seller);
+  cookies.draftSeller = await signedInCookie(draft.seller);
 }, 60_000);
 
 afterAll(async () => {

@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry, User, Workshop } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
-import { sessionStorage } from "~/auth/session.server";
+import { signedInCookie } from "../support/sessions";
 import type { SessionUser } from "~/auth/guards.server";
 import { normaliseRoles, type Role } from "~/auth/roles";
 import { createDraft, saveCondition, saveItem } from "~/listings/drafts.server";
@@ -26,11 +26,7 @@ export async function makeAccount(label: string, roles: Role[] = ["seller"], opt
     lastSignInAt: null,
   });
   made.push(user.id);
-  const session = await sessionStorage().getSession();
-  session.set("userId", user.id);
-  session.set("sessionVersion", user.sessionVersion);
-  session.set("signedInAt", new Date().toISOString());
-  const cookie = (await sessionStorage().commitSession(session)).split(";")[0];
+  const cookie = await signedInCookie(user);
   return {
     user,
     cookie,

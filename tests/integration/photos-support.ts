@@ -5,7 +5,7 @@ import { env } from "~/env.server";
 import { User } from "~/models/user.server";
 import { Listing, ListingPhoto } from "~/models/index.server";
 import { photoKeys } from "~/photos/access.server";
-import { sessionStorage } from "~/auth/session.server";
+import { signedInCookie } from "../support/sessions";
 import { createStorageClient, deleteObjects } from "~/services/storage.server";
 import { QUEUES } from "~/services/jobs.server";
 import { action as photosAction, loader as photosLoader } from "~/routes/api.v1.listings.$id.photos";
@@ -25,12 +25,7 @@ export async function makeSeller(label: string): Promise<{ user: User; cookie: s
     emailVerifiedAt: new Date(),
     lastSignInAt: null,
   });
-  const session = await sessionStorage().getSession();
-  session.set("userId", user.id);
-  session.set("sessionVersion", user.sessionVersion);
-  session.set("signedInAt", new Date().toISOString());
-  const cookie = (await sessionStorage().commitSession(session)).split(";")[0];
-  return { user, cookie };
+  return { user, cookie: await signedInCookie(user) };
 }
 
 export function makeDraft(sellerId: string): Promise<Listing> {

@@ -5,7 +5,6 @@ import { analyseSine, analyseSquare, parseTwoColumnCsv, SQUARE_COLUMNS } from "@
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry, User, Workshop } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { Watch } from "~/models/watch.server";
-import { sessionStorage } from "~/auth/session.server";
 import type { Role } from "~/auth/roles";
 import type { ListingStatus } from "@shared/catalogue";
 import { singlePoleSquareCsv, toneSamples } from "./capture-files";
@@ -26,14 +25,6 @@ export async function makeUser(label: string, roles: Role[] = ["buyer"]): Promis
     lastSignInAt: null,
     roles,
   });
-}
-
-export async function cookieFor(user: User): Promise<string> {
-  const s = await sessionStorage().getSession();
-  s.set("userId", user.id);
-  s.set("sessionVersion", user.sessionVersion);
-  s.set("signedInAt", new Date().toISOString());
-  return (await sessionStorage().commitSession(s)).split(";")[0];
 }
 
 export interface AmplifierFixture {

@@ -58,8 +58,10 @@ describe("roles form", () => {
 });
 
 describe("rate-limit wording and client address", () => {
-  it("rounds the wait up to whole minutes", () => {
-    expect(tooManyAttemptsMessage(1)).toBe("Too many sign-in attempts; try again in 1 minute.");
+  it("says seconds for a short wait and rounds a longer one up to whole minutes", () => {
+    expect(tooManyAttemptsMessage(1)).toBe("Too many sign-in attempts; try again in 1 second.");
+    expect(tooManyAttemptsMessage(16)).toBe("Too many sign-in attempts; try again in 16 seconds.");
+    expect(tooManyAttemptsMessage(60)).toBe("Too many sign-in attempts; try again in 1 minute.");
     expect(tooManyAttemptsMessage(61)).toBe("Too many sign-in attempts; try again in 2 minutes.");
     expect(tooManyAttemptsMessage(15 * 60)).toBe("Too many sign-in attempts; try again in 15 minutes.");
   });

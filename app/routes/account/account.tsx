@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { data, Form, useNavigation } from "react-router";
 import type { Route } from "./+types/account";
 import { Badge } from "~/components/Badge";
@@ -11,14 +12,19 @@ import { resendVerification, signInMethods } from "~/auth/accounts.server";
 import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { readPageForm } from "~/http/body.server";
-import { requireUser } from "~/auth/guards.server";
+import { AccountActionForm } from "~/auth/forms";
+import { requireSession } from "~/auth/guards.server";
+import { sessionList, type SessionRow } from "~/auth/session-list.server";
+import { endSession } from "~/auth/session.server";
+import { revokeOtherSessions, revokeOwnSession } from "~/auth/session-store.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Loadline" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireUser(request);
+  const { user, sessionId } = await requireSession(request);
   // One-time notices (e.g. "confirmed") are shown by the root layout.
-  return { user, methods: await signInMethods(user.id) };
+  const [methods, sessions] = await Promise.all([signInMethods(user.id), sessionList(user.id, sessionId)]);
+  return { user, methods, sessions };
 }
 
 const RESEND_MESSAGES = {
@@ -27,25 +33,42 @@ const RESEND_MESSAGES = {
   too_many: { ok: false, text: "We have sent several links in the last hour. Please use the newest one, or try again later." },
 } as const;
 
+type ActionResult = { ok: boolean; text: string; section: "email" | "sessions" };
+
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const user = await requireUser(request);
+  const { user, sessionId } = await requireSession(request);
   const form = await readPageForm(request);
-  if (form.get("intent") !== "resend-verification") {
-    return data({ ok: false, text: "Unknown request." }, { status: 400 });
+  const parsed = AccountActionForm.safeParse(Object.fromEntries(form));
+  if (!parsed.success) return data<ActionResult>({ ok: false, text: "Unknown request.", section: "email" }, { status: 400 });
+  const input = parsed.data;
+  if (input.intent === "sign-out-session") {
+    // Ending this device's own session is signing out.
+    if (input.sessionId === sessionId) return endSession(request, "/");
+    // Only the account's own sessions match; anyone else's id reads as already ended.
+    const ended = await revokeOwnSession(user.id, input.sessionId);
+    const text = ended ? "That session is signed out." : "That session had already ended.";
+    return data<ActionResult>({ ok: ended, text, section: "sessions" }, { status: ended ? 200 : 404 });
+  }
+  if (input.intent === "sign-out-others") {
+    const count = await revokeOtherSessions(user.id, sessionId);
+    const text = count ? `Signed out everywhere else (${count} session${count === 1 ? "" : "s"}).` : "You were not signed in anywhere else.";
+    return data<ActionResult>({ ok: true, text, section: "sessions" });
   }
   try {
-    const result = RESEND_MESSAGES[await resendVerification(user.id)];
-    return data(result, { status: result.ok ? 200 : 429 });
+    const result = { ...RESEND_MESSAGES[await resendVerification(user.id)], section: "email" as const };
+    return data<ActionResult>(result, { status: result.ok ? 200 : 429 });
   } catch (error) {
     if (!(error instanceof MailDeliveryError)) throw error;
-    return data({ ok: false, text: MAIL_UNAVAILABLE }, { status: 503 });
+    return data<ActionResult>({ ok: false, text: MAIL_UNAVAILABLE, section: "email" }, { status: 503 });
   }
 }
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
-  const { user, methods } = loaderData;
+  const { user, methods, sessions } = loaderData;
   const busy = useNavigation().state === "submitting";
+  const message = (section: ActionResult["section"]) =>
+    actionData?.section !== section ? null : actionData.ok ? <Notice>{actionData.text}</Notice> : <FormError>{actionData.text}</FormError>;
   return (
     <main className="mx-auto w-full max-w-3xl space-y-8 px-4 py-10">
       <PageHeader overline="Your account" title={user.displayName} lede={user.email} />
@@ -61,7 +84,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
             <p className="text-sm text-ink-soft">
               Confirm your address with the link we e-mailed you. Publishing a listing needs a confirmed address.
             </p>
-            {actionData ? actionData.ok ? <Notice>{actionData.text}</Notice> : <FormError>{actionData.text}</FormError> : null}
+            {message("email")}
             <Form method="post">
               <input type="hidden" name="intent" value="resend-verification" />
               <Button type="submit" variant="secondary" busy={busy}>
@@ -106,6 +129,54 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           </Button>
         </Form>
       </Card>
+
+      <SessionsCard sessions={sessions} message={message("sessions")} />
     </main>
+  );
+}
+
+function SessionsCard({ sessions, message }: { sessions: SessionRow[]; message: ReactNode }) {
+  const others = sessions.filter((s) => !s.current).length;
+  return (
+    <Card className="space-y-4">
+      <CardTitle>Where you are signed in</CardTitle>
+      <p className="text-sm text-ink-soft">
+        Each browser stays signed in for up to 14 days. Sign out any you do not recognise, then choose a new password.
+      </p>
+      {message}
+      <ul className="divide-y divide-rule border-y border-rule">
+        {sessions.map((s) => (
+          <li key={s.id} aria-label={s.browser} className="flex flex-wrap items-center justify-between gap-3 py-3">
+            <div className="min-w-0 space-y-0.5">
+              <p className="flex flex-wrap items-center gap-2 font-medium">
+                {s.browser}
+                {s.current ? <Badge tone="trace">This device</Badge> : null}
+              </p>
+              <p className="text-sm text-ink-soft">
+                {s.address ?? "Address not known"} · signed in <time dateTime={s.signedInAt}>{s.signedInLabel}</time> · last
+                seen <time dateTime={s.lastSeenAt}>{s.lastSeenLabel}</time>
+              </p>
+            </div>
+            {s.current ? null : (
+              <Form method="post">
+                <input type="hidden" name="intent" value="sign-out-session" />
+                <input type="hidden" name="sessionId" value={s.id} />
+                <Button type="submit" variant="secondary" size="sm" aria-label={`Sign out ${s.browser}, last seen ${s.lastSeenLabel}`}>
+                  Sign out
+                </Button>
+              </Form>
+            )}
+          </li>
+        ))}
+      </ul>
+      {others > 0 ? (
+        <Form method="post">
+          <input type="hidden" name="intent" value="sign-out-others" />
+          <Button type="submit" variant="secondary">
+            Sign out everywhere else
+          </Button>
+        </Form>
+      ) : null}
+    </Card>
   );
 }

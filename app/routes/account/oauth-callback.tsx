@@ -8,7 +8,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const outcome = await finishOAuth(request);
   const headers = new Headers();
   for (const c of outcome.clearCookies) headers.append("Set-Cookie", c);
-  if (outcome.ok) return startSession(outcome.user, outcome.redirectTo, { headers });
+  if (outcome.ok) return startSession(request, outcome.user, outcome.redirectTo, { headers });
   if (outcome.error) console.error("OAuth sign-in failed:", outcome.error);
   return redirect(`/sign-in?oauth=${outcome.code}`, { headers });
 }

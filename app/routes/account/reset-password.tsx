@@ -34,7 +34,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!parsed.success) return data({ problem: null, errors: fieldErrors(parsed.error) }, { status: 400 });
   const result = await resetPassword(params.token, parsed.data.password);
   if (!result.ok) return data({ problem: PROBLEMS[result.reason], errors: {} }, { status: 410 });
-  return startSession(result.user, "/account", { notice: "Your new password is set, and you are signed in." });
+  return startSession(request, result.user, "/account", { notice: "Your new password is set, and you are signed in." });
 }
 
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {

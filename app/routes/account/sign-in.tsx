@@ -41,7 +41,7 @@ export async function action({ request }: Route.ActionArgs) {
   try {
     // The strategy reads the form itself: hand it the one already read and checked.
     const user = await authenticator.authenticate(PASSWORD, formRequest(request, form));
-    return startSession(user, redirectTo);
+    return startSession(request, user, redirectTo);
   } catch (error) {
     if (!(error instanceof SignInError)) throw error;
     const limited = error.code === "rate_limited";

@@ -31,7 +31,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const result = await confirmEmail(params.token);
   if (!result.ok) return data({ problem: PROBLEMS[result.reason] }, { status: 410 });
-  return startSession(result.user, "/account", { notice: "Your e-mail address is confirmed. Welcome to Loadline." });
+  return startSession(request, result.user, "/account", { notice: "Your e-mail address is confirmed. Welcome to Loadline." });
 }
 
 export default function VerifyEmail({ loaderData, actionData }: Route.ComponentProps) {

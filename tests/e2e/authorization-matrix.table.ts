@@ -1,0 +1,151 @@
+import { randomUUID } from "node:crypto";
+import { plainPng } from "../support/photo-files";
+import type { Fixtures } from "./support/matrix-fixtures";
+import { apiOwnerOnly, apiSignedIn, everyone, ownerOnly, signedIn, type Entry } from "./support/matrix";
+
+// Who may reach what: every route in app/routes.ts, keyed by its URL pattern, with what each persona
+// (anonymous, buyer, the owner of the listing in the URL, another seller, workshop, moderator, admin)
+// must get. The roles nest: admin ⊇ moderator; every account is a buyer. Someone else's draft, photo
+// or capture is a 404, never a 403, so an id reveals nothing. Write probes carry a body that gets past
+// input checks where it can, so a refusal comes from authorization and not from the form.
+
+const draft = (f: Fixtures) => ({ id: f.draft.id });
+const desk = { anonymous: "sign-in", moderator: "ok", admin: "ok", others: 403 } as const;
+const form = (fields: Record<string, string>) => () => ({ form: fields });
+const LOG_ENTRY = { intent: "add", doneOn: "2025-02-20", work: "Cleaned the input selector.", technician: "Bench 1" };
+const png = await plainPng(32, 24);
+const photoUpload = () => {
+  const multipart = new FormData();
+  multipart.set("photo", new Blob([new Uint8Array(png)], { type: "image/png" }), "front.png");
+  return { multipart };
+};
+
+export const MATRIX: Record<string, Entry> = {
+  "/": { cases: [{ get: everyone("ok") }] },
+  "/market": { cases: [{ get: everyone("ok") }] },
+  "/media/*": {
+    cases: [
+      { name: "a live listing's photo size", params: (f) => ({ "*": f.media.public }), get: everyone("ok") },
+      // Originals keep their metadata (location, serial numbers on labels): never served.
+      { name: "an original", params: (f) => ({ "*": f.media.original }), get: everyone(404) },
+    ],
+  },
+
+  // Accounts and sign-in: open to all; a signed-in visitor is sent on from the forms they do not need.
+  "/sign-up": { cases: [{ get: { anonymous: "ok", others: { to: "/account" } }, post: { body: form({}), expect: everyone(400) } }] },
+  "/sign-in": { cases: [{ get: { anonymous: "ok", others: { to: "/" } }, post: { body: form({}), expect: everyone(400) } }] },
+  "/sign-out": { cases: [{ get: { anonymous: { to: "/" }, others: "ok" }, post: { expect: everyone({ to: "/" }), fresh: true } }] },
+  "/verify-email/:token": {
+    cases: [{ params: () => ({ token: "no-such-token" }), get: everyone(410), post: { expect: everyone(410) } }],
+  },
+  "/forgot-password": { cases: [{ get: everyone("ok"), post: { body: form({}), expect: everyone(400) } }] },
+  "/reset-password/:token": {
+    cases: [{ params: () => ({ token: "no-such-token" }), get: everyone(410), post: { body: form({}), expect: everyone(400) } }],
+  },
+  "/auth/oauth": {
+    cases: [{ get: everyone({ to: "/sign-in" }), writes: { POST: { body: form({ redirectTo: "/market" }), expect: everyone({ to: /\/authorize\?/ }) } } }],
+  },
+  "/auth/oauth/callback": { cases: [{ get: everyone({ to: /^\/sign-in\?oauth=/ }) }] },
+  "/account": { cases: [{ get: signedIn("ok"), post: { body: form({ intent: "matrix-probe" }), expect: signedIn(400) } }] },
+
+  // Roles: the desk for moderators (and admins, who hold everything a moderator may do), accounts for admins.
+  "/admin/users": {
+    cases: [
+      {
+        get: { anonymous: "sign-in", admin: "ok", others: 403 },
+        post: { body: form({ intent: "matrix-probe" }), expect: { anonymous: "sign-in", admin: 400, others: 403 } },
+      },
+    ],
+  },
+  "/desk": { cases: [{ get: desk }] },
+
+  // The public listing page: live for everyone; held for its seller and the desk; a draft for its seller only.
+  "/listings/:id": {
+    cases: [
+      { name: "live", params: (f) => ({ id: f.live.id }), get: everyone("ok"), post: { body: form({ intent: "unwatch" }), expect: signedIn("ok") } },
+      {
+        name: "held",
+        params: (f) => ({ id: f.held.id }),
+        get: { owner: "ok", moderator: "ok", admin: "ok", others: 404 },
+        post: { body: form({ intent: "unwatch" }), expect: { anonymous: "sign-in", owner: "ok", moderator: "ok", admin: "ok", others: 404 } },
+      },
+      {
+        name: "draft",
+        params: draft,
+        get: { owner: "ok", others: 404 },
+        post: { body: form({ intent: "unwatch" }), expect: { anonymous: "sign-in", owner: "ok", others: 404 } },
+      },
+      { name: "no such listing", params: () => ({ id: randomUUID() }), get: everyone(404) },
+    ],
+  },
+
+  // The seller's path. Any account may start selling; the editor is the owner's alone.
+  "/sell": {
+    cases: [
+      {
+        get: signedIn("ok"),
+        // A draft cannot be withdrawn, so the owner is told so (200 with a message); nobody else may try.
+        post: { body: (f) => ({ form: { intent: "withdraw", confirm: "yes", listingId: f.draft.id } }), expect: ownerOnly("ok") },
+      },
+    ],
+  },
+  "/sell/new": { cases: [{ get: signedIn("ok"), post: { body: form({ category: "not-a-category" }), expect: signedIn(400) } }] },
+  // The frame's index only forwards to the first step, for any id (the step then decides), so it reveals
+  // nothing. A visitor may be sent there or straight to sign in: the frame's and the index's loaders race.
+  "/sell/:id": {
+    cases: [{ params: draft, get: { anonymous: { anyOf: ["sign-in", { to: "/sell/:id/item" }] }, others: { to: "/sell/:id/item" } } }],
+  },
+  "/sell/:id/item": {
+    cases: [
+      { name: "draft", params: draft, get: ownerOnly(), post: { body: form({ category: "integrated_amplifier", maker: "" }), expect: ownerOnly() } },
+      // The desk reads a held listing on its public page; editing it stays the seller's.
+      { name: "held", params: (f) => ({ id: f.held.id }), get: ownerOnly() },
+    ],
+  },
+  "/sell/:id/condition": {
+    cases: [{ params: draft, get: ownerOnly(), post: { body: form({ cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: "" }), expect: ownerOnly() } }],
+  },
+  "/sell/:id/restoration": {
+    // A new log entry: the owner is sent back to the log; nobody else gets that far.
+    cases: [{ params: draft, get: ownerOnly(), post: { body: form(LOG_ENTRY), expect: ownerOnly({ to: "/sell/:id/restoration" }) } }],
+  },
+  "/sell/:id/photos": { cases: [{ params: draft, get: ownerOnly() }] },
+  // An empty sheet is a sheet (saved and checked).
+  "/sell/:id/bench": { cases: [{ params: draft, get: ownerOnly(), post: { body: form({}), expect: ownerOnly() } }] },
+  // Publishing a bare draft: the owner is told what is missing (400).
+  "/sell/:id/review": { cases: [{ params: draft, get: ownerOnly(), post: { body: form({ intent: "publish" }), expect: ownerOnly(400) } }] },
+
+  // The API: 401 without an account, 404 for what is not yours (as for what does not exist).
+  "/api/v1/listings/:id": {
+    cases: [
+      { name: "draft", params: draft, get: apiOwnerOnly(), writes: { PATCH: { body: () => ({ json: { condition: { conditionNote: "Matrix probe." } } }), expect: apiOwnerOnly() } } },
+      // The owner's view carries the serial number: a live listing's is still the owner's alone.
+      { name: "live", params: (f) => ({ id: f.live.id }), get: apiOwnerOnly() },
+    ],
+  },
+  "/api/v1/listings/:id/photos": {
+    cases: [
+      {
+        params: draft,
+        get: apiOwnerOnly(),
+        writes: {
+          POST: { body: photoUpload, expect: apiOwnerOnly(202) },
+          PATCH: { body: (f) => ({ json: { coverId: f.photo.id } }), expect: apiOwnerOnly() },
+        },
+      },
+    ],
+  },
+  "/api/v1/listings/:id/photos/:photoId": {
+    cases: [{ params: (f) => ({ id: f.draft.id, photoId: f.photo.id }), get: everyone(405), writes: { DELETE: { expect: apiOwnerOnly(), last: true } } }],
+  },
+  "/api/v1/captures/:id": { cases: [{ params: (f) => ({ id: f.capture.id }), get: apiOwnerOnly() }] },
+  // Any account may have a capture analysed; a form without a file is refused after the door.
+  "/api/v1/captures/analyze": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiSignedIn(400) } } }] },
+  "/api/v1/bench-sheets/check": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: {} }), expect: everyone(400) } } }] },
+  // Authenticated by its signature, not a session: unsigned is 400 for everyone.
+  "/api/v1/webhooks/stripe": { cases: [{ writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } }] },
+  "/healthz": { cases: [{ get: everyone("ok") }] },
+  // Liveness and readiness for load balancers (being added alongside this table).
+  "/healthz/live": { upcoming: true, cases: [{ get: everyone("ok") }] },
+  "/healthz/ready": { upcoming: true, cases: [{ get: everyone("ok") }] },
+};

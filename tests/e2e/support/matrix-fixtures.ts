@@ -1,0 +1,147 @@
+import { randomBytes, randomUUID } from "node:crypto";
+import { Op } from "sequelize";
+import { Listing, ListingPhoto, User } from "~/models/index.server";
+import { Capture } from "~/models/capture.server";
+import { Watch } from "~/models/watch.server";
+import { hashPassword } from "~/auth/password.server";
+import type { Role } from "~/auth/roles";
+import type { ListingStatus } from "@shared/catalogue";
+import { Agent, signIn } from "./http";
+
+// The people and records the authorization matrix and the fuzz test ask about: one account per role,
+// made straight in the database with a known password and then signed in over HTTP through the
+// real form (so the suites do not care how sessions are kept), and the owner's listings in each state.
+
+export const PERSONAS = ["anonymous", "buyer", "owner", "seller", "workshop", "moderator", "admin"] as const;
+export type Persona = (typeof PERSONAS)[number];
+
+/** What each persona holds. `owner` owns every fixture record; `seller` is another seller. */
+const ROLES_OF: Record<Exclude<Persona, "anonymous">, Role[]> = {
+  buyer: ["buyer"],
+  owner: ["buyer", "seller"],
+  seller: ["buyer", "seller"],
+  workshop: ["buyer", "workshop"],
+  moderator: ["buyer", "moderator"],
+  // The admin role alone: whatever a moderator may do must come from the role hierarchy.
+  admin: ["buyer", "admin"],
+};
+
+export interface Fixtures {
+  run: string;
+  password: string;
+  users: Record<Exclude<Persona, "anonymous">, User>;
+  /** The owner's listings: a bare draft (with one photo), one held for the desk, one live. */
+  draft: Listing;
+  held: Listing;
+  live: Listing;
+  photo: ListingPhoto;
+  capture: Capture;
+  /** A ready photo of a live demo listing (its public size key and its private original key). */
+  media: { public: string; original: string };
+}
+
+async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
+  const published = status !== "draft";
+  return Listing.create({
+    sellerId,
+    status,
+    category: "integrated_amplifier",
+    maker: published ? "Fenwold Acoustics" : null,
+    model: published ? `FA-${status}` : null,
+    priceMinor: published ? 48_000 : null,
+    currency: "EUR",
+    country: published ? "DE" : null,
+    cosmeticGrade: published ? "clean" : null,
+    serviceState: published ? "serviced_measured" : null,
+    publishedAt: published ? new Date() : null,
+    heldReason: status === "held" ? "Power into 4 Ω is implausible for these rails." : null,
+  });
+}
+
+export async function makeFixtures(label: string): Promise<Fixtures> {
+  const run = randomBytes(4).toString("hex");
+  const password = `matrix-${randomBytes(6).toString("hex")}`;
+  const passwordHash = await hashPassword(password);
+  const account = (persona: keyof typeof ROLES_OF) =>
+    User.create({
+      email: `${label}-${run}-${persona}@example.test`,
+      displayName: `${label} ${persona}`,
+      passwordHash,
+      roles: ROLES_OF[persona],
+      emailVerifiedAt: new Date(),
+      lastSignInAt: null,
+    });
+  const users = {
+    buyer: await account("buyer"),
+    owner: await account("owner"),
+    seller: await account("seller"),
+    workshop: await account("workshop"),
+    moderator: await account("moderator"),
+    admin: await account("admin"),
+  };
+  const ownerId = users.owner.id;
+  const [draft, held, live] = [await listing(ownerId, "draft"), await listing(ownerId, "held"), await listing(ownerId, "live")];
+  const photo = await ListingPhoto.create({
+    listingId: draft.id,
+    position: 0,
+    isCover: true,
+    status: "ready",
+    originalKey: `originals/photos/matrix/${run}/${randomUUID()}.jpg`,
+    thumbKey: `photos/thumb/matrix/${run}/${randomUUID()}.jpg`,
+    listingKey: `photos/listing/matrix/${run}/${randomUUID()}.jpg`,
+    zoomKey: `photos/zoom/matrix/${run}/${randomUUID()}.jpg`,
+    contentType: "image/jpeg",
+    byteSize: 1000,
+    width: 1200,
+    height: 800,
+    phash: "0".repeat(16),
+    error: null,
+  });
+  const capture = await Capture.create({
+    ownerId,
+    kind: "sine",
+    status: "done",
+    fileName: "output-1k.wav",
+    contentType: "audio/wav",
+    byteSize: 96_044,
+    storageKey: `captures/matrix/${run}/${randomUUID()}.wav`,
+    format: { container: "wav" },
+    conditions: { kind: "sine", scale: { kind: "volts-per-full-scale", volts: 40, basis: "peak" }, weighting: "unweighted", window: "blackman-harris-7" },
+    analysis: { note: "stored by the test" },
+    readings: [],
+    finishedAt: new Date(),
+  });
+  const demoPhoto = await ListingPhoto.findOne({
+    where: { status: "ready", listingKey: { [Op.ne]: null } },
+    include: [{ model: Listing, as: "listing", where: { status: "live" }, attributes: [] }],
+  });
+  if (!demoPhoto?.listingKey) throw new Error("The demo scenario has no ready photo of a live listing: is the seed loaded?");
+  const media = { public: demoPhoto.listingKey, original: demoPhoto.originalKey };
+  return { run, password, users, draft, held, live, photo, capture, media };
+}
+
+/** A signed-in agent per persona (anonymous: no cookie). */
+export async function signInAll(f: Fixtures): Promise<Record<Persona, Agent>> {
+  return {
+    anonymous: new Agent("anonymous"),
+    buyer: await signInAs(f, "buyer"),
+    owner: await signInAs(f, "owner"),
+    seller: await signInAs(f, "seller"),
+    workshop: await signInAs(f, "workshop"),
+    moderator: await signInAs(f, "moderator"),
+    admin: await signInAs(f, "admin"),
+  };
+}
+
+export function signInAs(f: Fixtures, persona: Exclude<Persona, "anonymous">): Promise<Agent> {
+  return signIn(persona, f.users[persona].email, f.password);
+}
+
+export async function removeFixtures(f: Fixtures | undefined) {
+  if (!f) return;
+  const ids = Object.values(f.users).map((u) => u.id);
+  await Watch.destroy({ where: { userId: ids } });
+  await Listing.destroy({ where: { sellerId: ids } });
+  await Capture.destroy({ where: { ownerId: ids } });
+  await User.destroy({ where: { id: ids } });
+}
