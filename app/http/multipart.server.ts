@@ -75,6 +75,8 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
     else fields.append(name, value);
   });
   parser.on("file", (field, stream, info) => {
+    // The handler sees a destroyed stream's error through its own reading; this keeps it from being unheard.
+    stream.on("error", () => {});
     if (failed) {
       stream.resume();
       return;
@@ -95,9 +97,11 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
   parser.on("filesLimit", () => fail(tooManyFiles()));
   parser.on("fieldsLimit", () => fail(refusal("too_large", `A form may carry at most ${maxFields} fields.`, { headers: CLOSE })));
   parser.on("partsLimit", () => fail(refusal("too_large", `A form may carry at most ${options.maxFiles + maxFields} parts.`, { headers: CLOSE })));
+  // Every error event is listened to (busboy may emit more than one, e.g. a bad header, then the
+  // destroy): an unheard one would take the whole process down.
   const finished = new Promise<void>((resolve, reject) => {
     parser.once("close", resolve);
-    parser.once("error", (e) => reject(broken(e)));
+    parser.on("error", (e) => reject(broken(e)));
   });
   finished.catch(() => {});
 

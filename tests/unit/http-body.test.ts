@@ -128,6 +128,29 @@ describe("readForm", () => {
 });
 
 describe("readMultipart", () => {
+  it("a malformed part header, then more parts: 400, and no error event goes unheard", async () => {
+    const unheard: unknown[] = [];
+    const onUncaught = (e: unknown) => unheard.push(e);
+    process.on("uncaughtException", onUncaught);
+    try {
+      const bodies = [
+        "--x\r\nno colon here\r\n\r\nv\r\n--x--\r\n",
+        `--x\r\nContent-Disposition: form-data; name="a"\r\n\r\nv\r\n--x\r\n\u0001garbage\r\n\r\n${"y".repeat(100_000)}\r\n--x--\r\n`,
+        `--x\r\nContent-Disposition: form-data; name="f"; filename="a.csv"\r\n\r\n${"1".repeat(200_000)}\r\n--x\r\nbroken\r\n\r\n`,
+      ];
+      for (const body of bodies) {
+        const request = new Request(URL_, { method: "POST", body, headers: { "Content-Type": "multipart/form-data; boundary=x" } });
+        const e = await refusal(() => readMultipart(request, { maxBytes: MiB, maxFileBytes: MiB, maxFiles: 1, onFile: (f) => collect(f.stream) }));
+        expect(e.toJSON()).toEqual({ error: "bad_request", message: "The multipart body is broken: Malformed part header." });
+      }
+      await new Promise((r) => setTimeout(r, 100));
+    } finally {
+      process.off("uncaughtException", onUncaught);
+    }
+    expect(unheard).toEqual([]);
+  });
+
+
   const frame = multipartFrame("file", "big.csv", "text/csv");
   const collect = async (stream: AsyncIterable<Uint8Array>) => {
     let n = 0;
