@@ -3,9 +3,11 @@ import type { Route } from "./+types/oauth-start";
 import { startOAuth } from "~/auth/authenticator.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { formRequest, readPageForm } from "~/http/body.server";
+import { methodNotAllowed } from "~/http/errors.server";
 
 // POST /auth/oauth: off to the identity provider (authorization code with PKCE and state).
 export async function action({ request }: Route.ActionArgs) {
+  if (request.method !== "POST") return methodNotAllowed(["POST"]);
   assertSameOrigin(request);
   const form = await readPageForm(request);
   try {
