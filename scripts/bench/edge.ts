@@ -68,16 +68,18 @@ function squareCsv(bytes: number): Uint8Array {
   return new TextEncoder().encode(rows.join("\n") + "\n");
 }
 
-type Probe = { label: string; times: number[] };
-
-async function probe(url: string, probeOf: Probe, stop: () => boolean) {
-  while (!stop()) {
-    const t = performance.now();
-    const res = await fetch(url, { redirect: "manual" });
-    await res.arrayBuffer();
-    probeOf.times.push(performance.now() - t);
-    await new Promise((r) => setTimeout(r, 50));
-  }
+/** Probes `urls` from a process of its own until `stop` resolves; the times per URL, in ms. */
+async function probeWhile(urls: string[], until: Promise<unknown>): Promise<Record<string, number[]>> {
+  const child = spawn(process.execPath, ["--import", "tsx", path.join(root, "scripts/bench/probe.ts"), ...urls], {
+    cwd: root,
+    stdio: ["pipe", "pipe", "inherit"],
+  });
+  let out = "";
+  child.stdout.on("data", (c) => (out += c));
+  await until;
+  child.stdin.end();
+  await finished(child);
+  return JSON.parse(out) as Record<string, number[]>;
 }
 
 const pct = (a: number[], p: number) => {
@@ -150,46 +152,48 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
 
     // --- Latency while a 48 MB capture is uploaded and analysed (after 3 s without it, for comparison) ---
     const csv = squareCsv(48 * MiB);
-    const idle: [Probe, Probe] = [{ label: live, times: [] }, { label: listing, times: [] }];
-    const idleUntil = Date.now() + 3000;
-    await Promise.all(idle.map((pr) => probe(`${base}${pr.label}`, pr, () => Date.now() > idleUntil)));
-    for (const pr of idle) {
-      figures.push({ label: `GET ${pr.label} without the upload, ${pr.times.length} requests: p50 ${ms(pct(pr.times, 50))} ms, p95 ${ms(pct(pr.times, 95))} ms, max`, value: ms(Math.max(...pr.times)), unit: "ms" });
+    const urls = [`${base}${live}`, `${base}${listing}`];
+    const what = (url: string) => (url.endsWith(live) ? `GET ${live} (liveness)` : `GET ${listing} (a public listing page)`);
+    const idle = await probeWhile(urls, new Promise((r) => setTimeout(r, 3000)));
+    for (const url of urls) {
+      const t = idle[url];
+      figures.push({ label: `${what(url)} without the upload, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95 ${ms(pct(t, 95))} ms, max`, value: ms(Math.max(...t)), unit: "ms" });
     }
-    let stopped = false;
-    const liveness: Probe = { label: live, times: [] };
-    const page: Probe = { label: listing, times: [] };
-    const probes = Promise.all([probe(`${base}${live}`, liveness, () => stopped), probe(`${base}${listing}`, page, () => stopped)]);
-    await new Promise((r) => setTimeout(r, 300));
-    const form = new FormData();
-    form.append("file", new Blob([csv as Uint8Array<ArrayBuffer>], { type: "text/csv" }), "scope-1k.csv");
-    form.append("kind", "square");
-    form.append("loadOhm", "8");
-    const t0 = performance.now();
-    const upload = await fetch(`${base}/api/v1/captures/analyze?wait=0`, { method: "POST", body: form, headers: { Cookie: cookie, Origin: base } });
-    const uploadMs = performance.now() - t0;
-    const queued = (await upload.json()) as { id?: string; error?: string };
-    if (!queued.id) throw new Error(`the capture upload was refused: ${JSON.stringify(queued)}`);
+    let uploadMs = 0;
+    let uploadStatus = 0;
     let capture: { status: string; createdAt: string; finishedAt: string | null; error?: { error: string } } = { status: "queued", createdAt: "", finishedAt: null };
-    const deadline = Date.now() + 120_000;
-    while (capture.status !== "done" && capture.status !== "failed" && Date.now() < deadline) {
-      await new Promise((r) => setTimeout(r, 250));
-      capture = await (await fetch(`${base}/api/v1/captures/${queued.id}`, { headers: { Cookie: cookie } })).json();
-    }
+    const t0 = performance.now();
+    const work = (async () => {
+      await new Promise((r) => setTimeout(r, 300));
+      const form = new FormData();
+      form.append("file", new Blob([csv as Uint8Array<ArrayBuffer>], { type: "text/csv" }), "scope-1k.csv");
+      form.append("kind", "square");
+      form.append("loadOhm", "8");
+      const upload = await fetch(`${base}/api/v1/captures/analyze?wait=0`, { method: "POST", body: form, headers: { Cookie: cookie, Origin: base } });
+      uploadMs = performance.now() - t0 - 300;
+      uploadStatus = upload.status;
+      const queued = (await upload.json()) as { id?: string; error?: string };
+      if (!queued.id) throw new Error(`the capture upload was refused: ${JSON.stringify(queued)}`);
+      const deadline = Date.now() + 180_000;
+      while (capture.status !== "done" && capture.status !== "failed" && Date.now() < deadline) {
+        await new Promise((r) => setTimeout(r, 250));
+        capture = await (await fetch(`${base}/api/v1/captures/${queued.id}`, { headers: { Cookie: cookie } })).json();
+      }
+      await new Promise((r) => setTimeout(r, 300));
+    })();
+    const busy = await probeWhile(urls, work);
     const totalMs = performance.now() - t0;
-    await new Promise((r) => setTimeout(r, 300));
-    stopped = true;
-    await probes;
     const analysedMs = capture.finishedAt ? Date.parse(capture.finishedAt) - Date.parse(capture.createdAt) : NaN;
     figures.push({
-      label: `${(csv.length / MiB).toFixed(1)} MiB square-wave CSV: upload answered ${upload.status} in ${ms(uploadMs)} ms; the job ended ${capture.status}${capture.error ? ` (${capture.error.error})` : ""} ${ms(analysedMs)} ms after the row was made; ${ms(totalMs)} ms in all`,
+      label: `${(csv.length / MiB).toFixed(1)} MiB square-wave CSV: upload answered ${uploadStatus} in ${ms(uploadMs)} ms; the job ended ${capture.status}${capture.error ? ` (${capture.error.error})` : ""} ${ms(analysedMs)} ms after the row was made; ${ms(totalMs)} ms in all`,
       value: ms(totalMs),
       unit: "ms",
     });
-    for (const pr of [liveness, page]) {
-      const what = pr === liveness ? `GET ${pr.label} (liveness)` : `GET ${pr.label} (a public listing page)`;
-      figures.push({ label: `${what} meanwhile, ${pr.times.length} requests: p50 ${ms(pct(pr.times, 50))} ms, p95`, value: ms(pct(pr.times, 95)), unit: "ms", limit: 200 });
-      figures.push({ label: `${what} meanwhile, max`, value: ms(Math.max(...pr.times)), unit: "ms", ...(pr === liveness && live === "/healthz" ? {} : { limit: 200 }) });
+    for (const url of urls) {
+      const t = busy[url];
+      const limited = !(url.endsWith(live) && live === "/healthz");
+      figures.push({ label: `${what(url)} meanwhile, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95`, value: ms(pct(t, 95)), unit: "ms", ...(limited ? { limit: 200 } : {}) });
+      figures.push({ label: `${what(url)} meanwhile, max`, value: ms(Math.max(...t)), unit: "ms", ...(limited ? { limit: 200 } : {}) });
     }
     figures.push({ label: "load average over the last minute (2 cores, shared)", value: Math.round(os.loadavg()[0] * 100) / 100, unit: "" });
   } finally {
