@@ -50,8 +50,9 @@ export class CaptureError extends Error {
     this.details = details;
   }
 
-  toJSON(): { error: CaptureErrorCode; message: string; details?: Record<string, unknown> } {
-    return this.details ? { error: this.code, message: this.message, details: this.details } : { error: this.code, message: this.message };
+  /** The API's one error shape; `details` stay with the error for code that wants them. */
+  toJSON(): { error: CaptureErrorCode; message: string } {
+    return { error: this.code, message: this.message };
   }
 }
 
