@@ -120,10 +120,11 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
     fail(broken(e));
   }
   if (failed) parser.destroy(failure instanceof Error ? failure : undefined);
-  const settled = await Promise.allSettled(handled);
+  // Every handler has finished (and cleaned up after itself) before the answer goes out.
+  await Promise.allSettled(handled);
   if (failed) throw failure;
   assertStorableForm(fields);
-  return { fields, files: settled.map((s) => (s as PromiseFulfilledResult<T>).value) };
+  return { fields, files: await Promise.all(handled) };
 }
 
 /** The first `want` bytes of a stream (fewer if it ends), and an iterator over everything, from the start. */
