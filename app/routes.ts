@@ -20,8 +20,10 @@ export default [
   route("desk", "routes/desk/desk.tsx"),
   // The public listing page (watch is its action)
   route("listings/:id", "routes/listings/listing.tsx"),
-  // Service health and the payments provider's webhook
+  // Service health (liveness, readiness; /healthz is readiness) and the payments provider's webhook
   route("healthz", "routes/healthz.ts"),
+  route("healthz/ready", "routes/healthz.ts", { id: "routes/healthz-ready" }),
+  route("healthz/live", "routes/healthz.live.ts"),
   route("api/v1/webhooks/stripe", "routes/api.v1.webhooks.stripe.ts"),
   // Capture analysis (the bench)
   route("api/v1/captures/analyze", "routes/api.v1.captures.analyze.ts"),

@@ -114,14 +114,20 @@ async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[]; fail
 const figures = await captureFigures();
 const sheet = await sheetFigures();
 figures.push(...sheet.figures);
+const notes = [sheet.note];
+figures.push(...(await (await import("./bench/photos")).photoFigures()));
 const edge = await edgeFigures();
 figures.push(...edge.figures);
+notes.push(...edge.notes);
 
-// The anonymous account forms' timing needs a running app: `npm start`, or BENCH_URL.
+// The anonymous account forms' timing and health checks under load need a running app: `npm start`,
+// or BENCH_URL.
 const benchUrl = process.env.BENCH_URL ?? "http://127.0.0.1:3000";
 const answers = await fetch(`${benchUrl}/healthz`, { signal: AbortSignal.timeout(5000) }).then(() => true, () => false);
 const accountNote = answers ? undefined : `account-form timing skipped: nothing answers at ${benchUrl} (run \`npm start\`, or set BENCH_URL)`;
 if (answers) figures.push(...(await (await import("./bench/account-timing")).accountTimingFigures(benchUrl)));
+if (answers) figures.push(...(await (await import("./bench/health")).healthFigures(benchUrl)));
+else notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);
 
 let missed = edge.failed ? 1 : 0;
 for (const f of figures) {
@@ -130,8 +136,6 @@ for (const f of figures) {
   const limit = f.limit !== undefined ? `  (limit < ${f.limit} ${f.unit}${over ? ", MISSED" : ", ok"})` : "";
   console.log(`${f.label}: ${f.value} ${f.unit}${limit}`);
 }
-if (sheet.note) console.log(sheet.note);
-for (const note of edge.notes) console.log(note);
-if (accountNote) console.log(accountNote);
+for (const note of [...notes, accountNote]) if (note) console.log(note);
 console.log(missed ? `\n${missed} limit(s) missed` : "\nAll limits met");
 process.exit(missed ? 1 : 0);

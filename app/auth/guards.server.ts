@@ -1,7 +1,7 @@
 import { data, redirect } from "react-router";
 import { readSession } from "~/auth/session.server";
 import { signInPath } from "~/auth/redirect";
-import { normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
+import { holdsRole, normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
 import { apiError } from "~/http/errors.server";
 
 // THE path for authentication and authorisation: every loader, action and API route that needs a
@@ -81,10 +81,11 @@ export async function requireSession(request: Request): Promise<SignedIn> {
   return found;
 }
 
+/** Whether the account holds one of the roles, granted or included by another (an admin is a moderator). */
 export function hasRole(user: Pick<SessionUser, "roles"> | null, role: Role | readonly Role[]): boolean {
   if (!user) return false;
   const wanted = typeof role === "string" ? [role] : role;
-  return wanted.some((r) => user.roles.includes(r));
+  return wanted.some((r) => holdsRole(user.roles, r));
 }
 
 /** The body of a 403 page; the root error boundary shows `message`. */

@@ -19,6 +19,32 @@ export const ROLE_DESCRIPTIONS: Record<Role, string> = {
   admin: "Roles, fees and marketplace settings.",
 };
 
+// What each role includes besides itself (README, "Roles"): an admin can do whatever a moderator can,
+// a workshop whatever a private seller can, and every account is a buyer. Nothing includes admin, and
+// working the desk does not make anyone a seller. Accounts store only the roles granted; checks go
+// through holdsRole so a granted role brings the ones it includes.
+export const ROLE_INCLUDES: Record<Role, readonly Role[]> = {
+  buyer: [],
+  seller: ["buyer"],
+  workshop: ["seller"],
+  moderator: ["buyer"],
+  admin: ["moderator"],
+};
+
+/** Whether an account granted `granted` holds `role`, directly or through a role that includes it. */
+export function holdsRole(granted: readonly Role[], role: Role): boolean {
+  const seen = new Set<Role>();
+  const queue: Role[] = ["buyer", ...granted];
+  while (queue.length) {
+    const r = queue.pop()!;
+    if (r === role) return true;
+    if (seen.has(r) || !isRole(r)) continue;
+    seen.add(r);
+    queue.push(...ROLE_INCLUDES[r]);
+  }
+  return false;
+}
+
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);
 }

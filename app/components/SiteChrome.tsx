@@ -1,5 +1,5 @@
 import { Form, Link, NavLink } from "react-router";
-import type { Role } from "~/auth/roles";
+import { holdsRole, type Role } from "~/auth/roles";
 import { buttonClass } from "./Button";
 import { Wordmark } from "./Wordmark";
 import { cx } from "./cx";
@@ -19,8 +19,8 @@ interface NavItem {
 const NAV: NavItem[] = [
   { to: "/market", label: "Market", show: () => true },
   { to: "/sell", label: "Sell", show: (u) => !!u },
-  { to: "/desk", label: "Review desk", show: (u) => !!u?.roles.includes("moderator") },
-  { to: "/admin/users", label: "Admin", show: (u) => !!u?.roles.includes("admin") },
+  { to: "/desk", label: "Review desk", show: (u) => !!u && holdsRole(u.roles, "moderator") },
+  { to: "/admin/users", label: "Admin", show: (u) => !!u && holdsRole(u.roles, "admin") },
 ];
 
 const navLink = ({ isActive }: { isActive: boolean }) =>

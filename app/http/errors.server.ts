@@ -37,6 +37,7 @@ export const ERROR_CODES = {
   damaged_file: 422,
   truncated_file: 422,
   too_many_pixels: 422,
+  too_large_to_process: 422,
   too_many_photos: 422,
   listing_closed: 422,
   bad_order: 422,

@@ -127,8 +127,11 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
   return { fields, files: await Promise.all(handled) };
 }
 
-/** The first `want` bytes of a stream (fewer if it ends), and an iterator over everything, from the start. */
-export async function splitHead(stream: Readable, want: number): Promise<{ head: Buffer; all: AsyncIterable<Uint8Array> }> {
+/**
+ * The first `want` bytes of a stream (fewer if it ends), whether that was all of it, and an iterator
+ * over everything, from the start.
+ */
+export async function splitHead(stream: Readable, want: number): Promise<{ head: Buffer; complete: boolean; all: AsyncIterable<Uint8Array> }> {
   const it = stream[Symbol.asyncIterator]() as AsyncIterator<Buffer>;
   const first: Buffer[] = [];
   let got = 0;
@@ -147,5 +150,6 @@ export async function splitHead(stream: Readable, want: number): Promise<{ head:
     if (ended) return;
     for (let next = await it.next(); !next.done; next = await it.next()) yield next.value;
   })();
-  return { head: Buffer.concat(first).subarray(0, want), all };
+  const joined = Buffer.concat(first);
+  return { head: joined.subarray(0, want), complete: ended && joined.length <= want, all };
 }

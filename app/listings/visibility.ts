@@ -1,5 +1,5 @@
 import type { ListingStatus } from "@shared/catalogue";
-import type { Role } from "~/auth/roles";
+import { holdsRole, type Role } from "~/auth/roles";
 
 // Who may open a listing's page. Only live and sold units are public; a held unit is for its seller
 // and the review desk; a draft is the seller's alone. Withdrawn and removed units stay readable by
@@ -24,7 +24,7 @@ const AUDIENCES: Record<ListingStatus, readonly ListingAudience[]> = {
 };
 
 export function isModerator(viewer: Viewer | null): boolean {
-  return !!viewer && viewer.roles.includes("moderator");
+  return !!viewer && holdsRole(viewer.roles, "moderator"); // admins included
 }
 
 /** Whether `viewer` (null: anonymous) may see a listing in `status` belonging to `sellerId`. */

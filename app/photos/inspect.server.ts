@@ -1,11 +1,13 @@
 import { fileTypeFromBuffer } from "file-type";
 import { PHOTO_LIMITS, formatBytes } from "./limits";
 import { PhotoRefusal } from "./refusal.server";
-import { readJpegStructure } from "./jpeg-structure.server";
+import { readJpegStructure, type JpegStructure } from "./jpeg-structure.server";
 import { readPngStructure } from "./png-structure.server";
+import { budgetProblem, type PhotoHeader } from "./budget.server";
 
 // The checks an upload passes before anything is stored: size, the real type read from the bytes
-// (never the name or the browser's claim), the pixel count from the header, and a complete file.
+// (never the name or the browser's claim), the pixel count from the header, a complete file, and
+// what decoding it would cost (budget.server.ts); the worker repeats the last before decoding.
 
 export type InspectedPhoto = {
   contentType: "image/jpeg" | "image/png";
@@ -39,7 +41,13 @@ export async function inspectPhoto(bytes: Uint8Array, fileName = "This file", op
     throw new PhotoRefusal("unsupported_type", `${name} cannot be used${named}. Upload JPEG or PNG photos only.`);
   }
 
-  const structure = kind.type === "image/jpeg" ? readJpegStructure(bytes) : readPngStructure(bytes);
+  // Of a partial upload the amount of image data is not known yet: the job checks it on the whole file.
+  const jpegOf = (s: JpegStructure): JpegStructure => (options.partial ? { ...s, scanBytes: Number.POSITIVE_INFINITY } : s);
+  const header: PhotoHeader =
+    kind.type === "image/jpeg"
+      ? { type: kind.type, byteSize: bytes.byteLength, jpeg: jpegOf(readJpegStructure(bytes)) }
+      : { type: kind.type, byteSize: bytes.byteLength, png: readPngStructure(bytes) };
+  const structure = header.type === "image/jpeg" ? header.jpeg : header.png;
   const { width, height } = structure;
   if (width && height && width * height > PHOTO_LIMITS.maxMegapixels * 1_000_000) {
     throw new PhotoRefusal(
@@ -59,6 +67,8 @@ export async function inspectPhoto(bytes: Uint8Array, fileName = "This file", op
           : `it is damaged: ${detail}. Export it again and upload the new file.`;
     throw new PhotoRefusal(code, `${name} is a ${label} photo, but ${advice}`);
   }
+  const costly = budgetProblem(header, name);
+  if (costly) throw new PhotoRefusal(costly.code, costly.message);
   return {
     contentType: kind.type,
     ext: kind.type === "image/jpeg" ? "jpg" : "png",

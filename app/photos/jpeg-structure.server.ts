@@ -3,7 +3,17 @@
 // in transfer is caught before a job spends time on it.
 
 export type StructureProblem = { code: "damaged_file" | "truncated_file" | "unsupported_type"; detail: string };
-export type JpegStructure = { width?: number; height?: number; problem?: StructureProblem };
+export type JpegStructure = {
+  width?: number;
+  height?: number;
+  /** Progressive frames need every coefficient kept until the last scan. */
+  progressive?: boolean;
+  /** Sampling factors per component, from the frame header. */
+  sampling?: { h: number; v: number }[];
+  /** Bytes of entropy-coded data over all scans. */
+  scanBytes?: number;
+  problem?: StructureProblem;
+};
 
 const SOI = 0xd8;
 const EOI = 0xd9;
@@ -63,7 +73,10 @@ export function readJpegStructure(bytes: Uint8Array): JpegStructure {
       if (length < 8) return fail({ code: "damaged_file", detail: "the frame header is too short" });
       out.height = b.readUInt16BE(pos + 3);
       out.width = b.readUInt16BE(pos + 5);
+      const precision = b[pos + 2];
       const components = b[pos + 7];
+      out.progressive = marker === 0xc2;
+      out.sampling = Array.from({ length: components }, (_, i) => ({ h: b[pos + 9 + i * 3] >> 4, v: b[pos + 9 + i * 3] & 15 }));
       if (!READABLE_FRAMES.has(marker)) {
         return fail({
           code: "unsupported_type",
@@ -76,6 +89,12 @@ export function readJpegStructure(bytes: Uint8Array): JpegStructure {
       if (![1, 3, 4].includes(components)) {
         return fail({ code: "damaged_file", detail: `its frame header names ${components} colour components` });
       }
+      if (precision !== 8) {
+        return fail({ code: "unsupported_type", detail: `it has ${precision}-bit samples, which we cannot read; export it again as a standard 8-bit JPEG` });
+      }
+      if (length < 8 + components * 3 || out.sampling.some((s) => s.h < 1 || s.h > 4 || s.v < 1 || s.v > 4)) {
+        return fail({ code: "damaged_file", detail: "its frame header names impossible sampling factors" });
+      }
     }
 
     pos += length;
@@ -83,6 +102,7 @@ export function readJpegStructure(bytes: Uint8Array): JpegStructure {
 
     if (out.width === undefined) return fail({ code: "damaged_file", detail: "image data comes before the frame header" });
     scans += 1;
+    const scanStart = pos;
     // Entropy-coded data: 0xFF is followed by 0x00 (a stuffed byte) or a restart marker inside a scan;
     // any other marker ends the scan.
     for (;;) {
@@ -96,5 +116,6 @@ export function readJpegStructure(bytes: Uint8Array): JpegStructure {
       pos = ff;
       break;
     }
+    out.scanBytes = (out.scanBytes ?? 0) + (pos - scanStart);
   }
 }

@@ -10,9 +10,12 @@ export function hasTransparency(src: Bitmap): boolean {
   return false;
 }
 
-/** The image over a white ground, fully opaque (JPEG has no alpha; the encoder would use black). */
-export function flattenOnWhite(src: Bitmap): Bitmap {
-  const d = Buffer.from(src.data);
+/**
+ * The image over a white ground, fully opaque (JPEG has no alpha; the encoder would use black).
+ * In place: a photo-sized copy is memory the worker does not have to spare.
+ */
+export function flattenInPlace(src: Bitmap): Bitmap {
+  const d = src.data;
   for (let i = 0; i < d.length; i += 4) {
     const a = d[i + 3];
     if (a === 255) continue;
@@ -22,7 +25,7 @@ export function flattenOnWhite(src: Bitmap): Bitmap {
     d[i + 2] = (d[i + 2] * a + 255 * k + 127) / 255;
     d[i + 3] = 255;
   }
-  return { data: d, width: src.width, height: src.height };
+  return src;
 }
 
 /**

@@ -5,7 +5,15 @@ import { crc32 } from "node:zlib";
 // any decoding.
 
 export type StructureProblem = { code: "damaged_file" | "truncated_file" | "unsupported_type"; detail: string };
-export type PngStructure = { width?: number; height?: number; problem?: StructureProblem };
+export type PngStructure = {
+  width?: number;
+  height?: number;
+  /** Bits per sample, colour type and interlacing from IHDR: what decoding will cost. */
+  depth?: number;
+  colour?: number;
+  interlaced?: boolean;
+  problem?: StructureProblem;
+};
 
 const SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
 
@@ -48,6 +56,9 @@ export function readPngStructure(bytes: Uint8Array): PngStructure {
       const colour = b[pos + 17];
       out.width = width;
       out.height = height;
+      out.depth = depth;
+      out.colour = colour;
+      out.interlaced = b[pos + 20] === 1;
       if (width === 0 || height === 0 || width > 0x7fffffff || height > 0x7fffffff) {
         return fail("damaged_file", "its header gives an impossible width or height");
       }

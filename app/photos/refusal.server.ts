@@ -13,6 +13,7 @@ export type RefusalCode =
   | "damaged_file"
   | "truncated_file"
   | "too_many_pixels"
+  | "too_large_to_process"
   | "too_many_photos"
   | "listing_closed"
   | "bad_order"

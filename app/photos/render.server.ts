@@ -1,10 +1,22 @@
 import { Jimp } from "jimp";
 import { PHOTO_LIMITS, PHOTO_SIZES, PHOTO_SIZE_NAMES, type PhotoSize } from "./limits";
-import { fitWithin, flattenOnWhite, hasTransparency, shrink, type Bitmap } from "./pixels.server";
+import { fitWithin, flattenInPlace, hasTransparency, shrink, type Bitmap } from "./pixels.server";
+import { readJpegStructure } from "./jpeg-structure.server";
+import { readPngStructure } from "./png-structure.server";
+import { budgetProblem, PHOTO_MEMORY_BUDGET, type PhotoHeader } from "./budget.server";
+import { decodePng, PngDataProblem } from "./png-decode.server";
+import { decodeSequentialJpeg, ProgressiveJpeg } from "./jpeg-decode.server";
+import { JpegDataProblem } from "./jpeg-huffman.server";
+import { exifOrientation } from "./exif-orientation.server";
+import { encodeJpeg } from "./jpeg-encode.server";
+import { encodePng } from "./png-encode.server";
 
 // Decodes an upload that passed the checks, turns it upright, and re-encodes everything from the
 // decoded pixels: no byte of the upload's metadata (EXIF, GPS, comments, text chunks) can survive,
 // because only pixels are carried across.
+// Memory is the point of the order here: the header is checked against the budget before anything
+// is decoded; PNG and sequential JPEG are decoded by our own codecs (one RGBA copy of the image,
+// bounded inflation); only progressive JPEGs go through jimp's decoder, and only when they fit.
 
 export type RenderedImage = { body: Buffer; contentType: "image/jpeg" | "image/png"; width: number; height: number };
 export type RenderedPhoto = {
@@ -20,40 +32,66 @@ const QUALITY: Record<PhotoSize | "original", number> = { thumb: 80, listing: 84
 /** Thrown when the pixels cannot be decoded; the message is meant for the seller. */
 export class UnreadableImage extends Error {}
 
-type Image = Awaited<ReturnType<typeof Jimp.fromBuffer>>;
+const DAMAGED = "The photo could not be decoded";
 
 export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "image/png"): Promise<RenderedPhoto> {
-  let image: Image;
-  try {
-    // jimp applies the EXIF orientation while decoding a JPEG.
-    image = await Jimp.fromBuffer(input, {
-      "image/jpeg": { maxResolutionInMP: PHOTO_LIMITS.maxMegapixels, maxMemoryUsageInMB: 1024 },
-    });
-  } catch (error) {
-    console.warn("[photos] decode failed:", error);
-    throw new UnreadableImage("The image data could not be decoded; it may be damaged. Export the photo again and upload the new file.");
-  }
-  if (image.mime !== contentType) {
-    throw new UnreadableImage("The file changed type between upload and processing; upload it again.");
-  }
-  const encode = encoders(image);
-  const full: Bitmap = image.bitmap;
-
+  const full = await decodeWithinBudget(input, contentType);
   const original: RenderedImage =
     contentType === "image/png"
-      ? { body: await encode.png(full), contentType, width: full.width, height: full.height }
-      : { body: await encode.jpeg(full, QUALITY.original), contentType, width: full.width, height: full.height };
+      ? { body: await encodePng(full), contentType, width: full.width, height: full.height }
+      : { body: encodeJpeg(full, { quality: QUALITY.original }), contentType, width: full.width, height: full.height };
 
+  // The original is written; the sizes are JPEG, so transparency goes onto white in place.
+  if (hasTransparency(full)) flattenInPlace(full);
   // Largest to smallest, each step shrinking the previous one.
   const sizes = {} as Record<PhotoSize, RenderedImage>;
-  let source = hasTransparency(full) ? flattenOnWhite(full) : full;
+  let source: Bitmap = full;
   for (const size of [...PHOTO_SIZE_NAMES].sort((a, b) => PHOTO_SIZES[b] - PHOTO_SIZES[a])) {
     const target = fitWithin(source.width, source.height, PHOTO_SIZES[size]);
     const step = shrink(source, target.width, target.height);
-    sizes[size] = { body: await encode.jpeg(step, QUALITY[size]), contentType: "image/jpeg", ...target };
+    sizes[size] = { body: encodeJpeg(step, { quality: QUALITY[size] }), contentType: "image/jpeg", ...target };
     source = step;
   }
   return { original, sizes, phash: perceptualHash(source) };
+}
+
+/** The upright RGBA pixels, or UnreadableImage, without decoding anything the budget does not allow. */
+async function decodeWithinBudget(input: Buffer, contentType: "image/jpeg" | "image/png"): Promise<Bitmap> {
+  const header: PhotoHeader =
+    contentType === "image/png"
+      ? { type: contentType, byteSize: input.length, png: readPngStructure(input) }
+      : { type: contentType, byteSize: input.length, jpeg: readJpegStructure(input) };
+  const structure = header.type === "image/png" ? header.png : header.jpeg;
+  if (structure.problem?.detail.startsWith("it does not start like")) {
+    throw new UnreadableImage("The file changed type between upload and processing; upload it again.");
+  }
+  if (structure.problem) throw new UnreadableImage(`${DAMAGED}: ${structure.problem.detail}. Export the photo again and upload the new file.`);
+  const { width = 0, height = 0 } = structure;
+  if (width * height > PHOTO_LIMITS.maxMegapixels * 1_000_000) {
+    throw new UnreadableImage(`The photo has ${width} × ${height} pixels, more than the ${PHOTO_LIMITS.maxMegapixels} megapixels a photo may have.`);
+  }
+  const costly = budgetProblem(header, "This file");
+  if (costly) throw new UnreadableImage(costly.message);
+
+  try {
+    if (header.type === "image/png") return await decodePng(input);
+    try {
+      return decodeSequentialJpeg(input, exifOrientation(input));
+    } catch (error) {
+      if (!(error instanceof ProgressiveJpeg)) throw error;
+    }
+    // jimp applies the EXIF orientation while decoding.
+    const image = await Jimp.fromBuffer(input, {
+      "image/jpeg": { maxResolutionInMP: PHOTO_LIMITS.maxMegapixels, maxMemoryUsageInMB: PHOTO_MEMORY_BUDGET / 2 ** 20 },
+    });
+    return image.bitmap;
+  } catch (error) {
+    if (error instanceof PngDataProblem || error instanceof JpegDataProblem) {
+      throw new UnreadableImage(`${DAMAGED}: ${error.message}. Export the photo again and upload the new file.`);
+    }
+    console.warn("[photos] decode failed:", error);
+    throw new UnreadableImage(`${DAMAGED}; it may be damaged. Export the photo again and upload the new file.`);
+  }
 }
 
 // jimp's DCT hash squeezes the picture to 32 × 32 first; doing that step here with the area average
@@ -62,25 +100,6 @@ function perceptualHash(smallest: Bitmap): string {
   const side = Math.min(32, smallest.width, smallest.height);
   const squeezed = shrink(smallest, side, side);
   return bitsToHex(Jimp.fromBitmap(squeezed).pHash());
-}
-
-// The codecs jimp registered, called on a bitmap directly: jimp's own JPEG export first composites
-// the image onto a background pixel by pixel, which costs as much as the encode itself.
-function encoders(image: Image) {
-  const find = (mime: string) => {
-    const format = image.formats.find((f) => f.mime === mime);
-    if (!format?.encode) throw new Error(`jimp has no ${mime} encoder`);
-    return format.encode as (bitmap: Bitmap, options?: Record<string, unknown>) => Buffer | Promise<Buffer>;
-  };
-  const jpeg = find("image/jpeg");
-  const png = find("image/png");
-  // Only pixels go in: the JPEG codec hands the decoded EXIF block and comments back on the bitmap
-  // object and would write them out again.
-  const bare = ({ data, width, height }: Bitmap): Bitmap => ({ data, width, height });
-  return {
-    jpeg: async (bitmap: Bitmap, quality: number) => Buffer.from(await jpeg(bare(bitmap), { quality })),
-    png: async (bitmap: Bitmap) => Buffer.from(await png(bare(bitmap))),
-  };
 }
 
 function bitsToHex(bits: string): string {

@@ -12,9 +12,9 @@ import { inspectPhoto, type InspectedPhoto } from "./inspect.server";
 import { incomingKey, ownedListing, photoView } from "./access.server";
 
 // One photo per request (so the browser can show a progress bar per file). The upload streams to
-// storage while its first bytes are checked (the real type, the pixel count from the header); the
-// row and the job are then made together, or the stored upload is removed again. The whole file's
-// structure is walked by the photo job before it decodes anything.
+// storage while its first bytes are checked (the real type, the pixel count and the memory its
+// processing needs, from the header); the row and the job are then made together, or the stored
+// upload is removed again. The photo job walks the whole file before it decodes anything.
 
 /** Room for the multipart boundaries and headers around one file. */
 const FORM_OVERHEAD = 64 * 1024;
@@ -67,8 +67,9 @@ async function assertRoom(listingId: string): Promise<void> {
 
 /** The header checked as it arrives, then the whole file streamed to where it waits for the job. */
 async function receive(part: FilePart, written: string[]): Promise<Received> {
-  const { head, all } = await splitHead(part.stream, HEADER_BYTES);
-  const checked = await inspectPhoto(head, part.filename, { partial: true });
+  const { head, complete, all } = await splitHead(part.stream, HEADER_BYTES);
+  // A small file is here whole and gets every check at once; a larger one gets the rest in the job.
+  const checked = await inspectPhoto(head, part.filename, { partial: !complete });
   const id = randomUUID();
   const key = incomingKey(id);
   written.push(key);

@@ -1,8 +1,10 @@
 import { checkHealth } from "~/services/health.server";
 
-// GET /healthz: 200 when the database, object storage, mail and payments all answer, else 503.
-// Public by design (load balancers and `npm start` poll it); it reveals no data, only reachability.
+// GET /healthz/ready (and GET /healthz, which scripts and older balancers poll): 200 when the
+// database, object storage, mail and payments all answered their last check, else 503. Checks are
+// kept for a few seconds, so polling this often costs the services nothing more.
+// Public by design: it reveals no data, only reachability.
 export async function loader() {
   const health = await checkHealth();
-  return Response.json(health, { status: health.ok ? 200 : 503, headers: { "cache-control": "no-store" } });
+  return Response.json(health, { status: health.ok ? 200 : 503, headers: { "Cache-Control": "no-store" } });
 }

@@ -146,7 +146,7 @@ export const MATRIX: Record<string, Entry> = {
   // Authenticated by its signature, not a session: unsigned is 400 for everyone.
   "/api/v1/webhooks/stripe": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } }] },
   "/healthz": { cases: [{ get: everyone("ok") }] },
-  // Liveness and readiness for load balancers (being added alongside this table).
-  "/healthz/live": { upcoming: true, cases: [{ get: everyone("ok") }] },
-  "/healthz/ready": { upcoming: true, cases: [{ get: everyone("ok") }] },
+  // Liveness and readiness for load balancers.
+  "/healthz/live": { cases: [{ get: everyone("ok") }] },
+  "/healthz/ready": { cases: [{ get: everyone("ok") }] },
 };

@@ -9,6 +9,8 @@ import {
   GPS_MARK,
   bandColour,
   bilevelPng,
+  interlacedPngBomb,
+  plainPng,
   jpegHeaderMarkers,
   mp3Audio,
   oversizeJpeg,
@@ -49,6 +51,7 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
   const cases: [string, () => Promise<Uint8Array> | Uint8Array, string, number, string, RegExp][] = [
     ["a text file renamed .jpg", textFile, "front.jpg", 415, "unsupported_type", /is really a text file/],
     ["a 60-megapixel PNG", () => bilevelPng(10_000, 6_000), "scan.png", 422, "too_many_pixels", /60\.0 megapixels/],
+    ["a truncated JPEG (small enough to be checked whole as it arrives)", async () => (await twoToneJpeg(400, 300)).subarray(0, 4000), "cut.jpg", 422, "truncated_file", /cut short/],
     ["a 30 MB file", () => oversizeJpeg(30 * 1024 * 1024), "huge.jpg", 413, "file_too_large", /at most 20 MB/],
     ["an empty file", () => new Uint8Array(0), "empty.jpg", 422, "empty_file", /is empty/],
     ["an SVG with a script", svgWithScript, "badge.png", 415, "unsupported_type", /an SVG drawing with a script in it/],
@@ -71,9 +74,13 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
     });
   }
 
-  it("a truncated JPEG passes the header check as it streams in; the job walks the whole file and marks it failed", async () => {
+  it("a larger truncated JPEG passes the header check as it streams in; the job walks the whole file and marks it failed", async () => {
     const draft = await makeDraft(seller.user.id);
-    const res = await upload(draft.id, (await twoToneJpeg(400, 300)).subarray(0, 4000), "cut.jpg", seller.cookie);
+    // Comment segments ahead of the image push its end past the first 256 KB the upload reads.
+    const jpeg = await twoToneJpeg(400, 300);
+    const comment = Buffer.concat([Buffer.from([0xff, 0xfe, 0xff, 0xff]), Buffer.alloc(0xfffd, 0x20)]);
+    const padded = Buffer.concat([jpeg.subarray(0, 2), ...Array.from({ length: 5 }, () => comment), jpeg.subarray(2)]);
+    const res = await upload(draft.id, padded.subarray(0, padded.length - 500), "cut.jpg", seller.cookie);
     expect(res.status).toBe(202);
     const { photo } = await res.json();
     expect(await processPhoto({ photoId: photo.id })).toBe("failed");
@@ -202,6 +209,26 @@ describe("a good photo", { timeout: 120_000 }, () => {
     expect(await photoObjectKeys()).toEqual(before);
     const listed = await (await listPhotos(listing.id, seller.cookie)).json();
     expect(listed.photos[1]).toMatchObject({ status: "failed", error: row!.error, urls: null, isCover: false });
+  });
+
+  it("that is an image bomb (an interlaced PNG whose data inflates to 1 GiB) is marked failed, saying why, and leaves no objects", async () => {
+    const res = await upload(listing.id, await plainPng(64, 64), "bomb.png", seller.cookie);
+    expect(res.status).toBe(202);
+    const { photo } = await res.json();
+    // The job meets the bomb as it would if a check at upload had been missed.
+    await putObject(incomingKey(photo.id), interlacedPngBomb(), { contentType: "image/png" });
+    const before = await photoObjectKeys();
+
+    expect(await processPhoto({ photoId: photo.id })).toBe("failed");
+
+    const row = await ListingPhoto.findByPk(photo.id);
+    expect(row).toMatchObject({ status: "failed", thumbKey: null, listingKey: null, zoomKey: null });
+    expect(row!.error).toBe(
+      "The photo could not be decoded: its image data unpacks to more than the 64 × 64 pixels its header gives. " +
+        "Export the photo again and upload the new file.",
+    );
+    before.delete(incomingKey(photo.id));
+    expect(await photoObjectKeys()).toEqual(before);
   });
 
   it("a job for a photo deleted while queued only removes the waiting upload", async () => {

@@ -207,3 +207,70 @@ export async function sceneJpeg(seed: number, width: number, height: number, qua
   }
   return image.getBuffer("image/jpeg", { quality });
 }
+
+/**
+ * A zlib stream that inflates to `n` zero bytes, made by hand rather than by deflating them: one
+ * fixed-Huffman block (RFC 1951, 3.2.6) of literal zeros and copies of 258 bytes at distance 1. At
+ * 13 bits per 258 bytes, a gigabyte of zeros is 6.5 MB and takes milliseconds to make.
+ */
+export function zerosZlib(n: number): Buffer {
+  const copies = n > 258 ? Math.floor((n - 1) / 258) : 0;
+  const literals = n - copies * 258;
+  const out = Buffer.alloc(Math.ceil((3 + literals * 8 + copies * 13 + 7) / 8) + 8);
+  out[0] = 0x78;
+  out[1] = 0x01;
+  let bitPos = 16;
+  const bits = (value: number, count: number) => {
+    for (let i = 0; i < count; i++, bitPos++) if ((value >> i) & 1) out[bitPos >> 3] |= 1 << (bitPos & 7);
+  };
+  const code = (value: number, count: number) => {
+    for (let i = count - 1; i >= 0; i--, bitPos++) if ((value >> i) & 1) out[bitPos >> 3] |= 1 << (bitPos & 7);
+  };
+  bits(1, 1); // last block
+  bits(1, 2); // fixed Huffman codes
+  for (let i = 0; i < literals; i++) code(0x30, 8); // literal 0
+  for (let i = 0; i < copies; i++) {
+    code(0xc5, 8); // length 258 (code 285)
+    code(0, 5); // distance 1
+  }
+  code(0, 7); // end of block
+  const end = (bitPos + 7) >> 3;
+  // Adler-32 of n zeros: A stays 1, B adds 1 per byte.
+  out.writeUInt32BE((n % 65521) * 65536 + 1, end);
+  return out.subarray(0, end + 4);
+}
+
+/** A PNG around image data that is already compressed (the chunks are valid; the data may lie). */
+export function pngWithData(
+  { width, height, depth, colour, interlaced = false }: { width: number; height: number; depth: number; colour: number; interlaced?: boolean },
+  zlibData: Buffer,
+): Buffer {
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr[8] = depth;
+  ihdr[9] = colour;
+  ihdr[12] = interlaced ? 1 : 0;
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    pngChunk("IHDR", ihdr),
+    pngChunk("IDAT", zlibData),
+    pngChunk("IEND", Buffer.alloc(0)),
+  ]);
+}
+
+/** An interlaced 64 × 64 RGBA PNG whose image data inflates to 1 GiB (the image needs 21 KB). */
+export const interlacedPngBomb = () => pngWithData({ width: 64, height: 64, depth: 8, colour: 6, interlaced: true }, zerosZlib(2 ** 30));
+
+/** A black 16-bit RGB PNG of `width` × `height`: rows of zeros, each with filter byte 0. */
+export const blackRgb16Png = (width: number, height: number) =>
+  pngWithData({ width, height, depth: 16, colour: 2 }, zerosZlib(height * (1 + width * 6)));
+
+/** A small real JPEG whose frame header claims `width` × `height` (its data covers 16 × 16). */
+export async function jpegClaiming(width: number, height: number): Promise<Buffer> {
+  const jpeg = Buffer.from(await twoToneJpeg(16, 16, 50));
+  const sof = jpeg.indexOf(Buffer.from([0xff, 0xc0]));
+  jpeg.writeUInt16BE(height, sof + 5);
+  jpeg.writeUInt16BE(width, sof + 7);
+  return jpeg;
+}

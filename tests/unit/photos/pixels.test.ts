@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { fitWithin, flattenOnWhite, shrink } from "~/photos/pixels.server";
+import { fitWithin, flattenInPlace, shrink } from "~/photos/pixels.server";
 
 const bitmap = (width: number, height: number, pixels: number[][]) => ({
   width,
@@ -29,6 +29,7 @@ describe("pixel helpers", () => {
 
   it("puts transparent pixels on white", () => {
     const src = bitmap(2, 1, [[0, 0, 0, 0], [0, 0, 0, 128]]);
-    expect([...flattenOnWhite(src).data]).toEqual([255, 255, 255, 255, 127, 127, 127, 255]);
+    expect([...flattenInPlace(src).data]).toEqual([255, 255, 255, 255, 127, 127, 127, 255]);
+    expect([...src.data]).toEqual([255, 255, 255, 255, 127, 127, 127, 255]); // no copy
   });
 });
