@@ -1,6 +1,8 @@
-// The background analysis of one capture (queue "capture-analyze"). A file the analysis refuses ends
-// the capture as failed, with the reason, and its stored file is removed; anything else (storage or
-// database trouble) is thrown so pg-boss retries the job.
+// The background analysis of one capture (queue "capture-analyze"), in the worker: the web process
+// only streamed the file to storage and read its header. Here the whole file is read and checked
+// (length, clipping, silence, a CSV's rows) and analysed. A file refused on the way ends the capture
+// as failed with the same code and sentence the API would give, and its stored file is removed;
+// anything else (storage or database trouble) is thrown so pg-boss retries the job.
 import { captureConditionsSchema } from "@shared/bench/analysis";
 import { Capture } from "~/models/capture.server";
 import { deleteObject, getObjectBuffer } from "~/services/storage.server";
@@ -20,7 +22,7 @@ export async function analyseCaptureJob(data: CaptureJobData): Promise<{ status:
   if (!bytes) {
     await capture.update({
       status: "failed",
-      errorCode: "FILE_MISSING",
+      errorCode: "file_lost",
       errorMessage: "The stored capture file could not be found.",
       finishedAt: new Date(),
     });
@@ -32,6 +34,7 @@ export async function analyseCaptureJob(data: CaptureJobData): Promise<{ status:
     const result = analyseCapture(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength), capture.fileName, conditions, capture.id);
     await capture.update({
       status: "done",
+      format: result.format as Record<string, unknown>,
       analysis: result.analysis as unknown as Record<string, unknown>,
       readings: result.readings,
       sweep: result.kind === "sweep" ? result.sweep : null,

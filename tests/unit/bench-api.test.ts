@@ -46,7 +46,7 @@ describe("POST /api/v1/bench-sheets/check", () => {
     const put = await action({ request: new Request(URL_, { method: "PUT", body: "{}" }), params: {}, context: {} } as unknown as Args);
     expect(put.status).toBe(405);
     expect(put.headers.get("Allow")).toBe("POST");
-    const get = loader({ request: new Request(URL_), params: {}, context: {} } as unknown as Parameters<typeof loader>[0]);
+    const get = await loader({ request: new Request(URL_), params: {}, context: {} } as unknown as Parameters<typeof loader>[0]);
     expect(get.status).toBe(405);
   });
 

@@ -2,6 +2,7 @@ import { data, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/condition";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { BODY_LIMITS, readPageForm } from "~/http/body.server";
 import { saveCondition } from "~/listings/drafts.server";
 import { stepFailure } from "~/listings/http.server";
 import { ConditionForm } from "~/sell/ConditionForm";
@@ -11,7 +12,7 @@ import { readConditionForm, type ConditionValues } from "@shared/listing-draft";
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request, { maxBytes: BODY_LIMITS.editorForm });
   const values = { cosmeticGrade: form.get("cosmeticGrade"), serviceState: form.get("serviceState"), conditionNote: String(form.get("conditionNote") ?? "") } as ConditionValues;
   const read = readConditionForm(form);
   if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined as string | undefined, values }, { status: 400 });
