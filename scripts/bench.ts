@@ -101,11 +101,24 @@ async function sheetFigures(): Promise<{ figures: Figure[]; note?: string }> {
   }
 }
 
+async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[]; failed?: boolean }> {
+  if (process.argv.includes("--no-server")) return { figures: [], notes: ["server figures left out (--no-server)"] };
+  try {
+    const mod = await import("./bench/edge");
+    return await mod.edgeFigures();
+  } catch (e) {
+    return { figures: [], notes: [`server figures could not be measured: ${(e as Error).message}`], failed: true };
+  }
+}
+
 const figures = await captureFigures();
 const sheet = await sheetFigures();
 figures.push(...sheet.figures);
 const notes = [sheet.note];
 figures.push(...(await (await import("./bench/photos")).photoFigures()));
+const edge = await edgeFigures();
+figures.push(...edge.figures);
+notes.push(...edge.notes);
 
 // The anonymous account forms' timing and health checks under load need a running app: `npm start`,
 // or BENCH_URL.
@@ -116,7 +129,7 @@ if (answers) figures.push(...(await (await import("./bench/account-timing")).acc
 if (answers) figures.push(...(await (await import("./bench/health")).healthFigures(benchUrl)));
 else notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);
 
-let missed = 0;
+let missed = edge.failed ? 1 : 0;
 for (const f of figures) {
   const over = f.limit !== undefined && !(f.value < f.limit);
   if (over) missed++;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { freeText, nameText } from "./text";
 
 // The catalogue's vocabulary, shared by the database checks, the forms and the pages. Values are the
 // stored codes; labels and seller descriptions are Loadline's own words (PRODUCT.md, "Words we use").
@@ -123,7 +124,7 @@ const zonePrices = z
   .refine((p) => Object.values(p).some((v) => v !== undefined), { message: "give a price for at least one zone" });
 
 export const ShippingOptionSchema = z.discriminatedUnion("method", [
-  z.object({ method: z.literal("collection"), note: z.string().trim().max(200).optional() }).strict(),
+  z.object({ method: z.literal("collection"), note: freeText("The collection note").trim().max(200).optional() }).strict(),
   z.object({ method: z.literal("parcel"), prices: zonePrices }).strict(),
   z.object({ method: z.literal("freight"), prices: zonePrices }).strict(),
 ]);
@@ -139,9 +140,9 @@ export const ShippingOptionsSchema = z
 /** Parts replaced in one restoration step ("C401, C402 — 2 × 2200 µF 63 V"). */
 export const RestorationPartSchema = z
   .object({
-    part: z.string().trim().min(1, "name the part").max(160),
+    part: nameText("The part").min(1, "name the part").max(160),
     quantity: z.number().int().min(1, "at least 1").max(999),
-    reference: z.string().trim().max(80).optional(),
+    reference: nameText("The reference").max(80).optional(),
   })
   .strict();
 export type RestorationPart = z.infer<typeof RestorationPartSchema>;
@@ -149,10 +150,10 @@ export type RestorationPart = z.infer<typeof RestorationPartSchema>;
 /** A reading noted in the restoration log: always a value with its unit and the conditions it was taken in. */
 export const RestorationReadingSchema = z
   .object({
-    quantity: z.string().trim().min(1).max(120),
+    quantity: nameText("The quantity").min(1).max(120),
     value: z.number().finite(),
-    unit: z.string().trim().min(1, "give the unit").max(16),
-    conditions: z.string().trim().min(1, "say how it was measured").max(200),
+    unit: nameText("The unit").min(1, "give the unit").max(16),
+    conditions: nameText("The conditions").min(1, "say how it was measured").max(200),
   })
   .strict();
 export type RestorationReading = z.infer<typeof RestorationReadingSchema>;

@@ -26,6 +26,7 @@ import {
   type Currency,
 } from "./listing-input";
 import { COUNTRY_CODES } from "./countries";
+import { freeText, nameText, type TextKind } from "./text";
 
 export const EDITOR_STEPS = [
   { id: "item", label: "Item" },
@@ -49,10 +50,8 @@ const checked = (form: FormLike, name: string) => {
   const v = form.get(name);
   return v === "on" || v === "true" || v === "1";
 };
-const optionalText = (max: number, label: string) =>
-  z
-    .string()
-    .trim()
+const optionalText = (max: number, label: string, kind: TextKind = "name") =>
+  (kind === "name" ? nameText(label) : freeText(label).trim())
     .max(max, `${label} may be at most ${max} characters.`)
     .transform((s) => (s === "" ? null : s))
     .nullable();
@@ -233,7 +232,7 @@ export function itemFormValues(v: Omit<Partial<ItemValues>, "currency" | "countr
 export const ConditionSchema = z.strictObject({
   cosmeticGrade: z.enum(COSMETIC_GRADES, "Choose the grade that fits best.").nullable(),
   serviceState: z.enum(SERVICE_STATES, "Choose the state that fits best.").nullable(),
-  conditionNote: optionalText(4000, "The note"),
+  conditionNote: optionalText(4000, "The note", "free"),
 });
 export type ConditionValues = z.output<typeof ConditionSchema>;
 export const ConditionPatchSchema = ConditionSchema.partial();

@@ -2,6 +2,7 @@
 // quantities, who did it, and readings before and after (each a value with its unit and how it was taken).
 import { z } from "zod";
 import { RestorationPartSchema, RestorationReadingSchema, type RestorationPart, type RestorationReading } from "./catalogue";
+import { freeText, nameText } from "./text";
 import { issuesToFields, type FieldErrors, type FormLike } from "./listing-draft";
 
 export const MAX_PARTS = 60;
@@ -16,11 +17,9 @@ export const RestorationEntrySchema = z.strictObject({
     .date("Give the date the work was done.")
     .refine((d) => d >= "1900-01-01", "Give a date after 1900.")
     .refine(isPastOrToday, "The date cannot be in the future."),
-  work: z.string().trim().min(1, "Say what was done.").max(4000, "Keep the description under 4000 characters."),
+  work: freeText("The description").trim().min(1, "Say what was done.").max(4000, "Keep the description under 4000 characters."),
   parts: z.array(RestorationPartSchema).max(MAX_PARTS, `At most ${MAX_PARTS} parts per entry.`),
-  technician: z
-    .string()
-    .trim()
+  technician: nameText("The technician")
     .max(120)
     .transform((s) => (s === "" ? null : s))
     .nullable(),

@@ -1,17 +1,33 @@
 import { data } from "react-router";
 import { env } from "~/env.server";
+import { refusal } from "~/http/errors.server";
 
-// Session cookies are SameSite=Lax, so another site's form cannot act as a signed-in user. It could
-// still post to the forms that *create* a session (sign-in, confirm, sign-out) and switch the
-// browser to an account of the attacker's choosing; browsers send Origin on every POST, so a
-// foreign one is refused. React Router makes a similar check before any action runs; this one keeps
-// the sign-in family safe whatever the server configuration, and also accepts APP_URL's origin.
-export function assertSameOrigin(request: Request): void {
-  if (request.method === "GET" || request.method === "HEAD") return;
+// One rule for every state-changing request, page form or API: it must come from Loadline's own
+// origin. Session cookies are SameSite=Lax, but "same site" includes another port or subdomain of the
+// same host, and a no-cors form POST from there carries the cookie. Browsers say where a request comes
+// from in Sec-Fetch-Site and Origin: anything but same-origin is refused. Requests with neither header
+// (curl, older clients) pass; they carry no victim's cookie by accident. APP_URL's origin counts as
+// ours too (behind a proxy the request URL may differ).
+
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/** Why the request counts as cross-origin, or null when it is allowed. */
+export function crossOriginReason(request: Request): string | null {
+  if (SAFE_METHODS.has(request.method.toUpperCase())) return null;
+  const site = request.headers.get("Sec-Fetch-Site");
+  if (site === "cross-site" || site === "same-site") return `the browser says it came from a ${site === "cross-site" ? "different" : "neighbouring"} site`;
   const origin = request.headers.get("Origin");
-  if (origin === null) return; // older clients and non-browser tools send none
-  const allowed = new Set([new URL(request.url).origin, new URL(env().appUrl).origin]);
-  if (!allowed.has(origin)) {
-    throw data({ message: "This form was sent from another site, so it was refused." }, { status: 403, statusText: "Forbidden" });
+  if (origin === null) return null;
+  const ours = new Set([new URL(request.url).origin, new URL(env().appUrl).origin]);
+  return ours.has(origin) ? null : `it came from ${origin === "null" ? "an opaque origin" : origin}`;
+}
+
+/** Refuses a cross-origin request: 403 `cross_origin` JSON under /api/, a 403 page elsewhere. */
+export function assertSameOrigin(request: Request): void {
+  const reason = crossOriginReason(request);
+  if (!reason) return;
+  if (new URL(request.url).pathname.startsWith("/api/")) {
+    throw refusal("cross_origin", `This request was refused because ${reason}; use Loadline's own pages or call the API without a browser.`);
   }
+  throw data({ message: "This form was sent from another site, so it was refused." }, { status: 403, statusText: "Forbidden" });
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { ROLES } from "~/auth/roles";
-import { idSchema } from "@shared/ids";
+import { nameText } from "@shared/text";
+import { idSchema, UUID_PATTERN } from "@shared/ids";
 
 // The account forms' rules. Isomorphic, but enforced on the server: every action parses with these.
 
@@ -18,9 +19,7 @@ const newPassword = z
   .refine((p) => new TextEncoder().encode(p).length <= 72, "Use at most 72 bytes (72 plain letters, fewer with accents or symbols).");
 
 export const SignUpForm = z.object({
-  displayName: z
-    .string({ error: "Enter your name." })
-    .trim()
+  displayName: nameText("Your name")
     .min(1, "Enter the name other people on Loadline will see.")
     .max(80, "Keep the name under 80 characters."),
   email,
@@ -42,12 +41,12 @@ export const ResetPasswordForm = z
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords are not the same." });
 
 export const RolesForm = z.object({
-  userId: z.uuid("Unknown account."),
+  userId: z.string().regex(UUID_PATTERN, "Unknown account."),
   roles: z.array(z.enum(ROLES, "Unknown role.")).default([]),
 });
 
 export const StatusForm = z.object({
-  userId: z.uuid("Unknown account."),
+  userId: z.string().regex(UUID_PATTERN, "Unknown account."),
   status: z.enum(["active", "suspended"], "Unknown status."),
 });
 

@@ -2,6 +2,7 @@ import { data, redirect } from "react-router";
 import { readSession } from "~/auth/session.server";
 import { signInPath } from "~/auth/redirect";
 import { holdsRole, normaliseRoles, ROLE_LABELS, type Role } from "~/auth/roles";
+import { apiError } from "~/http/errors.server";
 
 // THE path for authentication and authorisation: every loader, action and API route that needs a
 // signed-in account or a role goes through requireUser / requireRole here.
@@ -65,7 +66,7 @@ export async function requireUser(request: Request, options: { redirectTo?: stri
   const user = await getUser(request);
   if (user) return user;
   if (isApiRequest(request)) {
-    throw Response.json({ error: "unauthenticated", reason: "Sign in to use this." }, { status: 401 });
+    throw apiError("unauthenticated", "Sign in to use this.");
   }
   const url = new URL(request.url);
   throw redirect(signInPath(options.redirectTo ?? `${url.pathname}${url.search}`));
@@ -100,8 +101,7 @@ export async function requireRole(request: Request, role: Role | readonly Role[]
   const wanted = typeof role === "string" ? [role] : [...role];
   const names = wanted.map((r) => ROLE_LABELS[r].toLowerCase() + "s");
   if (isApiRequest(request)) {
-    const reason = `This needs the ${wanted.join(" or ")} role.`;
-    throw Response.json({ error: "forbidden", reason, roles: wanted }, { status: 403 });
+    throw apiError("forbidden", `This needs the ${wanted.join(" or ")} role.`);
   }
   const message = `This page is for ${names.join(" and ")} only. Your account does not have that role.`;
   throw data<ForbiddenData>({ message, roles: wanted }, { status: 403, statusText: "Forbidden" });

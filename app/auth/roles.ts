@@ -16,7 +16,7 @@ export const ROLE_DESCRIPTIONS: Record<Role, string> = {
   seller: "Lists a few units of their own.",
   workshop: "A restoration business whose bench sheets the market relies on.",
   moderator: "Works the review desk.",
-  admin: "Roles, fees and marketplace settings.",
+  admin: "Roles, fees and marketplace settings; includes everything a moderator may do.",
 };
 
 // What each role includes besides itself (README, "Roles"): an admin can do whatever a moderator can,

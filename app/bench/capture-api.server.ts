@@ -1,104 +1,97 @@
-// The capture API: accept an upload (refuse what cannot be measured before anything is stored),
-// store file + row + job as one unit, and report a capture to its owner.
+// The capture API: stream an upload to storage while reading its first bytes, refuse what the header
+// already rules out, store row + job as one unit (removing the file if that fails), and report a
+// capture to its owner. The file itself is read, checked and analysed by the worker's job, never here.
 import { sequelize } from "~/db.server";
 import { Capture } from "~/models/capture.server";
+import { findOwn } from "~/auth/ownership.server";
+import { sizeText } from "~/http/limited-stream.server";
+import { readMultipart, splitHead, type FilePart } from "~/http/multipart.server";
+import { refusal, type HttpError } from "~/http/errors.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
-import { deleteObject, putObject, randomKey } from "~/services/storage.server";
-import { CAPTURE_LIMITS, CaptureError, checkSize, identifyCapture, inferKind, preflightCapture, type CaptureFormat } from "./captures.server";
-import { readConditions, type ConditionsIssue } from "./capture-form.server";
+import { deleteObjects, putObjectStream, randomKey } from "~/services/storage.server";
+import { CAPTURE_LIMITS, CaptureError, HEADER_BYTES, checkHeader, identifyCapture, inferKind, type CaptureFileKind } from "./captures.server";
+import { readConditions } from "./capture-form.server";
 
-export type ApiError = { error: string; message: string; issues?: ConditionsIssue[]; details?: Record<string, unknown> };
-type Refusal = { status: number; body: ApiError };
-
-const refuse = (status: number, error: string, message: string, extra: Partial<ApiError> = {}): Refusal => ({
-  status,
-  body: { error, message, ...extra },
-});
-
-const fromCaptureError = (e: CaptureError): Refusal => ({ status: e.status, body: e.toJSON() });
-
-// Multipart framing around the file; anything beyond this over the limit cannot hold a valid capture.
+// Multipart framing and the condition fields around the file.
 const FORM_OVERHEAD = 64 * 1024;
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const limit = sizeText(CAPTURE_LIMITS.maxBytes);
 
-export type SubmitResult = { ok: true; capture: Capture } | { ok: false; refusal: Refusal };
+const asRefusal = (e: unknown): unknown => (e instanceof CaptureError ? refusal(e.code, e.message) : e);
 
-export async function submitCapture(request: Request, ownerId: string): Promise<SubmitResult> {
-  const length = Number(request.headers.get("Content-Length") ?? "0");
-  if (length > CAPTURE_LIMITS.maxBytes + FORM_OVERHEAD) {
-    const limit = (CAPTURE_LIMITS.maxBytes / 1048576).toFixed(1);
-    const e = new CaptureError("FILE_TOO_LARGE", `The upload is ${(length / 1048576).toFixed(1)} MB; captures are limited to ${limit} MB.`);
-    return { ok: false, refusal: fromCaptureError(e) };
-  }
-  let form: FormData;
+type Received = { key: string; fileName: string; file: CaptureFileKind; head: Uint8Array; bytes: number };
+
+/** The owner's new capture, queued for analysis; throws HttpError refusals. */
+export async function submitCapture(request: Request, ownerId: string): Promise<Capture> {
+  const written: string[] = [];
   try {
-    form = await request.formData();
-  } catch {
-    return { ok: false, refusal: refuse(400, "BAD_REQUEST", "Send the capture as multipart/form-data with a `file` field.") };
-  }
-  const file = form.get("file");
-  if (!(file instanceof File)) {
-    return { ok: false, refusal: refuse(400, "FILE_MISSING", "The upload has no `file` field with a capture in it.", { issues: [{ path: "file", message: "required" }] }) };
-  }
-  const fileName = (file.name || "capture").slice(0, 255);
-  try {
-    checkSize(file.size);
-    const bytes = new Uint8Array(await file.arrayBuffer());
-    const kindOfFile = identifyCapture(bytes, fileName);
-    const read = readConditions(form, inferKind(bytes, kindOfFile));
-    if (!read.ok) return { ok: false, refusal: refuse(400, "INVALID_CONDITIONS", read.message, { issues: read.issues }) };
-    const format = preflightCapture(bytes, fileName, read.conditions);
-    const capture = await store(bytes, {
-      ownerId,
-      kind: read.conditions.kind,
-      fileName,
-      contentType: kindOfFile === "wav" ? "audio/wav" : "text/csv",
-      conditions: read.conditions,
-      format,
+    const { fields, files } = await readMultipart(request, {
+      maxBytes: CAPTURE_LIMITS.maxBytes + FORM_OVERHEAD,
+      maxFileBytes: CAPTURE_LIMITS.maxBytes,
+      maxFiles: 1,
+      tooLarge: (declared) =>
+        refusal("file_too_large", `The upload is ${declared ? sizeText(declared) : `over ${limit}`}; captures are limited to ${limit}.`, {
+          headers: { Connection: "close" },
+        }),
+      fileTooLarge: () => refusal("file_too_large", `The file is over ${limit}; captures are limited to ${limit}.`, { headers: { Connection: "close" } }),
+      tooManyFiles: () => refusal("one_file_only", "Send one capture per request, in the field `file`."),
+      onFile: (part) => receive(part, written),
     });
-    return { ok: true, capture };
-  } catch (e) {
-    if (e instanceof CaptureError) return { ok: false, refusal: fromCaptureError(e) };
-    throw e;
-  }
-}
-
-/** File, row and job together: if the row or the job cannot be written, the file goes too. */
-async function store(
-  bytes: Uint8Array,
-  meta: Pick<Capture, "ownerId" | "kind" | "fileName" | "contentType" | "conditions"> & { format: CaptureFormat },
-): Promise<Capture> {
-  const key = randomKey("captures", meta.contentType === "audio/wav" ? "wav" : "csv");
-  await putObject(key, bytes, { contentType: meta.contentType, contentLength: bytes.length });
-  try {
+    const received = files[0];
+    if (!received || received.bytes === 0) {
+      if (received) throw refusal("empty_file", "The file is empty.");
+      throw refusal("no_file", "The upload has no `file` field with a capture in it.", { issues: [{ path: "file", message: "required" }] });
+    }
+    const read = readConditions(fields, inferKind(received.head, received.file));
+    if (!read.ok) throw refusal("invalid_conditions", read.message, { issues: read.issues });
+    checkHeader(received.head, received.fileName, read.conditions);
     return await sequelize.transaction(async (transaction) => {
       const capture = await Capture.create(
-        { ...meta, byteSize: bytes.length, storageKey: key },
+        {
+          ownerId,
+          kind: read.conditions.kind,
+          fileName: received.fileName,
+          contentType: received.file === "wav" ? "audio/wav" : "text/csv",
+          conditions: read.conditions,
+          // What the file holds in full is the job's to say; until then, only what it is.
+          format: { file: received.file },
+          byteSize: received.bytes,
+          storageKey: received.key,
+        },
         { transaction },
       );
-      // The job is written in the same transaction, so a worker never sees a job without its row.
-      await enqueue(QUEUES.captureAnalyze, { captureId: capture.id }, {
-        db: {
-          executeSql: async (text: string, values: unknown[]) => {
-            // pg reads undefined as NULL; Sequelize's bind wants it said.
-            const bind = values.map((v) => (v === undefined ? null : v));
-            const [rows] = await sequelize.query(text, { bind, transaction });
-            return { rows };
-          },
-        },
-      });
+      // Queued in the same transaction: a worker never sees a job without its row, nor a row without a job.
+      await enqueue(QUEUES.captureAnalyze, { captureId: capture.id }, { transaction });
       return capture;
     });
   } catch (error) {
-    await deleteObject(key).catch((e) => console.error(`[captures] could not remove ${key} after a failed save`, e));
-    throw error;
+    if (written.length) await deleteObjects(written).catch((e) => console.error(`[captures] could not remove ${written.join(", ")}`, e));
+    throw asRefusal(error);
+  }
+}
+
+/** One file part: what it is from its first bytes, then the whole of it streamed to storage. */
+async function receive(part: FilePart, written: string[]): Promise<Received> {
+  if (part.field !== "file") throw refusal("bad_request", `Send the capture in the field \`file\`, not \`${part.field.slice(0, 40)}\`.`);
+  const fileName = (part.filename || "capture").slice(0, 255);
+  try {
+    const { head, all } = await splitHead(part.stream, HEADER_BYTES);
+    if (head.length === 0) {
+      part.stream.resume();
+      return { key: "", fileName, file: "csv", head, bytes: 0 };
+    }
+    const file = identifyCapture(head, fileName);
+    const key = randomKey("captures", file);
+    written.push(key);
+    const { bytes } = await putObjectStream(key, all, { contentType: file === "wav" ? "audio/wav" : "text/csv" });
+    return { key, fileName, file, head, bytes };
+  } catch (error) {
+    throw asRefusal(error) as HttpError;
   }
 }
 
 /** The owner's capture, or null (also for someone else's or a malformed id: the API answers 404 to both). */
-export async function findOwnCapture(id: string, ownerId: string): Promise<Capture | null> {
-  if (!UUID.test(id)) return null;
-  return Capture.findOne({ where: { id, ownerId } });
+export function findOwnCapture(id: unknown, ownerId: string): Promise<Capture | null> {
+  return findOwn(Capture, id, { ownerId });
 }
 
 /** Wait up to `seconds` for the job to finish (the answer is then immediate); null if it has not. */

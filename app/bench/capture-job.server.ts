@@ -1,6 +1,8 @@
-// The background analysis of one capture (queue "capture-analyze"). A file the analysis refuses ends
-// the capture as failed, with the reason, and its stored file is removed; anything else (storage or
-// database trouble) is thrown so pg-boss retries the job.
+// The background analysis of one capture (queue "capture-analyze"), in the worker: the web process
+// only streamed the file to storage and read its header. Here the whole file is read and checked
+// (length, clipping, silence, a CSV's rows) and analysed. A file refused on the way ends the capture
+// as failed with the same code and sentence the API would give, and its stored file is removed;
+// anything else (storage or database trouble) is thrown so pg-boss retries the job.
 import { z } from "zod";
 import { captureConditionsSchema } from "@shared/bench/analysis";
 import { idSchema } from "@shared/ids";
@@ -21,7 +23,7 @@ export async function analyseCaptureJob(data: unknown): Promise<{ status: string
   if (!bytes) {
     await capture.update({
       status: "failed",
-      errorCode: "FILE_MISSING",
+      errorCode: "file_lost",
       errorMessage: "The stored capture file could not be found.",
       finishedAt: new Date(),
     });
@@ -33,6 +35,7 @@ export async function analyseCaptureJob(data: unknown): Promise<{ status: string
     const result = analyseCapture(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength), capture.fileName, conditions, capture.id);
     await capture.update({
       status: "done",
+      format: result.format,
       analysis: result.analysis,
       readings: result.readings,
       sweep: result.kind === "sweep" ? result.sweep : null,

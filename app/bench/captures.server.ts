@@ -45,9 +45,9 @@ const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 
 /** Refuse an empty file or one over the size limit (before reading it). */
 export function checkSize(byteLength: number): void {
-  if (byteLength === 0) throw new CaptureError("EMPTY_FILE", "The file is empty.");
+  if (byteLength === 0) throw new CaptureError("empty_file", "The file is empty.");
   if (byteLength > CAPTURE_LIMITS.maxBytes) {
-    throw new CaptureError("FILE_TOO_LARGE", `The file is ${mb(byteLength)}; captures are limited to ${mb(CAPTURE_LIMITS.maxBytes)}.`, {
+    throw new CaptureError("file_too_large", `The file is ${mb(byteLength)}; captures are limited to ${mb(CAPTURE_LIMITS.maxBytes)}.`, {
       bytes: byteLength,
       limit: CAPTURE_LIMITS.maxBytes,
     });
@@ -61,11 +61,11 @@ export function identifyCapture(bytes: Uint8Array, filename: string): CaptureFil
   const namedWav = /\.wave?$/i.test(filename);
   if (s.kind === "wav") return "wav";
   if (s.kind === "text") {
-    if (namedWav) throw new CaptureError("NOT_WAV", `"${filename}" is named as a WAV but holds text, not audio.`);
+    if (namedWav) throw new CaptureError("not_wav", `"${filename}" is named as a WAV but holds text, not audio.`);
     return "csv";
   }
-  if (namedWav) throw new CaptureError("NOT_WAV", `"${filename}" is named as a WAV but is ${s.description}.`);
-  throw new CaptureError("UNSUPPORTED_FORMAT", `The file is ${s.description}; upload a WAV (PCM or float) or a CSV.`);
+  if (namedWav) throw new CaptureError("not_wav", `"${filename}" is named as a WAV but is ${s.description}.`);
+  throw new CaptureError("unsupported_format", `The file is ${s.description}; upload a WAV (PCM or float) or a CSV.`);
 }
 
 /** The kind the file implies when the uploader did not say: WAV → sine; CSV by its header. */
@@ -88,7 +88,7 @@ const KIND_WORDS: Record<CaptureKind, string> = {
 function checkKind(kind: CaptureKind, file: CaptureFileKind) {
   if (FILE_FOR_KIND[kind] !== file) {
     throw new CaptureError(
-      "KIND_MISMATCH",
+      "kind_mismatch",
       `The conditions describe ${KIND_WORDS[kind]}, but the file is a ${file.toUpperCase()}.`,
       { kind, file },
     );
@@ -97,7 +97,7 @@ function checkKind(kind: CaptureKind, file: CaptureFileKind) {
 
 function checkWav(w: WavFormat, c: SineCaptureConditions) {
   if (w.durationS > CAPTURE_LIMITS.maxSeconds) {
-    throw new CaptureError("TOO_LONG", `The capture lasts ${w.durationS.toFixed(1)} s; captures are limited to ${CAPTURE_LIMITS.maxSeconds} s.`, {
+    throw new CaptureError("too_long", `The capture lasts ${w.durationS.toFixed(1)} s; captures are limited to ${CAPTURE_LIMITS.maxSeconds} s.`, {
       seconds: w.durationS,
     });
   }
@@ -105,7 +105,7 @@ function checkWav(w: WavFormat, c: SineCaptureConditions) {
   const need = Math.ceil(w.sampleRate / resolution);
   if (w.frames < need) {
     throw new CaptureError(
-      "TOO_SHORT",
+      "too_short",
       `The capture holds ${w.durationS.toFixed(3)} s (${w.frames} samples at ${w.sampleRate} Hz); a ${resolution} Hz resolution needs at least ${(need / w.sampleRate).toFixed(3)} s.`,
       { frames: w.frames, neededFrames: need },
     );
@@ -125,7 +125,7 @@ function checkSamples(d: DecodedWav): { samples: Float64Array[]; labels: string[
     const run = findClippedRun(x, d.positiveFullScale);
     if (run) {
       throw new CaptureError(
-        "CLIPPED",
+        "clipped",
         `The ${names[i]} channel sits at digital full scale for ${run.length} samples from ${when(run.index / d.sampleRate)}: the analyser input was overloaded. Add attenuation and capture again.`,
         { channel: names[i], atSeconds: run.index / d.sampleRate, samples: run.length },
       );
@@ -136,27 +136,29 @@ function checkSamples(d: DecodedWav): { samples: Float64Array[]; labels: string[
   });
   if (live.length === 0) {
     const which = names.length === 1 ? `the ${names[0]} channel is` : "both channels are";
-    throw new CaptureError("NO_FUNDAMENTAL", `No fundamental found: ${which} silent.`);
+    throw new CaptureError("no_fundamental", `No fundamental found: ${which} silent.`);
   }
   return { samples: live.map((i) => d.samples[i]), labels: live.map((i) => names[i]) };
 }
 
+/** How many of a capture's first bytes the web process reads to tell what it is. */
+export const HEADER_BYTES = 64 * 1024;
+
 /**
- * Everything that can be refused before the file is stored: kind, format, size, length, clipping,
- * silence, and for CSV files the whole analysis. Returns what the file holds.
+ * What can be refused from the first bytes alone, while the upload streams on to storage: what the
+ * file is, whether it is the kind the conditions describe, and a WAV's encoding, depth, channels and
+ * rate. Everything else (length, clipping, silence, a CSV's rows) is the analysis job's.
  */
-export function preflightCapture(bytes: Uint8Array, filename: string, conditions: CaptureConditions): CaptureFormat {
-  const file = identifyCapture(bytes, filename);
+export function checkHeader(head: Uint8Array, filename: string, conditions: CaptureConditions): void {
+  const file = identifyCapture(head, filename);
   checkKind(conditions.kind, file);
-  if (conditions.kind === "sine") {
-    const { format, data } = readWavFormat(bytes);
-    checkWav(format, conditions);
-    checkSamples(decodeWavData(format, data));
-    return { file: "wav", ...format };
+  if (file !== "wav") return;
+  try {
+    readWavFormat(head);
+  } catch (e) {
+    // A header longer than the first bytes is the job's to read; only a format we cannot use is final.
+    if (e instanceof CaptureError && e.code === "unsupported_format") throw e;
   }
-  // CSV analyses take milliseconds: run them here so every CSV refusal comes before storing.
-  const result = analyseCapture(bytes, filename, conditions, "preflight");
-  return result.format;
 }
 
 function readCsv(bytes: Uint8Array, kind: "square" | "sweep") {

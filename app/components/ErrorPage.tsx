@@ -17,6 +17,21 @@ const COPY: Record<number, { overline: string; title: string; text: string }> = 
     title: "Sign in to continue",
     text: "This page is only for signed-in accounts.",
   },
+  400: {
+    overline: "400 · Could not be read",
+    title: "That request could not be read",
+    text: "What was sent does not fit the form. Go back, reload the page and try again.",
+  },
+  413: {
+    overline: "413 · Too large",
+    title: "That was more than this form takes",
+    text: "Send less at once: shorten the text, or split it over several saves.",
+  },
+  415: {
+    overline: "415 · Not a form",
+    title: "That request could not be read",
+    text: "This address takes an HTML form. Send it from the page, or as application/x-www-form-urlencoded or multipart/form-data.",
+  },
   500: {
     overline: "500 · Our fault",
     title: "Something went wrong on our side",

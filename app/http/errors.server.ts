@@ -1,26 +1,72 @@
+import { data } from "react-router";
+
 // The API's one error shape: { error, message, issues? }. `error` is a stable lower_snake code
-// (listed in docs/api.md), `message` is written for a person, `issues` name the fields at fault.
+// (every one is listed in docs/api.md), `message` is written for a person, `issues` name the fields
+// at fault. Pages show the same errors through the error boundary (`pageError`).
 
 export type Issue = { path: string; message: string };
 
 export const ERROR_CODES = {
-  invalid: 400,
-  invalid_json: 400,
+  // The request itself
   bad_request: 400,
+  invalid_json: 400,
+  invalid: 400,
+  invalid_sheet: 400,
+  invalid_conditions: 400,
+  invalid_signature: 400,
+  no_file: 400,
+  one_file_only: 400,
   unauthenticated: 401,
   forbidden: 403,
   cross_origin: 403,
   not_found: 404,
   method_not_allowed: 405,
-  conflict: 409,
   too_large: 413,
+  file_too_large: 413,
   unsupported_media_type: 415,
-  unprocessable: 422,
+  unsupported_type: 415,
   rate_limited: 429,
+  // The listing's state does not allow it
+  conflict: 409,
+  sold: 409,
+  removed: 409,
+  published: 409,
+  not_published: 409,
+  // A file that was read but cannot be used (photos)
+  empty_file: 422,
+  damaged_file: 422,
+  truncated_file: 422,
+  too_many_pixels: 422,
+  too_large_to_process: 422,
+  too_many_photos: 422,
+  listing_closed: 422,
+  bad_order: 422,
+  bad_cover: 422,
+  // A capture that cannot be measured (also a failed capture's `error.error`)
+  not_wav: 422,
+  unsupported_format: 422,
+  too_long: 422,
+  too_short: 422,
+  clipped: 422,
+  no_fundamental: 422,
+  csv_columns_missing: 422,
+  csv_not_number: 422,
+  csv_too_few_rows: 422,
+  csv_not_increasing: 422,
+  sweep_invalid: 422,
+  square_no_edge: 422,
+  kind_mismatch: 422,
+  file_lost: 422,
+  // Ours
   server_error: 500,
   unavailable: 503,
+  storage_unavailable: 503,
 } as const;
 export type ErrorCode = keyof typeof ERROR_CODES;
+
+export function isErrorCode(code: string): code is ErrorCode {
+  return Object.hasOwn(ERROR_CODES, code);
+}
 
 export interface ApiErrorBody {
   error: string;
@@ -28,7 +74,7 @@ export interface ApiErrorBody {
   issues?: Issue[];
 }
 
-/** Thrown anywhere below a route; `apiRoute` (or React Router itself) turns it into its Response. */
+/** Thrown anywhere below a route; `apiRoute` turns it into its Response, `pageError` into an error page. */
 export class HttpError extends Error {
   override name = "HttpError";
   constructor(
@@ -52,6 +98,11 @@ export class HttpError extends Error {
   }
 }
 
+/** An HttpError with the status its code stands for, to throw from services and helpers. */
+export function refusal(code: ErrorCode, message: string, options: { issues?: Issue[]; headers?: HeadersInit } = {}): HttpError {
+  return new HttpError(ERROR_CODES[code], code, message, options.issues, options.headers);
+}
+
 /** An error Response in the one shape, for returning or throwing from a route. */
 export function apiError(
   code: ErrorCode,
@@ -63,4 +114,36 @@ export function apiError(
 
 export function methodNotAllowed(allowed: readonly string[], message = `Use ${allowed.join(" or ")} here.`): Response {
   return apiError("method_not_allowed", message, { headers: { Allow: allowed.join(", ") } });
+}
+
+const SERVER_ERROR = "Something went wrong on our side; try again in a moment.";
+
+/** Whatever a handler threw, as the API answers it: refusals in the one shape, anything unexpected as a logged 500. */
+export function errorResponse(error: unknown): Response {
+  if (error instanceof Response) return error;
+  if (error instanceof HttpError) return error.toResponse();
+  console.error("[api]", error);
+  return apiError("server_error", SERVER_ERROR);
+}
+
+const STATUS_TEXT: Record<number, string> = {
+  400: "Bad Request",
+  403: "Forbidden",
+  404: "Not Found",
+  405: "Method Not Allowed",
+  409: "Conflict",
+  413: "Content Too Large",
+  415: "Unsupported Media Type",
+  422: "Unprocessable Content",
+};
+
+/**
+ * For page loaders and actions: an HttpError becomes a thrown `data({ message }, { status })`, which
+ * the error boundary shows; anything else is thrown on unchanged.
+ */
+export function pageError(error: unknown): never {
+  if (error instanceof HttpError) {
+    throw data({ message: error.message, error: error.code }, { status: error.status, statusText: STATUS_TEXT[error.status], headers: error.headers });
+  }
+  throw error;
 }

@@ -1,24 +1,18 @@
 import type { Transaction } from "sequelize";
 import { Listing } from "~/models/index.server";
+import { findOwn } from "~/auth/ownership.server";
 import { ListingNotFound, ListingStateError } from "./errors.server";
 
-// The one way listing services reach a listing: by id AND owner. Anyone else's listing is "not found",
-// so an id guessed or copied from a public page reveals nothing about drafts.
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+// The one way listing services (and the photo API) reach a listing: by id AND owner. Anyone else's
+// listing is "not found", so an id guessed or copied from a public page reveals nothing about drafts.
 
 export async function ownListing(
-  id: string,
+  id: unknown,
   sellerId: string,
+  // Lock: two saves of one listing (autosave and a button) run one after the other.
   opts: { transaction?: Transaction; lock?: boolean } = {},
 ): Promise<Listing> {
-  if (!UUID.test(id)) throw new ListingNotFound();
-  const listing = await Listing.scope("withSerial").findOne({
-    where: { id, sellerId },
-    transaction: opts.transaction,
-    // Row lock: two saves of one listing (autosave and a button) run one after the other.
-    ...(opts.lock && opts.transaction ? { lock: opts.transaction.LOCK.UPDATE } : {}),
-  });
+  const listing = await findOwn(Listing.scope("withSerial"), id, { sellerId }, opts);
   if (!listing) throw new ListingNotFound();
   return listing;
 }

@@ -8,6 +8,7 @@ import type { Reading, Sweep } from "@shared/bench/schema";
 import { sheetFingerprint } from "@shared/bench-form/state";
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, type Issue } from "./errors.server";
+import { isId } from "@shared/ids";
 
 // The bench sheet step. The server is the authority: it re-reads the sheet, puts the readings of each
 // capture back exactly as the bench derived them (a typed figure cannot pass itself off as captured),
@@ -24,20 +25,18 @@ export type SheetSaveResult = {
   wasVerified: boolean;
 };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 /** Readings and sweeps of origin "capture" replaced by the stored analysis of captures this seller owns. */
 async function fromOwnCaptures(sheet: Sheet, sellerId: string, transaction: Transaction): Promise<Sheet> {
   const issues: Issue[] = [];
   const ids = new Set<string>();
   sheet.readings.forEach((r, i) => {
     if (r.origin !== "capture") return;
-    if (!r.captureId || !UUID.test(r.captureId)) issues.push({ path: `readings.${i}.captureId`, message: "A figure from a capture must name a capture you uploaded." });
+    if (!r.captureId || !isId(r.captureId)) issues.push({ path: `readings.${i}.captureId`, message: "A figure from a capture must name a capture you uploaded." });
     else ids.add(r.captureId);
   });
   (sheet.sweeps ?? []).forEach((s, i) => {
     if (s.origin !== "capture") return;
-    if (!s.captureId || !UUID.test(s.captureId)) issues.push({ path: `sweeps.${i}.captureId`, message: "A sweep from a capture must name a capture you uploaded." });
+    if (!s.captureId || !isId(s.captureId)) issues.push({ path: `sweeps.${i}.captureId`, message: "A sweep from a capture must name a capture you uploaded." });
     else ids.add(s.captureId);
   });
   if (issues.length) throw new ListingInputError(issues);

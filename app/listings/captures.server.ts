@@ -1,11 +1,10 @@
 import { Op } from "sequelize";
 import type { BenchSheet } from "@shared/bench";
 import { Capture } from "~/models/capture.server";
+import { isId } from "@shared/ids";
 
 // The captures a listing's bench sheet points at. A sheet names captures by id; only finished
 // captures uploaded by the listing's own seller count, so a sheet cannot borrow someone else's files.
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export function captureIdsOf(sheet: BenchSheet): string[] {
   const ids = new Set<string>();
@@ -15,7 +14,7 @@ export function captureIdsOf(sheet: BenchSheet): string[] {
 }
 
 export async function capturesForSheet(sheet: BenchSheet, sellerId: string): Promise<Map<string, Capture>> {
-  const ids = captureIdsOf(sheet).filter((id) => UUID.test(id));
+  const ids = captureIdsOf(sheet).filter((id) => isId(id));
   const out = new Map<string, Capture>();
   if (ids.length === 0) return out;
   const rows = await Capture.findAll({
@@ -33,7 +32,12 @@ export function captureNote(capture: Capture | undefined): string {
   if (!capture) return "from a capture";
   const f = capture.format;
   const bits: string[] = [];
-  if (f?.file === "wav") bits.push("WAV", `${Number((f.sampleRate / 1000).toFixed(1))} kHz`, `${f.bitDepth}-bit${f.encoding === "float" ? " float" : ""}`);
-  else if (f?.file === "csv") bits.push("CSV", `${f.rows} rows`);
+  if (f?.file === "wav") {
+    bits.push("WAV");
+    if ("sampleRate" in f) bits.push(`${Number((f.sampleRate / 1000).toFixed(1))} kHz`, `${f.bitDepth}-bit${f.encoding === "float" ? " float" : ""}`);
+  } else if (f?.file === "csv") {
+    bits.push("CSV");
+    if ("rows" in f) bits.push(`${f.rows} rows`);
+  }
   return `from a ${KIND_WORDS[capture.kind]}${bits.length ? ` (${bits.join(", ")})` : ""}`;
 }

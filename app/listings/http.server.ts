@@ -2,22 +2,8 @@ import { data } from "react-router";
 import { ITEM_FORM_FIELD, type FieldErrors } from "@shared/listing-draft";
 import { ListingInputError, ListingNotFound, ListingStateError, type Issue } from "./errors.server";
 
-// The listing services' refusals as HTTP: JSON for the API, a 404 page or field messages for pages.
-
-const json = (body: unknown, status: number) => Response.json(body, { status, headers: { "Cache-Control": "no-store" } });
-
-/** Runs an API handler; refusals become JSON with a reason and, for bad input, the paths. */
-export async function listingApi(work: () => Promise<Response>): Promise<Response> {
-  try {
-    return await work();
-  } catch (e) {
-    if (e instanceof Response) throw e;
-    if (e instanceof ListingNotFound) return json({ error: "not_found", message: e.message }, 404);
-    if (e instanceof ListingInputError) return json({ error: "invalid", message: e.message, issues: e.issues }, 400);
-    if (e instanceof ListingStateError) return json({ error: e.code, message: e.message }, 409);
-    throw e;
-  }
-}
+// The listing services' refusals on pages: a 404 page or field messages. (The API answers them as
+// they are: they are HttpErrors in the one shape.)
 
 /** For page loaders and actions: someone else's (or no) listing is a plain 404 page. */
 export function notFoundPage(): never {
@@ -43,17 +29,4 @@ export function issuesToForm(issues: Issue[], fieldOf: Record<string, string | u
     out[name] ??= i.message;
   }
   return out;
-}
-
-/** Reads a JSON body of at most `maxBytes`, or refuses with a reason. */
-export async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
-  const type = request.headers.get("Content-Type") ?? "";
-  if (!type.includes("application/json")) throw json({ error: "unsupported_media_type", message: "Send the body as application/json." }, 415);
-  const text = await request.text();
-  if (text.length > maxBytes) throw json({ error: "too_large", message: `The body may be at most ${Math.round(maxBytes / 1024)} KB.` }, 413);
-  try {
-    return JSON.parse(text);
-  } catch {
-    throw json({ error: "invalid_json", message: "The body is not valid JSON." }, 400);
-  }
 }

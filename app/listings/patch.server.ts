@@ -8,6 +8,9 @@ import { ListingInputError } from "./errors.server";
 // PATCH /api/v1/listings/:id — any of the item, condition and bench sheet at once, in one transaction:
 // either everything in the body is saved or nothing is.
 
+/** A full bench sheet (300 readings, long sweeps) with the item and condition fits well inside this. */
+export const PATCH_MAX_BYTES = 600 * 1024;
+
 const Envelope = z.strictObject({
   item: z.record(z.string(), z.unknown()).optional(),
   condition: z.record(z.string(), z.unknown()).optional(),

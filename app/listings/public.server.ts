@@ -1,5 +1,4 @@
 import { QueryTypes } from "sequelize";
-import { z } from "zod";
 import {
   CATEGORY_LABELS,
   COSMETIC_GRADE_TEXT,
@@ -21,12 +20,13 @@ import type { GalleryPhoto, ListingHead, ListingPageData, UnitDetails } from "./
 import { canViewListing, isModerator, type Viewer } from "./visibility";
 import { isWatching } from "./watch.server";
 import { countryFromAcceptLanguage, parseZone, zoneFor } from "./zones";
+import { idSchema } from "@shared/ids";
 
 // The public listing page's data. Visibility first (a listing the viewer may not see is
 // indistinguishable from one that does not exist), then everything the page shows, built field by
 // field so the serial number, postcode and storage keys of originals never leave the server.
 
-export const ListingIdSchema = z.uuid();
+export const ListingIdSchema = idSchema("listing");
 
 export interface PageRequest {
   id: string;

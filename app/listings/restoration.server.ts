@@ -3,11 +3,11 @@ import { RestorationEntry } from "~/models/index.server";
 import { RestorationEntrySchema, type RestorationEntryView } from "@shared/restoration-form";
 import { assertEditable, ownListing } from "./access.server";
 import { ListingInputError, ListingNotFound } from "./errors.server";
+import { isId } from "@shared/ids";
 
 // The restoration log: dated entries on a listing the seller owns, oldest first.
 
 export const MAX_ENTRIES = 100;
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 function parse(input: unknown) {
   const parsed = RestorationEntrySchema.safeParse(input);
@@ -31,7 +31,7 @@ export async function updateRestorationEntry(listingId: string, sellerId: string
   return sequelize.transaction(async (transaction) => {
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
     assertEditable(listing);
-    const entry = UUID.test(entryId) ? await RestorationEntry.findOne({ where: { id: entryId, listingId }, transaction }) : null;
+    const entry = isId(entryId) ? await RestorationEntry.findOne({ where: { id: entryId, listingId }, transaction }) : null;
     if (!entry) throw new ListingNotFound();
     return entry.update(values, { transaction });
   });
@@ -41,7 +41,7 @@ export async function deleteRestorationEntry(listingId: string, sellerId: string
   await sequelize.transaction(async (transaction) => {
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
     assertEditable(listing);
-    const removed = UUID.test(entryId) ? await RestorationEntry.destroy({ where: { id: entryId, listingId }, transaction }) : 0;
+    const removed = isId(entryId) ? await RestorationEntry.destroy({ where: { id: entryId, listingId }, transaction }) : 0;
     if (!removed) throw new ListingNotFound();
   });
 }

@@ -1,5 +1,6 @@
 import { Listing } from "~/models/index.server";
 import { Watch } from "~/models/watch.server";
+import { isId } from "@shared/ids";
 import { canViewListing, type Viewer } from "./visibility";
 
 // Watching a listing. The form says which state it wants ("watch" or "unwatch"), so sending it twice
@@ -14,7 +15,7 @@ export async function isWatching(userId: string, listingId: string): Promise<boo
 }
 
 export async function setWatch(viewer: Viewer, listingId: string, watch: boolean): Promise<WatchOutcome> {
-  const listing = await Listing.findByPk(listingId, { attributes: ["id", "status", "sellerId"] });
+  const listing = isId(listingId) ? await Listing.findByPk(listingId, { attributes: ["id", "status", "sellerId"] }) : null;
   if (!listing || !canViewListing(listing.status, listing.sellerId, viewer)) {
     return { ok: false, status: 404, reason: "There is no listing here." };
   }

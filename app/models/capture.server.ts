@@ -1,12 +1,14 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { z } from "zod";
 import { sequelize } from "~/db.server";
-import type { CaptureFormat } from "~/bench/captures.server";
+import type { CaptureFileKind, CaptureFormat } from "~/bench/captures.server";
 import { captureConditionsSchema, storedAnalysisSchema, type AnyAnalysis, type CaptureConditions, type CaptureKind } from "@shared/bench/analysis";
 import { readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench/schema";
 import { jsonColumn, none } from "./json-column.server";
 
 export type CaptureStatus = "queued" | "running" | "done" | "failed";
+/** What the file holds: only its kind until the job has read it in full. */
+export type StoredCaptureFormat = CaptureFormat | { file: CaptureFileKind };
 
 /**
  * A raw measurement file (WAV or CSV) a seller uploaded, with its stated conditions; the background
@@ -22,7 +24,7 @@ export class Capture extends Model<InferAttributes<Capture>, InferCreationAttrib
   declare contentType: string;
   declare byteSize: number;
   declare storageKey: string | null;
-  declare format: CaptureFormat | null;
+  declare format: StoredCaptureFormat | null;
   declare conditions: CaptureConditions | null;
   declare analysis: CreationOptional<AnyAnalysis | null>;
   declare readings: CreationOptional<Reading[] | null>;
@@ -52,8 +54,9 @@ const captureFormatSchema = z.discriminatedUnion("file", [
 // Compile-time proof that the schema reads what the bench writes.
 const _format: (f: z.infer<typeof captureFormatSchema>) => CaptureFormat = (f) => f;
 void _format;
+const storedFormatSchema = z.union([captureFormatSchema, z.object({ file: z.enum(["wav", "csv"]) })]);
 
-const readFormat = jsonColumn("captures.format", captureFormatSchema, none);
+const readFormat = jsonColumn("captures.format", storedFormatSchema, none);
 const readConditions = jsonColumn("captures.conditions", captureConditionsSchema, none);
 const readAnalysis = jsonColumn("captures.analysis", storedAnalysisSchema, none);
 const readReadings = jsonColumn("captures.readings", z.array(readingSchema), none);

@@ -1,14 +1,12 @@
 import type { Transaction } from "sequelize";
-import { Listing, ListingPhoto } from "~/models/index.server";
-import { PhotoRefusal, listingNotFound } from "./refusal.server";
+import type { Listing, ListingPhoto } from "~/models/index.server";
+import { ownListing } from "~/listings/access.server";
+import { PhotoRefusal } from "./refusal.server";
 import { mediaUrl } from "~/catalogue/media-url";
 import type { PhotoView } from "./limits";
 
-// Every photo operation starts from a listing the signed-in seller owns. Someone else's listing and
-// a listing that does not exist get the same 404, so ids reveal nothing.
-
-const ID_SHAPE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-export const isId = (value: unknown): value is string => typeof value === "string" && ID_SHAPE.test(value);
+// Every photo operation starts from a listing the signed-in seller owns (the listings' one ownership
+// check: someone else's listing and a missing one get the same 404).
 
 // A sale's photos are part of its record; a removed listing is frozen for the review desk.
 const CLOSED = new Set(["sold", "removed"]);
@@ -18,14 +16,7 @@ export async function ownedListing(
   sellerId: string,
   options: { transaction?: Transaction; lock?: boolean; forChange?: boolean } = {},
 ): Promise<Listing> {
-  if (!isId(listingId)) throw listingNotFound();
-  const listing = await Listing.findOne({
-    where: { id: listingId, sellerId },
-    attributes: ["id", "sellerId", "status"],
-    transaction: options.transaction,
-    lock: options.lock && options.transaction ? options.transaction.LOCK.UPDATE : undefined,
-  });
-  if (!listing) throw listingNotFound();
+  const listing = await ownListing(listingId, sellerId, options);
   if (options.forChange && CLOSED.has(listing.status)) {
     throw new PhotoRefusal("listing_closed", `This listing is ${listing.status}, so its photos can no longer change.`);
   }

@@ -4,8 +4,11 @@ import { sequelize } from "~/db.server";
 import { ListingPhoto } from "~/models/index.server";
 import { deleteObjects } from "~/services/storage.server";
 import { PHOTO_LIMITS, type PhotoListView } from "./limits";
+import { idSchema, isId } from "@shared/ids";
+import { readJson } from "~/http/body.server";
+import { refusal } from "~/http/errors.server";
 import { PhotoRefusal, photoNotFound } from "./refusal.server";
-import { isId, ownedListing, photoKeys, photoView } from "./access.server";
+import { ownedListing, photoKeys, photoView } from "./access.server";
 
 // The seller's view of a listing's photos, their order and cover, and deleting one.
 
@@ -15,7 +18,7 @@ export async function listPhotos(listingId: string, sellerId: string): Promise<P
   return { photos: photos.map(photoView), maxPhotos: PHOTO_LIMITS.maxPhotos, maxBytes: PHOTO_LIMITS.maxBytes };
 }
 
-const id = z.string().regex(/^[0-9a-f-]{36}$/i, "must be a photo id");
+const id = idSchema("photo");
 export const ArrangeInput = z
   .object({
     /** Every photo id of the listing, first to last. */
@@ -31,17 +34,13 @@ export type ArrangeInput = z.infer<typeof ArrangeInput>;
 
 /** Parses the PATCH body, refusing with the first problem and where it is. */
 export async function readArrangeInput(request: Request): Promise<ArrangeInput> {
-  let body: unknown;
-  try {
-    body = await request.json();
-  } catch {
-    throw new PhotoRefusal("bad_request", "Send a JSON body such as {\"order\": [ids…], \"coverId\": id}.");
-  }
+  const body = await readJson(request, 16 * 1024);
   const parsed = ArrangeInput.safeParse(body);
   if (!parsed.success) {
-    const issue = parsed.error.issues[0];
-    const path = issue.path.join(".");
-    throw new PhotoRefusal("bad_request", path ? `${path} ${issue.message}` : issue.message);
+    const issues = parsed.error.issues.map((i) => ({ path: i.path.join(".") || "body", message: i.message }));
+    const first = parsed.error.issues[0];
+    const path = first.path.join(".");
+    throw refusal("invalid", path ? `${path} ${first.message}` : first.message, { issues });
   }
   return parsed.data;
 }

@@ -1,7 +1,7 @@
 import { fileTypeFromBuffer } from "file-type";
 import { PHOTO_LIMITS, formatBytes } from "./limits";
 import { PhotoRefusal } from "./refusal.server";
-import { readJpegStructure } from "./jpeg-structure.server";
+import { readJpegStructure, type JpegStructure } from "./jpeg-structure.server";
 import { readPngStructure } from "./png-structure.server";
 import { budgetProblem, type PhotoHeader } from "./budget.server";
 
@@ -17,7 +17,11 @@ export type InspectedPhoto = {
   byteSize: number;
 };
 
-export async function inspectPhoto(bytes: Uint8Array, fileName = "This file"): Promise<InspectedPhoto> {
+/**
+ * `partial`: `bytes` are only the first part of the upload (the web process reads a header while the
+ * rest streams to storage); a structure cut short is then expected, and the job checks the whole file.
+ */
+export async function inspectPhoto(bytes: Uint8Array, fileName = "This file", options: { partial?: boolean } = {}): Promise<InspectedPhoto> {
   const name = displayName(fileName);
   if (bytes.byteLength === 0) {
     throw new PhotoRefusal("empty_file", `${name} is empty (0 bytes); choose the photo again.`);
@@ -37,9 +41,11 @@ export async function inspectPhoto(bytes: Uint8Array, fileName = "This file"): P
     throw new PhotoRefusal("unsupported_type", `${name} cannot be used${named}. Upload JPEG or PNG photos only.`);
   }
 
+  // Of a partial upload the amount of image data is not known yet: the job checks it on the whole file.
+  const jpegOf = (s: JpegStructure): JpegStructure => (options.partial ? { ...s, scanBytes: Number.POSITIVE_INFINITY } : s);
   const header: PhotoHeader =
     kind.type === "image/jpeg"
-      ? { type: kind.type, byteSize: bytes.byteLength, jpeg: readJpegStructure(bytes) }
+      ? { type: kind.type, byteSize: bytes.byteLength, jpeg: jpegOf(readJpegStructure(bytes)) }
       : { type: kind.type, byteSize: bytes.byteLength, png: readPngStructure(bytes) };
   const structure = header.type === "image/jpeg" ? header.jpeg : header.png;
   const { width, height } = structure;
@@ -50,7 +56,7 @@ export async function inspectPhoto(bytes: Uint8Array, fileName = "This file"): P
         `photos may have at most ${PHOTO_LIMITS.maxMegapixels} megapixels. Scale it down and upload it again.`,
     );
   }
-  if (structure.problem) {
+  if (structure.problem && !(options.partial && structure.problem.code === "truncated_file")) {
     const { code, detail } = structure.problem;
     const label = kind.type === "image/jpeg" ? "JPEG" : "PNG";
     const advice =

@@ -1,16 +1,19 @@
 import { z } from "zod";
+import { idSchema } from "@shared/ids";
 import { ListingPhoto } from "~/models/index.server";
 import { deleteObject, deleteObjects, getObjectBuffer, putObject, randomKey } from "~/services/storage.server";
 import { QUEUES, getBoss } from "~/services/jobs.server";
 import { photoKeyPrefix } from "~/catalogue/media-url";
 import { incomingKey } from "./access.server";
 import { renderPhoto, UnreadableImage } from "./render.server";
+import { inspectPhoto } from "./inspect.server";
+import { PhotoRefusal } from "./refusal.server";
 
 // The photo-process job: the upload waiting under incoming/ becomes an upright, metadata-free original
 // and three sizes under fresh random keys, then the photo is ready. Safe to run twice: the derived
 // keys are written to the row before any object, so a retry overwrites rather than orphans them.
 
-const JobData = z.object({ photoId: z.string().regex(/^[0-9a-f-]{36}$/i) });
+const JobData = z.object({ photoId: idSchema("photo") });
 
 export type ProcessOutcome = "ready" | "failed" | "gone" | "already-done";
 
@@ -31,6 +34,14 @@ export async function processPhoto(data: unknown, jobId?: string): Promise<Proce
   const input = await getObjectBuffer(waiting);
   if (!input) {
     await markFailed(photo, "The uploaded file was lost before it could be processed; delete this photo and upload it again.");
+    return "failed";
+  }
+  // The upload checked only the header as it streamed in; the whole file's structure is walked here.
+  try {
+    await inspectPhoto(input);
+  } catch (error) {
+    if (!(error instanceof PhotoRefusal)) throw error;
+    await markFailed(photo, error.message);
     return "failed";
   }
 

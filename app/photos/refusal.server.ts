@@ -1,5 +1,7 @@
-// A photo request the server turns down, with a code for programs and a sentence for the seller.
-// The HTTP status travels with it so routes stay thin.
+import { HttpError, ERROR_CODES } from "~/http/errors.server";
+
+// A photo request the server turns down, with a code for programs and a sentence for the seller, in
+// the API's one error shape. The HTTP status comes with the code.
 
 export type RefusalCode =
   | "no_file"
@@ -19,42 +21,12 @@ export type RefusalCode =
   | "not_found"
   | "storage_unavailable";
 
-const STATUS: Record<RefusalCode, number> = {
-  no_file: 400,
-  one_file_only: 400,
-  bad_request: 400,
-  empty_file: 422,
-  file_too_large: 413,
-  unsupported_type: 415,
-  damaged_file: 422,
-  truncated_file: 422,
-  too_many_pixels: 422,
-  too_large_to_process: 422,
-  too_many_photos: 422,
-  listing_closed: 422,
-  bad_order: 422,
-  bad_cover: 422,
-  not_found: 404,
-  storage_unavailable: 503,
-};
-
-export class PhotoRefusal extends Error {
-  readonly code: RefusalCode;
-  readonly status: number;
+export class PhotoRefusal extends HttpError {
+  override name = "PhotoRefusal";
+  declare readonly code: RefusalCode;
   constructor(code: RefusalCode, message: string) {
-    super(message);
-    this.name = "PhotoRefusal";
-    this.code = code;
-    this.status = STATUS[code];
+    super(ERROR_CODES[code], code, message);
   }
-  toJSON() {
-    return { error: this.code, message: this.message };
-  }
-}
-
-/** Same answer whether the listing is missing or someone else's, so ids reveal nothing. */
-export function listingNotFound(): PhotoRefusal {
-  return new PhotoRefusal("not_found", "There is no such listing among yours.");
 }
 
 export function photoNotFound(): PhotoRefusal {

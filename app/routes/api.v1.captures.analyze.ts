@@ -1,24 +1,23 @@
 import type { Route } from "./+types/api.v1.captures.analyze";
 import { requireUser } from "~/auth/guards.server";
+import { apiRoute, json } from "~/http/api-route.server";
 import { awaitCapture, capturePath, presentCapture, submitCapture } from "~/bench/capture-api.server";
 
 // POST a capture (multipart: `file` + stated conditions) for analysis. Answers 200 with the analysis
-// when the job finishes within `?wait=` seconds (default 2, at most 10), else 202 with where to poll.
-export async function action({ request }: Route.ActionArgs) {
-  if (request.method !== "POST") return Response.json({ error: "METHOD_NOT_ALLOWED", message: "Use POST." }, { status: 405 });
-  const user = await requireUser(request);
-  const wait = Math.min(10, Math.max(0, Number(new URL(request.url).searchParams.get("wait") ?? 2) || 0));
-  const result = await submitCapture(request, user.id);
-  if (!result.ok) return Response.json(result.refusal.body, { status: result.refusal.status });
-  const { id } = result.capture;
-  const finished = wait > 0 ? await awaitCapture(id, wait) : null;
-  if (finished?.status === "done") return Response.json(presentCapture(finished), { status: 200 });
-  if (finished?.status === "failed") {
-    return Response.json({ error: finished.errorCode, message: finished.errorMessage, id, poll: capturePath(id) }, { status: 422 });
-  }
-  return Response.json({ id, status: "queued", poll: capturePath(id) }, { status: 202, headers: { Location: capturePath(id) } });
-}
-
-export function loader() {
-  return Response.json({ error: "METHOD_NOT_ALLOWED", message: "POST a capture here; read results at /api/v1/captures/:id." }, { status: 405 });
-}
+// when the job finishes within `?wait=` seconds (default 2, at most 10), 422 with the reason when the
+// job refuses the file in that time, else 202 with where to poll.
+const route = apiRoute<Route.ActionArgs>({
+  POST: async ({ request }) => {
+    const user = await requireUser(request);
+    const wait = Math.min(10, Math.max(0, Number(new URL(request.url).searchParams.get("wait") ?? 2) || 0));
+    const { id } = await submitCapture(request, user.id);
+    const finished = wait > 0 ? await awaitCapture(id, wait) : null;
+    if (finished?.status === "done") return json(presentCapture(finished));
+    if (finished?.status === "failed") {
+      return json({ error: finished.errorCode, message: finished.errorMessage, id, poll: capturePath(id) }, { status: 422 });
+    }
+    return json({ id, status: "queued", poll: capturePath(id) }, { status: 202, headers: { Location: capturePath(id) } });
+  },
+});
+export const loader = route.loader;
+export const action = route.action;

@@ -27,12 +27,31 @@ export function payments(): Stripe {
   return client;
 }
 
+/** How far a webhook's signed timestamp may be from our clock, either way. */
+export const WEBHOOK_TOLERANCE_SECONDS = 300;
+
+/** A webhook whose signature does not hold; the message says why (for the 400 answer). */
+export class WebhookSignatureError extends Error {
+  override name = "WebhookSignatureError";
+}
+
 /**
- * The event in a webhook request, after checking its `Stripe-Signature` header against the raw
- * body (HMAC-SHA256, 300 s tolerance). Throws Stripe.errors.StripeSignatureVerificationError.
+ * The event in a webhook request, after checking its `Stripe-Signature` header against the raw body
+ * (HMAC-SHA256) and its timestamp against our clock. The SDK refuses only timestamps that are too old;
+ * one from the future is refused too, or a signature made ahead of time could be replayed later.
  */
-export function verifyWebhook(rawBody: string | Buffer, signature: string | null): Stripe.Event {
-  return Stripe.webhooks.constructEvent(rawBody, signature ?? "", env().stripe.webhookSecret);
+export function verifyWebhook(rawBody: string | Buffer, signature: string | null, now = Date.now()): Stripe.Event {
+  let event: Stripe.Event;
+  try {
+    event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", env().stripe.webhookSecret, WEBHOOK_TOLERANCE_SECONDS, undefined, now);
+  } catch (error) {
+    throw new WebhookSignatureError((error as Error).message);
+  }
+  const signedAt = Number(/(?:^|,)\s*t=(\d+)/.exec(signature ?? "")?.[1]);
+  if (!(Math.abs(now / 1000 - signedAt) <= WEBHOOK_TOLERANCE_SECONDS)) {
+    throw new WebhookSignatureError("Timestamp outside the tolerance zone");
+  }
+  return event;
 }
 
 export async function ping(): Promise<void> {

@@ -1,5 +1,8 @@
 import {
+  AbortMultipartUploadCommand,
+  CompleteMultipartUploadCommand,
   CreateBucketCommand,
+  CreateMultipartUploadCommand,
   DeleteObjectCommand,
   DeleteObjectsCommand,
   GetObjectCommand,
@@ -10,6 +13,7 @@ import {
   PutObjectCommand,
   S3Client,
   S3ServiceException,
+  UploadPartCommand,
 } from "@aws-sdk/client-s3";
 import { randomUUID } from "node:crypto";
 import type { Readable } from "node:stream";
@@ -63,6 +67,64 @@ export async function putObject(
     }),
   );
   return { key, etag: out.ETag };
+}
+
+/** Parts of a streamed upload: S3 wants at least 5 MiB for every part but the last. */
+const PART_BYTES = 8 * 1024 * 1024;
+
+/**
+ * Streams a body of unknown length into a new object, holding at most one part in memory: one PUT
+ * when it fits in a part, else a multipart upload that is aborted if the source fails (so no object
+ * appears). Answers the number of bytes stored.
+ */
+export async function putObjectStream(
+  key: string,
+  source: AsyncIterable<Uint8Array>,
+  opts: { contentType: string },
+): Promise<{ key: string; bytes: number }> {
+  let pending: Uint8Array[] = [];
+  let pendingBytes = 0;
+  let total = 0;
+  let uploadId: string | undefined;
+  const parts: { ETag?: string; PartNumber: number }[] = [];
+  const sendPart = async (body: Buffer) => {
+    uploadId ??= (await s3().send(new CreateMultipartUploadCommand({ Bucket: bucket(), Key: key, ContentType: opts.contentType }))).UploadId;
+    const PartNumber = parts.length + 1;
+    const out = await s3().send(
+      new UploadPartCommand({ Bucket: bucket(), Key: key, UploadId: uploadId, PartNumber, Body: body, ContentLength: body.length }),
+    );
+    parts.push({ ETag: out.ETag, PartNumber });
+  };
+  try {
+    for await (const chunk of source) {
+      pending.push(chunk);
+      pendingBytes += chunk.byteLength;
+      total += chunk.byteLength;
+      if (pendingBytes >= PART_BYTES) {
+        const joined = Buffer.concat(pending);
+        pending = [joined.subarray(PART_BYTES)];
+        pendingBytes = joined.length - PART_BYTES;
+        await sendPart(joined.subarray(0, PART_BYTES));
+      }
+    }
+    const rest = Buffer.concat(pending);
+    if (!uploadId) {
+      await putObject(key, rest, { contentType: opts.contentType, contentLength: rest.length });
+      return { key, bytes: total };
+    }
+    if (rest.length) await sendPart(rest);
+    await s3().send(
+      new CompleteMultipartUploadCommand({ Bucket: bucket(), Key: key, UploadId: uploadId, MultipartUpload: { Parts: parts } }),
+    );
+    return { key, bytes: total };
+  } catch (error) {
+    if (uploadId) {
+      await s3()
+        .send(new AbortMultipartUploadCommand({ Bucket: bucket(), Key: key, UploadId: uploadId }))
+        .catch(() => {}); // the local stand-in keeps no parts to abort
+    }
+    throw error;
+  }
 }
 
 export interface StoredObject {

@@ -20,6 +20,11 @@ export function checkBenchSheetJson(text: string): CheckResponse {
   } catch (e) {
     return { status: 400, body: { error: "invalid_json", message: `The body is not valid JSON: ${e instanceof Error ? e.message : String(e)}` } };
   }
+  return checkBenchSheetData(data);
+}
+
+/** The check on a body already parsed from JSON (the server reads it through its body reader). */
+export function checkBenchSheetData(data: unknown): Exclude<CheckResponse, { status: 413 } | { body: { error: "invalid_json" } }> {
   const parsed = parseBenchSheet(data);
   if (!parsed.ok)
     return { status: 400, body: { error: "invalid_sheet", message: "The bench sheet does not fit the schema; see issues.", issues: parsed.issues } };

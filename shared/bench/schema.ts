@@ -12,6 +12,7 @@ import {
   type Quantity,
 } from "./quantities";
 import { unitKind, kindName } from "./units";
+import { freeText, nameText } from "../text";
 
 export const CHANNELS = ["left", "right", "both", "mono"] as const;
 export const BASES = ["rated", "measured"] as const;
@@ -75,7 +76,7 @@ function readingFields<Q extends readonly [Quantity, ...Quantity[]]>(quantities:
     origin: z.enum(ORIGINS).default("typed"),
     captureId: z.string().min(1).max(64).optional(),
     conditions: conditionsSchema.default({}),
-    note: z.string().max(500).optional(),
+    note: freeText("The reading's note").max(500).optional(),
   };
 }
 
@@ -133,9 +134,9 @@ export const sweepSchema = z
 export type Sweep = z.infer<typeof sweepSchema>;
 
 export const equipmentSchema = z.strictObject({
-  maker: z.string().max(120).optional(),
-  model: z.string().max(120).optional(),
-  serial: z.string().max(120).optional(),
+  maker: nameText("The equipment's maker").max(120).optional(),
+  model: nameText("The equipment's model").max(120).optional(),
+  serial: nameText("The equipment's serial number").max(120).optional(),
   year: z.int().min(1900).max(2100).optional(),
 });
 
@@ -151,10 +152,10 @@ function sheetSchemaFor<C extends Category>(category: C) {
       /** Bridged (BTL) output: the peak swing may reach twice a rail. */
       bridged: z.boolean().optional(),
       measuredOn: z.iso.date().optional(),
-      measuredBy: z.string().max(120).optional(),
+      measuredBy: nameText("Measured by").max(120).optional(),
       readings: z.array(z.strictObject(readingFields(qs)).superRefine(checkReading)).max(300),
       sweeps: z.array(sweepSchema).max(16).default([]),
-      notes: z.string().max(4000).optional(),
+      notes: freeText("The notes").max(4000).optional(),
     })
     .superRefine((sheet, ctx) => {
       sheet.sweeps.forEach((s, i) => {

@@ -138,12 +138,13 @@ export const MATRIX: Record<string, Entry> = {
   "/api/v1/listings/:id/photos/:photoId": {
     cases: [{ params: (f) => ({ id: f.draft.id, photoId: f.photo.id }), get: everyone(405), writes: { DELETE: { expect: apiOwnerOnly(), last: true } } }],
   },
-  "/api/v1/captures/:id": { cases: [{ params: (f) => ({ id: f.capture.id }), get: apiOwnerOnly() }] },
+  // Read-only: its action (apiRoute's) answers every write with 405 in the API's one shape.
+  "/api/v1/captures/:id": { cases: [{ params: (f) => ({ id: f.capture.id }), get: apiOwnerOnly(), writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } } }] },
   // Any account may have a capture analysed; a form without a file is refused after the door.
   "/api/v1/captures/analyze": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiSignedIn(400) } } }] },
   "/api/v1/bench-sheets/check": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: {} }), expect: everyone(400) } } }] },
   // Authenticated by its signature, not a session: unsigned is 400 for everyone.
-  "/api/v1/webhooks/stripe": { cases: [{ writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } }] },
+  "/api/v1/webhooks/stripe": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } }] },
   "/healthz": { cases: [{ get: everyone("ok") }] },
   // Liveness and readiness for load balancers.
   "/healthz/live": { cases: [{ get: everyone("ok") }] },

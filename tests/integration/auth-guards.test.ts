@@ -128,7 +128,7 @@ describe("requireUser", () => {
   it("answers an anonymous API request with 401 JSON", async () => {
     const response = (await thrown(requireUser(request("/api/v1/watchlist")))) as Response;
     expect(response.status).toBe(401);
-    expect(await response.json()).toMatchObject({ error: "unauthenticated" });
+    expect(await response.json()).toEqual({ error: "unauthenticated", message: "Sign in to use this." });
   });
 });
 
@@ -151,7 +151,7 @@ describe("requireRole", () => {
   it("refuses an API call with 403 JSON naming the role", async () => {
     const response = (await thrown(requireRole(request("/api/v1/desk", await signedInCookie(ada)), "moderator"))) as Response;
     expect(response.status).toBe(403);
-    expect(await response.json()).toMatchObject({ error: "forbidden", roles: ["moderator"] });
+    expect(await response.json()).toEqual({ error: "forbidden", message: "This needs the moderator role." });
   });
 
   it("sends an anonymous visitor to sign in rather than showing 403", async () => {

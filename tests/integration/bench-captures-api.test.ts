@@ -142,18 +142,45 @@ describe("POST /api/v1/captures/analyze", () => {
     expect(done.sweep).toMatchObject({ kind: "flat", origin: "capture", captureId: id });
   });
 
-  it("refuses a bad file with its code and message and stores nothing", async () => {
+  it("refuses what the first bytes rule out with its code and message, and stores nothing", async () => {
     const before = await storedCaptureKeys();
     const rows = await Capture.count({ where: { ownerId: owner.id } });
     const res = await post(upload({ file: new Blob(["just some notes"], { type: "audio/wav" }), conditions: sineConditions }));
     expect(res.status).toBe(422);
-    expect(await res.json()).toEqual({ error: "NOT_WAV", message: '"capture.wav" is named as a WAV but holds text, not audio.' });
-    const clipped = toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000, peak: 1.5, bits: "16", channels: 1 });
-    const res2 = await post(upload({ file: wavBlob(clipped), conditions: sineConditions }));
-    expect(res2.status).toBe(422);
-    expect((await res2.json()).error).toBe("CLIPPED");
+    expect(await res.json()).toEqual({ error: "not_wav", message: '"capture.wav" is named as a WAV but holds text, not audio.' });
+    const sweepOfWav = await post(upload({ file: wavBlob(goodWav()), conditions: JSON.stringify({ kind: "sweep", reference: "flat" }) }));
+    expect(sweepOfWav.status).toBe(422);
+    expect((await sweepOfWav.json()).error).toBe("kind_mismatch");
     expect(await Capture.count({ where: { ownerId: owner.id } })).toBe(rows);
     expect(await storedCaptureKeys()).toEqual(before);
+  });
+
+  it("a clipped capture is the job's to refuse: the upload is queued, then fails with the same code and message", async () => {
+    const clipped = toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000, peak: 1.5, bits: "16", channels: 1 });
+    const res = await post(upload({ file: wavBlob(clipped), conditions: sineConditions }));
+    expect(res.status).toBe(202);
+    const { id } = await res.json();
+    const key = (await Capture.findByPk(id))!.storageKey!;
+    await analyseCaptureJob({ captureId: id });
+    const failed = await (await get(id)).json();
+    expect(failed).toMatchObject({ status: "failed", error: { error: "clipped", message: expect.stringMatching(/^The mono channel sits at digital full scale for \d+ samples/) } });
+    expect(await headObject(key)).toBeNull();
+  });
+
+  it("with ?wait=, a capture the job refuses answers 422 with the reason in the one shape (and where to read it again)", async () => {
+    const boss = await startBoss({ supervise: false, schedule: false });
+    try {
+      await boss.work(QUEUES.captureAnalyze, { pollingIntervalSeconds: 0.5 }, async ([job]) => {
+        await analyseCaptureJob(job.data);
+      });
+      const short = toneWav({ sampleRate: 48_000, seconds: 0.05, f0: 1000, peak: 0.5, bits: "16", channels: 1 });
+      const res = await post(upload({ file: wavBlob(short), conditions: sineConditions }, { wait: 10 }));
+      expect(res.status).toBe(422);
+      const body = await res.json();
+      expect(body).toEqual({ error: "too_short", message: expect.stringContaining("a 5 Hz resolution needs at least 0.200 s"), id: expect.any(String), poll: `/api/v1/captures/${body.id}` });
+    } finally {
+      await boss.stop({ graceful: false, wait: true });
+    }
   });
 
   it("over 50 MB: 413, refused from the Content-Length before the body is read", async () => {
@@ -164,25 +191,27 @@ describe("POST /api/v1/captures/analyze", () => {
     });
     const res = await post(req);
     expect(res.status).toBe(413);
-    expect(await res.json()).toEqual({ error: "FILE_TOO_LARGE", message: "The upload is 60.0 MB; captures are limited to 50.0 MB." });
+    expect(await res.json()).toEqual({ error: "file_too_large", message: "The upload is 60 MB; captures are limited to 50 MB." });
   });
 
   it("conditions that do not fit: 400 with the path of each problem", async () => {
     const res = await post(upload({ file: wavBlob(goodWav()), conditions: JSON.stringify({ kind: "sine", loadOhm: -8 }) }));
     expect(res.status).toBe(400);
     const body = await res.json();
-    expect(body.error).toBe("INVALID_CONDITIONS");
+    expect(body.error).toBe("invalid_conditions");
     expect(body.issues.map((i: { path: string }) => i.path)).toEqual(expect.arrayContaining(["scale", "loadOhm"]));
     const missing = await post(upload({ conditions: sineConditions }));
     expect(missing.status).toBe(400);
-    expect((await missing.json()).error).toBe("FILE_MISSING");
+    expect((await missing.json()).error).toBe("no_file");
   });
 
   it("if the row cannot be written, the stored file is removed again", async () => {
     const before = await storedCaptureKeys();
     const spy = vi.spyOn(Capture, "create").mockRejectedValueOnce(new Error("database went away"));
     try {
-      await expect(post(upload({ file: wavBlob(goodWav()), conditions: sineConditions }))).rejects.toThrow("database went away");
+      const res = await post(upload({ file: wavBlob(goodWav()), conditions: sineConditions }));
+      expect(res.status).toBe(500);
+      expect(await res.json()).toEqual({ error: "server_error", message: expect.stringContaining("try again") });
     } finally {
       spy.mockRestore();
     }
@@ -199,7 +228,7 @@ describe("POST /api/v1/captures/analyze", () => {
     await analyseCaptureJob({ captureId: id });
     const failed = await (await get(id)).json();
     expect(failed.status).toBe("failed");
-    expect(failed.error.error).toBe("NO_FUNDAMENTAL");
+    expect(failed.error.error).toBe("no_fundamental");
     expect(failed.error.message).toContain("within ±10 % of the stated 1000 Hz");
     expect(await headObject(key)).toBeNull();
   });
@@ -212,7 +241,7 @@ describe("GET /api/v1/captures/:id", () => {
     expect((await get(id)).status).toBe(200);
     const other = await get(id, strangerCookie);
     expect(other.status).toBe(404);
-    expect(await other.json()).toEqual({ error: "NOT_FOUND", message: "No capture of yours has that id." });
+    expect(await other.json()).toEqual({ error: "not_found", message: "No capture of yours has that id." });
     expect((await get(randomUUID())).status).toBe(404);
     expect((await get("not-an-id")).status).toBe(404);
   });

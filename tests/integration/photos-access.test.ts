@@ -23,7 +23,7 @@ let other: Awaited<ReturnType<typeof makeSeller>>;
 let listing: Listing;
 const ids: string[] = [];
 
-const notFound = { error: "not_found", message: "There is no such listing among yours." };
+const notFound = { error: "not_found", message: "No listing of yours has that address." };
 
 async function snapshot() {
   const rows = await ListingPhoto.findAll({ where: { listingId: listing.id }, order: [["position", "ASC"]], raw: true });
@@ -120,7 +120,7 @@ describe("the owner", { timeout: 30_000 }, () => {
     }
     const res = await arrange(listing.id, { order: "first" }, owner.cookie);
     expect(res.status).toBe(400);
-    expect(await res.json()).toMatchObject({ error: "bad_request", message: expect.stringMatching(/^order /) });
+    expect(await res.json()).toMatchObject({ error: "invalid", message: expect.stringMatching(/^order /), issues: [{ path: "order", message: expect.any(String) }] });
   });
 
   it("deletes a photo: row and every stored object go, the rest close up and the cover passes on", async () => {

@@ -52,7 +52,7 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
   const cases: [string, () => Promise<Uint8Array> | Uint8Array, string, number, string, RegExp][] = [
     ["a text file renamed .jpg", textFile, "front.jpg", 415, "unsupported_type", /is really a text file/],
     ["a 60-megapixel PNG", () => bilevelPng(10_000, 6_000), "scan.png", 422, "too_many_pixels", /60\.0 megapixels/],
-    ["a truncated JPEG", async () => (await twoToneJpeg(400, 300)).subarray(0, 4000), "cut.jpg", 422, "truncated_file", /cut short/],
+    ["a truncated JPEG (small enough to be checked whole as it arrives)", async () => (await twoToneJpeg(400, 300)).subarray(0, 4000), "cut.jpg", 422, "truncated_file", /cut short/],
     ["a 30 MB file", () => oversizeJpeg(30 * 1024 * 1024), "huge.jpg", 413, "file_too_large", /at most 20 MB/],
     ["an empty file", () => new Uint8Array(0), "empty.jpg", 422, "empty_file", /is empty/],
     ["an SVG with a script", svgWithScript, "badge.png", 415, "unsupported_type", /an SVG drawing with a script in it/],
@@ -74,6 +74,22 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
       expect(await photoJobCount()).toBe(jobsBefore);
     });
   }
+
+  it("a larger truncated JPEG passes the header check as it streams in; the job walks the whole file and marks it failed", async () => {
+    const draft = await makeDraft(seller.user.id);
+    // Comment segments ahead of the image push its end past the first 256 KB the upload reads.
+    const jpeg = await twoToneJpeg(400, 300);
+    const comment = Buffer.concat([Buffer.from([0xff, 0xfe, 0xff, 0xff]), Buffer.alloc(0xfffd, 0x20)]);
+    const padded = Buffer.concat([jpeg.subarray(0, 2), ...Array.from({ length: 5 }, () => comment), jpeg.subarray(2)]);
+    const res = await upload(draft.id, padded.subarray(0, padded.length - 500), "cut.jpg", seller.cookie);
+    expect(res.status).toBe(202);
+    const { photo } = await res.json();
+    expect(await processPhoto({ photoId: photo.id })).toBe("failed");
+    const row = await ListingPhoto.findByPk(photo.id);
+    expect(row).toMatchObject({ status: "failed", thumbKey: null, listingKey: null, zoomKey: null });
+    expect(row!.error).toMatch(/is a JPEG photo, but it looks cut short/);
+    expect(await headObject(incomingKey(photo.id))).toBeNull();
+  });
 
   it("a request with no file, or with two, is refused", async () => {
     const none = new FormData();
@@ -179,11 +195,11 @@ describe("a good photo", { timeout: 120_000 }, () => {
     expect(await photoObjectKeys()).toEqual(keys);
   });
 
-  it("that cannot be decoded is marked failed with a readable error and leaves no objects", async () => {
+  it("that turns out damaged is marked failed with a readable error and leaves no objects", async () => {
     const res = await upload(listing.id, await twoToneJpeg(120, 80), "second.jpg", seller.cookie);
     expect(res.status).toBe(202);
     const { photo } = await res.json();
-    // Replace the waiting upload with bytes the decoder rejects (the checks at upload passed already).
+    // Replace the waiting upload with a JPEG that has no image in it (the header check at upload passed already).
     await putObject(incomingKey(photo.id), Buffer.from([0xff, 0xd8, 0xff, 0xd9]), { contentType: "image/jpeg" });
     const before = await photoObjectKeys();
 
@@ -191,7 +207,7 @@ describe("a good photo", { timeout: 120_000 }, () => {
 
     const row = await ListingPhoto.findByPk(photo.id);
     expect(row).toMatchObject({ status: "failed", thumbKey: null, listingKey: null, zoomKey: null });
-    expect(row!.error).toMatch(/could not be decoded/);
+    expect(row!.error).toMatch(/is a JPEG photo, but it is damaged: it has no frame header/);
     before.delete(incomingKey(photo.id));
     expect(await photoObjectKeys()).toEqual(before);
     const listed = await (await listPhotos(listing.id, seller.cookie)).json();

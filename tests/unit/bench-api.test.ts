@@ -46,7 +46,7 @@ describe("POST /api/v1/bench-sheets/check", () => {
     const put = await action(routeArgs(new Request(URL_, { method: "PUT", body: "{}" }), {}));
     expect(put.status).toBe(405);
     expect(put.headers.get("Allow")).toBe("POST");
-    const get = loader(routeArgs(new Request(URL_), {}));
+    const get = await loader(routeArgs(new Request(URL_), {}));
     expect(get.status).toBe(405);
   });
 

@@ -11,6 +11,7 @@ import { ROLE_DESCRIPTIONS, ROLE_LABELS } from "~/auth/roles";
 import { resendVerification, signInMethods } from "~/auth/accounts.server";
 import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { AccountActionForm } from "~/auth/forms";
 import { requireSession } from "~/auth/guards.server";
 import { sessionList, type SessionRow } from "~/auth/session-list.server";
@@ -37,7 +38,7 @@ type ActionResult = { ok: boolean; text: string; section: "email" | "sessions" }
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const { user, sessionId } = await requireSession(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const parsed = AccountActionForm.safeParse(Object.fromEntries(form));
   if (!parsed.success) return data<ActionResult>({ ok: false, text: "Unknown request.", section: "email" }, { status: 400 });
   const input = parsed.data;

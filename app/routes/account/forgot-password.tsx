@@ -5,13 +5,14 @@ import { Field, FormError } from "~/components/Field";
 import { AuthPanel, Notice, TextLink } from "~/auth/AuthPanel";
 import { fieldErrors, ForgotPasswordForm } from "~/auth/forms";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { requestPasswordReset } from "~/auth/recovery.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Forgotten password · Loadline" }];
 
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const email = String(form.get("email") ?? "");
   const parsed = ForgotPasswordForm.safeParse({ email });
   if (!parsed.success) return data({ sent: false as const, email, errors: fieldErrors(parsed.error) }, { status: 400 });

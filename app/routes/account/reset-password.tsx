@@ -5,6 +5,7 @@ import { Field, FormError } from "~/components/Field";
 import { AuthPanel, TextLink } from "~/auth/AuthPanel";
 import { fieldErrors, ResetPasswordForm } from "~/auth/forms";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { resetPassword } from "~/auth/recovery.server";
 import { startSession } from "~/auth/session.server";
 import { inspectToken } from "~/auth/tokens.server";
@@ -28,7 +29,7 @@ export async function loader({ params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const parsed = ResetPasswordForm.safeParse({ password: form.get("password") ?? "", confirm: form.get("confirm") ?? "" });
   if (!parsed.success) return data({ problem: null, errors: fieldErrors(parsed.error) }, { status: 400 });
   const result = await resetPassword(params.token, parsed.data.password);

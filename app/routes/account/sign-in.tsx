@@ -8,6 +8,7 @@ import { safeRedirect } from "~/auth/redirect";
 import { authenticator, PASSWORD } from "~/auth/authenticator.server";
 import { SignInError } from "~/auth/accounts.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm, formRequest } from "~/http/body.server";
 import { getUser } from "~/auth/guards.server";
 import { startSession } from "~/auth/session.server";
 
@@ -32,13 +33,14 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const form = await request.clone().formData();
+  const form = await readPageForm(request);
   const redirectTo = safeRedirect(form.get("redirectTo"), "/");
   const email = String(form.get("email") ?? "");
   const parsed = SignInForm.safeParse({ email: form.get("email") ?? "", password: form.get("password") ?? "" });
   if (!parsed.success) return data({ email, errors: fieldErrors(parsed.error), formError: null }, { status: 400 });
   try {
-    const user = await authenticator.authenticate(PASSWORD, request);
+    // The strategy reads the form itself: hand it the one already read and checked.
+    const user = await authenticator.authenticate(PASSWORD, formRequest(request, form));
     return startSession(request, user, redirectTo);
   } catch (error) {
     if (!(error instanceof SignInError)) throw error;

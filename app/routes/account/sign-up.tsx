@@ -7,6 +7,7 @@ import { fieldErrors, SignUpForm } from "~/auth/forms";
 import { safeRedirect } from "~/auth/redirect";
 import { registerAccount } from "~/auth/accounts.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { getUser } from "~/auth/guards.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create an account · Loadline" }];
@@ -19,7 +20,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const values = { displayName: String(form.get("displayName") ?? ""), email: String(form.get("email") ?? "") };
   const parsed = SignUpForm.safeParse({ ...values, password: form.get("password") ?? "" });
   if (!parsed.success) return data({ sent: false as const, values, errors: fieldErrors(parsed.error) }, { status: 400 });

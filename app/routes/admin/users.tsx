@@ -10,6 +10,7 @@ import { fieldErrors, formObject, RolesForm, StatusForm } from "~/auth/forms";
 import { ROLE_LABELS, ROLES } from "~/auth/roles";
 import { listAccounts, setAccountRoles, setAccountStatus, type AccountRow } from "~/auth/admin.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { requireRole } from "~/auth/guards.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Accounts · Admin · Loadline" }];
@@ -25,7 +26,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const admin = await requireRole(request, "admin");
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const intent = form.get("intent");
   const userId = String(form.get("userId") ?? "");
   if (intent === "roles") {

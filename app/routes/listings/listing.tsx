@@ -2,6 +2,7 @@ import { data, isRouteErrorResponse, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/listing";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { getUser, requireUser } from "~/auth/guards.server";
 import { ErrorPage } from "~/components/ErrorPage";
 import { CATEGORY_LABELS } from "@shared/catalogue";
@@ -34,7 +35,7 @@ const WatchForm = z.object({ intent: z.enum(["watch", "unwatch"], { message: "Ch
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request, { redirectTo: `/listings/${params.id}` });
-  const parsed = WatchForm.safeParse(Object.fromEntries(await request.formData()));
+  const parsed = WatchForm.safeParse(Object.fromEntries(await readPageForm(request)));
   if (!parsed.success) return data({ reason: parsed.error.issues[0].message, path: "intent" }, { status: 400 });
   const result = await setWatch(user, params.id, parsed.data.intent === "watch");
   if (!result.ok) {

@@ -2,6 +2,7 @@ import { data, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/bench";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { BODY_LIMITS, readPageForm } from "~/http/body.server";
 import { ownListing } from "~/listings/access.server";
 import { saveBenchSheet } from "~/listings/bench.server";
 import { ListingInputError, ListingNotFound } from "~/listings/errors.server";
@@ -19,7 +20,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
   const listing = await ownListing(params.id, user.id).catch((e: unknown) => (e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e)));
-  const form = await request.formData();
+  const form = await readPageForm(request, { maxBytes: BODY_LIMITS.benchForm });
   const state = readSheetForm(form, listing.category);
   const read = readSheetState(state);
   if (!read.sheet) return data<Failure>({ ok: false, state, formError: `The sheet was not saved: ${read.errorCount} field${read.errorCount === 1 ? " needs" : "s need"} attention.`, issues: [] }, { status: 400 });

@@ -2,6 +2,7 @@ import { data, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/condition";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { BODY_LIMITS, readPageForm } from "~/http/body.server";
 import { saveCondition } from "~/listings/drafts.server";
 import { stepFailure } from "~/listings/http.server";
 import { ConditionForm } from "~/sell/ConditionForm";
@@ -13,7 +14,7 @@ import { isOneOf } from "@shared/one-of";
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request, { maxBytes: BODY_LIMITS.editorForm });
   const grade = form.get("cosmeticGrade");
   const service = form.get("serviceState");
   // What was sent, to fill the form in again next to its messages.

@@ -2,6 +2,7 @@ import { Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/index";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { redirectWithNotice } from "~/auth/session.server";
 import { sellerListings } from "~/listings/view.server";
 import { withdrawListing } from "~/listings/drafts.server";
@@ -25,7 +26,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   const id = String(form.get("listingId") ?? "");
   if (form.get("intent") !== "withdraw") return { ok: false as const, id, formError: "Unknown request." };
   if (form.get("confirm") !== "yes") return { ok: false as const, id, formError: "Confirm that you want to withdraw the listing." };

@@ -2,6 +2,7 @@ import { data, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/item";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { BODY_LIMITS, readPageForm } from "~/http/body.server";
 import { saveItem } from "~/listings/drafts.server";
 import { stepFailure } from "~/listings/http.server";
 import { ItemForm } from "~/sell/ItemForm";
@@ -11,7 +12,7 @@ import { ITEM_FORM_FIELD, itemFormValues, readItemForm } from "@shared/listing-d
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request, { maxBytes: BODY_LIMITS.editorForm });
   const values = Object.fromEntries([...form.entries()].map(([k, v]) => [k, typeof v === "string" ? (v === "on" ? true : v) : ""]));
   const read = readItemForm(form);
   if (!read.ok) return data({ ok: false as const, errors: read.errors, formError: undefined, values }, { status: 400 });

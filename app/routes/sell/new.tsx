@@ -2,6 +2,7 @@ import { data, Form, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/new";
 import { requireUser, hasRole } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { createDraft } from "~/listings/drafts.server";
 import { ListingInputError } from "~/listings/errors.server";
 import { Button } from "~/components/Button";
@@ -20,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   try {
     const listing = await createDraft(user, form.get("category"));
     return redirect(`/sell/${listing.id}/item`);

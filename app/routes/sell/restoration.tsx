@@ -2,6 +2,7 @@ import { data, Form, Link, redirect, useNavigation, useSearchParams } from "reac
 import type { Route } from "./+types/restoration";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { BODY_LIMITS, readPageForm } from "~/http/body.server";
 import { addRestorationEntry, deleteRestorationEntry, updateRestorationEntry } from "~/listings/restoration.server";
 import { stepFailure } from "~/listings/http.server";
 import { Button, ButtonLink } from "~/components/Button";
@@ -13,7 +14,7 @@ import { readRestorationForm, logValueText, type RestorationEntryView } from "@s
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request, { maxBytes: BODY_LIMITS.editorForm });
   const intent = form.get("intent");
   const entryId = String(form.get("entryId") ?? "");
   const values = Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));

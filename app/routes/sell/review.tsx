@@ -2,6 +2,7 @@ import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/review";
 import { requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
+import { readPageForm } from "~/http/body.server";
 import { redirectWithNotice } from "~/auth/session.server";
 import { publishListing } from "~/listings/publish.server";
 import { stepFailure } from "~/listings/http.server";
@@ -20,7 +21,7 @@ type Failure = { formError?: string; issues: string[] };
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const form = await request.formData();
+  const form = await readPageForm(request);
   if (form.get("intent") !== "publish") return data<Failure>({ formError: "Unknown request.", issues: [] }, { status: 400 });
   try {
     const { listing, verdict } = await publishListing(params.id, user);

@@ -51,7 +51,7 @@ export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
   }
   const [nx, ny] = spec.names;
   const expected = `'${nx}' and '${ny}'`;
-  if (rows.length === 0) throw new CaptureError("CSV_COLUMNS_MISSING", `The CSV file is empty; expected columns ${expected}.`);
+  if (rows.length === 0) throw new CaptureError("csv_columns_missing", `The CSV file is empty; expected columns ${expected}.`);
 
   // Semicolon files often use the decimal comma.
   const toNumber = (cell: string): number | null => {
@@ -70,7 +70,7 @@ export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
     if (colX < 0 || colY < 0) {
       const missing = [colX < 0 ? nx : null, colY < 0 ? ny : null].filter(Boolean).join("' and '");
       throw new CaptureError(
-        "CSV_COLUMNS_MISSING",
+        "csv_columns_missing",
         `The CSV header (line ${first.line}: ${first.cells.join(", ")}) has no '${missing}' column; expected columns ${expected}.`,
         { line: first.line, header: first.cells },
       );
@@ -86,7 +86,7 @@ export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
     const { line, cells } = rows[r];
     if (cells.length < need) {
       throw new CaptureError(
-        "CSV_COLUMNS_MISSING",
+        "csv_columns_missing",
         `Line ${line} has ${cells.length} column${cells.length === 1 ? "" : "s"}; expected columns ${expected}.`,
         { line },
       );
@@ -95,14 +95,14 @@ export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
     const vy = toNumber(cells[colY]);
     if (vx === null || vy === null) {
       const [name, cell] = vx === null ? [nx, cells[colX]] : [ny, cells[colY]];
-      throw new CaptureError("CSV_NOT_NUMBER", `Line ${line}, column '${name}': '${cell}' is not a number.`, { line, column: name });
+      throw new CaptureError("csv_not_number", `Line ${line}, column '${name}': '${cell}' is not a number.`, { line, column: name });
     }
     x[r] = vx;
     y[r] = vy;
   }
   if (rows.length < spec.minRows) {
     throw new CaptureError(
-      "CSV_TOO_FEW_ROWS",
+      "csv_too_few_rows",
       `The CSV file has ${rows.length} data row${rows.length === 1 ? "" : "s"}; at least ${spec.minRows} are needed.`,
       { rows: rows.length, minRows: spec.minRows },
     );

@@ -1,39 +1,39 @@
 // One error type for every refused capture, so the API can answer with a machine code and a sentence.
 
 export type CaptureErrorCode =
-  | "FILE_TOO_LARGE"
-  | "EMPTY_FILE"
-  | "NOT_WAV"
-  | "UNSUPPORTED_FORMAT"
-  | "TOO_LONG"
-  | "TOO_SHORT"
-  | "CLIPPED"
-  | "NO_FUNDAMENTAL"
-  | "CSV_COLUMNS_MISSING"
-  | "CSV_NOT_NUMBER"
-  | "CSV_TOO_FEW_ROWS"
-  | "CSV_NOT_INCREASING"
-  | "SWEEP_INVALID"
-  | "SQUARE_NO_EDGE"
-  | "KIND_MISMATCH";
+  | "file_too_large"
+  | "empty_file"
+  | "not_wav"
+  | "unsupported_format"
+  | "too_long"
+  | "too_short"
+  | "clipped"
+  | "no_fundamental"
+  | "csv_columns_missing"
+  | "csv_not_number"
+  | "csv_too_few_rows"
+  | "csv_not_increasing"
+  | "sweep_invalid"
+  | "square_no_edge"
+  | "kind_mismatch";
 
 /** HTTP status that fits each code: 413 for size, 422 for a file we read but cannot accept. */
 export const CAPTURE_ERROR_STATUS: Record<CaptureErrorCode, 413 | 422> = {
-  FILE_TOO_LARGE: 413,
-  EMPTY_FILE: 422,
-  NOT_WAV: 422,
-  UNSUPPORTED_FORMAT: 422,
-  TOO_LONG: 422,
-  TOO_SHORT: 422,
-  CLIPPED: 422,
-  NO_FUNDAMENTAL: 422,
-  CSV_COLUMNS_MISSING: 422,
-  CSV_NOT_NUMBER: 422,
-  CSV_TOO_FEW_ROWS: 422,
-  CSV_NOT_INCREASING: 422,
-  SWEEP_INVALID: 422,
-  SQUARE_NO_EDGE: 422,
-  KIND_MISMATCH: 422,
+  file_too_large: 413,
+  empty_file: 422,
+  not_wav: 422,
+  unsupported_format: 422,
+  too_long: 422,
+  too_short: 422,
+  clipped: 422,
+  no_fundamental: 422,
+  csv_columns_missing: 422,
+  csv_not_number: 422,
+  csv_too_few_rows: 422,
+  csv_not_increasing: 422,
+  sweep_invalid: 422,
+  square_no_edge: 422,
+  kind_mismatch: 422,
 };
 
 export class CaptureError extends Error {
@@ -50,8 +50,9 @@ export class CaptureError extends Error {
     this.details = details;
   }
 
-  toJSON(): { error: CaptureErrorCode; message: string; details?: Record<string, unknown> } {
-    return this.details ? { error: this.code, message: this.message, details: this.details } : { error: this.code, message: this.message };
+  /** The API's one error shape; `details` stay with the error for code that wants them. */
+  toJSON(): { error: CaptureErrorCode; message: string } {
+    return { error: this.code, message: this.message };
   }
 }
 

@@ -150,7 +150,7 @@ export function analyseSineChannel(samples: Float64Array, channel: string, rc: R
   const minSamples = Math.ceil(fs / rc.resolutionHz);
   if (x.length < minSamples) {
     throw new CaptureError(
-      "TOO_SHORT",
+      "too_short",
       `The capture holds ${(x.length / fs).toFixed(3)} s (${x.length} samples at ${fs} Hz); a ${rc.resolutionHz} Hz resolution needs at least ${(minSamples / fs).toFixed(3)} s.`,
       { samples: x.length, sampleRate: fs, neededSamples: minSamples },
     );
@@ -180,7 +180,7 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
     }
   }
   if (peak < 0 || peakPower === 0) {
-    throw new CaptureError("NO_FUNDAMENTAL", `No fundamental found ${where}: the capture is silent there.`);
+    throw new CaptureError("no_fundamental", `No fundamental found ${where}: the capture is silent there.`);
   }
   const fz = zoneAround(peak, h, last);
   const p1 = sumZone(p, fz);
@@ -192,7 +192,7 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
   if (f0 / binHz < neededBins) {
     const needS = (neededBins / f0) * (spec.nWindow / spec.nFft);
     throw new CaptureError(
-      "TOO_SHORT",
+      "too_short",
       `The capture is too short to separate the harmonics of a ${f0.toFixed(1)} Hz tone: it needs at least ${needS.toFixed(2)} s, it holds ${(spec.nWindow / rc.sampleRate).toFixed(2)} s.`,
       { fundamentalHz: f0, neededSeconds: needS },
     );
@@ -250,7 +250,7 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
   const noisePerZone = noiseBins > 0 ? (noiseRaw / noiseBins) * (fz.hi - fz.lo + 1) : 0;
   if (!(p1 > 1000 * noisePerZone) || u1 * Math.SQRT2 < 1e-7) {
     throw new CaptureError(
-      "NO_FUNDAMENTAL",
+      "no_fundamental",
       `No fundamental found ${where}: the strongest component (${(peak * binHz).toFixed(1)} Hz, ${dB(u1 * Math.SQRT2).toFixed(1)} dBFS) does not stand 30 dB clear of the noise.`,
       { strongestHz: peak * binHz },
     );
@@ -288,7 +288,7 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
 
 /** Analyse every channel of a capture (samples scaled to ±1.0 full scale). */
 export function analyseSine(channels: Float64Array[], sampleRate: number, conditions: SineConditions, labels?: string[]): SineAnalysis {
-  if (channels.length === 0) throw new CaptureError("NO_FUNDAMENTAL", "The capture has no channels.");
+  if (channels.length === 0) throw new CaptureError("no_fundamental", "The capture has no channels.");
   const rc = resolveSineConditions(conditions, sampleRate, channels[0].length);
   const names = labels ?? (channels.length === 1 ? ["mono"] : channels.length === 2 ? ["left", "right"] : channels.map((_, i) => `ch${i + 1}`));
   const out: SineChannelAnalysis[] = [];
@@ -299,7 +299,7 @@ export function analyseSine(channels: Float64Array[], sampleRate: number, condit
       out.push(analyseSineChannel(ch, names[i], rc));
     } catch (e) {
       // One side of a stereo file may be empty; the capture stands if another side has the tone.
-      if (!(e instanceof CaptureError) || e.code !== "NO_FUNDAMENTAL" || channels.length === 1) throw e;
+      if (!(e instanceof CaptureError) || e.code !== "no_fundamental" || channels.length === 1) throw e;
       firstError ??= e;
       skipped.push({ channel: names[i], error: e.code, message: e.message });
     }

@@ -109,7 +109,7 @@ export function analyseSquare(time: Float64Array, volts: Float64Array): SquareAn
   const n = time.length;
   for (let i = 1; i < n; i++) {
     if (!(time[i] > time[i - 1])) {
-      throw new CaptureError("CSV_NOT_INCREASING", `The time column must rise from row to row; data row ${i + 1} (${time[i]} s) does not follow ${time[i - 1]} s.`, { row: i + 1 });
+      throw new CaptureError("csv_not_increasing", `The time column must rise from row to row; data row ${i + 1} (${time[i]} s) does not follow ${time[i - 1]} s.`, { row: i + 1 });
     }
   }
   let min = Infinity;
@@ -118,13 +118,13 @@ export function analyseSquare(time: Float64Array, volts: Float64Array): SquareAn
     min = Math.min(min, volts[i]);
     max = Math.max(max, volts[i]);
   }
-  if (!(max > min)) throw new CaptureError("SQUARE_NO_EDGE", "The trace is flat: no edge to measure.");
+  if (!(max > min)) throw new CaptureError("square_no_edge", "The trace is flat: no edge to measure.");
   const midpoint = (min + max) / 2;
   const low = histogramMode(volts, min, midpoint);
   const high = histogramMode(volts, midpoint, max);
   const rising = edges(time, volts, low, high, 1);
   if (rising.length === 0) {
-    throw new CaptureError("SQUARE_NO_EDGE", "No complete rising edge (from below 10 % to above 90 % of the step) was found in the trace.");
+    throw new CaptureError("square_no_edge", "No complete rising edge (from below 10 % to above 90 % of the step) was found in the trace.");
   }
   const falling = edges(time, volts, low, high, -1);
   const rise = median(rising.map((e) => e.duration));

@@ -70,14 +70,14 @@ export function analyseSweep(frequency: Float64Array, level: Float64Array, c: Sw
   const f = Float64Array.from(order, (i) => frequency[i]);
   const raw = Float64Array.from(order, (i) => level[i]);
   for (let i = 0; i < f.length; i++) {
-    if (!(f[i] > 0)) throw new CaptureError("SWEEP_INVALID", `Frequencies must be above 0 Hz; found ${f[i]} Hz.`);
-    if (i > 0 && f[i] === f[i - 1]) throw new CaptureError("SWEEP_INVALID", `The frequency ${f[i]} Hz appears twice in the sweep.`);
-    if (levelUnit === "V" && !(raw[i] > 0)) throw new CaptureError("SWEEP_INVALID", `Levels in volts must be above 0 V; found ${raw[i]} V at ${f[i]} Hz.`);
+    if (!(f[i] > 0)) throw new CaptureError("sweep_invalid", `Frequencies must be above 0 Hz; found ${f[i]} Hz.`);
+    if (i > 0 && f[i] === f[i - 1]) throw new CaptureError("sweep_invalid", `The frequency ${f[i]} Hz appears twice in the sweep.`);
+    if (levelUnit === "V" && !(raw[i] > 0)) throw new CaptureError("sweep_invalid", `Levels in volts must be above 0 V; found ${raw[i]} V at ${f[i]} Hz.`);
   }
   const lo = f[0];
   const hi = f[f.length - 1];
   if (!(lo <= 1000 && hi >= 1000)) {
-    throw new CaptureError("SWEEP_INVALID", `The sweep runs from ${lo} Hz to ${hi} Hz; it must include 1 kHz, the reference frequency.`);
+    throw new CaptureError("sweep_invalid", `The sweep runs from ${lo} Hz to ${hi} Hz; it must include 1 kHz, the reference frequency.`);
   }
   const db = levelUnit === "V" ? raw.map((v) => 20 * Math.log10(v)) : raw;
   const ref = interpAt(f, db, 1000);
