@@ -12,7 +12,10 @@ export default defineConfig({
   test: {
     projects: [
       { resolve: { alias }, test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"], environment: "node", testTimeout: 30_000 } },
-      { resolve: { alias }, test: { name: "reference", include: ["tests/reference/**/*.test.ts"], environment: "node", testTimeout: 60_000 } },
+      {
+        resolve: { alias },
+        test: { name: "reference", include: ["tests/reference/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
+      },
       {
         resolve: { alias },
         test: {

@@ -11,15 +11,15 @@ const port = z.coerce.number().int().min(1).max(65535);
 // first while cookies signed with the old one keep working until the old one is dropped.
 const sessionSecrets = z
   .string({
-    error:
-      "is not set. Set at least 32 random characters (e.g. `openssl rand -base64 48`); `npm start` and `npm test` make their own",
+    error: "is not set. Set at least 32 random characters (e.g. `openssl rand -base64 48`); `npm start` and `npm test` make their own",
   })
-  .transform((value) => value.split(",").map((s) => s.trim()).filter(Boolean))
-  .pipe(
-    z
-      .array(z.string().min(32, "must be at least 32 characters (each one, when several are given)"))
-      .min(1, "has no secret in it"),
-  );
+  .transform((value) =>
+    value
+      .split(",")
+      .map((s) => s.trim())
+      .filter(Boolean),
+  )
+  .pipe(z.array(z.string().min(32, "must be at least 32 characters (each one, when several are given)")).min(1, "has no secret in it"));
 
 const EnvSchema = z
   .object({
@@ -34,7 +34,10 @@ const EnvSchema = z
     S3_REGION: z.string().default("us-east-1"),
     S3_ACCESS_KEY_ID: z.string().optional(),
     S3_SECRET_ACCESS_KEY: z.string().optional(),
-    S3_BUCKET: z.string().regex(/^[a-z0-9.-]{3,63}$/, "must be a valid bucket name").default("loadline-media"),
+    S3_BUCKET: z
+      .string()
+      .regex(/^[a-z0-9.-]{3,63}$/, "must be a valid bucket name")
+      .default("loadline-media"),
 
     SMTP_URL: z.url().optional(),
     MAIL_FROM: z.string().default("Loadline <no-reply@loadline.test>"),

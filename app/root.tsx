@@ -84,6 +84,6 @@ export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
     const message = typeof body === "object" && body && "message" in body ? String(body.message) : undefined;
     return <ErrorPage status={error.status} message={message} />;
   }
-  const detail = import.meta.env.DEV && error instanceof Error ? error.stack ?? error.message : undefined;
+  const detail = import.meta.env.DEV && error instanceof Error ? (error.stack ?? error.message) : undefined;
   return <ErrorPage status={500} detail={detail} />;
 }

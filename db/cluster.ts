@@ -20,9 +20,7 @@ export type Cluster = { url: string; startedHere: boolean; stop: () => Promise<v
 
 function pgBinDir(): string {
   const root = "/usr/lib/postgresql";
-  const versions = fs.existsSync(root)
-    ? fs.readdirSync(root).filter((v) => fs.existsSync(path.join(root, v, "bin", "initdb")))
-    : [];
+  const versions = fs.existsSync(root) ? fs.readdirSync(root).filter((v) => fs.existsSync(path.join(root, v, "bin", "initdb"))) : [];
   versions.sort((a, b) => Number(b) - Number(a));
   if (!versions[0]) {
     throw new Error("PostgreSQL server binaries not found under /usr/lib/postgresql; run `npm start` to install them");

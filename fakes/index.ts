@@ -107,7 +107,9 @@ async function guard<T>(name: string, port: number, start: () => Promise<T>): Pr
     return await start();
   } catch (err) {
     if ((err as NodeJS.ErrnoException).code === "EADDRINUSE") {
-      throw new Error(`The local ${name} cannot listen on 127.0.0.1:${port}: the port is taken (is another Loadline running?).`, { cause: err });
+      throw new Error(`The local ${name} cannot listen on 127.0.0.1:${port}: the port is taken (is another Loadline running?).`, {
+        cause: err,
+      });
     }
     throw err;
   }

@@ -50,9 +50,7 @@ export class MailStore {
   list(filter: { to?: string } = {}): CaughtMessage[] {
     const to = filter.to?.trim().toLowerCase();
     if (!to) return [...this.messages];
-    return this.messages.filter((m) =>
-      [...m.envelope.to, ...m.to, ...m.cc].some((addr) => addr.toLowerCase() === to),
-    );
+    return this.messages.filter((m) => [...m.envelope.to, ...m.to, ...m.cc].some((addr) => addr.toLowerCase() === to));
   }
 
   get(id: string): CaughtMessage | undefined {

@@ -138,8 +138,7 @@ export async function startOAuthProvider(opts: OAuthProviderOptions): Promise<Ru
   }
 
   const AUTH_PARAMS = ["response_type", "client_id", "redirect_uri", "scope", "state", "code_challenge", "code_challenge_method", "nonce"];
-  const carried = (p: URLSearchParams) =>
-    Object.fromEntries(AUTH_PARAMS.filter((k) => p.get(k) !== null).map((k) => [k, p.get(k)!]));
+  const carried = (p: URLSearchParams) => Object.fromEntries(AUTH_PARAMS.filter((k) => p.get(k) !== null).map((k) => [k, p.get(k)!]));
 
   async function authorize(req: IncomingMessage, res: ServerResponse, url: URL): Promise<void> {
     const p = req.method === "POST" ? new URLSearchParams((await readBody(req)).toString("utf8")) : url.searchParams;
@@ -196,9 +195,14 @@ export async function startOAuthProvider(opts: OAuthProviderOptions): Promise<Ru
     const body = new URLSearchParams(raw.toString("utf8"));
     const client = clientOf(req, body);
     if (!client || client.id !== opts.clientId || !sameText(client.secret, opts.clientSecret)) {
-      return sendJson(res, 401, { error: "invalid_client", error_description: "client authentication failed" }, {
-        "www-authenticate": 'Basic realm="loadline-local"',
-      });
+      return sendJson(
+        res,
+        401,
+        { error: "invalid_client", error_description: "client authentication failed" },
+        {
+          "www-authenticate": 'Basic realm="loadline-local"',
+        },
+      );
     }
     const grantType = body.get("grant_type");
     if (grantType === "authorization_code") {

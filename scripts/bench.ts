@@ -82,10 +82,22 @@ async function captureFigures(): Promise<Figure[]> {
   const size = nextPowerOfTwo(channels[0].length);
   const file = `10 s stereo 96 kHz 24-bit WAV (${(bytes.length / 1048576).toFixed(1)} MB)`;
   return [
-    { label: `capture analysis, ${file}, first run (FFT tables, window, A-weighting built), wall / CPU ${ms(coldWall)} / ${ms(coldCpu)} ms`, value: ms(coldCpu), unit: "ms CPU" },
-    { label: `capture analysis, same file, wall time, median of ${runs} (min ${ms(Math.min(...a.map((x) => x[0])))} ms)`, value: ms(aWall), unit: "ms" },
+    {
+      label: `capture analysis, ${file}, first run (FFT tables, window, A-weighting built), wall / CPU ${ms(coldWall)} / ${ms(coldCpu)} ms`,
+      value: ms(coldCpu),
+      unit: "ms CPU",
+    },
+    {
+      label: `capture analysis, same file, wall time, median of ${runs} (min ${ms(Math.min(...a.map((x) => x[0])))} ms)`,
+      value: ms(aWall),
+      unit: "ms",
+    },
     { label: `capture analysis, same file, CPU time, median of ${runs}`, value: ms(aCpu), unit: "ms", limit: 300 },
-    { label: `bare fft.js real FFT of both channels (2 × ${size} points), wall / CPU median of ${runs}`, value: ms(fCpu), unit: `ms CPU (wall ${ms(fWall)} ms)` },
+    {
+      label: `bare fft.js real FFT of both channels (2 × ${size} points), wall / CPU median of ${runs}`,
+      value: ms(fCpu),
+      unit: `ms CPU (wall ${ms(fWall)} ms)`,
+    },
     { label: "capture analysis ÷ bare FFT, CPU-time medians", value: Math.round((aCpu / fCpu) * 100) / 100, unit: "×", limit: 2 },
     { label: "capture analysis ÷ bare FFT, wall-time medians", value: Math.round((aWall / fWall) * 100) / 100, unit: "×" },
     { label: "load average over the last minute (2 cores)", value: Math.round(os.loadavg()[0] * 100) / 100, unit: "" },
@@ -123,8 +135,13 @@ notes.push(...edge.notes);
 // The anonymous account forms' timing and health checks under load need a running app: `npm start`,
 // or BENCH_URL.
 const benchUrl = process.env.BENCH_URL ?? "http://127.0.0.1:3000";
-const answers = await fetch(`${benchUrl}/healthz`, { signal: AbortSignal.timeout(5000) }).then(() => true, () => false);
-const accountNote = answers ? undefined : `account-form timing skipped: nothing answers at ${benchUrl} (run \`npm start\`, or set BENCH_URL)`;
+const answers = await fetch(`${benchUrl}/healthz`, { signal: AbortSignal.timeout(5000) }).then(
+  () => true,
+  () => false,
+);
+const accountNote = answers
+  ? undefined
+  : `account-form timing skipped: nothing answers at ${benchUrl} (run \`npm start\`, or set BENCH_URL)`;
 if (answers) figures.push(...(await (await import("./bench/account-timing")).accountTimingFigures(benchUrl)));
 if (answers) figures.push(...(await (await import("./bench/health")).healthFigures(benchUrl)));
 else notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);

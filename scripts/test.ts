@@ -34,7 +34,9 @@ function count(name: string, file: string, exitCode: number) {
   total.skipped += (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
   if (r.numFailedTests > 0) failures.push(`${name}: ${r.numFailedTests} failed`);
   // A suite that fails to load counts as a failure even when no test in it ran.
-  const broken = (r.testResults ?? []).filter((t: { status: string; assertionResults: unknown[] }) => t.status === "failed" && t.assertionResults.length === 0);
+  const broken = (r.testResults ?? []).filter(
+    (t: { status: string; assertionResults: unknown[] }) => t.status === "failed" && t.assertionResults.length === 0,
+  );
   if (broken.length) {
     total.failed += broken.length;
     failures.push(`${name}: ${broken.length} file(s) failed to load`);
@@ -47,8 +49,14 @@ function count(name: string, file: string, exitCode: number) {
 
 async function vitest(name: string, projects: string[], env: Record<string, string>) {
   const file = path.join(reports, `${name}.json`);
-  const args = ["run", ...projects.flatMap((pr) => ["--project", pr]), "--reporter=default", "--reporter=json",
-    `--outputFile.json=${file}`, ...(filters.length ? ["--passWithNoTests", ...filters] : [])];
+  const args = [
+    "run",
+    ...projects.flatMap((pr) => ["--project", pr]),
+    "--reporter=default",
+    "--reporter=json",
+    `--outputFile.json=${file}`,
+    ...(filters.length ? ["--passWithNoTests", ...filters] : []),
+  ];
   const code = await finished(launch(bin("vitest"), args, env));
   count(name, file, code);
 }
@@ -133,4 +141,3 @@ async function browserSuite(env: Record<string, string>) {
 if (failures.length) console.log(`\nFailures:\n${failures.map((f) => `  - ${f}`).join("\n")}`);
 console.log(`\n${total.passed} passed, ${total.failed} failed${total.skipped ? `, ${total.skipped} skipped` : ""}`);
 process.exit(exitCode || (total.failed > 0 ? 1 : 0));
-

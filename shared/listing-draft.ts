@@ -184,7 +184,9 @@ export function readItemForm(form: FormLike): { ok: true; value: ItemValues } | 
 }
 
 /** The item step's inputs filled from stored values. */
-export function itemFormValues(v: Omit<Partial<ItemValues>, "currency" | "country"> & { currency?: string; country?: string | null }): Record<string, string | boolean> {
+export function itemFormValues(
+  v: Omit<Partial<ItemValues>, "currency" | "country"> & { currency?: string; country?: string | null },
+): Record<string, string | boolean> {
   const currency: Currency = v.currency && isCurrency(v.currency) ? v.currency : "EUR";
   const out: Record<string, string | boolean> = {
     category: v.category ?? "",

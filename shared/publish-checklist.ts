@@ -34,7 +34,13 @@ export function publishChecklist(i: ChecklistInput): ChecklistItem[] {
     { id: "title", step: "item", label: "Maker and model", ok: !!(l.maker && l.model), hint: "Buyers search by both." },
     { id: "price", step: "item", label: "Price", ok: l.priceMinor !== null, hint: "The asking price; say whether offers are welcome." },
     { id: "location", step: "item", label: "Where the unit is", ok: !!l.country, hint: "At least the country, for shipping zones." },
-    { id: "weight", step: "item", label: "Weight", ok: l.weightG !== null, hint: "Buyers and carriers need it; 30 kg and more means freight." },
+    {
+      id: "weight",
+      step: "item",
+      label: "Weight",
+      ok: l.weightG !== null,
+      hint: "Buyers and carriers need it; 30 kg and more means freight.",
+    },
     {
       id: "shipping",
       step: "item",

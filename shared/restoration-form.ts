@@ -48,9 +48,7 @@ export function parseLogValue(text: string): { ok: true; value: number; unit: st
 export const logValueText = (r: Pick<RestorationReading, "value" | "unit">) => `${r.value} ${r.unit}`;
 
 /** Reads the entry form; rows left blank are skipped. Row fields are `parts.N.part`, `before.N.value` …. */
-export function readRestorationForm(
-  form: FormLike,
-): { ok: true; value: RestorationEntryValues } | { ok: false; errors: FieldErrors } {
+export function readRestorationForm(form: FormLike): { ok: true; value: RestorationEntryValues } | { ok: false; errors: FieldErrors } {
   const errors: FieldErrors = {};
   const parts: RestorationPart[] = [];
   for (let i = 0; i < MAX_PARTS + 10; i++) {
@@ -91,7 +89,10 @@ export function readRestorationForm(
   const parsed = RestorationEntrySchema.safeParse(raw);
   if (!parsed.success) {
     const named = Object.entries(issuesToFields(parsed.error.issues)).map(([k, m]): [string, typeof m] => [
-      k.replace(/^readingsBefore/, "before").replace(/^readingsAfter/, "after").replace(/\.unit$/, ".value"),
+      k
+        .replace(/^readingsBefore/, "before")
+        .replace(/^readingsAfter/, "after")
+        .replace(/\.unit$/, ".value"),
       m,
     ]);
     return { ok: false, errors: Object.fromEntries(named) };

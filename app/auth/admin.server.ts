@@ -23,28 +23,27 @@ export interface AccountRow {
 export async function listAccounts({ query, page }: { query?: string; page: number }) {
   const q = query?.trim();
   const like = q ? `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
-  const where: WhereOptions<User> = like
-    ? { [Op.or]: [{ email: { [Op.iLike]: like } }, { displayName: { [Op.iLike]: like } }] }
-    : {};
+  const where: WhereOptions<User> = like ? { [Op.or]: [{ email: { [Op.iLike]: like } }, { displayName: { [Op.iLike]: like } }] } : {};
   const { rows, count } = await User.findAndCountAll({
     where,
-    order: [["createdAt", "DESC"], ["id", "ASC"]],
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "ASC"],
+    ],
     limit: ACCOUNTS_PER_PAGE,
     offset: (page - 1) * ACCOUNTS_PER_PAGE,
   });
   return {
-    accounts: rows.map(
-      (u): AccountRow => ({
-        id: u.id,
-        email: u.email,
-        displayName: u.displayName,
-        roles: normaliseRoles(u.roles),
-        status: u.status,
-        emailVerified: u.emailVerifiedAt !== null,
-        createdAt: u.createdAt.toISOString(),
-        lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
-      }),
-    ),
+    accounts: rows.map((u): AccountRow => ({
+      id: u.id,
+      email: u.email,
+      displayName: u.displayName,
+      roles: normaliseRoles(u.roles),
+      status: u.status,
+      emailVerified: u.emailVerifiedAt !== null,
+      createdAt: u.createdAt.toISOString(),
+      lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
+    })),
     total: count,
     pageCount: Math.max(1, Math.ceil(count / ACCOUNTS_PER_PAGE)),
   };
@@ -76,7 +75,8 @@ export async function setAccountStatus(actor: SessionUser, userId: string, statu
     if (status !== "active") await revokeAllSessions(user.id, transaction);
     return {
       ok: true,
-      message: status === "suspended" ? `${user.displayName} is suspended and signed out everywhere.` : `${user.displayName} is active again.`,
+      message:
+        status === "suspended" ? `${user.displayName} is suspended and signed out everywhere.` : `${user.displayName} is active again.`,
     };
   });
 }

@@ -15,7 +15,8 @@ const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 export function crossOriginReason(request: Request): string | null {
   if (SAFE_METHODS.has(request.method.toUpperCase())) return null;
   const site = request.headers.get("Sec-Fetch-Site");
-  if (site === "cross-site" || site === "same-site") return `the browser says it came from a ${site === "cross-site" ? "different" : "neighbouring"} site`;
+  if (site === "cross-site" || site === "same-site")
+    return `the browser says it came from a ${site === "cross-site" ? "different" : "neighbouring"} site`;
   const origin = request.headers.get("Origin");
   if (origin === null) return null;
   const ours = new Set([new URL(request.url).origin, new URL(env().appUrl).origin]);
@@ -27,7 +28,10 @@ export function assertSameOrigin(request: Request): void {
   const reason = crossOriginReason(request);
   if (!reason) return;
   if (new URL(request.url).pathname.startsWith("/api/")) {
-    throw refusal("cross_origin", `This request was refused because ${reason}; use Loadline's own pages or call the API without a browser.`);
+    throw refusal(
+      "cross_origin",
+      `This request was refused because ${reason}; use Loadline's own pages or call the API without a browser.`,
+    );
   }
   throw data({ message: "This form was sent from another site, so it was refused." }, { status: 403, statusText: "Forbidden" });
 }

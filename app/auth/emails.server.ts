@@ -100,10 +100,7 @@ export async function sendAccountExistsEmail(to: { email: string; displayName: s
 }
 
 /** Repeated wrong passwords for an account: its owner hears once an hour at most (rate-limit.server.ts). */
-export async function sendSignInWarningEmail(
-  to: { email: string; displayName: string },
-  seen: { failures: number; addresses: number },
-) {
+export async function sendSignInWarningEmail(to: { email: string; displayName: string }, seen: { failures: number; addresses: number }) {
   const from = seen.addresses === 1 ? "one address" : `${seen.addresses} addresses`;
   await send(
     to.email,

@@ -53,14 +53,8 @@ async function linkOrCreate(profile: ProviderProfile): Promise<User> {
       await user.update({ emailVerifiedAt: new Date(), passwordHash: null }, { transaction });
       await revokeAllSessions(user.id, transaction);
     }
-    user ??= await createAccount(
-      { email, displayName: profile.name?.trim() || email.split("@")[0], emailVerified: true },
-      transaction,
-    );
-    await OAuthIdentity.create(
-      { userId: user.id, provider: profile.provider, subject: profile.subject, email },
-      { transaction },
-    );
+    user ??= await createAccount({ email, displayName: profile.name?.trim() || email.split("@")[0], emailVerified: true }, transaction);
+    await OAuthIdentity.create({ userId: user.id, provider: profile.provider, subject: profile.subject, email }, { transaction });
     return user;
   });
   if (user.status !== "active") throw new SignInError("suspended", SUSPENDED);

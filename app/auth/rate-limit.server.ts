@@ -42,7 +42,10 @@ export function tooManyAttemptsMessage(retryAfterSeconds: number): string {
 export function clientAddress(request: Request): string | null {
   const forwarded = request.headers.get("x-forwarded-for");
   if (!forwarded) return null;
-  const hops = forwarded.split(",").map((h) => h.trim()).filter(Boolean);
+  const hops = forwarded
+    .split(",")
+    .map((h) => h.trim())
+    .filter(Boolean);
   return hops.at(-1)?.slice(0, 64) ?? null;
 }
 

@@ -83,10 +83,7 @@ export async function revokeSessionToken(token: string): Promise<void> {
 
 /** Ends one of the account's own sessions; false when it is not theirs or already ended. */
 export async function revokeOwnSession(userId: string, sessionId: string): Promise<boolean> {
-  const [count] = await AccountSession.update(
-    { revokedAt: new Date() },
-    { where: { id: sessionId, userId, revokedAt: null } },
-  );
+  const [count] = await AccountSession.update({ revokedAt: new Date() }, { where: { id: sessionId, userId, revokedAt: null } });
   return count > 0;
 }
 
@@ -109,6 +106,9 @@ export async function revokeAllSessions(userId: string, transaction?: Transactio
 export function listOpenSessions(userId: string): Promise<AccountSession[]> {
   return AccountSession.findAll({
     where: { userId, revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
-    order: [["lastSeenAt", "DESC"], ["createdAt", "DESC"]],
+    order: [
+      ["lastSeenAt", "DESC"],
+      ["createdAt", "DESC"],
+    ],
   });
 }

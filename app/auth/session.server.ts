@@ -57,11 +57,7 @@ export async function readSession(request: Request): Promise<LiveSession | null>
  * Opens a session row for the account and returns the Set-Cookie value that carries it. The one
  * way a session begins: sign-in routes through startSession, test helpers directly.
  */
-export async function openSession(
-  userId: string,
-  client: ClientInfo,
-  notice?: string,
-): Promise<{ setCookie: string; sessionId: string }> {
+export async function openSession(userId: string, client: ClientInfo, notice?: string): Promise<{ setCookie: string; sessionId: string }> {
   const { token, record } = await createSessionRecord(userId, client);
   const fresh = await sessionStorage().getSession();
   fresh.set("sid", token);

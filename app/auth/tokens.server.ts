@@ -57,11 +57,7 @@ export async function inspectToken(token: string, purpose: TokenPurpose): Promis
  * Uses a token: one UPDATE marks it used only if it is unused and unexpired, so two clicks racing
  * each other cannot both succeed. Pass the transaction the token's effect is written in.
  */
-export async function consumeToken(
-  token: string,
-  purpose: TokenPurpose,
-  transaction?: Transaction,
-): Promise<TokenState> {
+export async function consumeToken(token: string, purpose: TokenPurpose, transaction?: Transaction): Promise<TokenState> {
   if (!TOKEN_SHAPE.test(token)) return { ok: false, reason: "unknown" };
   const rows = await sequelize.query<{ user_id: string }>(
     `UPDATE account_tokens SET used_at = now()
@@ -76,8 +72,5 @@ export async function consumeToken(
 
 /** After a reset, older links of that kind stop working too. */
 export async function retireTokens(userId: string, purpose: TokenPurpose, transaction?: Transaction) {
-  await AccountToken.update(
-    { usedAt: new Date() },
-    { where: { userId, purpose, usedAt: null }, transaction },
-  );
+  await AccountToken.update({ usedAt: new Date() }, { where: { userId, purpose, usedAt: null }, transaction });
 }

@@ -9,7 +9,15 @@ import { readMultipart, splitHead, type FilePart } from "~/http/multipart.server
 import { refusal, type HttpError } from "~/http/errors.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { deleteObjects, putObjectStream, randomKey } from "~/services/storage.server";
-import { CAPTURE_LIMITS, CaptureError, HEADER_BYTES, checkHeader, identifyCapture, inferKind, type CaptureFileKind } from "./captures.server";
+import {
+  CAPTURE_LIMITS,
+  CaptureError,
+  HEADER_BYTES,
+  checkHeader,
+  identifyCapture,
+  inferKind,
+  type CaptureFileKind,
+} from "./captures.server";
 import { readConditions } from "./capture-form.server";
 
 // Multipart framing and the condition fields around the file.
@@ -32,7 +40,8 @@ export async function submitCapture(request: Request, ownerId: string): Promise<
         refusal("file_too_large", `The upload is ${declared ? sizeText(declared) : `over ${limit}`}; captures are limited to ${limit}.`, {
           headers: { Connection: "close" },
         }),
-      fileTooLarge: () => refusal("file_too_large", `The file is over ${limit}; captures are limited to ${limit}.`, { headers: { Connection: "close" } }),
+      fileTooLarge: () =>
+        refusal("file_too_large", `The file is over ${limit}; captures are limited to ${limit}.`, { headers: { Connection: "close" } }),
       tooManyFiles: () => refusal("one_file_only", "Send one capture per request, in the field `file`."),
       onFile: (part) => receive(part, written),
     });

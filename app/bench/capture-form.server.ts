@@ -4,13 +4,22 @@ import { captureConditionsSchema, type CaptureConditions, type CaptureKind } fro
 
 export type ConditionsIssue = { path: string; message: string };
 
-export type ConditionsResult =
-  | { ok: true; conditions: CaptureConditions }
-  | { ok: false; message: string; issues: ConditionsIssue[] };
+export type ConditionsResult = { ok: true; conditions: CaptureConditions } | { ok: false; message: string; issues: ConditionsIssue[] };
 
 const NUMBER_FIELDS = [
-  "volts", "fullScaleVolts", "attenuation", "loadOhm", "fundamentalHz", "resolutionHz", "mainsV", "warmUpS", "frequencyHz",
-  "bandwidthLowHz", "bandwidthHighHz", "bandLowHz", "bandHighHz",
+  "volts",
+  "fullScaleVolts",
+  "attenuation",
+  "loadOhm",
+  "fundamentalHz",
+  "resolutionHz",
+  "mainsV",
+  "warmUpS",
+  "frequencyHz",
+  "bandwidthLowHz",
+  "bandwidthHighHz",
+  "bandLowHz",
+  "bandHighHz",
 ];
 
 /** A form value as the schema wants it: numbers as numbers, "true"/"false" as booleans; blanks dropped. */
@@ -93,7 +102,20 @@ export function readConditions(form: FormData, inferred: CaptureKind | null): Co
 }
 
 const KIND_FIELDS: Record<string, string[]> = {
-  sine: ["kind", "scale", "loadOhm", "fundamentalHz", "bandwidth", "weighting", "window", "resolutionHz", "channel", "channelsDriven", "mainsV", "warmUpS"],
+  sine: [
+    "kind",
+    "scale",
+    "loadOhm",
+    "fundamentalHz",
+    "bandwidth",
+    "weighting",
+    "window",
+    "resolutionHz",
+    "channel",
+    "channelsDriven",
+    "mainsV",
+    "warmUpS",
+  ],
   square: ["kind", "channel", "loadOhm", "frequencyHz"],
   sweep: ["kind", "levelUnit", "reference", "iecPole", "band", "channel", "loadOhm"],
 };

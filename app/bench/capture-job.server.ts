@@ -32,7 +32,12 @@ export async function analyseCaptureJob(data: unknown): Promise<{ status: string
 
   try {
     const conditions = captureConditionsSchema.parse(capture.conditions);
-    const result = analyseCapture(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength), capture.fileName, conditions, capture.id);
+    const result = analyseCapture(
+      new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength),
+      capture.fileName,
+      conditions,
+      capture.id,
+    );
     await capture.update({
       status: "done",
       format: result.format,

@@ -32,9 +32,7 @@ export const CAPTURE_LIMITS = { maxBytes: 50 * 1024 * 1024, maxSeconds: 60 } as 
 
 export type CaptureFileKind = "wav" | "csv";
 
-export type CaptureFormat =
-  | ({ file: "wav" } & WavFormat)
-  | { file: "csv"; rows: number; header: [string, string] | null };
+export type CaptureFormat = ({ file: "wav" } & WavFormat) | { file: "csv"; rows: number; header: [string, string] | null };
 
 export type CaptureAnalysis =
   | { kind: "sine"; analysis: SineAnalysis; readings: Reading[]; format: CaptureFormat }
@@ -87,19 +85,22 @@ const KIND_WORDS: Record<CaptureKind, string> = {
 
 function checkKind(kind: CaptureKind, file: CaptureFileKind) {
   if (FILE_FOR_KIND[kind] !== file) {
-    throw new CaptureError(
-      "kind_mismatch",
-      `The conditions describe ${KIND_WORDS[kind]}, but the file is a ${file.toUpperCase()}.`,
-      { kind, file },
-    );
+    throw new CaptureError("kind_mismatch", `The conditions describe ${KIND_WORDS[kind]}, but the file is a ${file.toUpperCase()}.`, {
+      kind,
+      file,
+    });
   }
 }
 
 function checkWav(w: WavFormat, c: SineCaptureConditions) {
   if (w.durationS > CAPTURE_LIMITS.maxSeconds) {
-    throw new CaptureError("too_long", `The capture lasts ${w.durationS.toFixed(1)} s; captures are limited to ${CAPTURE_LIMITS.maxSeconds} s.`, {
-      seconds: w.durationS,
-    });
+    throw new CaptureError(
+      "too_long",
+      `The capture lasts ${w.durationS.toFixed(1)} s; captures are limited to ${CAPTURE_LIMITS.maxSeconds} s.`,
+      {
+        seconds: w.durationS,
+      },
+    );
   }
   const resolution = c.resolutionHz ?? SINE_DEFAULTS.resolutionHz;
   const need = Math.ceil(w.sampleRate / resolution);
@@ -205,7 +206,12 @@ export function analyseCapture(bytes: Uint8Array, filename: string, conditions: 
     return { kind: "square", analysis, readings: squareToReadings(analysis, conditions, captureId), format };
   }
   const levelUnit = sweepLevelUnit(conditions, cols.header);
-  const analysis = analyseSweep(cols.x, cols.y, { levelUnit, reference: conditions.reference, iecPole: conditions.iecPole, band: conditions.band });
+  const analysis = analyseSweep(cols.x, cols.y, {
+    levelUnit,
+    reference: conditions.reference,
+    iecPole: conditions.iecPole,
+    band: conditions.band,
+  });
   const { sweep, readings } = sweepToSheet(analysis, { ...conditions, levelUnit }, captureId);
   return { kind: "sweep", analysis, readings, sweep, format };
 }

@@ -1,9 +1,6 @@
 // What a file really is, from its first bytes, so a refusal can say "this is an MP3", not just "bad file".
 
-export type Sniffed =
-  | { kind: "wav"; container: "RIFF" | "RIFX" | "RF64" }
-  | { kind: "text" }
-  | { kind: "other"; description: string };
+export type Sniffed = { kind: "wav"; container: "RIFF" | "RIFX" | "RF64" } | { kind: "text" } | { kind: "other"; description: string };
 
 const ascii = (b: Uint8Array, at: number, len: number) => String.fromCharCode(...b.subarray(at, at + len));
 

@@ -62,7 +62,11 @@ export function readWavFormat(bytes: Uint8Array): { format: WavFormat; data: Uin
   if (code === 0xfffe) code = fmt.subformat?.[0] ?? 0; // WAVE_FORMAT_EXTENSIBLE: the real format is in the sub-format GUID
   if (code !== 1 && code !== 3) {
     const name = FORMAT_NAMES[code] ?? `format code 0x${code.toString(16).padStart(4, "0")}`;
-    throw new CaptureError("unsupported_format", `The WAV holds ${name} audio; upload uncompressed PCM (16, 24 or 32-bit) or 32-bit float.`, { formatCode: code });
+    throw new CaptureError(
+      "unsupported_format",
+      `The WAV holds ${name} audio; upload uncompressed PCM (16, 24 or 32-bit) or 32-bit float.`,
+      { formatCode: code },
+    );
   }
   const encoding = code === 1 ? "pcm" : "float";
   const bits = fmt.bitsPerSample;
@@ -70,10 +74,15 @@ export function readWavFormat(bytes: Uint8Array): { format: WavFormat; data: Uin
   if (!okBits.includes(bits)) {
     const what = encoding === "pcm" ? `${bits}-bit PCM` : `${bits}-bit float`;
     const why = encoding === "pcm" && bits < 16 ? " (too coarse to measure distortion)" : "";
-    throw new CaptureError("unsupported_format", `The WAV is ${what}${why}; upload 16, 24 or 32-bit PCM, or 32-bit float.`, { bitDepth: bits, encoding });
+    throw new CaptureError("unsupported_format", `The WAV is ${what}${why}; upload 16, 24 or 32-bit PCM, or 32-bit float.`, {
+      bitDepth: bits,
+      encoding,
+    });
   }
   if (fmt.numChannels !== 1 && fmt.numChannels !== 2) {
-    throw new CaptureError("unsupported_format", `The WAV has ${fmt.numChannels} channels; upload mono or stereo.`, { channels: fmt.numChannels });
+    throw new CaptureError("unsupported_format", `The WAV has ${fmt.numChannels} channels; upload mono or stereo.`, {
+      channels: fmt.numChannels,
+    });
   }
   if (fmt.sampleRate < SAMPLE_RATE_RANGE.min || fmt.sampleRate > SAMPLE_RATE_RANGE.max) {
     throw new CaptureError(
@@ -84,7 +93,10 @@ export function readWavFormat(bytes: Uint8Array): { format: WavFormat; data: Uin
   }
   const frameBytes = fmt.numChannels * (bits / 8);
   if (fmt.blockAlign !== frameBytes) {
-    throw new CaptureError("not_wav", `The WAV header is inconsistent: ${fmt.blockAlign} bytes per frame for ${fmt.numChannels} × ${bits}-bit.`);
+    throw new CaptureError(
+      "not_wav",
+      `The WAV header is inconsistent: ${fmt.blockAlign} bytes per frame for ${fmt.numChannels} × ${bits}-bit.`,
+    );
   }
   // A recorder that stopped abruptly leaves a size that runs past the file; use what is there.
   const data = wav.data.samples;
@@ -120,7 +132,8 @@ export function decodeWavData(format: WavFormat, bytes: Uint8Array): DecodedWav 
     for (let i = 0; i < frames; i++)
       for (let c = 0; c < nch; c++, off += 4) {
         const v = view.getFloat32(off, le);
-        if (!Number.isFinite(v)) throw new CaptureError("not_wav", `The WAV holds a sample that is not a number (frame ${i}); the file is damaged.`);
+        if (!Number.isFinite(v))
+          throw new CaptureError("not_wav", `The WAV holds a sample that is not a number (frame ${i}); the file is damaged.`);
         samples[c][i] = v;
       }
   } else if (bitDepth === 16) {

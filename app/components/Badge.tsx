@@ -9,7 +9,9 @@ const outcomeStyle: Record<Outcome, { className: string; label: string; icon: Re
   consistent: {
     label: "Consistent",
     className: "border-trace/30 bg-trace-wash text-trace",
-    icon: <path d="M4.5 8.3l2.2 2.2 4.8-5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />,
+    icon: (
+      <path d="M4.5 8.3l2.2 2.2 4.8-5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+    ),
   },
   questionable: {
     label: "Questionable",
@@ -65,9 +67,7 @@ const tones: Record<Tone, string> = {
 /** A small label for states and conditions (e.g. "Lived-in", "Held for review"). */
 export function Badge({ tone = "neutral", children, className }: { tone?: Tone; children: ReactNode; className?: string }) {
   return (
-    <span
-      className={cx("inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium leading-5", tones[tone], className)}
-    >
+    <span className={cx("inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium leading-5", tones[tone], className)}>
       {children}
     </span>
   );

@@ -41,7 +41,9 @@ const COPY: Record<number, { overline: string; title: string; text: string }> = 
 
 /** The full-page error: a clear title, what it means, and where to go next. */
 export function ErrorPage({ status, message, detail }: { status: number; message?: string; detail?: string }) {
-  const copy = COPY[status] ?? (status >= 500 ? COPY[500] : { overline: `${status}`, title: "That did not work", text: "The request could not be completed." });
+  const copy =
+    COPY[status] ??
+    (status >= 500 ? COPY[500] : { overline: `${status}`, title: "That did not work", text: "The request could not be completed." });
   return (
     <main className="mx-auto flex w-full max-w-2xl flex-1 flex-col justify-center px-4 py-16 sm:px-6">
       <p className="figures text-sm font-medium uppercase tracking-[0.14em] text-brass-ink">{copy.overline}</p>

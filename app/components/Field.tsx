@@ -81,9 +81,7 @@ export function Field({ label, error, hint, unit, optional, className, id, ...in
         unit ? (
           <div className="relative">
             <input {...a11y} {...input} className={cx(controlClass, "pr-12 figures")} />
-            <span className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm text-ink-faint figures">
-              {unit}
-            </span>
+            <span className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm text-ink-faint figures">{unit}</span>
           </div>
         ) : (
           <input {...a11y} {...input} className={controlClass} />

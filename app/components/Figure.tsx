@@ -24,12 +24,7 @@ export function Figure({
     <div className={cx("min-w-0", className)}>
       {label ? <div className="mb-0.5 text-[0.6875rem] font-semibold uppercase tracking-[0.1em] text-ink-faint">{label}</div> : null}
       <div className="flex flex-wrap items-baseline gap-x-2 gap-y-0.5">
-        <span
-          className={cx(
-            "figures font-medium text-ink",
-            size === "lg" ? "text-2xl" : size === "md" ? "text-lg" : "text-[0.9375rem]",
-          )}
-        >
+        <span className={cx("figures font-medium text-ink", size === "lg" ? "text-2xl" : size === "md" ? "text-lg" : "text-[0.9375rem]")}>
           {value}
           <span className="ml-1 text-ink-soft">{unit}</span>
         </span>

@@ -35,9 +35,7 @@ export function ListingCard({ listing, href, className }: { listing: ListingSumm
         ) : (
           <div className="flex size-full items-center justify-center text-sm text-ink-faint">No photo yet</div>
         )}
-        {l.benchVerified ? (
-          <BenchVerifiedMark compact className="absolute left-2.5 top-2.5 bg-card/95 backdrop-blur-sm" />
-        ) : null}
+        {l.benchVerified ? <BenchVerifiedMark compact className="absolute left-2.5 top-2.5 bg-card/95 backdrop-blur-sm" /> : null}
       </div>
       <div className="flex flex-1 flex-col gap-3 p-4">
         <div className="space-y-0.5">
@@ -52,7 +50,13 @@ export function ListingCard({ listing, href, className }: { listing: ListingSumm
           </h3>
         </div>
         {l.keyFigure ? (
-          <Figure size="sm" label={l.keyFigure.label} value={l.keyFigure.value} unit={l.keyFigure.unit} conditions={l.keyFigure.conditions} />
+          <Figure
+            size="sm"
+            label={l.keyFigure.label}
+            value={l.keyFigure.value}
+            unit={l.keyFigure.unit}
+            conditions={l.keyFigure.conditions}
+          />
         ) : (
           <p className="text-[0.8125rem] text-ink-faint">No bench figures given</p>
         )}

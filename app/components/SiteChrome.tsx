@@ -26,7 +26,9 @@ const NAV: NavItem[] = [
 const navLink = ({ isActive }: { isActive: boolean }) =>
   cx(
     "relative inline-flex h-10 items-center rounded-md px-3 text-[0.9375rem] font-medium no-underline transition-colors",
-    isActive ? "text-walnut-deep after:absolute after:inset-x-3 after:-bottom-px after:h-0.5 after:bg-walnut" : "text-ink-soft hover:bg-sunk hover:text-ink",
+    isActive
+      ? "text-walnut-deep after:absolute after:inset-x-3 after:-bottom-px after:h-0.5 after:bg-walnut"
+      : "text-ink-soft hover:bg-sunk hover:text-ink",
   );
 
 export function SiteHeader({ user }: { user: HeaderUser | null }) {
@@ -45,9 +47,7 @@ export function SiteHeader({ user }: { user: HeaderUser | null }) {
             </NavLink>
           ))}
         </nav>
-        <div className="ml-auto flex items-center gap-2">
-          {user ? <AccountMenu user={user} /> : <SignedOut />}
-        </div>
+        <div className="ml-auto flex items-center gap-2">{user ? <AccountMenu user={user} /> : <SignedOut />}</div>
       </div>
       {/* On a phone the sections get their own row under the wordmark. */}
       <nav aria-label="Main" className="border-t border-rule md:hidden">
@@ -115,15 +115,15 @@ export function SiteFooter() {
         <div className="space-y-2">
           <Wordmark className="scale-90 origin-left" />
           <p className="max-w-md">
-            Used and vintage hi-fi with its measurements checked: every bench-verified unit's figures passed the
-            bench's checks against physics and the trade's standards.
+            Used and vintage hi-fi with its measurements checked: every bench-verified unit's figures passed the bench's checks against
+            physics and the trade's standards.
           </p>
         </div>
         <div className="space-y-2 sm:text-right">
           <p className="max-w-md sm:ml-auto">
-            <strong className="font-semibold text-ink">Mains-powered gear can kill.</strong> Capacitors stay charged
-            after unplugging and valve amplifiers run at hundreds of volts: leave opening and measuring to a qualified
-            technician and follow your local electrical-safety rules.
+            <strong className="font-semibold text-ink">Mains-powered gear can kill.</strong> Capacitors stay charged after unplugging and
+            valve amplifiers run at hundreds of volts: leave opening and measuring to a qualified technician and follow your local
+            electrical-safety rules.
           </p>
           <p className="text-ink-faint">
             <Link to="/market" className="underline decoration-rule-strong underline-offset-2 hover:text-ink">

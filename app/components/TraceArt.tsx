@@ -17,10 +17,26 @@ export function TraceArt({ className }: { className?: string }) {
     <svg viewBox={`0 0 ${w} ${h}`} className={className} role="img" aria-label="A sine wave on an oscilloscope graticule">
       <rect x="0.5" y="0.5" width={w - 1} height={h - 1} rx="10" fill="#1f2a23" stroke="#2e6a4e" strokeOpacity="0.5" />
       {Array.from({ length: 9 }, (_, i) => (
-        <line key={`v${i}`} x1={(w / 10) * (i + 1)} y1="6" x2={(w / 10) * (i + 1)} y2={h - 6} stroke="#e1eee5" strokeOpacity={i === 4 ? 0.22 : 0.09} />
+        <line
+          key={`v${i}`}
+          x1={(w / 10) * (i + 1)}
+          y1="6"
+          x2={(w / 10) * (i + 1)}
+          y2={h - 6}
+          stroke="#e1eee5"
+          strokeOpacity={i === 4 ? 0.22 : 0.09}
+        />
       ))}
       {Array.from({ length: 7 }, (_, i) => (
-        <line key={`h${i}`} x1="6" y1={(h / 8) * (i + 1)} x2={w - 6} y2={(h / 8) * (i + 1)} stroke="#e1eee5" strokeOpacity={i === 3 ? 0.22 : 0.09} />
+        <line
+          key={`h${i}`}
+          x1="6"
+          y1={(h / 8) * (i + 1)}
+          x2={w - 6}
+          y2={(h / 8) * (i + 1)}
+          stroke="#e1eee5"
+          strokeOpacity={i === 3 ? 0.22 : 0.09}
+        />
       ))}
       <polyline points={points.join(" ")} fill="none" stroke="#6fd19c" strokeWidth="2.4" strokeLinejoin="round" />
       <polyline points={residue.join(" ")} fill="none" stroke="#d9b35f" strokeWidth="1.6" strokeOpacity="0.85" />

@@ -115,12 +115,7 @@ export function UploadRow({ item, onCancel, onDismiss }: { item: UploadItem; onC
   const percent = item.total > 0 ? Math.round((item.loaded / item.total) * 100) : 0;
   const refused = item.state === "refused";
   return (
-    <li
-      className={cx(
-        "rounded-md border px-3 py-2",
-        refused ? "border-fault/35 bg-fault-wash" : "border-rule bg-card",
-      )}
-    >
+    <li className={cx("rounded-md border px-3 py-2", refused ? "border-fault/35 bg-fault-wash" : "border-rule bg-card")}>
       <div className="flex items-center justify-between gap-3">
         <p className="min-w-0 truncate text-sm font-medium text-ink" title={item.file.name}>
           {item.file.name}

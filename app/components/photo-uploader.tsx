@@ -49,9 +49,7 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, title = "Pho
   const query = useQuery({
     queryKey,
     queryFn: () => fetchPhotos(listingId),
-    initialData: initialPhotos
-      ? { photos: initialPhotos, maxPhotos: PHOTO_LIMITS.maxPhotos, maxBytes: PHOTO_LIMITS.maxBytes }
-      : undefined,
+    initialData: initialPhotos ? { photos: initialPhotos, maxPhotos: PHOTO_LIMITS.maxPhotos, maxBytes: PHOTO_LIMITS.maxBytes } : undefined,
     staleTime: 0,
     refetchInterval: (q) => (q.state.data?.photos.some((p) => p.status === "processing") ? POLL_MS : false),
   });
@@ -132,9 +130,7 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, title = "Pho
       const index = photos.findIndex((p) => p.id === photoId);
       queryClient.setQueryData(queryKey, data);
       const next = data.photos[Math.min(index, data.photos.length - 1)];
-      pendingFocus.current = next
-        ? { photoId: next.id, action: "delete", index: Math.min(index, data.photos.length - 1) }
-        : "chooser";
+      pendingFocus.current = next ? { photoId: next.id, action: "delete", index: Math.min(index, data.photos.length - 1) } : "chooser";
       setAnnouncement(`Photo ${index + 1} deleted.`);
     },
   });
@@ -156,7 +152,13 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, title = "Pho
     const from = photos.findIndex((p) => p.id === photoId);
     if (from < 0 || to < 0 || to >= photos.length || from === to) return;
     pendingFocus.current = { photoId, action, index: to };
-    arrange.mutate({ order: moveId(photos.map((p) => p.id), from, to) });
+    arrange.mutate({
+      order: moveId(
+        photos.map((p) => p.id),
+        from,
+        to,
+      ),
+    });
     setAnnouncement(`Photo ${from + 1} moved to position ${to + 1}.`);
   }
 
@@ -216,20 +218,15 @@ export function PhotoUploader({ listingId, initialPhotos, onChange, title = "Pho
           Choose photos
         </Button>
         <p id={hintId} className="text-[0.8125rem] text-ink-faint">
-          JPEG or PNG, up to {formatBytes(maxBytes)} each, {maxPhotos} per listing. Location and camera details are
-          removed from every photo. The first photo is the cover unless you pick another.
+          JPEG or PNG, up to {formatBytes(maxBytes)} each, {maxPhotos} per listing. Location and camera details are removed from every
+          photo. The first photo is the cover unless you pick another.
         </p>
       </div>
 
       {uploads.length > 0 ? (
         <ul aria-label="Uploads" className="space-y-2">
           {uploads.map((u) => (
-            <UploadRow
-              key={u.key}
-              item={u}
-              onCancel={() => queue.cancel(u.key)}
-              onDismiss={() => queue.dismiss(u.key)}
-            />
+            <UploadRow key={u.key} item={u} onCancel={() => queue.cancel(u.key)} onDismiss={() => queue.dismiss(u.key)} />
           ))}
         </ul>
       ) : null}

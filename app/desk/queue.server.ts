@@ -47,28 +47,24 @@ export async function reviewQueue() {
   ]);
 
   return {
-    heldListings: held.map(
-      (l): HeldListingItem => ({
-        id: l.id,
-        title: [l.maker, l.model].filter(Boolean).join(" ") || "Untitled unit",
-        category: CATEGORY_LABELS[l.category]?.one ?? l.category,
-        reason: l.heldReason ?? "",
-        seller: l.seller?.displayName ?? "unknown seller",
-        workshop: l.workshop?.name ?? null,
-        since: l.updatedAt.toISOString(),
-      }),
-    ),
+    heldListings: held.map((l): HeldListingItem => ({
+      id: l.id,
+      title: [l.maker, l.model].filter(Boolean).join(" ") || "Untitled unit",
+      category: CATEGORY_LABELS[l.category]?.one ?? l.category,
+      reason: l.heldReason ?? "",
+      seller: l.seller?.displayName ?? "unknown seller",
+      workshop: l.workshop?.name ?? null,
+      since: l.updatedAt.toISOString(),
+    })),
     heldCount,
-    workshopApplications: applications.map(
-      (w): WorkshopApplicationItem => ({
-        id: w.id,
-        name: w.name,
-        place: [w.town, w.region, w.country].filter(Boolean).join(", "),
-        owner: w.owner?.displayName ?? "unknown",
-        ownerEmail: w.owner?.email ?? "",
-        since: w.createdAt.toISOString(),
-      }),
-    ),
+    workshopApplications: applications.map((w): WorkshopApplicationItem => ({
+      id: w.id,
+      name: w.name,
+      place: [w.town, w.region, w.country].filter(Boolean).join(", "),
+      owner: w.owner?.displayName ?? "unknown",
+      ownerEmail: w.owner?.email ?? "",
+      since: w.createdAt.toISOString(),
+    })),
     applicationCount,
   };
 }

@@ -65,7 +65,8 @@ export async function readForm(request: Request, options: FormOptions = {}): Pro
       maxFileBytes: Math.max(maxFileBytes, 1),
       maxFiles: maxFileBytes > 0 ? (options.maxFiles ?? 1) : 0,
       tooLarge: tooLarge(maxBytes, "The form"),
-      tooManyFiles: () => refusal("bad_request", maxFileBytes > 0 ? "The form carries more files than it takes." : "This form takes no files."),
+      tooManyFiles: () =>
+        refusal("bad_request", maxFileBytes > 0 ? "The form carries more files than it takes." : "This form takes no files."),
       onFile: async (file) => ({ file, bytes: await collect(file.stream) }),
     });
     form = fields;
@@ -73,7 +74,9 @@ export async function readForm(request: Request, options: FormOptions = {}): Pro
   } else {
     throw refusal(
       "unsupported_media_type",
-      type ? `A form is sent as application/x-www-form-urlencoded or multipart/form-data, not ${type}.` : "Send the form as application/x-www-form-urlencoded or multipart/form-data.",
+      type
+        ? `A form is sent as application/x-www-form-urlencoded or multipart/form-data, not ${type}.`
+        : "Send the form as application/x-www-form-urlencoded or multipart/form-data.",
     );
   }
   assertStorableForm(form);

@@ -143,7 +143,10 @@ const STATUS_TEXT: Record<number, string> = {
  */
 export function pageError(error: unknown): never {
   if (error instanceof HttpError) {
-    throw data({ message: error.message, error: error.code }, { status: error.status, statusText: STATUS_TEXT[error.status], headers: error.headers });
+    throw data(
+      { message: error.message, error: error.code },
+      { status: error.status, statusText: STATUS_TEXT[error.status], headers: error.headers },
+    );
   }
   throw error;
 }

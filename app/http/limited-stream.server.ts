@@ -19,7 +19,9 @@ export function sizeText(bytes: number): string {
 
 export function tooLarge(maxBytes: number, what = "The body"): (declared?: number) => HttpError {
   return (declared) =>
-    refusal("too_large", `${what} ${declared ? `is ${sizeText(declared)}; it ` : ""}may be at most ${sizeText(maxBytes)}.`, { headers: CLOSE });
+    refusal("too_large", `${what} ${declared ? `is ${sizeText(declared)}; it ` : ""}may be at most ${sizeText(maxBytes)}.`, {
+      headers: CLOSE,
+    });
 }
 
 /** The media type without parameters, lower-cased ("multipart/form-data"), or "" when there is none. */

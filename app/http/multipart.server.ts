@@ -34,8 +34,12 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
   const maxFields = options.maxFields ?? 200;
   const maxFieldBytes = options.maxFieldBytes ?? 64 * KiB;
   const onTooLarge = options.tooLarge ?? tooLarge(options.maxBytes);
-  const fileTooLarge = options.fileTooLarge ?? ((f: FilePart) => refusal("file_too_large", `The file “${f.filename}” is larger than ${sizeText(options.maxFileBytes)}.`, { headers: CLOSE }));
-  const tooManyFiles = options.tooManyFiles ?? (() => refusal("bad_request", `Send at most ${options.maxFiles} file${options.maxFiles === 1 ? "" : "s"}.`));
+  const fileTooLarge =
+    options.fileTooLarge ??
+    ((f: FilePart) =>
+      refusal("file_too_large", `The file “${f.filename}” is larger than ${sizeText(options.maxFileBytes)}.`, { headers: CLOSE }));
+  const tooManyFiles =
+    options.tooManyFiles ?? (() => refusal("bad_request", `Send at most ${options.maxFiles} file${options.maxFiles === 1 ? "" : "s"}.`));
   if (mediaType(request) !== "multipart/form-data") throw refusal("unsupported_media_type", "Send the upload as multipart/form-data.");
 
   let parser: busboy.Busboy;
@@ -68,10 +72,12 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
     failure = e;
     stop();
   };
-  const broken = (e: unknown) => (e instanceof HttpError ? e : refusal("bad_request", `The multipart body is broken: ${(e as Error).message}.`));
+  const broken = (e: unknown) =>
+    e instanceof HttpError ? e : refusal("bad_request", `The multipart body is broken: ${(e as Error).message}.`);
 
   parser.on("field", (name, value, info) => {
-    if (info.nameTruncated || info.valueTruncated) fail(refusal("too_large", `The field “${name.slice(0, 100)}” is longer than ${sizeText(maxFieldBytes)}.`, { headers: CLOSE }));
+    if (info.nameTruncated || info.valueTruncated)
+      fail(refusal("too_large", `The field “${name.slice(0, 100)}” is longer than ${sizeText(maxFieldBytes)}.`, { headers: CLOSE }));
     else fields.append(name, value);
   });
   parser.on("file", (field, stream, info) => {
@@ -96,7 +102,9 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
   });
   parser.on("filesLimit", () => fail(tooManyFiles()));
   parser.on("fieldsLimit", () => fail(refusal("too_large", `A form may carry at most ${maxFields} fields.`, { headers: CLOSE })));
-  parser.on("partsLimit", () => fail(refusal("too_large", `A form may carry at most ${options.maxFiles + maxFields} parts.`, { headers: CLOSE })));
+  parser.on("partsLimit", () =>
+    fail(refusal("too_large", `A form may carry at most ${options.maxFiles + maxFields} parts.`, { headers: CLOSE })),
+  );
   // Every error event is listened to (busboy may emit more than one, e.g. a bad header, then the
   // destroy): an unheard one would take the whole process down.
   const finished = new Promise<void>((resolve, reject) => {
@@ -131,7 +139,10 @@ export async function readMultipart<T>(request: Request, options: MultipartOptio
  * The first `want` bytes of a stream (fewer if it ends), whether that was all of it, and an iterator
  * over everything, from the start.
  */
-export async function splitHead(stream: Readable, want: number): Promise<{ head: Buffer; complete: boolean; all: AsyncIterable<Uint8Array> }> {
+export async function splitHead(
+  stream: Readable,
+  want: number,
+): Promise<{ head: Buffer; complete: boolean; all: AsyncIterable<Uint8Array> }> {
   const it = stream[Symbol.asyncIterator]() as AsyncIterator<Buffer>;
   const first: Buffer[] = [];
   let got = 0;

@@ -21,7 +21,10 @@ export async function ownListing(
 export function assertEditable(listing: Listing): void {
   if (listing.status === "sold") throw new ListingStateError("This unit is sold; its listing can no longer be changed.", "sold");
   if (listing.status === "removed")
-    throw new ListingStateError("A moderator removed this listing; it can no longer be changed. Write to the review desk if you disagree.", "removed");
+    throw new ListingStateError(
+      "A moderator removed this listing; it can no longer be changed. Write to the review desk if you disagree.",
+      "removed",
+    );
 }
 
 export function isPublished(listing: Pick<Listing, "status">): boolean {

@@ -31,12 +31,14 @@ async function fromOwnCaptures(sheet: Sheet, sellerId: string, transaction: Tran
   const ids = new Set<string>();
   sheet.readings.forEach((r, i) => {
     if (r.origin !== "capture") return;
-    if (!r.captureId || !isId(r.captureId)) issues.push({ path: `readings.${i}.captureId`, message: "A figure from a capture must name a capture you uploaded." });
+    if (!r.captureId || !isId(r.captureId))
+      issues.push({ path: `readings.${i}.captureId`, message: "A figure from a capture must name a capture you uploaded." });
     else ids.add(r.captureId);
   });
   (sheet.sweeps ?? []).forEach((s, i) => {
     if (s.origin !== "capture") return;
-    if (!s.captureId || !isId(s.captureId)) issues.push({ path: `sweeps.${i}.captureId`, message: "A sweep from a capture must name a capture you uploaded." });
+    if (!s.captureId || !isId(s.captureId))
+      issues.push({ path: `sweeps.${i}.captureId`, message: "A sweep from a capture must name a capture you uploaded." });
     else ids.add(s.captureId);
   });
   if (issues.length) throw new ListingInputError(issues);
@@ -47,13 +49,15 @@ async function fromOwnCaptures(sheet: Sheet, sellerId: string, transaction: Tran
     if (r.origin !== "capture") return;
     const c = byId.get(r.captureId!);
     if (!c) issues.push({ path: `readings.${i}.captureId`, message: "No capture of yours has that id." });
-    else if (c.status !== "done") issues.push({ path: `readings.${i}.captureId`, message: `The capture ${c.fileName} is not analysed yet.` });
+    else if (c.status !== "done")
+      issues.push({ path: `readings.${i}.captureId`, message: `The capture ${c.fileName} is not analysed yet.` });
   });
   (sheet.sweeps ?? []).forEach((sw, i) => {
     if (sw.origin !== "capture") return;
     const c = byId.get(sw.captureId!);
     if (!c) issues.push({ path: `sweeps.${i}.captureId`, message: "No capture of yours has that id." });
-    else if (c.status !== "done" || !c.sweep) issues.push({ path: `sweeps.${i}.captureId`, message: `The capture ${c.fileName} holds no analysed sweep.` });
+    else if (c.status !== "done" || !c.sweep)
+      issues.push({ path: `sweeps.${i}.captureId`, message: `The capture ${c.fileName} holds no analysed sweep.` });
   });
   if (issues.length) throw new ListingInputError(issues);
   const allowed = new Set<string>(CATEGORY_QUANTITIES[sheet.category]);
@@ -119,14 +123,21 @@ export function verdictUpdate(listing: Listing, sheet: Sheet | null, verdict: Ve
   return update;
 }
 
-export async function saveBenchSheet(listingId: string, sellerId: string, input: unknown, opts: { transaction?: Transaction } = {}): Promise<SheetSaveResult> {
+export async function saveBenchSheet(
+  listingId: string,
+  sellerId: string,
+  input: unknown,
+  opts: { transaction?: Transaction } = {},
+): Promise<SheetSaveResult> {
   const parsed = parseBenchSheet(input);
   if (!parsed.ok) throw new ListingInputError(parsed.issues);
   const run = async (transaction: Transaction): Promise<SheetSaveResult> => {
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
     assertEditable(listing);
     if (parsed.sheet.category !== listing.category)
-      throw new ListingInputError([{ path: "category", message: `This listing is for a ${listing.category.replace(/_/g, " ")}; the sheet must be too.` }]);
+      throw new ListingInputError([
+        { path: "category", message: `This listing is for a ${listing.category.replace(/_/g, " ")}; the sheet must be too.` },
+      ]);
     const merged = await fromOwnCaptures(parsed.sheet, sellerId, transaction);
     const again = parseBenchSheet(merged);
     if (!again.ok) throw new ListingInputError(again.issues);
@@ -150,7 +161,10 @@ export async function saveBenchSheet(listingId: string, sellerId: string, input:
 }
 
 /** The stored sheet and verdict of a listing the caller already owns. A sheet that no longer reads is null. */
-export async function storedSheet(listingId: string, transaction?: Transaction): Promise<{ sheet: Sheet | null; verdict: Verdict | null; checkedAt: Date | null }> {
+export async function storedSheet(
+  listingId: string,
+  transaction?: Transaction,
+): Promise<{ sheet: Sheet | null; verdict: Verdict | null; checkedAt: Date | null }> {
   const row = await BenchSheet.findOne({ where: { listingId }, transaction });
   if (!row) return { sheet: null, verdict: null, checkedAt: null };
   return { sheet: row.sheet, verdict: row.verdict, checkedAt: row.checkedAt };

@@ -34,7 +34,8 @@ export function captureNote(capture: Capture | undefined): string {
   const bits: string[] = [];
   if (f?.file === "wav") {
     bits.push("WAV");
-    if ("sampleRate" in f) bits.push(`${Number((f.sampleRate / 1000).toFixed(1))} kHz`, `${f.bitDepth}-bit${f.encoding === "float" ? " float" : ""}`);
+    if ("sampleRate" in f)
+      bits.push(`${Number((f.sampleRate / 1000).toFixed(1))} kHz`, `${f.bitDepth}-bit${f.encoding === "float" ? " float" : ""}`);
   } else if (f?.file === "csv") {
     bits.push("CSV");
     if ("rows" in f) bits.push(`${f.rows} rows`);

@@ -90,7 +90,8 @@ export async function saveItem(listingId: string, sellerId: string, patch: unkno
         const sheet = await BenchSheet.findOne({ where: { listingId }, transaction });
         // A sheet that no longer reads (null) may still hold readings: keep it rather than guess.
         const used = sheet && (!sheet.sheet || sheet.sheet.readings.length > 0 || sheet.sheet.sweeps.length > 0);
-        if (used) issues.push({ path: "category", message: "The bench sheet holds readings for the current kind of unit; clear them first." });
+        if (used)
+          issues.push({ path: "category", message: "The bench sheet holds readings for the current kind of unit; clear them first." });
         else if (sheet) await sheet.destroy({ transaction });
       }
     }
@@ -129,7 +130,9 @@ export async function withdrawListing(listingId: string, sellerId: string): Prom
     assertEditable(listing);
     if (!isPublished(listing))
       throw new ListingStateError(
-        listing.status === "withdrawn" ? "This listing is already withdrawn." : "A draft is not on the market; there is nothing to withdraw.",
+        listing.status === "withdrawn"
+          ? "This listing is already withdrawn."
+          : "A draft is not on the market; there is nothing to withdraw.",
         "not_published",
       );
     await listing.update({ status: "withdrawn" }, { transaction });

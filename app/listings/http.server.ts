@@ -7,7 +7,10 @@ import { ListingInputError, ListingNotFound, ListingStateError, type Issue } fro
 
 /** For page loaders and actions: someone else's (or no) listing is a plain 404 page. */
 export function notFoundPage(): never {
-  throw data({ message: "There is no listing of yours at this address. It may belong to someone else, or it was never made." }, { status: 404, statusText: "Not Found" });
+  throw data(
+    { message: "There is no listing of yours at this address. It may belong to someone else, or it was never made." },
+    { status: 404, statusText: "Not Found" },
+  );
 }
 
 export type StepFailure = { ok: false; errors: FieldErrors; formError: string | undefined };
@@ -15,7 +18,8 @@ export type StepFailure = { ok: false; errors: FieldErrors; formError: string | 
 /** Service refusals as the step forms show them: messages next to fields, or one for the whole form. */
 export function stepFailure(e: unknown, fieldOf: Record<string, string | undefined> = {}): StepFailure {
   if (e instanceof ListingNotFound) notFoundPage();
-  if (e instanceof ListingInputError) return { ok: false, errors: issuesToForm(e.issues, fieldOf), formError: e.issues.length > 1 ? e.message : undefined };
+  if (e instanceof ListingInputError)
+    return { ok: false, errors: issuesToForm(e.issues, fieldOf), formError: e.issues.length > 1 ? e.message : undefined };
   if (e instanceof ListingStateError) return { ok: false, errors: {}, formError: e.message };
   // Unknown failures are not the seller's to fix: let the error page say so.
   throw e;

@@ -19,7 +19,11 @@ const Envelope = z.strictObject({
 
 function prefixed<T>(prefix: string, work: () => Promise<T>): Promise<T> {
   return work().catch((e) => {
-    if (e instanceof ListingInputError) throw new ListingInputError(e.issues.map((i) => ({ ...i, path: `${prefix}.${i.path}` })), e.message);
+    if (e instanceof ListingInputError)
+      throw new ListingInputError(
+        e.issues.map((i) => ({ ...i, path: `${prefix}.${i.path}` })),
+        e.message,
+      );
     throw e;
   });
 }
@@ -28,10 +32,14 @@ export async function patchListing(listingId: string, sellerId: string, body: un
   const parsed = Envelope.safeParse(body);
   if (!parsed.success)
     throw new ListingInputError(
-      parsed.error.issues.map((i) => ({ path: i.path.map(String).join(".") || "body", message: i.code === "unrecognized_keys" ? `Unknown part: ${i.keys.join(", ")}. Send item, condition or benchSheet.` : i.message })),
+      parsed.error.issues.map((i) => ({
+        path: i.path.map(String).join(".") || "body",
+        message: i.code === "unrecognized_keys" ? `Unknown part: ${i.keys.join(", ")}. Send item, condition or benchSheet.` : i.message,
+      })),
     );
   const { item, condition, benchSheet } = parsed.data;
-  if (!item && !condition && !benchSheet) throw new ListingInputError([{ path: "body", message: "Send at least one of item, condition or benchSheet." }]);
+  if (!item && !condition && !benchSheet)
+    throw new ListingInputError([{ path: "body", message: "Send at least one of item, condition or benchSheet." }]);
   return sequelize.transaction(async (transaction) => {
     await ownListing(listingId, sellerId, { transaction, lock: true });
     if (item) await prefixed("item", () => saveItem(listingId, sellerId, item, { transaction }));

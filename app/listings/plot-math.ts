@@ -39,9 +39,7 @@ export function thinEvenly<T>(items: T[], max: number): T[] {
 export function referenceLevel(points: Sweep["points"]): { levelDb: number; atHz: number } {
   const at1k = levelAt(points, 1000);
   if (at1k !== undefined) return { levelDb: at1k, atHz: 1000 };
-  const nearest = points.reduce((a, b) =>
-    Math.abs(Math.log(b.frequencyHz / 1000)) < Math.abs(Math.log(a.frequencyHz / 1000)) ? b : a,
-  );
+  const nearest = points.reduce((a, b) => (Math.abs(Math.log(b.frequencyHz / 1000)) < Math.abs(Math.log(a.frequencyHz / 1000)) ? b : a));
   return { levelDb: nearest.levelDb, atHz: nearest.frequencyHz };
 }
 

@@ -24,7 +24,11 @@ export async function photoCounts(listingId: string, transaction?: Transaction):
   return out;
 }
 
-export async function checklistFor(listing: Listing, user: Pick<SessionUser, "emailVerified">, transaction?: Transaction): Promise<ChecklistItem[]> {
+export async function checklistFor(
+  listing: Listing,
+  user: Pick<SessionUser, "emailVerified">,
+  transaction?: Transaction,
+): Promise<ChecklistItem[]> {
   // One after another: inside a transaction they share one connection.
   const sheetRow = await BenchSheet.findOne({ where: { listingId: listing.id }, transaction });
   const entries = await RestorationEntry.count({ where: { listingId: listing.id }, transaction });
@@ -46,16 +50,25 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
     const listing = await ownListing(listingId, user.id, { transaction, lock: true });
     assertEditable(listing);
     if (listing.status === "live" || listing.status === "held")
-      throw new ListingStateError(listing.status === "live" ? "This listing is already live." : "This listing is already waiting at the review desk.", "published");
+      throw new ListingStateError(
+        listing.status === "live" ? "This listing is already live." : "This listing is already waiting at the review desk.",
+        "published",
+      );
     const open = (await checklistFor(listing, user, transaction)).filter((c) => !c.ok);
-    if (open.length) throw new ListingInputError(open.map((c) => ({ path: `${c.step}.${c.id}`, message: `${c.label}: ${c.hint}` })), "Some things are still missing.");
+    if (open.length)
+      throw new ListingInputError(
+        open.map((c) => ({ path: `${c.step}.${c.id}`, message: `${c.label}: ${c.hint}` })),
+        "Some things are still missing.",
+      );
 
     const row = await BenchSheet.findOne({ where: { listingId }, transaction, lock: transaction.LOCK.UPDATE });
     let verdict: Verdict | null = null;
     let sheet = null;
     if (row) {
       if (!row.sheet)
-        throw new ListingInputError([{ path: "bench.sheet", message: "The stored bench sheet no longer reads; open the bench sheet step and save it again." }]);
+        throw new ListingInputError([
+          { path: "bench.sheet", message: "The stored bench sheet no longer reads; open the bench sheet step and save it again." },
+        ]);
       sheet = row.sheet;
       verdict = checkBenchSheet(sheet);
       await row.update({ verdict, checkedAt: new Date() }, { transaction });

@@ -11,7 +11,8 @@ export const MAX_ENTRIES = 100;
 
 function parse(input: unknown) {
   const parsed = RestorationEntrySchema.safeParse(input);
-  if (!parsed.success) throw new ListingInputError(parsed.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message })));
+  if (!parsed.success)
+    throw new ListingInputError(parsed.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message })));
   return parsed.data;
 }
 
@@ -21,12 +22,18 @@ export async function addRestorationEntry(listingId: string, sellerId: string, i
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
     assertEditable(listing);
     const count = await RestorationEntry.count({ where: { listingId }, transaction });
-    if (count >= MAX_ENTRIES) throw new ListingInputError([{ path: "form", message: `A log holds at most ${MAX_ENTRIES} entries; combine some.` }]);
+    if (count >= MAX_ENTRIES)
+      throw new ListingInputError([{ path: "form", message: `A log holds at most ${MAX_ENTRIES} entries; combine some.` }]);
     return RestorationEntry.create({ listingId, ...values }, { transaction });
   });
 }
 
-export async function updateRestorationEntry(listingId: string, sellerId: string, entryId: string, input: unknown): Promise<RestorationEntry> {
+export async function updateRestorationEntry(
+  listingId: string,
+  sellerId: string,
+  entryId: string,
+  input: unknown,
+): Promise<RestorationEntry> {
   const values = parse(input);
   return sequelize.transaction(async (transaction) => {
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
@@ -47,7 +54,13 @@ export async function deleteRestorationEntry(listingId: string, sellerId: string
 }
 
 export async function restorationLog(listingId: string): Promise<RestorationEntryView[]> {
-  const rows = await RestorationEntry.findAll({ where: { listingId }, order: [["doneOn", "ASC"], ["createdAt", "ASC"]] });
+  const rows = await RestorationEntry.findAll({
+    where: { listingId },
+    order: [
+      ["doneOn", "ASC"],
+      ["createdAt", "ASC"],
+    ],
+  });
   return rows.map((e) => ({
     id: e.id,
     doneOn: e.doneOn,

@@ -93,11 +93,7 @@ export function sellerCard(listing: Listing, seller: User | null | undefined, wo
 
 // ---- shipping ------------------------------------------------------------------------------------
 
-export function shippingView(
-  listing: Listing,
-  zone: ShippingZone,
-  guessedFrom: string | null,
-): ShippingView {
+export function shippingView(listing: Listing, zone: ShippingZone, guessedFrom: string | null): ShippingView {
   const heavy = (listing.weightG ?? 0) >= TWO_PERSON_LIFT_G;
   const offered = listing.shippingOptions;
   const parcelWithheld = heavy && offered.some((o) => o.method === "parcel");

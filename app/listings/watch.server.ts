@@ -6,9 +6,7 @@ import { canViewListing, type Viewer } from "./visibility";
 // Watching a listing. The form says which state it wants ("watch" or "unwatch"), so sending it twice
 // changes nothing the second time; the unique (user, listing) pair makes that hold under races too.
 
-export type WatchOutcome =
-  | { ok: true; watching: boolean }
-  | { ok: false; status: 404 | 409; reason: string };
+export type WatchOutcome = { ok: true; watching: boolean } | { ok: false; status: 404 | 409; reason: string };
 
 export async function isWatching(userId: string, listingId: string): Promise<boolean> {
   return (await Watch.count({ where: { userId, listingId } })) > 0;

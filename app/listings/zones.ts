@@ -18,7 +18,10 @@ const NEIGHBOUR_PAIRS = (
 const NEIGHBOURS = new Map<string, Set<string>>();
 for (const pair of NEIGHBOUR_PAIRS) {
   const [a, b] = pair.split("-");
-  for (const [x, y] of [[a, b], [b, a]]) {
+  for (const [x, y] of [
+    [a, b],
+    [b, a],
+  ]) {
     if (!NEIGHBOURS.has(x)) NEIGHBOURS.set(x, new Set());
     NEIGHBOURS.get(x)!.add(y);
   }
@@ -30,9 +33,32 @@ export function areNeighbours(a: string, b: string): boolean {
 
 // A bare language tag points at a country only where one country is the obvious home of it.
 const LANGUAGE_HOME: Record<string, string> = {
-  de: "DE", fr: "FR", nl: "NL", it: "IT", es: "ES", pt: "PT", sv: "SE", da: "DK", nb: "NO", nn: "NO", no: "NO",
-  fi: "FI", pl: "PL", cs: "CZ", sk: "SK", hu: "HU", el: "GR", ro: "RO", bg: "BG", hr: "HR", sl: "SI", et: "EE",
-  lv: "LV", lt: "LT", ja: "JP", ko: "KR",
+  de: "DE",
+  fr: "FR",
+  nl: "NL",
+  it: "IT",
+  es: "ES",
+  pt: "PT",
+  sv: "SE",
+  da: "DK",
+  nb: "NO",
+  nn: "NO",
+  no: "NO",
+  fi: "FI",
+  pl: "PL",
+  cs: "CZ",
+  sk: "SK",
+  hu: "HU",
+  el: "GR",
+  ro: "RO",
+  bg: "BG",
+  hr: "HR",
+  sl: "SI",
+  et: "EE",
+  lv: "LV",
+  lt: "LT",
+  ja: "JP",
+  ko: "KR",
 };
 
 /** The visitor's likely country from Accept-Language ("de-AT,de;q=0.9" → AT), or null. */
@@ -49,7 +75,10 @@ export function countryFromAcceptLanguage(header: string | null | undefined): st
     .filter((t) => t.tag && t.tag !== "*" && t.weight > 0)
     .sort((a, b) => b.weight - a.weight || a.i - b.i);
   for (const { tag } of tags) {
-    const region = tag.split("-").slice(1).find((s) => /^[A-Za-z]{2}$/.test(s));
+    const region = tag
+      .split("-")
+      .slice(1)
+      .find((s) => /^[A-Za-z]{2}$/.test(s));
     if (region) return region.toUpperCase();
   }
   for (const { tag } of tags) {

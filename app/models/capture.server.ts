@@ -2,7 +2,13 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import { z } from "zod";
 import { sequelize } from "~/db.server";
 import type { CaptureFileKind, CaptureFormat } from "~/bench/captures.server";
-import { captureConditionsSchema, storedAnalysisSchema, type AnyAnalysis, type CaptureConditions, type CaptureKind } from "@shared/bench/analysis";
+import {
+  captureConditionsSchema,
+  storedAnalysisSchema,
+  type AnyAnalysis,
+  type CaptureConditions,
+  type CaptureKind,
+} from "@shared/bench/analysis";
 import { readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench/schema";
 import { jsonColumn, none } from "./json-column.server";
 

@@ -28,11 +28,7 @@ wire(ListingPhoto, "listing", () => ListingPhoto.belongsTo(Listing, { foreignKey
 wire(Listing, "benchSheet", () => Listing.hasOne(BenchSheet, { foreignKey: "listingId", as: "benchSheet" }));
 wire(BenchSheet, "listing", () => BenchSheet.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
 
-wire(Listing, "restorationEntries", () =>
-  Listing.hasMany(RestorationEntry, { foreignKey: "listingId", as: "restorationEntries" }),
-);
-wire(RestorationEntry, "listing", () =>
-  RestorationEntry.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }),
-);
+wire(Listing, "restorationEntries", () => Listing.hasMany(RestorationEntry, { foreignKey: "listingId", as: "restorationEntries" }));
+wire(RestorationEntry, "listing", () => RestorationEntry.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
 
 export { User, Workshop, Listing, ListingPhoto, BenchSheet, RestorationEntry };

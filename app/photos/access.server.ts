@@ -33,17 +33,13 @@ export function photoView(photo: ListingPhoto): PhotoView {
     width: ready ? photo.width : null,
     height: ready ? photo.height : null,
     error: photo.status === "failed" ? photo.error : null,
-    urls: ready
-      ? { thumb: mediaUrl(photo.thumbKey!), listing: mediaUrl(photo.listingKey!), zoom: mediaUrl(photo.zoomKey!) }
-      : null,
+    urls: ready ? { thumb: mediaUrl(photo.thumbKey!), listing: mediaUrl(photo.listingKey!), zoom: mediaUrl(photo.zoomKey!) } : null,
   };
 }
 
 /** Every object a photo may have in storage, including the upload still waiting for the job. */
 export function photoKeys(photo: Pick<ListingPhoto, "id" | "originalKey" | "thumbKey" | "listingKey" | "zoomKey">) {
-  return [incomingKey(photo.id), photo.originalKey, photo.thumbKey, photo.listingKey, photo.zoomKey].filter(
-    (k): k is string => Boolean(k),
-  );
+  return [incomingKey(photo.id), photo.originalKey, photo.thumbKey, photo.listingKey, photo.zoomKey].filter((k): k is string => Boolean(k));
 }
 
 /** Where an accepted upload waits for processing; never served. */

@@ -12,8 +12,7 @@ import type { PngStructure } from "./png-structure.server";
 export const PHOTO_MEMORY_BUDGET = 640 * 1024 * 1024;
 
 export type PhotoHeader =
-  | { type: "image/png"; byteSize: number; png: PngStructure }
-  | { type: "image/jpeg"; byteSize: number; jpeg: JpegStructure };
+  { type: "image/png"; byteSize: number; png: PngStructure } | { type: "image/jpeg"; byteSize: number; jpeg: JpegStructure };
 
 // jpeg-js (progressive files only) keeps each 8 × 8 block as its own small array: about 620 bytes
 // a block, measured, where the coefficients alone are 256.
@@ -73,8 +72,8 @@ export function budgetProblem(header: PhotoHeader, name: string): BudgetProblem 
   }
   const cost = processingCost(header);
   if (cost <= PHOTO_MEMORY_BUDGET) return null;
-  const width = header.type === "image/png" ? header.png.width ?? 0 : header.jpeg.width ?? 0;
-  const height = header.type === "image/png" ? header.png.height ?? 0 : header.jpeg.height ?? 0;
+  const width = header.type === "image/png" ? (header.png.width ?? 0) : (header.jpeg.width ?? 0);
+  const height = header.type === "image/png" ? (header.png.height ?? 0) : (header.jpeg.height ?? 0);
   const fits = Math.floor(((width * height) / 1e6) * (PHOTO_MEMORY_BUDGET / cost));
   const what = header.type === "image/jpeg" && header.jpeg.progressive ? "progressive JPEG" : "photo";
   const advice =

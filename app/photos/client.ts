@@ -25,7 +25,10 @@ async function readJson<T>(res: Response): Promise<T> {
 function failureFrom(status: number, body: unknown): PhotoApiFailure {
   const b = (body ?? {}) as { error?: string; message?: string; reason?: string };
   if (status === 401) return new PhotoApiFailure(401, "unauthenticated", "Your session has ended; sign in again to manage photos.");
-  const message = b.message ?? b.reason ?? (status === 0 ? "The connection dropped; check it and try again." : `The server answered ${status}; try again.`);
+  const message =
+    b.message ??
+    b.reason ??
+    (status === 0 ? "The connection dropped; check it and try again." : `The server answered ${status}; try again.`);
   return new PhotoApiFailure(status, b.error ?? "error", message);
 }
 

@@ -21,7 +21,11 @@ export type InspectedPhoto = {
  * `partial`: `bytes` are only the first part of the upload (the web process reads a header while the
  * rest streams to storage); a structure cut short is then expected, and the job checks the whole file.
  */
-export async function inspectPhoto(bytes: Uint8Array, fileName = "This file", options: { partial?: boolean } = {}): Promise<InspectedPhoto> {
+export async function inspectPhoto(
+  bytes: Uint8Array,
+  fileName = "This file",
+  options: { partial?: boolean } = {},
+): Promise<InspectedPhoto> {
   const name = displayName(fileName);
   if (bytes.byteLength === 0) {
     throw new PhotoRefusal("empty_file", `${name} is empty (0 bytes); choose the photo again.`);
@@ -52,7 +56,7 @@ export async function inspectPhoto(bytes: Uint8Array, fileName = "This file", op
   if (width && height && width * height > PHOTO_LIMITS.maxMegapixels * 1_000_000) {
     throw new PhotoRefusal(
       "too_many_pixels",
-      `${name} is ${width} × ${height} pixels (${(width * height / 1e6).toFixed(1)} megapixels); ` +
+      `${name} is ${width} × ${height} pixels (${((width * height) / 1e6).toFixed(1)} megapixels); ` +
         `photos may have at most ${PHOTO_LIMITS.maxMegapixels} megapixels. Scale it down and upload it again.`,
     );
   }

@@ -67,7 +67,7 @@ export function decodeSequentialJpeg(jpeg: Buffer, orientation = 1): Bitmap {
 }
 
 function readQuant(body: Buffer, quant: (Float32Array | undefined)[]) {
-  for (let p = 0; p < body.length; ) {
+  for (let p = 0; p < body.length;) {
     const precision = body[p] >> 4;
     const id = body[p] & 15;
     p += 1;
@@ -79,7 +79,7 @@ function readQuant(body: Buffer, quant: (Float32Array | undefined)[]) {
 }
 
 function readHuffman(body: Buffer, dc: (Table | undefined)[], ac: (Table | undefined)[]) {
-  for (let p = 0; p < body.length; ) {
+  for (let p = 0; p < body.length;) {
     const kind = body[p] >> 4;
     const id = body[p] & 15;
     const counts = body.subarray(p + 1, p + 17);
@@ -95,8 +95,14 @@ function readFrame(body: Buffer): Frame {
   const height = body.readUInt16BE(1);
   const width = body.readUInt16BE(3);
   const count = body[5];
-  const specs = Array.from({ length: count }, (_, i) => ({ id: body[6 + i * 3], h: body[7 + i * 3] >> 4, v: body[7 + i * 3] & 15, quant: body[8 + i * 3] }));
-  if (specs.some((c) => c.h < 1 || c.h > 4 || c.v < 1 || c.v > 4)) throw new JpegDataProblem("its frame header names impossible sampling factors");
+  const specs = Array.from({ length: count }, (_, i) => ({
+    id: body[6 + i * 3],
+    h: body[7 + i * 3] >> 4,
+    v: body[7 + i * 3] & 15,
+    quant: body[8 + i * 3],
+  }));
+  if (specs.some((c) => c.h < 1 || c.h > 4 || c.v < 1 || c.v > 4))
+    throw new JpegDataProblem("its frame header names impossible sampling factors");
   const hMax = Math.max(...specs.map((c) => c.h));
   const vMax = Math.max(...specs.map((c) => c.v));
   const mcusX = Math.ceil(width / (8 * hMax));
@@ -140,7 +146,7 @@ function decodeScan(
     const size = reader.decode(c.dc!);
     c.pred += size ? reader.value(size) : 0;
     block[0] = c.pred * q[0];
-    for (let k = 1; k < 64; ) {
+    for (let k = 1; k < 64;) {
       const rs = reader.decode(c.ac!);
       const run = rs >> 4;
       const bits = rs & 15;
@@ -220,9 +226,9 @@ function toRgba(frame: Frame, adobeTransform: number | null, orientation: number
         if (n === 4) {
           // Adobe stores CMYK inverted (255 = no ink): the light left is what both let through.
           const k = c3.plane[rows[3] + columns[3][x]];
-          r = clamp(r) * k / 255;
-          g = clamp(g) * k / 255;
-          b = clamp(b) * k / 255;
+          r = (clamp(r) * k) / 255;
+          g = (clamp(g) * k) / 255;
+          b = (clamp(b) * k) / 255;
         }
       }
       out[o] = clamp(r);

@@ -1,5 +1,16 @@
 import { forwardDct, forwardScale } from "./dct";
-import { AC_CHROMA, AC_LUMA, CHROMA_QUANT, DC_CHROMA, DC_LUMA, LUMA_QUANT, ZIGZAG, huffmanCodes, scaledQuant, type HuffmanSpec } from "./jpeg-tables";
+import {
+  AC_CHROMA,
+  AC_LUMA,
+  CHROMA_QUANT,
+  DC_CHROMA,
+  DC_LUMA,
+  LUMA_QUANT,
+  ZIGZAG,
+  huffmanCodes,
+  scaledQuant,
+  type HuffmanSpec,
+} from "./jpeg-tables";
 import type { Bitmap } from "./pixels.server";
 
 // Encodes RGBA pixels as a baseline JFIF JPEG (ITU-T T.81): YCbCr with chroma halved both ways
@@ -162,7 +173,7 @@ export function encodeJpeg(bitmap: Bitmap, { quality, subsampling = "4:2:0", res
     for (let mx = 0; mx < mcusX; mx++, mcu++) {
       if (restartInterval && mcu > 0 && mcu % restartInterval === 0) {
         out.flushBits();
-        out.bytes([0xff, 0xd0 + (((mcu / restartInterval) - 1) & 7)]);
+        out.bytes([0xff, 0xd0 + ((mcu / restartInterval - 1) & 7)]);
         preds.fill(0);
       }
       const x0 = mx * mcuW;

@@ -111,8 +111,8 @@ export class BitReader {
   /** Where the next marker starts, once the scan is done. */
   end(): number {
     let p = this.pos;
-    while (p + 1 < this.b.length && !(this.b[p] === 0xff && this.b[p + 1] !== 0x00 && !(this.b[p + 1] >= 0xd0 && this.b[p + 1] <= 0xd7))) p += 1;
+    while (p + 1 < this.b.length && !(this.b[p] === 0xff && this.b[p + 1] !== 0x00 && !(this.b[p + 1] >= 0xd0 && this.b[p + 1] <= 0xd7)))
+      p += 1;
     return p;
   }
 }
-

@@ -90,7 +90,10 @@ export function readJpegStructure(bytes: Uint8Array): JpegStructure {
         return fail({ code: "damaged_file", detail: `its frame header names ${components} colour components` });
       }
       if (precision !== 8) {
-        return fail({ code: "unsupported_type", detail: `it has ${precision}-bit samples, which we cannot read; export it again as a standard 8-bit JPEG` });
+        return fail({
+          code: "unsupported_type",
+          detail: `it has ${precision}-bit samples, which we cannot read; export it again as a standard 8-bit JPEG`,
+        });
       }
       if (length < 8 + components * 3 || out.sampling.some((s) => s.h < 1 || s.h > 4 || s.v < 1 || s.v > 4)) {
         return fail({ code: "damaged_file", detail: "its frame header names impossible sampling factors" });

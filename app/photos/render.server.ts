@@ -66,10 +66,13 @@ async function decodeWithinBudget(input: Buffer, contentType: "image/jpeg" | "im
   if (structure.problem?.detail.startsWith("it does not start like")) {
     throw new UnreadableImage("The file changed type between upload and processing; upload it again.");
   }
-  if (structure.problem) throw new UnreadableImage(`${DAMAGED}: ${structure.problem.detail}. Export the photo again and upload the new file.`);
+  if (structure.problem)
+    throw new UnreadableImage(`${DAMAGED}: ${structure.problem.detail}. Export the photo again and upload the new file.`);
   const { width = 0, height = 0 } = structure;
   if (width * height > PHOTO_LIMITS.maxMegapixels * 1_000_000) {
-    throw new UnreadableImage(`The photo has ${width} × ${height} pixels, more than the ${PHOTO_LIMITS.maxMegapixels} megapixels a photo may have.`);
+    throw new UnreadableImage(
+      `The photo has ${width} × ${height} pixels, more than the ${PHOTO_LIMITS.maxMegapixels} megapixels a photo may have.`,
+    );
   }
   const costly = budgetProblem(header, "This file");
   if (costly) throw new UnreadableImage(costly.message);

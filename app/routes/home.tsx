@@ -23,9 +23,9 @@ export default function Home({ loaderData }: Route.ComponentProps) {
             <p className="text-xs font-semibold uppercase tracking-[0.16em] text-brass-ink">Used &amp; vintage hi-fi</p>
             <h1 className="text-[2.25rem] leading-[1.1] sm:text-5xl">Buy it on what it measures today.</h1>
             <p className="max-w-xl text-lg text-ink-soft">
-              Loadline is the market where restoration workshops and private sellers list amplifiers, turntables, tape
-              decks and loudspeakers with their bench measurements, and the bench checks every figure against physics
-              and the trade's standards before a unit earns the mark.
+              Loadline is the market where restoration workshops and private sellers list amplifiers, turntables, tape decks and
+              loudspeakers with their bench measurements, and the bench checks every figure against physics and the trade's standards before
+              a unit earns the mark.
             </p>
             <div className="flex flex-wrap items-center gap-3 pt-1">
               <Link to="/market" className={buttonClass("primary", "lg")}>
@@ -107,16 +107,16 @@ export default function Home({ loaderData }: Route.ComponentProps) {
         </h2>
         <ol className="mt-6 grid gap-6 sm:grid-cols-3">
           <Step n={1} title="The seller measures">
-            A workshop or private seller fills in the bench sheet: each reading with its load, frequency, level and
-            distortion limit, and raw captures where they have them.
+            A workshop or private seller fills in the bench sheet: each reading with its load, frequency, level and distortion limit, and
+            raw captures where they have them.
           </Step>
           <Step n={2} title="The bench checks">
-            Power against voltage and load, 4 Ω against 8 Ω, distortion against bandwidth, both channels against each
-            other: each check comes out consistent, questionable, implausible or missing.
+            Power against voltage and load, 4 Ω against 8 Ω, distortion against bandwidth, both channels against each other: each check
+            comes out consistent, questionable, implausible or missing.
           </Step>
           <Step n={3} title="You read the figures">
-            A sheet that passes every check carries the bench-verified mark. A sheet with an implausible figure is held
-            for a moderator before it reaches the market.
+            A sheet that passes every check carries the bench-verified mark. A sheet with an implausible figure is held for a moderator
+            before it reaches the market.
           </Step>
         </ol>
       </section>

@@ -34,8 +34,8 @@ export default function Market({ loaderData }: Route.ComponentProps) {
         title={title}
         lede={
           <>
-            <span className="figures">{total}</span> {total === 1 ? "unit" : "units"} for sale, newest first. Figures
-            are shown with the conditions they were measured in.
+            <span className="figures">{total}</span> {total === 1 ? "unit" : "units"} for sale, newest first. Figures are shown with the
+            conditions they were measured in.
           </>
         }
       />
@@ -43,8 +43,8 @@ export default function Market({ loaderData }: Route.ComponentProps) {
       <p className="flex items-start gap-2 text-sm text-ink-soft">
         <BenchGlyph className="mt-0.5 size-4 shrink-0 text-trace" />
         <span>
-          <strong className="font-semibold text-trace">Bench-verified</strong>: the unit's bench sheet passed every
-          check against physics and the trade's standards.
+          <strong className="font-semibold text-trace">Bench-verified</strong>: the unit's bench sheet passed every check against physics
+          and the trade's standards.
         </span>
       </p>
       {items.length ? (
@@ -59,8 +59,7 @@ export default function Market({ loaderData }: Route.ComponentProps) {
         <div className="rounded-panel border border-dashed border-rule-strong bg-card/60 px-6 py-12 text-center">
           <h2 className="text-xl">Nothing here yet</h2>
           <p className="mt-2 text-ink-soft">
-            No {category ? CATEGORY_LABELS[category].many.toLowerCase() : "units"} are for sale right now. Try another
-            category.
+            No {category ? CATEGORY_LABELS[category].many.toLowerCase() : "units"} are for sale right now. Try another category.
           </p>
         </div>
       )}

@@ -31,7 +31,13 @@ export function ChoiceCards({
               error ? "border-fault/60" : "border-rule",
             )}
           >
-            <input type="radio" name={name} value={o.value} defaultChecked={value === o.value} className="mt-1 size-4 shrink-0 accent-walnut" />
+            <input
+              type="radio"
+              name={name}
+              value={o.value}
+              defaultChecked={value === o.value}
+              className="mt-1 size-4 shrink-0 accent-walnut"
+            />
             <span className="space-y-0.5">
               <span className="block font-semibold text-ink">{o.label}</span>
               <span className="block text-sm text-ink-soft">{o.description}</span>

@@ -87,7 +87,11 @@ export function ItemForm({
             placeholder="1978, 1975–79 or 1970s"
             error={errors.era}
             optional
-            hint={era.ok && (era.value.from || era.value.to) ? `Shown as ${formatEra(era.value.from, era.value.to)}` : "A year, a span or a decade."}
+            hint={
+              era.ok && (era.value.from || era.value.to)
+                ? `Shown as ${formatEra(era.value.from, era.value.to)}`
+                : "A year, a span or a decade."
+            }
           />
           <Field label="Maker" name="maker" defaultValue={v("maker")} maxLength={80} autoComplete="off" error={errors.maker} />
           <Field label="Model" name="model" defaultValue={v("model")} maxLength={80} autoComplete="off" error={errors.model} />
@@ -105,9 +109,21 @@ export function ItemForm({
         </div>
       </Section>
 
-      <Section title="Mains" lede="What the unit is set for today. A unit set for another country's mains must be changed over by a technician before use.">
+      <Section
+        title="Mains"
+        lede="What the unit is set for today. A unit set for another country's mains must be changed over by a technician before use."
+      >
         <div className="grid gap-4 sm:grid-cols-3">
-          <Field label="Mains voltage" name="mainsVoltageV" unit="V" inputMode="numeric" list="mains-voltages" defaultValue={v("mainsVoltageV")} optional error={errors.mainsVoltageV} />
+          <Field
+            label="Mains voltage"
+            name="mainsVoltageV"
+            unit="V"
+            inputMode="numeric"
+            list="mains-voltages"
+            defaultValue={v("mainsVoltageV")}
+            optional
+            error={errors.mainsVoltageV}
+          />
           <datalist id="mains-voltages">
             {[100, 110, 115, 117, 120, 127, 220, 230, 240].map((x) => (
               <option key={x} value={x} />
@@ -125,25 +141,63 @@ export function ItemForm({
             optional
             error={errors.mainsFrequencyHz}
           />
-          <CheckboxField label="Voltage selector on the unit" name="mainsSwitchable" defaultChecked={on("mainsSwitchable")} hint="Switchable between mains voltages." className="sm:pt-7" />
+          <CheckboxField
+            label="Voltage selector on the unit"
+            name="mainsSwitchable"
+            defaultChecked={on("mainsSwitchable")}
+            hint="Switchable between mains voltages."
+            className="sm:pt-7"
+          />
         </div>
       </Section>
 
       <Section title="Weight and box" lede="Carriers price by the larger of real and volumetric weight; give the packed box's size.">
         <div className="grid gap-4 sm:grid-cols-4">
-          <Field label="Weight" name="weight" unit="kg" inputMode="decimal" defaultValue={v("weight")} error={errors.weight} hint={weight.ok && weight.value ? formatWeight(weight.value) : "The unit alone."} />
-          <Field label="Box length" name="boxedLength" unit="cm" inputMode="decimal" defaultValue={v("boxedLength")} optional error={errors.boxedLength} />
-          <Field label="Box width" name="boxedWidth" unit="cm" inputMode="decimal" defaultValue={v("boxedWidth")} optional error={errors.boxedWidth} />
-          <Field label="Box height" name="boxedHeight" unit="cm" inputMode="decimal" defaultValue={v("boxedHeight")} optional error={errors.boxedHeight} />
+          <Field
+            label="Weight"
+            name="weight"
+            unit="kg"
+            inputMode="decimal"
+            defaultValue={v("weight")}
+            error={errors.weight}
+            hint={weight.ok && weight.value ? formatWeight(weight.value) : "The unit alone."}
+          />
+          <Field
+            label="Box length"
+            name="boxedLength"
+            unit="cm"
+            inputMode="decimal"
+            defaultValue={v("boxedLength")}
+            optional
+            error={errors.boxedLength}
+          />
+          <Field
+            label="Box width"
+            name="boxedWidth"
+            unit="cm"
+            inputMode="decimal"
+            defaultValue={v("boxedWidth")}
+            optional
+            error={errors.boxedWidth}
+          />
+          <Field
+            label="Box height"
+            name="boxedHeight"
+            unit="cm"
+            inputMode="decimal"
+            defaultValue={v("boxedHeight")}
+            optional
+            error={errors.boxedHeight}
+          />
         </div>
-        <Caution title={heavy ? "Heavy unit: two people and freight packing" : "Units of 30 kg and more"} className={cx(!heavy && "opacity-90")}>
+        <Caution
+          title={heavy ? "Heavy unit: two people and freight packing" : "Units of 30 kg and more"}
+          className={cx(!heavy && "opacity-90")}
+        >
+          <p>Lifting 30 kg or more takes two people: lift with bent knees and hold the chassis, never the knobs or the front panel.</p>
           <p>
-            Lifting 30 kg or more takes two people: lift with bent knees and hold the chassis, never the knobs or the
-            front panel.
-          </p>
-          <p>
-            Ship such units as freight: strapped to a pallet or double-boxed with at least 5 cm of firm foam on every side,
-            transformers and heatsinks braced, feet off the floor of the box. Most parcel carriers refuse them.
+            Ship such units as freight: strapped to a pallet or double-boxed with at least 5 cm of firm foam on every side, transformers and
+            heatsinks braced, feet off the floor of the box. Most parcel carriers refuse them.
           </p>
         </Caution>
       </Section>
@@ -169,25 +223,65 @@ export function ItemForm({
             hint={price?.ok ? `Buyers see ${formatPrice(price.value, currency)}` : "Type it as you would write it: 1250 or 1,250.00."}
             className="sm:col-span-2"
           />
-          <SelectField label="Currency" name="currency" defaultValue={v("currency") || "EUR"} options={CURRENCY_CODES.map((c) => ({ value: c, label: c }))} error={errors.currency} />
-          <CheckboxField label="Offers welcome" name="offersWelcome" defaultChecked={on("offersWelcome")} hint="Buyers may offer less; you answer each offer." className="sm:col-span-3" />
+          <SelectField
+            label="Currency"
+            name="currency"
+            defaultValue={v("currency") || "EUR"}
+            options={CURRENCY_CODES.map((c) => ({ value: c, label: c }))}
+            error={errors.currency}
+          />
+          <CheckboxField
+            label="Offers welcome"
+            name="offersWelcome"
+            defaultChecked={on("offersWelcome")}
+            hint="Buyers may offer less; you answer each offer."
+            className="sm:col-span-3"
+          />
         </div>
       </Section>
 
       <Section title="Where it is" lede="Buyers see the town and region. The postcode is only for shipping quotes.">
         <div className="grid gap-4 sm:grid-cols-2">
-          <SelectField label="Country" name="country" defaultValue={v("country")} placeholder="Choose…" options={countryOptions()} error={errors.country} />
+          <SelectField
+            label="Country"
+            name="country"
+            defaultValue={v("country")}
+            placeholder="Choose…"
+            options={countryOptions()}
+            error={errors.country}
+          />
           <Field label="Region" name="region" defaultValue={v("region")} maxLength={80} optional error={errors.region} />
           <Field label="Town" name="town" defaultValue={v("town")} maxLength={80} optional error={errors.town} />
-          <Field label="Postcode" name="postcode" defaultValue={v("postcode")} maxLength={12} optional error={errors.postcode} hint="Not shown on the listing." />
+          <Field
+            label="Postcode"
+            name="postcode"
+            defaultValue={v("postcode")}
+            maxLength={12}
+            optional
+            error={errors.postcode}
+            hint="Not shown on the listing."
+          />
         </div>
       </Section>
 
       <Section title="Shipping" lede={`Leave a zone blank where you do not send. Prices in ${currency}; 0 for free.`}>
         {errors.shipping ? <FormError>{errors.shipping}</FormError> : null}
         <div className="space-y-2">
-          <CheckboxField label="Collection in person" name="collection" defaultChecked={on("collection")} hint="The buyer collects and can hear the unit first." />
-          <Field label="Collection note" name="collectionNote" defaultValue={v("collectionNote")} maxLength={200} optional placeholder="Weekdays after 5 pm; ground floor" error={errors.collectionNote} />
+          <CheckboxField
+            label="Collection in person"
+            name="collection"
+            defaultChecked={on("collection")}
+            hint="The buyer collects and can hear the unit first."
+          />
+          <Field
+            label="Collection note"
+            name="collectionNote"
+            defaultValue={v("collectionNote")}
+            maxLength={200}
+            optional
+            placeholder="Weekdays after 5 pm; ground floor"
+            error={errors.collectionNote}
+          />
         </div>
         {(["parcel", "freight"] as const).map((method) => (
           <fieldset key={method} className="space-y-2">

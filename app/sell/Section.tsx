@@ -3,7 +3,19 @@ import { Card } from "~/components/Card";
 import { cx } from "~/components/cx";
 
 /** One part of a step: a serif title, a line on why it matters, then its fields. */
-export function Section({ title, lede, children, className, id }: { title: string; lede?: ReactNode; children: ReactNode; className?: string; id?: string }) {
+export function Section({
+  title,
+  lede,
+  children,
+  className,
+  id,
+}: {
+  title: string;
+  lede?: ReactNode;
+  children: ReactNode;
+  className?: string;
+  id?: string;
+}) {
   return (
     <Card className={cx("space-y-5", className)}>
       <div className="space-y-1">
@@ -18,7 +30,17 @@ export function Section({ title, lede, children, className, id }: { title: strin
 }
 
 /** A brass caution box for safety notes: what can hurt, in plain words. */
-export function Caution({ title, children, tone = "brass", className }: { title: string; children: ReactNode; tone?: "brass" | "fault"; className?: string }) {
+export function Caution({
+  title,
+  children,
+  tone = "brass",
+  className,
+}: {
+  title: string;
+  children: ReactNode;
+  tone?: "brass" | "fault";
+  className?: string;
+}) {
   return (
     <aside
       className={cx(

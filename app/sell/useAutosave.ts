@@ -11,7 +11,14 @@ export type SaveState = { status: SaveStatus; message?: string; savedAt?: Date }
 export type Build = () => { ok: true; body: Record<string, unknown> } | { ok: false; errors: FieldErrors };
 
 type ApiIssue = { path: string; message: string };
-type ApiAnswer = { error?: string; message?: string; issues?: ApiIssue[]; sheetChanged?: boolean; wasVerified?: boolean; listing?: { benchVerified: boolean; status: string } };
+type ApiAnswer = {
+  error?: string;
+  message?: string;
+  issues?: ApiIssue[];
+  sheetChanged?: boolean;
+  wasVerified?: boolean;
+  listing?: { benchVerified: boolean; status: string };
+};
 
 export function useAutosave(listingId: string, { delay = 900, onSaved }: { delay?: number; onSaved?: (answer: ApiAnswer) => void } = {}) {
   const fetcher = useFetcher<ApiAnswer>();
@@ -73,7 +80,13 @@ export function useAutosave(listingId: string, { delay = 900, onSaved }: { delay
       if (!timer.current || !build.current) return;
       clearTimeout(timer.current);
       const r = build.current();
-      if (r.ok) void fetch(action, { method: "PATCH", headers: { "Content-Type": "application/json" }, body: JSON.stringify(r.body), keepalive: true });
+      if (r.ok)
+        void fetch(action, {
+          method: "PATCH",
+          headers: { "Content-Type": "application/json" },
+          body: JSON.stringify(r.body),
+          keepalive: true,
+        });
     },
     [action],
   );

@@ -88,7 +88,8 @@ export async function putObjectStream(
   let uploadId: string | undefined;
   const parts: { ETag?: string; PartNumber: number }[] = [];
   const sendPart = async (body: Buffer) => {
-    uploadId ??= (await s3().send(new CreateMultipartUploadCommand({ Bucket: bucket(), Key: key, ContentType: opts.contentType }))).UploadId;
+    uploadId ??= (await s3().send(new CreateMultipartUploadCommand({ Bucket: bucket(), Key: key, ContentType: opts.contentType })))
+      .UploadId;
     const PartNumber = parts.length + 1;
     const out = await s3().send(
       new UploadPartCommand({ Bucket: bucket(), Key: key, UploadId: uploadId, PartNumber, Body: body, ContentLength: body.length }),

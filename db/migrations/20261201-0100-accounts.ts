@@ -24,9 +24,7 @@ export const up: Migration = async ({ context: qi }) => {
   await qi.sequelize.query(
     `ALTER TABLE users ADD CONSTRAINT users_roles_known CHECK (roles <@ ARRAY['buyer','seller','workshop','moderator','admin']::text[])`,
   );
-  await qi.sequelize.query(
-    `ALTER TABLE users ADD CONSTRAINT users_status_known CHECK (status IN ('active','suspended'))`,
-  );
+  await qi.sequelize.query(`ALTER TABLE users ADD CONSTRAINT users_status_known CHECK (status IN ('active','suspended'))`);
 };
 
 export const down: Migration = async ({ context: qi }) => {

@@ -113,7 +113,13 @@ function files(): Made[] {
       kind: "sine",
       fileName: "ca-460-1khz-60w-8ohm.wav",
       contentType: "audio/wav",
-      bytes: wav24([tone(peak, [0.00005, 0.00011, 0.00002, 0.000015, 0, 0.000005], 11), tone(peak, [0.00006, 0.00013, 0.00002, 0.00002, 0, 0.000006], 12)], FS),
+      bytes: wav24(
+        [
+          tone(peak, [0.00005, 0.00011, 0.00002, 0.000015, 0, 0.000005], 11),
+          tone(peak, [0.00006, 0.00013, 0.00002, 0.00002, 0, 0.000006], 12),
+        ],
+        FS,
+      ),
       conditions: {
         kind: "sine",
         scale: { kind: "analyser", fullScaleVolts: 2, basis: "rms", attenuation: 20 },
@@ -125,8 +131,20 @@ function files(): Made[] {
         warmUpS: 1800,
       },
     },
-    { kind: "square", fileName: "ca-460-square-10khz.csv", contentType: "text/csv", bytes: Buffer.from(squareCsv()), conditions: { kind: "square", channel: "left", loadOhm: 8, frequencyHz: 10_000 } },
-    { kind: "sweep", fileName: "ca-460-sweep-1w.csv", contentType: "text/csv", bytes: Buffer.from(sweepCsv()), conditions: { kind: "sweep", reference: "flat", channel: "left", loadOhm: 8 } },
+    {
+      kind: "square",
+      fileName: "ca-460-square-10khz.csv",
+      contentType: "text/csv",
+      bytes: Buffer.from(squareCsv()),
+      conditions: { kind: "square", channel: "left", loadOhm: 8, frequencyHz: 10_000 },
+    },
+    {
+      kind: "sweep",
+      fileName: "ca-460-sweep-1w.csv",
+      contentType: "text/csv",
+      bytes: Buffer.from(sweepCsv()),
+      conditions: { kind: "sweep", reference: "flat", channel: "left", loadOhm: 8 },
+    },
   ];
 }
 

@@ -7,7 +7,13 @@ export const corrowmere = "Corrowmere Audio Bench";
 export const keswater = "Keswater Valve & Transistor";
 export const pennick = "Pennick Turntable Works";
 export const on = (daysAgo: number) => new Date(Date.now() - daysAgo * 86_400_000).toISOString().slice(0, 10);
-export const who = (maker: string, model: string, year: number, measuredBy: string, daysAgo: number) => ({ maker, model, year, measuredBy, measuredOn: on(daysAgo) });
+export const who = (maker: string, model: string, year: number, measuredBy: string, daysAgo: number) => ({
+  maker,
+  model,
+  year,
+  measuredBy,
+  measuredOn: on(daysAgo),
+});
 
 export const ampRecap = (tech: string, daysAgo: number, idleBefore: number): DemoLogEntry[] => [
   {
@@ -15,7 +21,12 @@ export const ampRecap = (tech: string, daysAgo: number, idleBefore: number): Dem
     work: "Bench inspection: DC offset and idle current on both channels, power-supply ripple under load, a listen for crackle on every control.",
     technician: tech,
     before: [
-      { quantity: "Idle current, left", value: idleBefore, unit: "mA", conditions: "after 30 min warm-up, across the 0.22 Ω emitter resistors" },
+      {
+        quantity: "Idle current, left",
+        value: idleBefore,
+        unit: "mA",
+        conditions: "after 30 min warm-up, across the 0.22 Ω emitter resistors",
+      },
       { quantity: "DC offset, left", value: 38, unit: "mV", conditions: "speaker terminals, no input, 8 Ω load" },
     ],
   },

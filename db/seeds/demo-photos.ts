@@ -22,7 +22,7 @@ const AMBER = hex("#f2c66a");
 
 type Rand = () => number;
 const between = (r: Rand, a: number, b: number) => a + (b - a) * r();
-const choose = <T,>(r: Rand, xs: readonly T[]): T => xs[Math.floor(r() * xs.length) % xs.length];
+const choose = <T>(r: Rand, xs: readonly T[]): T => xs[Math.floor(r() * xs.length) % xs.length];
 
 /**
  * Draws the unit's picture. The unit's looks come from its key alone; the room and where the unit
@@ -112,7 +112,14 @@ function meter(cv: Canvas, x: number, y: number, w: number, h: number, r: Rand) 
   for (let i = 0; i <= 10; i++) {
     const a = Math.PI * (1.2 + 0.6 * (i / 10));
     const inner = i % 5 === 0 ? 0.78 : 0.85;
-    cv.line(cx + Math.cos(a) * rad * inner, cy + Math.sin(a) * rad * inner, cx + Math.cos(a) * rad, cy + Math.sin(a) * rad, 2, i > 7 ? hex("#a3392b") : [40, 30, 20]);
+    cv.line(
+      cx + Math.cos(a) * rad * inner,
+      cy + Math.sin(a) * rad * inner,
+      cx + Math.cos(a) * rad,
+      cy + Math.sin(a) * rad,
+      2,
+      i > 7 ? hex("#a3392b") : [40, 30, 20],
+    );
   }
   const a = Math.PI * (1.2 + 0.6 * between(r, 0.15, 0.75));
   cv.line(cx, cy, cx + Math.cos(a) * rad * 0.98, cy + Math.sin(a) * rad * 0.98, 2.5, [30, 22, 15]);
@@ -173,7 +180,8 @@ function electronics(cv: Canvas, r: Rand, p: Rand, horizon: number, category: Ca
     const dy = y0 + bh * 0.12;
     cv.roundRect(dx - 4, dy - 4, dialW + 8, dialH + 8, 5, [22, 18, 14]);
     cv.roundRect(dx, dy, dialW, dialH, 3, (u, v) => shade(AMBER, -0.05 - 0.3 * Math.abs(v - 0.5) - 0.15 * Math.abs(u - 0.5)));
-    for (let i = 0; i <= 40; i++) cv.line(dx + (dialW * i) / 40, dy + dialH * 0.62, dx + (dialW * i) / 40, dy + dialH * (i % 5 ? 0.74 : 0.82), 1.5, [60, 40, 20]);
+    for (let i = 0; i <= 40; i++)
+      cv.line(dx + (dialW * i) / 40, dy + dialH * 0.62, dx + (dialW * i) / 40, dy + dialH * (i % 5 ? 0.74 : 0.82), 1.5, [60, 40, 20]);
     const ptr = dx + dialW * between(r, 0.1, 0.9);
     cv.line(ptr, dy + 4, ptr, dy + dialH - 4, 3, hex("#b23a2a"));
     meter(cv, dx + dialW + pad * 0.6, dy, bw - dialW - pad * 2.6, dialH, r);
@@ -194,7 +202,8 @@ function electronics(cv: Canvas, r: Rand, p: Rand, horizon: number, category: Ca
     const mw = (bw - ww - pad * 3.2) / 2;
     meter(cv, wx + ww + pad, wy, mw, wh * 0.55, r);
     meter(cv, wx + ww + pad * 1.4 + mw, wy, mw, wh * 0.55, r);
-    for (let i = 0; i < 6; i++) cv.roundRect(wx + i * (ww / 6) + 3, y0 + bh * 0.78, ww / 6 - 6, bh * 0.12, 3, shade(metal, -0.1 - 0.05 * (i % 2)));
+    for (let i = 0; i < 6; i++)
+      cv.roundRect(wx + i * (ww / 6) + 3, y0 + bh * 0.78, ww / 6 - 6, bh * 0.12, 3, shade(metal, -0.1 - 0.05 * (i % 2)));
     knob(cv, x0 + bw - pad - bh * 0.12, y0 + bh * 0.83, bh * 0.1, metal, r() * 6.28);
     knob(cv, x0 + bw - pad - bh * 0.42, y0 + bh * 0.83, bh * 0.1, metal, r() * 6.28);
   } else if (category === "power_amplifier") {
@@ -291,7 +300,9 @@ function loudspeakers(cv: Canvas, r: Rand, p: Rand, horizon: number) {
   const baffle = r() < 0.5 ? shade(veneer, -0.35) : hex(choose(r, ["#1e1c1a", "#d9d0c0", "#3a3631"]));
   const grille = r() < 0.35;
   const gap = cv.width * between(p, 0.08, 0.16);
-  const centres = pair ? [cv.width / 2 - gap / 2 - cw / 2, cv.width / 2 + gap / 2 + cw / 2] : [cv.width / 2 + cv.width * between(p, -0.1, 0.1)];
+  const centres = pair
+    ? [cv.width / 2 - gap / 2 - cw / 2, cv.width / 2 + gap / 2 + cw / 2]
+    : [cv.width / 2 + cv.width * between(p, -0.1, 0.1)];
   const woofer = between(r, 0.33, 0.4);
   const withMid = r() < 0.45;
   const port = r() < 0.5;
@@ -304,7 +315,9 @@ function loudspeakers(cv: Canvas, r: Rand, p: Rand, horizon: number) {
     const inset = cw * 0.06;
     cv.roundRect(x0 + inset, y0 + inset, cw - inset * 2, ch - inset * 2, 4, baffle);
     if (grille && i === 0) {
-      cv.roundRect(x0 + inset, y0 + inset, cw - inset * 2, ch - inset * 2, 4, (u, v) => shade(hex("#4a4440"), Math.sin(u * 300) * 0.03 + Math.sin(v * 300) * 0.03));
+      cv.roundRect(x0 + inset, y0 + inset, cw - inset * 2, ch - inset * 2, 4, (u, v) =>
+        shade(hex("#4a4440"), Math.sin(u * 300) * 0.03 + Math.sin(v * 300) * 0.03),
+      );
       return;
     }
     const wr = cw * woofer;

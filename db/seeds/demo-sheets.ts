@@ -57,7 +57,13 @@ export interface AmpFigures {
 
 /** Integrated, power amplifiers and receivers. */
 export function amplifierSheet(category: Category, who: Who, f: AmpFigures): BenchSheet {
-  const bench: Conditions = { frequencyHz: 1000, atDistortion: { ratio: 0.001, measure: "thd" }, channelsDriven: "both", mainsV: 230, warmUpS: 1800 };
+  const bench: Conditions = {
+    frequencyHz: 1000,
+    atDistortion: { ratio: 0.001, measure: "thd" },
+    channelsDriven: "both",
+    mainsV: 230,
+    warmUpS: 1800,
+  };
   const [l8, r8] = f.meas8;
   const [l4, r4] = f.doctor === "half-load" ? [round(l8 * 3, 0), round(r8 * 2.95, 0)] : (f.meas4 ?? [0, 0]);
   const vrms8 = Math.sqrt(l8 * 8);
@@ -70,7 +76,12 @@ export function amplifierSheet(category: Category, who: Who, f: AmpFigures): Ben
     rated("output_power", f.rated8, "W", {
       channel: "both",
       text: `2 × ${f.rated8} W`,
-      conditions: { loadOhm: 8, frequencyRange: audioBand, atDistortion: { ratio: (f.ratedThdPct ?? 0.1) * PCT, measure: "thd" }, channelsDriven: "both" },
+      conditions: {
+        loadOhm: 8,
+        frequencyRange: audioBand,
+        atDistortion: { ratio: (f.ratedThdPct ?? 0.1) * PCT, measure: "thd" },
+        channelsDriven: "both",
+      },
     }),
     r("output_power", l8, "W", { channel: "left", conditions: { ...bench, loadOhm: 8 } }),
     r("output_power", r8, "W", { channel: "right", conditions: { ...bench, loadOhm: 8 } }),
@@ -82,7 +93,12 @@ export function amplifierSheet(category: Category, who: Who, f: AmpFigures): Ben
       rated("output_power", f.rated4, "W", {
         channel: "both",
         text: `2 × ${f.rated4} W`,
-        conditions: { loadOhm: 4, frequencyRange: audioBand, atDistortion: { ratio: (f.ratedThdPct ?? 0.1) * PCT, measure: "thd" }, channelsDriven: "both" },
+        conditions: {
+          loadOhm: 4,
+          frequencyRange: audioBand,
+          atDistortion: { ratio: (f.ratedThdPct ?? 0.1) * PCT, measure: "thd" },
+          channelsDriven: "both",
+        },
       }),
     );
   }
@@ -95,8 +111,15 @@ export function amplifierSheet(category: Category, who: Who, f: AmpFigures): Ben
   if (!f.basic) {
     readings.push(
       r("output_voltage", vpp / (2 * SQRT2), "Vpp", { channel: "left", text: `${vpp} Vpp`, conditions: { ...bench, loadOhm: 8 } }),
-      r("rail_voltage", rail, "V", { text: `±${rail} V`, conditions: { supply: "split" }, note: "At idle, on the main filter capacitors." }),
-      r("thd_n", f.thdPct[0] * 1.35 * PCT, "%", { channel: "left", conditions: { powerW: f.rated8, loadOhm: 8, frequencyHz: 1000, bandwidth: audioBand } }),
+      r("rail_voltage", rail, "V", {
+        text: `±${rail} V`,
+        conditions: { supply: "split" },
+        note: "At idle, on the main filter capacitors.",
+      }),
+      r("thd_n", f.thdPct[0] * 1.35 * PCT, "%", {
+        channel: "left",
+        conditions: { powerW: f.rated8, loadOhm: 8, frequencyHz: 1000, bandwidth: audioBand },
+      }),
       r("snr", f.snrDb, "dB(A)", { channel: "both", conditions: { powerW: f.rated8, loadOhm: 8, weighting: "A" } }),
       r("f3db_low", f.f3LowHz, "Hz", { channel: "both", conditions: { powerW: 1, loadOhm: 8 } }),
       r("f3db_high", f.f3HighHz, "kHz", { channel: "both", conditions: { powerW: 1, loadOhm: 8 } }),
@@ -156,7 +179,11 @@ export function phonoSheet(who: Who, f: PhonoFigures): BenchSheet {
   }));
   const readings: Reading[] = [
     r("gain", f.gainDb, "dB", { channel: "both", conditions: { frequencyHz: 1000 } }),
-    r("snr", f.snrDb, "dB(A)", { channel: "both", conditions: { voltageV: 0.005, weighting: "A" }, note: "Re 5 mV at 1 kHz in, input shorted." }),
+    r("snr", f.snrDb, "dB(A)", {
+      channel: "both",
+      conditions: { voltageV: 0.005, weighting: "A" },
+      note: "Re 5 mV at 1 kHz in, input shorted.",
+    }),
     r("thd", f.thdPct * PCT, "%", { channel: "left", conditions: { voltageV: 1, frequencyHz: 1000 } }),
     r("channel_balance", 0.15, "dB", { conditions: { frequencyHz: 1000 } }),
   ];
@@ -178,7 +205,9 @@ export function turntableSheet(who: Who, f: TransportFigures): BenchSheet {
   const weighting = f.weighting ?? "IEC-60386-peak";
   const readings: Reading[] = [r("speed_error", f.speedErrorPct * PCT, "%", { conditions: { ...at, testToneHz: 3150 } })];
   if (f.wowFlutterPct !== undefined) {
-    readings.push(r("wow_flutter", f.wowFlutterPct * PCT, "%", { conditions: { ...at, weighting, testToneHz: weighting === "WRMS" ? 3000 : 3150 } }));
+    readings.push(
+      r("wow_flutter", f.wowFlutterPct * PCT, "%", { conditions: { ...at, weighting, testToneHz: weighting === "WRMS" ? 3000 : 3150 } }),
+    );
   }
   if (f.ratedWowFlutterPct !== undefined) {
     readings.push(rated("wow_flutter", f.ratedWowFlutterPct * PCT, "%", { conditions: { ...at, weighting } }));
@@ -204,7 +233,11 @@ export function tapeSheet(who: Who, f: TapeFigures): BenchSheet {
     readings: [
       r("speed_error", f.speedErrorPct * PCT, "%", { conditions: { ...tape, testToneHz: 3150 } }),
       r("wow_flutter", f.wowFlutterPct * PCT, "%", { conditions: { ...tape, weighting: "IEC-60386-peak", testToneHz: 3150 } }),
-      r("snr", f.snrDb, "dB(A)", { channel: "both", conditions: { ...tape, voltageV: 0.775, weighting: "A" }, note: "Re 250 nWb/m (0.775 V at the line output), noise reduction off." }),
+      r("snr", f.snrDb, "dB(A)", {
+        channel: "both",
+        conditions: { ...tape, voltageV: 0.775, weighting: "A" },
+        note: "Re 250 nWb/m (0.775 V at the line output), noise reduction off.",
+      }),
       r("f3db_high", f.f3HighHz, "kHz", { channel: "both", conditions: { ...tape }, note: "Record–play at −20 dB re 250 nWb/m." }),
       r("channel_balance", 0.3, "dB", { conditions: { ...tape, frequencyHz: 1000 } }),
     ],

@@ -8,15 +8,7 @@ import { checkBenchSheet } from "@shared/bench/verdict";
 import { benchSheetSchema } from "@shared/bench/schema";
 import { ShippingOptionsSchema, type ShippingOption } from "@shared/catalogue";
 import { listingFacets, publishState } from "@shared/listing-facets";
-import {
-  DEMO_ACCOUNTS,
-  DEMO_PASSWORD,
-  DEMO_UNITS,
-  DEMO_WORKSHOPS,
-  SELLER_PLACES,
-  type AccountKey,
-  type DemoUnit,
-} from "./demo-data";
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES, type AccountKey, type DemoUnit } from "./demo-data";
 import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 
@@ -91,9 +83,7 @@ interface UploadedPhoto {
 }
 
 async function uploadPhotos(units: DemoUnit[]): Promise<{ serial: string; photos: UploadedPhoto[] }[]> {
-  const jobs = units.flatMap((u) =>
-    Array.from({ length: u.photos ?? 1 }, (_, view) => ({ category: u.category, key: u.serial, view })),
-  );
+  const jobs = units.flatMap((u) => Array.from({ length: u.photos ?? 1 }, (_, view) => ({ category: u.category, key: u.serial, view })));
   const files = await drawDemoPhotos(jobs);
   const bySerial = new Map<string, UploadedPhoto[]>(units.map((u) => [u.serial, []]));
   const jpeg = { contentType: "image/jpeg" };

@@ -6,7 +6,17 @@ import { route, snapshot, type Ctx, type Route } from "./context";
 // Connected accounts (the workshops and sellers who get paid) and their onboarding links. The
 // onboarding page is the stand-in's own; finishing it enables charges and payouts.
 
-const CURRENCY_BY_COUNTRY: Record<string, string> = { US: "usd", GB: "gbp", CH: "chf", SE: "sek", DK: "dkk", NO: "nok", PL: "pln", CA: "cad", AU: "aud" };
+const CURRENCY_BY_COUNTRY: Record<string, string> = {
+  US: "usd",
+  GB: "gbp",
+  CH: "chf",
+  SE: "sek",
+  DK: "dkk",
+  NO: "nok",
+  PL: "pln",
+  CA: "cad",
+  AU: "aud",
+};
 const EURO = ["AT", "BE", "CY", "DE", "EE", "ES", "FI", "FR", "GR", "HR", "IE", "IT", "LT", "LU", "LV", "MT", "NL", "PT", "SI", "SK"];
 const DUE = ["business_profile.url", "external_account", "tos_acceptance.date", "tos_acceptance.ip"];
 const PLATFORM_ID = "acct_loadlineplatform0";
@@ -16,7 +26,17 @@ function defaultCurrency(country: string): string {
 }
 
 function createAccount(ctx: Ctx, raw: Parameters<Route["handler"]>[1]): StripeObject {
-  const p = new P(raw, ["type", "country", "email", "business_type", "capabilities", "metadata", "business_profile", "default_currency", "controller"]);
+  const p = new P(raw, [
+    "type",
+    "country",
+    "email",
+    "business_type",
+    "capabilities",
+    "metadata",
+    "business_profile",
+    "default_currency",
+    "controller",
+  ]);
   const type = p.oneOf("type", ["express", "standard", "custom"] as const) ?? (p.has("controller") ? "none" : "standard");
   const country = (p.str("country") ?? "US").toUpperCase();
   if (!/^[A-Z]{2}$/.test(country)) throw invalid(`Invalid country: ${country}`, "country");
@@ -41,7 +61,15 @@ function createAccount(ctx: Ctx, raw: Parameters<Route["handler"]>[1]): StripeOb
     details_submitted: false,
     default_currency: p.currency("default_currency") ?? defaultCurrency(country),
     metadata: p.metadata(),
-    requirements: { currently_due: DUE, eventually_due: DUE, past_due: [], pending_verification: [], errors: [], disabled_reason: "requirements.past_due", current_deadline: null },
+    requirements: {
+      currently_due: DUE,
+      eventually_due: DUE,
+      past_due: [],
+      pending_verification: [],
+      errors: [],
+      disabled_reason: "requirements.past_due",
+      current_deadline: null,
+    },
     tos_acceptance: { date: null },
     settings: { payouts: { schedule: { interval: "daily", delay_days: 2 } } },
     external_accounts: { object: "list", data: [], has_more: false, url: "" },
@@ -97,7 +125,16 @@ export function completeOnboarding(ctx: Ctx, token: string, form: { businessName
   if (form.businessName) account.business_profile.name = form.businessName;
   const last4 = form.iban.replace(/\s/g, "").slice(-4) || "3000";
   account.external_accounts.data = [
-    { id: ctx.store.newId("ba", 24), object: "bank_account", account: account.id, last4, currency: account.default_currency, country: account.country, status: "new", default_for_currency: true },
+    {
+      id: ctx.store.newId("ba", 24),
+      object: "bank_account",
+      account: account.id,
+      last4,
+      currency: account.default_currency,
+      country: account.country,
+      status: "new",
+      default_for_currency: true,
+    },
   ];
   ctx.store.changed();
   ctx.emit("account.updated", account, before);

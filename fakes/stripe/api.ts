@@ -70,7 +70,10 @@ export async function handleApi(cfg: ApiConfig, req: IncomingMessage, res: Serve
   const match = findRoute(method, url.pathname);
   if (!match) {
     return send(404, {
-      error: { type: "invalid_request_error", message: `Unrecognized request URL (${method}: ${url.pathname}). The local payments stand-in does not speak this endpoint.` },
+      error: {
+        type: "invalid_request_error",
+        message: `Unrecognized request URL (${method}: ${url.pathname}). The local payments stand-in does not speak this endpoint.`,
+      },
     });
   }
 
@@ -82,7 +85,10 @@ export async function handleApi(cfg: ApiConfig, req: IncomingMessage, res: Serve
     const result = match.route.handler(ctx, params, match.args);
     payload = expand(ctx, result, expandPaths(params));
   } catch (err) {
-    const e = err instanceof StripeFakeError ? err : new StripeFakeError(500, "api_error", `Internal error in the stand-in: ${(err as Error).message}`);
+    const e =
+      err instanceof StripeFakeError
+        ? err
+        : new StripeFakeError(500, "api_error", `Internal error in the stand-in: ${(err as Error).message}`);
     status = e.status;
     payload = e.toJSON();
   }

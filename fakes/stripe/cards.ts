@@ -7,9 +7,7 @@ export interface Card {
   last4: string;
 }
 
-export type Outcome =
-  | { ok: true }
-  | { ok: false; code: string; decline_code?: string; message: string; param?: string };
+export type Outcome = { ok: true } | { ok: false; code: string; decline_code?: string; message: string; param?: string };
 
 const approved: Outcome = { ok: true };
 const declined = (decline_code: string, message = "Your card was declined."): Outcome => ({
@@ -42,7 +40,13 @@ const TEST_CARDS: Record<string, { card: Omit<Card, "last4">; outcome: Outcome }
   },
   "4000000000000127": {
     card: { brand: "visa", funding: "credit" },
-    outcome: { ok: false, code: "incorrect_cvc", decline_code: "incorrect_cvc", message: "Your card's security code is incorrect.", param: "cvc" },
+    outcome: {
+      ok: false,
+      code: "incorrect_cvc",
+      decline_code: "incorrect_cvc",
+      message: "Your card's security code is incorrect.",
+      param: "cvc",
+    },
   },
   "4000000000000119": {
     card: { brand: "visa", funding: "credit" },

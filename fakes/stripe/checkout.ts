@@ -11,8 +11,19 @@ import { attemptPayment, checkAmount, createPaymentIntent, createPaymentMethod }
 
 function createSession(ctx: Ctx, params: Params): StripeObject {
   const p = new P(params, [
-    "mode", "line_items", "success_url", "cancel_url", "metadata", "client_reference_id", "customer_email",
-    "payment_intent_data", "expires_at", "payment_method_types", "locale", "currency", "submit_type",
+    "mode",
+    "line_items",
+    "success_url",
+    "cancel_url",
+    "metadata",
+    "client_reference_id",
+    "customer_email",
+    "payment_intent_data",
+    "expires_at",
+    "payment_method_types",
+    "locale",
+    "currency",
+    "submit_type",
   ]);
   const mode = p.oneOf("mode", ["payment", "setup", "subscription"] as const, { required: true });
   if (mode !== "payment") throw invalid("This stand-in supports mode=payment only.", "mode");
@@ -38,7 +49,16 @@ function createSession(ctx: Ctx, params: Params): StripeObject {
   if (items.some((i) => i.currency !== currency)) throw invalid("All line_items must use the same currency.", "line_items");
   const total = items.reduce((s, i) => s + i.amount_total, 0);
   checkAmount(total, currency, "line_items");
-  const pid = p.obj("payment_intent_data", ["capture_method", "transfer_group", "metadata", "description", "receipt_email", "transfer_data", "application_fee_amount", "setup_future_usage"]);
+  const pid = p.obj("payment_intent_data", [
+    "capture_method",
+    "transfer_group",
+    "metadata",
+    "description",
+    "receipt_email",
+    "transfer_data",
+    "application_fee_amount",
+    "setup_future_usage",
+  ]);
   const destination = pid?.obj("transfer_data", ["destination", "amount"])?.str("destination");
   if (destination) ctx.store.find(destination, "account", "account", "payment_intent_data[transfer_data][destination]");
   const now = ctx.store.now();
@@ -160,7 +180,11 @@ export const checkoutRoutes: Route[] = [
     const status = p.str("status");
     if (pi) items = items.filter((s) => s.payment_intent === pi);
     if (status) items = items.filter((s) => s.status === status);
-    return paginate(items, "/v1/checkout/sessions", { limit: p.int("limit", { min: 1, max: 100 }), starting_after: p.str("starting_after"), ending_before: p.str("ending_before") });
+    return paginate(items, "/v1/checkout/sessions", {
+      limit: p.int("limit", { min: 1, max: 100 }),
+      starting_after: p.str("starting_after"),
+      ending_before: p.str("ending_before"),
+    });
   }),
   route("GET", "/v1/checkout/sessions/:id", (ctx, _params, [id]) => publicView(findSession(ctx, id))),
   route("GET", "/v1/checkout/sessions/:id/line_items", (ctx, _params, [id]) => lineItems(findSession(ctx, id))),

@@ -54,6 +54,14 @@ function normaliseArrays(value: ParamValue): ParamValue {
 /** Stable text of the parameters, for idempotency comparisons. */
 export function fingerprint(params: Params): string {
   const sort = (v: ParamValue): unknown =>
-    typeof v === "string" ? v : Array.isArray(v) ? v.map(sort) : Object.fromEntries(Object.keys(v).sort().map((k) => [k, sort(v[k])]));
+    typeof v === "string"
+      ? v
+      : Array.isArray(v)
+        ? v.map(sort)
+        : Object.fromEntries(
+            Object.keys(v)
+              .sort()
+              .map((k) => [k, sort(v[k])]),
+          );
   return JSON.stringify(sort(params));
 }

@@ -65,7 +65,13 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<RunningS
       findSession(ctx, session.id);
       if (method === "GET") return sendHtml(res, 200, checkoutPage(session));
       const f = new URLSearchParams(body);
-      const form: CardForm = { number: f.get("number") ?? "", exp: f.get("exp") ?? "", cvc: f.get("cvc") ?? "", name: f.get("name") ?? "", email: f.get("email") ?? "" };
+      const form: CardForm = {
+        number: f.get("number") ?? "",
+        exp: f.get("exp") ?? "",
+        cvc: f.get("cvc") ?? "",
+        name: f.get("name") ?? "",
+        email: f.get("email") ?? "",
+      };
       const result = paySession(ctx, session, form);
       if ("redirect" in result) return redirect(res, result.redirect);
       return sendHtml(res, 402, checkoutPage(session, form, { field: result.field, message: result.error }));
@@ -77,7 +83,10 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<RunningS
       if (stale) return redirect(res, link.refreshUrl ?? link.returnUrl);
       if (method === "GET") return sendHtml(res, 200, onboardingPage(parts[2], account));
       const f = new URLSearchParams(body);
-      return redirect(res, completeOnboarding(ctx, parts[2], { businessName: (f.get("business_name") ?? "").trim(), iban: f.get("account_number") ?? "" }));
+      return redirect(
+        res,
+        completeOnboarding(ctx, parts[2], { businessName: (f.get("business_name") ?? "").trim(), iban: f.get("account_number") ?? "" }),
+      );
     }
     sendHtml(res, 404, messagePage("Not found", "The payments stand-in has no page here."));
   }

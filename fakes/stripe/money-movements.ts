@@ -12,7 +12,8 @@ import { listOf } from "./payment-intents";
  *  Simplification: funds are available at capture (Stripe holds them pending for days) and no fees. */
 export function balance(ctx: Ctx): Record<string, number> {
   const out: Record<string, number> = {};
-  for (const ch of ctx.store.all("charge")) out[ch.currency] = (out[ch.currency] ?? 0) + ch.amount_captured - (ch.captured ? ch.amount_refunded : 0);
+  for (const ch of ctx.store.all("charge"))
+    out[ch.currency] = (out[ch.currency] ?? 0) + ch.amount_captured - (ch.captured ? ch.amount_refunded : 0);
   for (const tr of ctx.store.all("transfer")) out[tr.currency] = (out[tr.currency] ?? 0) - tr.amount + tr.amount_reversed;
   return out;
 }
@@ -39,7 +40,9 @@ function createRefund(ctx: Ctx, params: Params): StripeObject {
   if (!charge.captured) throw invalid(`Charge ${charge.id} has not been captured.`, "charge", "charge_not_refundable");
   const remaining = charge.amount_captured - charge.amount_refunded;
   if (remaining <= 0) {
-    throw new StripeFakeError(400, "invalid_request_error", `Charge ${charge.id} has already been refunded.`, { code: "charge_already_refunded" });
+    throw new StripeFakeError(400, "invalid_request_error", `Charge ${charge.id} has already been refunded.`, {
+      code: "charge_already_refunded",
+    });
   }
   const amount = p.int("amount", { min: 1 }) ?? remaining;
   if (amount > remaining) {
@@ -82,11 +85,19 @@ function createTransfer(ctx: Ctx, params: Params): StripeObject {
   const sourceId = p.str("source_transaction");
   if (sourceId) {
     const source = ctx.store.find(sourceId, "charge", "charge", "source_transaction");
-    if (source.currency !== currency) throw invalid("The currency of source_transaction's balance transaction must match the transfer currency", "currency");
-    const used = ctx.store.all("transfer").filter((t) => t.source_transaction === sourceId).reduce((s, t) => s + t.amount - t.amount_reversed, 0);
+    if (source.currency !== currency)
+      throw invalid("The currency of source_transaction's balance transaction must match the transfer currency", "currency");
+    const used = ctx.store
+      .all("transfer")
+      .filter((t) => t.source_transaction === sourceId)
+      .reduce((s, t) => s + t.amount - t.amount_reversed, 0);
     const left = source.amount_captured - source.amount_refunded - used;
     if (amount > left) {
-      throw invalid(`Transfer amount (${amount}) exceeds what remains of source_transaction ${sourceId} (${left}).`, "amount", "amount_too_large");
+      throw invalid(
+        `Transfer amount (${amount}) exceeds what remains of source_transaction ${sourceId} (${left}).`,
+        "amount",
+        "amount_too_large",
+      );
     }
   } else if ((balance(ctx)[currency] ?? 0) < amount) {
     throw new StripeFakeError(400, "invalid_request_error", "You have insufficient available funds in your Stripe account.", {
@@ -122,7 +133,8 @@ function reverseTransfer(ctx: Ctx, params: Params, id: string): StripeObject {
   const left = transfer.amount - transfer.amount_reversed;
   const amount = p.int("amount", { min: 1 }) ?? left;
   if (left <= 0) throw invalid(`Transfer ${id} has already been fully reversed.`, undefined, "transfer_already_reversed");
-  if (amount > left) throw invalid(`Reversal amount (${amount}) is greater than what remains of the transfer (${left}).`, "amount", "amount_too_large");
+  if (amount > left)
+    throw invalid(`Reversal amount (${amount}) is greater than what remains of the transfer (${left}).`, "amount", "amount_too_large");
   const reversal = {
     id: ctx.store.newId("trr"),
     object: "transfer_reversal",
@@ -153,7 +165,9 @@ export const moneyMovementRoutes: Route[] = [
     const amounts = Object.entries(balance(ctx));
     return {
       object: "balance",
-      available: amounts.length ? amounts.map(([currency, amount]) => ({ amount, currency, source_types: { card: amount } })) : [{ amount: 0, currency: "usd", source_types: { card: 0 } }],
+      available: amounts.length
+        ? amounts.map(([currency, amount]) => ({ amount, currency, source_types: { card: amount } }))
+        : [{ amount: 0, currency: "usd", source_types: { card: 0 } }],
       pending: [],
       livemode: false,
     };

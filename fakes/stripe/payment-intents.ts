@@ -35,9 +35,21 @@ function confirm(ctx: Ctx, pi: StripeObject, paymentMethodId: string | undefined
 
 function create(ctx: Ctx, params: Params): StripeObject {
   const p = new P(params, [
-    "amount", "currency", "capture_method", "confirm", "payment_method", "payment_method_types", "metadata",
-    "description", "transfer_group", "receipt_email", "transfer_data", "application_fee_amount", "return_url",
-    "automatic_payment_methods", "statement_descriptor_suffix",
+    "amount",
+    "currency",
+    "capture_method",
+    "confirm",
+    "payment_method",
+    "payment_method_types",
+    "metadata",
+    "description",
+    "transfer_group",
+    "receipt_email",
+    "transfer_data",
+    "application_fee_amount",
+    "return_url",
+    "automatic_payment_methods",
+    "statement_descriptor_suffix",
   ]);
   const amount = p.int("amount", { required: true, min: 1 })!;
   const currency = p.currency("currency", { required: true })!;
@@ -57,7 +69,9 @@ function create(ctx: Ctx, params: Params): StripeObject {
       description: p.str("description") ?? null,
       transfer_group: p.str("transfer_group") ?? null,
       receipt_email: p.str("receipt_email") ?? null,
-      transfer_data: destination ? { destination, ...(transferData?.has("amount") ? { amount: transferData.int("amount", { min: 1 }) } : {}) } : null,
+      transfer_data: destination
+        ? { destination, ...(transferData?.has("amount") ? { amount: transferData.int("amount", { min: 1 }) } : {}) }
+        : null,
       application_fee_amount: p.int("application_fee_amount", { min: 0 }) ?? null,
     },
     pmId ? resolvePaymentMethod(ctx, pmId).id : null,

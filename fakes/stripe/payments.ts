@@ -125,7 +125,12 @@ export function attemptPayment(ctx: Ctx, pi: StripeObject, pm: StripeObject, out
     metadata: { ...pi.metadata },
     outcome: outcome.ok
       ? { network_status: "approved_by_network", type: "authorized", seller_message: "Payment complete.", risk_level: "normal" }
-      : { network_status: "declined_by_network", type: "issuer_declined", reason: outcome.decline_code ?? outcome.code, seller_message: "The bank did not return any further details with this decline." },
+      : {
+          network_status: "declined_by_network",
+          type: "issuer_declined",
+          reason: outcome.decline_code ?? outcome.code,
+          seller_message: "The bank did not return any further details with this decline.",
+        },
     paid: outcome.ok,
     payment_intent: pi.id,
     payment_method: pm.id,
@@ -190,7 +195,11 @@ export function capturePaymentIntent(ctx: Ctx, pi: StripeObject, amountToCapture
   }
   const amount = amountToCapture ?? pi.amount_capturable;
   if (amount > pi.amount_capturable) {
-    throw invalid(`The amount to capture (${amount}) exceeds the capturable amount (${pi.amount_capturable}).`, "amount_to_capture", "amount_too_large");
+    throw invalid(
+      `The amount to capture (${amount}) exceeds the capturable amount (${pi.amount_capturable}).`,
+      "amount_to_capture",
+      "amount_too_large",
+    );
   }
   const charge = ctx.store.find(pi.latest_charge, "charge", "charge");
   const before = snapshot(pi, ["status", "amount_capturable", "amount_received"]);

@@ -78,7 +78,9 @@ export class WebhookSender {
     this.store.changed();
     if (ok) return;
     const wait = delays[retry];
-    this.log(`payments stand-in: ${stored.type} ${stored.id} not delivered (${status ?? error})${wait === undefined ? ", giving up" : `, retrying in ${Math.round(wait / 1000)} s`}`);
+    this.log(
+      `payments stand-in: ${stored.type} ${stored.id} not delivered (${status ?? error})${wait === undefined ? ", giving up" : `, retrying in ${Math.round(wait / 1000)} s`}`,
+    );
     if (wait === undefined || this.stopped) return;
     const timer = setTimeout(() => {
       this.timers.delete(timer);

@@ -18,7 +18,12 @@ function rssMiB(pid: number): number {
 }
 
 /** Sends `total` bytes chunked (no Content-Length) until the server answers or drops the connection. */
-function sendChunked(url: string, total: number, headers: Record<string, string>, head = ""): Promise<{ status: number | string; sentMiB: number; body: string }> {
+function sendChunked(
+  url: string,
+  total: number,
+  headers: Record<string, string>,
+  head = "",
+): Promise<{ status: number | string; sentMiB: number; body: string }> {
   return new Promise((resolve) => {
     let sent = 0;
     let done = false;
@@ -97,7 +102,8 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
   const children: ChildProcess[] = [];
   try {
     const env = { ...stack.env };
-    if ((await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true))) !== 0) throw new Error("react-router build failed");
+    if ((await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true))) !== 0)
+      throw new Error("react-router build failed");
     // node --import tsx rather than the tsx binary: one process, so its memory is the server's.
     const web = spawn(process.execPath, ["--import", "tsx", path.join(root, "scripts/serve.ts")], {
       cwd: root,
@@ -120,14 +126,21 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
     const listing = /href="(\/listings\/[0-9a-f-]{36})"/.exec(market)?.[1];
     if (!listing) throw new Error("no public listing on /market");
     const live = (await fetch(`${base}/healthz/live`)).status === 200 ? "/healthz/live" : "/healthz";
-    if (live === "/healthz") notes.push("/healthz/live is not on this branch yet: the liveness figures use /healthz, which checks every dependency on each call");
+    if (live === "/healthz")
+      notes.push("/healthz/live is not on this branch yet: the liveness figures use /healthz, which checks every dependency on each call");
 
     // --- Memory while over-limit bodies are refused (a fresh, warmed-up process) ---
     for (let i = 0; i < 20; i++) await (await fetch(`${base}${listing}`)).arrayBuffer();
     await new Promise((r) => setTimeout(r, 1000));
     const baseline = rssMiB(web.pid!);
     const overLimit: [string, string, number, Record<string, string>, string][] = [
-      ["40 MiB JSON to /api/v1/bench-sheets/check", "/api/v1/bench-sheets/check", 40 * MiB, { "Content-Type": "application/json" }, '{"notes":"'],
+      [
+        "40 MiB JSON to /api/v1/bench-sheets/check",
+        "/api/v1/bench-sheets/check",
+        40 * MiB,
+        { "Content-Type": "application/json" },
+        '{"notes":"',
+      ],
       [
         "120 MiB multipart to /api/v1/captures/analyze",
         "/api/v1/captures/analyze?wait=0",
@@ -135,7 +148,13 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
         { "Content-Type": "multipart/form-data; boundary=BB", Cookie: cookie },
         '--BB\r\nContent-Disposition: form-data; name="file"; filename="s.csv"\r\nContent-Type: text/csv\r\n\r\nfrequency,level\n',
       ],
-      ["100 MiB to /api/v1/webhooks/stripe", "/api/v1/webhooks/stripe", 100 * MiB, { "Content-Type": "application/json", "Stripe-Signature": "t=1,v1=00" }, '{"id":"'],
+      [
+        "100 MiB to /api/v1/webhooks/stripe",
+        "/api/v1/webhooks/stripe",
+        100 * MiB,
+        { "Content-Type": "application/json", "Stripe-Signature": "t=1,v1=00" },
+        '{"id":"',
+      ],
     ];
     let peak = baseline;
     for (const [label, route, total, headers, head] of overLimit) {
@@ -146,9 +165,18 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
       clearInterval(sampler);
       peak = Math.max(peak, localPeak);
       const code = /"error":"([a-z_]+)"/.exec(out.body)?.[1];
-      figures.push({ label: `${label}, chunked: answer ${out.status}${code ? ` ${code}` : ""} after ${out.sentMiB} MiB sent; web RSS peak above the start`, value: ms(localPeak - baseline), unit: "MiB", limit: 100 });
+      figures.push({
+        label: `${label}, chunked: answer ${out.status}${code ? ` ${code}` : ""} after ${out.sentMiB} MiB sent; web RSS peak above the start`,
+        value: ms(localPeak - baseline),
+        unit: "MiB",
+        limit: 100,
+      });
     }
-    figures.push({ label: `web RSS before the over-limit bodies ${ms(baseline)} MiB, peak while they were refused`, value: ms(peak), unit: "MiB" });
+    figures.push({
+      label: `web RSS before the over-limit bodies ${ms(baseline)} MiB, peak while they were refused`,
+      value: ms(peak),
+      unit: "MiB",
+    });
 
     // --- Latency while a 48 MB capture is uploaded and analysed (after 3 s without it, for comparison) ---
     const csv = squareCsv(48 * MiB);
@@ -157,11 +185,19 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
     const idle = await probeWhile(urls, new Promise((r) => setTimeout(r, 3000)));
     for (const url of urls) {
       const t = idle[url];
-      figures.push({ label: `${what(url)} without the upload, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95 ${ms(pct(t, 95))} ms, max`, value: ms(Math.max(...t)), unit: "ms" });
+      figures.push({
+        label: `${what(url)} without the upload, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95 ${ms(pct(t, 95))} ms, max`,
+        value: ms(Math.max(...t)),
+        unit: "ms",
+      });
     }
     let uploadMs = 0;
     let uploadStatus = 0;
-    let capture: { status: string; createdAt: string; finishedAt: string | null; error?: { error: string } } = { status: "queued", createdAt: "", finishedAt: null };
+    let capture: { status: string; createdAt: string; finishedAt: string | null; error?: { error: string } } = {
+      status: "queued",
+      createdAt: "",
+      finishedAt: null,
+    };
     const t0 = performance.now();
     const work = (async () => {
       await new Promise((r) => setTimeout(r, 300));
@@ -169,7 +205,11 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
       form.append("file", new Blob([csv as Uint8Array<ArrayBuffer>], { type: "text/csv" }), "scope-1k.csv");
       form.append("kind", "square");
       form.append("loadOhm", "8");
-      const upload = await fetch(`${base}/api/v1/captures/analyze?wait=0`, { method: "POST", body: form, headers: { Cookie: cookie, Origin: base } });
+      const upload = await fetch(`${base}/api/v1/captures/analyze?wait=0`, {
+        method: "POST",
+        body: form,
+        headers: { Cookie: cookie, Origin: base },
+      });
       uploadMs = performance.now() - t0 - 300;
       uploadStatus = upload.status;
       const queued = (await upload.json()) as { id?: string; error?: string };
@@ -192,10 +232,19 @@ export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[
     for (const url of urls) {
       const t = busy[url];
       const limited = !(url.endsWith(live) && live === "/healthz");
-      figures.push({ label: `${what(url)} meanwhile, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95`, value: ms(pct(t, 95)), unit: "ms", ...(limited ? { limit: 200 } : {}) });
+      figures.push({
+        label: `${what(url)} meanwhile, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95`,
+        value: ms(pct(t, 95)),
+        unit: "ms",
+        ...(limited ? { limit: 200 } : {}),
+      });
       figures.push({ label: `${what(url)} meanwhile, max`, value: ms(Math.max(...t)), unit: "ms", ...(limited ? { limit: 200 } : {}) });
     }
-    figures.push({ label: "load average over the last minute (2 cores, shared)", value: Math.round(os.loadavg()[0] * 100) / 100, unit: "" });
+    figures.push({
+      label: "load average over the last minute (2 cores, shared)",
+      value: Math.round(os.loadavg()[0] * 100) / 100,
+      unit: "",
+    });
   } finally {
     for (const c of children) await stopChild(c);
     await stack.stop();

@@ -50,7 +50,11 @@ export async function healthFigures(baseUrl: string): Promise<Figure[]> {
     const r = await load(`${baseUrl}${path}`);
     const what = `GET ${path} (${name}), 20 connections, 5 s`;
     figures.push(
-      { label: `${what}: requests per second (${r.requests} requests, ${r.failures} not 200)`, value: Math.round(r.perSecond), unit: "req/s" },
+      {
+        label: `${what}: requests per second (${r.requests} requests, ${r.failures} not 200)`,
+        value: Math.round(r.perSecond),
+        unit: "req/s",
+      },
       { label: `${what}: median latency (p95 ${round(r.p95)} ms)`, value: round(r.p50), unit: "ms", limit },
     );
   }
@@ -62,5 +66,6 @@ const round = (x: number) => Math.round(x * 10) / 10;
 // Runnable alone: `npx tsx scripts/bench/health.ts [base URL]`
 if (import.meta.url === `file://${process.argv[1]}`) {
   const base = process.argv[2] ?? process.env.BENCH_URL ?? "http://127.0.0.1:3000";
-  for (const f of await healthFigures(base)) console.log(`${f.label}: ${f.value} ${f.unit}${f.limit ? ` (limit < ${f.limit} ${f.unit})` : ""}`);
+  for (const f of await healthFigures(base))
+    console.log(`${f.label}: ${f.value} ${f.unit}${f.limit ? ` (limit < ${f.limit} ${f.unit})` : ""}`);
 }

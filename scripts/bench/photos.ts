@@ -62,7 +62,10 @@ type Measured = { outcome: string; baselineMb: number; peakMb: number; ms: numbe
 function measure(dir: string, name: string, bytes: Buffer, type: "image/jpeg" | "image/png"): Measured {
   const file = path.join(dir, name);
   writeFileSync(file, bytes);
-  const out = execFileSync(path.join(root, "node_modules/.bin/tsx"), ["tests/support/photo-memory.ts", file, type], { cwd: root, encoding: "utf8" });
+  const out = execFileSync(path.join(root, "node_modules/.bin/tsx"), ["tests/support/photo-memory.ts", file, type], {
+    cwd: root,
+    encoding: "utf8",
+  });
   return JSON.parse(out.trim().split("\n").at(-1)!) as Measured;
 }
 

@@ -18,7 +18,9 @@ function pretty(v: unknown, indent = ""): string {
     return flat.replace(/":/g, '": ').replace(/,"/g, ', "').replace(/},{/g, "}, {");
   const inner = indent + "  ";
   if (Array.isArray(v)) return `[\n${v.map((x) => inner + pretty(x, inner)).join(",\n")}\n${indent}]`;
-  return `{\n${Object.entries(v).map(([k, x]) => `${inner}${JSON.stringify(k)}: ${pretty(x, inner)}`).join(",\n")}\n${indent}}`;
+  return `{\n${Object.entries(v)
+    .map(([k, x]) => `${inner}${JSON.stringify(k)}: ${pretty(x, inner)}`)
+    .join(",\n")}\n${indent}}`;
 }
 
 export function benchSheetApiSection(): string {
@@ -40,10 +42,13 @@ export function benchSheetApiSection(): string {
     const cs = CATEGORIES.filter((c) => CATEGORY_QUANTITIES[c].includes(q));
     return cs.length === CATEGORIES.length ? "all" : cs.map((c) => `\`${c}\``).join(", ");
   };
-  const qRows = QUANTITIES.map((q) => `| \`${q}\` | ${QUANTITY_INFO[q].label} | ${QUANTITY_INFO[q].baseUnit || "plain number"} | ${cats(q)} |`).join("\n");
+  const qRows = QUANTITIES.map(
+    (q) => `| \`${q}\` | ${QUANTITY_INFO[q].label} | ${QUANTITY_INFO[q].baseUnit || "plain number"} | ${cats(q)} |`,
+  ).join("\n");
   const ruleRows = RULES.map((r) => `| \`${r.id}\` | ${r.title} | ${r.source} |`).join("\n");
   const reqRows = CATEGORIES.map(
-    (c) => `| \`${c}\` | ${REQUIRED_READINGS[c].map((x) => x.label + (x.ratedIsEnough ? " (the maker's figure is enough)" : "")).join("; ")} |`,
+    (c) =>
+      `| \`${c}\` | ${REQUIRED_READINGS[c].map((x) => x.label + (x.ratedIsEnough ? " (the maker's figure is enough)" : "")).join("; ")} |`,
   ).join("\n");
 
   return `${HEADING}

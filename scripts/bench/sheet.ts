@@ -1,7 +1,11 @@
 // Timing of the bench-sheet check, for `npm run bench` (scripts/bench.ts prints the figures).
 import { checkBenchSheet } from "../../shared/bench/verdict";
 import { checkBenchSheetJson } from "../../shared/bench/api";
-import { doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierRequest, exampleIntegratedAmplifierSheet } from "../../shared/bench/examples";
+import {
+  doctoredIntegratedAmplifierSheet,
+  exampleIntegratedAmplifierRequest,
+  exampleIntegratedAmplifierSheet,
+} from "../../shared/bench/examples";
 
 type Figure = { label: string; value: number; unit: string; limit?: number };
 
@@ -26,10 +30,19 @@ export async function benchSheetCheck(runs = 5000): Promise<Figure[]> {
   const api = meanMicros(() => (sink += checkBenchSheetJson(body).status), Math.ceil(runs / 5));
   if (sink < 0) console.log(sink); // keeps the work observable
   return [
-    { label: `checkBenchSheet, example integrated amplifier (${good.readings.length} readings), mean of ${runs}`, value: round(check.wall), unit: "µs", limit: 1000 },
+    {
+      label: `checkBenchSheet, example integrated amplifier (${good.readings.length} readings), mean of ${runs}`,
+      value: round(check.wall),
+      unit: "µs",
+      limit: 1000,
+    },
     { label: "  same, CPU time per sheet (steadier on a busy machine)", value: round(check.cpu), unit: "µs", limit: 1000 },
     { label: `checkBenchSheet, doctored sheet, mean of ${runs}`, value: round(doctored.wall), unit: "µs", limit: 1000 },
-    { label: `JSON parse + schema + check (API body, ${body.length} bytes), mean of ${Math.ceil(runs / 5)}`, value: round(api.wall), unit: "µs" },
+    {
+      label: `JSON parse + schema + check (API body, ${body.length} bytes), mean of ${Math.ceil(runs / 5)}`,
+      value: round(api.wall),
+      unit: "µs",
+    },
   ];
 }
 

@@ -6,7 +6,18 @@ import { formatNumber, formatValue, parseRange, parseValue, ratioToDb, type Kind
 import { isOneOf } from "../one-of";
 
 export const ROW_FIELDS = [
-  "load", "frequency", "range", "level", "limit", "bandwidth", "weighting", "driven", "tone", "speed", "supply", "distance",
+  "load",
+  "frequency",
+  "range",
+  "level",
+  "limit",
+  "bandwidth",
+  "weighting",
+  "driven",
+  "tone",
+  "speed",
+  "supply",
+  "distance",
 ] as const;
 export type ConditionField = (typeof ROW_FIELDS)[number];
 export type Channel = (typeof CHANNELS)[number];
@@ -82,10 +93,25 @@ export const SELECT_FIELDS: Partial<Record<ConditionField, readonly string[]>> =
 };
 
 export type RowErrors = Partial<Record<"quantity" | "value" | "channel" | "basis" | "note" | ConditionField, string>>;
-export type RowResult = { reading: Reading | null; errors: RowErrors; /** Parsed value per field, to show beside it. */ shown: Partial<Record<"value" | ConditionField, string>> };
+export type RowResult = {
+  reading: Reading | null;
+  errors: RowErrors;
+  /** Parsed value per field, to show beside it. */ shown: Partial<Record<"value" | ConditionField, string>>;
+};
 
 const NO_CONDITIONS: Record<ConditionField, string> = {
-  load: "", frequency: "", range: "", level: "", limit: "", bandwidth: "", weighting: "", driven: "", tone: "", speed: "", supply: "", distance: "",
+  load: "",
+  frequency: "",
+  range: "",
+  level: "",
+  limit: "",
+  bandwidth: "",
+  weighting: "",
+  driven: "",
+  tone: "",
+  speed: "",
+  supply: "",
+  distance: "",
 };
 
 export function blankRow(key: string, basis: SheetRow["basis"] = "measured", rest: Partial<SheetRow> = {}): SheetRow {
@@ -99,7 +125,9 @@ export function showParsed(p: ParsedValue, dc = false, inDb = false): string {
       return `${formatValue(p.value, "voltage")} ${p.form === "dc" || dc ? "DC" : "rms"}`;
     case "ratio":
       // Distortion reads both ways in the trade (0.03 % = −70.5 dB); a speed error does not.
-      return inDb && p.value > 0 ? `${formatValue(p.value, "ratio")} (${formatNumber(ratioToDb(p.value))} dB)` : formatValue(p.value, "ratio");
+      return inDb && p.value > 0
+        ? `${formatValue(p.value, "ratio")} (${formatNumber(ratioToDb(p.value))} dB)`
+        : formatValue(p.value, "ratio");
     case "number":
       return formatValue(p.value, "number");
     default:
@@ -252,10 +280,26 @@ export function readRow(row: SheetRow): RowResult {
 /** Which row field a schema path inside one reading belongs to ("conditions.loadOhm" → "load"). */
 export function fieldOfPath(path: string): keyof RowErrors {
   const map: Record<string, keyof RowErrors> = {
-    loadOhm: "load", frequencyHz: "frequency", frequencyRange: "range", powerW: "level", voltageV: "level",
-    atDistortion: "limit", bandwidth: "bandwidth", weighting: "weighting", channelsDriven: "driven", testToneHz: "tone",
-    speedRpm: "speed", tapeSpeedCmS: "speed", supply: "supply", distanceM: "distance",
-    quantity: "quantity", value: "value", unit: "value", channel: "channel", basis: "basis", note: "note",
+    loadOhm: "load",
+    frequencyHz: "frequency",
+    frequencyRange: "range",
+    powerW: "level",
+    voltageV: "level",
+    atDistortion: "limit",
+    bandwidth: "bandwidth",
+    weighting: "weighting",
+    channelsDriven: "driven",
+    testToneHz: "tone",
+    speedRpm: "speed",
+    tapeSpeedCmS: "speed",
+    supply: "supply",
+    distanceM: "distance",
+    quantity: "quantity",
+    value: "value",
+    unit: "value",
+    channel: "channel",
+    basis: "basis",
+    note: "note",
   };
   const parts = path.split(".");
   const key = parts[0] === "conditions" ? parts[1] : parts[0];

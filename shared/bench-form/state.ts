@@ -1,11 +1,32 @@
 // The whole bench sheet form: rows and sheet details to a bench sheet and back, the HTML form's fields,
 // and the rows a new sheet starts with. Used by the browser (live outcomes) and the server (the authority).
 import { CATEGORY_QUANTITIES, QUANTITIES, QUANTITY_INFO, type Category, type Quantity } from "../bench/quantities";
-import { CHANNELS, conditionsSchema, equipmentSchema, parseBenchSheet, readingSchema, sweepSchema, type BenchSheet, type Conditions, type Reading, type Sweep } from "../bench/schema";
+import {
+  CHANNELS,
+  conditionsSchema,
+  equipmentSchema,
+  parseBenchSheet,
+  readingSchema,
+  sweepSchema,
+  type BenchSheet,
+  type Conditions,
+  type Reading,
+  type Sweep,
+} from "../bench/schema";
 import { isOneOf } from "../one-of";
 import { formatValue } from "../bench/units";
 import type { FormLike } from "../listing-draft";
-import { blankRow, CONDITION_FIELDS, fieldOfPath, readRow, ROW_FIELDS, type ConditionField, type RowErrors, type RowResult, type SheetRow } from "./rows";
+import {
+  blankRow,
+  CONDITION_FIELDS,
+  fieldOfPath,
+  readRow,
+  ROW_FIELDS,
+  type ConditionField,
+  type RowErrors,
+  type RowResult,
+  type SheetRow,
+} from "./rows";
 
 /** A form field's JSON, or undefined when it does not parse (the schema after it then refuses it). */
 function parseJson(text: string): unknown {
@@ -18,9 +39,18 @@ function parseJson(text: string): unknown {
 
 /** The stored condition keys each form field writes. */
 const CONDITION_KEYS: Record<ConditionField, (keyof Conditions)[]> = {
-  load: ["loadOhm"], frequency: ["frequencyHz"], range: ["frequencyRange"], level: ["powerW", "voltageV"], limit: ["atDistortion"],
-  bandwidth: ["bandwidth"], weighting: ["weighting"], driven: ["channelsDriven"], tone: ["testToneHz"],
-  speed: ["speedRpm", "tapeSpeedCmS"], supply: ["supply"], distance: ["distanceM"],
+  load: ["loadOhm"],
+  frequency: ["frequencyHz"],
+  range: ["frequencyRange"],
+  level: ["powerW", "voltageV"],
+  limit: ["atDistortion"],
+  bandwidth: ["bandwidth"],
+  weighting: ["weighting"],
+  driven: ["channelsDriven"],
+  tone: ["testToneHz"],
+  speed: ["speedRpm", "tapeSpeedCmS"],
+  supply: ["supply"],
+  distance: ["distanceM"],
 };
 
 export type SheetMeta = { measuredOn: string; measuredBy: string; channelCount: string; bridged: boolean; notes: string };
@@ -64,7 +94,8 @@ export function readSheetState(state: SheetFormState): SheetRead {
   const metaErrors: SheetRead["metaErrors"] = {};
   const m = state.meta;
   if (m.measuredOn && !/^\d{4}-\d{2}-\d{2}$/.test(m.measuredOn)) metaErrors.measuredOn = "Give the date as YYYY-MM-DD.";
-  else if (m.measuredOn && m.measuredOn > new Date().toISOString().slice(0, 10)) metaErrors.measuredOn = "The date cannot be in the future.";
+  else if (m.measuredOn && m.measuredOn > new Date().toISOString().slice(0, 10))
+    metaErrors.measuredOn = "The date cannot be in the future.";
   if (m.measuredBy.length > 120) metaErrors.measuredBy = "At most 120 characters.";
   if (m.notes.length > 4000) metaErrors.notes = "At most 4000 characters.";
   const channelCount = m.channelCount ? Number(m.channelCount) : undefined;
@@ -91,7 +122,8 @@ export function readSheetState(state: SheetFormState): SheetRead {
         const [head, index, ...rest] = issue.path.split(".");
         const key = head === "readings" ? refToRow[`readings.${index}`] : undefined;
         if (key) (rowErrors[key] ??= {})[fieldOfPath(rest.join("."))] ??= issue.message;
-        else if (head === "measuredOn" || head === "measuredBy" || head === "notes" || head === "channelCount") metaErrors[head] ??= issue.message;
+        else if (head === "measuredOn" || head === "measuredBy" || head === "notes" || head === "channelCount")
+          metaErrors[head] ??= issue.message;
         else if (head === "bridged") metaErrors.bridged ??= issue.message;
         else metaErrors.notes ??= `${issue.path}: ${issue.message}`;
       }
@@ -100,12 +132,12 @@ export function readSheetState(state: SheetFormState): SheetRead {
   return { sheet, rows, rowErrors, metaErrors, refToRow, errorCount };
 }
 
-const text = (v: number | undefined, kind: Parameters<typeof formatValue>[1]) =>
-  v === undefined ? "" : formatValue(v, kind, { sig: 6 });
+const text = (v: number | undefined, kind: Parameters<typeof formatValue>[1]) => (v === undefined ? "" : formatValue(v, kind, { sig: 6 }));
 
 /** A stored reading as form text (six significant figures, so a re-save does not change the number). */
 export function readingToRow(r: Reading, key: string): SheetRow {
-  if (r.origin === "capture") return blankRow(key, "measured", { quantity: r.quantity, channel: r.channel ?? "", capture: r, value: "capture" });
+  if (r.origin === "capture")
+    return blankRow(key, "measured", { quantity: r.quantity, channel: r.channel ?? "", capture: r, value: "capture" });
   const info = QUANTITY_INFO[r.quantity];
   const c = r.conditions ?? {};
   const value =
@@ -125,12 +157,15 @@ export function readingToRow(r: Reading, key: string): SheetRow {
     frequency: text(c.frequencyHz, "frequency"),
     range: range(c.frequencyRange),
     level: c.powerW !== undefined ? text(c.powerW, "power") : text(c.voltageV, "voltage"),
-    limit: c.atDistortion ? `${formatValue(c.atDistortion.ratio, "ratio", { sig: 6, trimZeros: true })} ${c.atDistortion.measure === "thd" ? "THD" : "THD+N"}` : "",
+    limit: c.atDistortion
+      ? `${formatValue(c.atDistortion.ratio, "ratio", { sig: 6, trimZeros: true })} ${c.atDistortion.measure === "thd" ? "THD" : "THD+N"}`
+      : "",
     bandwidth: range(c.bandwidth),
     weighting: c.weighting ?? "",
     driven: c.channelsDriven ?? "",
     tone: text(c.testToneHz, "frequency"),
-    speed: c.speedRpm !== undefined ? `${+c.speedRpm.toFixed(3)} rpm` : c.tapeSpeedCmS !== undefined ? `${+c.tapeSpeedCmS.toFixed(3)} cm/s` : "",
+    speed:
+      c.speedRpm !== undefined ? `${+c.speedRpm.toFixed(3)} rpm` : c.tapeSpeedCmS !== undefined ? `${+c.tapeSpeedCmS.toFixed(3)} cm/s` : "",
     supply: c.supply ?? "",
     distance: c.distanceM !== undefined ? `${c.distanceM} m` : "",
     ...(Object.keys(kept).length ? { keep: kept } : {}),
@@ -209,9 +244,7 @@ export function suggestedRows(category: Category, existing: SheetRow[]): SheetRo
       (!s.load || !load || load === s.load)
     );
   };
-  return SUGGESTED[category]
-    .filter((s) => !existing.some((r) => covers(r, s)))
-    .map((s, i) => blankRow(`s${i}`, s.basis ?? "measured", s));
+  return SUGGESTED[category].filter((s) => !existing.some((r) => covers(r, s))).map((s, i) => blankRow(`s${i}`, s.basis ?? "measured", s));
 }
 
 // ---- the HTML form ----
@@ -262,7 +295,10 @@ export function readSheetForm(form: FormLike, category: Category): SheetFormStat
   }
   const rawSweeps = parseJson(get("sweeps") || "[]");
   const sweeps: Sweep[] = Array.isArray(rawSweeps)
-    ? rawSweeps.map((s) => sweepSchema.safeParse(s)).filter((r) => r.success).map((r) => r.data)
+    ? rawSweeps
+        .map((s) => sweepSchema.safeParse(s))
+        .filter((r) => r.success)
+        .map((r) => r.data)
     : [];
   let equipment: BenchSheet["equipment"];
   try {

@@ -18,7 +18,10 @@ export function checkBenchSheetJson(text: string): CheckResponse {
   try {
     data = JSON.parse(text);
   } catch (e) {
-    return { status: 400, body: { error: "invalid_json", message: `The body is not valid JSON: ${e instanceof Error ? e.message : String(e)}` } };
+    return {
+      status: 400,
+      body: { error: "invalid_json", message: `The body is not valid JSON: ${e instanceof Error ? e.message : String(e)}` },
+    };
   }
   return checkBenchSheetData(data);
 }
@@ -27,6 +30,9 @@ export function checkBenchSheetJson(text: string): CheckResponse {
 export function checkBenchSheetData(data: unknown): Exclude<CheckResponse, { status: 413 } | { body: { error: "invalid_json" } }> {
   const parsed = parseBenchSheet(data);
   if (!parsed.ok)
-    return { status: 400, body: { error: "invalid_sheet", message: "The bench sheet does not fit the schema; see issues.", issues: parsed.issues } };
+    return {
+      status: 400,
+      body: { error: "invalid_sheet", message: "The bench sheet does not fit the schema; see issues.", issues: parsed.issues },
+    };
   return { status: 200, body: checkBenchSheet(parsed.sheet) };
 }

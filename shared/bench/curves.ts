@@ -47,11 +47,7 @@ export function aWeightingDb(fHz: number): number {
   if (fHz === 0) return -Infinity;
   const f2 = fHz * fHz;
   const num = A_WEIGHT_F4 ** 2 * f2 * f2;
-  const den =
-    (f2 + A_WEIGHT_F1 ** 2) *
-    Math.sqrt(f2 + A_WEIGHT_F2 ** 2) *
-    Math.sqrt(f2 + A_WEIGHT_F3 ** 2) *
-    (f2 + A_WEIGHT_F4 ** 2);
+  const den = (f2 + A_WEIGHT_F1 ** 2) * Math.sqrt(f2 + A_WEIGHT_F2 ** 2) * Math.sqrt(f2 + A_WEIGHT_F3 ** 2) * (f2 + A_WEIGHT_F4 ** 2);
   return 20 * Math.log10(num / den) - A_WEIGHT_A1000;
 }
 

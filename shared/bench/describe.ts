@@ -27,7 +27,8 @@ export function describeConditions(c: Conditions | undefined): string {
   if (c.frequencyRange) parts.push(range(c.frequencyRange));
   if (c.powerW !== undefined) parts.push(`at ${formatValue(c.powerW, "power")}`);
   if (c.voltageV !== undefined) parts.push(`at ${formatValue(c.voltageV, "voltage")}`);
-  if (c.atDistortion) parts.push(`${formatValue(c.atDistortion.ratio, "ratio", { trimZeros: true })} ${c.atDistortion.measure === "thd" ? "THD" : "THD+N"}`);
+  if (c.atDistortion)
+    parts.push(`${formatValue(c.atDistortion.ratio, "ratio", { trimZeros: true })} ${c.atDistortion.measure === "thd" ? "THD" : "THD+N"}`);
   if (c.bandwidth) parts.push(`${range(c.bandwidth)} bandwidth`);
   if (c.weighting) parts.push(WEIGHTING_LABELS[c.weighting]);
   if (c.channelsDriven) parts.push(c.channelsDriven === "one" ? "one channel driven" : `${c.channelsDriven} channels driven`);

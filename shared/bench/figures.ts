@@ -93,7 +93,13 @@ function sensitivity(ix: SheetIndex): Pick | undefined {
   const z = ix.all("nominal_impedance")[0];
   if (!z) return { item: s };
   const value = s.value + 10 * Math.log10(8 / z.value);
-  return { item: s, value, display: formatValue(value, "decibel"), label: "Sensitivity (2.83 V, 1 m)", conditions: `from ${formatReadingValue(s)} at 1 W into ${formatReadingValue(z)}` };
+  return {
+    item: s,
+    value,
+    display: formatValue(value, "decibel"),
+    label: "Sensitivity (2.83 V, 1 m)",
+    conditions: `from ${formatReadingValue(s)} at 1 W into ${formatReadingValue(z)}`,
+  };
 }
 
 const PICKS: Record<FigureKey, (ix: SheetIndex) => Pick | undefined> = {
@@ -186,23 +192,24 @@ export type SheetFacets = {
   captureFigures: number;
 };
 
-const FACET_OF: Record<FigureKey, [Exclude<keyof SheetFacets, "category" | "measuredReadings" | "captureFigures">, (v: number) => number]> = {
-  power8: ["powerW8Ohm", (v) => v],
-  power4: ["powerW4Ohm", (v) => v],
-  distortion: ["distortionPct", (v) => v * 100],
-  snr: ["snrDb", (v) => v],
-  bandwidthHigh: ["bandwidthHighHz", (v) => v],
-  bandwidthLow: ["bandwidthLowHz", (v) => v],
-  dampingFactor: ["dampingFactor", (v) => v],
-  gain: ["gainDb", (v) => v],
-  riaaDeviation: ["riaaDeviationDb", (v) => Math.abs(v)],
-  sensitivity: ["sensitivityDb", (v) => v],
-  impedanceMinimum: ["impedanceMinOhm", (v) => v],
-  ratedImpedance: ["ratedImpedanceOhm", (v) => v],
-  wowFlutter: ["wowFlutterPct", (v) => v * 100],
-  speedError: ["speedErrorPct", (v) => Math.abs(v) * 100],
-  rumble: ["rumbleDb", (v) => v],
-};
+const FACET_OF: Record<FigureKey, [Exclude<keyof SheetFacets, "category" | "measuredReadings" | "captureFigures">, (v: number) => number]> =
+  {
+    power8: ["powerW8Ohm", (v) => v],
+    power4: ["powerW4Ohm", (v) => v],
+    distortion: ["distortionPct", (v) => v * 100],
+    snr: ["snrDb", (v) => v],
+    bandwidthHigh: ["bandwidthHighHz", (v) => v],
+    bandwidthLow: ["bandwidthLowHz", (v) => v],
+    dampingFactor: ["dampingFactor", (v) => v],
+    gain: ["gainDb", (v) => v],
+    riaaDeviation: ["riaaDeviationDb", (v) => Math.abs(v)],
+    sensitivity: ["sensitivityDb", (v) => v],
+    impedanceMinimum: ["impedanceMinOhm", (v) => v],
+    ratedImpedance: ["ratedImpedanceOhm", (v) => v],
+    wowFlutter: ["wowFlutterPct", (v) => v * 100],
+    speedError: ["speedErrorPct", (v) => Math.abs(v) * 100],
+    rumble: ["rumbleDb", (v) => v],
+  };
 
 const FACET_KEYS: Record<Category, FigureKey[]> = {
   ...KEY_FIGURES,

@@ -20,15 +20,52 @@ export function formatNumber(x: number, sig = 3, keepZeros = false): string {
 
 type Scale = [number, string];
 const SCALES: Partial<Record<Kind, Scale[]>> = {
-  power: [[1e3, "kW"], [0.1, "W"], [1e-3, "mW"], [0, "µW"]],
-  voltage: [[1, "V"], [1e-3, "mV"], [0, "µV"]],
-  frequency: [[1e6, "MHz"], [1e3, "kHz"], [0, "Hz"]],
-  time: [[1, "s"], [1e-3, "ms"], [1e-6, "µs"], [0, "ns"]],
-  resistance: [[1e6, "MΩ"], [1e3, "kΩ"], [0, "Ω"]],
+  power: [
+    [1e3, "kW"],
+    [0.1, "W"],
+    [1e-3, "mW"],
+    [0, "µW"],
+  ],
+  voltage: [
+    [1, "V"],
+    [1e-3, "mV"],
+    [0, "µV"],
+  ],
+  frequency: [
+    [1e6, "MHz"],
+    [1e3, "kHz"],
+    [0, "Hz"],
+  ],
+  time: [
+    [1, "s"],
+    [1e-3, "ms"],
+    [1e-6, "µs"],
+    [0, "ns"],
+  ],
+  resistance: [
+    [1e6, "MΩ"],
+    [1e3, "kΩ"],
+    [0, "Ω"],
+  ],
 };
 const SCALE_FACTOR: Record<string, number> = {
-  kW: 1e3, W: 1, mW: 1e-3, "µW": 1e-6, V: 1, mV: 1e-3, "µV": 1e-6, MHz: 1e6, kHz: 1e3, Hz: 1,
-  s: 1, ms: 1e-3, "µs": 1e-6, ns: 1e-9, "MΩ": 1e6, "kΩ": 1e3, "Ω": 1,
+  kW: 1e3,
+  W: 1,
+  mW: 1e-3,
+  µW: 1e-6,
+  V: 1,
+  mV: 1e-3,
+  µV: 1e-6,
+  MHz: 1e6,
+  kHz: 1e3,
+  Hz: 1,
+  s: 1,
+  ms: 1e-3,
+  µs: 1e-6,
+  ns: 1e-9,
+  MΩ: 1e6,
+  kΩ: 1e3,
+  Ω: 1,
 };
 
 export type FormatOptions = {

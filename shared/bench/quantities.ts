@@ -108,15 +108,50 @@ export const QUANTITY_INFO: Record<Quantity, QuantityInfo> = {
 type QuantityList = readonly [Quantity, ...Quantity[]];
 
 const AMP: QuantityList = [
-  "output_power", "output_voltage", "thd", "thd_n", "imd", "snr", "noise", "response_deviation", "f3db_low",
-  "f3db_high", "power_bandwidth", "rise_time", "slew_rate", "damping_factor", "output_impedance", "input_impedance",
-  "input_sensitivity", "gain", "channel_balance", "crosstalk", "rail_voltage", "dc_offset",
+  "output_power",
+  "output_voltage",
+  "thd",
+  "thd_n",
+  "imd",
+  "snr",
+  "noise",
+  "response_deviation",
+  "f3db_low",
+  "f3db_high",
+  "power_bandwidth",
+  "rise_time",
+  "slew_rate",
+  "damping_factor",
+  "output_impedance",
+  "input_impedance",
+  "input_sensitivity",
+  "gain",
+  "channel_balance",
+  "crosstalk",
+  "rail_voltage",
+  "dc_offset",
 ];
 const PHONO_INPUT: QuantityList = ["riaa_deviation", "overload_margin"];
 const LINE: QuantityList = [
-  "output_voltage", "thd", "thd_n", "imd", "snr", "noise", "response_deviation", "f3db_low", "f3db_high", "rise_time",
-  "slew_rate", "output_impedance", "input_impedance", "input_sensitivity", "gain", "channel_balance", "crosstalk",
-  "rail_voltage", "dc_offset",
+  "output_voltage",
+  "thd",
+  "thd_n",
+  "imd",
+  "snr",
+  "noise",
+  "response_deviation",
+  "f3db_low",
+  "f3db_high",
+  "rise_time",
+  "slew_rate",
+  "output_impedance",
+  "input_impedance",
+  "input_sensitivity",
+  "gain",
+  "channel_balance",
+  "crosstalk",
+  "rail_voltage",
+  "dc_offset",
 ];
 
 export const CATEGORY_QUANTITIES: Record<Category, QuantityList> = {
@@ -126,19 +161,41 @@ export const CATEGORY_QUANTITIES: Record<Category, QuantityList> = {
   preamplifier: [...LINE, ...PHONO_INPUT],
   phono_stage: [...LINE, ...PHONO_INPUT],
   loudspeaker: [
-    "nominal_impedance", "impedance_minimum", "sensitivity", "response_deviation", "f3db_low", "f3db_high", "thd",
-    "power_handling", "channel_balance",
+    "nominal_impedance",
+    "impedance_minimum",
+    "sensitivity",
+    "response_deviation",
+    "f3db_low",
+    "f3db_high",
+    "thd",
+    "power_handling",
+    "channel_balance",
   ],
   turntable: ["speed_error", "wow_flutter", "rumble", "channel_balance", "crosstalk"],
   tape_deck: [
-    "speed_error", "wow_flutter", "snr", "noise", "thd", "thd_n", "response_deviation", "f3db_low", "f3db_high",
-    "channel_balance", "crosstalk", "output_voltage",
+    "speed_error",
+    "wow_flutter",
+    "snr",
+    "noise",
+    "thd",
+    "thd_n",
+    "response_deviation",
+    "f3db_low",
+    "f3db_high",
+    "channel_balance",
+    "crosstalk",
+    "output_voltage",
   ],
 };
 
 /** Categories whose electronics carry two channels that should match. */
 export const STEREO_ELECTRONICS: readonly Category[] = [
-  "integrated_amplifier", "power_amplifier", "receiver", "preamplifier", "phono_stage", "tape_deck",
+  "integrated_amplifier",
+  "power_amplifier",
+  "receiver",
+  "preamplifier",
+  "phono_stage",
+  "tape_deck",
 ];
 export const AMPLIFIER_CATEGORIES: readonly Category[] = ["integrated_amplifier", "power_amplifier", "receiver"];
 /** Categories whose sheets may hold RIAA sweeps. */

@@ -51,7 +51,11 @@ export const conditionsSchema = z.strictObject({
   weighting: z.enum(WEIGHTINGS).optional(),
   channelsDriven: z.enum(CHANNELS_DRIVEN).optional(),
   mainsV: z.number().positive().max(480).optional(),
-  warmUpS: z.number().nonnegative().max(7 * 86_400).optional(),
+  warmUpS: z
+    .number()
+    .nonnegative()
+    .max(7 * 86_400)
+    .optional(),
   /** Test tone, Hz (wow & flutter: 3150 Hz per IEC 60386). */
   testToneHz: hz.optional(),
   distanceM: z.number().positive().max(100).optional(),
@@ -91,11 +95,9 @@ function checkReading(r: ReadingLike, ctx: z.RefinementCtx) {
       path: ["unit"],
       message: `"${r.unit}" does not fit ${info.label}: expected ${kindName(info.kind)}.`,
     });
-  const mustBePositive = !info.signed && (info.kind !== "ratio" && info.kind !== "decibel");
-  if (mustBePositive && !(r.value > 0))
-    ctx.addIssue({ code: "custom", path: ["value"], message: `${info.label} must be above zero.` });
-  else if (!info.signed && r.value < 0)
-    ctx.addIssue({ code: "custom", path: ["value"], message: `${info.label} cannot be negative.` });
+  const mustBePositive = !info.signed && info.kind !== "ratio" && info.kind !== "decibel";
+  if (mustBePositive && !(r.value > 0)) ctx.addIssue({ code: "custom", path: ["value"], message: `${info.label} must be above zero.` });
+  else if (!info.signed && r.value < 0) ctx.addIssue({ code: "custom", path: ["value"], message: `${info.label} cannot be negative.` });
   if (r.origin === "capture" && r.basis === "rated")
     ctx.addIssue({ code: "custom", path: ["basis"], message: "A figure from a capture is measured, not rated." });
   if (r.captureId && r.origin !== "capture")
@@ -160,7 +162,11 @@ function sheetSchemaFor<C extends Category>(category: C) {
     .superRefine((sheet, ctx) => {
       sheet.sweeps.forEach((s, i) => {
         if (s.kind === "riaa" && !RIAA_CATEGORIES.includes(category))
-          ctx.addIssue({ code: "custom", path: ["sweeps", i, "kind"], message: "RIAA sweeps belong to phono stages and amplifiers with a phono input." });
+          ctx.addIssue({
+            code: "custom",
+            path: ["sweeps", i, "kind"],
+            message: "RIAA sweeps belong to phono stages and amplifiers with a phono input.",
+          });
       });
       if (sheet.bridged && !AMPLIFIER_CATEGORIES.includes(category))
         ctx.addIssue({ code: "custom", path: ["bridged"], message: "Only amplifiers have a bridged output." });

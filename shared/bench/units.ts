@@ -2,16 +2,7 @@
 // Base units: W, V (rms for AC; sine assumed for peak and peak-to-peak), ratio as a fraction (0.0001 = 0.01 %),
 // dB, Hz, s, Ω, V/s, plain number.
 
-export type Kind =
-  | "power"
-  | "voltage"
-  | "ratio"
-  | "decibel"
-  | "frequency"
-  | "time"
-  | "resistance"
-  | "slewRate"
-  | "number";
+export type Kind = "power" | "voltage" | "ratio" | "decibel" | "frequency" | "time" | "resistance" | "slewRate" | "number";
 
 export type VoltageForm = "rms" | "peak" | "pp" | "dc";
 
@@ -203,7 +194,11 @@ function parseNumber(s: string): number {
 
 const NUMBER_RE = /^(±|\+|-)?\s*((?:\d[\d,]*(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
 const RKM_RE = /^(\d+)([RKM])(\d*)$/; // 4R7 = 4.7 Ω, 0R05 = 0.05 Ω, 4K7 = 4.7 kΩ
-const RKM_UNITS: Record<string, { factor: number; unit: string }> = { R: { factor: 1, unit: "Ω" }, K: { factor: 1e3, unit: "kΩ" }, M: { factor: 1e6, unit: "MΩ" } };
+const RKM_UNITS: Record<string, { factor: number; unit: string }> = {
+  R: { factor: 1, unit: "Ω" },
+  K: { factor: 1e3, unit: "kΩ" },
+  M: { factor: 1e6, unit: "MΩ" },
+};
 const CHANNELS_RE = /^([1-9])\s*[x×]\s*(?=[\d.])/i;
 
 function fail(code: ParseErrorCode, error: string): ParseError {
@@ -238,18 +233,15 @@ export function parseValue(input: string, opts: ParseOptions = {}): ParseResult 
     if (!unitText) return fail("no_unit", `Add a unit: ${opts.kind ? kindName(opts.kind) : "e.g. W, V, %, Hz, Ω"}.`);
     return fail("unknown_unit", `"${unitText}" is not a unit the bench knows${opts.kind ? `; expected ${kindName(opts.kind)}` : ""}.`);
   }
-  if (def.kind === "number" && opts.kind && opts.kind !== "number")
-    return fail("no_unit", `Add a unit: ${kindName(opts.kind)}.`);
+  if (def.kind === "number" && opts.kind && opts.kind !== "number") return fail("no_unit", `Add a unit: ${kindName(opts.kind)}.`);
   return finish(def, n, sign === "±", opts, channels);
 }
 
 function finish(def: UnitDef, n: number, plusMinus: boolean, opts: ParseOptions, channels?: number): ParseResult {
   if (opts.kind && def.kind !== opts.kind)
     return fail("wrong_kind", `"${def.unit || "no unit"}" is ${kindName(def.kind)}; this field needs ${kindName(opts.kind)}.`);
-  if (def.kind === "ratio" && def.log && n > 0)
-    return fail("out_of_range", "A ratio in dB is negative here (e.g. −80 dB = 0.01 %).");
-  const form: VoltageForm | undefined =
-    def.kind === "voltage" ? (def.form ?? (opts.voltageForm === "dc" ? "dc" : "rms")) : undefined;
+  if (def.kind === "ratio" && def.log && n > 0) return fail("out_of_range", "A ratio in dB is negative here (e.g. −80 dB = 0.01 %).");
+  const form: VoltageForm | undefined = def.kind === "voltage" ? (def.form ?? (opts.voltageForm === "dc" ? "dc" : "rms")) : undefined;
   let value = def.log ? def.log.ref * 10 ** (n / def.log.per) : n * (def.factor ?? 1);
   if (form === "peak") value /= SQRT2;
   else if (form === "pp") value /= 2 * SQRT2;
@@ -263,10 +255,7 @@ function finish(def: UnitDef, n: number, plusMinus: boolean, opts: ParseOptions,
 }
 
 /** Parse a range such as "20 Hz – 20 kHz", "20-20k Hz" or "20 Hz to 100 kHz"; a bare first number takes the second's unit. */
-export function parseRange(
-  input: string,
-  opts: ParseOptions = {},
-): { ok: true; low: ParsedValue; high: ParsedValue } | ParseError {
+export function parseRange(input: string, opts: ParseOptions = {}): { ok: true; low: ParsedValue; high: ParsedValue } | ParseError {
   const text = fold(input ?? "");
   const parts = text.split(/\s*(?:\bto\b|\.\.|-(?=\s*[\d.]))\s*/i).filter((p) => p !== "");
   if (parts.length !== 2) return fail("no_number", `"${input}" is not a range like "20 Hz – 20 kHz".`);

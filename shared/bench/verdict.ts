@@ -83,10 +83,26 @@ class Collector implements Emit {
   readonly shortfalls: Shortfall[] = [];
   result(r: Parameters<Emit["result"]>[0]): void {
     const rule = this.rule!;
-    this.results.push({ ruleId: rule.id, title: rule.title, outcome: r.outcome, explanation: rule.explanation, source: rule.source, detail: sentence(r.detail), refs: r.refs, compared: r.compared ?? [] });
+    this.results.push({
+      ruleId: rule.id,
+      title: rule.title,
+      outcome: r.outcome,
+      explanation: rule.explanation,
+      source: rule.source,
+      detail: sentence(r.detail),
+      refs: r.refs,
+      compared: r.compared ?? [],
+    });
   }
   derive(d: Parameters<Emit["derive"]>[0]): void {
-    this.derived.push({ id: d.id, label: d.label, value: d.value, unit: baseUnit(d.kind), display: d.display ?? formatValue(d.value, d.kind, d.format), refs: d.refs });
+    this.derived.push({
+      id: d.id,
+      label: d.label,
+      value: d.value,
+      unit: baseUnit(d.kind),
+      display: d.display ?? formatValue(d.value, d.kind, d.format),
+      refs: d.refs,
+    });
   }
   shortfall(s: Parameters<Emit["shortfall"]>[0]): void {
     this.shortfalls.push({ ruleId: this.rule?.id ?? "", detail: sentence(s.detail), percent: s.percent, refs: s.refs });
@@ -115,14 +131,16 @@ export function checkBenchSheet(sheet: BenchSheet): Verdict {
     out.rule = rule;
     const before = results.length;
     const reason = rule.evaluate(ix, out);
-    if (results.length === before) skipped.push({ ruleId: rule.id, title: rule.title, reason: reason || "Nothing to check on this sheet." });
+    if (results.length === before)
+      skipped.push({ ruleId: rule.id, title: rule.title, reason: reason || "Nothing to check on this sheet." });
   }
   out.rule = undefined;
   deriveFlatSweeps(ix, out);
 
   const counts: Record<Outcome, number> = { consistent: 0, questionable: 0, implausible: 0, missing: 0 };
   for (const r of results) counts[r.outcome]++;
-  const benchVerified = counts.questionable + counts.implausible + counts.missing === 0 && results.some((r) => r.ruleId === "required-readings");
+  const benchVerified =
+    counts.questionable + counts.implausible + counts.missing === 0 && results.some((r) => r.ruleId === "required-readings");
   const fromCaptures = captureFigures(ix);
   return {
     category: sheet.category,
@@ -142,10 +160,22 @@ function captureFigures(ix: SheetIndex): CaptureFigure[] {
   const out: CaptureFigure[] = [];
   for (const r of ix.items)
     if (r.origin === "capture")
-      out.push({ ref: r.ref, quantity: r.quantity, label: labelOf(r), display: formatReadingValue(r), ...(r.captureId ? { captureId: r.captureId } : {}) });
+      out.push({
+        ref: r.ref,
+        quantity: r.quantity,
+        label: labelOf(r),
+        display: formatReadingValue(r),
+        ...(r.captureId ? { captureId: r.captureId } : {}),
+      });
   for (const s of ix.sweeps)
     if (s.origin === "capture")
-      out.push({ ref: s.ref, quantity: "sweep", label: s.kind === "riaa" ? "RIAA response sweep" : "Response sweep", display: `${s.points.length} points, ${formatValue(s.points[0].frequencyHz, "frequency")}–${formatValue(s.points[s.points.length - 1].frequencyHz, "frequency")}`, ...(s.captureId ? { captureId: s.captureId } : {}) });
+      out.push({
+        ref: s.ref,
+        quantity: "sweep",
+        label: s.kind === "riaa" ? "RIAA response sweep" : "Response sweep",
+        display: `${s.points.length} points, ${formatValue(s.points[0].frequencyHz, "frequency")}–${formatValue(s.points[s.points.length - 1].frequencyHz, "frequency")}`,
+        ...(s.captureId ? { captureId: s.captureId } : {}),
+      });
   return out;
 }
 
@@ -155,12 +185,23 @@ function labelOf(r: Reading): string {
 
 const SEVERITY: Outcome[] = ["implausible", "questionable", "missing"];
 
-function summarise(category: Category, verified: boolean, counts: Record<Outcome, number>, results: RuleResult[], shortfalls: Shortfall[], captures: number): string {
+function summarise(
+  category: Category,
+  verified: boolean,
+  counts: Record<Outcome, number>,
+  results: RuleResult[],
+  shortfalls: Shortfall[],
+  captures: number,
+): string {
   const fromCaptures = captures ? ` ${captures} figure${captures > 1 ? "s" : ""} came from captures.` : "";
-  const short = shortfalls.length ? ` ${shortfalls.length} figure${shortfalls.length > 1 ? "s fall" : " falls"} short of the rating: ${shortfalls[0].detail}` : "";
+  const short = shortfalls.length
+    ? ` ${shortfalls.length} figure${shortfalls.length > 1 ? "s fall" : " falls"} short of the rating: ${shortfalls[0].detail}`
+    : "";
   if (verified)
     return `Bench-verified ${CATEGORY_LABELS[category].toLowerCase()}: every required reading is measured and all ${counts.consistent} checks are consistent.${fromCaptures}${short}`;
-  const tally = SEVERITY.filter((o) => counts[o]).map((o) => `${counts[o]} ${o}`).join(", ");
+  const tally = SEVERITY.filter((o) => counts[o])
+    .map((o) => `${counts[o]} ${o}`)
+    .join(", ");
   const first = SEVERITY.map((o) => results.find((r) => r.outcome === o)).find(Boolean);
   return `Not bench-verified: ${tally}. ${first ? `${first.title}: ${first.detail}` : ""}${fromCaptures}${short}`.trim();
 }

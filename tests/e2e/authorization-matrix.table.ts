@@ -43,7 +43,12 @@ export const MATRIX: Record<string, Entry> = {
     cases: [{ params: () => ({ token: "no-such-token" }), get: everyone(410), post: { body: form({}), expect: everyone(400) } }],
   },
   "/auth/oauth": {
-    cases: [{ get: everyone({ to: "/sign-in" }), writes: { POST: { body: form({ redirectTo: "/market" }), expect: everyone({ to: /\/authorize\?/ }) } } }],
+    cases: [
+      {
+        get: everyone({ to: "/sign-in" }),
+        writes: { POST: { body: form({ redirectTo: "/market" }), expect: everyone({ to: /\/authorize\?/ }) } },
+      },
+    ],
   },
   "/auth/oauth/callback": { cases: [{ get: everyone({ to: /^\/sign-in\?oauth=/ }) }] },
   "/account": { cases: [{ get: signedIn("ok"), post: { body: form({ intent: "matrix-probe" }), expect: signedIn(400) } }] },
@@ -62,12 +67,20 @@ export const MATRIX: Record<string, Entry> = {
   // The public listing page: live for everyone; held for its seller and the desk; a draft for its seller only.
   "/listings/:id": {
     cases: [
-      { name: "live", params: (f) => ({ id: f.live.id }), get: everyone("ok"), post: { body: form({ intent: "unwatch" }), expect: signedIn("ok") } },
+      {
+        name: "live",
+        params: (f) => ({ id: f.live.id }),
+        get: everyone("ok"),
+        post: { body: form({ intent: "unwatch" }), expect: signedIn("ok") },
+      },
       {
         name: "held",
         params: (f) => ({ id: f.held.id }),
         get: { owner: "ok", moderator: "ok", admin: "ok", others: 404 },
-        post: { body: form({ intent: "unwatch" }), expect: { anonymous: "sign-in", owner: "ok", moderator: "ok", admin: "ok", others: 404 } },
+        post: {
+          body: form({ intent: "unwatch" }),
+          expect: { anonymous: "sign-in", owner: "ok", moderator: "ok", admin: "ok", others: 404 },
+        },
       },
       {
         name: "draft",
@@ -97,13 +110,24 @@ export const MATRIX: Record<string, Entry> = {
   },
   "/sell/:id/item": {
     cases: [
-      { name: "draft", params: draft, get: ownerOnly(), post: { body: form({ category: "integrated_amplifier", maker: "" }), expect: ownerOnly() } },
+      {
+        name: "draft",
+        params: draft,
+        get: ownerOnly(),
+        post: { body: form({ category: "integrated_amplifier", maker: "" }), expect: ownerOnly() },
+      },
       // The desk reads a held listing on its public page; editing it stays the seller's.
       { name: "held", params: (f) => ({ id: f.held.id }), get: ownerOnly() },
     ],
   },
   "/sell/:id/condition": {
-    cases: [{ params: draft, get: ownerOnly(), post: { body: form({ cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: "" }), expect: ownerOnly() } }],
+    cases: [
+      {
+        params: draft,
+        get: ownerOnly(),
+        post: { body: form({ cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: "" }), expect: ownerOnly() },
+      },
+    ],
   },
   "/sell/:id/restoration": {
     // A new log entry: the owner is sent back to the log; nobody else gets that far.
@@ -118,7 +142,12 @@ export const MATRIX: Record<string, Entry> = {
   // The API: 401 without an account, 404 for what is not yours (as for what does not exist).
   "/api/v1/listings/:id": {
     cases: [
-      { name: "draft", params: draft, get: apiOwnerOnly(), writes: { PATCH: { body: () => ({ json: { condition: { conditionNote: "Matrix probe." } } }), expect: apiOwnerOnly() } } },
+      {
+        name: "draft",
+        params: draft,
+        get: apiOwnerOnly(),
+        writes: { PATCH: { body: () => ({ json: { condition: { conditionNote: "Matrix probe." } } }), expect: apiOwnerOnly() } },
+      },
       // The owner's view carries the serial number: a live listing's is still the owner's alone.
       { name: "live", params: (f) => ({ id: f.live.id }), get: apiOwnerOnly() },
     ],
@@ -136,15 +165,37 @@ export const MATRIX: Record<string, Entry> = {
     ],
   },
   "/api/v1/listings/:id/photos/:photoId": {
-    cases: [{ params: (f) => ({ id: f.draft.id, photoId: f.photo.id }), get: everyone(405), writes: { DELETE: { expect: apiOwnerOnly(), last: true } } }],
+    cases: [
+      {
+        params: (f) => ({ id: f.draft.id, photoId: f.photo.id }),
+        get: everyone(405),
+        writes: { DELETE: { expect: apiOwnerOnly(), last: true } },
+      },
+    ],
   },
   // Read-only: its action (apiRoute's) answers every write with 405 in the API's one shape.
-  "/api/v1/captures/:id": { cases: [{ params: (f) => ({ id: f.capture.id }), get: apiOwnerOnly(), writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } } }] },
+  "/api/v1/captures/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.capture.id }),
+        get: apiOwnerOnly(),
+        writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } },
+      },
+    ],
+  },
   // Any account may have a capture analysed; a form without a file is refused after the door.
-  "/api/v1/captures/analyze": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiSignedIn(400) } } }] },
-  "/api/v1/bench-sheets/check": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: {} }), expect: everyone(400) } } }] },
+  "/api/v1/captures/analyze": {
+    cases: [{ get: everyone(405), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiSignedIn(400) } } }],
+  },
+  "/api/v1/bench-sheets/check": {
+    cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: {} }), expect: everyone(400) } } }],
+  },
   // Authenticated by its signature, not a session: unsigned is 400 for everyone.
-  "/api/v1/webhooks/stripe": { cases: [{ get: everyone(405), writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } }] },
+  "/api/v1/webhooks/stripe": {
+    cases: [
+      { get: everyone(405), writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } },
+    ],
+  },
   "/healthz": { cases: [{ get: everyone("ok") }] },
   // Liveness and readiness for load balancers.
   "/healthz/live": { cases: [{ get: everyone("ok") }] },

@@ -53,9 +53,15 @@ function tableProblems(leaf: RouteLeaf): string[] {
     if (!leaf.hasAction && has((c) => c.post)) problems.push(`${leaf.pattern} has no action but its entry has a \`post\` row`);
     if (has((c) => c.writes)) problems.push(`${leaf.pattern} is a page: its action goes in \`post\`, not \`writes\``);
   } else {
-    if (leaf.hasAction !== has((c) => c.writes)) problems.push(`${leaf.pattern} ${leaf.hasAction ? "has an action but its entry lists no writes" : "has no action but its entry lists writes"}`);
+    if (leaf.hasAction !== has((c) => c.writes))
+      problems.push(
+        `${leaf.pattern} ${leaf.hasAction ? "has an action but its entry lists no writes" : "has no action but its entry lists writes"}`,
+      );
     // A loader that only answers 405 still needs its row (say so: everyone(405)).
-    if (leaf.hasLoader !== has((c) => c.get)) problems.push(`${leaf.pattern} ${leaf.hasLoader ? "has a loader but its entry has no `get` row" : "has no loader but its entry has a `get` row"}`);
+    if (leaf.hasLoader !== has((c) => c.get))
+      problems.push(
+        `${leaf.pattern} ${leaf.hasLoader ? "has a loader but its entry has no `get` row" : "has no loader but its entry has a `get` row"}`,
+      );
     if (has((c) => c.post)) problems.push(`${leaf.pattern} is a resource route: list its methods in \`writes\``);
   }
   for (const c of entry.cases) {
@@ -141,7 +147,11 @@ describe("authorization matrix", () => {
     const probes = leaves.flatMap((leaf) => probesFor(leaf, f));
     probeCount = probes.length;
     const run = (probe: Probe) => async () => {
-      const agent = !probe.fresh ? agents[probe.persona] : probe.persona === "anonymous" ? new Agent("anonymous") : await signInAs(f, probe.persona);
+      const agent = !probe.fresh
+        ? agents[probe.persona]
+        : probe.persona === "anonymous"
+          ? new Agent("anonymous")
+          : await signInAs(f, probe.persona);
       let problem: string | null;
       try {
         problem = judge(probe, await agent.request(probe.method, probe.path, { body: probe.body }));
@@ -154,7 +164,9 @@ describe("authorization matrix", () => {
     const last = (p: Probe) => p.last && p.persona === "owner";
     await inParallel(probes.filter((p) => !last(p)).map(run), 8);
     await inParallel(probes.filter(last).map(run), 8);
-    console.log(`[matrix] ${probes.length} requests over ${leaves.length} routes; ${[...failures.values()].flat().length} differ from the table`);
+    console.log(
+      `[matrix] ${probes.length} requests over ${leaves.length} routes; ${[...failures.values()].flat().length} differ from the table`,
+    );
   });
 
   afterAll(async () => {
@@ -164,7 +176,9 @@ describe("authorization matrix", () => {
 
   it("has an entry for every route in app/routes.ts, and none for a route that is gone", () => {
     const missing = leaves.filter((l) => !MATRIX[l.pattern]).map((l) => `${l.pattern} (app/${l.file})`);
-    const gone = Object.entries(MATRIX).filter(([pattern, e]) => !byPattern.has(pattern) && !e.upcoming).map(([pattern]) => pattern);
+    const gone = Object.entries(MATRIX)
+      .filter(([pattern, e]) => !byPattern.has(pattern) && !e.upcoming)
+      .map(([pattern]) => pattern);
     expect(missing, `Routes without an entry in tests/e2e/authorization-matrix.table.ts: ${missing.join(", ")}`).toEqual([]);
     expect(gone, `Entries for routes app/routes.ts no longer has: ${gone.join(", ")}`).toEqual([]);
     expect(probeCount).toBeGreaterThan(leaves.length * PERSONAS.length);

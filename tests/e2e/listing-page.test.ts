@@ -40,7 +40,13 @@ describe("the listing page", () => {
     // Plots: drawn in the browser as SVG, with labelled axes.
     await page.locator(".chart svg.recharts-surface").first().waitFor();
     expect(await page.locator(".chart svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
-    expect(await page.getByRole("figure", { name: /Harmonic spectrum/ }).locator("svg").first().isVisible()).toBe(true);
+    expect(
+      await page
+        .getByRole("figure", { name: /Harmonic spectrum/ })
+        .locator("svg")
+        .first()
+        .isVisible(),
+    ).toBe(true);
     expect(await page.getByText("dB re fundamental").first().isVisible()).toBe(true);
     expect(await page.getByText("Frequency (Hz)").first().isVisible()).toBe(true);
 
@@ -70,7 +76,9 @@ describe("the listing page", () => {
     await page.keyboard.press("Escape");
     await dialog.waitFor({ state: "detached" });
     // Focus goes back to where the visitor was.
-    expect(await page.evaluate(() => document.activeElement?.tagName === "A" && document.activeElement.textContent?.trim())).toMatch(/^Zoom/);
+    expect(await page.evaluate(() => document.activeElement?.tagName === "A" && document.activeElement.textContent?.trim())).toMatch(
+      /^Zoom/,
+    );
     await context.close();
   });
 

@@ -101,7 +101,13 @@ function plan(f: Fixtures): Shot[] {
         for (const text of [...ALWAYS, take(hostile)]) {
           // A fresh template each time: sign-up wants a new address per account.
           const fresh = wellFormed(leaf.pattern)[j];
-          shots.push({ persona: t.who, method: t.method, path: main, what: `${JSON.stringify(text)} in text place ${place + 1}`, body: fillTemplate(fresh, place, text) });
+          shots.push({
+            persona: t.who,
+            method: t.method,
+            path: main,
+            what: `${JSON.stringify(text)} in text place ${place + 1}`,
+            body: fillTemplate(fresh, place, text),
+          });
         }
       }
     }
@@ -177,23 +183,34 @@ describe("malformed requests", () => {
       8,
     );
     for (const { path, delta, status } of raw) {
-      const shot: Shot = { persona: "anonymous", method: "POST", path, what: `Content-Length ${delta > 0 ? "longer" : "shorter"} than the body` };
+      const shot: Shot = {
+        persona: "anonymous",
+        method: "POST",
+        path,
+        what: `Content-Length ${delta > 0 ? "longer" : "shorter"} than the body`,
+      };
       if (status !== null && status >= 500) misses.push({ status, shot });
       if (status === null && delta < 0) misses.push({ status: "no answer", shot });
     }
 
     // Still alive: the liveness check (or /healthz until it exists), on a connection of its own.
-    const get = (path: string) => rawExchange(`GET ${path} HTTP/1.1\r\nHost: ${new URL(baseUrl()).host}\r\nConnection: close\r\n\r\n`, new Uint8Array(), 30_000);
+    const get = (path: string) =>
+      rawExchange(`GET ${path} HTTP/1.1\r\nHost: ${new URL(baseUrl()).host}\r\nConnection: close\r\n\r\n`, new Uint8Array(), 30_000);
     let live = await get("/healthz/live");
     if (live === 404) live = await get("/healthz");
     expect(live, "the server is not healthy after the malformed requests").toBe(200);
 
     const kinds = new Set(shots.map((s) => s.body?.kind.replace(/\d+/g, "N") ?? s.what));
-    console.log(`[fuzz] seed ${SEED}: ${shots.length + raw.length} requests of ${kinds.size} kinds; ${resets} reset by the server before fetch read the answer; ${misses.length} got a 5xx or no answer`);
+    console.log(
+      `[fuzz] seed ${SEED}: ${shots.length + raw.length} requests of ${kinds.size} kinds; ${resets} reset by the server before fetch read the answer; ${misses.length} got a 5xx or no answer`,
+    );
     fs.mkdirSync("test-results", { recursive: true });
     fs.writeFileSync("test-results/malformed-requests.txt", `seed ${SEED}\n${misses.map(describeMiss).join("\n")}\n`);
     const report = misses.slice(0, 40).map(describeMiss).join("\n");
-    expect(misses.length, `${misses.length} malformed requests got a 5xx or no answer (seed ${SEED}; replay with FUZZ_SEED=${SEED}; all in test-results/malformed-requests.txt):\n${report}\n`).toBe(0);
+    expect(
+      misses.length,
+      `${misses.length} malformed requests got a 5xx or no answer (seed ${SEED}; replay with FUZZ_SEED=${SEED}; all in test-results/malformed-requests.txt):\n${report}\n`,
+    ).toBe(0);
     expect(shots.length).toBeGreaterThan(800);
   }, 180_000);
 });

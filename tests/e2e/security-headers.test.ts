@@ -49,7 +49,9 @@ describe("security headers and the content security policy", () => {
     // The nonce is new for every response, and the page's inline scripts carry it.
     const nonce = /'nonce-([^']+)'/.exec(policy)![1];
     expect(/'nonce-([^']+)'/.exec(second.headers()["content-security-policy"])![1]).not.toBe(nonce);
-    const inline = await page.evaluate(() => [...document.querySelectorAll("script:not([src])")].map((s) => (s as HTMLScriptElement).nonce));
+    const inline = await page.evaluate(() =>
+      [...document.querySelectorAll("script:not([src])")].map((s) => (s as HTMLScriptElement).nonce),
+    );
     expect(inline.length).toBeGreaterThan(0);
     expect(inline.every((n) => n === nonce)).toBe(true);
 
@@ -122,14 +124,16 @@ describe("security headers and the content security policy", () => {
     const id = new URL(page.url()).pathname.split("/")[2];
 
     await page.goto(`/sell/${id}/photos`);
-    await page.locator('input[type="file"][accept*="image/jpeg"]').setInputFiles([
-      { name: "csp-front.jpg", mimeType: "image/jpeg", buffer: await twoToneJpeg(640, 480) },
-    ]);
+    await page
+      .locator('input[type="file"][accept*="image/jpeg"]')
+      .setInputFiles([{ name: "csp-front.jpg", mimeType: "image/jpeg", buffer: await twoToneJpeg(640, 480) }]);
     await page.waitForFunction(() => document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img').length === 1, null, {
       timeout: 120_000,
     });
     await page.waitForFunction(() =>
-      [...document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img')].every((i) => (i as HTMLImageElement).naturalWidth > 0),
+      [...document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img')].every(
+        (i) => (i as HTMLImageElement).naturalWidth > 0,
+      ),
     );
 
     await page.goto(`/sell/${id}/bench`);
@@ -139,7 +143,11 @@ describe("security headers and the content security policy", () => {
     await page.locator("[data-verdict]").first().waitFor();
     await settle(page);
 
-    await page.getByRole("link", { name: "Sign out" }).or(page.getByRole("button", { name: "Sign out" })).first().click();
+    await page
+      .getByRole("link", { name: "Sign out" })
+      .or(page.getByRole("button", { name: "Sign out" }))
+      .first()
+      .click();
     await page.waitForLoadState("load");
     await signIn(page, DEMO.admin);
     for (const path of ["/admin/users", "/desk", "/account"]) {

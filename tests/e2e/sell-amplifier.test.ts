@@ -18,7 +18,17 @@ const WORKSHOP = "workshop@loadline.test";
 
 function capture(): Buffer {
   return Buffer.from(
-    toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000, peak: 0.5, harmonics: [1, 1e-4, 5e-5], bits: "24", channels: 2, noiseRms: 2e-6, rightGain: Math.sqrt(65 / 66) }),
+    toneWav({
+      sampleRate: 48_000,
+      seconds: 1,
+      f0: 1000,
+      peak: 0.5,
+      harmonics: [1, 1e-4, 5e-5],
+      bits: "24",
+      channels: 2,
+      noiseRms: 2e-6,
+      rightGain: Math.sqrt(65 / 66),
+    }),
   );
 }
 
@@ -100,19 +110,31 @@ describe("listing a restored integrated amplifier", () => {
     await page.getByText("Filter capacitor 10 000 µF 63 V").waitFor();
 
     // Six photos, each with its own progress bar, processed to ready.
-    await page.getByRole("link", { name: /Photos/ }).first().click();
+    await page
+      .getByRole("link", { name: /Photos/ })
+      .first()
+      .click();
     await page.waitForURL(`**/sell/${id}/photos`);
-    const files = await Promise.all([0, 1, 2, 3, 4, 5].map(async (n) => ({ name: `va-260-${n + 1}.jpg`, mimeType: "image/jpeg", buffer: await twoToneJpeg(960, 720) })));
+    const files = await Promise.all(
+      [0, 1, 2, 3, 4, 5].map(async (n) => ({ name: `va-260-${n + 1}.jpg`, mimeType: "image/jpeg", buffer: await twoToneJpeg(960, 720) })),
+    );
     await page.locator('input[type="file"][accept*="image/jpeg"]').setInputFiles(files);
     const bars = page.locator('progress[aria-label^="Uploading va-260-"]');
     await bars.first().waitFor();
     expect(await bars.count()).toBe(6);
-    await page.waitForFunction(() => [...document.querySelectorAll('progress[aria-label^="Uploading va-260-"]')].every((p) => (p as HTMLProgressElement).value === 100));
-    await page.waitForFunction(() => document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img').length === 6, null, { timeout: 180_000 });
+    await page.waitForFunction(() =>
+      [...document.querySelectorAll('progress[aria-label^="Uploading va-260-"]')].every((p) => (p as HTMLProgressElement).value === 100),
+    );
+    await page.waitForFunction(() => document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img').length === 6, null, {
+      timeout: 180_000,
+    });
     await screenshot(page, "sell-photos-1280");
 
     // The bench sheet: cautions first; typed values read back as the bench understands them.
-    await page.getByRole("link", { name: /Bench sheet/ }).first().click();
+    await page
+      .getByRole("link", { name: /Bench sheet/ })
+      .first()
+      .click();
     await page.waitForURL(`**/sell/${id}/bench`);
     await page.getByText("Before you measure: this work can kill or burn").waitFor();
     await page.getByText(/Never short or bridge outputs carelessly/).waitFor();
@@ -139,7 +161,9 @@ describe("listing a restored integrated amplifier", () => {
     await field(rated, "driven").selectOption("both");
 
     // The WAV capture through the captures API; its figures join the sheet, marked as from a capture.
-    await page.locator('input[type="file"][form="capture-form"]').setInputFiles({ name: "va-260-1k-66w.wav", mimeType: "audio/wav", buffer: capture() });
+    await page
+      .locator('input[type="file"][form="capture-form"]')
+      .setInputFiles({ name: "va-260-1k-66w.wav", mimeType: "audio/wav", buffer: capture() });
     await page.locator('input[name="loadOhm"][form="capture-form"]').fill("8");
     await page.locator('input[name="volts"][form="capture-form"]').fill("65");
     await page.getByRole("button", { name: "Upload and analyse" }).click();
@@ -191,7 +215,14 @@ describe("listing a restored integrated amplifier", () => {
     // The steps the first test walked through in the browser go through the owner's API here.
     const patched = await page.request.patch(`/api/v1/listings/${id}`, {
       data: {
-        item: { maker: "Veldham Acoustics", model: "VA-260 (second)", weightG: 31_500, priceMinor: 99_000, country: "GB", shippingOptions: [{ method: "collection" }] },
+        item: {
+          maker: "Veldham Acoustics",
+          model: "VA-260 (second)",
+          weightG: 31_500,
+          priceMinor: 99_000,
+          country: "GB",
+          shippingOptions: [{ method: "collection" }],
+        },
         condition: { cosmeticGrade: "lived_in", serviceState: "working_unserviced" },
       },
     });
@@ -219,7 +250,9 @@ describe("listing a restored integrated amplifier", () => {
 
     // Photos finish processing in the background; publishing waits for them.
     await page.goto(`/sell/${id}/photos`);
-    await page.waitForFunction(() => document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img').length === 1, null, { timeout: 90_000 });
+    await page.waitForFunction(() => document.querySelectorAll('ol[aria-label="Photos, in listing order"] li img').length === 1, null, {
+      timeout: 90_000,
+    });
     await page.goto(`/sell/${id}/review`);
     await page.getByText("Publishing sends this listing to the review desk first").waitFor();
     await page.getByRole("button", { name: "Publish", exact: true }).click();

@@ -16,7 +16,13 @@ describe("selling without JavaScript", () => {
   });
 
   it("starts a draft, saves the item step with a message beside a bad field, and saves a typed bench reading", async () => {
-    const context = await browser.newContext({ baseURL: baseUrl(), javaScriptEnabled: false, viewport: { width: 375, height: 812 }, locale: "en-GB", timezoneId: "UTC" });
+    const context = await browser.newContext({
+      baseURL: baseUrl(),
+      javaScriptEnabled: false,
+      viewport: { width: 375, height: 812 },
+      locale: "en-GB",
+      timezoneId: "UTC",
+    });
     context.setDefaultTimeout(15_000);
     context.setDefaultNavigationTimeout(30_000);
     const page = await context.newPage();
@@ -37,7 +43,10 @@ describe("selling without JavaScript", () => {
 
     await page.getByLabel("Asking price").fill("a lot");
     await page.getByRole("button", { name: "Save", exact: true }).click();
-    await page.getByRole("alert").filter({ hasText: /"a lot" is not a price/ }).waitFor();
+    await page
+      .getByRole("alert")
+      .filter({ hasText: /"a lot" is not a price/ })
+      .waitFor();
     expect(await page.getByLabel("Model").inputValue()).toBe("OP-3");
     await screenshot(page, "sell-no-script-item-375");
 
@@ -53,7 +62,12 @@ describe("selling without JavaScript", () => {
     await page.getByRole("button", { name: "Remove reading M1" }).click();
     await page.getByText("Saved and checked.").waitFor();
     expect(await page.locator('[data-rule="required-readings"]').filter({ hasText: "Speed error: measured." }).count()).toBe(0);
-    expect(await page.locator('[data-rule="required-readings"][data-outcome="missing"]').filter({ hasText: /needs Speed error/ }).count()).toBe(1);
+    expect(
+      await page
+        .locator('[data-rule="required-readings"][data-outcome="missing"]')
+        .filter({ hasText: /needs Speed error/ })
+        .count(),
+    ).toBe(1);
     await context.close();
   }, 120_000);
 });

@@ -59,7 +59,10 @@ afterAll(cleanUp);
 describe("bodies are read through one limited stream (chunked, no Content-Length)", { timeout: 120_000 }, () => {
   it("40 MiB to the bench-sheet check: 413 after about 512 KB", async () => {
     const body = countingBody(40 * MiB, { head: '{"category":"integrated_amplifier","notes":"' });
-    const res = await call(benchCheck, chunkedRequest(`${BASE}/api/v1/bench-sheets/check`, "POST", body, { "Content-Type": "application/json" }));
+    const res = await call(
+      benchCheck,
+      chunkedRequest(`${BASE}/api/v1/bench-sheets/check`, "POST", body, { "Content-Type": "application/json" }),
+    );
     expect(res.status).toBe(413);
     expect(res.body).toEqual({ error: "too_large", message: "A bench sheet may be at most 512 KB." });
     expect(body.pulled()).toBeLessThanOrEqual(512 * 1024 + 2 * CHUNK);
@@ -67,7 +70,10 @@ describe("bodies are read through one limited stream (chunked, no Content-Length
 
   it("40 MiB PATCH to a listing: 413 after about 600 KB", async () => {
     const body = countingBody(40 * MiB, { head: '{"benchSheet":{"notes":"' });
-    const request = chunkedRequest(`${BASE}/api/v1/listings/${listingId}`, "PATCH", body, { "Content-Type": "application/json", Cookie: owner.cookie });
+    const request = chunkedRequest(`${BASE}/api/v1/listings/${listingId}`, "PATCH", body, {
+      "Content-Type": "application/json",
+      Cookie: owner.cookie,
+    });
     const res = await call(listingApi, request, { id: listingId });
     expect(res.status).toBe(413);
     expect(res.body.error).toBe("too_large");
@@ -79,7 +85,10 @@ describe("bodies are read through one limited stream (chunked, no Content-Length
     const rows = await Capture.count({ where: { ownerId: owner.user.id } });
     const frame = multipartFrame("file", "sweep.csv", "text/csv");
     const body = countingBody(120 * MiB, { head: `${frame.head}frequency,level\n`, tail: frame.tail, fill: 0x30 });
-    const request = chunkedRequest(`${BASE}/api/v1/captures/analyze?wait=0`, "POST", body, { "Content-Type": frame.contentType, Cookie: owner.cookie });
+    const request = chunkedRequest(`${BASE}/api/v1/captures/analyze?wait=0`, "POST", body, {
+      "Content-Type": frame.contentType,
+      Cookie: owner.cookie,
+    });
     const res = await call(analyze, request);
     expect(res.status).toBe(413);
     expect(res.body).toEqual({ error: "file_too_large", message: "The file is over 50 MB; captures are limited to 50 MB." });
@@ -94,7 +103,10 @@ describe("bodies are read through one limited stream (chunked, no Content-Length
     // A real JPEG header and scan whose end never comes: the header check passes, the size does not.
     const head = Buffer.concat([Buffer.from(frame.head), jpeg.subarray(0, jpeg.length - 2)]);
     const body = countingBody(120 * MiB, { head, tail: frame.tail });
-    const request = chunkedRequest(`${BASE}/api/v1/listings/${listingId}/photos`, "POST", body, { "Content-Type": frame.contentType, Cookie: owner.cookie });
+    const request = chunkedRequest(`${BASE}/api/v1/listings/${listingId}/photos`, "POST", body, {
+      "Content-Type": frame.contentType,
+      Cookie: owner.cookie,
+    });
     const res = await call(photosApi, request, { id: listingId });
     expect(res.status).toBe(413);
     expect(res.body).toEqual({ error: "file_too_large", message: "This upload is too large; photos may be at most 20 MB." });
@@ -105,7 +117,13 @@ describe("bodies are read through one limited stream (chunked, no Content-Length
 
   it("100 MiB to the payments webhook: 413 after 64 KB", async () => {
     const body = countingBody(100 * MiB, { head: '{"id":"evt_big","data":"' });
-    const res = await call(webhook, chunkedRequest(`${BASE}/api/v1/webhooks/stripe`, "POST", body, { "Content-Type": "application/json", "Stripe-Signature": "t=1,v1=00" }));
+    const res = await call(
+      webhook,
+      chunkedRequest(`${BASE}/api/v1/webhooks/stripe`, "POST", body, {
+        "Content-Type": "application/json",
+        "Stripe-Signature": "t=1,v1=00",
+      }),
+    );
     expect(res.status).toBe(413);
     expect(res.body).toEqual({ error: "too_large", message: "A webhook event may be at most 64 KB." });
     expect(body.pulled()).toBeLessThanOrEqual(64 * 1024 + 2 * CHUNK);
@@ -140,7 +158,12 @@ describe("client mistakes are 400, 405 or 415, never 500", () => {
   });
 
   it("the item form's collection note with a NUL: 400 naming the field", async () => {
-    const form = new URLSearchParams({ category: "integrated_amplifier", currency: "EUR", collection: "on", collectionNote: "by\u0000appointment" });
+    const form = new URLSearchParams({
+      category: "integrated_amplifier",
+      currency: "EUR",
+      collection: "on",
+      collectionNote: "by\u0000appointment",
+    });
     const request = new Request(`${BASE}/sell/${listingId}/item`, { method: "POST", body: form, headers: { Cookie: owner.cookie } });
     const res = await call(itemStep, request, { id: listingId });
     expect(res.status).toBe(400);
@@ -157,7 +180,14 @@ describe("client mistakes are 400, 405 or 415, never 500", () => {
   const bodies: [string, () => RequestInit, number][] = [
     ["JSON", () => ({ body: '{"email":"a@example.test","password":"x"}', headers: { "Content-Type": "application/json" } }), 415],
     ["text/plain", () => ({ body: "email=a@example.test", headers: { "Content-Type": "text/plain" } }), 415],
-    ["broken multipart", () => ({ body: "--x\r\nContent-Disposition: form-data; name=\"email\"\r\n\r\na@b", headers: { "Content-Type": "multipart/form-data; boundary=x" } }), 400],
+    [
+      "broken multipart",
+      () => ({
+        body: '--x\r\nContent-Disposition: form-data; name="email"\r\n\r\na@b',
+        headers: { "Content-Type": "multipart/form-data; boundary=x" },
+      }),
+      400,
+    ],
     ["multipart without a boundary", () => ({ body: "email=a", headers: { "Content-Type": "multipart/form-data" } }), 400],
   ];
   const forms: [string, Module, Record<string, string>][] = [
@@ -181,7 +211,10 @@ describe("client mistakes are 400, 405 or 415, never 500", () => {
 describe("forms read by the body reader still reach the sign-in strategies", () => {
   it("a well-formed sign-in signs in, and a well-formed /auth/oauth goes to the provider", async () => {
     const form = (fields: Record<string, string>) => ({ method: "POST", body: new URLSearchParams(fields), headers: { Origin: BASE } });
-    const signedIn = await call(signIn, new Request(`${BASE}/sign-in`, form({ email: "seller@loadline.test", password: "bench-demo-2026", redirectTo: "/sell" })));
+    const signedIn = await call(
+      signIn,
+      new Request(`${BASE}/sign-in`, form({ email: "seller@loadline.test", password: "bench-demo-2026", redirectTo: "/sell" })),
+    );
     expect(signedIn.status).toBe(302);
     expect(signedIn.headers.get("Location")).toBe("/sell");
     const oauth = await call(oauthStart, new Request(`${BASE}/auth/oauth`, form({ redirectTo: "/sell" })));
@@ -203,11 +236,26 @@ describe("state-changing API calls from another origin are refused", () => {
     for (const [what, headers] of foreign) {
       const photo = new FormData();
       photo.append("photo", new Blob([new Uint8Array(jpeg)], { type: "image/jpeg" }), "front.jpg");
-      const up = await call(photosApi, new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { method: "POST", body: photo, headers: { ...headers, Cookie: owner.cookie } }), { id: listingId });
+      const up = await call(
+        photosApi,
+        new Request(`${BASE}/api/v1/listings/${listingId}/photos`, {
+          method: "POST",
+          body: photo,
+          headers: { ...headers, Cookie: owner.cookie },
+        }),
+        { id: listingId },
+      );
       expect([what, up.status, up.body.error]).toEqual([what, 403, "cross_origin"]);
       const capture = new FormData();
       capture.append("file", new Blob(["frequency,level\n20,0\n1000,0\n20000,0\n"], { type: "text/csv" }), "sweep.csv");
-      const cap = await call(analyze, new Request(`${BASE}/api/v1/captures/analyze?wait=0`, { method: "POST", body: capture, headers: { ...headers, Cookie: owner.cookie } }));
+      const cap = await call(
+        analyze,
+        new Request(`${BASE}/api/v1/captures/analyze?wait=0`, {
+          method: "POST",
+          body: capture,
+          headers: { ...headers, Cookie: owner.cookie },
+        }),
+      );
       expect([what, cap.status, cap.body.error]).toEqual([what, 403, "cross_origin"]);
     }
     expect(await ListingPhoto.count({ where: { listingId } })).toBe(0);
@@ -215,11 +263,28 @@ describe("state-changing API calls from another origin are refused", () => {
   });
 
   it("PATCH a listing, arrange or delete photos, check a sheet: 403 from elsewhere", async () => {
-    const headers = { "Sec-Fetch-Site": "same-site", Origin: "http://127.0.0.1:4000", Cookie: owner.cookie, "Content-Type": "application/json" };
+    const headers = {
+      "Sec-Fetch-Site": "same-site",
+      Origin: "http://127.0.0.1:4000",
+      Cookie: owner.cookie,
+      "Content-Type": "application/json",
+    };
     const cases: [Module, Request, Record<string, string>][] = [
-      [listingApi, new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers, body: '{"item":{"model":"X"}}' }), { id: listingId }],
-      [photosApi, new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { method: "PATCH", headers, body: '{"order":[]}' }), { id: listingId }],
-      [photoApi, new Request(`${BASE}/api/v1/listings/${listingId}/photos/${listingId}`, { method: "DELETE", headers }), { id: listingId, photoId: listingId }],
+      [
+        listingApi,
+        new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers, body: '{"item":{"model":"X"}}' }),
+        { id: listingId },
+      ],
+      [
+        photosApi,
+        new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { method: "PATCH", headers, body: '{"order":[]}' }),
+        { id: listingId },
+      ],
+      [
+        photoApi,
+        new Request(`${BASE}/api/v1/listings/${listingId}/photos/${listingId}`, { method: "DELETE", headers }),
+        { id: listingId, photoId: listingId },
+      ],
       [benchCheck, new Request(`${BASE}/api/v1/bench-sheets/check`, { method: "POST", headers, body: "{}" }), {}],
     ];
     for (const [mod, request, params] of cases) {
@@ -231,26 +296,54 @@ describe("state-changing API calls from another origin are refused", () => {
 
   it("the same calls from our own pages, or from a tool that sends no Origin, go through", async () => {
     const ours = { "Sec-Fetch-Site": "same-origin", Origin: BASE, Cookie: owner.cookie, "Content-Type": "application/json" };
-    const res = await call(listingApi, new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers: ours, body: '{"item":{"model":"HS-120"}}' }), { id: listingId });
+    const res = await call(
+      listingApi,
+      new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers: ours, body: '{"item":{"model":"HS-120"}}' }),
+      { id: listingId },
+    );
     expect(res.status).toBe(200);
-    const tool = await call(listingApi, new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers: { Cookie: owner.cookie, "Content-Type": "application/json" }, body: '{"item":{"model":"HS-121"}}' }), { id: listingId });
+    const tool = await call(
+      listingApi,
+      new Request(`${BASE}/api/v1/listings/${listingId}`, {
+        method: "PATCH",
+        headers: { Cookie: owner.cookie, "Content-Type": "application/json" },
+        body: '{"item":{"model":"HS-121"}}',
+      }),
+      { id: listingId },
+    );
     expect(tool.status).toBe(200);
     // Reading is never refused: a GET changes nothing.
-    const read = await call(listingApi, new Request(`${BASE}/api/v1/listings/${listingId}`, { headers: { "Sec-Fetch-Site": "cross-site", Cookie: owner.cookie } }), { id: listingId });
+    const read = await call(
+      listingApi,
+      new Request(`${BASE}/api/v1/listings/${listingId}`, { headers: { "Sec-Fetch-Site": "cross-site", Cookie: owner.cookie } }),
+      { id: listingId },
+    );
     expect(read.status).toBe(200);
   });
 
   it("the webhook takes any origin (its signature authenticates it); page forms share the rule", async () => {
-    const hook = await call(webhook, new Request(`${BASE}/api/v1/webhooks/stripe`, { method: "POST", headers: { "Sec-Fetch-Site": "cross-site", "Stripe-Signature": "t=1,v1=00" }, body: "{}" }));
+    const hook = await call(
+      webhook,
+      new Request(`${BASE}/api/v1/webhooks/stripe`, {
+        method: "POST",
+        headers: { "Sec-Fetch-Site": "cross-site", "Stripe-Signature": "t=1,v1=00" },
+        body: "{}",
+      }),
+    );
     expect(hook.body.error).toBe("invalid_signature");
-    const out = await call(signOut, new Request(`${BASE}/sign-out`, { method: "POST", headers: { "Sec-Fetch-Site": "same-site", Cookie: owner.cookie } }));
+    const out = await call(
+      signOut,
+      new Request(`${BASE}/sign-out`, { method: "POST", headers: { "Sec-Fetch-Site": "same-site", Cookie: owner.cookie } }),
+    );
     expect(out.status).toBe(403);
   });
 });
 
 describe("one error shape on every API route", () => {
   const isOneShape = (body: Record<string, unknown>) =>
-    Object.keys(body).every((k) => ["error", "message", "issues"].includes(k)) && typeof body.message === "string" && Object.hasOwn(ERROR_CODES, String(body.error));
+    Object.keys(body).every((k) => ["error", "message", "issues"].includes(k)) &&
+    typeof body.message === "string" &&
+    Object.hasOwn(ERROR_CODES, String(body.error));
 
   it("401 when signed out, 404 for someone else's record, 405 for a method the route does not take", async () => {
     const id = listingId;

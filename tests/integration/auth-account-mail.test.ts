@@ -56,7 +56,9 @@ async function statements(run: () => Promise<unknown>): Promise<string[]> {
 
 describe("forgot password", () => {
   it("answers an address with an account and one without alike: one job each, no mail from the request", async () => {
-    const known = (await createAccount({ email: testEmail("forgot-known"), displayName: "Kim", password: "old-password-here", emailVerified: true })).email;
+    const known = (
+      await createAccount({ email: testEmail("forgot-known"), displayName: "Kim", password: "old-password-here", emailVerified: true })
+    ).email;
     const unknown = testEmail("forgot-unknown");
 
     const answers = [];
@@ -83,7 +85,9 @@ describe("forgot password", () => {
 
 describe("sign-up", () => {
   it("answers a new address and a taken one alike: one job each, no mail from the request", async () => {
-    const taken = (await createAccount({ email: testEmail("signup-taken"), displayName: "Tam", password: "owners-password", emailVerified: true })).email;
+    const taken = (
+      await createAccount({ email: testEmail("signup-taken"), displayName: "Tam", password: "owners-password", emailVerified: true })
+    ).email;
     const fresh = testEmail("signup-fresh");
     const answers = [];
     const work = [];

@@ -188,7 +188,9 @@ describe("password reset", () => {
     await requestPasswordReset(email);
     await requestPasswordReset(email);
     await deliverAccountMail();
-    const [older, newer] = mailTo(email).filter((m) => /password/.test(m.subject)).map((m) => linkToken(m, "/reset-password/"));
+    const [older, newer] = mailTo(email)
+      .filter((m) => /password/.test(m.subject))
+      .map((m) => linkToken(m, "/reset-password/"));
 
     const result = await resetPassword(newer, "a-brand-new-password");
     expect(result.ok).toBe(true);

@@ -46,8 +46,9 @@ describe("roles", () => {
   it("drops roles nobody knows; the database would refuse them anyway", async () => {
     const admin = await sessionUserOf("admin-b", ["admin"]);
     const target = await sessionUserOf("target-b");
-    await expect(sequelize.query(`UPDATE users SET roles = ARRAY['buyer','owner'] WHERE id = :id`, { replacements: { id: target.id } }))
-      .rejects.toThrow(/users_roles_known/);
+    await expect(
+      sequelize.query(`UPDATE users SET roles = ARRAY['buyer','owner'] WHERE id = :id`, { replacements: { id: target.id } }),
+    ).rejects.toThrow(/users_roles_known/);
     expect(await setAccountRoles(admin, target.id, ["owner" as never])).toMatchObject({ ok: true });
     expect((await User.findByPk(target.id))!.roles).toEqual(["buyer"]);
   });
@@ -86,32 +87,64 @@ describe("review desk queue", () => {
     const owner = await sessionUserOf("workshop-owner", ["seller"]);
     const verifiedOwner = await sessionUserOf("verified-owner", ["workshop"]);
     const applied = await Workshop.create({
-      ownerId: owner.id, name: `Quietwater Valve Works ${RUN}`, slug: `quietwater-${RUN}`, about: null,
-      country: "NL", region: null, town: "Eastmoor", verifiedAt: null,
+      ownerId: owner.id,
+      name: `Quietwater Valve Works ${RUN}`,
+      slug: `quietwater-${RUN}`,
+      about: null,
+      country: "NL",
+      region: null,
+      town: "Eastmoor",
+      verifiedAt: null,
     });
     const verified = await Workshop.create({
-      ownerId: verifiedOwner.id, name: `Settled Bench ${RUN}`, slug: `settled-${RUN}`, about: null,
-      country: "NL", region: null, town: null, verificationStatus: "verified", verifiedAt: new Date(),
+      ownerId: verifiedOwner.id,
+      name: `Settled Bench ${RUN}`,
+      slug: `settled-${RUN}`,
+      about: null,
+      country: "NL",
+      region: null,
+      town: null,
+      verificationStatus: "verified",
+      verifiedAt: new Date(),
     });
     const base = {
-      sellerId: owner.id, category: "integrated_amplifier" as const, maker: "Harrowgate", priceMinor: 42_000,
-      country: "NL", cosmeticGrade: "clean" as const, serviceState: "serviced_measured" as const, publishedAt: new Date(),
+      sellerId: owner.id,
+      category: "integrated_amplifier" as const,
+      maker: "Harrowgate",
+      priceMinor: 42_000,
+      country: "NL",
+      cosmeticGrade: "clean" as const,
+      serviceState: "serviced_measured" as const,
+      publishedAt: new Date(),
     };
-    const held = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `HA-${RUN}`, status: "held", heldReason: "Power claim above the supply's limit" }));
+    const held = await Listing.create(
+      blankListing(owner.id, base.category, {
+        ...base,
+        model: `HA-${RUN}`,
+        status: "held",
+        heldReason: "Power claim above the supply's limit",
+      }),
+    );
     const live = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `LV-${RUN}`, status: "live" }));
 
     const queue = await reviewQueue();
-    expect(queue.heldListings).toContainEqual(expect.objectContaining({
-      id: (held as { id: string }).id,
-      title: `Harrowgate HA-${RUN}`,
-      category: "Integrated amplifier",
-      reason: "Power claim above the supply's limit",
-      seller: "Person workshop-owner",
-    }));
+    expect(queue.heldListings).toContainEqual(
+      expect.objectContaining({
+        id: (held as { id: string }).id,
+        title: `Harrowgate HA-${RUN}`,
+        category: "Integrated amplifier",
+        reason: "Power claim above the supply's limit",
+        seller: "Person workshop-owner",
+      }),
+    );
     expect(queue.heldListings.map((l) => l.id)).not.toContain((live as { id: string }).id);
-    expect(queue.workshopApplications).toContainEqual(expect.objectContaining({
-      id: applied.id, name: `Quietwater Valve Works ${RUN}`, ownerEmail: owner.email,
-    }));
+    expect(queue.workshopApplications).toContainEqual(
+      expect.objectContaining({
+        id: applied.id,
+        name: `Quietwater Valve Works ${RUN}`,
+        ownerEmail: owner.email,
+      }),
+    );
     expect(queue.workshopApplications.map((w) => w.id)).not.toContain(verified.id);
     expect(queue.heldCount).toBeGreaterThanOrEqual(1);
     expect(queue.applicationCount).toBeGreaterThanOrEqual(1);

@@ -63,7 +63,9 @@ describe("getUser", () => {
   });
 
   it("ignores a hand-made cookie for an account id, even one signed with the real secret", async () => {
-    expect(await getUser(request("/", await handMade({ userId: desk.id, sessionVersion: 0, signedInAt: new Date().toISOString() })))).toBeNull();
+    expect(
+      await getUser(request("/", await handMade({ userId: desk.id, sessionVersion: 0, signedInAt: new Date().toISOString() }))),
+    ).toBeNull();
     // A token of the right shape that no session has.
     expect(await getUser(request("/", await handMade({ sid: "A".repeat(43) })))).toBeNull();
   });
@@ -104,8 +106,7 @@ describe("getUser", () => {
     const { cookie, sessionId } = await signedInSession(ada, { address: "192.0.2.30", userAgent: "t" });
     const lastSeen = async () => (await AccountSession.findByPk(sessionId))!;
     const start = (await lastSeen()).lastSeenAt;
-    const from = (address: string) =>
-      new Request("http://app.test/", { headers: { Cookie: cookie, "X-Forwarded-For": address } });
+    const from = (address: string) => new Request("http://app.test/", { headers: { Cookie: cookie, "X-Forwarded-For": address } });
     await getUser(from("192.0.2.31"));
     expect((await lastSeen()).lastSeenAt).toEqual(start);
 

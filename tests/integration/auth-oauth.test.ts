@@ -102,7 +102,12 @@ describe("linking identities to accounts", () => {
   });
 
   it("links to the confirmed account with the same address and keeps its password", async () => {
-    const existing = await createAccount({ email: testEmail("linked"), displayName: "Linda", password: "her-own-password", emailVerified: true });
+    const existing = await createAccount({
+      email: testEmail("linked"),
+      displayName: "Linda",
+      password: "her-own-password",
+      emailVerified: true,
+    });
     const user = await signInWithIdentity(profile("linked"));
     expect(user.id).toBe(existing.id);
     expect(user.passwordHash).toBe(existing.passwordHash);

@@ -60,7 +60,9 @@ const get = (path: string, cookie?: string) => new Request(`${BASE}${path}`, { h
 const args = (request: Request) => routeArgs(request, {});
 
 async function signIn(email: string, address = nextAddress()): Promise<string> {
-  const out = await run(() => signInRoute.action(args(post("/sign-in", { email, password: PASSWORD, redirectTo: "/account" }, undefined, address))));
+  const out = await run(() =>
+    signInRoute.action(args(post("/sign-in", { email, password: PASSWORD, redirectTo: "/account" }, undefined, address))),
+  );
   expect(out.status).toBe(302);
   expect(out.location).toBe("/account");
   return out.setCookie!.split(";")[0];

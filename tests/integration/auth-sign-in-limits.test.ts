@@ -37,7 +37,12 @@ afterAll(async () => {
 });
 
 async function owner(label: string) {
-  const user = await accounts.createAccount({ email: testEmail(label), displayName: `Owner ${label}`, password: PASSWORD, emailVerified: true });
+  const user = await accounts.createAccount({
+    email: testEmail(label),
+    displayName: `Owner ${label}`,
+    password: PASSWORD,
+    emailVerified: true,
+  });
   return user.email;
 }
 

@@ -23,14 +23,17 @@ let stranger: User;
 let ownerCookie: string;
 let strangerCookie: string;
 
-
 function upload(parts: Record<string, string | Blob>, { cookie = ownerCookie, wait = 0, name = "capture.wav" } = {}) {
   const form = new FormData();
   for (const [k, v] of Object.entries(parts)) {
     if (v instanceof Blob) form.append(k, v, name);
     else form.append(k, v);
   }
-  return new Request(`${BASE}/api/v1/captures/analyze?wait=${wait}`, { method: "POST", body: form, headers: cookie ? { Cookie: cookie } : {} });
+  return new Request(`${BASE}/api/v1/captures/analyze?wait=${wait}`, {
+    method: "POST",
+    body: form,
+    headers: cookie ? { Cookie: cookie } : {},
+  });
 }
 
 async function post(req: Request): Promise<Response> {
@@ -64,8 +67,20 @@ const goodWav = () => toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000, harmon
 beforeAll(async () => {
   await ensureBucket();
   const tag = randomUUID().slice(0, 8);
-  owner = await User.create({ email: `bench-owner-${tag}@example.test`, displayName: "Bench owner", passwordHash: null, emailVerifiedAt: new Date(), lastSignInAt: null });
-  stranger = await User.create({ email: `bench-other-${tag}@example.test`, displayName: "Someone else", passwordHash: null, emailVerifiedAt: new Date(), lastSignInAt: null });
+  owner = await User.create({
+    email: `bench-owner-${tag}@example.test`,
+    displayName: "Bench owner",
+    passwordHash: null,
+    emailVerifiedAt: new Date(),
+    lastSignInAt: null,
+  });
+  stranger = await User.create({
+    email: `bench-other-${tag}@example.test`,
+    displayName: "Someone else",
+    passwordHash: null,
+    emailVerifiedAt: new Date(),
+    lastSignInAt: null,
+  });
   ownerCookie = await signedInCookie(owner);
   strangerCookie = await signedInCookie(stranger);
 });
@@ -124,7 +139,11 @@ describe("POST /api/v1/captures/analyze", () => {
       expect(res.status).toBe(200);
       const body = await res.json();
       expect(body.status).toBe("done");
-      expect(body.readings.find((r: { quantity: string }) => r.quantity === "thd")).toMatchObject({ value: expect.closeTo(0.001, 5), unit: "%", basis: "measured" });
+      expect(body.readings.find((r: { quantity: string }) => r.quantity === "thd")).toMatchObject({
+        value: expect.closeTo(0.001, 5),
+        unit: "%",
+        basis: "measured",
+      });
     } finally {
       await boss.stop({ graceful: false, wait: true });
     }
@@ -138,7 +157,10 @@ describe("POST /api/v1/captures/analyze", () => {
     await analyseCaptureJob({ captureId: id });
     const done = await (await get(id)).json();
     expect(done.kind).toBe("sweep");
-    expect(done.analysis.worstDeviation).toEqual({ deviation: { value: expect.closeTo(-0.6, 9), unit: "dB" }, frequency: { value: 20_000, unit: "Hz" } });
+    expect(done.analysis.worstDeviation).toEqual({
+      deviation: { value: expect.closeTo(-0.6, 9), unit: "dB" },
+      frequency: { value: 20_000, unit: "Hz" },
+    });
     expect(done.sweep).toMatchObject({ kind: "flat", origin: "capture", captureId: id });
   });
 
@@ -163,7 +185,10 @@ describe("POST /api/v1/captures/analyze", () => {
     const key = (await Capture.findByPk(id))!.storageKey!;
     await analyseCaptureJob({ captureId: id });
     const failed = await (await get(id)).json();
-    expect(failed).toMatchObject({ status: "failed", error: { error: "clipped", message: expect.stringMatching(/^The mono channel sits at digital full scale for \d+ samples/) } });
+    expect(failed).toMatchObject({
+      status: "failed",
+      error: { error: "clipped", message: expect.stringMatching(/^The mono channel sits at digital full scale for \d+ samples/) },
+    });
     expect(await headObject(key)).toBeNull();
   });
 
@@ -177,7 +202,12 @@ describe("POST /api/v1/captures/analyze", () => {
       const res = await post(upload({ file: wavBlob(short), conditions: sineConditions }, { wait: 10 }));
       expect(res.status).toBe(422);
       const body = await res.json();
-      expect(body).toEqual({ error: "too_short", message: expect.stringContaining("a 5 Hz resolution needs at least 0.200 s"), id: expect.any(String), poll: `/api/v1/captures/${body.id}` });
+      expect(body).toEqual({
+        error: "too_short",
+        message: expect.stringContaining("a 5 Hz resolution needs at least 0.200 s"),
+        id: expect.any(String),
+        poll: `/api/v1/captures/${body.id}`,
+      });
     } finally {
       await boss.stop({ graceful: false, wait: true });
     }

@@ -53,13 +53,22 @@ beforeEach(() => {
   seen.headerBytes = [];
 });
 
-const sine = JSON.stringify({ kind: "sine", scale: { kind: "analyser", fullScaleVolts: 2, basis: "rms", attenuation: 10 }, loadOhm: 8, fundamentalHz: 1000 });
+const sine = JSON.stringify({
+  kind: "sine",
+  scale: { kind: "analyser", fullScaleVolts: 2, basis: "rms", attenuation: 10 },
+  loadOhm: 8,
+  fundamentalHz: 1000,
+});
 
 function post(file: Blob, name: string, fields: Record<string, string>) {
   const form = new FormData();
   form.append("file", file, name);
   for (const [k, v] of Object.entries(fields)) form.append(k, v);
-  const request = new Request("http://127.0.0.1/api/v1/captures/analyze?wait=0", { method: "POST", body: form, headers: { Cookie: seller.cookie } });
+  const request = new Request("http://127.0.0.1/api/v1/captures/analyze?wait=0", {
+    method: "POST",
+    body: form,
+    headers: { Cookie: seller.cookie },
+  });
   return answer(() => analyze(routeArgs(request, {})));
 }
 
@@ -78,7 +87,9 @@ describe("the web process stores a capture and reads its header; the worker anal
     expect(seen.decoded).toBe(1);
     await row!.reload();
     expect(row).toMatchObject({ status: "failed", errorCode: "clipped", storageKey: null });
-    expect(row!.errorMessage).toMatch(/^The left channel sits at digital full scale for \d+ samples from .+: the analyser input was overloaded\. Add attenuation and capture again\.$/);
+    expect(row!.errorMessage).toMatch(
+      /^The left channel sits at digital full scale for \d+ samples from .+: the analyser input was overloaded\. Add attenuation and capture again\.$/,
+    );
   });
 
   it("a sweep CSV: queued without reading its rows; the job reads them and fills in the format", async () => {

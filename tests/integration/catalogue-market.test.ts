@@ -83,7 +83,10 @@ describe("/media", () => {
     const body = new Uint8Array(await res.arrayBuffer());
     expect([body[0], body[1]]).toEqual([0xff, 0xd8]); // JPEG start-of-image
 
-    const again = await mediaResponse(key, new Request(`http://loadline.test${url}`, { headers: { "If-None-Match": res.headers.get("ETag")! } }));
+    const again = await mediaResponse(
+      key,
+      new Request(`http://loadline.test${url}`, { headers: { "If-None-Match": res.headers.get("ETag")! } }),
+    );
     expect(again.status).toBe(304);
 
     // The original exists in storage but may carry a camera's metadata: never served.
@@ -91,6 +94,8 @@ describe("/media", () => {
     expect(await headObject(photo!.originalKey)).not.toBeNull();
     expect((await mediaResponse(photo!.originalKey, new Request("http://loadline.test/"))).status).toBe(404);
     expect((await mediaResponse("photos/thumb/../../originals/x.jpg", new Request("http://loadline.test/"))).status).toBe(404);
-    expect((await mediaResponse("photos/thumb/2026/01/00000000-0000-0000-0000-000000000000.jpg", new Request("http://loadline.test/"))).status).toBe(404);
+    expect(
+      (await mediaResponse("photos/thumb/2026/01/00000000-0000-0000-0000-000000000000.jpg", new Request("http://loadline.test/"))).status,
+    ).toBe(404);
   });
 });

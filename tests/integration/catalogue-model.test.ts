@@ -2,26 +2,16 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { Listing, ListingPhoto, User } from "~/models/index.server";
-import {
-  CATEGORIES,
-  COSMETIC_GRADES,
-  LISTING_STATUSES,
-  PHOTO_STATUSES,
-  SERVICE_STATES,
-  WORKSHOP_STATUSES,
-} from "@shared/catalogue";
+import { CATEGORIES, COSMETIC_GRADES, LISTING_STATUSES, PHOTO_STATUSES, SERVICE_STATES, WORKSHOP_STATUSES } from "@shared/catalogue";
 
 // The database keeps the catalogue honest even when a bug slips past the forms: its CHECK lists
 // match the shared vocabulary, and it refuses rows that would put a half-made listing in front of buyers.
 
 async function constraintValues(name: string): Promise<string[]> {
-  const [row] = await sequelize.query<{ def: string }>(
-    `SELECT pg_get_constraintdef(oid) AS def FROM pg_constraint WHERE conname = :name`,
-    {
-      replacements: { name },
-      type: QueryTypes.SELECT,
-    },
-  );
+  const [row] = await sequelize.query<{ def: string }>(`SELECT pg_get_constraintdef(oid) AS def FROM pg_constraint WHERE conname = :name`, {
+    replacements: { name },
+    type: QueryTypes.SELECT,
+  });
   return [...row.def.matchAll(/'([a-z_]+)'::text/g)].map((m) => m[1]);
 }
 
@@ -132,9 +122,7 @@ describe("catalogue rows the database refuses", () => {
       publishedAt: new Date(),
     };
     expect(await refused((tx) => Listing.create(draft(full), { transaction: tx }))).toBe("listings_held_has_reason");
-    expect(await refused((tx) => Listing.create(draft({ priceMinor: 0 }), { transaction: tx }))).toBe(
-      "listings_price_minor_check",
-    );
+    expect(await refused((tx) => Listing.create(draft({ priceMinor: 0 }), { transaction: tx }))).toBe("listings_price_minor_check");
   });
 
   it("refuses a ready photo without its sizes, and a second cover", async () => {
@@ -158,8 +146,6 @@ describe("catalogue rows the database refuses", () => {
       "listing_photos_ready_has_sizes",
     );
     expect(await refused((tx) => ListingPhoto.create(photo(0, { isCover: true }), { transaction: tx }))).toBe("accepted");
-    expect(await refused((tx) => ListingPhoto.create(photo(1, { isCover: true }), { transaction: tx }))).toBe(
-      "listing_photos_one_cover",
-    );
+    expect(await refused((tx) => ListingPhoto.create(photo(1, { isCover: true }), { transaction: tx }))).toBe("listing_photos_one_cover");
   });
 });

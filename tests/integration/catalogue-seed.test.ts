@@ -52,7 +52,13 @@ describe("demo scenario seed", () => {
   });
 
   it("demo accounts sign in with the documented password", async () => {
-    for (const email of ["admin@loadline.test", "desk@loadline.test", "buyer@loadline.test", "workshop@loadline.test", "seller@loadline.test"]) {
+    for (const email of [
+      "admin@loadline.test",
+      "desk@loadline.test",
+      "buyer@loadline.test",
+      "workshop@loadline.test",
+      "seller@loadline.test",
+    ]) {
       const user = await User.findOne({ where: { email } });
       expect(user, email).not.toBeNull();
       expect(await verifyPassword(DEMO_PASSWORD, user!.passwordHash)).toBe(true);
@@ -71,13 +77,18 @@ describe("demo scenario seed", () => {
       expect(l.benchVerified).toBe(false);
       expect(l.heldReason).toMatch(/implausible/i);
     }
-    const verified = await Listing.findAll({ where: { serialNumber: serials, benchVerified: true }, include: [{ model: BenchSheet, as: "benchSheet" }] });
+    const verified = await Listing.findAll({
+      where: { serialNumber: serials, benchVerified: true },
+      include: [{ model: BenchSheet, as: "benchSheet" }],
+    });
     expect(verified.length).toBeGreaterThan(15);
     for (const l of verified) {
       expect(l.benchSheet?.verdict?.benchVerified).toBe(true);
     }
     // Only listings with a sheet can carry the mark.
-    expect(await Listing.count({ where: { serialNumber: DEMO_UNITS.filter((u) => !u.sheet).map((u) => u.serial), benchVerified: true } })).toBe(0);
+    expect(
+      await Listing.count({ where: { serialNumber: DEMO_UNITS.filter((u) => !u.sheet).map((u) => u.serial), benchVerified: true } }),
+    ).toBe(0);
   });
 
   it("copies measured figures into the filter columns (power into 8 Ω, the weaker channel)", async () => {

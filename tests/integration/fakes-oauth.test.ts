@@ -14,7 +14,12 @@ function pkce() {
 }
 
 function decodeEntities(s: string) {
-  return s.replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&amp;/g, "&");
+  return s
+    .replace(/&quot;/g, '"')
+    .replace(/&#39;/g, "'")
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">")
+    .replace(/&amp;/g, "&");
 }
 
 describe("local identity provider", () => {
@@ -32,7 +37,16 @@ describe("local identity provider", () => {
 
   function authorizeUrl(challenge: string, overrides: Record<string, string> = {}) {
     const url = new URL(idp.endpoints.authorization);
-    const params = { response_type: "code", client_id: CLIENT.id, redirect_uri: REDIRECT, scope: "openid email profile", state: "st-81f2", code_challenge: challenge, code_challenge_method: "S256", ...overrides };
+    const params = {
+      response_type: "code",
+      client_id: CLIENT.id,
+      redirect_uri: REDIRECT,
+      scope: "openid email profile",
+      state: "st-81f2",
+      code_challenge: challenge,
+      code_challenge_method: "S256",
+      ...overrides,
+    };
     for (const [k, v] of Object.entries(params)) url.searchParams.set(k, v);
     return url;
   }

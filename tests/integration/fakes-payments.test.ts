@@ -42,7 +42,11 @@ describe("payments stand-in", () => {
       return_url: "http://127.0.0.1:3000/sell/payouts?done=1",
       refresh_url: "http://127.0.0.1:3000/sell/payouts?again=1",
     });
-    const done = await fetch(link.url, { method: "POST", body: new URLSearchParams({ business_name: "Werkbank Nord" }), redirect: "manual" });
+    const done = await fetch(link.url, {
+      method: "POST",
+      body: new URLSearchParams({ business_name: "Werkbank Nord" }),
+      redirect: "manual",
+    });
     return { account, link, done };
   }
 
@@ -57,12 +61,22 @@ describe("payments stand-in", () => {
   it("creates a connected account whose onboarding link enables charges and payouts", async () => {
     const { account, link, done } = await onboardedWorkshop();
     expect(account.id).toMatch(/^acct_/);
-    expect(account).toMatchObject({ charges_enabled: false, payouts_enabled: false, default_currency: "eur", metadata: { workshop: "w-17" } });
+    expect(account).toMatchObject({
+      charges_enabled: false,
+      payouts_enabled: false,
+      default_currency: "eur",
+      metadata: { workshop: "w-17" },
+    });
     expect(link.url.startsWith(fake.url)).toBe(true);
     expect(done.status).toBe(303);
     expect(done.headers.get("location")).toBe("http://127.0.0.1:3000/sell/payouts?done=1");
     const after = await stripe.accounts.retrieve(account.id);
-    expect(after).toMatchObject({ charges_enabled: true, payouts_enabled: true, details_submitted: true, capabilities: { transfers: "active" } });
+    expect(after).toMatchObject({
+      charges_enabled: true,
+      payouts_enabled: true,
+      details_submitted: true,
+      capabilities: { transfers: "active" },
+    });
     // Links are single-use: a second visit goes to refresh_url.
     const again = await fetch(link.url, { redirect: "manual" });
     expect(again.headers.get("location")).toBe("http://127.0.0.1:3000/sell/payouts?again=1");
@@ -72,13 +86,21 @@ describe("payments stand-in", () => {
     const { account } = await onboardedWorkshop();
     const session = await stripe.checkout.sessions.create({
       mode: "payment",
-      line_items: [{ quantity: 1, price_data: { currency: "eur", unit_amount: 64_900, product_data: { name: "Integrated amplifier, serviced" } } }],
+      line_items: [
+        { quantity: 1, price_data: { currency: "eur", unit_amount: 64_900, product_data: { name: "Integrated amplifier, serviced" } } },
+      ],
       success_url: "http://127.0.0.1:3000/orders/o-5/paid?session={CHECKOUT_SESSION_ID}",
       cancel_url: "http://127.0.0.1:3000/orders/o-5",
       metadata: { order: "o-5" },
       payment_intent_data: { capture_method: "manual", transfer_group: "order_o-5", metadata: { order: "o-5" } },
     });
-    expect(session).toMatchObject({ status: "open", payment_status: "unpaid", amount_total: 64_900, currency: "eur", payment_intent: null });
+    expect(session).toMatchObject({
+      status: "open",
+      payment_status: "unpaid",
+      amount_total: 64_900,
+      currency: "eur",
+      payment_intent: null,
+    });
 
     const declined = await pay(session.url!, "4000 0000 0000 0002");
     expect(declined.status).toBe(402);
@@ -96,11 +118,21 @@ describe("payments stand-in", () => {
     const completed = await stripe.checkout.sessions.retrieve(session.id);
     expect(completed.status).toBe("complete");
     const held = await stripe.paymentIntents.retrieve(completed.payment_intent as string);
-    expect(held).toMatchObject({ status: "requires_capture", amount_capturable: 64_900, transfer_group: "order_o-5", metadata: { order: "o-5" } });
+    expect(held).toMatchObject({
+      status: "requires_capture",
+      amount_capturable: 64_900,
+      transfer_group: "order_o-5",
+      metadata: { order: "o-5" },
+    });
 
     const captured = await stripe.paymentIntents.capture(held.id);
     expect(captured).toMatchObject({ status: "succeeded", amount_received: 64_900 });
-    const transfer = await stripe.transfers.create({ amount: 58_410, currency: "eur", destination: account.id, transfer_group: "order_o-5" });
+    const transfer = await stripe.transfers.create({
+      amount: 58_410,
+      currency: "eur",
+      destination: account.id,
+      transfer_group: "order_o-5",
+    });
     expect(transfer).toMatchObject({ amount: 58_410, destination: account.id, transfer_group: "order_o-5" });
     const refund = await stripe.refunds.create({ payment_intent: held.id, amount: 1_000, reason: "requested_by_customer" });
     expect(refund).toMatchObject({ status: "succeeded", amount: 1_000, payment_intent: held.id });
@@ -108,7 +140,12 @@ describe("payments stand-in", () => {
   });
 
   it("creates, confirms and cancels payment intents through the API", async () => {
-    const pi = await stripe.paymentIntents.create({ amount: 12_500, currency: "eur", capture_method: "manual", transfer_group: "order_o-6" });
+    const pi = await stripe.paymentIntents.create({
+      amount: 12_500,
+      currency: "eur",
+      capture_method: "manual",
+      transfer_group: "order_o-6",
+    });
     expect(pi).toMatchObject({ status: "requires_payment_method", amount: 12_500 });
     expect(pi.id).toMatch(/^pi_/);
     expect(pi.client_secret).toMatch(new RegExp(`^${pi.id}_secret_`));
@@ -118,7 +155,12 @@ describe("payments stand-in", () => {
     expect(canceled.status).toBe("canceled");
     await expect(stripe.paymentIntents.capture(pi.id)).rejects.toMatchObject({ code: "payment_intent_unexpected_state" });
 
-    const refused = stripe.paymentIntents.create({ amount: 9_900, currency: "eur", payment_method: "pm_card_chargeDeclined", confirm: true });
+    const refused = stripe.paymentIntents.create({
+      amount: 9_900,
+      currency: "eur",
+      payment_method: "pm_card_chargeDeclined",
+      confirm: true,
+    });
     await expect(refused).rejects.toBeInstanceOf(Stripe.errors.StripeCardError);
     await expect(refused).rejects.toMatchObject({ statusCode: 402, code: "card_declined", decline_code: "generic_decline" });
   });
@@ -138,7 +180,13 @@ describe("payments stand-in", () => {
   });
 
   it("answers like the provider to a bad key, an unknown parameter and a missing object", async () => {
-    const bad = createPaymentsClient({ mode: "fake", secretKey: "sk_test_wrong", webhookSecret: WEBHOOK_SECRET, apiUrl: fake.url, port: fake.port });
+    const bad = createPaymentsClient({
+      mode: "fake",
+      secretKey: "sk_test_wrong",
+      webhookSecret: WEBHOOK_SECRET,
+      apiUrl: fake.url,
+      port: fake.port,
+    });
     await expect(bad.balance.retrieve()).rejects.toBeInstanceOf(Stripe.errors.StripeAuthenticationError);
     // A parameter the provider does not know, past the compiler's check for unknown keys.
     const withColour = { type: "express" as const, colour: "walnut" };
@@ -166,7 +214,9 @@ describe("payments stand-in", () => {
     const tampered = delivery.body.replace(/"livemode": false/, '"livemode": true');
     expect(tampered).not.toBe(delivery.body);
     expect(() => Stripe.webhooks.constructEvent(tampered, header, WEBHOOK_SECRET)).toThrow(Stripe.errors.StripeSignatureVerificationError);
-    expect(() => Stripe.webhooks.constructEvent(delivery.body, header, "whsec_other")).toThrow(Stripe.errors.StripeSignatureVerificationError);
+    expect(() => Stripe.webhooks.constructEvent(delivery.body, header, "whsec_other")).toThrow(
+      Stripe.errors.StripeSignatureVerificationError,
+    );
   });
 
   it("retries a delivery the app did not accept", async () => {
@@ -177,12 +227,20 @@ describe("payments stand-in", () => {
       webhook: { url: flaky.url, secret: WEBHOOK_SECRET, retryDelaysMs: [20, 20] },
     });
     try {
-      const client = createPaymentsClient({ mode: "fake", secretKey: SECRET, webhookSecret: WEBHOOK_SECRET, apiUrl: second.url, port: second.port });
+      const client = createPaymentsClient({
+        mode: "fake",
+        secretKey: SECRET,
+        webhookSecret: WEBHOOK_SECRET,
+        apiUrl: second.url,
+        port: second.port,
+      });
       await client.accounts.update((await client.accounts.create({ type: "express" })).id, { metadata: { a: "1" } });
       await flaky.waitFor(2);
       const [firstTry, retry] = flaky.received;
       expect(JSON.parse(retry.body).id).toBe(JSON.parse(firstTry.body).id);
-      expect(Stripe.webhooks.constructEvent(retry.body, String(retry.headers["stripe-signature"]), WEBHOOK_SECRET).type).toBe("account.updated");
+      expect(Stripe.webhooks.constructEvent(retry.body, String(retry.headers["stripe-signature"]), WEBHOOK_SECRET).type).toBe(
+        "account.updated",
+      );
     } finally {
       await second.stop();
       await flaky.close();

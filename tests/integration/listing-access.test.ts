@@ -39,7 +39,11 @@ const patch = (id: string, body: unknown, cookie?: string) =>
     body: JSON.stringify(body),
   });
 const post = (path: string, fields: Record<string, string>, cookie: string) =>
-  new Request(`${BASE}${path}`, { method: "POST", headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" }, body: new URLSearchParams(fields) });
+  new Request(`${BASE}${path}`, {
+    method: "POST",
+    headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" },
+    body: new URLSearchParams(fields),
+  });
 
 describe("through the services", () => {
   it("someone else's draft is not found, for reading and for every change", async () => {
@@ -48,7 +52,15 @@ describe("through the services", () => {
       () => saveItem(draftId, other.user.id, { priceMinor: 100 }),
       () => saveCondition(draftId, other.user.id, { cosmeticGrade: "rough" }),
       () => saveBenchSheet(draftId, other.user.id, exampleIntegratedAmplifierSheet()),
-      () => addRestorationEntry(draftId, other.user.id, { doneOn: "2025-01-01", work: "x", parts: [], technician: null, readingsBefore: [], readingsAfter: [] }),
+      () =>
+        addRestorationEntry(draftId, other.user.id, {
+          doneOn: "2025-01-01",
+          work: "x",
+          parts: [],
+          technician: null,
+          readingsBefore: [],
+          readingsAfter: [],
+        }),
       () => publishListing(draftId, other.session),
       () => withdrawListing(draftId, other.user.id),
     ];
@@ -89,11 +101,17 @@ describe("through the API", () => {
   });
 
   it("saves the owner's PATCH (what autosave sends), and refuses bad input with paths, saving none of it", async () => {
-    const ok = await call(() => apiAction(args(patch(draftId, { item: { priceMinor: 99_900 }, condition: { cosmeticGrade: "lived_in" } }, owner.cookie), { id: draftId })));
+    const ok = await call(() =>
+      apiAction(
+        args(patch(draftId, { item: { priceMinor: 99_900 }, condition: { cosmeticGrade: "lived_in" } }, owner.cookie), { id: draftId }),
+      ),
+    );
     expect(ok.status).toBe(200);
     expect(ok.body.listing).toMatchObject({ priceMinor: 99_900, cosmeticGrade: "lived_in" });
     const bad = await call(() =>
-      apiAction(args(patch(draftId, { item: { priceMinor: 50_000 }, condition: { cosmeticGrade: "mint" } }, owner.cookie), { id: draftId })),
+      apiAction(
+        args(patch(draftId, { item: { priceMinor: 50_000 }, condition: { cosmeticGrade: "mint" } }, owner.cookie), { id: draftId }),
+      ),
     );
     expect(bad.status).toBe(400);
     expect(bad.body.issues.map((i: { path: string }) => i.path)).toEqual(["condition.cosmeticGrade"]);
@@ -108,7 +126,13 @@ describe("through the pages", () => {
   it("the editor is a 404 page for another seller, and their form posts change nothing", async () => {
     const page = await call(() => editorLoader(args(get(`/sell/${draftId}`, other.cookie), { id: draftId })));
     expect(page.status).toBe(404);
-    const item = await call(() => itemAction(args(post(`/sell/${draftId}/item`, { category: "integrated_amplifier", maker: "Stolen", price: "1" }, other.cookie), { id: draftId })));
+    const item = await call(() =>
+      itemAction(
+        args(post(`/sell/${draftId}/item`, { category: "integrated_amplifier", maker: "Stolen", price: "1" }, other.cookie), {
+          id: draftId,
+        }),
+      ),
+    );
     expect(item.status).toBe(404);
     const bench = await call(() => benchAction(args(post(`/sell/${draftId}/bench`, { rows: "0" }, other.cookie), { id: draftId })));
     expect(bench.status).toBe(404);
@@ -124,12 +148,35 @@ describe("through the pages", () => {
 
   it("the owner's form post saves without JavaScript: the typed price lands in minor units", async () => {
     const res = await call(() =>
-      itemAction(args(post(`/sell/${draftId}/item`, { category: "integrated_amplifier", maker: "Harrowgate Sound", model: "HS-120", price: "1,180", currency: "EUR", country: "DE", intent: "save" }, owner.cookie), { id: draftId })),
+      itemAction(
+        args(
+          post(
+            `/sell/${draftId}/item`,
+            {
+              category: "integrated_amplifier",
+              maker: "Harrowgate Sound",
+              model: "HS-120",
+              price: "1,180",
+              currency: "EUR",
+              country: "DE",
+              intent: "save",
+            },
+            owner.cookie,
+          ),
+          { id: draftId },
+        ),
+      ),
     );
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ ok: true });
     expect((await reload(draftId)).listing.priceMinor).toBe(118_000);
-    const bad = await call(() => itemAction(args(post(`/sell/${draftId}/item`, { category: "integrated_amplifier", price: "twelve", currency: "EUR" }, owner.cookie), { id: draftId })));
+    const bad = await call(() =>
+      itemAction(
+        args(post(`/sell/${draftId}/item`, { category: "integrated_amplifier", price: "twelve", currency: "EUR" }, owner.cookie), {
+          id: draftId,
+        }),
+      ),
+    );
     expect(bad.status).toBe(400);
     expect(bad.body.errors.price).toMatch(/not a price/);
     expect((await reload(draftId)).listing.priceMinor).toBe(118_000);

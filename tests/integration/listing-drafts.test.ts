@@ -22,7 +22,17 @@ describe("starting a draft", () => {
 
   it("lists a workshop's unit under the workshop, starting from its location", async () => {
     const shop = await makeAccount("shop", ["workshop"]);
-    const workshop = await Workshop.create({ ownerId: shop.user.id, name: "Test Bench Works", slug: `test-bench-${shop.user.id.slice(0, 8)}`, about: null, country: "NL", region: "Veldmark", town: "Ossendam", verificationStatus: "applied", verifiedAt: null });
+    const workshop = await Workshop.create({
+      ownerId: shop.user.id,
+      name: "Test Bench Works",
+      slug: `test-bench-${shop.user.id.slice(0, 8)}`,
+      about: null,
+      country: "NL",
+      region: "Veldmark",
+      town: "Ossendam",
+      verificationStatus: "applied",
+      verifiedAt: null,
+    });
     const draft = await createDraft(shop.session, "integrated_amplifier");
     expect(draft.workshopId).toBe(workshop.id);
     expect([draft.country, draft.region, draft.town]).toEqual(["NL", "Veldmark", "Ossendam"]);
@@ -124,17 +134,36 @@ describe("the restoration log", () => {
     const entry = await addRestorationEntry(draft.id, seller.user.id, {
       doneOn: "2025-01-10",
       work: "New pinch roller and belts; heads demagnetised.",
-      parts: [{ part: "Pinch roller", quantity: 1 }, { part: "Capstan belt", quantity: 2, reference: "B1, B2" }],
+      parts: [
+        { part: "Pinch roller", quantity: 1 },
+        { part: "Capstan belt", quantity: 2, reference: "B1, B2" },
+      ],
       technician: "",
       readingsBefore: [],
       readingsAfter: [{ quantity: "Wow & flutter", value: 0.06, unit: "% WRMS", conditions: "3150 Hz test tape" }],
     });
     expect(entry.technician).toBeNull();
-    await updateRestorationEntry(draft.id, seller.user.id, entry.id, { doneOn: "2025-01-11", work: "Pinch roller and belts.", parts: [], technician: "Bench 1", readingsBefore: [], readingsAfter: [] });
+    await updateRestorationEntry(draft.id, seller.user.id, entry.id, {
+      doneOn: "2025-01-11",
+      work: "Pinch roller and belts.",
+      parts: [],
+      technician: "Bench 1",
+      readingsBefore: [],
+      readingsAfter: [],
+    });
     const log = await restorationLog(draft.id);
     expect(log).toHaveLength(1);
     expect(log[0]).toMatchObject({ doneOn: "2025-01-11", technician: "Bench 1", parts: [] });
-    const future = await inputError(addRestorationEntry(draft.id, seller.user.id, { doneOn: "2999-01-01", work: "x", parts: [], technician: null, readingsBefore: [], readingsAfter: [] }));
+    const future = await inputError(
+      addRestorationEntry(draft.id, seller.user.id, {
+        doneOn: "2999-01-01",
+        work: "x",
+        parts: [],
+        technician: null,
+        readingsBefore: [],
+        readingsAfter: [],
+      }),
+    );
     expect(future.issues[0].path).toBe("doneOn");
     await deleteRestorationEntry(draft.id, seller.user.id, entry.id);
     expect((await reload(draft.id)).entries).toBe(0);

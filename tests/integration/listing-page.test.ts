@@ -3,13 +3,7 @@ import { BenchSheet, Listing, type User } from "~/models/index.server";
 import { Watch } from "~/models/watch.server";
 import { action, loader } from "~/routes/listings/listing";
 import type { ListingPageData } from "~/listings/types";
-import {
-  FIXTURE_SERIAL,
-  createAmplifierListing,
-  makeUser,
-  removeFixtureUsers,
-  type AmplifierFixture,
-} from "../support/listing-fixtures";
+import { FIXTURE_SERIAL, createAmplifierListing, makeUser, removeFixtureUsers, type AmplifierFixture } from "../support/listing-fixtures";
 import { isData, routeArgs } from "../support/route-args";
 import { signedInCookie } from "../support/sessions";
 
@@ -233,7 +227,9 @@ describe("what the page carries", () => {
     const { body } = await open(live.listing.id);
     expect(body!.seller).toMatchObject({ kind: "workshop", verifiedWorkshop: true, place: "Altmarkhafen, Vorland, Germany" });
     expect(body!.restoration.map((e) => e.doneOn)).toEqual(["2025-02-20", "2025-03-14"]);
-    expect(body!.restoration[0].readings).toEqual([{ quantity: "DC offset, left", before: "48 mV", after: "4 mV", conditions: "no input, 8 Ω load" }]);
+    expect(body!.restoration[0].readings).toEqual([
+      { quantity: "DC offset, left", before: "48 mV", after: "4 mV", conditions: "no input, 8 Ω load" },
+    ]);
   });
 });
 

@@ -27,7 +27,9 @@ describe("publishing a listing", () => {
     await saveItem(draft.id, seller.user.id, { maker: "Harrowgate Sound" });
     const err = await inputError(publishListing(draft.id, seller.session));
     const paths = err.issues.map((i) => i.path);
-    expect(paths).toEqual(expect.arrayContaining(["item.title", "item.price", "item.location", "condition.grade", "condition.service", "photos.photos"]));
+    expect(paths).toEqual(
+      expect.arrayContaining(["item.title", "item.price", "item.location", "condition.grade", "condition.service", "photos.photos"]),
+    );
     const { listing, sheet } = await reload(draft.id);
     expect(listing.status).toBe("draft");
     expect(listing.publishedAt).toBeNull();
@@ -109,7 +111,14 @@ describe("withdrawing from the seller's list", () => {
     const post = (cookie: string, fields: Record<string, string>) =>
       call(() =>
         sellAction(
-          routeArgs(new Request(`${BASE}/sell`, { method: "POST", headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" }, body: new URLSearchParams(fields) }), {}),
+          routeArgs(
+            new Request(`${BASE}/sell`, {
+              method: "POST",
+              headers: { Cookie: cookie, "Content-Type": "application/x-www-form-urlencoded" },
+              body: new URLSearchParams(fields),
+            }),
+            {},
+          ),
         ),
       );
     const unconfirmed = await post(seller.cookie, { intent: "withdraw", listingId: draft.id });
@@ -165,7 +174,9 @@ describe("changing the bench sheet of a published listing", () => {
     await publishListing(draft.id, seller.session);
     const tripled = {
       ...good,
-      readings: good.readings.map((r) => (r.quantity === "output_power" && r.basis === "measured" && r.conditions.loadOhm === 4 ? { ...r, value: r.value * 3 } : r)),
+      readings: good.readings.map((r) =>
+        r.quantity === "output_power" && r.basis === "measured" && r.conditions.loadOhm === 4 ? { ...r, value: r.value * 3 } : r,
+      ),
     };
     await saveBenchSheet(draft.id, seller.user.id, tripled);
     const { listing } = await reload(draft.id);
@@ -180,12 +191,29 @@ describe("figures from captures", () => {
     const seller = await makeAccount("capture-owner");
     const draft = await readyDraft(seller);
     const capture = await makeCapture(seller.user.id, [
-      { quantity: "thd", value: 0.00012, unit: "%", channel: "left", basis: "measured", origin: "capture", conditions: { powerW: 60, loadOhm: 8, frequencyHz: 1000 } },
+      {
+        quantity: "thd",
+        value: 0.00012,
+        unit: "%",
+        channel: "left",
+        basis: "measured",
+        origin: "capture",
+        conditions: { powerW: 60, loadOhm: 8, frequencyHz: 1000 },
+      },
     ]);
     const sheet = exampleIntegratedAmplifierSheet();
     sheet.readings = sheet.readings.filter((r) => r.origin !== "capture");
     // The browser claims a far better figure for the same capture.
-    sheet.readings.push({ quantity: "thd", value: 0.0000001, unit: "%", channel: "left", basis: "measured", origin: "capture", captureId: capture.id, conditions: { powerW: 60, loadOhm: 8, frequencyHz: 1000 } });
+    sheet.readings.push({
+      quantity: "thd",
+      value: 0.0000001,
+      unit: "%",
+      channel: "left",
+      basis: "measured",
+      origin: "capture",
+      captureId: capture.id,
+      conditions: { powerW: 60, loadOhm: 8, frequencyHz: 1000 },
+    });
     const saved = await saveBenchSheet(draft.id, seller.user.id, sheet);
     const fromCapture = saved.sheet.readings.filter((r) => r.origin === "capture");
     expect(fromCapture).toHaveLength(1);
@@ -197,7 +225,15 @@ describe("figures from captures", () => {
     const other = await makeAccount("capture-borrower");
     const draft = await readyDraft(other);
     const capture = await makeCapture(owner.user.id, [
-      { quantity: "snr", value: 101, unit: "dB", channel: "left", basis: "measured", origin: "capture", conditions: { loadOhm: 8, weighting: "A", powerW: 60 } },
+      {
+        quantity: "snr",
+        value: 101,
+        unit: "dB",
+        channel: "left",
+        basis: "measured",
+        origin: "capture",
+        conditions: { loadOhm: 8, weighting: "A", powerW: 60 },
+      },
     ]);
     for (const captureId of [capture.id, "cap_demo_1k_left"]) {
       const sheet = exampleIntegratedAmplifierSheet();

@@ -34,7 +34,13 @@ export async function makeAccount(label: string, roles: Role[] = ["seller"], opt
   return {
     user,
     cookie,
-    session: { id: user.id, email: user.email, displayName: user.displayName, roles: normaliseRoles(user.roles), emailVerified: opts.verified !== false },
+    session: {
+      id: user.id,
+      email: user.email,
+      displayName: user.displayName,
+      roles: normaliseRoles(user.roles),
+      emailVerified: opts.verified !== false,
+    },
   };
 }
 
@@ -72,7 +78,11 @@ export const AMP_ITEM = {
 export async function readyDraft(seller: Seller): Promise<Listing> {
   const listing = await createDraft(seller.session, "integrated_amplifier");
   await saveItem(listing.id, seller.user.id, AMP_ITEM);
-  await saveCondition(listing.id, seller.user.id, { cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: "Faint mark on the lid." });
+  await saveCondition(listing.id, seller.user.id, {
+    cosmeticGrade: "clean",
+    serviceState: "serviced_measured",
+    conditionNote: "Faint mark on the lid.",
+  });
   await addRestorationEntry(listing.id, seller.user.id, {
     doneOn: "2025-02-20",
     work: "Replaced main filter capacitors and set bias.",
@@ -104,7 +114,12 @@ const SCALE = { kind: "volts-per-full-scale", volts: 40, basis: "peak" } as cons
 let tone: SineAnalysis | undefined;
 /** A real analysis for the stored captures to carry; these suites look only at their readings. */
 function toneAnalysis(): SineAnalysis {
-  tone ??= analyseSine([toneSamples({ sampleRate: 48_000, seconds: 0.25, f0: 1000, peak: 0.5 })], 48_000, { scale: SCALE, fundamentalHz: 1000 }, ["mono"]);
+  tone ??= analyseSine(
+    [toneSamples({ sampleRate: 48_000, seconds: 0.25, f0: 1000, peak: 0.5 })],
+    48_000,
+    { scale: SCALE, fundamentalHz: 1000 },
+    ["mono"],
+  );
   return tone;
 }
 
@@ -117,7 +132,16 @@ export async function makeCapture(ownerId: string, readings: Omit<Reading, "capt
     contentType: "audio/wav",
     byteSize: 96_044,
     storageKey: `it/${RUN}/${randomBytes(6).toString("hex")}.wav`,
-    format: { file: "wav", container: "RIFF", encoding: "pcm", bitDepth: 24, channels: 1, sampleRate: 48_000, frames: 48_000, durationS: 1 },
+    format: {
+      file: "wav",
+      container: "RIFF",
+      encoding: "pcm",
+      bitDepth: 24,
+      channels: 1,
+      sampleRate: 48_000,
+      frames: 48_000,
+      durationS: 1,
+    },
     conditions: { kind: "sine", scale: SCALE, weighting: "unweighted", window: "blackman-harris-7" },
   });
   await capture.update({

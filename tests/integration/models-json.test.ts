@@ -46,7 +46,9 @@ describe("a bench sheet row", () => {
 
   it("fills the lists an older verdict lacks, and reads a verdict it cannot read as null", async () => {
     const { row } = await storedSheet();
-    await sequelize.query(`UPDATE bench_sheets SET verdict = verdict - 'skipped' - 'fromCaptures' WHERE id = :id`, { replacements: { id: row.id } });
+    await sequelize.query(`UPDATE bench_sheets SET verdict = verdict - 'skipped' - 'fromCaptures' WHERE id = :id`, {
+      replacements: { id: row.id },
+    });
     const older = await reread(row.id);
     expect(older.verdict?.skipped).toEqual([]);
     expect(older.verdict?.fromCaptures).toEqual([]);

@@ -87,7 +87,14 @@ describe("payments webhook receiver", () => {
   });
 
   it("refuses a tampered body, a wrong secret and a missing signature with 400", async () => {
-    const forged = { id: "evt_forged_1", object: "event", type: "payment_intent.succeeded", created: 1, livemode: false, data: { object: { id: "pi_x" } } };
+    const forged = {
+      id: "evt_forged_1",
+      object: "event",
+      type: "payment_intent.succeeded",
+      created: 1,
+      livemode: false,
+      data: { object: { id: "pi_x" } },
+    };
     const body = JSON.stringify(forged);
     const goodHeader = signatureHeader(body, WEBHOOK_SECRET);
     const post = (payload: string, header?: string) =>
@@ -105,15 +112,29 @@ describe("payments webhook receiver", () => {
   });
 
   it("refuses a correctly signed event stamped an hour ahead, as it refuses one an hour old", async () => {
-    const event = { id: "evt_future_1", object: "event", type: "payment_intent.succeeded", created: 1, livemode: false, data: { object: { id: "pi_f" } } };
+    const event = {
+      id: "evt_future_1",
+      object: "event",
+      type: "payment_intent.succeeded",
+      created: 1,
+      livemode: false,
+      data: { object: { id: "pi_f" } },
+    };
     const body = JSON.stringify(event);
     const now = Math.floor(Date.now() / 1000);
     const post = (t: number) =>
-      fetch(`${appUrl}/api/v1/webhooks/stripe`, { method: "POST", headers: { "stripe-signature": signatureHeader(body, WEBHOOK_SECRET, t) }, body });
+      fetch(`${appUrl}/api/v1/webhooks/stripe`, {
+        method: "POST",
+        headers: { "stripe-signature": signatureHeader(body, WEBHOOK_SECRET, t) },
+        body,
+      });
     for (const t of [now + 3600, now - 3600]) {
       const res = await post(t);
       expect(res.status).toBe(400);
-      expect(await res.json()).toEqual({ error: "invalid_signature", message: "The signature does not verify: Timestamp outside the tolerance zone." });
+      expect(await res.json()).toEqual({
+        error: "invalid_signature",
+        message: "The signature does not verify: Timestamp outside the tolerance zone.",
+      });
     }
     expect(await PaymentEvent.findByPk("evt_future_1")).toBeNull();
     // A clock a minute ahead is within the tolerance.

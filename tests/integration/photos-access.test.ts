@@ -4,16 +4,7 @@ import { ensureBucket, headObject } from "~/services/storage.server";
 import { processPhoto } from "~/photos/process.server";
 import { incomingKey, photoKeys } from "~/photos/access.server";
 import { sceneJpeg } from "../support/photo-files";
-import {
-  arrange,
-  listPhotos,
-  makeDraft,
-  makeSeller,
-  photoObjectKeys,
-  removePhoto,
-  removeSellers,
-  upload,
-} from "./photos-support";
+import { arrange, listPhotos, makeDraft, makeSeller, photoObjectKeys, removePhoto, removeSellers, upload } from "./photos-support";
 
 // Only the listing's seller may see or change its photos. Another seller gets the same 404 as for a
 // listing that does not exist; nothing of the owner's changes.
@@ -92,10 +83,7 @@ describe("another seller", { timeout: 30_000 }, () => {
 
 describe("the owner", { timeout: 30_000 }, () => {
   const order = async () =>
-    (await (await listPhotos(listing.id, owner.cookie)).json()).photos.map((p: { id: string; isCover: boolean }) => [
-      p.id,
-      p.isCover,
-    ]);
+    (await (await listPhotos(listing.id, owner.cookie)).json()).photos.map((p: { id: string; isCover: boolean }) => [p.id, p.isCover]);
 
   it("reorders the photos and picks the cover", async () => {
     const res = await arrange(listing.id, { order: [ids[2], ids[0], ids[1]], coverId: ids[2] }, owner.cookie);
@@ -108,7 +96,10 @@ describe("the owner", { timeout: 30_000 }, () => {
   });
 
   it("is told when the order leaves a photo out or names one twice", async () => {
-    for (const bad of [[ids[0], ids[1]], [ids[0], ids[0], ids[1]]]) {
+    for (const bad of [
+      [ids[0], ids[1]],
+      [ids[0], ids[0], ids[1]],
+    ]) {
       const res = await arrange(listing.id, { order: bad }, owner.cookie);
       expect(res.status).toBe(422);
       expect(await res.json()).toEqual({
@@ -120,7 +111,11 @@ describe("the owner", { timeout: 30_000 }, () => {
     }
     const res = await arrange(listing.id, { order: "first" }, owner.cookie);
     expect(res.status).toBe(400);
-    expect(await res.json()).toMatchObject({ error: "invalid", message: expect.stringMatching(/^order /), issues: [{ path: "order", message: expect.any(String) }] });
+    expect(await res.json()).toMatchObject({
+      error: "invalid",
+      message: expect.stringMatching(/^order /),
+      issues: [{ path: "order", message: expect.any(String) }],
+    });
   });
 
   it("deletes a photo: row and every stored object go, the rest close up and the cover passes on", async () => {

@@ -67,7 +67,11 @@ export const upload = (listingId: string, file: Uint8Array, name: string, cookie
 
 export const listPhotos = (listingId: string, cookie?: string) =>
   call(() =>
-    photosLoader(routeArgs(new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { headers: cookie ? { Cookie: cookie } : {} }), { id: listingId })),
+    photosLoader(
+      routeArgs(new Request(`${BASE}/api/v1/listings/${listingId}/photos`, { headers: cookie ? { Cookie: cookie } : {} }), {
+        id: listingId,
+      }),
+    ),
   );
 
 export const arrange = (listingId: string, body: unknown, cookie?: string) =>
@@ -104,9 +108,7 @@ export async function photoObjectKeys(): Promise<Set<string>> {
   for (const prefix of ["incoming/", "photos/", "originals/"]) {
     let token: string | undefined;
     do {
-      const out = await client.send(
-        new ListObjectsV2Command({ Bucket: env().s3.bucket, Prefix: prefix, ContinuationToken: token }),
-      );
+      const out = await client.send(new ListObjectsV2Command({ Bucket: env().s3.bucket, Prefix: prefix, ContinuationToken: token }));
       for (const o of out.Contents ?? []) keys.add(o.Key!);
       token = out.IsTruncated ? out.NextContinuationToken : undefined;
     } while (token);

@@ -20,16 +20,7 @@ import {
   twoToneJpeg,
   withExif,
 } from "../support/photo-files";
-import {
-  jobsFor,
-  listPhotos,
-  makeDraft,
-  makeSeller,
-  photoJobCount,
-  photoObjectKeys,
-  removeSellers,
-  upload,
-} from "./photos-support";
+import { jobsFor, listPhotos, makeDraft, makeSeller, photoJobCount, photoObjectKeys, removeSellers, upload } from "./photos-support";
 
 // Uploads through the route with the real database, queue and object-storage stand-in. The job
 // handler is called directly rather than through a worker.
@@ -52,7 +43,14 @@ describe("bad uploads are refused and leave nothing behind", { timeout: 60_000 }
   const cases: [string, () => Promise<Uint8Array> | Uint8Array, string, number, string, RegExp][] = [
     ["a text file renamed .jpg", textFile, "front.jpg", 415, "unsupported_type", /is really a text file/],
     ["a 60-megapixel PNG", () => bilevelPng(10_000, 6_000), "scan.png", 422, "too_many_pixels", /60\.0 megapixels/],
-    ["a truncated JPEG (small enough to be checked whole as it arrives)", async () => (await twoToneJpeg(400, 300)).subarray(0, 4000), "cut.jpg", 422, "truncated_file", /cut short/],
+    [
+      "a truncated JPEG (small enough to be checked whole as it arrives)",
+      async () => (await twoToneJpeg(400, 300)).subarray(0, 4000),
+      "cut.jpg",
+      422,
+      "truncated_file",
+      /cut short/,
+    ],
     ["a 30 MB file", () => oversizeJpeg(30 * 1024 * 1024), "huge.jpg", 413, "file_too_large", /at most 20 MB/],
     ["an empty file", () => new Uint8Array(0), "empty.jpg", 422, "empty_file", /is empty/],
     ["an SVG with a script", svgWithScript, "badge.png", 415, "unsupported_type", /an SVG drawing with a script in it/],
@@ -166,7 +164,10 @@ describe("a good photo", { timeout: 120_000 }, () => {
       const key = row![column as "originalKey"];
       const stored = await getObjectBuffer(key);
       expect(stored, column).not.toBeNull();
-      expect(jpegHeaderMarkers(stored!).filter((m) => /^E[1-9A-F]$|^FE$/.test(m)), column).toEqual([]);
+      expect(
+        jpegHeaderMarkers(stored!).filter((m) => /^E[1-9A-F]$|^FE$/.test(m)),
+        column,
+      ).toEqual([]);
       expect(stored!.includes(latitude), column).toBe(false);
       const sof = stored!.indexOf(Buffer.from([0xff, 0xc0]));
       expect([stored!.readUInt16BE(sof + 7), stored!.readUInt16BE(sof + 5)], column).toEqual([w, h]);
@@ -259,9 +260,7 @@ describe("the 24-photo limit", { timeout: 120_000 }, () => {
     });
     expect(await ListingPhoto.count({ where: { listingId: full.id } })).toBe(24);
     expect(await photoObjectKeys()).toEqual(keys);
-    const positions = (await ListingPhoto.findAll({ where: { listingId: full.id }, order: [["position", "ASC"]] })).map(
-      (p) => p.position,
-    );
+    const positions = (await ListingPhoto.findAll({ where: { listingId: full.id }, order: [["position", "ASC"]] })).map((p) => p.position);
     expect(positions).toEqual(Array.from({ length: 24 }, (_, i) => i));
   });
 });

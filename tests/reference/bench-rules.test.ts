@@ -6,10 +6,19 @@ import { riaaPlaybackDb } from "@shared/bench/curves";
 import { RISE_BW_PRODUCT } from "@shared/bench/rules/response";
 
 const m = (quantity: Reading["quantity"], value: number, unit: string, conditions: Reading["conditions"] = {}): Reading => ({
-  quantity, value, unit, basis: "measured", origin: "typed", conditions,
+  quantity,
+  value,
+  unit,
+  basis: "measured",
+  origin: "typed",
+  conditions,
 });
 const r = (quantity: Reading["quantity"], value: number, unit: string): Reading => ({ ...m(quantity, value, unit), basis: "rated" });
-const sheet = (category: BenchSheet["category"], readings: Reading[], sweeps: BenchSheet["sweeps"] = []): BenchSheet => ({ category, readings, sweeps });
+const sheet = (category: BenchSheet["category"], readings: Reading[], sweeps: BenchSheet["sweeps"] = []): BenchSheet => ({
+  category,
+  readings,
+  sweeps,
+});
 const derived = (s: BenchSheet, prefix: string) => checkBenchSheet(s).derived.find((d) => d.id.startsWith(prefix));
 const outcome = (s: BenchSheet, id: string) => checkBenchSheet(s).results.find((x) => x.ruleId === id)?.outcome;
 
@@ -37,14 +46,24 @@ describe("rise time and bandwidth (single pole, 10–90 %: BW·t_r = ln9/2π; el
   });
   it("a 20 kHz bandwidth gives 17.5 µs [computed, REFERENCES §7]", () => {
     expect((RISE_BW_PRODUCT / 20e3) * 1e6).toBeCloseTo(17.5, 1); // 17.48 µs
-    expect(outcome(sheet("integrated_amplifier", [m("rise_time", 17.5e-6, "µs"), m("f3db_high", 20e3, "kHz")]), "rise-time-bandwidth")).toBe("consistent");
+    expect(
+      outcome(sheet("integrated_amplifier", [m("rise_time", 17.5e-6, "µs"), m("f3db_high", 20e3, "kHz")]), "rise-time-bandwidth"),
+    ).toBe("consistent");
   });
 });
 
 describe("damping factor (DF = R_load / Z_out; audio glossaries, REFERENCES §7)", () => {
   it("8 Ω / 0.05 Ω = 160", () => {
-    expect(derived(sheet("integrated_amplifier", [m("output_impedance", 0.05, "Ω")]), "damping-factor-from-impedance")!.value).toBeCloseTo(160, 9);
-    expect(outcome(sheet("integrated_amplifier", [m("damping_factor", 160, "", { loadOhm: 8 }), m("output_impedance", 0.05, "Ω")]), "damping-output-impedance")).toBe("consistent");
+    expect(derived(sheet("integrated_amplifier", [m("output_impedance", 0.05, "Ω")]), "damping-factor-from-impedance")!.value).toBeCloseTo(
+      160,
+      9,
+    );
+    expect(
+      outcome(
+        sheet("integrated_amplifier", [m("damping_factor", 160, "", { loadOhm: 8 }), m("output_impedance", 0.05, "Ω")]),
+        "damping-output-impedance",
+      ),
+    ).toBe("consistent");
   });
 });
 
@@ -67,7 +86,15 @@ describe("loudspeaker minimum impedance (IEC 60268-5: not below 80 % of rated; s
 describe("RIAA playback (IEC 60098, time constants 3180/318/75 µs; REFERENCES §1 table [computed])", () => {
   // Published-style table, dB re 1 kHz, rounded to 0.01 dB.
   const TABLE: [number, number][] = [
-    [20, 19.27], [50, 16.95], [100, 13.09], [500, 2.65], [1000, 0], [2000, -2.59], [5000, -8.21], [10000, -13.73], [20000, -19.62],
+    [20, 19.27],
+    [50, 16.95],
+    [100, 13.09],
+    [500, 2.65],
+    [1000, 0],
+    [2000, -2.59],
+    [5000, -8.21],
+    [10000, -13.73],
+    [20000, -19.62],
   ];
   it("a sweep typed from the table deviates from the curve by no more than the table's rounding", () => {
     const points = TABLE.map(([f, db]) => ({ frequencyHz: f, levelDb: db - 40 }));
@@ -80,7 +107,16 @@ describe("RIAA playback (IEC 60098, time constants 3180/318/75 µs; REFERENCES �
     for (const [f, db] of TABLE) expect(Math.abs(riaaPlaybackDb(f) - db)).toBeLessThanOrEqual(0.01);
   });
   it("with the IEC 7950 µs pole the table's 20 Hz point (+16.26 dB) fits the IEC variant, not plain RIAA", () => {
-    const points = [[10, 12.75], [20, 16.26], [30, 17.0], [50, 16.3], [100, 12.92], [500, 2.64], [1000, 0], [10000, -13.73]].map(([f, db]) => ({ frequencyHz: f, levelDb: db }));
+    const points = [
+      [10, 12.75],
+      [20, 16.26],
+      [30, 17.0],
+      [50, 16.3],
+      [100, 12.92],
+      [500, 2.64],
+      [1000, 0],
+      [10000, -13.73],
+    ].map(([f, db]) => ({ frequencyHz: f, levelDb: db }));
     const v = checkBenchSheet(sheet("phono_stage", [], [{ kind: "riaa", origin: "typed", conditions: {}, points }]));
     const res = v.results.find((x) => x.ruleId === "riaa-deviation")!;
     expect(res.detail).toMatch(/IEC subsonic pole/);
@@ -94,13 +130,20 @@ describe("half-load power (ideal voltage source doubles into half the load; text
     const vpk = Math.sqrt(2 * 100 * 8);
     const into4 = (vpk / Math.SQRT2) ** 2 / 4;
     expect(into4).toBeCloseTo(200, 9);
-    expect(outcome(sheet("power_amplifier", [m("output_power", 100, "W", { ...c, loadOhm: 8 }), m("output_power", into4, "W", { ...c, loadOhm: 4 })]), "half-load-power")).toBe("consistent");
+    expect(
+      outcome(
+        sheet("power_amplifier", [m("output_power", 100, "W", { ...c, loadOhm: 8 }), m("output_power", into4, "W", { ...c, loadOhm: 4 })]),
+        "half-load-power",
+      ),
+    ).toBe("consistent");
   });
 });
 
 describe("wow & flutter (IEC 60386 / AES6: 3150 Hz test tone, weighted; REFERENCES §6)", () => {
   it("accepts the IEC tone and refuses a figure without weighting", () => {
-    expect(outcome(sheet("turntable", [m("wow_flutter", 0.001, "%", { weighting: "IEC-60386-peak", testToneHz: 3150 })]), "wow-flutter")).toBe("consistent");
+    expect(
+      outcome(sheet("turntable", [m("wow_flutter", 0.001, "%", { weighting: "IEC-60386-peak", testToneHz: 3150 })]), "wow-flutter"),
+    ).toBe("consistent");
     expect(outcome(sheet("turntable", [m("wow_flutter", 0.001, "%", { testToneHz: 3150 })]), "wow-flutter")).toBe("missing");
   });
 });

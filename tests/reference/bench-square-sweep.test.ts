@@ -63,7 +63,11 @@ describe("sweeps: deviation from flat and from the RIAA playback curve (IEC 6009
 
   it("a phono stage that follows the RIAA curve exactly deviates by 0 dB", () => {
     const f = Float64Array.from(freqs);
-    const a = analyseSweep(f, f.map((x) => 35 + riaaPlaybackDb(x)), { reference: "riaa" });
+    const a = analyseSweep(
+      f,
+      f.map((x) => 35 + riaaPlaybackDb(x)),
+      { reference: "riaa" },
+    );
     expect(Math.abs(a.worstDeviation.deviation.value)).toBeLessThan(1e-9);
     expect(a.levelAt1kHz.value).toBeCloseTo(35, 9);
     expect(a.minus3dB.low).toBeNull();
@@ -71,7 +75,11 @@ describe("sweeps: deviation from flat and from the RIAA playback curve (IEC 6009
 
   it("a stage whose treble is 0.5 dB hot above 10 kHz: worst deviation +0.5 dB, found at the first such point", () => {
     const f = Float64Array.from(freqs);
-    const a = analyseSweep(f, f.map((x) => riaaPlaybackDb(x) + (x >= 10_000 ? 0.5 : 0)), { reference: "riaa" });
+    const a = analyseSweep(
+      f,
+      f.map((x) => riaaPlaybackDb(x) + (x >= 10_000 ? 0.5 : 0)),
+      { reference: "riaa" },
+    );
     expect(a.worstDeviation.deviation.value).toBeCloseTo(0.5, 9);
     expect(a.worstDeviation.frequency.value).toBe(10_000);
     expect(a.conditions.band).toEqual({ lowHz: 20, highHz: 20_000 });
@@ -92,7 +100,10 @@ describe("sweeps: deviation from flat and from the RIAA playback curve (IEC 6009
     const level = f.map((x) => 20 * Math.log10(1 / Math.sqrt((1 + (15 / x) ** 2) * (1 + (x / 60_000) ** 2))));
     // Levels in volts: the same response as a voltage ratio.
     const volts = level.map((db) => 2 * 10 ** (db / 20));
-    for (const [lv, unit] of [[level, "dB"], [volts, "V"]] as const) {
+    for (const [lv, unit] of [
+      [level, "dB"],
+      [volts, "V"],
+    ] as const) {
       const a = analyseSweep(Float64Array.from(f), Float64Array.from(lv), { levelUnit: unit });
       // Each pole also shades the other corner slightly; −3.01 dB sits at 15.0 Hz and 60 kHz only to ~0.1 %.
       expect(a.minus3dB.low!.value).toBeCloseTo(15, 0);

@@ -35,8 +35,7 @@ describe("THD from WAV captures of every accepted format (REFERENCES §8 worked 
   const cases: [WavBits, 1 | 2, number, number][] = [];
   let r = 0;
   for (const bits of formats)
-    for (const channels of [1, 2] as const)
-      for (const f0 of [1000, 1000.3]) cases.push([bits, channels, rates[r++ % rates.length], f0]);
+    for (const channels of [1, 2] as const) for (const f0 of [1000, 1000.3]) cases.push([bits, channels, rates[r++ % rates.length], f0]);
 
   it.each(cases)("%s-bit, %d channel(s), %d Hz, f0 = %d Hz", (bits, channels, sampleRate, f0) => {
     const bytes = toneWav({ sampleRate, seconds: 0.5, f0, harmonics: [1, 0.01, 0.001], peak: 0.5, bits, channels, rightGain: 0.5 });
@@ -61,7 +60,9 @@ describe("THD from WAV captures of every accepted format (REFERENCES §8 worked 
 describe("THD_F and THD_R (IEC 60268-3:2013 worked example via phonometry reference data, REFERENCES §7)", () => {
   it("harmonics (1, 0.1, 0.05, 0.02) give THD_F = 0.11357817 and THD_R = 0.11285260", () => {
     for (const bits of ["32f", "24"] as const) {
-      const a = analyse(toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000.3, harmonics: [1, 0.1, 0.05, 0.02], peak: 0.7, bits, channels: 1 }));
+      const a = analyse(
+        toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000.3, harmonics: [1, 0.1, 0.05, 0.02], peak: 0.7, bits, channels: 1 }),
+      );
       const ch = a.channels[0];
       expect(ch.thd.ratio).toBeCloseTo(0.11357817, 7);
       expect(ch.thdR.ratio).toBeCloseTo(0.1128526, 7);

@@ -4,7 +4,11 @@ import { NO_FACETS } from "@shared/listing-facets";
 import type { Listing } from "~/models/index.server";
 
 /** A listing row with only its seller and kind filled in (plus `extra`), for Listing.create in tests. */
-export function blankListing(sellerId: string, category: Category, extra: Partial<CreationAttributes<Listing>> = {}): CreationAttributes<Listing> {
+export function blankListing(
+  sellerId: string,
+  category: Category,
+  extra: Partial<CreationAttributes<Listing>> = {},
+): CreationAttributes<Listing> {
   return {
     sellerId,
     workshopId: null,

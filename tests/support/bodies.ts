@@ -6,7 +6,12 @@ export type CountingBody = { stream: ReadableStream<Uint8Array>; pulled: () => n
 /** `total` bytes: `head`, then `fill` bytes, then `tail`, in chunks of `chunk`, each made when pulled. */
 export function countingBody(
   total: number,
-  { head = "", tail = "", fill = 0x41, chunk = 64 * 1024 }: { head?: string | Uint8Array; tail?: string; fill?: number; chunk?: number } = {},
+  {
+    head = "",
+    tail = "",
+    fill = 0x41,
+    chunk = 64 * 1024,
+  }: { head?: string | Uint8Array; tail?: string; fill?: number; chunk?: number } = {},
 ): CountingBody {
   const start = typeof head === "string" ? new TextEncoder().encode(head) : head;
   const end = new TextEncoder().encode(tail);

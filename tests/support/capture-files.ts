@@ -139,7 +139,21 @@ export function mp3FrameOnly(): Uint8Array {
 }
 
 /** `time,volts` rows of a single-pole (RC) response to a square wave, sampled exactly. */
-export function singlePoleSquareCsv({ f3dB, period, dt, cycles = 2, low = -1, high = 1 }: { f3dB: number; period: number; dt: number; cycles?: number; low?: number; high?: number }): string {
+export function singlePoleSquareCsv({
+  f3dB,
+  period,
+  dt,
+  cycles = 2,
+  low = -1,
+  high = 1,
+}: {
+  f3dB: number;
+  period: number;
+  dt: number;
+  cycles?: number;
+  low?: number;
+  high?: number;
+}): string {
   const tau = 1 / (2 * Math.PI * f3dB);
   const n = Math.round((cycles * period) / dt);
   const a = Math.exp(-dt / tau);

@@ -40,8 +40,23 @@ async function sineCapture(ownerId: string, channel: "left" | "right", h3: numbe
   const fs = 48_000;
   // Full scale is 2 V rms at the analyser behind a 20:1 divider (56.6 V peak at the output):
   // 0.548 of it is 31 V peak, 21.9 V rms, 60 W into 8 Ω.
-  const x = toneSamples({ sampleRate: fs, seconds: 1, f0: 1000, harmonics: [1, 0.00005, h3, 0.00002, 0.00001], peak: 0.5477, noiseRms: 1e-6 });
-  const conditions = { kind: "sine" as const, scale: { kind: "analyser" as const, fullScaleVolts: 2, basis: "rms" as const, attenuation: 20 }, loadOhm: 8, fundamentalHz: 1000, channel, weighting: "unweighted" as const, window: "blackman-harris-7" as const };
+  const x = toneSamples({
+    sampleRate: fs,
+    seconds: 1,
+    f0: 1000,
+    harmonics: [1, 0.00005, h3, 0.00002, 0.00001],
+    peak: 0.5477,
+    noiseRms: 1e-6,
+  });
+  const conditions = {
+    kind: "sine" as const,
+    scale: { kind: "analyser" as const, fullScaleVolts: 2, basis: "rms" as const, attenuation: 20 },
+    loadOhm: 8,
+    fundamentalHz: 1000,
+    channel,
+    weighting: "unweighted" as const,
+    window: "blackman-harris-7" as const,
+  };
   const analysis = analyseSine([x], fs, { scale: conditions.scale, loadOhms: 8, fundamentalHz: 1000 }, ["mono"]);
   return Capture.create({
     ownerId,
@@ -59,14 +74,16 @@ async function sineCapture(ownerId: string, channel: "left" | "right", h3: numbe
   });
 }
 
-export async function createAmplifierListing(opts: {
-  status?: ListingStatus;
-  heldReason?: string;
-  weightG?: number;
-  /** Stores the square-wave CSV in object storage (the page reads it to draw the trace). */
-  putObject?: (key: string, body: string) => Promise<void>;
-  label?: string;
-} = {}): Promise<AmplifierFixture> {
+export async function createAmplifierListing(
+  opts: {
+    status?: ListingStatus;
+    heldReason?: string;
+    weightG?: number;
+    /** Stores the square-wave CSV in object storage (the page reads it to draw the trace). */
+    putObject?: (key: string, body: string) => Promise<void>;
+    label?: string;
+  } = {},
+): Promise<AmplifierFixture> {
   const label = opts.label ?? "amp";
   const seller = await makeUser(`${label}-seller`, ["buyer", "workshop"]);
   const workshop = await Workshop.create({

@@ -137,8 +137,7 @@ export function mp3Audio(frames = 8): Buffer {
 }
 
 /** A GIF89a of 1 × 1 pixel. */
-export const gifImage = () =>
-  Buffer.from("474946383961010001008000000000ffffff21f90401000000002c00000000010001000002024401003b", "hex");
+export const gifImage = () => Buffer.from("474946383961010001008000000000ffffff21f90401000000002c00000000010001000002024401003b", "hex");
 
 /** A real JPEG padded past the limit with a comment-free tail of zeros. */
 export async function oversizeJpeg(bytes: number): Promise<Buffer> {
@@ -242,7 +241,13 @@ export function zerosZlib(n: number): Buffer {
 
 /** A PNG around image data that is already compressed (the chunks are valid; the data may lie). */
 export function pngWithData(
-  { width, height, depth, colour, interlaced = false }: { width: number; height: number; depth: number; colour: number; interlaced?: boolean },
+  {
+    width,
+    height,
+    depth,
+    colour,
+    interlaced = false,
+  }: { width: number; height: number; depth: number; colour: number; interlaced?: boolean },
   zlibData: Buffer,
 ): Buffer {
   const ihdr = Buffer.alloc(13);

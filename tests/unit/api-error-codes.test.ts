@@ -26,6 +26,7 @@ describe("the API's error codes", () => {
   });
 
   it("include every capture refusal, with the same status", () => {
-    for (const [code, status] of Object.entries(CAPTURE_ERROR_STATUS)) expect([code, ERROR_CODES[code as keyof typeof ERROR_CODES]]).toEqual([code, status]);
+    for (const [code, status] of Object.entries(CAPTURE_ERROR_STATUS))
+      expect([code, ERROR_CODES[code as keyof typeof ERROR_CODES]]).toEqual([code, status]);
   });
 });

@@ -67,9 +67,47 @@ describe("safeRedirect", () => {
 // Pieces an attacker strings together: dot segments, slashes and backslashes raw and percent-encoded
 // (once and twice), whitespace browsers drop, and characters outside ASCII.
 const PIECES = [
-  "", ".", "..", "/", "//", "\\", "%2e", "%2E", "%2e%2e", ".%2e", "%2f", "%2F", "%5c", "%5C", "%252e", "%252f",
-  "%25", "%", "\t", "\n", "\r", "%09", "%0a", "%00", " ", "@", ":", "?", "#", ";", "evil.example",
-  "desk", "market", "é", "\u2215", "\uff0f", "\u3002", "\u202e", "\ud800", "http:", "javascript:",
+  "",
+  ".",
+  "..",
+  "/",
+  "//",
+  "\\",
+  "%2e",
+  "%2E",
+  "%2e%2e",
+  ".%2e",
+  "%2f",
+  "%2F",
+  "%5c",
+  "%5C",
+  "%252e",
+  "%252f",
+  "%25",
+  "%",
+  "\t",
+  "\n",
+  "\r",
+  "%09",
+  "%0a",
+  "%00",
+  " ",
+  "@",
+  ":",
+  "?",
+  "#",
+  ";",
+  "evil.example",
+  "desk",
+  "market",
+  "é",
+  "\u2215",
+  "\uff0f",
+  "\u3002",
+  "\u202e",
+  "\ud800",
+  "http:",
+  "javascript:",
 ];
 const piece = fc.oneof(fc.constantFrom(...PIECES), fc.string({ maxLength: 4 }), fc.stringMatching(/^[a-z0-9-]{1,8}$/));
 const crafted = fc.array(piece, { maxLength: 8 }).map((parts) => parts.join(""));
@@ -79,12 +117,19 @@ describe("safeRedirect: properties", () => {
 
   it("whatever comes in, the answer is a path on this site that no browser reads as another host", () => {
     fc.assert(
-      fc.property(fc.oneof(crafted, crafted.map((s) => `/${s}`), fc.string()), (input) => {
-        const result = safeRedirect(input, "/fallback");
-        expect(new URL(result, ORIGIN).origin).toBe(ORIGIN);
-        expect(result).toMatch(/^\/(?![/\\])/);
-        expect(result).not.toMatch(/[\u0000-\u001f\u007f]/);
-      }),
+      fc.property(
+        fc.oneof(
+          crafted,
+          crafted.map((s) => `/${s}`),
+          fc.string(),
+        ),
+        (input) => {
+          const result = safeRedirect(input, "/fallback");
+          expect(new URL(result, ORIGIN).origin).toBe(ORIGIN);
+          expect(result).toMatch(/^\/(?![/\\])/);
+          expect(result).not.toMatch(/[\u0000-\u001f\u007f]/);
+        },
+      ),
       { numRuns: 5_000 },
     );
   });

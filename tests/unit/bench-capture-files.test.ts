@@ -1,7 +1,25 @@
 import { describe, expect, it } from "vitest";
-import { analyseCapture, CAPTURE_LIMITS, CaptureError, checkHeader, HEADER_BYTES, identifyCapture, inferKind } from "~/bench/captures.server";
+import {
+  analyseCapture,
+  CAPTURE_LIMITS,
+  CaptureError,
+  checkHeader,
+  HEADER_BYTES,
+  identifyCapture,
+  inferKind,
+} from "~/bench/captures.server";
 import type { CaptureConditions, SineCaptureConditions } from "@shared/bench/analysis";
-import { aLawWav, longSilentWav, mp3Bytes, mp3FrameOnly, toneSamples, toneWav, wavFromSamples, wavWithFormatCode, prng } from "../support/capture-files";
+import {
+  aLawWav,
+  longSilentWav,
+  mp3Bytes,
+  mp3FrameOnly,
+  toneSamples,
+  toneWav,
+  wavFromSamples,
+  wavWithFormatCode,
+  prng,
+} from "../support/capture-files";
 
 // Every bad file a seller might upload is refused with a code and a sentence that names the problem.
 
@@ -39,7 +57,8 @@ function refused(bytes: Uint8Array, name: string, c: CaptureConditions = sine): 
   return job;
 }
 
-const headerRefusal = (bytes: Uint8Array, name: string, c: CaptureConditions = sine) => refusal(() => checkHeader(bytes.subarray(0, HEADER_BYTES), name, c));
+const headerRefusal = (bytes: Uint8Array, name: string, c: CaptureConditions = sine) =>
+  refusal(() => checkHeader(bytes.subarray(0, HEADER_BYTES), name, c));
 
 const goodWav = () => toneWav({ sampleRate: 48_000, seconds: 0.5, f0: 1000, peak: 0.5, bits: "24", channels: 2 });
 
@@ -107,7 +126,9 @@ describe("WAV files that cannot be measured", () => {
     const right = left.map((v) => Math.max(-1, Math.min(1, v * 2.6)));
     const e = refused(wavFromSamples([left, right], 48_000, "16"), "hot.wav");
     expect(e.code).toBe("clipped");
-    expect(e.message).toMatch(/^The right channel sits at digital full scale for \d+ samples from \d+\.\d ms: the analyser input was overloaded\. Add attenuation and capture again\.$/);
+    expect(e.message).toMatch(
+      /^The right channel sits at digital full scale for \d+ samples from \d+\.\d ms: the analyser input was overloaded\. Add attenuation and capture again\.$/,
+    );
   });
 
   it("a float capture that runs past ±1.0 is clipped too", () => {
@@ -134,7 +155,9 @@ describe("WAV files that cannot be measured", () => {
     const bytes = toneWav({ sampleRate: 48_000, seconds: 0.5, f0: 20, peak: 0.5, bits: "24", channels: 1 });
     const e = refusal(() => analyseCapture(bytes, "low.wav", sine, "cap"));
     expect(e.code).toBe("too_short");
-    expect(e.message).toMatch(/^The capture is too short to separate the harmonics of a 20\.0 Hz tone: it needs at least 1\.\d\d s, it holds 0\.50 s\.$/);
+    expect(e.message).toMatch(
+      /^The capture is too short to separate the harmonics of a 20\.0 Hz tone: it needs at least 1\.\d\d s, it holds 0\.50 s\.$/,
+    );
   });
 
   it("silence: no fundamental", () => {
@@ -150,7 +173,9 @@ describe("WAV files that cannot be measured", () => {
     if (r.kind !== "sine") throw new Error("expected a sine analysis");
     expect(r.analysis.channels.map((c) => c.channel)).toEqual(["right"]);
     // The left side holds only the converter's dither: named as skipped, with the reason.
-    expect(r.analysis.skipped).toEqual([{ channel: "left", error: "no_fundamental", message: expect.stringContaining("does not stand 30 dB clear") }]);
+    expect(r.analysis.skipped).toEqual([
+      { channel: "left", error: "no_fundamental", message: expect.stringContaining("does not stand 30 dB clear") },
+    ]);
     const quiet = wavFromSamples([new Float64Array(24_000), new Float64Array(24_000)], 48_000, "32f");
     expect(refused(quiet, "quiet.wav").message).toBe("No fundamental found: both channels are silent.");
   });
@@ -161,7 +186,9 @@ describe("WAV files that cannot be measured", () => {
     const bytes = wavFromSamples([noise], 48_000, "24");
     const e = refusal(() => analyseCapture(bytes, "hiss.wav", sine, "cap"));
     expect(e.code).toBe("no_fundamental");
-    expect(e.message).toMatch(/^No fundamental found between 20 and 20000 Hz: the strongest component \(.+ Hz, .+ dBFS\) does not stand 30 dB clear of the noise\.$/);
+    expect(e.message).toMatch(
+      /^No fundamental found between 20 and 20000 Hz: the strongest component \(.+ Hz, .+ dBFS\) does not stand 30 dB clear of the noise\.$/,
+    );
   });
 
   it("a tone far from the stated fundamental", () => {

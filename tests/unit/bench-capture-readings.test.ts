@@ -11,29 +11,52 @@ const enc = (s: string) => new TextEncoder().encode(s);
 
 describe("capture analyses as bench-sheet readings", () => {
   it("a mono sine capture of the right channel: voltage, power, THD, THD+N, noise and SNR with their conditions", () => {
-    const bytes = toneWav({ sampleRate: 48_000, seconds: 1, f0: 1000, harmonics: [1, 1e-3], noiseRms: 1e-6, peak: 0.5, bits: "24", channels: 1 });
-    const r = analyseCapture(bytes, "r.wav", {
-      kind: "sine",
-      scale: { kind: "volts-per-full-scale", volts: 40, basis: "peak" },
-      loadOhm: 4,
-      weighting: "A",
-      window: "blackman-harris-7",
-      channel: "right",
-      channelsDriven: "both",
-    }, "cap-7");
+    const bytes = toneWav({
+      sampleRate: 48_000,
+      seconds: 1,
+      f0: 1000,
+      harmonics: [1, 1e-3],
+      noiseRms: 1e-6,
+      peak: 0.5,
+      bits: "24",
+      channels: 1,
+    });
+    const r = analyseCapture(
+      bytes,
+      "r.wav",
+      {
+        kind: "sine",
+        scale: { kind: "volts-per-full-scale", volts: 40, basis: "peak" },
+        loadOhm: 4,
+        weighting: "A",
+        window: "blackman-harris-7",
+        channel: "right",
+        channelsDriven: "both",
+      },
+      "cap-7",
+    );
     const byQuantity = Object.fromEntries(r.readings.map((x) => [x.quantity, x]));
     expect(Object.keys(byQuantity).sort()).toEqual(["noise", "output_power", "output_voltage", "snr", "thd", "thd_n"]);
     for (const x of r.readings) expect(x).toMatchObject({ channel: "right", basis: "measured", origin: "capture", captureId: "cap-7" });
     // 20 V peak = 14.14 V rms; into 4 Ω that is 50 W (P = Vrms²/R).
     expect(byQuantity.output_power.value).toBeCloseTo(50, 3);
     expect(byQuantity.output_power.conditions).toMatchObject({ loadOhm: 4, frequencyHz: 1000, channelsDriven: "both" });
-    expect(byQuantity.thd).toMatchObject({ value: expect.closeTo(1e-3, 6), unit: "%", conditions: { powerW: expect.closeTo(50, 3), bandwidth: { lowHz: 20, highHz: 20_000 } } });
+    expect(byQuantity.thd).toMatchObject({
+      value: expect.closeTo(1e-3, 6),
+      unit: "%",
+      conditions: { powerW: expect.closeTo(50, 3), bandwidth: { lowHz: 20, highHz: 20_000 } },
+    });
     expect(byQuantity.thd_n.conditions.weighting).toBe("A");
     expect(parseBenchSheet({ category: "power_amplifier", readings: r.readings, sweeps: [] })).toMatchObject({ ok: true });
   });
 
   it("a square-wave capture gives a rise time with the overshoot and implied bandwidth noted", () => {
-    const r = analyseCapture(enc(singlePoleSquareCsv({ f3dB: 100e3, period: 200e-6, dt: 20e-9 })), "sq.csv", { kind: "square", loadOhm: 8 }, "cap-8");
+    const r = analyseCapture(
+      enc(singlePoleSquareCsv({ f3dB: 100e3, period: 200e-6, dt: 20e-9 })),
+      "sq.csv",
+      { kind: "square", loadOhm: 8 },
+      "cap-8",
+    );
     expect(r.readings).toHaveLength(1);
     const [rise] = r.readings;
     expect(rise).toMatchObject({ quantity: "rise_time", unit: "µs", origin: "capture", conditions: { loadOhm: 8 } });
@@ -45,7 +68,12 @@ describe("capture analyses as bench-sheet readings", () => {
   it("a phono stage's sweep gives an RIAA sweep for the sheet plus deviation and −3 dB readings", () => {
     const freqs = [10, 20, 50, 100, 1000, 10_000, 20_000, 50_000];
     const rows = freqs.map((f) => `${f},${(30 + riaaPlaybackDb(f, { iecPole: true }) + (f === 20_000 ? -0.4 : 0)).toFixed(4)}`);
-    const r = analyseCapture(enc(["frequency,level", ...rows].join("\n")), "riaa.csv", { kind: "sweep", reference: "riaa", iecPole: true }, "cap-9");
+    const r = analyseCapture(
+      enc(["frequency,level", ...rows].join("\n")),
+      "riaa.csv",
+      { kind: "sweep", reference: "riaa", iecPole: true },
+      "cap-9",
+    );
     if (r.kind !== "sweep") throw new Error("expected a sweep");
     expect(r.sweep).toMatchObject({ kind: "riaa", variant: "riaa_iec", origin: "capture", captureId: "cap-9" });
     expect(r.sweep.points).toHaveLength(freqs.length);
@@ -64,7 +92,20 @@ describe("stated conditions from a multipart form", () => {
   };
 
   it("plain fields build the same conditions as JSON", () => {
-    const r = readConditions(form({ scale: "analyser", fullScaleVolts: "2", basis: "rms", attenuation: "10", loadOhm: "8", weighting: "A", bandwidthLowHz: "20", bandwidthHighHz: "80000", reference: "riaa" }), "sine");
+    const r = readConditions(
+      form({
+        scale: "analyser",
+        fullScaleVolts: "2",
+        basis: "rms",
+        attenuation: "10",
+        loadOhm: "8",
+        weighting: "A",
+        bandwidthLowHz: "20",
+        bandwidthHighHz: "80000",
+        reference: "riaa",
+      }),
+      "sine",
+    );
     expect(r).toEqual({
       ok: true,
       conditions: {
@@ -79,7 +120,12 @@ describe("stated conditions from a multipart form", () => {
   });
 
   it("names each problem with its path", () => {
-    const r = readConditions(form({ conditions: JSON.stringify({ kind: "sine", scale: { kind: "volts-per-full-scale", volts: -1, basis: "peak" }, loadOhm: "eight" }) }), null);
+    const r = readConditions(
+      form({
+        conditions: JSON.stringify({ kind: "sine", scale: { kind: "volts-per-full-scale", volts: -1, basis: "peak" }, loadOhm: "eight" }),
+      }),
+      null,
+    );
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.issues.map((i) => i.path).sort()).toEqual(["loadOhm", "scale.volts"]);
@@ -88,6 +134,9 @@ describe("stated conditions from a multipart form", () => {
   it("asks for the kind when the file cannot tell, and refuses JSON that does not parse", () => {
     const noKind = readConditions(form({ levelUnit: "dB" }), null);
     expect(noKind).toMatchObject({ ok: false, issues: [{ path: "kind", message: "required" }] });
-    expect(readConditions(form({ conditions: "{kind: sine" }), "sine")).toMatchObject({ ok: false, message: "The conditions field is not valid JSON." });
+    expect(readConditions(form({ conditions: "{kind: sine" }), "sine")).toMatchObject({
+      ok: false,
+      message: "The conditions field is not valid JSON.",
+    });
   });
 });

@@ -4,7 +4,13 @@ import { riaaPlaybackDb } from "@shared/bench/curves";
 
 type Extra = Partial<Omit<Reading, "quantity" | "value" | "unit" | "conditions">>;
 
-export function measured(quantity: Reading["quantity"], value: number, unit: string, conditions: Conditions = {}, extra: Extra = {}): Reading {
+export function measured(
+  quantity: Reading["quantity"],
+  value: number,
+  unit: string,
+  conditions: Conditions = {},
+  extra: Extra = {},
+): Reading {
   return { quantity, value, unit, basis: "measured", origin: "typed", conditions, ...extra };
 }
 
@@ -25,7 +31,12 @@ export function outcomes(s: BenchSheet, ruleId: string) {
   return resultsFor(checkBenchSheet(s), ruleId).map((r) => r.outcome);
 }
 
-export const full8 = { loadOhm: 8, frequencyHz: 1000, atDistortion: { ratio: 0.001, measure: "thd" as const }, channelsDriven: "both" as const };
+export const full8 = {
+  loadOhm: 8,
+  frequencyHz: 1000,
+  atDistortion: { ratio: 0.001, measure: "thd" as const },
+  channelsDriven: "both" as const,
+};
 export const full4 = { ...full8, loadOhm: 4 };
 
 /** A phono stage's response sweep (1/6-octave, 20 Hz–20 kHz) following RIAA playback, with optional errors added. */

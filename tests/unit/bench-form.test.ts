@@ -10,7 +10,17 @@ const row = (rest: Parameters<typeof blankRow>[2]) => blankRow("k", "measured", 
 
 describe("a typed reading", () => {
   it('reads "112 W" into 8 Ω at 1 kHz, 0.1 % THD, both channels driven', () => {
-    const r = readRow(row({ quantity: "output_power", channel: "left", value: "112 W", load: "8 Ω", frequency: "1 kHz", limit: "0.1 % THD", driven: "both" }));
+    const r = readRow(
+      row({
+        quantity: "output_power",
+        channel: "left",
+        value: "112 W",
+        load: "8 Ω",
+        frequency: "1 kHz",
+        limit: "0.1 % THD",
+        driven: "both",
+      }),
+    );
     expect(r.errors).toEqual({});
     expect(r.reading).toMatchObject({
       quantity: "output_power",
@@ -33,14 +43,17 @@ describe("a typed reading", () => {
   });
 
   it('reads "0.03 %" as a ratio of 0.0003 and shows it in dB too (20·log10 0.0003 = −70.5 dB)', () => {
-    const r = readRow(row({ quantity: "thd", value: "0.03 %", level: "60 W", load: "8 Ω", frequency: "1 kHz", bandwidth: "20 Hz – 20 kHz" }));
+    const r = readRow(
+      row({ quantity: "thd", value: "0.03 %", level: "60 W", load: "8 Ω", frequency: "1 kHz", bandwidth: "20 Hz – 20 kHz" }),
+    );
     expect(r.reading!.value).toBeCloseTo(0.0003, 15);
     expect(r.reading!.conditions).toMatchObject({ powerW: 60, bandwidth: { lowHz: 20, highHz: 20_000 } });
     expect(r.shown.value).toBe("0.030 % (-70.5 dB)");
   });
 
   it('reads "17 µs" and "17 us" as 17 microseconds', () => {
-    for (const text of ["17 µs", "17 us"]) expect(readRow(row({ quantity: "rise_time", value: text })).reading!.value).toBeCloseTo(17e-6, 18);
+    for (const text of ["17 µs", "17 us"])
+      expect(readRow(row({ quantity: "rise_time", value: text })).reading!.value).toBeCloseTo(17e-6, 18);
   });
 
   it('reads "28.3 Vrms" and a level of "2.83 V"', () => {
@@ -50,7 +63,10 @@ describe("a typed reading", () => {
   });
 
   it("turns dB(A) into A-weighting and ±42 V rails into a split supply", () => {
-    expect(readRow(row({ quantity: "snr", value: "98 dB(A)", level: "1 W" })).reading!.conditions).toMatchObject({ weighting: "A", powerW: 1 });
+    expect(readRow(row({ quantity: "snr", value: "98 dB(A)", level: "1 W" })).reading!.conditions).toMatchObject({
+      weighting: "A",
+      powerW: 1,
+    });
     expect(readRow(row({ quantity: "rail_voltage", value: "±42 V" })).reading!.conditions).toEqual({ supply: "split" });
   });
 
@@ -68,8 +84,22 @@ describe("a typed reading", () => {
   });
 
   it("keeps rated and measured apart", () => {
-    const rated = readRow(blankRow("r", "rated", { quantity: "output_power", value: "2 × 60 W", load: "8 Ω", range: "20 Hz – 20 kHz", limit: "0.1 % THD", driven: "both" }));
-    expect(rated.reading).toMatchObject({ basis: "rated", value: 60, channel: "both", conditions: { frequencyRange: { lowHz: 20, highHz: 20_000 } } });
+    const rated = readRow(
+      blankRow("r", "rated", {
+        quantity: "output_power",
+        value: "2 × 60 W",
+        load: "8 Ω",
+        range: "20 Hz – 20 kHz",
+        limit: "0.1 % THD",
+        driven: "both",
+      }),
+    );
+    expect(rated.reading).toMatchObject({
+      basis: "rated",
+      value: 60,
+      channel: "both",
+      conditions: { frequencyRange: { lowHz: 20, highHz: 20_000 } },
+    });
   });
 });
 
@@ -103,7 +133,8 @@ describe("the whole sheet", () => {
       fields.set(rowField(i, "channel"), r.channel);
       fields.set(rowField(i, "value"), r.value);
       fields.set(rowField(i, "note"), r.note);
-      for (const f of ["load", "frequency", "range", "level", "limit", "bandwidth", "weighting", "driven", "supply"] as const) fields.set(rowField(i, f), r[f]);
+      for (const f of ["load", "frequency", "range", "level", "limit", "bandwidth", "weighting", "driven", "supply"] as const)
+        fields.set(rowField(i, f), r[f]);
       if (r.keep) fields.set(rowField(i, "keep"), JSON.stringify(r.keep));
       if (r.capture) fields.set(rowField(i, "capture"), JSON.stringify(r.capture));
     });
@@ -111,7 +142,9 @@ describe("the whole sheet", () => {
     expect(posted.rows).toHaveLength(state.rows.length - 1);
     const read = readSheetState(posted);
     expect(read.sheet!.readings).toHaveLength(sheet.readings.length - 1);
-    expect(sheetFingerprint({ ...read.sheet!, readings: read.sheet!.readings })).toBe(sheetFingerprint({ ...sheet, readings: sheet.readings.slice(1) }));
+    expect(sheetFingerprint({ ...read.sheet!, readings: read.sheet!.readings })).toBe(
+      sheetFingerprint({ ...sheet, readings: sheet.readings.slice(1) }),
+    );
   });
 
   it("points a rule's references back at the rows it compared", () => {

@@ -21,7 +21,11 @@ describe("speaker-impedance-minimum", () => {
 describe("speaker-sensitivity-reference", () => {
   const z4 = rated("nominal_impedance", 4, "Ω");
   it("accepts 2.83 V or 1 W at 1 m, from the unit or the conditions", () => {
-    const s = sheet("loudspeaker", [z4, measured("sensitivity", 89, "dB/2.83 V/1 m"), measured("sensitivity", 86, "dB SPL", { powerW: 1, distanceM: 1 })]);
+    const s = sheet("loudspeaker", [
+      z4,
+      measured("sensitivity", 89, "dB/2.83 V/1 m"),
+      measured("sensitivity", 86, "dB SPL", { powerW: 1, distanceM: 1 }),
+    ]);
     expect(outcomes(s, "speaker-sensitivity-reference")).toEqual(["consistent", "consistent", "consistent"]);
   });
   it("questions two figures that disagree by more than 10·log10(8/Z)", () => {
@@ -38,7 +42,8 @@ describe("speaker-sensitivity-reference", () => {
 });
 
 describe("riaa-deviation", () => {
-  const phono = (sweeps: ReturnType<typeof riaaSweep>[], readings: Parameters<typeof sheet>[1] = []) => sheet("phono_stage", readings, { sweeps });
+  const phono = (sweeps: ReturnType<typeof riaaSweep>[], readings: Parameters<typeof sheet>[1] = []) =>
+    sheet("phono_stage", readings, { sweeps });
   it("finds a faithful stage consistent, with its worst deviation and where", () => {
     const v = checkBenchSheet(phono([riaaSweep({ offsetDb: 35 })]));
     const [r] = resultsFor(v, "riaa-deviation");

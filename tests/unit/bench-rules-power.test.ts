@@ -8,11 +8,17 @@ const vpk = (v: number) => v / Math.SQRT2;
 
 describe("power-voltage-load", () => {
   it("agrees when the rms voltage squared over the load gives the power", () => {
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_voltage", 28.3, "Vrms", full8)), "power-voltage-load")).toEqual(["consistent"]);
+    expect(
+      outcomes(amp(measured("output_power", 100, "W", full8), measured("output_voltage", 28.3, "Vrms", full8)), "power-voltage-load"),
+    ).toEqual(["consistent"]);
   });
   it("accepts peak and peak-to-peak voltages converted for a sine", () => {
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_voltage", vpk(40), "Vpk", full8)), "power-voltage-load")).toEqual(["consistent"]);
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_voltage", vpp(80), "Vpp", full8)), "power-voltage-load")).toEqual(["consistent"]);
+    expect(
+      outcomes(amp(measured("output_power", 100, "W", full8), measured("output_voltage", vpk(40), "Vpk", full8)), "power-voltage-load"),
+    ).toEqual(["consistent"]);
+    expect(
+      outcomes(amp(measured("output_power", 100, "W", full8), measured("output_voltage", vpp(80), "Vpp", full8)), "power-voltage-load"),
+    ).toEqual(["consistent"]);
   });
   it("calls a factor-of-two mismatch implausible and suggests a peak read as rms", () => {
     // 40 V typed as rms into 8 Ω is 200 W, not 100 W.
@@ -23,12 +29,20 @@ describe("power-voltage-load", () => {
     expect(r.compared.find((f) => f.label === "power from voltage and load")?.value).toBeCloseTo(200, 9);
   });
   it("calls a 10 % mismatch questionable", () => {
-    expect(outcomes(amp(measured("output_power", 110, "W", full8), measured("output_voltage", 28.28, "V", full8)), "power-voltage-load")).toEqual(["questionable"]);
+    expect(
+      outcomes(amp(measured("output_power", 110, "W", full8), measured("output_voltage", 28.28, "V", full8)), "power-voltage-load"),
+    ).toEqual(["questionable"]);
   });
   it("does not pair a capture taken below full power with a typed full-power reading", () => {
     // A 1 kHz capture at 23 V rms into 8 Ω (66 W) says nothing about the 100 W clipping figure.
     const captured = measured("output_voltage", 23, "V", { loadOhm: 8, frequencyHz: 1000 }, { origin: "capture", captureId: "cap-1" });
-    const capturedPower = measured("output_power", 23 ** 2 / 8, "W", { loadOhm: 8, frequencyHz: 1000 }, { origin: "capture", captureId: "cap-1" });
+    const capturedPower = measured(
+      "output_power",
+      23 ** 2 / 8,
+      "W",
+      { loadOhm: 8, frequencyHz: 1000 },
+      { origin: "capture", captureId: "cap-1" },
+    );
     const v = checkBenchSheet(amp(measured("output_power", 100, "W", full8), captured, capturedPower));
     const results = resultsFor(v, "power-voltage-load");
     expect(results.map((r) => r.outcome)).toEqual(["consistent"]);
@@ -44,14 +58,22 @@ describe("power-voltage-load", () => {
 
 describe("half-load-power", () => {
   it("accepts less than double into half the load", () => {
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 160, "W", full4)), "half-load-power")).toEqual(["consistent"]);
+    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 160, "W", full4)), "half-load-power")).toEqual([
+      "consistent",
+    ]);
   });
   it("accepts exactly double (an ideal voltage source)", () => {
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 200, "W", full4)), "half-load-power")).toEqual(["consistent"]);
+    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 200, "W", full4)), "half-load-power")).toEqual([
+      "consistent",
+    ]);
   });
   it("questions a little over double and rejects three times", () => {
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 220, "W", full4)), "half-load-power")).toEqual(["questionable"]);
-    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 300, "W", full4)), "half-load-power")).toEqual(["implausible"]);
+    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 220, "W", full4)), "half-load-power")).toEqual([
+      "questionable",
+    ]);
+    expect(outcomes(amp(measured("output_power", 100, "W", full8), measured("output_power", 300, "W", full4)), "half-load-power")).toEqual([
+      "implausible",
+    ]);
   });
   it("pairs left with left and right with right", () => {
     const s = amp(
@@ -78,7 +100,9 @@ describe("peak-within-rails", () => {
   });
   it("halves a single rail and doubles a bridged output", () => {
     expect(outcomes(amp(measured("output_power", 100, "W", full8), rails(70, "single")), "peak-within-rails")).toEqual(["implausible"]);
-    expect(outcomes({ ...amp(measured("output_power", 100, "W", full8), rails(25)), bridged: true }, "peak-within-rails")).toEqual(["consistent"]);
+    expect(outcomes({ ...amp(measured("output_power", 100, "W", full8), rails(25)), bridged: true }, "peak-within-rails")).toEqual([
+      "consistent",
+    ]);
   });
   it("questions a peak just over the rails (within meter tolerance)", () => {
     expect(outcomes(amp(measured("output_power", 100, "W", full8), rails(39)), "peak-within-rails")).toEqual(["questionable"]);
@@ -95,7 +119,13 @@ describe("measured-vs-rated-power", () => {
     expect(v.shortfalls).toEqual([expect.objectContaining({ ruleId: "measured-vs-rated-power", percent: 12 })]);
   });
   it("uses the weaker channel", () => {
-    const v = checkBenchSheet(amp(rating, measured("output_power", 104, "W", full8, { channel: "left" }), measured("output_power", 95, "W", full8, { channel: "right" })));
+    const v = checkBenchSheet(
+      amp(
+        rating,
+        measured("output_power", 104, "W", full8, { channel: "left" }),
+        measured("output_power", 95, "W", full8, { channel: "right" }),
+      ),
+    );
     expect(resultsFor(v, "measured-vs-rated-power")[0].detail).toMatch(/^Right output power 95 W/);
   });
   it("questions a measurement far above the rating", () => {

@@ -8,16 +8,27 @@ const bw = { lowHz: 20, highHz: 20000 };
 
 describe("thdn-not-below-thd", () => {
   it("accepts THD+N above THD at the same conditions", () => {
-    expect(outcomes(amp(measured("thd", 1e-4, "%", at60), measured("thd_n", 2e-4, "%", { ...at60, bandwidth: bw })), "thdn-not-below-thd")).toEqual(["consistent"]);
+    expect(
+      outcomes(amp(measured("thd", 1e-4, "%", at60), measured("thd_n", 2e-4, "%", { ...at60, bandwidth: bw })), "thdn-not-below-thd"),
+    ).toEqual(["consistent"]);
   });
   it("rejects THD+N well below THD", () => {
-    expect(outcomes(amp(measured("thd", 1e-3, "%", at60), measured("thd_n", 5e-4, "%", { ...at60, bandwidth: bw })), "thdn-not-below-thd")).toEqual(["implausible"]);
+    expect(
+      outcomes(amp(measured("thd", 1e-3, "%", at60), measured("thd_n", 5e-4, "%", { ...at60, bandwidth: bw })), "thdn-not-below-thd"),
+    ).toEqual(["implausible"]);
   });
   it("questions THD+N a hair below THD", () => {
-    expect(outcomes(amp(measured("thd", 1e-3, "%", at60), measured("thd_n", 0.95e-3, "%", { ...at60, bandwidth: bw })), "thdn-not-below-thd")).toEqual(["questionable"]);
+    expect(
+      outcomes(amp(measured("thd", 1e-3, "%", at60), measured("thd_n", 0.95e-3, "%", { ...at60, bandwidth: bw })), "thdn-not-below-thd"),
+    ).toEqual(["questionable"]);
   });
   it("does not compare figures taken at different levels", () => {
-    expect(outcomes(amp(measured("thd", 1e-3, "%", at60), measured("thd_n", 1e-4, "%", { ...at60, powerW: 1, bandwidth: bw })), "thdn-not-below-thd")).toEqual([]);
+    expect(
+      outcomes(
+        amp(measured("thd", 1e-3, "%", at60), measured("thd_n", 1e-4, "%", { ...at60, powerW: 1, bandwidth: bw })),
+        "thdn-not-below-thd",
+      ),
+    ).toEqual([]);
   });
 });
 
@@ -32,7 +43,12 @@ describe("analyser-resolution", () => {
     expect(outcomes(amp(measured("snr", 140, "dB", { powerW: 60, weighting: "A" })), "analyser-resolution")).toEqual(["questionable"]);
   });
   it("accepts ordinary figures", () => {
-    expect(outcomes(amp(measured("thd_n", 2e-4, "%", { ...at60, bandwidth: bw }), measured("snr", 100, "dB", { powerW: 60, weighting: "A" })), "analyser-resolution")).toEqual(["consistent"]);
+    expect(
+      outcomes(
+        amp(measured("thd_n", 2e-4, "%", { ...at60, bandwidth: bw }), measured("snr", 100, "dB", { powerW: 60, weighting: "A" })),
+        "analyser-resolution",
+      ),
+    ).toEqual(["consistent"]);
   });
 });
 
@@ -52,11 +68,17 @@ describe("distortion-conditions and noise-conditions", () => {
 
 describe("rise-time-bandwidth", () => {
   it("accepts 3.5 µs with a 100 kHz −3 dB point", () => {
-    expect(outcomes(amp(measured("rise_time", 3.5e-6, "µs"), measured("f3db_high", 100e3, "kHz")), "rise-time-bandwidth")).toEqual(["consistent"]);
+    expect(outcomes(amp(measured("rise_time", 3.5e-6, "µs"), measured("f3db_high", 100e3, "kHz")), "rise-time-bandwidth")).toEqual([
+      "consistent",
+    ]);
   });
   it("questions a factor of 1.7 and rejects a factor of 5", () => {
-    expect(outcomes(amp(measured("rise_time", 3.5e-6, "µs"), measured("f3db_high", 170e3, "kHz")), "rise-time-bandwidth")).toEqual(["questionable"]);
-    expect(outcomes(amp(measured("rise_time", 3.5e-6, "µs"), measured("f3db_high", 500e3, "kHz")), "rise-time-bandwidth")).toEqual(["implausible"]);
+    expect(outcomes(amp(measured("rise_time", 3.5e-6, "µs"), measured("f3db_high", 170e3, "kHz")), "rise-time-bandwidth")).toEqual([
+      "questionable",
+    ]);
+    expect(outcomes(amp(measured("rise_time", 3.5e-6, "µs"), measured("f3db_high", 500e3, "kHz")), "rise-time-bandwidth")).toEqual([
+      "implausible",
+    ]);
   });
 });
 
@@ -80,10 +102,20 @@ describe("slew-rate-full-power", () => {
 
 describe("damping-output-impedance", () => {
   it("accepts DF 160 with 0.05 Ω", () => {
-    expect(outcomes(amp(measured("damping_factor", 160, "", { loadOhm: 8 }), measured("output_impedance", 0.05, "Ω")), "damping-output-impedance")).toEqual(["consistent"]);
+    expect(
+      outcomes(
+        amp(measured("damping_factor", 160, "", { loadOhm: 8 }), measured("output_impedance", 0.05, "Ω")),
+        "damping-output-impedance",
+      ),
+    ).toEqual(["consistent"]);
   });
   it("rejects DF 800 with 0.05 Ω", () => {
-    expect(outcomes(amp(measured("damping_factor", 800, "", { loadOhm: 8 }), measured("output_impedance", 0.05, "Ω")), "damping-output-impedance")).toEqual(["implausible"]);
+    expect(
+      outcomes(
+        amp(measured("damping_factor", 800, "", { loadOhm: 8 }), measured("output_impedance", 0.05, "Ω")),
+        "damping-output-impedance",
+      ),
+    ).toEqual(["implausible"]);
   });
   it("derives the missing one", () => {
     const v = checkBenchSheet(amp(measured("damping_factor", 160, "")));
@@ -95,14 +127,20 @@ describe("channel-balance", () => {
   const L = { channel: "left" as const };
   const R = { channel: "right" as const };
   it("accepts channels within 0.5 dB", () => {
-    expect(outcomes(amp(measured("output_power", 66, "W", full8, L), measured("output_power", 64, "W", full8, R)), "channel-balance")).toEqual(["consistent"]);
+    expect(
+      outcomes(amp(measured("output_power", 66, "W", full8, L), measured("output_power", 64, "W", full8, R)), "channel-balance"),
+    ).toEqual(["consistent"]);
   });
   it("questions 2 dB between channels", () => {
     // 10·log10(100/63) = 2.0 dB
-    expect(outcomes(amp(measured("output_power", 100, "W", full8, L), measured("output_power", 63, "W", full8, R)), "channel-balance")).toEqual(["questionable"]);
+    expect(
+      outcomes(amp(measured("output_power", 100, "W", full8, L), measured("output_power", 63, "W", full8, R)), "channel-balance"),
+    ).toEqual(["questionable"]);
   });
   it("questions distortion ten times higher in one channel", () => {
-    expect(outcomes(amp(measured("thd", 2e-4, "%", at60, L), measured("thd", 2e-3, "%", at60, R)), "channel-balance")).toEqual(["questionable"]);
+    expect(outcomes(amp(measured("thd", 2e-4, "%", at60, L), measured("thd", 2e-3, "%", at60, R)), "channel-balance")).toEqual([
+      "questionable",
+    ]);
   });
   it("reads a stated balance figure", () => {
     expect(outcomes(amp(measured("channel_balance", 0.2, "dB")), "channel-balance")).toEqual(["consistent"]);
@@ -112,6 +150,8 @@ describe("channel-balance", () => {
     expect(outcomes(amp(measured("output_power", 66, "W", full8, { channel: "both" })), "channel-balance")).toEqual(["missing"]);
   });
   it("skips a mono block", () => {
-    expect(outcomes({ ...sheet("power_amplifier", [measured("output_power", 66, "W", full8)]), channelCount: 1 }, "channel-balance")).toEqual([]);
+    expect(
+      outcomes({ ...sheet("power_amplifier", [measured("output_power", 66, "W", full8)]), channelCount: 1 }, "channel-balance"),
+    ).toEqual([]);
   });
 });

@@ -81,7 +81,10 @@ describe("bench sheet schema", () => {
   });
 
   it("allows a signed speed error but not a negative THD", () => {
-    const tt = { category: "turntable", readings: [{ quantity: "speed_error", value: -0.002, unit: "%", basis: "measured", conditions: { speedRpm: 33.33 } }] };
+    const tt = {
+      category: "turntable",
+      readings: [{ quantity: "speed_error", value: -0.002, unit: "%", basis: "measured", conditions: { speedRpm: 33.33 } }],
+    };
     expect(parseBenchSheet(tt).ok).toBe(true);
     const s = base();
     s.readings[9].value = -0.0001;
@@ -89,10 +92,27 @@ describe("bench sheet schema", () => {
   });
 
   it("wants sweep frequencies rising and RIAA sweeps only where there is a phono input", () => {
-    const points = [{ frequencyHz: 100, levelDb: 0 }, { frequencyHz: 50, levelDb: 0 }, { frequencyHz: 1000, levelDb: 0 }];
+    const points = [
+      { frequencyHz: 100, levelDb: 0 },
+      { frequencyHz: 50, levelDb: 0 },
+      { frequencyHz: 1000, levelDb: 0 },
+    ];
     const amp = { ...base(), sweeps: [{ kind: "flat", points }] };
     expect(issuesOf(amp).map((i) => i.path)).toContain("sweeps.0.points.1.frequencyHz");
-    const speaker = { category: "loudspeaker", readings: [], sweeps: [{ kind: "riaa", points: [{ frequencyHz: 20, levelDb: 0 }, { frequencyHz: 1000, levelDb: 0 }, { frequencyHz: 20000, levelDb: 0 }] }] };
+    const speaker = {
+      category: "loudspeaker",
+      readings: [],
+      sweeps: [
+        {
+          kind: "riaa",
+          points: [
+            { frequencyHz: 20, levelDb: 0 },
+            { frequencyHz: 1000, levelDb: 0 },
+            { frequencyHz: 20000, levelDb: 0 },
+          ],
+        },
+      ],
+    };
     expect(issuesOf(speaker).map((i) => i.path)).toContain("sweeps.0.kind");
   });
 

@@ -48,7 +48,9 @@ describe("checkBenchSheet", () => {
   });
 
   it("does not verify a sheet of maker's figures only", () => {
-    const v = checkBenchSheet(sheet("integrated_amplifier", [rated("output_power", 60, "W", full8), rated("thd", 0.0005, "%", { powerW: 60 })]));
+    const v = checkBenchSheet(
+      sheet("integrated_amplifier", [rated("output_power", 60, "W", full8), rated("thd", 0.0005, "%", { powerW: 60 })]),
+    );
     expect(v.benchVerified).toBe(false);
     const req = v.results.filter((r) => r.ruleId === "required-readings");
     expect(req.map((r) => r.outcome)).toEqual(["missing", "missing", "missing", "missing"]);
@@ -122,7 +124,11 @@ describe("keyFigures and sheetFilterFacets", () => {
   it("gives the listing's headline figures with units and conditions, weaker channel first", () => {
     const figs = keyFigures(exampleIntegratedAmplifierSheet());
     expect(figs.map((f) => f.key)).toEqual(["power8", "power4", "distortion", "snr", "bandwidthHigh", "dampingFactor"]);
-    expect(figs[0]).toMatchObject({ display: "65 W", channel: "right", conditions: expect.stringMatching(/^into 8 Ω, 1 kHz, 0\.1 % THD, both channels driven/) });
+    expect(figs[0]).toMatchObject({
+      display: "65 W",
+      channel: "right",
+      conditions: expect.stringMatching(/^into 8 Ω, 1 kHz, 0\.1 % THD, both channels driven/),
+    });
     expect(figs[2]).toMatchObject({ label: "THD+N at rated power", display: "0.021 %", fromCapture: true });
   });
 

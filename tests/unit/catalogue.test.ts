@@ -93,7 +93,11 @@ describe("listing state from the bench", () => {
   });
 
   it("goes live with the mark when every check passes and is held when one is implausible", () => {
-    expect(publishState(checkBenchSheet(exampleIntegratedAmplifierSheet()))).toEqual({ status: "live", benchVerified: true, heldReason: null });
+    expect(publishState(checkBenchSheet(exampleIntegratedAmplifierSheet()))).toEqual({
+      status: "live",
+      benchVerified: true,
+      heldReason: null,
+    });
     const held = publishState(checkBenchSheet(doctoredIntegratedAmplifierSheet()));
     expect(held.status).toBe("held");
     expect(held.benchVerified).toBe(false);

@@ -81,7 +81,9 @@ describe("readJson", () => {
 
 describe("readForm", () => {
   it("reads urlencoded and multipart forms alike", async () => {
-    const urlencoded = await readForm(new Request(URL_, { method: "POST", body: new URLSearchParams({ email: "a@example.test", note: "x\ny" }) }));
+    const urlencoded = await readForm(
+      new Request(URL_, { method: "POST", body: new URLSearchParams({ email: "a@example.test", note: "x\ny" }) }),
+    );
     expect(Object.fromEntries(urlencoded)).toEqual({ email: "a@example.test", note: "x\ny" });
     const form = new FormData();
     form.append("email", "a@example.test");
@@ -97,12 +99,21 @@ describe("readForm", () => {
     expect(asJson.message).toBe("A form is sent as application/x-www-form-urlencoded or multipart/form-data, not application/json.");
     expect((await refusal(() => readForm(json("email=a", { "Content-Type": "text/plain" })))).status).toBe(415);
     const noBoundary = await refusal(() => readForm(json("--x\r\n", { "Content-Type": "multipart/form-data" })));
-    expect(noBoundary.toJSON()).toEqual({ error: "bad_request", message: "The multipart body cannot be read: Multipart: Boundary not found." });
-    const cut = await refusal(() => readForm(json('--x\r\nContent-Disposition: form-data; name="email"\r\n\r\na@b', { "Content-Type": "multipart/form-data; boundary=x" })));
+    expect(noBoundary.toJSON()).toEqual({
+      error: "bad_request",
+      message: "The multipart body cannot be read: Multipart: Boundary not found.",
+    });
+    const cut = await refusal(() =>
+      readForm(
+        json('--x\r\nContent-Disposition: form-data; name="email"\r\n\r\na@b', { "Content-Type": "multipart/form-data; boundary=x" }),
+      ),
+    );
     expect(cut.toJSON()).toEqual({ error: "bad_request", message: "The multipart body is broken: Unexpected end of form." });
     const withFile = new FormData();
     withFile.append("photo", new Blob(["x"]), "x.jpg");
-    expect((await refusal(() => readForm(new Request(URL_, { method: "POST", body: withFile })))).message).toBe("This form takes no files.");
+    expect((await refusal(() => readForm(new Request(URL_, { method: "POST", body: withFile })))).message).toBe(
+      "This form takes no files.",
+    );
   });
 
   it("stops a chunked form at its limit", async () => {
@@ -113,7 +124,9 @@ describe("readForm", () => {
   });
 
   it("names a field holding a NUL character", async () => {
-    const e = await refusal(() => readForm(new Request(URL_, { method: "POST", body: new URLSearchParams({ collectionNote: "by\u0000appointment" }) })));
+    const e = await refusal(() =>
+      readForm(new Request(URL_, { method: "POST", body: new URLSearchParams({ collectionNote: "by\u0000appointment" }) })),
+    );
     expect(e.issues).toEqual([{ path: "collectionNote", message: expect.stringContaining("NUL character") }]);
   });
 
@@ -122,7 +135,11 @@ describe("readForm", () => {
       await readPageForm(json("{}"));
       throw new Error("expected a refusal");
     } catch (thrown) {
-      expect(thrown).toMatchObject({ type: "DataWithResponseInit", init: { status: 415 }, data: { error: "unsupported_media_type", message: expect.any(String) } });
+      expect(thrown).toMatchObject({
+        type: "DataWithResponseInit",
+        init: { status: 415 },
+        data: { error: "unsupported_media_type", message: expect.any(String) },
+      });
     }
   });
 });
@@ -140,7 +157,9 @@ describe("readMultipart", () => {
       ];
       for (const body of bodies) {
         const request = new Request(URL_, { method: "POST", body, headers: { "Content-Type": "multipart/form-data; boundary=x" } });
-        const e = await refusal(() => readMultipart(request, { maxBytes: MiB, maxFileBytes: MiB, maxFiles: 1, onFile: (f) => collect(f.stream) }));
+        const e = await refusal(() =>
+          readMultipart(request, { maxBytes: MiB, maxFileBytes: MiB, maxFiles: 1, onFile: (f) => collect(f.stream) }),
+        );
         expect(e.toJSON()).toEqual({ error: "bad_request", message: "The multipart body is broken: Malformed part header." });
       }
       await new Promise((r) => setTimeout(r, 100));
@@ -149,7 +168,6 @@ describe("readMultipart", () => {
     }
     expect(unheard).toEqual([]);
   });
-
 
   const frame = multipartFrame("file", "big.csv", "text/csv");
   const collect = async (stream: AsyncIterable<Uint8Array>) => {

@@ -1,8 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { commonSecurityHeaders, contentSecurityPolicy, newNonce } from "~/http/security-headers.server";
 
-const directives = (policy: string) =>
-  Object.fromEntries(policy.split("; ").map((d) => [d.split(" ")[0], d.split(" ").slice(1)]));
+const directives = (policy: string) => Object.fromEntries(policy.split("; ").map((d) => [d.split(" ")[0], d.split(" ").slice(1)]));
 
 describe("security headers", () => {
   it("sends HSTS only when the public address is https", () => {

@@ -1,5 +1,15 @@
 import { describe, expect, it } from "vitest";
-import { CURRENCIES, CURRENCY_CODES, eraInputValue, parseEra, parseLength, parsePrice, parseWeight, priceInputValue, weightInputValue } from "@shared/listing-input";
+import {
+  CURRENCIES,
+  CURRENCY_CODES,
+  eraInputValue,
+  parseEra,
+  parseLength,
+  parsePrice,
+  parseWeight,
+  priceInputValue,
+  weightInputValue,
+} from "@shared/listing-input";
 import { ItemPatchSchema, itemFormValues, readConditionForm, readItemForm } from "@shared/listing-draft";
 import { parseLogValue, readRestorationForm } from "@shared/restoration-form";
 import { publishChecklist, type ChecklistInput } from "@shared/publish-checklist";
@@ -54,7 +64,8 @@ describe("prices typed by sellers, to integer minor units", () => {
   });
 
   it("shows a stored price back the way it reads again", () => {
-    for (const minor of [125_000, 125_050, 99, 1]) expect(parsePrice(priceInputValue(minor, "EUR"), "EUR")).toEqual({ ok: true, value: minor });
+    for (const minor of [125_000, 125_050, 99, 1])
+      expect(parsePrice(priceInputValue(minor, "EUR"), "EUR")).toEqual({ ok: true, value: minor });
     expect(priceInputValue(148_000, "JPY")).toBe("148000");
   });
 });
@@ -80,7 +91,11 @@ describe("year or era", () => {
   });
 
   it("round-trips through the input", () => {
-    for (const [a, b] of [[1978, 1978], [1975, 1979], [1980, null]] as const) {
+    for (const [a, b] of [
+      [1978, 1978],
+      [1975, 1979],
+      [1980, null],
+    ] as const) {
       const back = parseEra(eraInputValue(a, b), NOW);
       expect(back).toEqual({ ok: true, value: { from: a, to: b } });
     }
@@ -153,7 +168,9 @@ describe("the item step form", () => {
   });
 
   it("names each bad field with its own message", () => {
-    const r = readItemForm(form({ ...filled, price: "lots", era: "1981-1975", mainsVoltageV: "400", country: "XX", "freight.nearby": "abc" }));
+    const r = readItemForm(
+      form({ ...filled, price: "lots", era: "1981-1975", mainsVoltageV: "400", country: "XX", "freight.nearby": "abc" }),
+    );
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(Object.keys(r.errors).sort()).toEqual(["country", "era", "freight.nearby", "mainsVoltageV", "price"]);
@@ -168,14 +185,24 @@ describe("the item step form", () => {
   it("fills the inputs from stored values and reads them back unchanged", () => {
     const r = readItemForm(form(filled));
     if (!r.ok) throw new Error("did not read");
-    const again = readItemForm(form(Object.fromEntries(Object.entries(itemFormValues(r.value)).filter(([, v]) => v !== false).map(([k, v]) => [k, v === true ? "on" : String(v)]))));
+    const again = readItemForm(
+      form(
+        Object.fromEntries(
+          Object.entries(itemFormValues(r.value))
+            .filter(([, v]) => v !== false)
+            .map(([k, v]) => [k, v === true ? "on" : String(v)]),
+        ),
+      ),
+    );
     expect(again).toEqual(r);
   });
 });
 
 describe("the condition step form", () => {
   it("takes our words only", () => {
-    expect(readConditionForm(form({ cosmeticGrade: "lived_in", serviceState: "needs_work", conditionNote: "Right channel hums." }))).toEqual({
+    expect(
+      readConditionForm(form({ cosmeticGrade: "lived_in", serviceState: "needs_work", conditionNote: "Right channel hums." })),
+    ).toEqual({
       ok: true,
       value: { cosmeticGrade: "lived_in", serviceState: "needs_work", conditionNote: "Right channel hums." },
     });
@@ -218,10 +245,16 @@ describe("a restoration log entry", () => {
   });
 
   it("asks for the unit and the conditions of a reading, and a part's name", () => {
-    const r = readRestorationForm(form({ doneOn: "2025-03-02", work: "x", "parts.0.quantity": "2", "after.0.quantity": "Bias", "after.0.value": "25" }));
+    const r = readRestorationForm(
+      form({ doneOn: "2025-03-02", work: "x", "parts.0.quantity": "2", "after.0.quantity": "Bias", "after.0.value": "25" }),
+    );
     expect(r.ok).toBe(false);
     if (r.ok) return;
-    expect(r.errors).toMatchObject({ "parts.0.part": "Name the part.", "after.0.value": expect.stringMatching(/unit/), "after.0.conditions": expect.any(String) });
+    expect(r.errors).toMatchObject({
+      "parts.0.part": "Name the part.",
+      "after.0.value": expect.stringMatching(/unit/),
+      "after.0.conditions": expect.any(String),
+    });
     expect(parseLogValue("25 mA")).toEqual({ ok: true, value: 25, unit: "mA" });
   });
 });
@@ -229,15 +262,26 @@ describe("a restoration log entry", () => {
 describe("what publishing needs", () => {
   const base: ChecklistInput = {
     listing: {
-      maker: "Harrowgate Sound", model: "HS-120", priceMinor: 125_000, country: "DE", weightG: 14_200,
-      shippingOptions: [{ method: "collection" }], handlingDays: null, cosmeticGrade: "clean", serviceState: "working_unserviced", conditionNote: null,
+      maker: "Harrowgate Sound",
+      model: "HS-120",
+      priceMinor: 125_000,
+      country: "DE",
+      weightG: 14_200,
+      shippingOptions: [{ method: "collection" }],
+      handlingDays: null,
+      cosmeticGrade: "clean",
+      serviceState: "working_unserviced",
+      conditionNote: null,
     },
     sheet: null,
     restorationEntries: 0,
     photos: { ready: 1, processing: 0, failed: 0 },
     emailVerified: true,
   };
-  const open = (i: ChecklistInput) => publishChecklist(i).filter((c) => !c.ok).map((c) => c.id);
+  const open = (i: ChecklistInput) =>
+    publishChecklist(i)
+      .filter((c) => !c.ok)
+      .map((c) => c.id);
 
   it("is complete for a working, unserviced unit collected in person", () => {
     expect(open(base)).toEqual([]);
@@ -252,7 +296,9 @@ describe("what publishing needs", () => {
 
   it("asks a unit that needs work to say what is wrong, shipped units for a handling time, and waits for photos", () => {
     expect(open({ ...base, listing: { ...base.listing, serviceState: "needs_work" } })).toEqual(["fault-note"]);
-    expect(open({ ...base, listing: { ...base.listing, shippingOptions: [{ method: "parcel", prices: { domestic: 100 } }] } })).toEqual(["handling"]);
+    expect(open({ ...base, listing: { ...base.listing, shippingOptions: [{ method: "parcel", prices: { domestic: 100 } }] } })).toEqual([
+      "handling",
+    ]);
     expect(open({ ...base, photos: { ready: 2, processing: 1, failed: 0 } })).toEqual(["photos"]);
     expect(open({ ...base, emailVerified: false })).toEqual(["email"]);
   });

@@ -30,7 +30,9 @@ describe("payments stand-in encoding", () => {
 
   it("gives the documented test cards their documented outcomes (docs.stripe.com/testing)", () => {
     expect(chargeCardNumber("4242 4242 4242 4242")).toMatchObject({ card: { brand: "visa", last4: "4242" }, outcome: { ok: true } });
-    expect(chargeCardNumber("4000000000000002")).toMatchObject({ outcome: { ok: false, code: "card_declined", decline_code: "generic_decline" } });
+    expect(chargeCardNumber("4000000000000002")).toMatchObject({
+      outcome: { ok: false, code: "card_declined", decline_code: "generic_decline" },
+    });
     expect(chargeCardNumber("4000000000009995")).toMatchObject({ outcome: { ok: false, decline_code: "insufficient_funds" } });
     expect(chargeCardNumber("4242424242424241")).toEqual({ error: "Your card number is incorrect." });
     // Luhn check digit (ISO/IEC 7812-1 Annex B, from memory): one changed digit breaks it.

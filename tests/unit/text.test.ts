@@ -10,13 +10,18 @@ import { RestorationEntrySchema } from "@shared/restoration-form";
 // and line breaks but no other control characters. Properties over generated strings, then the
 // schemas that use the rules.
 
-const CONTROLS = [...Array.from({ length: 32 }, (_, i) => i), ...Array.from({ length: 33 }, (_, i) => 0x7f + i)].map((c) => String.fromCharCode(c));
+const CONTROLS = [...Array.from({ length: 32 }, (_, i) => i), ...Array.from({ length: 33 }, (_, i) => 0x7f + i)].map((c) =>
+  String.fromCharCode(c),
+);
 const BIDI = ["\u202a", "\u202b", "\u202c", "\u202d", "\u202e", "\u2066", "\u2067", "\u2068", "\u2069"];
 const name = nameText("The model");
 const free = freeText("The note");
 
 /** Strings from any code points, including the ones the rules are about. */
-const anyText = fc.string({ unit: fc.oneof(fc.constantFrom(...CONTROLS, ...BIDI, "e\u0301", "Ω", "\u2126", "\ud800"), fc.string({ unit: "binary", maxLength: 3 })), maxLength: 40 });
+const anyText = fc.string({
+  unit: fc.oneof(fc.constantFrom(...CONTROLS, ...BIDI, "e\u0301", "Ω", "\u2126", "\ud800"), fc.string({ unit: "binary", maxLength: 3 })),
+  maxLength: 40,
+});
 
 describe("nameText", () => {
   it("what it accepts is NFC, trimmed, and free of control and direction characters; accepting is idempotent", () => {
@@ -48,7 +53,9 @@ describe("nameText", () => {
     expect(textProblem("Model\u202eX", "name", "The model")).toBe(
       "The model contains a hidden text-direction control (U+202E), which can make it read differently from what is stored; remove it.",
     );
-    expect(textProblem("a\u0000b", "name", "Your name")).toBe("Your name contains a NUL character (U+0000); it must be one line of visible text.");
+    expect(textProblem("a\u0000b", "name", "Your name")).toBe(
+      "Your name contains a NUL character (U+0000); it must be one line of visible text.",
+    );
     expect(name.parse("  Cafe\u0301 Ω ")).toBe("Café Ω");
     expect(name.parse("\u2126-1")).toBe("\u03a9-1"); // the ohm sign is canonically the Greek capital omega
   });
@@ -77,7 +84,10 @@ describe("freeText", () => {
 describe("the forms and schemas use the rules", () => {
   it("a display name with a right-to-left override or NUL is refused beside the field", () => {
     const base = { email: "a@example.test", password: "long enough password" };
-    expect(SignUpForm.safeParse({ ...base, displayName: "Ada\u202egnp.exe" }).error?.issues[0]).toMatchObject({ path: ["displayName"], message: expect.stringContaining("U+202E") });
+    expect(SignUpForm.safeParse({ ...base, displayName: "Ada\u202egnp.exe" }).error?.issues[0]).toMatchObject({
+      path: ["displayName"],
+      message: expect.stringContaining("U+202E"),
+    });
     expect(SignUpForm.safeParse({ ...base, displayName: "Ada\u0000" }).error?.issues[0].path).toEqual(["displayName"]);
     expect(SignUpForm.parse({ ...base, displayName: " Rene\u0301 " }).displayName).toBe("René");
   });
@@ -86,11 +96,18 @@ describe("the forms and schemas use the rules", () => {
     expect(ItemPatchSchema.safeParse({ maker: "Aur\u202eal" }).error?.issues[0].path).toEqual(["maker"]);
     expect(ItemPatchSchema.safeParse({ model: "M\u0007" }).error?.issues[0].path).toEqual(["model"]);
     expect(ConditionSchema.partial().safeParse({ conditionNote: "Scratch\u0000" }).error?.issues[0].path).toEqual(["conditionNote"]);
-    expect(ConditionSchema.partial().parse({ conditionNote: "Scratch on the lid.\r\nKnobs fine." }).conditionNote).toBe("Scratch on the lid.\nKnobs fine.");
+    expect(ConditionSchema.partial().parse({ conditionNote: "Scratch on the lid.\r\nKnobs fine." }).conditionNote).toBe(
+      "Scratch on the lid.\nKnobs fine.",
+    );
   });
 
   it("the item form's collection note with a NUL is refused beside the field", () => {
-    const form = new URLSearchParams({ category: "integrated_amplifier", currency: "EUR", collection: "on", collectionNote: "by\u0000appointment" });
+    const form = new URLSearchParams({
+      category: "integrated_amplifier",
+      currency: "EUR",
+      collection: "on",
+      collectionNote: "by\u0000appointment",
+    });
     const read = readItemForm(form);
     expect(read.ok).toBe(false);
     expect(Object.values(read.ok ? {} : read.errors).join(" ")).toContain("NUL");
@@ -99,7 +116,14 @@ describe("the forms and schemas use the rules", () => {
   it("bench sheet notes and equipment, and the restoration log", () => {
     const sheet = parseBenchSheet({ category: "integrated_amplifier", readings: [], notes: "a\u0000b", equipment: { model: "X\u202e" } });
     expect(sheet.ok ? [] : sheet.issues.map((i) => i.path)).toEqual(expect.arrayContaining(["notes", "equipment.model"]));
-    const entry = RestorationEntrySchema.safeParse({ doneOn: "2024-01-02", work: "Recapped\u0000", parts: [], technician: "Bo\u202e", readingsBefore: [], readingsAfter: [] });
+    const entry = RestorationEntrySchema.safeParse({
+      doneOn: "2024-01-02",
+      work: "Recapped\u0000",
+      parts: [],
+      technician: "Bo\u202e",
+      readingsBefore: [],
+      readingsAfter: [],
+    });
     expect(entry.error?.issues.map((i) => i.path.join("."))).toEqual(expect.arrayContaining(["work", "technician"]));
   });
 });

@@ -82,16 +82,28 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
           </caption>
           <thead className="bg-sunk/50 max-md:hidden">
             <tr>
-              <th scope="col" className={th}>What</th>
-              <th scope="col" className={th}>Value</th>
-              <th scope="col" className={th}>Conditions</th>
-              <th scope="col" className={th}>Source</th>
+              <th scope="col" className={th}>
+                What
+              </th>
+              <th scope="col" className={th}>
+                Value
+              </th>
+              <th scope="col" className={th}>
+                Conditions
+              </th>
+              <th scope="col" className={th}>
+                Source
+              </th>
             </tr>
           </thead>
           <tbody>
             {bench.readings.map((r) => (
               // On a phone each reading is a small card: what and value on one line, then conditions and source.
-              <tr key={r.ref} className="border-t border-rule/70 max-md:grid max-md:grid-cols-[1fr_auto] max-md:gap-x-3 max-md:px-3 max-md:py-2.5" data-ref={r.ref}>
+              <tr
+                key={r.ref}
+                className="border-t border-rule/70 max-md:grid max-md:grid-cols-[1fr_auto] max-md:gap-x-3 max-md:px-3 max-md:py-2.5"
+                data-ref={r.ref}
+              >
                 <th scope="row" className="px-3 py-2 text-left align-top font-medium text-ink max-md:p-0">
                   {r.quantity}
                   {r.channel ? <span className="block text-xs font-normal text-ink-faint">{r.channel}</span> : null}
@@ -127,9 +139,15 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
           </caption>
           <thead className="bg-sunk/50 max-md:hidden">
             <tr>
-              <th scope="col" className={th}>Check</th>
-              <th scope="col" className={th}>Outcome</th>
-              <th scope="col" className={th}>What the figures showed</th>
+              <th scope="col" className={th}>
+                Check
+              </th>
+              <th scope="col" className={th}>
+                Outcome
+              </th>
+              <th scope="col" className={th}>
+                What the figures showed
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -147,7 +165,9 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
                     {c.findings.map((f, j) => (
                       <li key={j}>
                         <p className="text-ink">
-                          {c.findings.length > 1 && f.outcome !== "consistent" ? <OutcomeBadge outcome={f.outcome} className="mr-1.5 align-middle" /> : null}
+                          {c.findings.length > 1 && f.outcome !== "consistent" ? (
+                            <OutcomeBadge outcome={f.outcome} className="mr-1.5 align-middle" />
+                          ) : null}
                           {f.detail}
                         </p>
                         {f.compared.length ? (
@@ -164,7 +184,9 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
                     ))}
                   </ul>
                   <details className="mt-1.5">
-                    <summary className="cursor-pointer select-none text-xs font-medium text-walnut hover:text-walnut-deep">Why this check</summary>
+                    <summary className="cursor-pointer select-none text-xs font-medium text-walnut hover:text-walnut-deep">
+                      Why this check
+                    </summary>
                     <p className="mt-1 text-[0.8125rem] leading-relaxed">{c.explanation}</p>
                     <p className="mt-1 text-xs text-ink-faint">Source: {c.source}</p>
                   </details>

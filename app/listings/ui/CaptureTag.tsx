@@ -11,7 +11,14 @@ export function CaptureTag({ title, className }: { title?: string; className?: s
       title={title ?? "Computed by the bench from the seller's raw capture file"}
     >
       <svg aria-hidden="true" viewBox="0 0 16 16" className="size-3">
-        <path d="M1.5 8h2l1.5-4 2.5 8 2.5-8 1.5 4h3" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" strokeLinejoin="round" />
+        <path
+          d="M1.5 8h2l1.5-4 2.5 8 2.5-8 1.5 4h3"
+          fill="none"
+          stroke="currentColor"
+          strokeWidth="1.6"
+          strokeLinecap="round"
+          strokeLinejoin="round"
+        />
       </svg>
       Capture
     </span>

@@ -88,14 +88,7 @@ export function Gallery({ photos, initial = 0, title }: { photos: GalleryPhoto[]
         </ul>
       ) : null}
 
-      {zoomOpen ? (
-        <ZoomDialog
-          photos={photos}
-          index={index}
-          onIndex={setIndex}
-          onClose={() => setZoomOpen(false)}
-        />
-      ) : null}
+      {zoomOpen ? <ZoomDialog photos={photos} index={index} onIndex={setIndex} onClose={() => setZoomOpen(false)} /> : null}
     </div>
   );
 }
@@ -191,7 +184,10 @@ function ZoomDialog({
           ref={frame}
           tabIndex={actual ? 0 : -1}
           aria-label={actual ? "Photo at actual size; use the arrow keys to look around" : undefined}
-          className={cx("relative min-h-0 flex-1", actual ? "overflow-auto" : "flex items-center justify-center overflow-hidden p-2 sm:p-6")}
+          className={cx(
+            "relative min-h-0 flex-1",
+            actual ? "overflow-auto" : "flex items-center justify-center overflow-hidden p-2 sm:p-6",
+          )}
         >
           <img
             key={photo.id}

@@ -12,7 +12,11 @@ const Charts = {
 
 const subscribe = () => () => {};
 function useHydrated(): boolean {
-  return useSyncExternalStore(subscribe, () => true, () => false);
+  return useSyncExternalStore(
+    subscribe,
+    () => true,
+    () => false,
+  );
 }
 
 function ChartFrame({ height, children }: { height: number; children: ReactNode }) {
@@ -88,7 +92,9 @@ function SpectrumNumbers({ plot }: { plot: SpectrumPlot }) {
         {plot.bars.map((b) => (
           <tr key={b.order}>
             <td className={td}>{b.label}</td>
-            <td className={td}>{b.frequencyHz >= 1000 ? `${Number((b.frequencyHz / 1000).toPrecision(4))} kHz` : `${Math.round(b.frequencyHz)} Hz`}</td>
+            <td className={td}>
+              {b.frequencyHz >= 1000 ? `${Number((b.frequencyHz / 1000).toPrecision(4))} kHz` : `${Math.round(b.frequencyHz)} Hz`}
+            </td>
             {plot.channels.map((c) => (
               <td key={c.key} className={td}>
                 {b.levels[c.key] !== undefined ? b.levels[c.key].toFixed(1).replace(/^-/, "−") : "—"}
@@ -170,7 +176,14 @@ export function Plots({ plots }: { plots: PlotSet }) {
           </PlotFigure>
         ))}
         {plots.squares.map((p) => (
-          <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<FigureList figures={p.figures} />}>
+          <PlotFigure
+            key={p.id}
+            id={p.id}
+            title={p.title}
+            conditions={p.conditions}
+            fromCapture
+            numbers={<FigureList figures={p.figures} />}
+          >
             <ChartFrame height={240}>
               <Charts.Square plot={p} />
             </ChartFrame>
@@ -178,7 +191,15 @@ export function Plots({ plots }: { plots: PlotSet }) {
           </PlotFigure>
         ))}
         {plots.responses.map((p) => (
-          <PlotFigure key={p.id} wide id={p.id} title={p.title} conditions={p.conditions} fromCapture={p.fromCapture} numbers={<ResponseNumbers plot={p} />}>
+          <PlotFigure
+            key={p.id}
+            wide
+            id={p.id}
+            title={p.title}
+            conditions={p.conditions}
+            fromCapture={p.fromCapture}
+            numbers={<ResponseNumbers plot={p} />}
+          >
             <ChartFrame height={p.kind === "riaa" ? 394 : 260}>
               <Charts.Response plot={p} />
             </ChartFrame>

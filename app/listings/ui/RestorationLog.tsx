@@ -44,16 +44,26 @@ export function RestorationLog({ entries }: { entries: RestorationEntryView[] })
                     </caption>
                     <thead>
                       <tr className="text-left text-xs text-ink-faint">
-                        <th scope="col" className="py-1 pr-3 font-medium">What</th>
-                        <th scope="col" className="py-1 pr-3 font-medium">Before</th>
-                        <th scope="col" className="py-1 pr-3 font-medium">After</th>
-                        <th scope="col" className="py-1 font-medium">Conditions</th>
+                        <th scope="col" className="py-1 pr-3 font-medium">
+                          What
+                        </th>
+                        <th scope="col" className="py-1 pr-3 font-medium">
+                          Before
+                        </th>
+                        <th scope="col" className="py-1 pr-3 font-medium">
+                          After
+                        </th>
+                        <th scope="col" className="py-1 font-medium">
+                          Conditions
+                        </th>
                       </tr>
                     </thead>
                     <tbody>
                       {e.readings.map((r, i) => (
                         <tr key={i} className="border-t border-rule/60">
-                          <th scope="row" className="py-1 pr-3 text-left font-normal text-ink">{r.quantity}</th>
+                          <th scope="row" className="py-1 pr-3 text-left font-normal text-ink">
+                            {r.quantity}
+                          </th>
                           <td className="figures py-1 pr-3 text-ink-soft">{r.before ?? "—"}</td>
                           <td className="figures py-1 pr-3 text-ink">{r.after ?? "—"}</td>
                           <td className="py-1 text-xs text-ink-faint">{r.conditions}</td>

@@ -24,7 +24,14 @@ export function SellerCard({ seller }: { seller: Seller }) {
         {seller.verifiedWorkshop ? (
           <Badge tone="trace">
             <svg aria-hidden="true" viewBox="0 0 16 16" className="mr-1 size-3.5">
-              <path d="M4.5 8.3l2.2 2.2 4.8-5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+              <path
+                d="M4.5 8.3l2.2 2.2 4.8-5"
+                fill="none"
+                stroke="currentColor"
+                strokeWidth="1.8"
+                strokeLinecap="round"
+                strokeLinejoin="round"
+              />
             </svg>
             Verified workshop
           </Badge>
@@ -73,7 +80,9 @@ export function ShippingPanel({ shipping }: { shipping: ShippingView }) {
           </noscript>
         </div>
         {shipping.zoneGuessedFrom && zone === shipping.zone ? (
-          <p className="text-xs text-ink-faint">Guessed from your browser's region ({shipping.zoneGuessedFrom}); change it if that is wrong.</p>
+          <p className="text-xs text-ink-faint">
+            Guessed from your browser's region ({shipping.zoneGuessedFrom}); change it if that is wrong.
+          </p>
         ) : null}
       </Form>
 
@@ -107,7 +116,8 @@ export function ShippingPanel({ shipping }: { shipping: ShippingView }) {
 
       {shipping.handlingDays !== null ? (
         <p className="text-xs text-ink-faint">
-          Leaves the seller within <span className="figures">{shipping.handlingDays}</span> working day{shipping.handlingDays === 1 ? "" : "s"} of payment.
+          Leaves the seller within <span className="figures">{shipping.handlingDays}</span> working day
+          {shipping.handlingDays === 1 ? "" : "s"} of payment.
         </p>
       ) : null}
 
@@ -115,8 +125,9 @@ export function ShippingPanel({ shipping }: { shipping: ShippingView }) {
         <div className="space-y-1 rounded-md border border-brass/45 bg-brass-wash px-3 py-2.5 text-sm text-ink">
           <p className="font-semibold text-brass-ink">30 kg or more: freight only, two-person lift</p>
           <p className="text-[0.8125rem] leading-relaxed">
-            Units this heavy travel on a pallet, not as a parcel{shipping.parcelWithheld ? ", so the seller's parcel option is not offered" : ""}.
-            Have two people ready to carry it in and lift with bent knees; never carry it alone or by its knobs and handles.
+            Units this heavy travel on a pallet, not as a parcel
+            {shipping.parcelWithheld ? ", so the seller's parcel option is not offered" : ""}. Have two people ready to carry it in and lift
+            with bent knees; never carry it alone or by its knobs and handles.
           </p>
         </div>
       ) : null}
@@ -142,8 +153,8 @@ export function SafetyCautions({ listing }: { listing: ListingHead }) {
         {mainsPowered ? (
           <>
             <li>
-              There is mains voltage inside, and filter capacitors can hold a dangerous charge long after the unit is unplugged
-              (valve equipment runs at several hundred volts). Do not open the case: let a qualified technician do any work inside.
+              There is mains voltage inside, and filter capacitors can hold a dangerous charge long after the unit is unplugged (valve
+              equipment runs at several hundred volts). Do not open the case: let a qualified technician do any work inside.
             </li>
             <li>
               {mains ? (
@@ -161,15 +172,19 @@ export function SafetyCautions({ listing }: { listing: ListingHead }) {
             </li>
             <li>If it arrives cold, let it stand at room temperature for a few hours before switching on, so condensation can dry.</li>
             <li>
-              To test it, connect speakers or a proper dummy load before switching on; never short or bridge the outputs, and expect
-              dummy loads and heatsinks to get hot.
+              To test it, connect speakers or a proper dummy load before switching on; never short or bridge the outputs, and expect dummy
+              loads and heatsinks to get hot.
             </li>
           </>
         ) : (
           <li>Switch the amplifier off before connecting or disconnecting speaker cables, and start listening at low volume.</li>
         )}
-        {heavy ? <li>It weighs {listing.unit.weightText}: two people to lift, and keep fingers clear of the feet when setting it down.</li> : null}
-        <li>Rules for selling and using second-hand electrical goods differ between countries; follow your local electrical-safety rules.</li>
+        {heavy ? (
+          <li>It weighs {listing.unit.weightText}: two people to lift, and keep fingers clear of the feet when setting it down.</li>
+        ) : null}
+        <li>
+          Rules for selling and using second-hand electrical goods differ between countries; follow your local electrical-safety rules.
+        </li>
       </ul>
     </section>
   );

@@ -13,8 +13,20 @@ export function UnitDetails({ listing }: { listing: ListingHead }) {
         <span className="font-sans text-ink-faint">{u.mains.switchable ? ", switchable" : ", fixed"}</span>
       </span>,
     ]);
-  if (u.weightText) rows.push(["Weight", <span key="w" className="figures">{u.weightText}</span>]);
-  if (u.boxedText) rows.push(["Packed size", <span key="b" className="figures">{u.boxedText}</span>]);
+  if (u.weightText)
+    rows.push([
+      "Weight",
+      <span key="w" className="figures">
+        {u.weightText}
+      </span>,
+    ]);
+  if (u.boxedText)
+    rows.push([
+      "Packed size",
+      <span key="b" className="figures">
+        {u.boxedText}
+      </span>,
+    ]);
   rows.push(["Comes with", u.includes.length ? u.includes.join(", ") : "The unit only"]);
   if (place) rows.push(["Located in", place]);
   if (u.serialOnFile) rows.push(["Serial number", "Recorded with Loadline, not shown publicly"]);

@@ -1,16 +1,4 @@
-import {
-  Bar,
-  BarChart,
-  CartesianGrid,
-  Legend,
-  Line,
-  LineChart,
-  ReferenceLine,
-  ResponsiveContainer,
-  Tooltip,
-  XAxis,
-  YAxis,
-} from "recharts";
+import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { ResponsePlot, SpectrumPlot, SquarePlot } from "../types";
 
 // The bench plots, drawn with recharts in the browser (it measures its container, so nothing is
@@ -96,7 +84,10 @@ export function SpectrumChart({ plot }: { plot: SpectrumPlot }) {
         <Tooltip
           {...tooltipStyle}
           cursor={{ fill: "rgb(46 106 78 / 0.06)" }}
-          formatter={(v, name) => [`${(Number(v) + floor).toFixed(1)} dB`, plot.channels.find((c) => c.key === name)?.label ?? String(name)]}
+          formatter={(v, name) => [
+            `${(Number(v) + floor).toFixed(1)} dB`,
+            plot.channels.find((c) => c.key === name)?.label ?? String(name),
+          ]}
           labelFormatter={(label) => {
             const bar = plot.bars.find((b) => b.label === label);
             return bar ? `${bar.label} · ${hzWords(bar.frequencyHz)}` : label;
@@ -202,7 +193,11 @@ export function ResponseChart({ plot }: { plot: ResponsePlot }) {
               label={axisLabel("Deviation (dB)", -90)}
             />
             <ReferenceLine y={0} stroke={BRASS} strokeDasharray="5 4" />
-            <Tooltip {...tooltipStyle} labelFormatter={(f) => hzWords(Number(f))} formatter={(v) => [`${Number(v).toFixed(2)} dB`, "Deviation from RIAA"]} />
+            <Tooltip
+              {...tooltipStyle}
+              labelFormatter={(f) => hzWords(Number(f))}
+              formatter={(v) => [`${Number(v).toFixed(2)} dB`, "Deviation from RIAA"]}
+            />
             <Line dataKey="deviation" stroke={TRACE} strokeWidth={2} dot={false} isAnimationActive={false} />
           </LineChart>
         </ResponsiveContainer>
@@ -229,8 +224,19 @@ export function SquareChart({ plot }: { plot: SquarePlot }) {
           axisLine={{ stroke: RULE }}
           label={axisLabel("Time (µs)")}
         />
-        <YAxis tick={tick} width={52} tickLine={false} axisLine={{ stroke: RULE }} domain={["auto", "auto"]} label={axisLabel("Level (V)", -90)} />
-        <Tooltip {...tooltipStyle} labelFormatter={(t) => `${Number(t).toFixed(2)} µs`} formatter={(v) => [`${Number(v).toFixed(3)} V`, "Level"]} />
+        <YAxis
+          tick={tick}
+          width={52}
+          tickLine={false}
+          axisLine={{ stroke: RULE }}
+          domain={["auto", "auto"]}
+          label={axisLabel("Level (V)", -90)}
+        />
+        <Tooltip
+          {...tooltipStyle}
+          labelFormatter={(t) => `${Number(t).toFixed(2)} µs`}
+          formatter={(v) => [`${Number(v).toFixed(3)} V`, "Level"]}
+        />
         <Line dataKey="v" type="linear" stroke={TRACE} strokeWidth={1.75} dot={false} isAnimationActive={false} />
       </LineChart>
     </ResponsiveContainer>

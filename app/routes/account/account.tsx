@@ -52,7 +52,9 @@ export async function action({ request }: Route.ActionArgs) {
   }
   if (input.intent === "sign-out-others") {
     const count = await revokeOtherSessions(user.id, sessionId);
-    const text = count ? `Signed out everywhere else (${count} session${count === 1 ? "" : "s"}).` : "You were not signed in anywhere else.";
+    const text = count
+      ? `Signed out everywhere else (${count} session${count === 1 ? "" : "s"}).`
+      : "You were not signed in anywhere else.";
     return data<ActionResult>({ ok: true, text, section: "sessions" });
   }
   try {
@@ -153,8 +155,8 @@ function SessionsCard({ sessions, message }: { sessions: SessionRow[]; message: 
                 {s.current ? <Badge tone="trace">This device</Badge> : null}
               </p>
               <p className="text-sm text-ink-soft">
-                {s.address ?? "Address not known"} · signed in <time dateTime={s.signedInAt}>{s.signedInLabel}</time> · last
-                seen <time dateTime={s.lastSeenAt}>{s.lastSeenLabel}</time>
+                {s.address ?? "Address not known"} · signed in <time dateTime={s.signedInAt}>{s.signedInLabel}</time> · last seen{" "}
+                <time dateTime={s.lastSeenAt}>{s.lastSeenLabel}</time>
               </p>
             </div>
             {s.current ? null : (

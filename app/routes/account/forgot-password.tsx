@@ -27,8 +27,8 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
     return (
       <AuthPanel title="Check your inbox" footer={<TextLink to="/sign-in">Back to sign in</TextLink>}>
         <Notice>
-          If a Loadline account uses {actionData.email}, we have sent it a link to choose a new password. The link works
-          once and for one hour.
+          If a Loadline account uses {actionData.email}, we have sent it a link to choose a new password. The link works once and for one
+          hour.
         </Notice>
       </AuthPanel>
     );

@@ -64,14 +64,7 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
           hint="At least 10 characters."
           error={errors.password}
         />
-        <Field
-          label="New password again"
-          name="confirm"
-          type="password"
-          autoComplete="new-password"
-          required
-          error={errors.confirm}
-        />
+        <Field label="New password again" name="confirm" type="password" autoComplete="new-password" required error={errors.confirm} />
         <Button type="submit" busy={busy} className="w-full">
           Set password and sign in
         </Button>

@@ -82,14 +82,7 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
           defaultValue={actionData?.email}
           error={errors.email}
         />
-        <Field
-          label="Password"
-          name="password"
-          type="password"
-          autoComplete="current-password"
-          required
-          error={errors.password}
-        />
+        <Field label="Password" name="password" type="password" autoComplete="current-password" required error={errors.password} />
         <div className="flex items-center justify-between gap-3">
           <Button type="submit" busy={busy}>
             Sign in

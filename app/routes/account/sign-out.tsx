@@ -22,7 +22,14 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignOut({ loaderData }: Route.ComponentProps) {
   return (
-    <AuthPanel title="Sign out" lede={<>You are signed in as <strong>{loaderData.email}</strong>.</>}>
+    <AuthPanel
+      title="Sign out"
+      lede={
+        <>
+          You are signed in as <strong>{loaderData.email}</strong>.
+        </>
+      }
+    >
       <Form method="post">
         <Button type="submit" className="w-full">
           Sign out

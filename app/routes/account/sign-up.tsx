@@ -33,11 +33,18 @@ export default function SignUp({ loaderData, actionData }: Route.ComponentProps)
   const busy = useNavigation().state === "submitting";
   if (actionData?.sent) {
     return (
-      <AuthPanel title="Check your inbox" lede={<>We have sent a message to <strong>{actionData.email}</strong>.</>}>
+      <AuthPanel
+        title="Check your inbox"
+        lede={
+          <>
+            We have sent a message to <strong>{actionData.email}</strong>.
+          </>
+        }
+      >
         <Notice>Open the link in it to confirm your address and sign in. The link works for 24 hours.</Notice>
         <p className="text-sm text-ink-soft">
-          Nothing there after a few minutes? Look in the spam folder, or <TextLink to="/sign-up">start again</TextLink> with the
-          right address.
+          Nothing there after a few minutes? Look in the spam folder, or <TextLink to="/sign-up">start again</TextLink> with the right
+          address.
         </p>
       </AuthPanel>
     );

@@ -61,7 +61,10 @@ function HeldListing({ item }: { item: HeldListingItem }) {
   return (
     <li className="space-y-1 py-3">
       <p className="flex flex-wrap items-center gap-2">
-        <Link to={`/listings/${item.id}`} className="font-serif text-lg text-ink underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep">
+        <Link
+          to={`/listings/${item.id}`}
+          className="font-serif text-lg text-ink underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep"
+        >
           {item.title}
         </Link>
         <Badge tone="brass">Held for review</Badge>
@@ -69,8 +72,7 @@ function HeldListing({ item }: { item: HeldListingItem }) {
       </p>
       <p className="text-sm">{item.reason}</p>
       <p className="text-xs text-ink-faint">
-        {item.workshop ? `${item.workshop} (${item.seller})` : item.seller} · held since{" "}
-        <span className="figures">{day(item.since)}</span>
+        {item.workshop ? `${item.workshop} (${item.seller})` : item.seller} · held since <span className="figures">{day(item.since)}</span>
       </p>
     </li>
   );

@@ -27,7 +27,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   if (!page) throw data({ message: "There is no listing here." }, { status: 404, statusText: "Not Found" });
   const photo = Number(url.searchParams.get("photo"));
   // The page differs per viewer (watch state, held banner): never from a shared cache.
-  return data({ ...page, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 }, { headers: { "Cache-Control": "private, no-store" } });
+  return data(
+    { ...page, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 },
+    { headers: { "Cache-Control": "private, no-store" } },
+  );
 }
 
 const WatchForm = z.object({ intent: z.enum(["watch", "unwatch"], { message: "Choose watch or unwatch." }) });

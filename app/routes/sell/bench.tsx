@@ -19,18 +19,33 @@ type Failure = { ok: false; state: SheetFormState; formError?: string; issues: s
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const listing = await ownListing(params.id, user.id).catch((e: unknown) => (e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e)));
+  const listing = await ownListing(params.id, user.id).catch((e: unknown) =>
+    e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e),
+  );
   const form = await readPageForm(request, { maxBytes: BODY_LIMITS.benchForm });
   const state = readSheetForm(form, listing.category);
   const read = readSheetState(state);
-  if (!read.sheet) return data<Failure>({ ok: false, state, formError: `The sheet was not saved: ${read.errorCount} field${read.errorCount === 1 ? " needs" : "s need"} attention.`, issues: [] }, { status: 400 });
+  if (!read.sheet)
+    return data<Failure>(
+      {
+        ok: false,
+        state,
+        formError: `The sheet was not saved: ${read.errorCount} field${read.errorCount === 1 ? " needs" : "s need"} attention.`,
+        issues: [],
+      },
+      { status: 400 },
+    );
   try {
     const saved = await saveBenchSheet(params.id, user.id, read.sheet);
     if (form.get("intent") === "next") return redirect(`/sell/${params.id}/review`);
     const lost = saved.wasVerified && !saved.listing.benchVerified;
     return { ok: true as const, notice: lost ? "Saved. The changed sheet no longer earns the bench-verified mark." : "Saved and checked." };
   } catch (e) {
-    if (e instanceof ListingInputError) return data<Failure>({ ok: false, state, formError: "The sheet was not saved.", issues: e.issues.map((i) => `${i.path}: ${i.message}`) }, { status: 400 });
+    if (e instanceof ListingInputError)
+      return data<Failure>(
+        { ok: false, state, formError: "The sheet was not saved.", issues: e.issues.map((i) => `${i.path}: ${i.message}`) },
+        { status: 400 },
+      );
     const failure = stepFailure(e);
     return data<Failure>({ ok: false, state, formError: failure.ok ? undefined : failure.formError, issues: [] }, { status: 409 });
   }

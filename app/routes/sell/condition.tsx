@@ -41,7 +41,9 @@ export default function ConditionStep({ actionData }: Route.ComponentProps) {
   return (
     <ConditionForm
       listingId={listing.id}
-      values={failed?.values ?? { cosmeticGrade: listing.cosmeticGrade, serviceState: listing.serviceState, conditionNote: listing.conditionNote }}
+      values={
+        failed?.values ?? { cosmeticGrade: listing.cosmeticGrade, serviceState: listing.serviceState, conditionNote: listing.conditionNote }
+      }
       errors={failed?.errors}
       formError={failed?.formError}
       busy={busy}

@@ -48,9 +48,7 @@ export default function Editor({ loaderData }: Route.ComponentProps) {
     <main className="mx-auto w-full max-w-6xl space-y-6 px-4 py-6 sm:px-6 sm:py-8">
       <header className="flex flex-col gap-3 sm:flex-row sm:items-end sm:justify-between">
         <div className="min-w-0 space-y-1.5">
-          <p className="text-xs font-semibold uppercase tracking-[0.14em] text-brass-ink">
-            Sell · {CATEGORY_LABELS[listing.category].one}
-          </p>
+          <p className="text-xs font-semibold uppercase tracking-[0.14em] text-brass-ink">Sell · {CATEGORY_LABELS[listing.category].one}</p>
           <h1 className="truncate text-2xl leading-tight sm:text-[2rem]">
             {untitled ? `New ${CATEGORY_LABELS[listing.category].one.toLowerCase()}` : listing.title}
           </h1>
@@ -72,8 +70,8 @@ export default function Editor({ loaderData }: Route.ComponentProps) {
       </header>
       {listing.status === "held" ? (
         <div role="status" className="rounded-md border border-brass/50 bg-brass-wash px-4 py-3 text-sm text-brass-ink">
-          <strong className="font-semibold">Held for review.</strong> The market does not show this listing until a
-          moderator has looked at it. {listing.heldReason}
+          <strong className="font-semibold">Held for review.</strong> The market does not show this listing until a moderator has looked at
+          it. {listing.heldReason}
         </div>
       ) : null}
       {listing.status === "sold" || listing.status === "removed" ? (

@@ -32,7 +32,11 @@ export async function action({ request }: Route.ActionArgs) {
   if (form.get("confirm") !== "yes") return { ok: false as const, id, formError: "Confirm that you want to withdraw the listing." };
   try {
     const listing = await withdrawListing(id, user.id);
-    return redirectWithNotice(request, "/sell", `${listingTitle(listing.maker, listing.model)} is withdrawn and no longer on the market. You can publish it again from its review step.`);
+    return redirectWithNotice(
+      request,
+      "/sell",
+      `${listingTitle(listing.maker, listing.model)} is withdrawn and no longer on the market. You can publish it again from its review step.`,
+    );
   } catch (e) {
     const failure = stepFailure(e);
     return { ok: false as const, id, formError: failure.ok ? undefined : failure.formError };
@@ -60,8 +64,8 @@ export default function SellIndex({ loaderData, actionData }: Route.ComponentPro
         <div className="rounded-panel border border-dashed border-rule-strong bg-card/60 px-6 py-12 text-center">
           <h2 className="text-xl">Nothing listed yet</h2>
           <p className="mx-auto mt-2 max-w-md text-ink-soft">
-            Start with the kind of unit. You fill in the details, condition, restoration log, photos and bench sheet
-            at your own pace; nothing is public until you publish.
+            Start with the kind of unit. You fill in the details, condition, restoration log, photos and bench sheet at your own pace;
+            nothing is public until you publish.
           </p>
           <ButtonLink to="/sell/new" className="mt-5">
             List your first unit
@@ -104,7 +108,11 @@ export default function SellIndex({ loaderData, actionData }: Route.ComponentPro
                         </div>
                         {l.status === "held" && l.heldReason ? <p className="text-sm text-brass-ink">{l.heldReason}</p> : null}
                         <p className="text-xs text-ink-faint">
-                          Last saved <time dateTime={l.updatedAt}>{new Date(l.updatedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" })} UTC</time>
+                          Last saved{" "}
+                          <time dateTime={l.updatedAt}>
+                            {new Date(l.updatedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" })}{" "}
+                            UTC
+                          </time>
                         </p>
                       </div>
                     </div>
@@ -122,7 +130,10 @@ export default function SellIndex({ loaderData, actionData }: Route.ComponentPro
                           <summary className="inline-flex h-8 cursor-pointer list-none items-center rounded-md px-3 text-sm font-medium text-fault hover:bg-fault-wash">
                             Withdraw…
                           </summary>
-                          <Form method="post" className="mt-2 w-72 space-y-2 rounded-md border border-rule bg-card p-3 text-sm shadow-panel sm:absolute sm:right-0 sm:z-10">
+                          <Form
+                            method="post"
+                            className="mt-2 w-72 space-y-2 rounded-md border border-rule bg-card p-3 text-sm shadow-panel sm:absolute sm:right-0 sm:z-10"
+                          >
                             <p>It leaves the market at once. Buyers watching it see it as withdrawn; you can publish it again later.</p>
                             {actionData && !actionData.ok && actionData.id === l.id ? <FormError>{actionData.formError}</FormError> : null}
                             <input type="hidden" name="intent" value="withdraw" />

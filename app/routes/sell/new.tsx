@@ -42,8 +42,8 @@ export default function NewListing({ loaderData, actionData }: Route.ComponentPr
       />
       {loaderData.becomesSeller ? (
         <p className="rounded-md border border-rule bg-sunk px-4 py-3 text-sm text-ink-soft">
-          Starting a listing adds the <strong className="text-ink">private seller</strong> role to your account. Nothing
-          is public until you publish.
+          Starting a listing adds the <strong className="text-ink">private seller</strong> role to your account. Nothing is public until you
+          publish.
         </p>
       ) : null}
       <Form method="post" className="space-y-6">

@@ -13,8 +13,8 @@ export default function PhotosStep() {
     <div className="space-y-5">
       <Card className="space-y-4">
         <p className="text-sm text-ink-soft">
-          Show the front, the back panel with its connectors and mains label, the inside after the work, and every mark
-          you mention in the condition note.
+          Show the front, the back panel with its connectors and mains label, the inside after the work, and every mark you mention in the
+          condition note.
         </p>
         <PhotoUploader
           listingId={listing.id}

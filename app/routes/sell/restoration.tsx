@@ -20,12 +20,20 @@ export async function action({ request, params }: Route.ActionArgs) {
   const values = Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
   try {
     if (intent === "delete") {
-      if (form.get("confirm") !== "yes") return data({ ok: false as const, intent: "delete", entryId, errors: {}, formError: "Confirm the deletion.", values }, { status: 400 });
+      if (form.get("confirm") !== "yes")
+        return data(
+          { ok: false as const, intent: "delete", entryId, errors: {}, formError: "Confirm the deletion.", values },
+          { status: 400 },
+        );
       await deleteRestorationEntry(params.id, user.id, entryId);
       return redirect(`/sell/${params.id}/restoration`);
     }
     const read = readRestorationForm(form);
-    if (!read.ok) return data({ ok: false as const, intent: String(intent), entryId, errors: read.errors, formError: undefined, values }, { status: 400 });
+    if (!read.ok)
+      return data(
+        { ok: false as const, intent: String(intent), entryId, errors: read.errors, formError: undefined, values },
+        { status: 400 },
+      );
     if (intent === "update") await updateRestorationEntry(params.id, user.id, entryId, read.value);
     else await addRestorationEntry(params.id, user.id, read.value);
     return redirect(`/sell/${params.id}/restoration`);
@@ -40,7 +48,12 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
       <header className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-base">
           <time dateTime={e.doneOn}>
-            {new Date(`${e.doneOn}T00:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" })}
+            {new Date(`${e.doneOn}T00:00:00Z`).toLocaleDateString("en-GB", {
+              day: "numeric",
+              month: "long",
+              year: "numeric",
+              timeZone: "UTC",
+            })}
           </time>
           {e.technician ? <span className="font-sans text-sm font-normal text-ink-soft"> · {e.technician}</span> : null}
         </h3>
@@ -50,7 +63,9 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
               Edit
             </ButtonLink>
             <details>
-              <summary className="inline-flex h-8 cursor-pointer list-none items-center rounded-md px-3 text-sm font-medium text-fault hover:bg-fault-wash">Delete…</summary>
+              <summary className="inline-flex h-8 cursor-pointer list-none items-center rounded-md px-3 text-sm font-medium text-fault hover:bg-fault-wash">
+                Delete…
+              </summary>
               <Form method="post" className="mt-1 flex items-center gap-2 text-sm">
                 <input type="hidden" name="intent" value="delete" />
                 <input type="hidden" name="entryId" value={e.id} />
@@ -78,10 +93,13 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
           {(["readingsBefore", "readingsAfter"] as const).map((k) =>
             e[k].length ? (
               <div key={k}>
-                <dt className="text-xs font-semibold uppercase tracking-wider text-ink-faint">{k === "readingsBefore" ? "Before" : "After"}</dt>
+                <dt className="text-xs font-semibold uppercase tracking-wider text-ink-faint">
+                  {k === "readingsBefore" ? "Before" : "After"}
+                </dt>
                 {e[k].map((r, i) => (
                   <dd key={i}>
-                    {r.quantity}: <span className="figures">{logValueText(r)}</span> <span className="text-ink-faint">({r.conditions})</span>
+                    {r.quantity}: <span className="figures">{logValueText(r)}</span>{" "}
+                    <span className="text-ink-faint">({r.conditions})</span>
                   </dd>
                 ))}
               </div>
@@ -104,7 +122,10 @@ export default function RestorationStep({ actionData }: Route.ComponentProps) {
   return (
     <div className="grid gap-5 lg:grid-cols-[1fr_20rem]">
       <div className="space-y-5">
-        <Section title="Restoration log" lede="Each dated step: what was done, the parts that went in, who did it, and readings before and after where you have them.">
+        <Section
+          title="Restoration log"
+          lede="Each dated step: what was done, the parts that went in, who did it, and readings before and after where you have them."
+        >
           {restoration.length ? (
             <ol className="divide-y divide-rule">
               {restoration.map((e) => (
@@ -121,7 +142,9 @@ export default function RestorationStep({ actionData }: Route.ComponentProps) {
                   ) : (
                     <Entry e={e} editing={!!editing} />
                   )}
-                  {failedHere("delete", e.id)?.formError ? <p className="text-sm text-fault">{failedHere("delete", e.id)?.formError}</p> : null}
+                  {failedHere("delete", e.id)?.formError ? (
+                    <p className="text-sm text-fault">{failedHere("delete", e.id)?.formError}</p>
+                  ) : null}
                 </li>
               ))}
             </ol>
@@ -131,7 +154,12 @@ export default function RestorationStep({ actionData }: Route.ComponentProps) {
         </Section>
         {editing ? null : (
           <Section title="Add an entry">
-            <RestorationEntryForm values={failedHere("add")?.values} errors={failedHere("add")?.errors} formError={failedHere("add")?.formError} busy={busy} />
+            <RestorationEntryForm
+              values={failedHere("add")?.values}
+              errors={failedHere("add")?.errors}
+              formError={failedHere("add")?.formError}
+              busy={busy}
+            />
           </Section>
         )}
       </div>

@@ -13,7 +13,15 @@ import { FormError } from "~/components/Field";
 import { Section } from "~/sell/Section";
 import { OutcomeCounts } from "~/sell/bench/VerdictPanel";
 import { useEditor } from "./editor";
-import { COSMETIC_GRADE_TEXT, formatEra, formatPrice, formatWeight, SERVICE_STATE_TEXT, SHIPPING_METHOD_LABELS, listingTitle } from "@shared/catalogue";
+import {
+  COSMETIC_GRADE_TEXT,
+  formatEra,
+  formatPrice,
+  formatWeight,
+  SERVICE_STATE_TEXT,
+  SHIPPING_METHOD_LABELS,
+  listingTitle,
+} from "@shared/catalogue";
 import { countryName } from "@shared/countries";
 
 type Failure = { formError?: string; issues: string[] };
@@ -34,7 +42,8 @@ export async function action({ request, params }: Route.ActionArgs) {
           : `${title} is live.${verdict ? " It does not carry the bench-verified mark; the verdict says why." : ""}`;
     return redirectWithNotice(request, `/sell/${params.id}/review`, notice);
   } catch (e) {
-    if (e instanceof ListingInputError) return data<Failure>({ formError: e.message, issues: e.issues.map((i) => i.message) }, { status: 400 });
+    if (e instanceof ListingInputError)
+      return data<Failure>({ formError: e.message, issues: e.issues.map((i) => i.message) }, { status: 400 });
     const failure = stepFailure(e);
     return data<Failure>({ formError: failure.ok ? undefined : failure.formError, issues: [] }, { status: 409 });
   }
@@ -54,7 +63,14 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
           <ul className="space-y-2" aria-label="Publishing checklist">
             {checklist.map((c) => (
               <li key={c.id} className="flex items-start gap-3" data-check={c.id} data-ok={c.ok}>
-                <span aria-hidden="true" className={c.ok ? "mt-0.5 inline-flex size-5 shrink-0 items-center justify-center rounded-full bg-trace text-xs text-card" : "mt-0.5 inline-flex size-5 shrink-0 rounded-full border-2 border-dashed border-rule-strong"}>
+                <span
+                  aria-hidden="true"
+                  className={
+                    c.ok
+                      ? "mt-0.5 inline-flex size-5 shrink-0 items-center justify-center rounded-full bg-trace text-xs text-card"
+                      : "mt-0.5 inline-flex size-5 shrink-0 rounded-full border-2 border-dashed border-rule-strong"
+                  }
+                >
                   {c.ok ? "✓" : ""}
                 </span>
                 <div className="text-sm">
@@ -65,7 +81,11 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
                   {c.ok ? null : (
                     <p className="text-ink-soft">
                       {c.hint}{" "}
-                      {c.step === "account" ? <Link to="/account">Your account</Link> : <Link to={`/sell/${listing.id}/${c.step}`}>Go to this step</Link>}
+                      {c.step === "account" ? (
+                        <Link to="/account">Your account</Link>
+                      ) : (
+                        <Link to={`/sell/${listing.id}/${c.step}`}>Go to this step</Link>
+                      )}
                     </p>
                   )}
                 </div>
@@ -77,7 +97,10 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
           <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2">
             <div>
               <dt className="text-ink-faint">Unit</dt>
-              <dd className="font-medium">{listing.title}{era ? `, ${era}` : ""}</dd>
+              <dd className="font-medium">
+                {listing.title}
+                {era ? `, ${era}` : ""}
+              </dd>
             </div>
             <div>
               <dt className="text-ink-faint">Price</dt>
@@ -88,11 +111,16 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
             </div>
             <div>
               <dt className="text-ink-faint">Condition</dt>
-              <dd>{listing.cosmeticGrade ? COSMETIC_GRADE_TEXT[listing.cosmeticGrade].label : "—"} · {listing.serviceState ? SERVICE_STATE_TEXT[listing.serviceState].label : "—"}</dd>
+              <dd>
+                {listing.cosmeticGrade ? COSMETIC_GRADE_TEXT[listing.cosmeticGrade].label : "—"} ·{" "}
+                {listing.serviceState ? SERVICE_STATE_TEXT[listing.serviceState].label : "—"}
+              </dd>
             </div>
             <div>
               <dt className="text-ink-faint">Where</dt>
-              <dd>{[listing.town, listing.region, listing.country ? countryName(listing.country) : null].filter(Boolean).join(", ") || "—"}</dd>
+              <dd>
+                {[listing.town, listing.region, listing.country ? countryName(listing.country) : null].filter(Boolean).join(", ") || "—"}
+              </dd>
             </div>
             <div>
               <dt className="text-ink-faint">Weight</dt>
@@ -108,7 +136,9 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
             </div>
             <div>
               <dt className="text-ink-faint">Restoration log</dt>
-              <dd>{restoration.length} {restoration.length === 1 ? "entry" : "entries"}</dd>
+              <dd>
+                {restoration.length} {restoration.length === 1 ? "entry" : "entries"}
+              </dd>
             </div>
           </dl>
           <p className="text-xs text-ink-faint">The serial number and postcode are never shown.</p>
@@ -145,7 +175,9 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
                 {listing.status === "withdrawn" ? "Publish again" : "Publish"}
               </Button>
               <p className="text-xs text-ink-faint">
-                {canPublish ? "The bench checks the saved sheet once more as you publish." : `${open.length} thing${open.length > 1 ? "s" : ""} still missing.`}
+                {canPublish
+                  ? "The bench checks the saved sheet once more as you publish."
+                  : `${open.length} thing${open.length > 1 ? "s" : ""} still missing.`}
               </p>
             </>
           ) : listing.status === "live" ? (

@@ -27,7 +27,8 @@ function useHydrated() {
 function withSpareRows(state: SheetFormState): SheetFormState {
   const rows = [...state.rows];
   for (const basis of ["measured", "rated"] as const)
-    if (!rows.some((r) => r.basis === basis && !r.capture && !r.value.trim() && !r.quantity)) rows.push(blankRow(`new-${basis}-${rows.length}`, basis));
+    if (!rows.some((r) => r.basis === basis && !r.capture && !r.value.trim() && !r.quantity))
+      rows.push(blankRow(`new-${basis}-${rows.length}`, basis));
   return rows.length === state.rows.length ? state : { ...state, rows };
 }
 
@@ -60,8 +61,10 @@ export function BenchSheetEditor({
   const autosave = useAutosave(listingId, {
     onSaved: (a) => {
       if (!a.sheetChanged) return;
-      if (a.listing?.status === "held") setStanding("The saved sheet has an implausible outcome: the listing is now held for the review desk.");
-      else if (a.wasVerified && !a.listing?.benchVerified) setStanding("The changed sheet no longer earns the bench-verified mark; the mark is off the listing until the sheet passes again.");
+      if (a.listing?.status === "held")
+        setStanding("The saved sheet has an implausible outcome: the listing is now held for the review desk.");
+      else if (a.wasVerified && !a.listing?.benchVerified)
+        setStanding("The changed sheet no longer earns the bench-verified mark; the mark is off the listing until the sheet passes again.");
       else if (a.listing?.benchVerified) setStanding(a.wasVerified ? null : "Checked again: the listing carries the bench-verified mark.");
       else setStanding(null);
     },
@@ -76,7 +79,10 @@ export function BenchSheetEditor({
     autosave.schedule(() => {
       const r = latest.current;
       if (r.sheet) return { ok: true, body: { benchSheet: r.sheet } };
-      return { ok: false, errors: Object.fromEntries(Object.entries(r.rowErrors).flatMap(([k, e]) => Object.entries(e).map(([f, m]) => [`${k}.${f}`, m]))) };
+      return {
+        ok: false,
+        errors: Object.fromEntries(Object.entries(r.rowErrors).flatMap(([k, e]) => Object.entries(e).map(([f, m]) => [`${k}.${f}`, m]))),
+      };
     });
     // eslint-disable-next-line react-hooks/exhaustive-deps -- once per edit: autosave is a new object on every render
   }, [state]);
@@ -85,10 +91,12 @@ export function BenchSheetEditor({
     dirty.current = true;
     setState((s) => withSpareRows(next(s)));
   };
-  const patchRow = (key: string, patch: Partial<SheetRow>) => set((s) => ({ ...s, rows: s.rows.map((r) => (r.key === key ? { ...r, ...patch } : r)) }));
+  const patchRow = (key: string, patch: Partial<SheetRow>) =>
+    set((s) => ({ ...s, rows: s.rows.map((r) => (r.key === key ? { ...r, ...patch } : r)) }));
   const removeRow = (key: string) => set((s) => ({ ...s, rows: s.rows.filter((r) => r.key !== key) }));
   const addRow = (basis: SheetRow["basis"]) => set((s) => ({ ...s, rows: [...s.rows, blankRow(`add-${Date.now()}`, basis)] }));
-  const removeCapture = (id: string | undefined) => set((s) => ({ ...s, rows: s.rows.filter((r) => !r.capture || r.capture.captureId !== id) }));
+  const removeCapture = (id: string | undefined) =>
+    set((s) => ({ ...s, rows: s.rows.filter((r) => !r.capture || r.capture.captureId !== id) }));
   const setMeta = (patch: Partial<SheetFormState["meta"]>) => set((s) => ({ ...s, meta: { ...s.meta, ...patch } }));
   const foldCapture = (c: CaptureResult) =>
     set((s) => {
@@ -115,7 +123,7 @@ export function BenchSheetEditor({
   const rowLabel = (ref: string) => {
     if (ref.startsWith("sweeps.")) return `sweep ${Number(ref.split(".")[1]) + 1}`;
     const key = read.refToRow[ref];
-    return key ? labels.get(key) ?? null : null;
+    return key ? (labels.get(key) ?? null) : null;
   };
   const quantities = CATEGORY_QUANTITIES[state.category];
   const amp = AMPLIFIER_CATEGORIES.includes(state.category);
@@ -195,18 +203,32 @@ export function BenchSheetEditor({
             ) : null}
           </Section>
 
-          <Section title="Captures" lede="Upload the raw file behind a figure: a WAV of the output sine into the dummy load, a square-wave or sweep CSV. The bench analyses it and its figures join the sheet, marked as from a capture.">
-            {hydrated ? <CapturePanel onCapture={foldCapture} /> : <p className="text-sm text-ink-soft">Uploading captures needs JavaScript; typed readings work without it.</p>}
+          <Section
+            title="Captures"
+            lede="Upload the raw file behind a figure: a WAV of the output sine into the dummy load, a square-wave or sweep CSV. The bench analyses it and its figures join the sheet, marked as from a capture."
+          >
+            {hydrated ? (
+              <CapturePanel onCapture={foldCapture} />
+            ) : (
+              <p className="text-sm text-ink-soft">Uploading captures needs JavaScript; typed readings work without it.</p>
+            )}
             {state.sweeps.length ? (
               <ul className="space-y-1 text-sm">
                 {state.sweeps.map((s, i) => (
-                  <li key={s.captureId ?? i} className="flex items-center justify-between gap-2 rounded-md border border-trace/30 bg-trace-wash/50 px-3 py-2">
+                  <li
+                    key={s.captureId ?? i}
+                    className="flex items-center justify-between gap-2 rounded-md border border-trace/30 bg-trace-wash/50 px-3 py-2"
+                  >
                     <span>
                       {s.kind === "riaa" ? "RIAA response sweep" : "Response sweep"}, {s.points.length} points
                       {s.channel ? `, ${s.channel}` : ""} — from a capture
                     </span>
                     {hydrated ? (
-                      <Button variant="quiet" size="sm" onClick={() => set((st) => ({ ...st, sweeps: st.sweeps.filter((_, n) => n !== i) }))}>
+                      <Button
+                        variant="quiet"
+                        size="sm"
+                        onClick={() => set((st) => ({ ...st, sweeps: st.sweeps.filter((_, n) => n !== i) }))}
+                      >
                         Remove
                       </Button>
                     ) : null}
@@ -216,7 +238,10 @@ export function BenchSheetEditor({
             ) : null}
           </Section>
 
-          <Section title="The maker's ratings" lede="Figures from the manual or spec sheet, kept apart from what you measured. The bench compares the two.">
+          <Section
+            title="The maker's ratings"
+            lede="Figures from the manual or spec sheet, kept apart from what you measured. The bench compares the two."
+          >
             {group("rated")}
             {hydrated ? (
               <Button variant="quiet" size="sm" onClick={() => addRow("rated")}>
@@ -227,15 +252,57 @@ export function BenchSheetEditor({
 
           <Section title="About the measurement">
             <div className="grid gap-4 sm:grid-cols-2">
-              <Field label="Measured on" name="measuredOn" type="date" value={state.meta.measuredOn} onChange={(e) => setMeta({ measuredOn: e.target.value })} optional error={read.metaErrors.measuredOn} />
-              <Field label="Measured by" name="measuredBy" value={state.meta.measuredBy} onChange={(e) => setMeta({ measuredBy: e.target.value })} maxLength={120} optional error={read.metaErrors.measuredBy} hint="The technician or workshop." />
+              <Field
+                label="Measured on"
+                name="measuredOn"
+                type="date"
+                value={state.meta.measuredOn}
+                onChange={(e) => setMeta({ measuredOn: e.target.value })}
+                optional
+                error={read.metaErrors.measuredOn}
+              />
+              <Field
+                label="Measured by"
+                name="measuredBy"
+                value={state.meta.measuredBy}
+                onChange={(e) => setMeta({ measuredBy: e.target.value })}
+                maxLength={120}
+                optional
+                error={read.metaErrors.measuredBy}
+                hint="The technician or workshop."
+              />
               {amp ? (
                 <>
-                  <Field label="Channels" name="channelCount" inputMode="numeric" value={state.meta.channelCount} onChange={(e) => setMeta({ channelCount: e.target.value })} optional error={read.metaErrors.channelCount} hint="2 unless it is a mono block." />
-                  <CheckboxField label="Bridged (BTL) output" name="bridged" checked={state.meta.bridged} onChange={(e) => setMeta({ bridged: e.target.checked })} className="sm:pt-7" />
+                  <Field
+                    label="Channels"
+                    name="channelCount"
+                    inputMode="numeric"
+                    value={state.meta.channelCount}
+                    onChange={(e) => setMeta({ channelCount: e.target.value })}
+                    optional
+                    error={read.metaErrors.channelCount}
+                    hint="2 unless it is a mono block."
+                  />
+                  <CheckboxField
+                    label="Bridged (BTL) output"
+                    name="bridged"
+                    checked={state.meta.bridged}
+                    onChange={(e) => setMeta({ bridged: e.target.checked })}
+                    className="sm:pt-7"
+                  />
                 </>
               ) : null}
-              <TextareaField label="Notes" name="notes" rows={3} value={state.meta.notes} onChange={(e) => setMeta({ notes: e.target.value })} optional error={read.metaErrors.notes} className="sm:col-span-2" hint="Equipment used, mains voltage during the test, anything a buyer re-measuring should know." />
+              <TextareaField
+                label="Notes"
+                name="notes"
+                rows={3}
+                value={state.meta.notes}
+                onChange={(e) => setMeta({ notes: e.target.value })}
+                optional
+                error={read.metaErrors.notes}
+                className="sm:col-span-2"
+                hint="Equipment used, mains voltage during the test, anything a buyer re-measuring should know."
+              />
             </div>
           </Section>
           <SaveBar state={autosave.state} busy={busy} notice={notice} next={{ label: "Save and review", short: "Review" }} />
@@ -250,8 +317,8 @@ export function BenchSheetEditor({
           ) : null}
           <VerdictPanel verdict={verdict} stale={fresh ? 0 : read.errorCount} published={published} rowLabel={rowLabel} />
           <p className="text-xs text-ink-faint">
-            The outcomes update as you type. The server checks the sheet again when it is saved and when you publish; its
-            verdict is the one that counts.
+            The outcomes update as you type. The server checks the sheet again when it is saved and when you publish; its verdict is the one
+            that counts.
           </p>
         </aside>
       </div>

@@ -12,7 +12,9 @@ export function CaptureGroup({ items, onRemove }: { items: CaptureItem[]; onRemo
     <li className="space-y-2 rounded-md border border-trace/30 bg-trace-wash/40 p-3" data-capture={captureId}>
       <div className="flex flex-wrap items-center justify-between gap-2">
         <div className="flex items-center gap-2">
-          <Badge tone="trace" className="whitespace-nowrap">From a capture</Badge>
+          <Badge tone="trace" className="whitespace-nowrap">
+            From a capture
+          </Badge>
           <span className="text-xs text-ink-faint">
             {items.length} reading{items.length > 1 ? "s" : ""} measured by the bench from the uploaded file
           </span>
@@ -35,7 +37,13 @@ export function CaptureGroup({ items, onRemove }: { items: CaptureItem[]; onRemo
           const r = row.capture!;
           const cond = describeConditions(r.conditions);
           return (
-            <li key={row.key} id={`reading-${row.key}`} className="grid grid-cols-[2.25rem_1fr] gap-x-2 py-1.5 text-sm" data-row={label} data-origin="capture">
+            <li
+              key={row.key}
+              id={`reading-${row.key}`}
+              className="grid grid-cols-[2.25rem_1fr] gap-x-2 py-1.5 text-sm"
+              data-row={label}
+              data-origin="capture"
+            >
               <input type="hidden" name={rowField(index, "key")} value={row.key} />
               <input type="hidden" name={rowField(index, "basis")} value="measured" />
               <input type="hidden" name={rowField(index, "quantity")} value={r.quantity} />

@@ -14,7 +14,14 @@ type CaptureKind = (typeof CAPTURE_KINDS)[number];
 // analysis comes back as readings that the sheet takes over, marked as from a capture. Needs JavaScript.
 
 export type CaptureResult = { id: string; fileName: string; readings: Reading[]; sweep?: Sweep };
-type Item = { key: number; fileName: string; state: "uploading" | "analysing" | "done" | "failed"; progress: number; message?: string; result?: CaptureResult };
+type Item = {
+  key: number;
+  fileName: string;
+  state: "uploading" | "analysing" | "done" | "failed";
+  progress: number;
+  message?: string;
+  result?: CaptureResult;
+};
 
 const selectClass = cx(controlClass, "h-9 py-1 text-sm appearance-auto");
 const inputClass = cx(controlClass, "h-9 py-1.5 text-sm figures");
@@ -36,7 +43,9 @@ type Answer = { status: number; body: z.infer<typeof AnswerSchema> };
 
 function readAnswer(status: number, body: unknown): Answer {
   const parsed = AnswerSchema.safeParse(body ?? {});
-  return parsed.success ? { status, body: parsed.data } : { status: status === 200 ? 502 : status, body: { message: "The server's answer could not be read." } };
+  return parsed.success
+    ? { status, body: parsed.data }
+    : { status: status === 200 ? 502 : status, body: { message: "The server's answer could not be read." } };
 }
 
 function upload(form: FormData, onProgress: (p: number) => void): Promise<Answer> {
@@ -97,7 +106,12 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
     }
     const b = answer.body;
     if (answer.status === 200 && b.status === "done" && b.id) {
-      const result: CaptureResult = { id: b.id, fileName: b.fileName ?? file.name, readings: b.readings ?? [], ...(b.sweep ? { sweep: b.sweep } : {}) };
+      const result: CaptureResult = {
+        id: b.id,
+        fileName: b.fileName ?? file.name,
+        readings: b.readings ?? [],
+        ...(b.sweep ? { sweep: b.sweep } : {}),
+      };
       update(key, { state: "done", progress: 1, result });
       onCapture(result);
       form.reset();
@@ -114,18 +128,40 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
         <div className="grid gap-3 sm:grid-cols-2">
           <label className="block space-y-1 sm:col-span-2" htmlFor={fileId}>
             <span className="text-sm font-medium">Capture file (WAV or CSV)</span>
-            <input form={CAPTURE_FORM_ID} id={fileId} name="file" type="file" accept=".wav,.csv,audio/wav,audio/x-wav,text/csv" className="block w-full text-sm file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:font-medium" />
+            <input
+              form={CAPTURE_FORM_ID}
+              id={fileId}
+              name="file"
+              type="file"
+              accept=".wav,.csv,audio/wav,audio/x-wav,text/csv"
+              className="block w-full text-sm file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:font-medium"
+            />
           </label>
           <Field label="What it holds">
-            <select form={CAPTURE_FORM_ID} name="kind" value={kind} onChange={(e) => setKind(isOneOf(CAPTURE_KINDS, e.target.value) ? e.target.value : "sine")} className={selectClass}>
+            <select
+              form={CAPTURE_FORM_ID}
+              name="kind"
+              value={kind}
+              onChange={(e) => setKind(isOneOf(CAPTURE_KINDS, e.target.value) ? e.target.value : "sine")}
+              className={selectClass}
+            >
               <option value="sine">Sine at the output (distortion, level, noise)</option>
               <option value="square">Square wave (rise time)</option>
               <option value="sweep">Frequency sweep (response)</option>
             </select>
           </Field>
           <Field label="Load">
-            <input form={CAPTURE_FORM_ID} name="loadOhm" inputMode="decimal" placeholder="8" className={inputClass} aria-describedby={`${fileId}-ohm`} />
-            <span id={`${fileId}-ohm`} className="text-xs text-ink-faint">Ω, the dummy load the output drove</span>
+            <input
+              form={CAPTURE_FORM_ID}
+              name="loadOhm"
+              inputMode="decimal"
+              placeholder="8"
+              className={inputClass}
+              aria-describedby={`${fileId}-ohm`}
+            />
+            <span id={`${fileId}-ohm`} className="text-xs text-ink-faint">
+              Ω, the dummy load the output drove
+            </span>
           </Field>
           <Field label="Channel (for a mono file)">
             <select form={CAPTURE_FORM_ID} name="channel" className={selectClass} defaultValue="">
@@ -140,8 +176,22 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               <input form={CAPTURE_FORM_ID} type="hidden" name="scale" value="volts-per-full-scale" />
               <Field label="Full scale stands for">
                 <div className="flex gap-2">
-                  <input form={CAPTURE_FORM_ID} name="volts" inputMode="decimal" placeholder="40" required className={inputClass} aria-label="Volts at full scale" />
-                  <select form={CAPTURE_FORM_ID} name="basis" className={cx(selectClass, "w-28")} defaultValue="peak" aria-label="Peak or rms">
+                  <input
+                    form={CAPTURE_FORM_ID}
+                    name="volts"
+                    inputMode="decimal"
+                    placeholder="40"
+                    required
+                    className={inputClass}
+                    aria-label="Volts at full scale"
+                  />
+                  <select
+                    form={CAPTURE_FORM_ID}
+                    name="basis"
+                    className={cx(selectClass, "w-28")}
+                    defaultValue="peak"
+                    aria-label="Peak or rms"
+                  >
                     <option value="peak">V peak</option>
                     <option value="rms">V rms</option>
                   </select>
@@ -156,9 +206,23 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               </Field>
               <Field label="Measurement bandwidth (Hz)">
                 <div className="flex items-center gap-2">
-                  <input form={CAPTURE_FORM_ID} name="bandwidthLowHz" inputMode="decimal" defaultValue="20" className={inputClass} aria-label="Low end, Hz" />
+                  <input
+                    form={CAPTURE_FORM_ID}
+                    name="bandwidthLowHz"
+                    inputMode="decimal"
+                    defaultValue="20"
+                    className={inputClass}
+                    aria-label="Low end, Hz"
+                  />
                   <span aria-hidden="true">–</span>
-                  <input form={CAPTURE_FORM_ID} name="bandwidthHighHz" inputMode="decimal" defaultValue="20000" className={inputClass} aria-label="High end, Hz" />
+                  <input
+                    form={CAPTURE_FORM_ID}
+                    name="bandwidthHighHz"
+                    inputMode="decimal"
+                    defaultValue="20000"
+                    className={inputClass}
+                    aria-label="High end, Hz"
+                  />
                 </div>
               </Field>
             </>
@@ -185,7 +249,11 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
             </>
           ) : null}
         </div>
-        {problem ? <p role="alert" className="text-sm font-medium text-fault">{problem}</p> : null}
+        {problem ? (
+          <p role="alert" className="text-sm font-medium text-fault">
+            {problem}
+          </p>
+        ) : null}
         <Button
           variant="secondary"
           onClick={() => {
@@ -203,13 +271,28 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               <div className="flex flex-wrap items-center justify-between gap-2">
                 <span className="truncate font-medium">{i.fileName}</span>
                 <Badge tone={i.state === "done" ? "trace" : i.state === "failed" ? "fault" : "brass"}>
-                  {i.state === "uploading" ? "Uploading" : i.state === "analysing" ? "Analysing" : i.state === "done" ? "Analysed" : "Refused"}
+                  {i.state === "uploading"
+                    ? "Uploading"
+                    : i.state === "analysing"
+                      ? "Analysing"
+                      : i.state === "done"
+                        ? "Analysed"
+                        : "Refused"}
                 </Badge>
               </div>
               {i.state === "uploading" || i.state === "analysing" ? (
-                <progress max={1} value={i.state === "uploading" ? i.progress : undefined} className="h-1.5 w-full accent-walnut" aria-label={`${i.fileName}: ${i.state}`} />
+                <progress
+                  max={1}
+                  value={i.state === "uploading" ? i.progress : undefined}
+                  className="h-1.5 w-full accent-walnut"
+                  aria-label={`${i.fileName}: ${i.state}`}
+                />
               ) : null}
-              {i.message ? <p role="alert" className="text-fault">{i.message}</p> : null}
+              {i.message ? (
+                <p role="alert" className="text-fault">
+                  {i.message}
+                </p>
+              ) : null}
               {i.result ? (
                 <ul className="text-xs text-ink-soft">
                   {i.result.readings.map((r, n) => (

@@ -10,8 +10,15 @@ const inputClass = cx(controlClass, "h-9 py-1.5 text-sm figures");
 const selectClass = cx(controlClass, "h-9 py-1 text-sm appearance-auto");
 
 const EXAMPLE: Record<string, string> = {
-  power: "112 W", voltage: "28.3 Vrms", ratio: "0.03 %", decibel: "98 dB(A)", frequency: "95 kHz", time: "3.5 µs",
-  resistance: "0.05 Ω", slewRate: "22 V/µs", number: "150",
+  power: "112 W",
+  voltage: "28.3 Vrms",
+  ratio: "0.03 %",
+  decibel: "98 dB(A)",
+  frequency: "95 kHz",
+  time: "3.5 µs",
+  resistance: "0.05 Ω",
+  slewRate: "22 V/µs",
+  number: "150",
 };
 
 const SELECT_LABELS: Record<string, Record<string, string>> = {
@@ -98,7 +105,13 @@ export function ReadingRow({
         <span className="figures w-7 shrink-0 text-xs text-ink-faint">{label}</span>
         <label className="min-w-0 flex-1 basis-48">
           <span className="sr-only">Reading {label}: what was measured</span>
-          <select name={name("quantity")} value={row.quantity} onChange={(e) => onChange({ quantity: isOneOf(quantities, e.target.value) ? e.target.value : "" })} className={selectClass} aria-invalid={errors.quantity ? true : undefined}>
+          <select
+            name={name("quantity")}
+            value={row.quantity}
+            onChange={(e) => onChange({ quantity: isOneOf(quantities, e.target.value) ? e.target.value : "" })}
+            className={selectClass}
+            aria-invalid={errors.quantity ? true : undefined}
+          >
             <option value="">Choose the reading…</option>
             {quantities.map((q) => (
               <option key={q} value={q}>
@@ -109,7 +122,12 @@ export function ReadingRow({
         </label>
         <label className="w-32 shrink-0 max-sm:ml-9 max-sm:flex-1">
           <span className="sr-only">Channel</span>
-          <select name={name("channel")} value={row.channel} onChange={(e) => onChange({ channel: isOneOf(CHANNELS, e.target.value) ? e.target.value : "" })} className={selectClass}>
+          <select
+            name={name("channel")}
+            value={row.channel}
+            onChange={(e) => onChange({ channel: isOneOf(CHANNELS, e.target.value) ? e.target.value : "" })}
+            className={selectClass}
+          >
             <option value="">Channel…</option>
             <option value="left">Left</option>
             <option value="right">Right</option>
@@ -144,7 +162,13 @@ export function ReadingRow({
             <label key={f} className="block space-y-1">
               <span className="text-xs font-medium text-ink-soft">{FIELD_LABELS[f].label}</span>
               {options ? (
-                <select name={name(f)} value={row[f]} onChange={(e) => onChange({ [f]: e.target.value })} className={selectClass} aria-invalid={errors[f] ? true : undefined}>
+                <select
+                  name={name(f)}
+                  value={row[f]}
+                  onChange={(e) => onChange({ [f]: e.target.value })}
+                  className={selectClass}
+                  aria-invalid={errors[f] ? true : undefined}
+                >
                   <option value="">Not stated</option>
                   {options.map((o) => (
                     <option key={o} value={o}>
@@ -171,7 +195,15 @@ export function ReadingRow({
         })}
         <details className="group col-span-2 lg:col-span-3" open={row.note ? true : undefined}>
           <summary className="cursor-pointer select-none text-xs font-medium text-ink-soft">{row.note ? "Note" : "Add a note"}</summary>
-          <input name={name("note")} value={row.note} onChange={(e) => onChange({ note: e.target.value })} maxLength={500} placeholder="How or where it was taken" aria-label={`Reading ${label}: note`} className={cx(controlClass, "mt-1 h-9 py-1.5 text-sm")} />
+          <input
+            name={name("note")}
+            value={row.note}
+            onChange={(e) => onChange({ note: e.target.value })}
+            maxLength={500}
+            placeholder="How or where it was taken"
+            aria-label={`Reading ${label}: note`}
+            className={cx(controlClass, "mt-1 h-9 py-1.5 text-sm")}
+          />
         </details>
       </div>
     </li>

@@ -24,7 +24,11 @@ function Result({ r, rowLabel }: { r: RuleResult; rowLabel: (ref: string) => str
     .filter((label) => label !== null)
     .sort((a, b) => a.localeCompare(b, "en", { numeric: true }));
   return (
-    <li className={cx("space-y-1.5 py-3", r.outcome === "implausible" && "rounded-md bg-fault-wash/60 px-3")} data-outcome={r.outcome} data-rule={r.ruleId}>
+    <li
+      className={cx("space-y-1.5 py-3", r.outcome === "implausible" && "rounded-md bg-fault-wash/60 px-3")}
+      data-outcome={r.outcome}
+      data-rule={r.ruleId}
+    >
       <div className="flex flex-wrap items-center gap-2">
         <OutcomeBadge outcome={r.outcome} />
         <h4 className="font-sans text-sm font-semibold text-ink">{r.title}</h4>
@@ -73,7 +77,14 @@ export function VerdictPanel({
   const consistent = sorted.filter((r) => r.outcome === "consistent");
   const implausible = verdict.counts.implausible > 0;
   return (
-    <section aria-labelledby="verdict-title" className={cx("space-y-4 rounded-panel border bg-card p-5 shadow-panel", implausible ? "border-fault/40" : verdict.benchVerified ? "border-trace/40" : "border-rule")} data-verdict={verdict.benchVerified ? "verified" : implausible ? "implausible" : "not-verified"}>
+    <section
+      aria-labelledby="verdict-title"
+      className={cx(
+        "space-y-4 rounded-panel border bg-card p-5 shadow-panel",
+        implausible ? "border-fault/40" : verdict.benchVerified ? "border-trace/40" : "border-rule",
+      )}
+      data-verdict={verdict.benchVerified ? "verified" : implausible ? "implausible" : "not-verified"}
+    >
       <header className="space-y-2">
         <h3 id="verdict-title" className="text-lg">
           The bench's verdict
@@ -81,7 +92,9 @@ export function VerdictPanel({
         {verdict.benchVerified ? (
           <div className="space-y-1">
             <BenchVerifiedMark />
-            <p className="text-sm text-ink-soft">{published ? "This listing carries the mark." : "The listing carries this mark once published."}</p>
+            <p className="text-sm text-ink-soft">
+              {published ? "This listing carries the mark." : "The listing carries this mark once published."}
+            </p>
           </div>
         ) : null}
         <p className="text-sm text-ink" aria-live="polite">
@@ -89,8 +102,7 @@ export function VerdictPanel({
         </p>
         {implausible ? (
           <p className="text-sm font-medium text-fault">
-            A sheet with an implausible outcome can still be published, but it waits at the review desk until a moderator
-            has looked at it.
+            A sheet with an implausible outcome can still be published, but it waits at the review desk until a moderator has looked at it.
           </p>
         ) : null}
         {stale ? (

@@ -39,7 +39,11 @@ export const sineCaptureConditionsSchema = z.strictObject({
   channel: channel.optional(),
   channelsDriven: z.enum(["one", "both", "all"]).optional(),
   mainsV: z.number().positive().max(480).optional(),
-  warmUpS: z.number().nonnegative().max(7 * 86_400).optional(),
+  warmUpS: z
+    .number()
+    .nonnegative()
+    .max(7 * 86_400)
+    .optional(),
 });
 
 export const squareCaptureConditionsSchema = z.strictObject({

@@ -170,7 +170,8 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
   const highHz = rc.statedFundamentalHz != null ? rc.statedFundamentalHz * 1.1 : rc.bandwidth.highHz;
   const kLo = Math.max(h + 1, Math.ceil(lowHz / binHz));
   const kHi = Math.min(last - h, Math.floor(highHz / binHz));
-  const where = rc.statedFundamentalHz != null ? `within ±10 % of the stated ${rc.statedFundamentalHz} Hz` : `between ${lowHz} and ${highHz} Hz`;
+  const where =
+    rc.statedFundamentalHz != null ? `within ±10 % of the stated ${rc.statedFundamentalHz} Hz` : `between ${lowHz} and ${highHz} Hz`;
   let peak = -1;
   let peakPower = 0;
   for (let k = kLo; k <= kHi; k++) {
@@ -290,7 +291,8 @@ function measureSpectrum(spec: PowerSpectrum, channel: string, rc: ResolvedSineC
 export function analyseSine(channels: Float64Array[], sampleRate: number, conditions: SineConditions, labels?: string[]): SineAnalysis {
   if (channels.length === 0) throw new CaptureError("no_fundamental", "The capture has no channels.");
   const rc = resolveSineConditions(conditions, sampleRate, channels[0].length);
-  const names = labels ?? (channels.length === 1 ? ["mono"] : channels.length === 2 ? ["left", "right"] : channels.map((_, i) => `ch${i + 1}`));
+  const names =
+    labels ?? (channels.length === 1 ? ["mono"] : channels.length === 2 ? ["left", "right"] : channels.map((_, i) => `ch${i + 1}`));
   const out: SineChannelAnalysis[] = [];
   const skipped: SineAnalysis["skipped"] = [];
   let firstError: CaptureError | null = null;

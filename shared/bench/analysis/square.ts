@@ -109,7 +109,11 @@ export function analyseSquare(time: Float64Array, volts: Float64Array): SquareAn
   const n = time.length;
   for (let i = 1; i < n; i++) {
     if (!(time[i] > time[i - 1])) {
-      throw new CaptureError("csv_not_increasing", `The time column must rise from row to row; data row ${i + 1} (${time[i]} s) does not follow ${time[i - 1]} s.`, { row: i + 1 });
+      throw new CaptureError(
+        "csv_not_increasing",
+        `The time column must rise from row to row; data row ${i + 1} (${time[i]} s) does not follow ${time[i - 1]} s.`,
+        { row: i + 1 },
+      );
     }
   }
   let min = Infinity;

@@ -12,7 +12,14 @@ const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "obj
 const isFigure = (x: unknown) => isRecord(x) && typeof x.value === "number";
 
 function isSineChannel(x: unknown): boolean {
-  return isRecord(x) && isRecord(x.fundamental) && isFigure(x.fundamental.frequency) && Array.isArray(x.harmonics) && isRecord(x.thd) && isRecord(x.thdN);
+  return (
+    isRecord(x) &&
+    isRecord(x.fundamental) &&
+    isFigure(x.fundamental.frequency) &&
+    Array.isArray(x.harmonics) &&
+    isRecord(x.thd) &&
+    isRecord(x.thdN)
+  );
 }
 
 function fits(x: unknown): x is AnyAnalysis {

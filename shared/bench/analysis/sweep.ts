@@ -72,7 +72,8 @@ export function analyseSweep(frequency: Float64Array, level: Float64Array, c: Sw
   for (let i = 0; i < f.length; i++) {
     if (!(f[i] > 0)) throw new CaptureError("sweep_invalid", `Frequencies must be above 0 Hz; found ${f[i]} Hz.`);
     if (i > 0 && f[i] === f[i - 1]) throw new CaptureError("sweep_invalid", `The frequency ${f[i]} Hz appears twice in the sweep.`);
-    if (levelUnit === "V" && !(raw[i] > 0)) throw new CaptureError("sweep_invalid", `Levels in volts must be above 0 V; found ${raw[i]} V at ${f[i]} Hz.`);
+    if (levelUnit === "V" && !(raw[i] > 0))
+      throw new CaptureError("sweep_invalid", `Levels in volts must be above 0 V; found ${raw[i]} V at ${f[i]} Hz.`);
   }
   const lo = f[0];
   const hi = f[f.length - 1];

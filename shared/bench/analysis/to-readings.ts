@@ -110,11 +110,7 @@ function thin<T>(points: T[]): T[] {
   return Array.from({ length: MAX_SWEEP_POINTS }, (_, i) => points[Math.round(i * step)]);
 }
 
-export function sweepToSheet(
-  a: SweepAnalysis,
-  c: SweepCaptureConditions,
-  captureId: string,
-): { sweep: Sweep; readings: Reading[] } {
+export function sweepToSheet(a: SweepAnalysis, c: SweepCaptureConditions, captureId: string): { sweep: Sweep; readings: Reading[] } {
   const riaa = a.conditions.reference === "riaa";
   const range = a.conditions.sweepRange;
   const sweep: Sweep = {
@@ -138,8 +134,24 @@ export function sweepToSheet(
     }),
   ];
   if (a.minus3dB.low)
-    readings.push(reading(captureId, { quantity: "f3db_low", value: a.minus3dB.low.value, unit: "Hz", channel: c.channel, conditions: { loadOhm: c.loadOhm } }));
+    readings.push(
+      reading(captureId, {
+        quantity: "f3db_low",
+        value: a.minus3dB.low.value,
+        unit: "Hz",
+        channel: c.channel,
+        conditions: { loadOhm: c.loadOhm },
+      }),
+    );
   if (a.minus3dB.high)
-    readings.push(reading(captureId, { quantity: "f3db_high", value: a.minus3dB.high.value, unit: "Hz", channel: c.channel, conditions: { loadOhm: c.loadOhm } }));
+    readings.push(
+      reading(captureId, {
+        quantity: "f3db_high",
+        value: a.minus3dB.high.value,
+        unit: "Hz",
+        channel: c.channel,
+        conditions: { loadOhm: c.loadOhm },
+      }),
+    );
   return { sweep, readings };
 }

@@ -44,20 +44,31 @@ export const channelBalance: Rule = {
     const tol = ix.category === "loudspeaker" ? SPEAKER_BALANCE_DB : BALANCE_DB;
     for (const { q, kind, db } of LEVELS) {
       const ms = ix.measured(q);
-      for (const [l, r] of pairs(ms.filter((m) => m.channel === "left"), ms.filter((m) => m.channel === "right"))) {
+      for (const [l, r] of pairs(
+        ms.filter((m) => m.channel === "left"),
+        ms.filter((m) => m.channel === "right"),
+      )) {
         checked++;
         const d = db(l.value, r.value);
         out.result({
           outcome: Math.abs(d) <= tol ? "consistent" : "questionable",
           detail: `Left ${formatReadingValue(l)} and right ${formatReadingValue(r)} differ by ${formatValue(Math.abs(d), "decibel", { sig: 2 })} (limit ${formatValue(tol, "decibel")}).`,
           refs: [l.ref, r.ref],
-          compared: [fig("left", l.value, kind), fig("right", r.value, kind), fig("difference", Math.abs(d), "decibel"), fig("limit", tol, "decibel")],
+          compared: [
+            fig("left", l.value, kind),
+            fig("right", r.value, kind),
+            fig("difference", Math.abs(d), "decibel"),
+            fig("limit", tol, "decibel"),
+          ],
         });
       }
     }
     for (const q of DISTORTIONS) {
       const ms = ix.measured(q);
-      for (const [l, r] of pairs(ms.filter((m) => m.channel === "left"), ms.filter((m) => m.channel === "right"))) {
+      for (const [l, r] of pairs(
+        ms.filter((m) => m.channel === "left"),
+        ms.filter((m) => m.channel === "right"),
+      )) {
         checked++;
         const spread = Math.max(l.value, r.value) / Math.min(l.value, r.value);
         const ok = spread <= DISTORTION_SPREAD || Math.max(l.value, r.value) <= DISTORTION_FLOOR;
@@ -65,7 +76,11 @@ export const channelBalance: Rule = {
           outcome: ok ? "consistent" : "questionable",
           detail: `Left ${formatReadingValue(l)} and right ${formatReadingValue(r)} ${q === "thd" ? "THD" : "THD+N"} (${spread.toFixed(1)}× apart).`,
           refs: [l.ref, r.ref],
-          compared: [fig("left", l.value, "ratio"), fig("right", r.value, "ratio"), fig("spread", spread, "number", { display: `${spread.toFixed(1)}×` })],
+          compared: [
+            fig("left", l.value, "ratio"),
+            fig("right", r.value, "ratio"),
+            fig("spread", spread, "number", { display: `${spread.toFixed(1)}×` }),
+          ],
         });
       }
     }
@@ -82,7 +97,8 @@ export const channelBalance: Rule = {
     if (STEREO_ELECTRONICS.includes(ix.category)) {
       out.result({
         outcome: "missing",
-        detail: "No left and right readings under the same conditions and no channel balance figure: measure each channel, or state the balance.",
+        detail:
+          "No left and right readings under the same conditions and no channel balance figure: measure each channel, or state the balance.",
         refs: [],
       });
       return;

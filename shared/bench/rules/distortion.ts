@@ -16,7 +16,11 @@ export const thdnNotBelowThd: Rule = {
     if (!thds.length || !thdns.length) return "Needs both a measured THD and a measured THD+N.";
     let pairs = 0;
     for (const t of thds) {
-      const n = thdns.find((n) => channelsCompatible(n.channel, t.channel) && conditionsCompatible(n.conditions, t.conditions, ["loadOhm", "frequencyHz", "powerW", "voltageV"]));
+      const n = thdns.find(
+        (n) =>
+          channelsCompatible(n.channel, t.channel) &&
+          conditionsCompatible(n.conditions, t.conditions, ["loadOhm", "frequencyHz", "powerW", "voltageV"]),
+      );
       if (!n) continue;
       pairs++;
       const ratio = n.value / t.value;
@@ -75,7 +79,12 @@ export const analyserResolution: Rule = {
         });
       }
     if (!seen) return "No measured distortion, SNR or wow & flutter figures.";
-    if (fine) out.result({ outcome: "consistent", detail: `${fine} figure${fine > 1 ? "s are" : " is"} within what bench analysers resolve.`, refs: fineRefs });
+    if (fine)
+      out.result({
+        outcome: "consistent",
+        detail: `${fine} figure${fine > 1 ? "s are" : " is"} within what bench analysers resolve.`,
+        refs: fineRefs,
+      });
   },
 };
 
@@ -124,11 +133,12 @@ export const noiseConditions: Rule = {
         if (!c.weighting && !(q !== "rumble" && c.bandwidth)) missing.push(q === "rumble" ? "weighting" : "weighting or bandwidth");
         out.result({
           outcome: missing.length ? "missing" : "consistent",
-          detail: missing.length ? `${nameOf(r)} does not state: ${missing.join(", ")}.` : `${nameOf(r)} states its ${q === "snr" ? "reference and " : ""}weighting.`,
+          detail: missing.length
+            ? `${nameOf(r)} does not state: ${missing.join(", ")}.`
+            : `${nameOf(r)} states its ${q === "snr" ? "reference and " : ""}weighting.`,
           refs: [r.ref],
         });
       }
     if (!seen) return "No measured noise figures.";
   },
 };
-

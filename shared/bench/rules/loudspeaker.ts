@@ -26,7 +26,11 @@ export const speakerImpedanceMinimum: Rule = {
     if (!mins.length) return "No measured impedance minimum.";
     const nominal = ratedImpedance(ix);
     if (!nominal) {
-      out.result({ outcome: "missing", detail: "The sheet has an impedance minimum but no rated impedance to hold it against.", refs: mins.map((m) => m.ref) });
+      out.result({
+        outcome: "missing",
+        detail: "The sheet has an impedance minimum but no rated impedance to hold it against.",
+        refs: mins.map((m) => m.ref),
+      });
       return;
     }
     for (const m of mins) {
@@ -39,7 +43,11 @@ export const speakerImpedanceMinimum: Rule = {
           ? `Minimum ${formatReadingValue(m)}${at} stays above ${formatValue(floor, "resistance")}, 80 % of the rated ${formatReadingValue(nominal)}.`
           : `Minimum ${formatReadingValue(m)}${at} dips below ${formatValue(floor, "resistance")}, 80 % of the rated ${formatReadingValue(nominal)}: treat it as a ${formatValue(m.value / IMPEDANCE_FLOOR, "resistance")} load.`,
         refs: [m.ref, nominal.ref],
-        compared: [fig("impedance minimum", m.value, "resistance"), fig("rated impedance", nominal.value, "resistance"), fig("80 % floor", floor, "resistance")],
+        compared: [
+          fig("impedance minimum", m.value, "resistance"),
+          fig("rated impedance", nominal.value, "resistance"),
+          fig("80 % floor", floor, "resistance"),
+        ],
       });
     }
   },
@@ -77,17 +85,35 @@ export const speakerSensitivity: Rule = {
       const ref = referenceOf(s);
       const dist = distanceOf(s);
       if (!ref || dist === undefined) {
-        out.result({ outcome: "missing", detail: `Sensitivity ${formatReadingValue(s)} does not state ${!ref ? "its drive (2.83 V or 1 W)" : ""}${!ref && dist === undefined ? " and " : ""}${dist === undefined ? "its distance (1 m)" : ""}.`, refs: [s.ref] });
+        out.result({
+          outcome: "missing",
+          detail: `Sensitivity ${formatReadingValue(s)} does not state ${!ref ? "its drive (2.83 V or 1 W)" : ""}${!ref && dist === undefined ? " and " : ""}${dist === undefined ? "its distance (1 m)" : ""}.`,
+          refs: [s.ref],
+        });
         continue;
       }
       if (ref === "other" || !near(dist, 1, 0.01)) {
-        out.result({ outcome: "questionable", detail: `Sensitivity ${formatReadingValue(s)} is referred to another drive or distance; state it at 2.83 V or 1 W, at 1 m, so buyers can compare.`, refs: [s.ref] });
+        out.result({
+          outcome: "questionable",
+          detail: `Sensitivity ${formatReadingValue(s)} is referred to another drive or distance; state it at 2.83 V or 1 W, at 1 m, so buyers can compare.`,
+          refs: [s.ref],
+        });
         continue;
       }
       if (!byRef.has(ref)) byRef.set(ref, s);
-      out.result({ outcome: "consistent", detail: `Sensitivity ${formatReadingValue(s)} at ${ref === "2.83V" ? "2.83 V" : "1 W"}, 1 m.`, refs: [s.ref] });
+      out.result({
+        outcome: "consistent",
+        detail: `Sensitivity ${formatReadingValue(s)} at ${ref === "2.83V" ? "2.83 V" : "1 W"}, 1 m.`,
+        refs: [s.ref],
+      });
       if (ref === "2.83V" && nominal)
-        out.derive({ id: `sensitivity-per-watt:${s.ref}`, label: `Sensitivity per 1 W into the rated ${formatReadingValue(nominal)}`, value: s.value - 10 * Math.log10(8 / nominal.value), kind: "decibel", refs: [s.ref, nominal.ref] });
+        out.derive({
+          id: `sensitivity-per-watt:${s.ref}`,
+          label: `Sensitivity per 1 W into the rated ${formatReadingValue(nominal)}`,
+          value: s.value - 10 * Math.log10(8 / nominal.value),
+          kind: "decibel",
+          refs: [s.ref, nominal.ref],
+        });
     }
     const v = byRef.get("2.83V");
     const w = byRef.get("1W");
@@ -99,7 +125,11 @@ export const speakerSensitivity: Rule = {
         outcome: ok ? "consistent" : "questionable",
         detail: `At ${formatReadingValue(nominal)}, the 2.83 V figure should exceed the 1 W figure by ${formatValue(expected, "decibel")}; the sheet shows ${formatValue(diff, "decibel")}.`,
         refs: [v.ref, w.ref, nominal.ref],
-        compared: [fig("at 2.83 V", v.value, "decibel"), fig("at 1 W", w.value, "decibel"), fig("expected difference 10·log10(8/Z)", expected, "decibel")],
+        compared: [
+          fig("at 2.83 V", v.value, "decibel"),
+          fig("at 1 W", w.value, "decibel"),
+          fig("expected difference 10·log10(8/Z)", expected, "decibel"),
+        ],
       });
     }
   },

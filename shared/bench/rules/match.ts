@@ -39,7 +39,17 @@ export function conditionsCompatible(a: Conditions | undefined, b: Conditions | 
   return true;
 }
 
-export const ALL_KEYS: Key[] = ["loadOhm", "frequencyHz", "powerW", "voltageV", "distortion", "channelsDriven", "weighting", "speedRpm", "testToneHz"];
+export const ALL_KEYS: Key[] = [
+  "loadOhm",
+  "frequencyHz",
+  "powerW",
+  "voltageV",
+  "distortion",
+  "channelsDriven",
+  "weighting",
+  "speedRpm",
+  "testToneHz",
+];
 
 /** "left output power 66 W" — short name for a reading inside a sentence. */
 export function nameOf(r: Item): string {

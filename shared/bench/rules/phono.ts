@@ -90,13 +90,24 @@ function evaluateSweep(ix: SheetIndex, s: SweepItem, typed: ReturnType<SheetInde
   const lo = s.points[0].frequencyHz;
   const hi = s.points[s.points.length - 1].frequencyHz;
   if (!fit) {
-    out.result({ outcome: "missing", detail: `The sweep covers ${range(lo, hi)}; it must span 1 kHz to be compared with the RIAA curve.`, refs: [s.ref] });
+    out.result({
+      outcome: "missing",
+      detail: `The sweep covers ${range(lo, hi)}; it must span 1 kHz to be compared with the RIAA curve.`,
+      refs: [s.ref],
+    });
     return;
   }
   const worst = Math.abs(fit.worstDb);
   const ch = s.channel && s.channel !== "both" ? `${s.channel} channel ` : "";
   const variant = fit.variant === "riaa_iec" ? "RIAA with the IEC subsonic pole" : "RIAA";
-  out.derive({ id: `riaa-worst-deviation:${s.ref}`, label: `Worst ${ch}deviation from ${variant}, at ${formatValue(fit.atHz, "frequency")}`, value: fit.worstDb, kind: "decibel", refs: [s.ref], format: { signed: true } });
+  out.derive({
+    id: `riaa-worst-deviation:${s.ref}`,
+    label: `Worst ${ch}deviation from ${variant}, at ${formatValue(fit.atHz, "frequency")}`,
+    value: fit.worstDb,
+    kind: "decibel",
+    refs: [s.ref],
+    format: { signed: true },
+  });
   const claim = typed.find((t) => channelsCompatible(t.channel, s.channel));
   const compared = [
     fig("worst deviation", fit.worstDb, "decibel", { signed: true }),
@@ -106,13 +117,20 @@ function evaluateSweep(ix: SheetIndex, s: SweepItem, typed: ReturnType<SheetInde
   ];
   const where = `${formatValue(fit.worstDb, "decibel", { signed: true, sig: 2 })} at ${formatValue(fit.atHz, "frequency")} (${variant}, ${range(lo, hi)})`;
   if (claim && worst > Math.abs(claim.value) + RIAA_CLAIM_SLACK_DB) {
-    out.result({ outcome: "questionable", detail: `The ${ch}sweep deviates by ${where}, more than the ${formatReadingValue(claim)} the sheet states.`, refs: [s.ref, claim.ref], compared: [...compared, fig("stated deviation", claim.value, "decibel")] });
+    out.result({
+      outcome: "questionable",
+      detail: `The ${ch}sweep deviates by ${where}, more than the ${formatReadingValue(claim)} the sheet states.`,
+      refs: [s.ref, claim.ref],
+      compared: [...compared, fig("stated deviation", claim.value, "decibel")],
+    });
     return;
   }
   const ok = worst <= RIAA_LIMIT_DB;
   out.result({
     outcome: ok ? "consistent" : "questionable",
-    detail: ok ? `The ${ch}sweep's worst deviation is ${where}, within ±${RIAA_LIMIT_DB} dB.` : `The ${ch}sweep deviates by ${where}, beyond ±${RIAA_LIMIT_DB} dB: the equalisation network needs attention.`,
+    detail: ok
+      ? `The ${ch}sweep's worst deviation is ${where}, within ±${RIAA_LIMIT_DB} dB.`
+      : `The ${ch}sweep deviates by ${where}, beyond ±${RIAA_LIMIT_DB} dB: the equalisation network needs attention.`,
     refs: claim ? [s.ref, claim.ref] : [s.ref],
     compared: [...compared, fig("limit", RIAA_LIMIT_DB, "decibel")],
   });
@@ -127,11 +145,26 @@ export function deriveFlatSweeps(ix: SheetIndex, out: Emit): void {
     let worst = 0;
     for (const p of s.points) if (Math.abs(p.levelDb - ref) > Math.abs(worst)) worst = p.levelDb - ref;
     const ch = s.channel && s.channel !== "both" ? `${s.channel} channel ` : "";
-    out.derive({ id: `response-deviation:${s.ref}`, label: `Worst ${ch}deviation from the 1 kHz level`, value: worst, kind: "decibel", refs: [s.ref], format: { signed: true } });
+    out.derive({
+      id: `response-deviation:${s.ref}`,
+      label: `Worst ${ch}deviation from the 1 kHz level`,
+      value: worst,
+      kind: "decibel",
+      refs: [s.ref],
+      format: { signed: true },
+    });
     const low = crossing(s.points, ref - 3, "down");
     const high = crossing(s.points, ref - 3, "up");
-    if (low !== undefined) out.derive({ id: `f3db-low:${s.ref}`, label: `Low ${ch}−3 dB point from the sweep`, value: low, kind: "frequency", refs: [s.ref] });
-    if (high !== undefined) out.derive({ id: `f3db-high:${s.ref}`, label: `High ${ch}−3 dB point from the sweep`, value: high, kind: "frequency", refs: [s.ref] });
+    if (low !== undefined)
+      out.derive({ id: `f3db-low:${s.ref}`, label: `Low ${ch}−3 dB point from the sweep`, value: low, kind: "frequency", refs: [s.ref] });
+    if (high !== undefined)
+      out.derive({
+        id: `f3db-high:${s.ref}`,
+        label: `High ${ch}−3 dB point from the sweep`,
+        value: high,
+        kind: "frequency",
+        refs: [s.ref],
+      });
   }
 }
 

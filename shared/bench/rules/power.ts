@@ -41,7 +41,13 @@ export const powerVoltageLoad: Rule = {
     for (const v of volts) {
       const R = v.conditions.loadOhm!;
       const pv = powerFromVrms(v.value, R);
-      out.derive({ id: `power-from-voltage:${v.ref}`, label: `Power from ${formatReadingValue(v)} into ${formatValue(R, "resistance")}`, value: pv, kind: "power", refs: [v.ref] });
+      out.derive({
+        id: `power-from-voltage:${v.ref}`,
+        label: `Power from ${formatReadingValue(v)} into ${formatValue(R, "resistance")}`,
+        value: pv,
+        kind: "power",
+        refs: [v.ref],
+      });
       const p = powers.find((p) => sameOperatingPoint(p, v));
       if (!p) continue;
       compared++;
@@ -101,7 +107,8 @@ export const halfLoadPower: Rule = {
         const what = `${nameOf(half)} into ${formatValue(half.conditions.loadOhm!, "resistance")} is ${ratio.toFixed(2)}× the ${formatReadingValue(full)} into ${formatValue(full.conditions.loadOhm!, "resistance")}`;
         out.result({
           outcome,
-          detail: outcome === "consistent" ? `${what}; at most 2× is expected.` : `${what}; more than 2× is not possible from a voltage source.`,
+          detail:
+            outcome === "consistent" ? `${what}; at most 2× is expected.` : `${what}; more than 2× is not possible from a voltage source.`,
           refs: [full.ref, half.ref],
           compared: [
             fig("power into rated load", full.value, "power"),
@@ -136,7 +143,8 @@ export const peakWithinRails: Rule = {
   title: "Peak output fits inside the supply rails",
   explanation:
     "A (non-bridged) output stage cannot swing its output beyond its supply rails, and in practice stops a few volts short. The peak voltage implied by the measured power (Vpk = √(2·P·R)) must fit inside the rails measured on the sheet.",
-  source: "Textbook: output swing is bounded by the supply; Vpk = √(2·P·R) for a sine; 5 % allowance for rail sag and meter tolerance (common practice)",
+  source:
+    "Textbook: output swing is bounded by the supply; Vpk = √(2·P·R) for a sine; 5 % allowance for rail sag and meter tolerance (common practice)",
   categories: AMPLIFIER_CATEGORIES,
   evaluate(ix, out) {
     const rails = ix.all("rail_voltage");
@@ -163,7 +171,14 @@ export const peakWithinRails: Rule = {
         fig("largest possible peak swing", limit, "voltage"),
       ],
     });
-    out.derive({ id: "peak-output-voltage", label: "Highest peak output voltage", value: peak.vpk, kind: "voltage", refs: [peak.from.ref], display: formatValue(peak.vpk / SQRT2, "voltage", { form: "peak" }) });
+    out.derive({
+      id: "peak-output-voltage",
+      label: "Highest peak output voltage",
+      value: peak.vpk,
+      kind: "voltage",
+      refs: [peak.from.ref],
+      display: formatValue(peak.vpk / SQRT2, "voltage", { form: "peak" }),
+    });
   },
 };
 
@@ -195,16 +210,30 @@ export const ratedVsMeasuredPower: Rule = {
       const ratio = m.value / r.value;
       const load = formatValue(r.conditions.loadOhm!, "resistance");
       const refs = [r.ref, m.ref];
-      const compared_ = [fig("rated power", r.value, "power"), fig("measured power (weakest channel)", m.value, "power"), fig("measured ÷ rated", ratio, "number", { display: `${ratio.toFixed(2)}×` })];
+      const compared_ = [
+        fig("rated power", r.value, "power"),
+        fig("measured power (weakest channel)", m.value, "power"),
+        fig("measured ÷ rated", ratio, "number", { display: `${ratio.toFixed(2)}×` }),
+      ];
       if (ratio > FAR_ABOVE_RATED) {
-        out.result({ outcome: "questionable", detail: `${nameOf(m)} into ${load} is ${ratio.toFixed(2)}× the maker's ${formatReadingValue(r)}: check the load, the distortion limit and that the figure is average, not peak, power.`, refs, compared: compared_ });
+        out.result({
+          outcome: "questionable",
+          detail: `${nameOf(m)} into ${load} is ${ratio.toFixed(2)}× the maker's ${formatReadingValue(r)}: check the load, the distortion limit and that the figure is average, not peak, power.`,
+          refs,
+          compared: compared_,
+        });
       } else if (ratio < 1) {
         const short = (1 - ratio) * 100;
         const detail = `${nameOf(m)} into ${load} falls short of the maker's ${formatReadingValue(r)} by ${pct(short)}.`;
         out.result({ outcome: "consistent", detail, refs, compared: compared_ });
         out.shortfall({ detail, percent: Number(short.toFixed(1)), refs });
       } else {
-        out.result({ outcome: "consistent", detail: `${nameOf(m)} into ${load} meets the maker's ${formatReadingValue(r)} (${pct((ratio - 1) * 100)} above).`, refs, compared: compared_ });
+        out.result({
+          outcome: "consistent",
+          detail: `${nameOf(m)} into ${load} meets the maker's ${formatReadingValue(r)} (${pct((ratio - 1) * 100)} above).`,
+          refs,
+          compared: compared_,
+        });
       }
     }
     if (!compared) return "No measured power at a rated load.";
@@ -216,7 +245,8 @@ export const powerRatingConditions: Rule = {
   title: "A power figure states its conditions",
   explanation:
     "A watt figure means little without the load it drives, the frequency or frequency range, the distortion it was taken at and how many channels were driven together. Every power figure on the sheet, rated or measured, must state all four.",
-  source: "US FTC amplifier rule, 16 CFR Part 432 (power per channel at a stated impedance, power band, maximum distortion, all channels driven)",
+  source:
+    "US FTC amplifier rule, 16 CFR Part 432 (power per channel at a stated impedance, power band, maximum distortion, all channels driven)",
   categories: AMPLIFIER_CATEGORIES,
   evaluate(ix, out) {
     const ps = ix.all("output_power");

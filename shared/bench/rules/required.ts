@@ -15,7 +15,12 @@ export type Requirement = {
 
 const power: Requirement = { id: "output-power", label: "Output power into a stated load", anyOf: ["output_power"] };
 const distortion: Requirement = { id: "distortion", label: "THD or THD+N", anyOf: ["thd", "thd_n"] };
-const response: Requirement = { id: "frequency-response", label: "Frequency response (−3 dB point or deviation over a range)", anyOf: ["f3db_high", "response_deviation"], sweep: "flat" };
+const response: Requirement = {
+  id: "frequency-response",
+  label: "Frequency response (−3 dB point or deviation over a range)",
+  anyOf: ["f3db_high", "response_deviation"],
+  sweep: "flat",
+};
 const noise: Requirement = { id: "noise", label: "Signal-to-noise ratio or output noise", anyOf: ["snr", "noise"] };
 const amp = [power, distortion, response, noise];
 
@@ -59,12 +64,24 @@ export const requiredReadings: Rule = {
       const rated = req.anyOf.flatMap((q) => ix.rated(q));
       const names = req.anyOf.map((q) => QUANTITY_INFO[q].label).join(" or ");
       if (measured.length || sweeps.length) {
-        out.result({ outcome: "consistent", detail: `${req.label}: ${req.ratedIsEnough ? "stated" : "measured"}.`, refs: [...measured, ...sweeps].map((m) => m.ref) });
+        out.result({
+          outcome: "consistent",
+          detail: `${req.label}: ${req.ratedIsEnough ? "stated" : "measured"}.`,
+          refs: [...measured, ...sweeps].map((m) => m.ref),
+        });
       } else if (rated.length) {
-        out.result({ outcome: "missing", detail: `${req.label}: only the maker's figure is on the sheet; measure ${names || "it"} on this unit.`, refs: rated.map((r) => r.ref) });
+        out.result({
+          outcome: "missing",
+          detail: `${req.label}: only the maker's figure is on the sheet; measure ${names || "it"} on this unit.`,
+          refs: rated.map((r) => r.ref),
+        });
       } else {
         const what = req.sweep === "riaa" ? "a response sweep of the phono stage" : names;
-        out.result({ outcome: "missing", detail: `${req.label}: a ${CATEGORY_LABELS[ix.category].toLowerCase()} sheet needs ${what}.`, refs: [] });
+        out.result({
+          outcome: "missing",
+          detail: `${req.label}: a ${CATEGORY_LABELS[ix.category].toLowerCase()} sheet needs ${what}.`,
+          refs: [],
+        });
       }
     }
   },

@@ -16,7 +16,8 @@ export const riseTimeBandwidth: Rule = {
   title: "Rise time and bandwidth agree",
   explanation:
     "A square wave's 10–90 % rise time and the upper −3 dB point describe the same thing: for a single-pole response f₋₃dB ≈ 0.35 / t_rise (1.75 µs ≈ 200 kHz). Real amplifiers are not exactly single-pole, so the bench allows a factor of 1.4 either way before asking.",
-  source: "Single-pole relation f₋₃dB = ln9/(2π·t_r) ≈ 0.35/t_r, 10–90 % (electronics textbook); ×1.4 consistent, ×2 questionable (common practice)",
+  source:
+    "Single-pole relation f₋₃dB = ln9/(2π·t_r) ≈ 0.35/t_r, 10–90 % (electronics textbook); ×1.4 consistent, ×2 questionable (common practice)",
   evaluate(ix, out) {
     const rises = ix.measured("rise_time");
     if (!rises.length) return "No measured rise time.";
@@ -24,7 +25,13 @@ export const riseTimeBandwidth: Rule = {
     let pairs = 0;
     for (const t of rises) {
       const predicted = RISE_BW_PRODUCT / t.value;
-      out.derive({ id: `bandwidth-from-rise-time:${t.ref}`, label: `Bandwidth implied by ${formatReadingValue(t)} rise time`, value: predicted, kind: "frequency", refs: [t.ref] });
+      out.derive({
+        id: `bandwidth-from-rise-time:${t.ref}`,
+        label: `Bandwidth implied by ${formatReadingValue(t)} rise time`,
+        value: predicted,
+        kind: "frequency",
+        refs: [t.ref],
+      });
       const f = highs.find((f) => channelsCompatible(f.channel, t.channel));
       if (!f) continue;
       pairs++;
@@ -60,8 +67,7 @@ export const slewRateFullPower: Rule = {
     if (!peak) return "No output power or voltage to size the slew rate against.";
     let fTop: number | undefined;
     let fRef: string | undefined;
-    for (const b of ix.all("power_bandwidth"))
-      if (fTop === undefined || b.value > fTop) [fTop, fRef] = [b.value, b.ref];
+    for (const b of ix.all("power_bandwidth")) if (fTop === undefined || b.value > fTop) [fTop, fRef] = [b.value, b.ref];
     if (fTop === undefined)
       for (const p of ix.all("output_power")) {
         const hi = p.conditions.frequencyRange?.highHz;
@@ -70,9 +76,21 @@ export const slewRateFullPower: Rule = {
     const assumed = fTop === undefined;
     const f = fTop ?? DEFAULT_POWER_BAND_HZ;
     const need = 2 * Math.PI * f * peak.vpk;
-    out.derive({ id: "slew-rate-needed", label: `Slew rate needed for ${formatValue(peak.vpk, "voltage")} peak at ${formatValue(f, "frequency")}`, value: need, kind: "slewRate", refs: [peak.from.ref] });
+    out.derive({
+      id: "slew-rate-needed",
+      label: `Slew rate needed for ${formatValue(peak.vpk, "voltage")} peak at ${formatValue(f, "frequency")}`,
+      value: need,
+      kind: "slewRate",
+      refs: [peak.from.ref],
+    });
     for (const s of srs) {
-      out.derive({ id: `full-power-bandwidth-from-slew:${s.ref}`, label: `Full-power bandwidth ${formatReadingValue(s)} allows`, value: s.value / (2 * Math.PI * peak.vpk), kind: "frequency", refs: [s.ref, peak.from.ref] });
+      out.derive({
+        id: `full-power-bandwidth-from-slew:${s.ref}`,
+        label: `Full-power bandwidth ${formatReadingValue(s)} allows`,
+        value: s.value / (2 * Math.PI * peak.vpk),
+        kind: "frequency",
+        refs: [s.ref, peak.from.ref],
+      });
       const ratio = s.value / need;
       const outcome = ratio >= 1 ? "consistent" : assumed || ratio >= 0.5 ? "questionable" : "implausible";
       const band = assumed ? `${formatValue(f, "frequency")} (assumed: the sheet states no power band)` : formatValue(f, "frequency");
@@ -105,13 +123,27 @@ export const dampingVsImpedance: Rule = {
     const zs = ix.measured("output_impedance");
     if (!dfs.length && !zs.length) return "No measured damping factor or output impedance.";
     for (const z of zs)
-      out.derive({ id: `damping-factor-from-impedance:${z.ref}`, label: `Damping factor into 8 Ω from ${formatReadingValue(z)}`, value: 8 / z.value, kind: "number", refs: [z.ref] });
+      out.derive({
+        id: `damping-factor-from-impedance:${z.ref}`,
+        label: `Damping factor into 8 Ω from ${formatReadingValue(z)}`,
+        value: 8 / z.value,
+        kind: "number",
+        refs: [z.ref],
+      });
     let pairs = 0;
     for (const d of dfs) {
       const load = d.conditions.loadOhm ?? 8;
-      const z = zs.find((z) => channelsCompatible(z.channel, d.channel) && conditionsCompatible(z.conditions, d.conditions, ["frequencyHz"]));
+      const z = zs.find(
+        (z) => channelsCompatible(z.channel, d.channel) && conditionsCompatible(z.conditions, d.conditions, ["frequencyHz"]),
+      );
       if (!z) {
-        out.derive({ id: `output-impedance-from-damping:${d.ref}`, label: `Output impedance from damping factor ${formatReadingValue(d)}`, value: load / d.value, kind: "resistance", refs: [d.ref] });
+        out.derive({
+          id: `output-impedance-from-damping:${d.ref}`,
+          label: `Output impedance from damping factor ${formatReadingValue(d)}`,
+          value: load / d.value,
+          kind: "resistance",
+          refs: [d.ref],
+        });
         continue;
       }
       pairs++;

@@ -27,12 +27,21 @@ export const speedError: Rule = {
     const rated = ix.rated("speed_error");
     for (const m of ms) {
       if (ix.category === "turntable" && m.conditions.speedRpm === undefined) {
-        out.result({ outcome: "missing", detail: `Speed error ${formatReadingValue(m)} does not state the speed (33⅓, 45 or 78 rpm).`, refs: [m.ref] });
+        out.result({
+          outcome: "missing",
+          detail: `Speed error ${formatReadingValue(m)} does not state the speed (33⅓, 45 or 78 rpm).`,
+          refs: [m.ref],
+        });
         continue;
       }
       const e = m.value;
       if (Math.abs(e) > SEMITONE) {
-        out.result({ outcome: "questionable", detail: `Speed error ${formatReadingValue(m)} is more than a semitone: check the figure and its unit.`, refs: [m.ref], compared: [fig("speed error", e, "ratio", { signed: true })] });
+        out.result({
+          outcome: "questionable",
+          detail: `Speed error ${formatReadingValue(m)} is more than a semitone: check the figure and its unit.`,
+          refs: [m.ref],
+          compared: [fig("speed error", e, "ratio", { signed: true })],
+        });
         continue;
       }
       const r = rated.find((r) => conditionsCompatible(r.conditions, m.conditions, ["speedRpm"]));
@@ -40,12 +49,23 @@ export const speedError: Rule = {
       const fast = r ? Math.abs(r.value) : din.fast;
       const slow = r ? Math.abs(r.value) : din.slow;
       const within = e <= fast + 1e-12 && -e <= slow + 1e-12;
-      const against = r ? `the maker's ±${formatValue(Math.abs(r.value), "ratio")}` : `DIN 45500's +${formatValue(fast, "ratio")}/−${formatValue(slow, "ratio")}`;
+      const against = r
+        ? `the maker's ±${formatValue(Math.abs(r.value), "ratio")}`
+        : `DIN 45500's +${formatValue(fast, "ratio")}/−${formatValue(slow, "ratio")}`;
       const at = m.conditions.speedRpm !== undefined ? ` at ${formatValue(m.conditions.speedRpm, "number")} rpm` : "";
       const dir = e >= 0 ? "fast" : "slow";
       const detail = `Runs ${formatValue(Math.abs(e), "ratio")} ${dir}${at}, ${within ? "within" : "outside"} ${against}.`;
       const refs = r ? [m.ref, r.ref] : [m.ref];
-      out.result({ outcome: "consistent", detail, refs, compared: [fig("speed error", e, "ratio", { signed: true }), fig("allowed fast", fast, "ratio"), fig("allowed slow", slow, "ratio")] });
+      out.result({
+        outcome: "consistent",
+        detail,
+        refs,
+        compared: [
+          fig("speed error", e, "ratio", { signed: true }),
+          fig("allowed fast", fast, "ratio"),
+          fig("allowed slow", slow, "ratio"),
+        ],
+      });
       if (!within) {
         const limit = e >= 0 ? fast : slow;
         out.shortfall({ detail, percent: Number((((Math.abs(e) - limit) / limit) * 100).toFixed(1)), refs });
@@ -69,11 +89,19 @@ export const wowFlutter: Rule = {
       const c = m.conditions;
       const missing = [c.weighting ? "" : "weighting", c.testToneHz === undefined ? "test tone" : ""].filter(Boolean);
       if (missing.length) {
-        out.result({ outcome: "missing", detail: `Wow & flutter ${formatReadingValue(m)} does not state its ${missing.join(" and ")}.`, refs: [m.ref] });
+        out.result({
+          outcome: "missing",
+          detail: `Wow & flutter ${formatReadingValue(m)} does not state its ${missing.join(" and ")}.`,
+          refs: [m.ref],
+        });
         continue;
       }
       if (!WF_TONES_HZ.some((t) => near(t, c.testToneHz!, 0.01))) {
-        out.result({ outcome: "questionable", detail: `A ${formatValue(c.testToneHz!, "frequency")} tone is not a wow & flutter test tone (3150 Hz IEC 60386, 3000 Hz WRMS).`, refs: [m.ref] });
+        out.result({
+          outcome: "questionable",
+          detail: `A ${formatValue(c.testToneHz!, "frequency")} tone is not a wow & flutter test tone (3150 Hz IEC 60386, 3000 Hz WRMS).`,
+          refs: [m.ref],
+        });
         continue;
       }
       const r = rated.find((r) => r.conditions.weighting === c.weighting && conditionsCompatible(r.conditions, c, ["speedRpm"]));
@@ -93,7 +121,8 @@ export const wowFlutter: Rule = {
       if (c.weighting === "IEC-60386-peak" && m.value > DIN_WOW_FLUTTER) notes.push("Above DIN 45500's ±0.2 % weighted.");
       out.result({
         outcome: "consistent",
-        detail: `Wow & flutter ${formatReadingValue(m)}, ${WEIGHTING_LABELS[c.weighting!]}, ${formatValue(c.testToneHz!, "frequency")} tone. ${notes.join(" ")}`.trim(),
+        detail:
+          `Wow & flutter ${formatReadingValue(m)}, ${WEIGHTING_LABELS[c.weighting!]}, ${formatValue(c.testToneHz!, "frequency")} tone. ${notes.join(" ")}`.trim(),
         refs,
         compared,
       });

@@ -20,18 +20,44 @@ function typedSheet() {
 /** Templates by route pattern; `n` makes each use unique where the app wants that (a new account's address). */
 export function templates(f: Fixtures, n: () => number): Record<string, Template[]> {
   return {
-    "/sign-up": [{ who: "anonymous", method: "POST", form: { displayName: TEXT, email: `fuzz-${f.run}-${n()}@example.test`, password: "a-long-enough-password" } }],
-    "/reset-password/:token": [{ who: "anonymous", method: "POST", form: { password: `${TEXT}-long-enough`, confirm: `${TEXT}-long-enough` } }],
+    "/sign-up": [
+      {
+        who: "anonymous",
+        method: "POST",
+        form: { displayName: TEXT, email: `fuzz-${f.run}-${n()}@example.test`, password: "a-long-enough-password" },
+      },
+    ],
+    "/reset-password/:token": [
+      { who: "anonymous", method: "POST", form: { password: `${TEXT}-long-enough`, confirm: `${TEXT}-long-enough` } },
+    ],
     "/listings/:id": [{ who: "owner", method: "POST", form: { intent: TEXT } }],
     "/sell/:id/item": [
       {
         who: "owner",
         method: "POST",
-        form: { category: "integrated_amplifier", maker: TEXT, model: TEXT, serialNumber: TEXT, collection: "on", collectionNote: TEXT, region: TEXT, town: TEXT, postcode: TEXT },
+        form: {
+          category: "integrated_amplifier",
+          maker: TEXT,
+          model: TEXT,
+          serialNumber: TEXT,
+          collection: "on",
+          collectionNote: TEXT,
+          region: TEXT,
+          town: TEXT,
+          postcode: TEXT,
+        },
       },
     ],
-    "/sell/:id/condition": [{ who: "owner", method: "POST", form: { cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: TEXT } }],
-    "/sell/:id/restoration": [{ who: "owner", method: "POST", form: { intent: "add", doneOn: "2025-02-20", work: TEXT, technician: TEXT, "parts.0.part": TEXT, "parts.0.reference": TEXT } }],
+    "/sell/:id/condition": [
+      { who: "owner", method: "POST", form: { cosmeticGrade: "clean", serviceState: "serviced_measured", conditionNote: TEXT } },
+    ],
+    "/sell/:id/restoration": [
+      {
+        who: "owner",
+        method: "POST",
+        form: { intent: "add", doneOn: "2025-02-20", work: TEXT, technician: TEXT, "parts.0.part": TEXT, "parts.0.reference": TEXT },
+      },
+    ],
     "/api/v1/listings/:id": [
       { who: "owner", method: "PATCH", json: { item: { maker: TEXT, model: TEXT, serialNumber: TEXT } } },
       { who: "owner", method: "PATCH", json: { condition: { conditionNote: TEXT } } },
@@ -44,7 +70,20 @@ export function templates(f: Fixtures, n: () => number): Record<string, Template
 // NUL, the bidi overrides, other controls, a lone surrogate, and text that is only that. Each place
 // gets NUL and U+202E for certain, then generated ones.
 export const ALWAYS = ["Amp a\u0000b", "\u202Eevil\u202C"];
-const HOSTILE = ["a\u0000b", "\u0000", "\u202Eevil\u202C", "\u2066x\u2069", "a\u0007b", "\u001b[31m", "x\uD800y", "\u0085", "\uFEFF", "\u00A0", "e\u0301", "\u200B"];
+const HOSTILE = [
+  "a\u0000b",
+  "\u0000",
+  "\u202Eevil\u202C",
+  "\u2066x\u2069",
+  "a\u0007b",
+  "\u001b[31m",
+  "x\uD800y",
+  "\u0085",
+  "\uFEFF",
+  "\u00A0",
+  "e\u0301",
+  "\u200B",
+];
 export const hostileText: fc.Arbitrary<string> = fc.oneof(
   fc.constantFrom(...HOSTILE),
   fc.tuple(fc.string({ maxLength: 8 }), fc.constantFrom(...HOSTILE), fc.string({ maxLength: 8 })).map(([a, h, b]) => `Amp ${a}${h}${b}`),
@@ -61,7 +100,8 @@ export function places(t: Template): number {
  */
 export function fillTemplate(t: Template, focus: number, hostile: string): Malformed {
   let place = 0;
-  const text = (v: string) => v.split(TEXT).reduce((out, part, i) => (i === 0 ? part : `${out}${place++ === focus ? hostile : "Fenwold"}${part}`), "");
+  const text = (v: string) =>
+    v.split(TEXT).reduce((out, part, i) => (i === 0 ? part : `${out}${place++ === focus ? hostile : "Fenwold"}${part}`), "");
   const swap = (v: unknown): unknown => {
     if (typeof v === "string") return text(v);
     if (Array.isArray(v)) return v.map(swap);

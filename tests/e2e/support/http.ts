@@ -13,11 +13,7 @@ export interface Answer {
   dataRedirect: string | null;
 }
 
-export type Body =
-  | { form: Record<string, string> }
-  | { json: unknown }
-  | { multipart: FormData }
-  | { raw: BodyInit; type?: string };
+export type Body = { form: Record<string, string> } | { json: unknown } | { multipart: FormData } | { raw: BodyInit; type?: string };
 
 export interface RequestOptions {
   body?: Body;
@@ -58,7 +54,13 @@ export class Agent {
       body = b.raw;
       if (b.type !== undefined) headers.set("Content-Type", b.type);
     }
-    const res = await fetch(`${baseUrl()}${path}`, { method, headers, body, redirect: "manual", signal: options.signal ?? AbortSignal.timeout(30_000) });
+    const res = await fetch(`${baseUrl()}${path}`, {
+      method,
+      headers,
+      body,
+      redirect: "manual",
+      signal: options.signal ?? AbortSignal.timeout(30_000),
+    });
     for (const line of res.headers.getSetCookie()) this.store(line);
     const text = method === "HEAD" ? "" : await res.text();
     const contentType = res.headers.get("Content-Type") ?? "";
@@ -76,7 +78,9 @@ export class Agent {
     const eq = pair.indexOf("=");
     const name = pair.slice(0, eq).trim();
     const value = pair.slice(eq + 1).trim();
-    const expired = attributes.some((a) => /^\s*max-age\s*=\s*0\s*$/i.test(a) || (/^\s*expires\s*=/i.test(a) && Date.parse(a.split("=")[1]) < Date.now()));
+    const expired = attributes.some(
+      (a) => /^\s*max-age\s*=\s*0\s*$/i.test(a) || (/^\s*expires\s*=/i.test(a) && Date.parse(a.split("=")[1]) < Date.now()),
+    );
     if (expired || value === "") this.jar.delete(name);
     else this.jar.set(name, value);
   }
@@ -111,7 +115,8 @@ export function singleFetchRedirect(text: string): string | null {
 export async function signIn(label: string, email: string, password: string): Promise<Agent> {
   const agent = new Agent(label);
   const res = await agent.request("POST", "/sign-in", { body: { form: { email, password, redirectTo: "/" } } });
-  if (res.status !== 302 && res.status !== 303) throw new Error(`signing in ${label} (${email}) answered ${res.status}: ${res.text.slice(0, 300)}`);
+  if (res.status !== 302 && res.status !== 303)
+    throw new Error(`signing in ${label} (${email}) answered ${res.status}: ${res.text.slice(0, 300)}`);
   if (!agent.signedIn) throw new Error(`signing in ${label} (${email}) set no cookie`);
   return agent;
 }

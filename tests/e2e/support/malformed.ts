@@ -11,19 +11,84 @@ export interface Malformed {
 }
 
 // Strings that have broken servers before: NUL, the right-to-left override, lone surrogates, very long.
-const NASTY = ["a\u0000b", "\u0000", "\u202Eevil\u202C", "x\u200By", "\uD800", "\uDFFF\uD800", "%00", "\\u0000", "𝄞".repeat(40), "é".normalize("NFD"), "x".repeat(70_000), "<script>alert(1)</script>", "../../etc/passwd", "{{7*7}}", "' OR 1=1 --"];
+const NASTY = [
+  "a\u0000b",
+  "\u0000",
+  "\u202Eevil\u202C",
+  "x\u200By",
+  "\uD800",
+  "\uDFFF\uD800",
+  "%00",
+  "\\u0000",
+  "𝄞".repeat(40),
+  "é".normalize("NFD"),
+  "x".repeat(70_000),
+  "<script>alert(1)</script>",
+  "../../etc/passwd",
+  "{{7*7}}",
+  "' OR 1=1 --",
+];
 // Keys the app's forms and APIs read, and keys that upset parsers. Never `email` or `password`: a
 // well-formed sign-in with a wrong password would count against this machine's address and lock
 // every later sign-in of the run out.
-const KEYS = ["intent", "category", "maker", "model", "notes", "conditionNote", "collectionNote", "displayName", "redirectTo", "item", "condition", "benchSheet", "order", "coverId", "listingId", "entryId", "confirm", "photo", "file", "kind", "userId", "roles", "status", "__proto__", "constructor", "prototype", "", "a[b]", "a[]", "0", "a.b.c", "\u0000", "\u202E"];
+const KEYS = [
+  "intent",
+  "category",
+  "maker",
+  "model",
+  "notes",
+  "conditionNote",
+  "collectionNote",
+  "displayName",
+  "redirectTo",
+  "item",
+  "condition",
+  "benchSheet",
+  "order",
+  "coverId",
+  "listingId",
+  "entryId",
+  "confirm",
+  "photo",
+  "file",
+  "kind",
+  "userId",
+  "roles",
+  "status",
+  "__proto__",
+  "constructor",
+  "prototype",
+  "",
+  "a[b]",
+  "a[]",
+  "0",
+  "a.b.c",
+  "\u0000",
+  "\u202E",
+];
 const HUGE = ["1e999", "-1e999", "123456789012345678901234567890", "9007199254740993", "1e-400", "-0", "0.1e309"];
-const TYPES = ["application/json", "application/json; charset=utf-16", "text/plain", "text/plain; charset=bogus", "application/x-www-form-urlencoded", "multipart/form-data", "multipart/form-data; boundary=", "application/octet-stream", "image/png", "text/csv", "application/xml", ""];
+const TYPES = [
+  "application/json",
+  "application/json; charset=utf-16",
+  "text/plain",
+  "text/plain; charset=bogus",
+  "application/x-www-form-urlencoded",
+  "multipart/form-data",
+  "multipart/form-data; boundary=",
+  "application/octet-stream",
+  "image/png",
+  "text/csv",
+  "application/xml",
+  "",
+];
 
 const enc = new TextEncoder();
 const bytes = (text: string) => enc.encode(text);
 
 const nasty = fc.oneof(fc.constantFrom(...NASTY), fc.string({ unit: "binary", maxLength: 40 }));
-const key = fc.oneof(fc.constantFrom(...KEYS), fc.string({ unit: "binary", maxLength: 12 })).filter((k) => k !== "email" && k !== "password");
+const key = fc
+  .oneof(fc.constantFrom(...KEYS), fc.string({ unit: "binary", maxLength: 12 }))
+  .filter((k) => k !== "email" && k !== "password");
 const wrongValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.integer(),
   fc.double(),
@@ -34,11 +99,15 @@ const wrongValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.dictionary(key, fc.oneof(fc.integer(), nasty), { maxKeys: 4 }),
 );
 
-const jsonWrongTypes = fc.dictionary(key, wrongValue, { maxKeys: 8 }).map((o) => ({ kind: "json with wrong types", type: "application/json", body: bytes(JSON.stringify(o)) }));
+const jsonWrongTypes = fc
+  .dictionary(key, wrongValue, { maxKeys: 8 })
+  .map((o) => ({ kind: "json with wrong types", type: "application/json", body: bytes(JSON.stringify(o)) }));
 const jsonHugeNumbers = fc.tuple(key, fc.constantFrom(...HUGE)).map(([k, n]) => ({
   kind: "json with huge numbers",
   type: "application/json",
-  body: bytes(`{${JSON.stringify(k)}:${n},"item":{"priceMinor":${n},"weightG":${n}},"order":[${n}],"benchSheet":{"readings":[{"value":${n}}]}}`),
+  body: bytes(
+    `{${JSON.stringify(k)}:${n},"item":{"priceMinor":${n},"weightG":${n}},"order":[${n}],"benchSheet":{"readings":[{"value":${n}}]}}`,
+  ),
 }));
 const jsonDeep = fc.tuple(fc.integer({ min: 1_000, max: 60_000 }), fc.boolean()).map(([depth, arrays]) => ({
   kind: `json nested ${depth} deep`,
@@ -48,9 +117,13 @@ const jsonDeep = fc.tuple(fc.integer({ min: 1_000, max: 60_000 }), fc.boolean())
 const jsonNasty = fc.tuple(fc.constantFrom(...KEYS), nasty).map(([k, s]) => ({
   kind: "json with NUL / U+202E strings",
   type: "application/json",
-  body: bytes(JSON.stringify({ [k]: s, item: { maker: s, model: s }, condition: { conditionNote: s }, benchSheet: { notes: s }, intent: s })),
+  body: bytes(
+    JSON.stringify({ [k]: s, item: { maker: s, model: s }, condition: { conditionNote: s }, benchSheet: { notes: s }, intent: s }),
+  ),
 }));
-const jsonBroken = fc.constantFrom("{", '{"a":', "[1,2", "nul", '{"a":1}}', "\u0000", '"\\ud800"', "{'a':1}", "").map((t) => ({ kind: "broken json", type: "application/json", body: bytes(t) }));
+const jsonBroken = fc
+  .constantFrom("{", '{"a":', "[1,2", "nul", '{"a":1}}', "\u0000", '"\\ud800"', "{'a':1}", "")
+  .map((t) => ({ kind: "broken json", type: "application/json", body: bytes(t) }));
 const textPlain = nasty.map((s) => ({ kind: "text/plain", type: "text/plain", body: bytes(s) }));
 
 function encodeLoosely(s: string): string {
@@ -59,7 +132,11 @@ function encodeLoosely(s: string): string {
 }
 const urlencodedOdd = fc
   .array(fc.tuple(key, fc.oneof(nasty, fc.constantFrom("%", "%zz", "%E2%80%AE", "%00", "+", "a=b=c"))), { maxLength: 12 })
-  .map((pairs) => ({ kind: "urlencoded with odd keys", type: "application/x-www-form-urlencoded", body: bytes(pairs.map(([k, v]) => `${encodeLoosely(k)}=${encodeLoosely(v)}`).join("&")) }));
+  .map((pairs) => ({
+    kind: "urlencoded with odd keys",
+    type: "application/x-www-form-urlencoded",
+    body: bytes(pairs.map(([k, v]) => `${encodeLoosely(k)}=${encodeLoosely(v)}`).join("&")),
+  }));
 const urlencodedMany = fc.integer({ min: 1_000, max: 20_000 }).map((n) => ({
   kind: `urlencoded with ${n} fields`,
   type: "application/x-www-form-urlencoded",
@@ -68,22 +145,57 @@ const urlencodedMany = fc.integer({ min: 1_000, max: 20_000 }).map((n) => ({
 
 const CRLF = "\r\n";
 const brokenMultipart = fc.constantFrom(
-  { kind: "multipart with a bad boundary", type: "multipart/form-data; boundary=expected", body: bytes(`--other${CRLF}Content-Disposition: form-data; name="photo"${CRLF}${CRLF}x${CRLF}--other--${CRLF}`) },
-  { kind: "multipart truncated in a part", type: "multipart/form-data; boundary=b0", body: bytes(`--b0${CRLF}Content-Disposition: form-data; name="file"; filename="a.csv"${CRLF}Content-Type: text/csv${CRLF}${CRLF}time,volts${CRLF}0,0.1`) },
-  { kind: "multipart without a boundary", type: "multipart/form-data", body: bytes(`--b0${CRLF}Content-Disposition: form-data; name="intent"${CRLF}${CRLF}x${CRLF}--b0--${CRLF}`) },
+  {
+    kind: "multipart with a bad boundary",
+    type: "multipart/form-data; boundary=expected",
+    body: bytes(`--other${CRLF}Content-Disposition: form-data; name="photo"${CRLF}${CRLF}x${CRLF}--other--${CRLF}`),
+  },
+  {
+    kind: "multipart truncated in a part",
+    type: "multipart/form-data; boundary=b0",
+    body: bytes(
+      `--b0${CRLF}Content-Disposition: form-data; name="file"; filename="a.csv"${CRLF}Content-Type: text/csv${CRLF}${CRLF}time,volts${CRLF}0,0.1`,
+    ),
+  },
+  {
+    kind: "multipart without a boundary",
+    type: "multipart/form-data",
+    body: bytes(`--b0${CRLF}Content-Disposition: form-data; name="intent"${CRLF}${CRLF}x${CRLF}--b0--${CRLF}`),
+  },
   { kind: "multipart with an empty boundary", type: "multipart/form-data; boundary=", body: bytes(`--${CRLF}${CRLF}--${CRLF}`) },
-  { kind: "multipart part without a name", type: "multipart/form-data; boundary=b1", body: bytes(`--b1${CRLF}Content-Disposition: form-data${CRLF}${CRLF}x${CRLF}--b1--${CRLF}`) },
-  { kind: "multipart with a NUL file name", type: "multipart/form-data; boundary=b2", body: bytes(`--b2${CRLF}Content-Disposition: form-data; name="photo"; filename="a\u0000.png"${CRLF}Content-Type: image/png${CRLF}${CRLF}\u0089PNG${CRLF}--b2--${CRLF}`) },
-  { kind: "multipart with a huge header", type: "multipart/form-data; boundary=b3", body: bytes(`--b3${CRLF}Content-Disposition: form-data; name="${"n".repeat(100_000)}"${CRLF}${CRLF}x${CRLF}--b3--${CRLF}`) },
+  {
+    kind: "multipart part without a name",
+    type: "multipart/form-data; boundary=b1",
+    body: bytes(`--b1${CRLF}Content-Disposition: form-data${CRLF}${CRLF}x${CRLF}--b1--${CRLF}`),
+  },
+  {
+    kind: "multipart with a NUL file name",
+    type: "multipart/form-data; boundary=b2",
+    body: bytes(
+      `--b2${CRLF}Content-Disposition: form-data; name="photo"; filename="a\u0000.png"${CRLF}Content-Type: image/png${CRLF}${CRLF}\u0089PNG${CRLF}--b2--${CRLF}`,
+    ),
+  },
+  {
+    kind: "multipart with a huge header",
+    type: "multipart/form-data; boundary=b3",
+    body: bytes(`--b3${CRLF}Content-Disposition: form-data; name="${"n".repeat(100_000)}"${CRLF}${CRLF}x${CRLF}--b3--${CRLF}`),
+  },
   { kind: "multipart, only the closing boundary", type: "multipart/form-data; boundary=b4", body: bytes(`--b4--${CRLF}`) },
 );
 const multipartFields = fc.array(fc.tuple(key, nasty), { maxLength: 6 }).map((fields) => ({
   kind: "multipart with odd fields",
   type: "multipart/form-data; boundary=fz",
-  body: bytes(fields.map(([k, v]) => `--fz${CRLF}Content-Disposition: form-data; name="${k.replace(/"/g, "")}"${CRLF}${CRLF}${v}${CRLF}`).join("") + `--fz--${CRLF}`),
+  body: bytes(
+    fields.map(([k, v]) => `--fz${CRLF}Content-Disposition: form-data; name="${k.replace(/"/g, "")}"${CRLF}${CRLF}${v}${CRLF}`).join("") +
+      `--fz--${CRLF}`,
+  ),
 }));
-const emptyWithType = fc.constantFrom(...TYPES).map((type) => ({ kind: `empty body as ${type || "(empty type)"}`, type, body: new Uint8Array() }));
-const binary = fc.tuple(fc.uint8Array({ maxLength: 4096 }), fc.constantFrom<string | null>(null, ...TYPES)).map(([body, type]) => ({ kind: `binary garbage as ${type ?? "(no type)"}`, type, body }));
+const emptyWithType = fc
+  .constantFrom(...TYPES)
+  .map((type) => ({ kind: `empty body as ${type || "(empty type)"}`, type, body: new Uint8Array() }));
+const binary = fc
+  .tuple(fc.uint8Array({ maxLength: 4096 }), fc.constantFrom<string | null>(null, ...TYPES))
+  .map(([body, type]) => ({ kind: `binary garbage as ${type ?? "(no type)"}`, type, body }));
 
 /** Each kind of malformed body, so a route can be sent one of every kind. */
 export const MALFORMED_KINDS: fc.Arbitrary<Malformed>[] = [
@@ -104,7 +216,28 @@ export const MALFORMED_KINDS: fc.Arbitrary<Malformed>[] = [
 /** One malformed body of any kind. */
 export const malformedBody: fc.Arbitrary<Malformed> = fc.oneof(...MALFORMED_KINDS);
 
-const ODD_QUERIES = ["redirectTo=//evil.example", "redirectTo=%2F.%2F%2Fevil.example", "redirectTo=/%2e//evil.example", "wait=NaN", "wait=-1", "wait=1e309", "%00", "a=%00", "page=-1", "page=1e400", "photo=NaN", "zone=%E2%80%AE", "category=__proto__", "q=%", "%zz=1", "a[b][c]=1", "_data=root", "index", "&&&&", "x=".concat("y".repeat(8000))];
+const ODD_QUERIES = [
+  "redirectTo=//evil.example",
+  "redirectTo=%2F.%2F%2Fevil.example",
+  "redirectTo=/%2e//evil.example",
+  "wait=NaN",
+  "wait=-1",
+  "wait=1e309",
+  "%00",
+  "a=%00",
+  "page=-1",
+  "page=1e400",
+  "photo=NaN",
+  "zone=%E2%80%AE",
+  "category=__proto__",
+  "q=%",
+  "%zz=1",
+  "a[b][c]=1",
+  "_data=root",
+  "index",
+  "&&&&",
+  "x=".concat("y".repeat(8000)),
+];
 
 /** A query string for any route: one of the known troublemakers or generated text. */
 export const oddQuery: fc.Arbitrary<string> = fc.oneof(
@@ -113,7 +246,19 @@ export const oddQuery: fc.Arbitrary<string> = fc.oneof(
 );
 
 /** Values for route params that are not what the route expects. */
-export const ODD_PARAMS = ["not-a-uuid", "%00", "%0D%0ASet-Cookie:%20x=1", "%E2%80%AE", "..%2F..", "00000000-0000-0000-0000-00000000000g", "A0EEBC99-9C0B-4EF8-BB6D-6BB9BD380A11", "%20", "x".repeat(3_000), "1e999", "%F0%28%8C%28"];
+export const ODD_PARAMS = [
+  "not-a-uuid",
+  "%00",
+  "%0D%0ASet-Cookie:%20x=1",
+  "%E2%80%AE",
+  "..%2F..",
+  "00000000-0000-0000-0000-00000000000g",
+  "A0EEBC99-9C0B-4EF8-BB6D-6BB9BD380A11",
+  "%20",
+  "x".repeat(3_000),
+  "1e999",
+  "%F0%28%8C%28",
+];
 
 /** Generated values from `arb`, the same for the same seed. */
 export function sample<T>(arb: fc.Arbitrary<T>, count: number, seed: number): T[] {

@@ -109,10 +109,24 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     contentType: "audio/wav",
     byteSize: 96_044,
     storageKey: `captures/matrix/${run}/${randomUUID()}.wav`,
-    format: { file: "wav", container: "RIFF", encoding: "pcm", bitDepth: 24, channels: 1, sampleRate: 48_000, frames: 48_000, durationS: 1 },
+    format: {
+      file: "wav",
+      container: "RIFF",
+      encoding: "pcm",
+      bitDepth: 24,
+      channels: 1,
+      sampleRate: 48_000,
+      frames: 48_000,
+      durationS: 1,
+    },
     conditions: { kind: "sine", scale: SCALE, weighting: "unweighted", window: "blackman-harris-7" },
     // A real analysis of a clean tone: the stored columns are read through their schemas.
-    analysis: analyseSine([toneSamples({ sampleRate: 48_000, seconds: 0.25, f0: 1000, peak: 0.5 })], 48_000, { scale: SCALE, fundamentalHz: 1000 }, ["mono"]),
+    analysis: analyseSine(
+      [toneSamples({ sampleRate: 48_000, seconds: 0.25, f0: 1000, peak: 0.5 })],
+      48_000,
+      { scale: SCALE, fundamentalHz: 1000 },
+      ["mono"],
+    ),
     readings: [],
     finishedAt: new Date(),
   });

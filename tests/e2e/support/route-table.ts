@@ -25,7 +25,9 @@ const APP = path.resolve(import.meta.dirname, "../../../app");
 function exportsOf(file: string) {
   const source = fs.readFileSync(path.join(APP, file), "utf8");
   const named = (name: string) =>
-    new RegExp(`export\\s+(async\\s+)?function\\s+${name}\\b|export\\s+(const|let)\\s+${name}\\b|export\\s*\\{[^}]*\\b${name}\\b[^}]*\\}`).test(source);
+    new RegExp(
+      `export\\s+(async\\s+)?function\\s+${name}\\b|export\\s+(const|let)\\s+${name}\\b|export\\s*\\{[^}]*\\b${name}\\b[^}]*\\}`,
+    ).test(source);
   return { loader: named("loader"), action: named("action"), component: /export\s+default\b/.test(source) };
 }
 

@@ -17,7 +17,11 @@ describe("thinning a square-wave trace for the plot", () => {
     expect(out.every((p, i) => i === 0 || p.x > out[i - 1].x)).toBe(true);
   });
   it("passes short traces through untouched", () => {
-    expect(decimateMinMax([0, 1, 2], [5, 6, 7], 100)).toEqual([{ x: 0, y: 5 }, { x: 1, y: 6 }, { x: 2, y: 7 }]);
+    expect(decimateMinMax([0, 1, 2], [5, 6, 7], 100)).toEqual([
+      { x: 0, y: 5 },
+      { x: 1, y: 6 },
+      { x: 2, y: 7 },
+    ]);
   });
   it("thins evenly and keeps both ends", () => {
     const xs = Array.from({ length: 1000 }, (_, i) => i);
@@ -28,21 +32,41 @@ describe("thinning a square-wave trace for the plot", () => {
   });
 });
 
-const sweep = (kind: "flat" | "riaa", points: [number, number][]): Sweep =>
-  ({ kind, origin: "typed", conditions: {}, points: points.map(([frequencyHz, levelDb]) => ({ frequencyHz, levelDb })) });
+const sweep = (kind: "flat" | "riaa", points: [number, number][]): Sweep => ({
+  kind,
+  origin: "typed",
+  conditions: {},
+  points: points.map(([frequencyHz, levelDb]) => ({ frequencyHz, levelDb })),
+});
 
 describe("frequency response for the plot", () => {
   it("is shown relative to its level at 1 kHz, interpolated in log frequency (common practice)", () => {
-    const s = sweep("flat", [[100, -12.5], [500, -12], [2000, -12], [20_000, -15]]);
+    const s = sweep("flat", [
+      [100, -12.5],
+      [500, -12],
+      [2000, -12],
+      [20_000, -15],
+    ]);
     expect(referenceLevel(s.points)).toEqual({ levelDb: -12, atHz: 1000 });
     expect(responseSeries(s).points.map((p) => p.level)).toEqual([-0.5, 0, 0, -3]);
   });
   it("falls back to the point nearest 1 kHz when the sweep does not reach it", () => {
-    expect(referenceLevel(sweep("flat", [[2000, 3], [5000, 2], [9000, 1]]).points)).toEqual({ levelDb: 3, atHz: 2000 });
+    expect(
+      referenceLevel(
+        sweep("flat", [
+          [2000, 3],
+          [5000, 2],
+          [9000, 1],
+        ]).points,
+      ),
+    ).toEqual({ levelDb: 3, atHz: 2000 });
   });
   it("an RIAA sweep that follows the playback curve deviates by 0 dB; the curve is +19.3 dB at 20 Hz and −19.6 dB at 20 kHz (IEC 60098)", () => {
     const fs = [20, 100, 1000, 10_000, 20_000];
-    const s = sweep("riaa", fs.map((f) => [f, 36 + riaaPlaybackDb(f)]));
+    const s = sweep(
+      "riaa",
+      fs.map((f) => [f, 36 + riaaPlaybackDb(f)]),
+    );
     const out = responseSeries(s);
     expect(out.riaa?.variant).toBe("riaa");
     for (const p of out.points) expect(Math.abs(p.deviation!)).toBeLessThan(0.002);
@@ -51,7 +75,10 @@ describe("frequency response for the plot", () => {
   });
   it("an RIAA sweep 1 dB shy at 20 kHz shows that as its worst deviation", () => {
     const fs = [20, 100, 1000, 10_000, 20_000];
-    const s = sweep("riaa", fs.map((f) => [f, riaaPlaybackDb(f) - (f === 20_000 ? 1 : 0)]));
+    const s = sweep(
+      "riaa",
+      fs.map((f) => [f, riaaPlaybackDb(f) - (f === 20_000 ? 1 : 0)]),
+    );
     const out = responseSeries(s);
     expect(out.riaa?.worstDb).toBeCloseTo(-1, 2);
     expect(out.riaa?.atHz).toBe(20_000);

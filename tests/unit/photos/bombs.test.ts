@@ -91,33 +91,48 @@ describe("image bombs", { timeout: 120_000 }, () => {
     const error = (await refusal(inspectPhoto(jpeg, "scan.jpg"))) as PhotoRefusal;
     expect(error.code).toBe("too_large_to_process");
     expect(error.status).toBe(422);
-    expect(error.message).toMatch(/^“scan\.jpg” is a progressive JPEG of 8000 × 6000 pixels that would need \d+ MB of memory to process; photos may use at most 640 MB\. Save it as a standard \(baseline\) JPEG, or scale it down to about \d+ megapixels/);
+    expect(error.message).toMatch(
+      /^“scan\.jpg” is a progressive JPEG of 8000 × 6000 pixels that would need \d+ MB of memory to process; photos may use at most 640 MB\. Save it as a standard \(baseline\) JPEG, or scale it down to about \d+ megapixels/,
+    );
   });
 });
 
 describe("the memory budget", () => {
-  const dims = fc.record({ width: fc.integer({ min: 1, max: 65_535 }), height: fc.integer({ min: 1, max: 65_535 }) }).filter(
-    ({ width, height }) => width * height <= PHOTO_LIMITS.maxMegapixels * 1_000_000,
-  );
+  const dims = fc
+    .record({ width: fc.integer({ min: 1, max: 65_535 }), height: fc.integer({ min: 1, max: 65_535 }) })
+    .filter(({ width, height }) => width * height <= PHOTO_LIMITS.maxMegapixels * 1_000_000);
 
   it("never refuses a PNG or a sequential JPEG within the upload limits (20 MB, 50 megapixels)", () => {
     const factor = fc.integer({ min: 1, max: 4 });
     fc.assert(
-      fc.property(dims, fc.integer({ min: 1, max: PHOTO_LIMITS.maxBytes }), fc.array(fc.record({ h: factor, v: factor }), { minLength: 1, maxLength: 4 }), (d, byteSize, sampling) => {
-        const png = { type: "image/png" as const, byteSize, png: { ...d, depth: 16, colour: 6, interlaced: true } };
-        expect(budgetProblem(png, "x")).toBeNull();
-        const jpeg = { type: "image/jpeg" as const, byteSize, jpeg: { ...d, sampling, progressive: false, scanBytes: byteSize } };
-        const mcus = Math.ceil(d.width / 8) * Math.ceil(d.height / 8);
-        if (byteSize * 8 >= mcus) expect(budgetProblem(jpeg, "x")).toBeNull();
-      }),
+      fc.property(
+        dims,
+        fc.integer({ min: 1, max: PHOTO_LIMITS.maxBytes }),
+        fc.array(fc.record({ h: factor, v: factor }), { minLength: 1, maxLength: 4 }),
+        (d, byteSize, sampling) => {
+          const png = { type: "image/png" as const, byteSize, png: { ...d, depth: 16, colour: 6, interlaced: true } };
+          expect(budgetProblem(png, "x")).toBeNull();
+          const jpeg = { type: "image/jpeg" as const, byteSize, jpeg: { ...d, sampling, progressive: false, scanBytes: byteSize } };
+          const mcus = Math.ceil(d.width / 8) * Math.ceil(d.height / 8);
+          if (byteSize * 8 >= mcus) expect(budgetProblem(jpeg, "x")).toBeNull();
+        },
+      ),
     );
   });
 
   it("counts 16-bit and interlaced PNGs by their RGBA result, and jpeg-js's blocks for progressive JPEGs", () => {
-    const png = processingCost({ type: "image/png", byteSize: 2e6, png: { width: 7000, height: 7000, depth: 16, colour: 2, interlaced: false } });
+    const png = processingCost({
+      type: "image/png",
+      byteSize: 2e6,
+      png: { width: 7000, height: 7000, depth: 16, colour: 2, interlaced: false },
+    });
     expect(png).toBeGreaterThan(7000 * 7000 * 4);
     expect(png).toBeLessThan(PHOTO_MEMORY_BUDGET);
-    const sampling = [{ h: 2, v: 2 }, { h: 1, v: 1 }, { h: 1, v: 1 }];
+    const sampling = [
+      { h: 2, v: 2 },
+      { h: 1, v: 1 },
+      { h: 1, v: 1 },
+    ];
     const jpeg = (progressive: boolean) =>
       processingCost({ type: "image/jpeg", byteSize: 12e6, jpeg: { width: 8160, height: 6120, sampling, progressive, scanBytes: 12e6 } });
     expect(jpeg(false)).toBeLessThan(PHOTO_MEMORY_BUDGET);

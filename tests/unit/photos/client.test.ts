@@ -30,7 +30,16 @@ describe("uploader helpers", () => {
   });
 
   it("redraws the list as the server will store it", () => {
-    const p = (id: string, position: number, isCover = false): PhotoView => ({ id, position, isCover, status: "ready", width: 1, height: 1, error: null, urls: null });
+    const p = (id: string, position: number, isCover = false): PhotoView => ({
+      id,
+      position,
+      isCover,
+      status: "ready",
+      width: 1,
+      height: 1,
+      error: null,
+      urls: null,
+    });
     const list = { photos: [p("a", 0, true), p("b", 1), p("c", 2)], maxPhotos: 24, maxBytes: 1 };
     const next = applyArrange(list, { order: ["c", "a", "b"], coverId: "b" });
     expect(next.photos.map((x) => [x.id, x.position, x.isCover])).toEqual([

@@ -50,17 +50,25 @@ describe("PNG decoding", () => {
   ];
   const cases = kinds.flatMap(([colour, depths]) =>
     depths.flatMap((depth) =>
-      [false, true].map((interlaced) => [`colour type ${colour}, ${depth}-bit${interlaced ? ", interlaced" : ""}`, { colour, depth, interlaced }] as const),
+      [false, true].map(
+        (interlaced) => [`colour type ${colour}, ${depth}-bit${interlaced ? ", interlaced" : ""}`, { colour, depth, interlaced }] as const,
+      ),
     ),
   );
 
   it.each(cases)("%s, every filter, matches the reference decoder", async (_name, { colour, depth, interlaced }) => {
     const max = 2 ** depth - 1;
-    const palette = colour === 3 ? Array.from({ length: Math.min(256, max + 1) }, (_, i) => [i * 7 % 256, 255 - i, i * 3 % 256]) : undefined;
+    const palette =
+      colour === 3 ? Array.from({ length: Math.min(256, max + 1) }, (_, i) => [(i * 7) % 256, 255 - i, (i * 3) % 256]) : undefined;
     const transparency = palette ? Buffer.from([0, 64, 128].slice(0, palette.length)) : undefined;
-    for (const [width, height] of [[13, 9], [1, 1], [3, 2], [9, 17]]) {
+    for (const [width, height] of [
+      [13, 9],
+      [1, 1],
+      [3, 2],
+      [9, 17],
+    ]) {
       const png = writePng({ width, height, depth, colour, interlaced, filters: [0, 1, 2, 3, 4], palette, transparency }, (x, y, c) =>
-        Math.round(((x * 3 + y * 5 + c * 7) % (width + height + 3)) / (width + height + 2) * max),
+        Math.round((((x * 3 + y * 5 + c * 7) % (width + height + 3)) / (width + height + 2)) * max),
       );
       const ours = await decodePng(png);
       expect(largestDifference(ours, await reference(png)), `${width} × ${height}`).toBeLessThanOrEqual(1);
@@ -78,7 +86,15 @@ describe("PNG decoding", () => {
   it("knows how many bytes every layout inflates to, interlaced passes included", () => {
     // 8 × 8 RGBA interlaced: passes of 1×1, 1×1, 2×1, 2×2, 4×2, 4×4, 8×4 pixels, one filter byte per row.
     expect(inflatedPngSize({ width: 8, height: 8, depth: 8, colour: 6, interlaced: true })).toBe(
-      [[1, 1], [1, 1], [2, 1], [2, 2], [4, 2], [4, 4], [8, 4]].reduce((n, [w, h]) => n + h * (1 + w * 4), 0),
+      [
+        [1, 1],
+        [1, 1],
+        [2, 1],
+        [2, 2],
+        [4, 2],
+        [4, 4],
+        [8, 4],
+      ].reduce((n, [w, h]) => n + h * (1 + w * 4), 0),
     );
     expect(inflatedPngSize({ width: 7000, height: 7000, depth: 16, colour: 2, interlaced: false })).toBe(7000 * (1 + 7000 * 6));
     expect(inflatedPngSize({ width: 1, height: 1, depth: 1, colour: 0, interlaced: true })).toBe(2);
@@ -116,7 +132,12 @@ describe("JPEG decoding", () => {
   ];
 
   it.each(variants)("%s, at odd sizes, matches the reference decoder", async (_name, options) => {
-    for (const [width, height] of [[37, 23], [8, 8], [1, 1], [17, 33]]) {
+    for (const [width, height] of [
+      [37, 23],
+      [8, 8],
+      [1, 1],
+      [17, 33],
+    ]) {
       const jpeg = encodeJpeg(picture(width, height), options);
       expect(largestDifference(decodeSequentialJpeg(jpeg), await reference(jpeg)), `${width} × ${height}`).toBeLessThanOrEqual(4);
     }
@@ -152,7 +173,10 @@ describe("JPEG decoding", () => {
     const data = Buffer.alloc(w * h * 4);
     for (let y = 0; y < h; y++)
       for (let x = 0; x < w; x++) data.set([...CORNER_COLOURS[`${y < h / 2 ? "T" : "B"}${x < w / 2 ? "L" : "R"}`], 255], (y * w + x) * 4);
-    const jpeg = withExif(encodeJpeg({ data, width: w, height: h }, { quality: 95, subsampling: "4:4:4" }), { orientation: Number(orientation), gps: false });
+    const jpeg = withExif(encodeJpeg({ data, width: w, height: h }, { quality: 95, subsampling: "4:4:4" }), {
+      orientation: Number(orientation),
+      gps: false,
+    });
     expect(exifOrientation(jpeg)).toBe(Number(orientation));
     const out = decodeSequentialJpeg(jpeg, exifOrientation(jpeg));
     const swapped = Number(orientation) >= 5;

@@ -10,7 +10,8 @@ function directForward(samples: number[]): number[] {
     for (let u = 0; u < 8; u++) {
       let s = 0;
       for (let y = 0; y < 8; y++)
-        for (let x = 0; x < 8; x++) s += samples[y * 8 + x] * Math.cos(((2 * x + 1) * u * Math.PI) / 16) * Math.cos(((2 * y + 1) * v * Math.PI) / 16);
+        for (let x = 0; x < 8; x++)
+          s += samples[y * 8 + x] * Math.cos(((2 * x + 1) * u * Math.PI) / 16) * Math.cos(((2 * y + 1) * v * Math.PI) / 16);
       out.push((C(u) * C(v) * s) / 4);
     }
   return out;
@@ -22,7 +23,8 @@ function directInverse(coefficients: number[]): number[] {
       let s = 0;
       for (let v = 0; v < 8; v++)
         for (let u = 0; u < 8; u++)
-          s += C(u) * C(v) * coefficients[v * 8 + u] * Math.cos(((2 * x + 1) * u * Math.PI) / 16) * Math.cos(((2 * y + 1) * v * Math.PI) / 16);
+          s +=
+            C(u) * C(v) * coefficients[v * 8 + u] * Math.cos(((2 * x + 1) * u * Math.PI) / 16) * Math.cos(((2 * y + 1) * v * Math.PI) / 16);
       out.push(s / 4);
     }
   return out;

@@ -68,9 +68,7 @@ describe("inspectPhoto: what a seller may upload", { timeout: 20_000 }, () => {
     const r = await refusal(textFile(), "front-panel.jpg");
     expect(r.code).toBe("unsupported_type");
     expect(r.status).toBe(415);
-    expect(r.message).toBe(
-      "“front-panel.jpg” cannot be used (named .jpg, but it is really a text file). Upload JPEG or PNG photos only.",
-    );
+    expect(r.message).toBe("“front-panel.jpg” cannot be used (named .jpg, but it is really a text file). Upload JPEG or PNG photos only.");
   });
 
   it("refuses an SVG with a script in it, and a plain SVG", async () => {
@@ -130,8 +128,7 @@ describe("inspectPhoto: what a seller may upload", { timeout: 20_000 }, () => {
     const r = await refusal(jpeg.subarray(0, Math.floor(jpeg.length * 0.6)), "half.jpg");
     expect(r.code).toBe("truncated_file");
     expect(r.message).toBe(
-      "“half.jpg” is a JPEG photo, but it looks cut short, perhaps by an interrupted copy or download. " +
-        "Upload the complete file.",
+      "“half.jpg” is a JPEG photo, but it looks cut short, perhaps by an interrupted copy or download. " + "Upload the complete file.",
     );
   });
 
@@ -151,8 +148,7 @@ describe("inspectPhoto: what a seller may upload", { timeout: 20_000 }, () => {
     const r = await refusal(bad, "b.png");
     expect(r.code).toBe("damaged_file");
     expect(r.message).toBe(
-      "“b.png” is a PNG photo, but it is damaged: the checksum of its IEND chunk is wrong. " +
-        "Export it again and upload the new file.",
+      "“b.png” is a PNG photo, but it is damaged: the checksum of its IEND chunk is wrong. " + "Export it again and upload the new file.",
     );
   });
 
@@ -162,8 +158,7 @@ describe("inspectPhoto: what a seller may upload", { timeout: 20_000 }, () => {
     const r = await refusal(jpeg, "old-scan.jpg");
     expect(r.code).toBe("unsupported_type");
     expect(r.message).toBe(
-      "“old-scan.jpg” is a JPEG photo, but it uses arithmetic coding, which we cannot read; " +
-        "export it again as a standard JPEG.",
+      "“old-scan.jpg” is a JPEG photo, but it uses arithmetic coding, which we cannot read; " + "export it again as a standard JPEG.",
     );
   });
 });

@@ -107,9 +107,7 @@ describe("PhotoUploader", () => {
     expect((net.sendPhoto.mock.calls[0][1] as File).name).toBe("one.jpg");
     const uploads = screen.getByRole("list", { name: "Uploads" });
     expect(within(uploads).getByText("This file is 30 MB; photos may be at most 20 MB.")).toBeTruthy();
-    expect(
-      within(uploads).getByText("A listing can have 24 photos; this one was not sent. Delete one to make room."),
-    ).toBeTruthy();
+    expect(within(uploads).getByText("A listing can have 24 photos; this one was not sent. Delete one to make room.")).toBeTruthy();
   });
 
   it("moves a photo with buttons, sends the new order, and keeps focus on the moved photo", async () => {
@@ -119,9 +117,7 @@ describe("PhotoUploader", () => {
     mount();
     fireEvent.click(screen.getByRole("button", { name: "Move photo 1 later" }));
     await waitFor(() => expect(net.arrangePhotos).toHaveBeenCalledWith("listing-1", { order: [ids[1], ids[0], ids[2]] }));
-    await waitFor(() =>
-      expect(document.activeElement?.getAttribute("aria-label")).toBe("Move photo 2 later"),
-    );
+    await waitFor(() => expect(document.activeElement?.getAttribute("aria-label")).toBe("Move photo 2 later"));
     expect(document.activeElement?.closest("li")?.getAttribute("data-photo-id")).toBe(ids[0]);
     expect(screen.getByRole("button", { name: "Move photo 1 earlier" }).hasAttribute("disabled")).toBe(true);
   });
