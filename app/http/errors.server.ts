@@ -1,4 +1,5 @@
 import { data } from "react-router";
+import { CAPTURE_ERROR_STATUS } from "@shared/bench/analysis/errors";
 
 // The API's one error shape: { error, message, issues? }. `error` is a stable lower_snake code
 // (every one is listed in docs/api.md), `message` is written for a person, `issues` name the fields
@@ -22,7 +23,6 @@ export const ERROR_CODES = {
   not_found: 404,
   method_not_allowed: 405,
   too_large: 413,
-  file_too_large: 413,
   unsupported_media_type: 415,
   unsupported_type: 415,
   rate_limited: 429,
@@ -32,8 +32,7 @@ export const ERROR_CODES = {
   removed: 409,
   published: 409,
   not_published: 409,
-  // A file that was read but cannot be used (photos)
-  empty_file: 422,
+  // A file that was read but cannot be used (photos; empty_file and file_too_large come with the capture codes)
   damaged_file: 422,
   truncated_file: 422,
   too_many_pixels: 422,
@@ -42,20 +41,8 @@ export const ERROR_CODES = {
   listing_closed: 422,
   bad_order: 422,
   bad_cover: 422,
-  // A capture that cannot be measured (also a failed capture's `error.error`)
-  not_wav: 422,
-  unsupported_format: 422,
-  too_long: 422,
-  too_short: 422,
-  clipped: 422,
-  no_fundamental: 422,
-  csv_columns_missing: 422,
-  csv_not_number: 422,
-  csv_too_few_rows: 422,
-  csv_not_increasing: 422,
-  sweep_invalid: 422,
-  square_no_edge: 422,
-  kind_mismatch: 422,
+  // A capture that cannot be measured (also a failed capture's `error.error`): the bench's own table
+  ...CAPTURE_ERROR_STATUS,
   file_lost: 422,
   // Ours
   server_error: 500,
