@@ -59,7 +59,7 @@ describe("local identity provider", () => {
     const form = /<form[^>]*method="post" action="([^"]+)"/.exec(html);
     expect(form).not.toBeNull();
     const fields = new URLSearchParams();
-    for (const m of html.matchAll(/<input type="hidden" name="([^"]+)" value="([^"]*)">/g)) fields.set(m[1], decodeEntities(m[2]));
+    for (const m of html.matchAll(/<input type="hidden" name="([^"]+)" value="([^"]*)"\s*\/?>/g)) fields.set(m[1], decodeEntities(m[2]));
     fields.set("email", email);
     fields.set("action", "allow");
     const submitted = await fetch(new URL(form![1], idp.issuer), { method: "POST", body: fields, redirect: "manual" });
