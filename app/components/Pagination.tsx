@@ -15,6 +15,8 @@ export function Pagination({
 }) {
   if (pageCount <= 1) return null;
   const item = "inline-flex h-9 items-center rounded-md border px-3 text-sm font-medium no-underline";
+  // The end of the run in either direction: plain text, not a link, still legible (4.5:1 or better).
+  const spent = cx(item, "border-rule text-ink-faint");
   return (
     <nav aria-label="Pages" className={cx("flex items-center justify-between gap-3", className)}>
       {page > 1 ? (
@@ -22,7 +24,7 @@ export function Pagination({
           ← Newer
         </Link>
       ) : (
-        <span className={cx(item, "border-rule text-ink-faint/70")} aria-hidden="true">
+        <span className={spent} aria-hidden="true">
           ← Newer
         </span>
       )}
@@ -34,7 +36,7 @@ export function Pagination({
           Older →
         </Link>
       ) : (
-        <span className={cx(item, "border-rule text-ink-faint/70")} aria-hidden="true">
+        <span className={spent} aria-hidden="true">
           Older →
         </span>
       )}
