@@ -9,13 +9,13 @@ import type { BenchSheet as Sheet, Reading } from "@shared/bench/schema";
 import { checkBenchSheet } from "@shared/bench/verdict";
 import { listingFacets } from "@shared/listing-facets";
 
-// Raw captures for one demo amplifier (the Carrowain CA-460), synthesised here and analysed by the
+// Raw captures for one demo amplifier (the Carrowain WQ 46i), synthesised here and analysed by the
 // bench's own capture analysis, so the listing page has a harmonic spectrum, a square-wave trace and a
 // response sweep to show: a stereo 1 kHz sine at 60 W into 8 Ω (WAV, 24-bit), a 10 kHz square wave
 // through a 95 kHz single-pole response and a 10 Hz–100 kHz sweep with corners at 7 Hz and 95 kHz
 // (CSV). Idempotent: a sheet that already has capture figures is left alone.
 
-const TARGET_SERIAL = "CW-460-017924";
+const TARGET_SERIAL = "CW-46I-017924";
 const FS = 48_000;
 
 /** 24-bit PCM WAV from channels scaled to ±1 full scale. */

@@ -102,6 +102,29 @@ export const SELLER_PLACES: Partial<Record<AccountKey, { town: string; region: s
   workshop3: { town: "Brindlecote", region: "Eastreach", postcode: "ER6 1NP" },
 };
 
+/**
+ * Each invented maker numbers its models its own way, so no demo code reads like a real product line.
+ * The scale generator and any new demo unit follow these; the unit tests check every demo model.
+ */
+export const MODEL_SCHEMES: Record<string, { scheme: string; pattern: RegExp }> = {
+  // "WQ", the watts in tens, then i(ntegrated), p(ower), r(eceiver) or ph(ono).
+  Carrowain: { scheme: "WQ 46i", pattern: /^WQ \d{1,2}(i|p|r|ph)$/ },
+  // The Velt range: integrated by watts; P power, C control, R receiver, Ph phono, each with its figure.
+  Vantrell: { scheme: "Velt R85", pattern: /^Velt (\d{2,3}|P\d{2,3}|C\d{2}|R\d{2,3}|Ph\d)( Mk II| Studio)?$/ },
+  // "ZK", the watts in tens, then .0 integrated, .1 preamplifier, .2 power amplifier.
+  Kelloran: { scheme: "ZK 15.2", pattern: /^ZK \d{1,2}\.[012]( Monitor)?$/ },
+  // Tellis and a Roman numeral; phono stages say so.
+  Calvorne: { scheme: "Tellis Phono II MC", pattern: /^Tellis (Phono )?[IVX]+( Reference| MM| MC| MM\/MC)?$/ },
+  // Orrel and the number spelled out.
+  Quorvane: { scheme: "Orrel Five Direct", pattern: /^Orrel (One|Two|Three|Four|Five|Six|Seven|Eight|Nine)( Direct| Reference)?$/ },
+  // "XQ/" and two digits for cassette decks, "XQ/R" and a digit for open reel.
+  Pellquist: { scheme: "XQ/55 Three-Head", pattern: /^XQ\/(\d{2}|R\d)( Three-Head| Reel-to-Reel)?$/ },
+  // The cabinet's volume in litres.
+  Hexlund: { scheme: "64L (pair)", pattern: /^\d{2}L( Tower)?( \(pair\))?$/ },
+  // Bass driver in cm over the nominal impedance.
+  Brisvale: { scheme: "40/8 Monitor (pair)", pattern: /^\d{2}\/8( Monitor)?( \(pair\))?$/ },
+};
+
 export interface DemoLogEntry {
   daysAgo: number;
   work: string;

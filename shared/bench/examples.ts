@@ -22,7 +22,7 @@ function r(quantity: Reading["quantity"], value: number, unit: string, rest: Par
 export function exampleIntegratedAmplifierSheet(): BenchSheet {
   return {
     category: "integrated_amplifier",
-    equipment: { maker: "Tallowmere Audio", model: "TA-6200", year: 1979 },
+    equipment: { maker: "Tallowmere Audio", model: "Ostry 60", year: 1979 },
     channelCount: 2,
     measuredOn: "2025-03-14",
     measuredBy: "Kestrel Lane Workshop",

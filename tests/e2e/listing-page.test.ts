@@ -3,15 +3,15 @@ import type { Browser, Page } from "playwright-core";
 import { launchBrowser, newContext, screenshot } from "./support/browser";
 import { DEMO, DEMO_PASSWORD, submitSignIn } from "./support/accounts";
 
-// A buyer finds the seeded, bench-verified Carrowain CA-460 in the market and reads its page: the mark,
+// A buyer finds the seeded, bench-verified Carrowain WQ 46i in the market and reads its page: the mark,
 // the key figures with units, plots drawn from its captures, photos from object storage and the zoom;
 // then signs in from the page and watches it.
 
 async function openDemoAmplifier(page: Page): Promise<string> {
   await page.goto("/market?category=integrated-amplifiers");
-  await page.getByRole("link", { name: "Carrowain CA-460" }).click();
+  await page.getByRole("link", { name: "Carrowain WQ 46i" }).click();
   await page.waitForURL(/\/listings\/[0-9a-f-]{36}$/);
-  await page.getByRole("heading", { level: 1, name: "Carrowain CA-460" }).waitFor();
+  await page.getByRole("heading", { level: 1, name: "Carrowain WQ 46i" }).waitFor();
   return new URL(page.url()).pathname;
 }
 
@@ -51,7 +51,7 @@ describe("the listing page", () => {
     expect(await page.getByText("Frequency (Hz)").first().isVisible()).toBe(true);
 
     // Photos come from the media route, which streams them from object storage.
-    const cover = page.getByRole("img", { name: /Carrowain CA-460, photo 1 of/ }).first();
+    const cover = page.getByRole("img", { name: /Carrowain WQ 46i, photo 1 of/ }).first();
     const src = await cover.getAttribute("src");
     expect(src).toMatch(/^\/media\/photos\/listing\//);
     const res = await page.request.get(src!);

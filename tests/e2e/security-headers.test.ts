@@ -100,7 +100,7 @@ describe("security headers and the content security policy", () => {
     await settle(page);
     await page.goto("/market?category=integrated-amplifiers");
     await settle(page);
-    await page.getByRole("link", { name: "Carrowain CA-460" }).click();
+    await page.getByRole("link", { name: "Carrowain WQ 46i" }).click();
     await page.waitForURL(/\/listings\/[0-9a-f-]{36}$/);
     await page.locator(".chart svg.recharts-surface").first().waitFor();
     await settle(page);

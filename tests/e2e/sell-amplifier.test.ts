@@ -66,7 +66,7 @@ describe("listing a restored integrated amplifier", () => {
 
     // Item: typed the way a seller writes it; the draft saves itself as they go.
     await page.getByLabel("Maker").fill("Veldham Acoustics");
-    await page.getByLabel("Model").fill("VA-260");
+    await page.getByLabel("Model").fill("vd-26");
     await page.getByLabel("Year or era").fill("1975-79");
     await page.getByText("Shown as 1975–79").waitFor();
     await saved(page);
@@ -190,7 +190,7 @@ describe("listing a restored integrated amplifier", () => {
     await page.waitForURL(`**/sell/${id}/review`);
     expect(await page.locator('[data-check][data-ok="false"]').count()).toBe(0);
     await page.getByRole("button", { name: "Publish", exact: true }).click();
-    await page.getByText("Veldham Acoustics VA-260 is live and bench-verified.").waitFor();
+    await page.getByText("Veldham Acoustics vd-26 is live and bench-verified.").waitFor();
     await screenshot(page, "sell-review-published-1280");
 
     await page.goto("/sell");
@@ -200,7 +200,7 @@ describe("listing a restored integrated amplifier", () => {
 
     // The public page shows the mark.
     await page.goto(`/listings/${id}`);
-    await page.getByRole("heading", { level: 1, name: /Veldham Acoustics VA-260/ }).waitFor();
+    await page.getByRole("heading", { level: 1, name: /Veldham Acoustics vd-26/ }).waitFor();
     await page.getByText("Bench-verified", { exact: true }).first().waitFor();
     expect(await page.content()).not.toContain("VA2607734");
     await context.close();
@@ -217,7 +217,7 @@ describe("listing a restored integrated amplifier", () => {
       data: {
         item: {
           maker: "Veldham Acoustics",
-          model: "VA-260 (second)",
+          model: "vd-26 (second)",
           weightG: 31_500,
           priceMinor: 99_000,
           country: "GB",

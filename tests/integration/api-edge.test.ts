@@ -150,7 +150,7 @@ describe("client mistakes are 400, 405 or 415, never 500", () => {
     const request = new Request(`${BASE}/api/v1/listings/${listingId}`, {
       method: "PATCH",
       headers: { "Content-Type": "application/json", Cookie: owner.cookie },
-      body: JSON.stringify({ item: { model: "HS-120\u202exe.tab" } }),
+      body: JSON.stringify({ item: { model: "120-HG\u202exe.tab" } }),
     });
     const res = await call(listingApi, request, { id: listingId });
     expect(res.status).toBe(400);
@@ -298,7 +298,7 @@ describe("state-changing API calls from another origin are refused", () => {
     const ours = { "Sec-Fetch-Site": "same-origin", Origin: BASE, Cookie: owner.cookie, "Content-Type": "application/json" };
     const res = await call(
       listingApi,
-      new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers: ours, body: '{"item":{"model":"HS-120"}}' }),
+      new Request(`${BASE}/api/v1/listings/${listingId}`, { method: "PATCH", headers: ours, body: '{"item":{"model":"120-HG"}}' }),
       { id: listingId },
     );
     expect(res.status).toBe(200);
@@ -307,7 +307,7 @@ describe("state-changing API calls from another origin are refused", () => {
       new Request(`${BASE}/api/v1/listings/${listingId}`, {
         method: "PATCH",
         headers: { Cookie: owner.cookie, "Content-Type": "application/json" },
-        body: '{"item":{"model":"HS-121"}}',
+        body: '{"item":{"model":"121-HG"}}',
       }),
       { id: listingId },
     );

@@ -120,18 +120,18 @@ describe("review desk queue", () => {
     const held = await Listing.create(
       blankListing(owner.id, base.category, {
         ...base,
-        model: `HA-${RUN}`,
+        model: `Held ${RUN}`,
         status: "held",
         heldReason: "Power claim above the supply's limit",
       }),
     );
-    const live = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `LV-${RUN}`, status: "live" }));
+    const live = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `Live ${RUN}`, status: "live" }));
 
     const queue = await reviewQueue();
     expect(queue.heldListings).toContainEqual(
       expect.objectContaining({
         id: (held as { id: string }).id,
-        title: `Harrowgate HA-${RUN}`,
+        title: `Harrowgate Held ${RUN}`,
         category: "Integrated amplifier",
         reason: "Power claim above the supply's limit",
         seller: "Person workshop-owner",

@@ -49,7 +49,7 @@ describe("market", () => {
 
   it("shows a bench-verified amplifier with its figure, unit and conditions, and no serial number", async () => {
     const page = await marketPage(search("?category=integrated-amplifiers"), 500);
-    const amp = page.items.find((i) => i.title === "Carrowain CA-460");
+    const amp = page.items.find((i) => i.title === "Carrowain WQ 46i");
     expect(amp).toBeDefined();
     expect(amp!.benchVerified).toBe(true);
     expect(amp!.keyFigure).toEqual({
@@ -59,7 +59,7 @@ describe("market", () => {
       conditions: "into 8 Ω, 1 kHz, 0.1 % THD, both channels driven",
     });
     expect(amp!.cover?.thumbUrl).toMatch(/^\/media\/photos\/thumb\//);
-    expect(JSON.stringify(page)).not.toContain("CW-460-017924");
+    expect(JSON.stringify(page)).not.toContain("CW-46I-017924");
   });
 
   it("counts live units per category the same way the market lists them", async () => {
@@ -74,7 +74,7 @@ describe("market", () => {
 describe("/media", () => {
   it("serves a thumbnail with a year-long cache, and refuses originals and made-up keys", async () => {
     const page = await marketPage(search("?category=integrated-amplifiers"), 500);
-    const url = page.items.find((i) => i.title === "Carrowain CA-460")!.cover!.thumbUrl;
+    const url = page.items.find((i) => i.title === "Carrowain WQ 46i")!.cover!.thumbUrl;
     const key = url.replace(/^\/media\//, "");
     const res = await mediaResponse(key, new Request(`http://loadline.test${url}`));
     expect(res.status).toBe(200);

@@ -105,7 +105,7 @@ describe("catalogue rows the database refuses", () => {
     expect(await refused((tx) => Listing.create(draft(), { transaction: tx }))).toBe("accepted");
     expect(
       await refused((tx) =>
-        Listing.create(draft({ status: "live", maker: "Quorvane", model: "QT-3", publishedAt: new Date() }), { transaction: tx }),
+        Listing.create(draft({ status: "live", maker: "Quorvane", model: "Orrel Three", publishedAt: new Date() }), { transaction: tx }),
       ),
     ).toBe("listings_publishable");
   });
@@ -114,7 +114,7 @@ describe("catalogue rows the database refuses", () => {
     const full = {
       status: "held" as const,
       maker: "Quorvane",
-      model: "QT-3",
+      model: "Orrel Three",
       priceMinor: 42_000,
       country: "GB",
       cosmeticGrade: "clean" as const,

@@ -72,7 +72,7 @@ describe("demo scenario seed", () => {
     const held = await Listing.findAll({ where: { serialNumber: serials, status: "held" } });
     // Output voltage giving far less than the typed power; 4 Ω power three times 8 Ω; peak swing
     // beyond the rails; THD+N below THD.
-    expect(held.map((l) => l.model).sort()).toEqual(["CR-450", "KI-50", "KP-150", "VC-20"]);
+    expect(held.map((l) => l.model).sort()).toEqual(["Velt C20", "WQ 45r", "ZK 15.2", "ZK 5.0"]);
     for (const l of held) {
       expect(l.benchVerified).toBe(false);
       expect(l.heldReason).toMatch(/implausible/i);
@@ -92,7 +92,7 @@ describe("demo scenario seed", () => {
   });
 
   it("copies measured figures into the filter columns (power into 8 Ω, the weaker channel)", async () => {
-    const amp = await Listing.findOne({ where: { serialNumber: "CW-460-017924" } });
+    const amp = await Listing.findOne({ where: { serialNumber: "CW-46I-017924" } });
     expect(amp!.power8ohmW).toBe(65); // left 66 W, right 65 W
     expect(amp!.power4ohmW).toBe(96);
     const deck = await Listing.findOne({ where: { serialNumber: "QV-T3-118070" } });

@@ -155,7 +155,7 @@ describe("through the pages", () => {
             {
               category: "integrated_amplifier",
               maker: "Harrowgate Sound",
-              model: "HS-120",
+              model: "120-HG",
               price: "1,180",
               currency: "EUR",
               country: "DE",

@@ -52,7 +52,7 @@ describe("saving the item and condition steps", () => {
     const form = new URLSearchParams({
       category: "integrated_amplifier",
       maker: "Harrowgate Sound",
-      model: "HS-120",
+      model: "120-HG",
       era: "1975–79",
       serialNumber: "HS1207734",
       mainsVoltageV: "230",
@@ -91,7 +91,7 @@ describe("saving the item and condition steps", () => {
     const seller = await makeAccount("item-bad");
     const draft = await createDraft(seller.session, "integrated_amplifier");
     await saveItem(draft.id, seller.user.id, { maker: "Harrowgate Sound" });
-    const err = await inputError(saveItem(draft.id, seller.user.id, { model: "HS-120", priceMinor: -5, mainsFrequencyHz: 55 }));
+    const err = await inputError(saveItem(draft.id, seller.user.id, { model: "120-HG", priceMinor: -5, mainsFrequencyHz: 55 }));
     expect(err).toBeInstanceOf(ListingInputError);
     expect(err.issues.map((i) => i.path).sort()).toEqual(["mainsFrequencyHz", "priceMinor"]);
     const { listing } = await reload(draft.id);

@@ -76,7 +76,7 @@ describe("who sees a listing", () => {
     for (const cookie of [undefined, cookies.buyer, cookies.moderator, cookies.liveSeller]) {
       const res = await open(live.listing.id, cookie);
       expect(res.status).toBe(200);
-      expect(res.body!.listing.title).toBe("Tallowmere Audio TA-6200");
+      expect(res.body!.listing.title).toBe("Tallowmere Audio Ostry 60");
     }
   });
 

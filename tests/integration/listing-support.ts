@@ -55,7 +55,7 @@ export async function cleanUp() {
 /** What a seller fills in for a restored integrated amplifier, as the item step stores it. */
 export const AMP_ITEM = {
   maker: "Harrowgate Sound",
-  model: "HS-120 Integrated",
+  model: "120-HG Integrated",
   yearFrom: 1978,
   yearTo: 1981,
   serialNumber: "HS1207734",

@@ -144,7 +144,7 @@ export async function createAmplifierListing(
     status,
     category: "integrated_amplifier",
     maker: "Tallowmere Audio",
-    model: "TA-6200",
+    model: "Ostry 60",
     yearFrom: 1979,
     yearTo: 1979,
     serialNumber: FIXTURE_SERIAL,

@@ -126,7 +126,7 @@ describe("the item step form", () => {
   const filled = {
     category: "integrated_amplifier",
     maker: "  Harrowgate Sound ",
-    model: "HS-120",
+    model: "120-HG",
     era: "1978",
     mainsVoltageV: "230",
     mainsFrequencyHz: "50",
@@ -263,7 +263,7 @@ describe("what publishing needs", () => {
   const base: ChecklistInput = {
     listing: {
       maker: "Harrowgate Sound",
-      model: "HS-120",
+      model: "120-HG",
       priceMinor: 125_000,
       country: "DE",
       weightG: 14_200,
