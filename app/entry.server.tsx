@@ -20,7 +20,7 @@ function documentHeaders(headers: Headers, nonce: string) {
   const policy = contentSecurityPolicy({
     nonce,
     https,
-    // Signing in with Loadline ID posts to /auth/oauth, which redirects the form to the provider.
+    // Signing in with a Loadline pass posts to /auth/oauth, which redirects the form to the provider.
     formTargets: [new URL(settings.oauth.issuer).origin],
     dev: import.meta.env.DEV,
   });

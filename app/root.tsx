@@ -7,6 +7,7 @@ import { getUser } from "~/auth/guards.server";
 import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
+import { SITE_DESCRIPTION } from "~/meta";
 import "@fontsource/source-serif-4/400.css";
 import "@fontsource/source-serif-4/600.css";
 import "@fontsource/inter/400.css";
@@ -26,8 +27,7 @@ export const meta: Route.MetaFunction = () => [
   { title: "Loadline · used and vintage hi-fi with checked bench measurements" },
   {
     name: "description",
-    content:
-      "A market for used and vintage amplifiers, turntables, tape decks and loudspeakers whose bench measurements are checked against physics and the trade's standards.",
+    content: SITE_DESCRIPTION,
   },
 ];
 

@@ -2,7 +2,7 @@ import { html, page } from "./html";
 
 // The local identity provider's own screens: pick who to sign in as, or explain a bad request.
 
-const SERVICE = "identity provider";
+const SERVICE = "Loadline pass (identity provider)";
 
 export interface SignInPageInput {
   params: Record<string, string>;
@@ -14,10 +14,10 @@ export interface SignInPageInput {
 
 export function signInPage(input: SignInPageInput): string {
   const hidden = Object.entries(input.params).map(([k, v]) => html`<input type="hidden" name="${k}" value="${v}" />`);
-  const body = html` <h1>Sign in to Loadline</h1>
+  const body = html` <h1>Sign in with your Loadline pass</h1>
     <p class="lede">
-      Local identity provider. Choose the e-mail address to sign in as; the app receives it as a verified address, as it would from a real
-      provider.
+      The Loadline pass stand-in. Choose the e-mail address to sign in as; the app receives it as a verified address, as it would from a
+      real provider.
     </p>
     <form class="card" method="post" action="/authorize">
       ${hidden}
@@ -51,12 +51,12 @@ export function signInPage(input: SignInPageInput): string {
           : ""
       }
     </form>`;
-  return page({ title: "Sign in · Loadline local identity provider", service: SERVICE, body, narrow: true });
+  return page({ title: "Sign in · Loadline pass stand-in", service: SERVICE, body, narrow: true });
 }
 
 export function badRequestPage(reason: string): string {
   const body = html` <h1>This sign-in request is not valid</h1>
     <p class="error">${reason}</p>
     <p class="lede">The app that sent you here is misconfigured, so you are not sent back to it.</p>`;
-  return page({ title: "Bad request · Loadline local identity provider", service: SERVICE, body, narrow: true });
+  return page({ title: "Bad request · Loadline pass stand-in", service: SERVICE, body, narrow: true });
 }

@@ -27,7 +27,7 @@ authenticator.use(
   PASSWORD,
 );
 
-// --- OAuth sign-in ("Sign in with Loadline ID") ---
+// --- OAuth sign-in ("Sign in with your Loadline pass") ---
 
 const Discovery = z.object({
   authorization_endpoint: z.url(),

@@ -14,7 +14,7 @@ export interface ProviderProfile {
 }
 
 export const OAUTH_UNVERIFIED =
-  "Your Loadline ID has not confirmed its e-mail address, so it cannot sign in here yet. Confirm it there, or sign in with your password.";
+  "The e-mail address on your Loadline pass is not confirmed yet, so it cannot sign you in here. Confirm it there, or sign in with your password.";
 
 /**
  * The account for an outside identity: the one already linked to it; else the account with the same

@@ -6,12 +6,16 @@ import { buttonClass } from "~/components/Button";
 import { BenchGlyph } from "~/components/BenchVerifiedMark";
 import { ListingCard } from "~/components/ListingCard";
 import { TraceArt } from "~/components/TraceArt";
+import { SITE_DESCRIPTION } from "~/meta";
 
 export async function loader() {
   return homeData();
 }
 
-export const meta: Route.MetaFunction = () => [{ title: "Loadline · used and vintage hi-fi, measured and checked" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "Loadline · used and vintage hi-fi, measured and checked" },
+  { name: "description", content: SITE_DESCRIPTION },
+];
 
 export default function Home({ loaderData }: Route.ComponentProps) {
   const { recentVerified, counts, totals } = loaderData;
@@ -21,7 +25,7 @@ export default function Home({ loaderData }: Route.ComponentProps) {
         <div className="mx-auto grid max-w-6xl items-center gap-10 px-4 py-12 sm:px-6 sm:py-16 lg:grid-cols-[1.25fr_1fr]">
           <div className="space-y-5">
             <p className="text-xs font-semibold uppercase tracking-[0.16em] text-brass-ink">Used &amp; vintage hi-fi</p>
-            <h1 className="text-[2.25rem] leading-[1.1] sm:text-5xl">Buy it on what it measures today.</h1>
+            <h1 className="text-[2.25rem] leading-[1.1] sm:text-5xl">Choose your gear by what it measures today.</h1>
             <p className="max-w-xl text-lg text-ink-soft">
               Loadline is the market where restoration workshops and private sellers list amplifiers, turntables, tape decks and
               loudspeakers with their bench measurements, and the bench checks every figure against physics and the trade's standards before

@@ -6,14 +6,15 @@ import { ListingCard } from "~/components/ListingCard";
 import { PageHeader } from "~/components/PageHeader";
 import { Pagination } from "~/components/Pagination";
 import { BenchGlyph } from "~/components/BenchVerifiedMark";
+import { marketDescription } from "~/meta";
 
 export async function loader({ request }: Route.LoaderArgs) {
   return marketPage(parseMarketSearch(new URL(request.url)));
 }
 
 export const meta: Route.MetaFunction = ({ data }) => {
-  const what = data?.category ? CATEGORY_LABELS[data.category].many : "Used and vintage hi-fi";
-  return [{ title: `${what} · Market · Loadline` }];
+  const many = data?.category ? CATEGORY_LABELS[data.category].many : null;
+  return [{ title: `${many ?? "Used and vintage hi-fi"} · Market · Loadline` }, { name: "description", content: marketDescription(many) }];
 };
 
 function marketHref(category: Category | null, page = 1): string {
@@ -48,13 +49,19 @@ export default function Market({ loaderData }: Route.ComponentProps) {
         </span>
       </p>
       {items.length ? (
-        <ul className="grid grid-cols-1 gap-5 sm:grid-cols-2 lg:grid-cols-3">
-          {items.map((l) => (
-            <li key={l.id} className="flex min-w-0">
-              <ListingCard listing={l} href={`/listings/${l.id}`} className="w-full" />
-            </li>
-          ))}
-        </ul>
+        <section aria-labelledby="results">
+          {/* The cards' titles are h3s: this keeps the outline h1 → h2 → h3 for screen readers. */}
+          <h2 id="results" className="sr-only">
+            Units for sale
+          </h2>
+          <ul className="grid grid-cols-1 gap-5 sm:grid-cols-2 lg:grid-cols-3">
+            {items.map((l) => (
+              <li key={l.id} className="flex min-w-0">
+                <ListingCard listing={l} href={`/listings/${l.id}`} className="w-full" />
+              </li>
+            ))}
+          </ul>
+        </section>
       ) : (
         <div className="rounded-panel border border-dashed border-rule-strong bg-card/60 px-6 py-12 text-center">
           <h2 className="text-xl">Nothing here yet</h2>

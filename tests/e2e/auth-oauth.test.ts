@@ -3,7 +3,7 @@ import type { Browser, Page } from "playwright-core";
 import { baseUrl, launchBrowser, newContext, screenshot, uniqueEmail } from "./support/browser";
 import { DEMO } from "./support/accounts";
 
-// "Sign in with Loadline ID" through the local identity provider: authorization code with PKCE and
+// "Sign in with your Loadline pass" through the local identity provider: authorization code with PKCE and
 // state, exactly as against a hosted provider.
 
 async function chooseIdentity(page: Page, email: string, name?: string) {
@@ -27,7 +27,7 @@ describe("OAuth sign-in", () => {
     const page = await context.newPage();
     const email = uniqueEmail("oauth");
     await page.goto("/sign-in?redirectTo=%2Faccount");
-    await page.getByRole("button", { name: "Sign in with Loadline ID" }).click();
+    await page.getByRole("button", { name: "Sign in with your Loadline pass" }).click();
     // The request the app made: code flow, PKCE S256, a state value, the registered callback.
     await page.waitForURL(/\/authorize\?/);
     const authorize = new URL(page.url()).searchParams;
@@ -40,7 +40,7 @@ describe("OAuth sign-in", () => {
     await page.waitForURL((url) => url.origin === new URL(baseUrl()).origin && url.pathname === "/account");
     await page.getByRole("heading", { name: "Sasha Solder" }).waitFor();
     expect(await page.getByText("Confirmed", { exact: true }).isVisible()).toBe(true);
-    expect(await page.getByText("With Loadline ID").isVisible()).toBe(true);
+    expect(await page.getByText("With your Loadline pass").isVisible()).toBe(true);
     // The one-time state cookies are gone once used.
     const cookies = await context.cookies();
     expect(cookies.filter((c) => c.name.startsWith("loadline_oauth"))).toEqual([]);
@@ -52,14 +52,14 @@ describe("OAuth sign-in", () => {
     const context = await newContext(browser);
     const page = await context.newPage();
     await page.goto("/sign-in");
-    await page.getByRole("button", { name: "Sign in with Loadline ID" }).click();
+    await page.getByRole("button", { name: "Sign in with your Loadline pass" }).click();
     await chooseIdentity(page, DEMO.buyer);
     await page.waitForURL((url) => url.origin === new URL(baseUrl()).origin && url.pathname === "/");
     await page.goto("/account");
     // The seeded buyer's own account (its password still works too), now with the identity linked.
     expect(await page.getByText(DEMO.buyer).first().isVisible()).toBe(true);
     expect(await page.getByText("With your e-mail address and password.").isVisible()).toBe(true);
-    expect(await page.getByText("With Loadline ID").isVisible()).toBe(true);
+    expect(await page.getByText("With your Loadline pass").isVisible()).toBe(true);
     await context.close();
   });
 
@@ -67,11 +67,11 @@ describe("OAuth sign-in", () => {
     const context = await newContext(browser);
     const page = await context.newPage();
     await page.goto("/sign-in");
-    await page.getByRole("button", { name: "Sign in with Loadline ID" }).click();
+    await page.getByRole("button", { name: "Sign in with your Loadline pass" }).click();
     await page.waitForURL(/\/authorize/);
     await page.getByRole("button", { name: "Cancel" }).click();
     await page.waitForURL((url) => url.pathname === "/sign-in");
-    await page.getByText("Signing in with Loadline ID was cancelled").waitFor();
+    await page.getByText("Signing in with your Loadline pass was cancelled").waitFor();
     await page.goto("/account");
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     await context.close();

@@ -69,12 +69,12 @@ describe("role-only pages", () => {
   });
 
   it("lets an admin grant the moderator role, which opens the desk at once", async () => {
-    // A fresh account, made the quick way (Loadline ID).
+    // A fresh account, made the quick way (a Loadline pass).
     const email = uniqueEmail("promoted");
     const person = await newContext(browser);
     const page = await person.newPage();
     await page.goto("/sign-in");
-    await page.getByRole("button", { name: "Sign in with Loadline ID" }).click();
+    await page.getByRole("button", { name: "Sign in with your Loadline pass" }).click();
     await page.waitForURL(/\/authorize\?/);
     await page.getByLabel("E-mail address").fill(email);
     await page.getByRole("button", { name: "Continue" }).click();

@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { RUN, testEmail, TEST_EMAIL_PATTERN } from "./auth-support";
 import { signedInAs, signedInCookie } from "../support/sessions";
 
-// Loadline ID sign-in against the running local identity provider (started by the test stack):
+// Loadline pass sign-in against the running local identity provider (started by the test stack):
 // the app's remix-auth-oauth2 strategy does the real authorization-code + PKCE + state exchange,
 // and the account rules (link on a verified address, create otherwise) are checked in the database.
 const { sequelize } = await import("~/db.server");

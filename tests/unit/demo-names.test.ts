@@ -16,7 +16,10 @@ describe("demo model names", () => {
   it("give each maker a scheme of its own", () => {
     for (const [maker, { scheme }] of Object.entries(MODEL_SCHEMES)) {
       const others = Object.entries(MODEL_SCHEMES).filter(([m]) => m !== maker);
-      expect(others.filter(([, o]) => o.pattern.test(scheme)).map(([m]) => m), `${maker}'s ${scheme}`).toEqual([]);
+      expect(
+        others.filter(([, o]) => o.pattern.test(scheme)).map(([m]) => m),
+        `${maker}'s ${scheme}`,
+      ).toEqual([]);
     }
   });
 

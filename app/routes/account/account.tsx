@@ -122,7 +122,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
             )}
           </li>
           {methods.providers.map((p) => (
-            <li key={p.provider}>With Loadline ID{p.email ? ` (${p.email})` : ""}.</li>
+            <li key={p.provider}>With your Loadline pass{p.email ? ` (${p.email})` : ""}.</li>
           ))}
         </ul>
         <Form method="post" action="/sign-out">

@@ -15,11 +15,11 @@ import { startSession } from "~/auth/session.server";
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Loadline" }];
 
 const OAUTH_MESSAGES: Record<string, string> = {
-  cancelled: "Signing in with Loadline ID was cancelled. You can try again, or use your password.",
-  failed: "Signing in with Loadline ID did not complete. Please try again.",
-  unavailable: "Loadline ID is not answering just now. Sign in with your password, or try again in a few minutes.",
+  cancelled: "Signing in with your Loadline pass was cancelled. You can try again, or use your password.",
+  failed: "Signing in with your Loadline pass did not complete. Please try again.",
+  unavailable: "The Loadline pass service is not answering just now. Sign in with your password, or try again in a few minutes.",
   unverified:
-    "Your Loadline ID has not confirmed its e-mail address, so it cannot sign in here yet. Confirm it there, or sign in with your password.",
+    "The e-mail address on your Loadline pass is not confirmed yet, so it cannot sign you in here. Confirm it there, or sign in with your password.",
   suspended: "This account is suspended, so it cannot sign in. Write to the moderators if you think this is a mistake.",
 };
 
@@ -100,7 +100,7 @@ export default function SignIn({ loaderData, actionData }: Route.ComponentProps)
       <Form method="post" action="/auth/oauth" reloadDocument>
         <input type="hidden" name="redirectTo" value={redirectTo} />
         <Button type="submit" variant="secondary" className="w-full">
-          Sign in with Loadline ID
+          Sign in with your Loadline pass
         </Button>
       </Form>
     </AuthPanel>
