@@ -11,7 +11,7 @@ describe("server error log lines", () => {
       sql: "INSERT INTO listings ...",
       parameters: ["seller@example.test", '{"notes":"private"}'],
     });
-    const line = loggable(new DatabaseError(original as ConstructorParameters<typeof DatabaseError>[0]));
+    const line = loggable(new DatabaseError(original));
     expect(line).toBe('SequelizeDatabaseError: null value in column "maker" violates not-null constraint (23502)');
     expect(line).not.toContain("seller@example.test");
   });
