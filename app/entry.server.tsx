@@ -77,3 +77,20 @@ export default function handleRequest(
     });
   });
 }
+
+/**
+ * Server errors are logged without what they carry: a database error holds its SQL parameters (a
+ * whole bench sheet, an e-mail address), which have no place in a log. Aborted requests are not errors.
+ */
+export function handleError(error: unknown, { request }: { request: Request }) {
+  if (request.signal.aborted) return;
+  console.error(`[web] ${request.method} ${new URL(request.url).pathname}:`, loggable(error));
+}
+
+export function loggable(error: unknown): string {
+  if (!(error instanceof Error)) return String(error);
+  const original = "original" in error && error.original instanceof Error ? error.original : null;
+  const code = original && "code" in original ? ` (${String(original.code)})` : "";
+  const stack = "sql" in error ? "" : `\n${error.stack ?? ""}`;
+  return `${error.name}: ${original?.message ?? error.message}${code}${stack}`;
+}

@@ -98,8 +98,24 @@ export function readConditions(form: FormData, inferred: CaptureKind | null): Co
   const r = captureConditionsSchema.safeParse(raw);
   if (r.success) return { ok: true, conditions: r.data };
   const issues = r.error.issues.map((i) => ({ path: i.path.map(String).join(".") || "conditions", message: i.message }));
-  return { ok: false, message: `The stated conditions do not fit: ${issues.map((i) => `${i.path}: ${i.message}`).join("; ")}.`, issues };
+  const named = issues.map((i) => `${CONDITION_LABELS[i.path] ?? i.path}: ${i.message}`);
+  return { ok: false, message: `The stated conditions do not fit. ${named.join("; ")}.`, issues };
 }
+
+/** The capture form's own labels, so a refusal names the field the seller sees. */
+const CONDITION_LABELS: Record<string, string> = {
+  "scale.volts": "Full scale stands for",
+  "scale.fullScaleVolts": "Analyser full scale",
+  "scale.attenuation": "Attenuation",
+  loadOhm: "Load",
+  "bandwidth.lowHz": "Measurement bandwidth (low end)",
+  "bandwidth.highHz": "Measurement bandwidth (high end)",
+  channel: "Channel",
+  channelsDriven: "Channels driven",
+  fundamentalHz: "Test frequency",
+  mainsV: "Mains voltage",
+  warmUpS: "Warm-up",
+};
 
 const KIND_FIELDS: Record<string, string[]> = {
   sine: [

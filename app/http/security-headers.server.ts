@@ -8,7 +8,6 @@ import { randomBytes } from "node:crypto";
 /** Browser features Loadline never uses, switched off for the page and anything it embeds. */
 const UNUSED_FEATURES = [
   "accelerometer",
-  "bluetooth",
   "camera",
   "display-capture",
   "geolocation",

@@ -9,7 +9,7 @@ import { twoToneJpeg } from "../support/photo-files";
 // Every page keeps to its Content-Security-Policy (no inline script without the nonce, no blocked
 // style, image or connection), responses carry the security headers, and no other page can frame ours.
 
-/** Collects CSP violations a page reports, as events and as console messages. */
+/** Collects CSP violations a page reports, as events and as console messages, and complaints about the Permissions-Policy header. */
 async function watchPolicy(context: BrowserContext): Promise<string[]> {
   const seen: string[] = [];
   await context.addInitScript(() => {
@@ -18,7 +18,7 @@ async function watchPolicy(context: BrowserContext): Promise<string[]> {
     });
   });
   context.on("console", (m) => {
-    if (/Content Security Policy|CSP violation|Refused to/i.test(m.text())) seen.push(`${m.page()?.url()}: ${m.text()}`);
+    if (/Content Security Policy|CSP violation|Refused to|Permissions-Policy/i.test(m.text())) seen.push(`${m.page()?.url()}: ${m.text()}`);
   });
   return seen;
 }

@@ -131,6 +131,15 @@ describe("stated conditions from a multipart form", () => {
     expect(r.issues.map((i) => i.path).sort()).toEqual(["loadOhm", "scale.volts"]);
   });
 
+  it("names a missing full-scale voltage by the form's own label and says what to type", () => {
+    const r = readConditions(form({ scale: "volts-per-full-scale", basis: "peak", loadOhm: "8" }), "sine");
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.message).toBe(
+      "The stated conditions do not fit. Full scale stands for: type the voltage a full-scale sample stands for, e.g. 40.",
+    );
+  });
+
   it("asks for the kind when the file cannot tell, and refuses JSON that does not parse", () => {
     const noKind = readConditions(form({ levelUnit: "dB" }), null);
     expect(noKind).toMatchObject({ ok: false, issues: [{ path: "kind", message: "required" }] });

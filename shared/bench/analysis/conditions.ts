@@ -10,14 +10,14 @@ export const captureScaleSchema = z.discriminatedUnion("kind", [
   z.strictObject({
     kind: z.literal("volts-per-full-scale"),
     /** Volts at the unit's output that a full-scale sample stands for. */
-    volts: z.number().positive().max(10_000),
+    volts: z.number({ error: "type the voltage a full-scale sample stands for, e.g. 40" }).positive().max(10_000),
     /** "peak": the full-scale sample's own value; "rms": the rms of a sine that just reaches full scale. */
     basis: z.enum(["peak", "rms"]),
   }),
   z.strictObject({
     kind: z.literal("analyser"),
     /** The analyser's full scale at its input, volts. */
-    fullScaleVolts: z.number().positive().max(1_000),
+    fullScaleVolts: z.number({ error: "type the analyser's full-scale voltage, e.g. 2" }).positive().max(1_000),
     basis: z.enum(["peak", "rms"]),
     /** Unit output ÷ analyser input: 1 direct, 10 for a 10:1 divider or probe. */
     attenuation: z.number().positive().max(10_000),

@@ -1,0 +1,24 @@
+import { describe, expect, it } from "vitest";
+import { DatabaseError } from "sequelize";
+import { loggable } from "~/entry.server";
+
+// What the web process writes when a request fails: enough to find the fault, never the values a
+// database error carries (bench sheets, e-mail addresses).
+describe("server error log lines", () => {
+  it("keep a database error's message and code but not its SQL parameters", () => {
+    const original = Object.assign(new Error('null value in column "maker" violates not-null constraint'), {
+      code: "23502",
+      sql: "INSERT INTO listings ...",
+      parameters: ["seller@example.test", '{"notes":"private"}'],
+    });
+    const line = loggable(new DatabaseError(original));
+    expect(line).toBe('SequelizeDatabaseError: null value in column "maker" violates not-null constraint (23502)');
+    expect(line).not.toContain("seller@example.test");
+  });
+
+  it("keep an ordinary error's stack", () => {
+    const line = loggable(new TypeError("x is undefined"));
+    expect(line.startsWith("TypeError: x is undefined\n")).toBe(true);
+    expect(line).toContain("server-error-log.test.ts");
+  });
+});
