@@ -123,6 +123,15 @@ async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[]; fail
   }
 }
 
+async function publicPageFigures(): Promise<{ figures: Figure[]; notes: string[]; failed?: boolean }> {
+  if (process.argv.includes("--no-server")) return { figures: [], notes: [] };
+  try {
+    return await (await import("./bench/pages")).pageFigures();
+  } catch (e) {
+    return { figures: [], notes: [`public page figures could not be measured: ${(e as Error).message}`], failed: true };
+  }
+}
+
 const figures = await captureFigures();
 const sheet = await sheetFigures();
 figures.push(...sheet.figures);
@@ -131,6 +140,9 @@ figures.push(...(await (await import("./bench/photos")).photoFigures()));
 const edge = await edgeFigures();
 figures.push(...edge.figures);
 notes.push(...edge.notes);
+const pages = await publicPageFigures();
+figures.push(...pages.figures);
+notes.push(...pages.notes);
 
 // The anonymous account forms' timing and health checks under load need a running app: `npm start`,
 // or BENCH_URL.
@@ -146,7 +158,7 @@ if (answers) figures.push(...(await (await import("./bench/account-timing")).acc
 if (answers) figures.push(...(await (await import("./bench/health")).healthFigures(benchUrl)));
 else notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);
 
-let missed = edge.failed ? 1 : 0;
+let missed = (edge.failed ? 1 : 0) + (pages.failed ? 1 : 0);
 for (const f of figures) {
   const over = f.limit !== undefined && !(f.value < f.limit);
   if (over) missed++;

@@ -2,18 +2,57 @@ import { QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { BenchSheet, Listing, User, Workshop } from "~/models/index.server";
 import { formatEra, listingTitle } from "@shared/catalogue";
-import { leadFigure } from "@shared/listing-facets";
+import { leadFigure, type CardFigure } from "@shared/listing-facets";
 import type { ListingSummary, PhotoRef } from "./types";
 import { mediaUrl } from "./media-url";
 
-// Turns listing rows into what list pages show. Loads what a card needs in three queries per page
-// (listings with seller and sheet, then covers), however many listings there are.
+// Turns listing rows into what list pages show. Loads what a card needs in two queries per page
+// (listings with seller and sheet, then covers), however many listings there are, and only the
+// columns a card shows: no description, shipping options or verdict read and parsed per card.
+
+/** The listing columns a card is built from (see toSummaries). */
+export const summaryAttributes = [
+  "id",
+  "sellerId",
+  "workshopId",
+  "category",
+  "maker",
+  "model",
+  "yearFrom",
+  "yearTo",
+  "priceMinor",
+  "currency",
+  "offersWelcome",
+  "country",
+  "region",
+  "town",
+  "cosmeticGrade",
+  "serviceState",
+  "benchVerified",
+  "publishedAt",
+  "createdAt",
+] as const;
 
 export const summaryInclude = [
   { model: User, as: "seller", attributes: ["id", "displayName"] },
   { model: Workshop, as: "workshop", attributes: ["id", "name", "slug", "verificationStatus"] },
-  { model: BenchSheet, as: "benchSheet", attributes: ["sheet"] },
+  { model: BenchSheet, as: "benchSheet", attributes: ["id", "updatedAt", "sheet"] },
 ];
+
+// A card's figure comes from its whole sheet, read through the sheet's schema: worth doing once per
+// sheet version, not once per card per request. The sheet's getter is lazy, so a hit never parses it.
+const leadFigures = new Map<string, { updatedAt: number; figure: CardFigure | null }>();
+
+function cardFigure(bench: BenchSheet | null | undefined): CardFigure | null {
+  if (!bench) return null;
+  const updatedAt = bench.updatedAt.getTime();
+  const hit = leadFigures.get(bench.id);
+  if (hit && hit.updatedAt === updatedAt) return hit.figure;
+  const figure = leadFigure(bench.sheet);
+  if (leadFigures.size >= 10_000) leadFigures.clear();
+  leadFigures.set(bench.id, { updatedAt, figure });
+  return figure;
+}
 
 export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
   const covers = await coversFor(rows.map((r) => r.id));
@@ -36,7 +75,7 @@ export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
       : // Private sellers go by first name in lists.
         { name: (l.seller?.displayName ?? "").split(/\s+/)[0] ?? "", kind: "private", verified: false },
     cover: covers.get(l.id) ?? null,
-    keyFigure: leadFigure(l.benchSheet?.sheet),
+    keyFigure: cardFigure(l.benchSheet),
     publishedAt: (l.publishedAt ?? l.createdAt).toISOString(),
   }));
 }

@@ -1,8 +1,9 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { Listing, ListingPhoto } from "~/models/index.server";
+import { BenchSheet, Listing, ListingPhoto } from "~/models/index.server";
 import { ensureBucket, headObject } from "~/services/storage.server";
 import { homeData, liveCountsByCategory, marketPage, parseMarketSearch } from "~/catalogue/market.server";
 import { mediaResponse } from "~/catalogue/media.server";
+import { sequelize } from "~/db.server";
 import { seedDemo } from "../../db/seeds/demo";
 
 // What buyers browse: only live listings, in the category asked for, newest first; photos served
@@ -60,6 +61,53 @@ describe("market", () => {
     });
     expect(amp!.cover?.thumbUrl).toMatch(/^\/media\/photos\/thumb\//);
     expect(JSON.stringify(page)).not.toContain("CW-46I-017924");
+  });
+
+  it("loads a page of cards in a fixed number of queries, reading only the columns a card shows", async () => {
+    const statements = async (run: () => Promise<unknown>) => {
+      const seen: string[] = [];
+      // Every statement goes through the logging option (typed only on the constructor's options).
+      const options = (sequelize as unknown as { options: { logging: unknown } }).options;
+      const before = options.logging;
+      options.logging = (sql: string) => void seen.push(sql);
+      try {
+        await run();
+      } finally {
+        options.logging = before;
+      }
+      return seen;
+    };
+    const one = await statements(() => marketPage(search(""), 1));
+    const many = await statements(() => marketPage(search(""), 500));
+    const home = await statements(() => homeData(6));
+    expect(await Listing.count({ where: { status: "live" } })).toBeGreaterThan(20);
+    // Category counts (which give the total), the cards with seller and sheet, the covers.
+    expect(many.length).toBe(3);
+    expect(one.length).toBe(many.length);
+    expect(home.length).toBeLessThanOrEqual(5);
+    const cards = [...many, ...home].filter((sql) => sql.includes('FROM "listings" AS "Listing"') && sql.includes("LEFT OUTER JOIN"));
+    expect(cards.length).toBe(2);
+    for (const sql of cards) {
+      // A card needs neither the shipping options, the condition note, the postcode nor the bench verdict.
+      expect(sql).not.toMatch(/"Listing"\."(shipping_options|condition_note|postcode)"/);
+      expect(sql).not.toMatch(/"benchSheet"\."verdict"/);
+    }
+  });
+
+  it("shows a sheet's new lead figure once the sheet is saved again", async () => {
+    const amp = (await marketPage(search("?category=integrated-amplifiers"), 500)).items.find((i) => i.title === "Carrowain WQ 46i")!;
+    expect(amp.keyFigure?.value).toBe("65");
+    const bench = (await BenchSheet.findOne({ where: { listingId: amp.id } }))!;
+    const before = bench.sheet!;
+    const at8 = (x: (typeof before.readings)[number]) =>
+      x.quantity === "output_power" && x.basis === "measured" && x.conditions.loadOhm === 8;
+    try {
+      await bench.update({ sheet: { ...before, readings: before.readings.map((x) => (at8(x) ? { ...x, value: 61 } : x)) } });
+      const after = (await marketPage(search("?category=integrated-amplifiers"), 500)).items.find((i) => i.id === amp.id)!;
+      expect(after.keyFigure?.value).toBe("61");
+    } finally {
+      await bench.update({ sheet: before });
+    }
   });
 
   it("counts live units per category the same way the market lists them", async () => {

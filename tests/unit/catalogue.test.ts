@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   CATEGORIES,
@@ -52,6 +53,37 @@ describe("formatting", () => {
     expect(formatPrice(68_550, "GBP")).toBe("£685.50");
     expect(formatPrice(145_000, "EUR")).toBe("€1,450");
     expect(formatPrice(98_000, "JPY")).toBe("JP¥98,000"); // yen has no minor unit (ISO 4217)
+  });
+
+  it("formats each price as a freshly built formatter would, in any order of currencies and locales", () => {
+    // The formatters are kept between calls; a whole price after a fractional one must not reuse its style.
+    const fresh = (minor: number, currency: string, locale: string) => {
+      const digits = new Intl.NumberFormat(locale, { style: "currency", currency }).resolvedOptions().maximumFractionDigits ?? 2;
+      const major = minor / 10 ** digits;
+      const min = Number.isInteger(major) ? 0 : digits;
+      return new Intl.NumberFormat(locale, {
+        style: "currency",
+        currency,
+        minimumFractionDigits: min,
+        maximumFractionDigits: digits,
+      }).format(major);
+    };
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.tuple(
+            fc.integer({ min: 0, max: 10_000_000 }),
+            fc.constantFrom("GBP", "EUR", "JPY", "USD", "KWD"),
+            fc.constantFrom("en-GB", "de-DE"),
+          ),
+          { minLength: 1, maxLength: 12 },
+        ),
+        (calls) => {
+          for (const [minor, currency, locale] of calls)
+            expect(formatPrice(minor, currency, { locale })).toBe(fresh(minor, currency, locale));
+        },
+      ),
+    );
   });
 
   it("writes weights in kg above a kilogram", () => {
