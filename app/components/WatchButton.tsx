@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from "react";
 import { useMutation } from "@tanstack/react-query";
-import { sendWatch, WatchError } from "~/watching/client";
+import { sendWatch, WatchError } from "~/listings/watch-client";
 import { Button } from "./Button";
 import { cx } from "./cx";
 
