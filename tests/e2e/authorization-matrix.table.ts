@@ -164,7 +164,10 @@ export const MATRIX: Record<string, Entry> = {
   },
   // Watching: any account, for what it may see. The seller's own unit and a unit that is not for sale
   // are refused with 409; someone else's draft or held unit is a 404, as for one that does not exist.
-  "/api/v1/watches": { cases: [{ get: apiSignedIn("ok") }] },
+  // Read-only: writes get apiRoute's 405.
+  "/api/v1/watches": {
+    cases: [{ get: apiSignedIn("ok"), writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } } }],
+  },
   "/api/v1/watches/:listingId": {
     cases: [
       {
@@ -183,7 +186,7 @@ export const MATRIX: Record<string, Entry> = {
       },
       {
         name: "draft",
-        params: draft,
+        params: (f) => ({ listingId: f.draft.id }),
         writes: { PUT: { expect: { anonymous: 401, owner: 409, others: 404 } }, DELETE: { expect: apiOwnerOnly() } },
       },
       { name: "no such listing", params: () => ({ listingId: randomUUID() }), writes: { PUT: { expect: apiSignedIn(404) } } },

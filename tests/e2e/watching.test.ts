@@ -30,7 +30,7 @@ describe("the watch list", () => {
 
     await page.goto("/watching");
     await page.getByRole("heading", { name: "Nothing on your watch list yet" }).waitFor();
-    expect(await page.getByRole("link", { name: "Browse the market" }).getAttribute("href")).toBe("/market");
+    expect(await page.getByRole("main").getByRole("link", { name: "Browse the market" }).getAttribute("href")).toBe("/market");
 
     await page.goto("/market");
     const card = page.locator("article").first();
