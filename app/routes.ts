@@ -20,6 +20,10 @@ export default [
   route("desk", "routes/desk/desk.tsx"),
   // The public listing page (watch is its action)
   route("listings/:id", "routes/listings/listing.tsx"),
+  // The buyer's watch list: the page and its API
+  route("watching", "routes/watching.tsx"),
+  route("api/v1/watches", "routes/api.v1.watches.ts"),
+  route("api/v1/watches/:listingId", "routes/api.v1.watches.$listingId.ts"),
   // Service health (liveness, readiness; /healthz is readiness) and the payments provider's webhook
   route("healthz", "routes/healthz.ts"),
   route("healthz/ready", "routes/healthz.ts", { id: "routes/healthz-ready" }),

@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { Link } from "react-router";
 import { CATEGORY_LABELS, COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice } from "@shared/catalogue";
 import type { ListingSummary } from "~/catalogue/types";
@@ -10,7 +11,18 @@ import { cx } from "./cx";
  * price, condition and the bench-verified mark. The whole card is one link (the title), so keyboard
  * users meet one tab stop per unit.
  */
-export function ListingCard({ listing, href, className }: { listing: ListingSummary; href: string; className?: string }) {
+export function ListingCard({
+  listing,
+  href,
+  className,
+  action,
+}: {
+  listing: ListingSummary;
+  href: string;
+  className?: string;
+  /** A control over the photo's corner (the watch button), above the card's link. */
+  action?: ReactNode;
+}) {
   const l = listing;
   return (
     <article
@@ -36,6 +48,7 @@ export function ListingCard({ listing, href, className }: { listing: ListingSumm
           <div className="flex size-full items-center justify-center text-sm text-ink-faint">No photo yet</div>
         )}
         {l.benchVerified ? <BenchVerifiedMark compact className="absolute left-2.5 top-2.5 bg-card/95 backdrop-blur-sm" /> : null}
+        {action ? <div className="absolute right-2.5 top-2.5">{action}</div> : null}
       </div>
       <div className="flex flex-1 flex-col gap-3 p-4">
         <div className="space-y-0.5">

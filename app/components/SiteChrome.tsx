@@ -18,6 +18,7 @@ interface NavItem {
 // Only pages that exist and that this visitor may open; selling appears once its flow is in place.
 const NAV: NavItem[] = [
   { to: "/market", label: "Market", show: () => true },
+  { to: "/watching", label: "Watching", show: (u) => !!u },
   { to: "/sell", label: "Sell", show: (u) => !!u },
   { to: "/desk", label: "Review desk", show: (u) => !!u && holdsRole(u.roles, "moderator") },
   { to: "/admin/users", label: "Admin", show: (u) => !!u && holdsRole(u.roles, "admin") },

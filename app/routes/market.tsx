@@ -1,6 +1,9 @@
 import type { Route } from "./+types/market";
 import { CATEGORY_LABELS, type Category } from "@shared/catalogue";
 import { marketPage, parseMarketSearch } from "~/catalogue/market.server";
+import { getUser } from "~/auth/guards.server";
+import { watchStates } from "~/listings/watch.server";
+import { WatchButton } from "~/components/WatchButton";
 import { CategoryNav } from "~/components/CategoryNav";
 import { ListingCard } from "~/components/ListingCard";
 import { PageHeader } from "~/components/PageHeader";
@@ -9,7 +12,15 @@ import { BenchGlyph } from "~/components/BenchVerifiedMark";
 import { marketDescription } from "~/meta";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  return marketPage(parseMarketSearch(new URL(request.url)));
+  const [page, user] = await Promise.all([marketPage(parseMarketSearch(new URL(request.url))), getUser(request)]);
+  // Signed in: which cards show a watch button, and in which state (never on the buyer's own units).
+  const watching = user
+    ? await watchStates(
+        user.id,
+        page.items.map((l) => l.id),
+      )
+    : {};
+  return { ...page, watching };
 }
 
 export const meta: Route.MetaFunction = ({ data }) => {
@@ -26,7 +37,7 @@ function marketHref(category: Category | null, page = 1): string {
 }
 
 export default function Market({ loaderData }: Route.ComponentProps) {
-  const { items, total, page, pageCount, category, counts } = loaderData;
+  const { items, total, page, pageCount, category, counts, watching } = loaderData;
   const title = category ? CATEGORY_LABELS[category].many : "The market";
   return (
     <main className="mx-auto w-full max-w-6xl space-y-6 px-4 py-8 sm:px-6 sm:py-10">
@@ -57,7 +68,16 @@ export default function Market({ loaderData }: Route.ComponentProps) {
           <ul className="grid grid-cols-1 gap-5 sm:grid-cols-2 lg:grid-cols-3">
             {items.map((l) => (
               <li key={l.id} className="flex min-w-0">
-                <ListingCard listing={l} href={`/listings/${l.id}`} className="w-full" />
+                <ListingCard
+                  listing={l}
+                  href={`/listings/${l.id}`}
+                  className="w-full"
+                  action={
+                    l.id in watching ? (
+                      <WatchButton listingId={l.id} watching={watching[l.id]} action={`/listings/${l.id}`} layout="card" />
+                    ) : null
+                  }
+                />
               </li>
             ))}
           </ul>

@@ -92,6 +92,16 @@ export const MATRIX: Record<string, Entry> = {
     ],
   },
 
+  // The watch list: any account; the form's fallback unwatches without JavaScript.
+  "/watching": {
+    cases: [
+      {
+        get: signedIn("ok"),
+        post: { body: (f) => ({ form: { intent: "unwatch", listingId: f.live.id } }), expect: signedIn("ok") },
+      },
+    ],
+  },
+
   // The seller's path. Any account may start selling; the editor is the owner's alone.
   "/sell": {
     cases: [
@@ -150,6 +160,36 @@ export const MATRIX: Record<string, Entry> = {
       },
       // The owner's view carries the serial number: a live listing's is still the owner's alone.
       { name: "live", params: (f) => ({ id: f.live.id }), get: apiOwnerOnly() },
+    ],
+  },
+  // Watching: any account, for what it may see. The seller's own unit and a unit that is not for sale
+  // are refused with 409; someone else's draft or held unit is a 404, as for one that does not exist.
+  // Read-only: writes get apiRoute's 405.
+  "/api/v1/watches": {
+    cases: [{ get: apiSignedIn("ok"), writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } } }],
+  },
+  "/api/v1/watches/:listingId": {
+    cases: [
+      {
+        name: "live",
+        params: (f) => ({ listingId: f.live.id }),
+        get: everyone(405),
+        writes: { PUT: { expect: { anonymous: 401, owner: 409, others: "ok" } }, DELETE: { expect: apiSignedIn("ok") } },
+      },
+      {
+        name: "held",
+        params: (f) => ({ listingId: f.held.id }),
+        writes: {
+          PUT: { expect: { anonymous: 401, owner: 409, moderator: 409, admin: 409, others: 404 } },
+          DELETE: { expect: { anonymous: 401, owner: "ok", moderator: "ok", admin: "ok", others: 404 } },
+        },
+      },
+      {
+        name: "draft",
+        params: (f) => ({ listingId: f.draft.id }),
+        writes: { PUT: { expect: { anonymous: 401, owner: 409, others: 404 } }, DELETE: { expect: apiOwnerOnly() } },
+      },
+      { name: "no such listing", params: () => ({ listingId: randomUUID() }), writes: { PUT: { expect: apiSignedIn(404) } } },
     ],
   },
   "/api/v1/listings/:id/photos": {

@@ -94,10 +94,14 @@ describe("the listing page", () => {
     const watch = page.getByRole("button", { name: /Watch this unit|Watching/ });
     // Leave the demo as found, whatever an earlier run did.
     if ((await watch.getAttribute("aria-pressed")) === "true") {
-      await watch.click();
+      await Promise.all([page.waitForResponse((r) => r.url().includes("/api/v1/watches/")), watch.click()]);
       await page.getByRole("button", { name: "Watch this unit" }).waitFor();
     }
-    await page.getByRole("button", { name: "Watch this unit" }).click();
+    // The button turns at once; wait for the API's answer before reading stored state.
+    await Promise.all([
+      page.waitForResponse((r) => r.request().method() === "PUT" && r.url().includes("/api/v1/watches/")),
+      page.getByRole("button", { name: "Watch this unit" }).click(),
+    ]);
     const watching = page.getByRole("button", { name: "Watching" });
     await watching.waitFor();
     expect(await watching.getAttribute("aria-pressed")).toBe("true");
@@ -106,7 +110,10 @@ describe("the listing page", () => {
     // It is stored, not just shown: a fresh load still says so.
     await page.reload();
     await page.getByRole("button", { name: "Watching" }).waitFor();
-    await page.getByRole("button", { name: "Watching" }).click();
+    await Promise.all([
+      page.waitForResponse((r) => r.request().method() === "DELETE" && r.url().includes("/api/v1/watches/")),
+      page.getByRole("button", { name: "Watching" }).click(),
+    ]);
     await page.getByRole("button", { name: "Watch this unit" }).waitFor();
     await page.reload();
     expect(await page.getByRole("button", { name: "Watch this unit" }).getAttribute("aria-pressed")).toBe("false");

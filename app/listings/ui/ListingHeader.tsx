@@ -1,7 +1,7 @@
-import { useFetcher } from "react-router";
 import { Badge } from "~/components/Badge";
 import { BenchVerifiedMark } from "~/components/BenchVerifiedMark";
-import { Button, ButtonLink } from "~/components/Button";
+import { ButtonLink } from "~/components/Button";
+import { EyeIcon, WatchButton } from "~/components/WatchButton";
 import type { ListingHead, ViewerState } from "../types";
 
 // Title, price, condition and the watch button; the state banner for units that are not plainly for sale.
@@ -147,7 +147,6 @@ export function OwnerLinks({ listing, viewer }: { listing: ListingHead; viewer: 
 
 /** Watch for signed-in buyers (a form, so it works without script); a sign-in link for visitors. */
 export function WatchControl({ listing, viewer }: { listing: ListingHead; viewer: ViewerState }) {
-  const fetcher = useFetcher<{ watching?: boolean; reason?: string }>();
   if (listing.status !== "live" || viewer.isSeller) return null;
   if (!viewer.signedIn) {
     return (
@@ -158,27 +157,5 @@ export function WatchControl({ listing, viewer }: { listing: ListingHead; viewer
     );
   }
   if (!viewer.canWatch) return null;
-  const pending = fetcher.formData?.get("intent");
-  const watching = pending ? pending === "watch" : (fetcher.data?.watching ?? viewer.watching);
-  return (
-    <fetcher.Form method="post" className="space-y-1">
-      <input type="hidden" name="intent" value={watching ? "unwatch" : "watch"} />
-      <Button type="submit" variant={watching ? "secondary" : "primary"} aria-pressed={watching} className="w-full sm:w-auto">
-        <EyeIcon filled={watching} />
-        {watching ? "Watching" : "Watch this unit"}
-      </Button>
-      <p className="text-xs text-ink-faint" aria-live="polite">
-        {fetcher.data?.reason ?? (watching ? "Press again to stop watching." : "Keep it on your watch list.")}
-      </p>
-    </fetcher.Form>
-  );
-}
-
-function EyeIcon({ filled = false }: { filled?: boolean }) {
-  return (
-    <svg aria-hidden="true" viewBox="0 0 20 20" className="size-4">
-      <path d="M1.8 10s3-5.5 8.2-5.5S18.2 10 18.2 10s-3 5.5-8.2 5.5S1.8 10 1.8 10z" fill="none" stroke="currentColor" strokeWidth="1.6" />
-      <circle cx="10" cy="10" r="2.6" fill={filled ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.6" />
-    </svg>
-  );
+  return <WatchButton listingId={listing.id} watching={viewer.watching} />;
 }
