@@ -2,7 +2,7 @@ import { z } from "zod";
 import { freeText, nameText } from "./text";
 
 // The catalogue's vocabulary, shared by the database checks, the forms and the pages. Values are the
-// stored codes; labels and seller descriptions are Loadline's own words (PRODUCT.md, "Words we use").
+// stored codes; labels and seller descriptions are Loadline's own words (README and docs).
 
 export const CATEGORIES = [
   "integrated_amplifier",

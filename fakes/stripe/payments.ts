@@ -6,7 +6,7 @@ import { snapshot, type Ctx } from "./context";
 // The money core shared by the PaymentIntents API and the hosted payment page: payment methods,
 // charges, authorisation, capture, cancellation and the 7-day expiry of uncaptured holds.
 
-const HOLD_SECONDS = 7 * 24 * 3600; // card-not-present, customer-initiated (REFERENCES.md §10)
+const HOLD_SECONDS = 7 * 24 * 3600; // card-not-present, customer-initiated (the provider's docs: "Place a hold on a payment method")
 const CANCELABLE = ["requires_payment_method", "requires_capture", "requires_confirmation", "requires_action", "processing"];
 
 // Smallest chargeable amounts in minor units (docs.stripe.com/currencies, from memory).

@@ -2,7 +2,7 @@ import { createHmac } from "node:crypto";
 import type { StripeObject, StripeStore } from "./store";
 
 // Sends each event to the app's webhook endpoint, signed as Stripe signs them:
-// `Stripe-Signature: t=<unix>,v1=<hex HMAC-SHA256(secret, "<t>.<raw body>")>` (REFERENCES.md §10).
+// `Stripe-Signature: t=<unix>,v1=<hex HMAC-SHA256(secret, "<t>.<raw body>")>` (the provider's docs: "Check the webhook signatures").
 // A delivery that does not get a 2xx answer is retried later, with a fresh timestamp and signature.
 
 export function signatureHeader(payload: string, secret: string, timestamp = Math.floor(Date.now() / 1000)): string {

@@ -205,7 +205,7 @@ describe("payments stand-in", () => {
     expect(receiver.received.length).toBeGreaterThan(0);
     const delivery = receiver.received[receiver.received.length - 1];
     expect(delivery.path).toBe("/api/v1/webhooks/stripe");
-    // Header t=<unix>,v1=<hex HMAC-SHA256(secret, "t.body")> (REFERENCES.md §10, stripe-ruby compute_signature).
+    // Header t=<unix>,v1=<hex HMAC-SHA256(secret, "t.body")> (the provider's webhook signature docs; the official Ruby SDK's compute_signature).
     const header = String(delivery.headers["stripe-signature"]);
     expect(header).toMatch(/^t=\d+,v1=[0-9a-f]{64}$/);
     const event = Stripe.webhooks.constructEvent(delivery.body, header, WEBHOOK_SECRET);

@@ -102,7 +102,7 @@ describe("payments webhook receiver", () => {
     expect((await post(body.replace("pi_x", "pi_y"), goodHeader)).status).toBe(400);
     expect((await post(body, signatureHeader(body, "whsec_someone_else"))).status).toBe(400);
     expect((await post(body)).status).toBe(400);
-    // Older than the SDK's 300 s tolerance (REFERENCES.md §10): a replayed capture is refused.
+    // Older than the SDK's 300 s default tolerance (the provider's webhook signature docs): a replayed capture is refused.
     expect((await post(body, signatureHeader(body, WEBHOOK_SECRET, Math.floor(Date.now() / 1000) - 600))).status).toBe(400);
     expect(await PaymentEvent.findByPk("evt_forged_1")).toBeNull();
     // The same payload correctly signed is accepted, so the refusals above were about the signature.

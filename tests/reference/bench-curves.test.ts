@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { aWeightingDb, riaaPlaybackDb } from "@shared/bench/curves";
 
-// Reference curves against their published tables (values and sources collected in ../shared/REFERENCES.md).
+// Reference curves against their published tables; each check names its source.
 
 describe("RIAA playback curve (IEC 60098, time constants 3180/318/75 µs)", () => {
   // Source: IEC 60098 time constants; table values recomputed from H(s) = (1+sT2)/((1+sT1)(1+sT3)),

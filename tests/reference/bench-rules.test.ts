@@ -1,5 +1,5 @@
 // The bench rules' relations against published sources and the trade's rules of thumb.
-// Each check names its source; see ../shared/REFERENCES.md for how sure each one is.
+// Each check names its source and how sure it is ("common practice" or "from memory" where that is all there is).
 import { describe, expect, it } from "vitest";
 import { checkBenchSheet, type BenchSheet, type Reading } from "@shared/bench";
 import { riaaPlaybackDb } from "@shared/bench/curves";

@@ -1,5 +1,5 @@
 // Unit conversions against published worked examples and the trade's own rules of thumb.
-// Each check names its source; see ../shared/REFERENCES.md for how sure each one is.
+// Each check names its source and how sure it is ("common practice" or "from memory" where that is all there is).
 import { describe, expect, it } from "vitest";
 import { parseValue, powerFromVrms, ratioToDb, toUnit, vpkFromPower, vrmsFromPower, type ParseResult } from "@shared/bench/units";
 import { formatValue } from "@shared/bench/format";

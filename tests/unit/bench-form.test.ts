@@ -4,7 +4,7 @@ import { readSheetForm, readSheetState, rowField, sheetFingerprint, sheetToState
 import { checkBenchSheet, doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet } from "@shared/bench";
 
 // The bench sheet form: what a seller types in a row, read into a reading with its conditions.
-// Sine relations from PRODUCT.md's reference values (common practice): Vrms = Vpp / (2√2).
+// Sine relations (common practice): Vrms = Vpp / (2√2).
 
 const row = (rest: Parameters<typeof blankRow>[2]) => blankRow("k", "measured", rest);
 

@@ -20,7 +20,7 @@ describe("payments stand-in encoding", () => {
   });
 
   it("signs webhook payloads exactly as the SDK's test signer does (HMAC-SHA256 over `t.body`)", () => {
-    // REFERENCES.md §10: v1 = hex HMAC-SHA256(secret, "{t}.{raw body}").
+    // The provider's webhook signature docs: v1 = hex HMAC-SHA256(secret, "{t}.{raw body}").
     const payload = JSON.stringify({ id: "evt_1", object: "event", type: "account.updated" });
     const timestamp = 1_796_000_000;
     const ours = signatureHeader(payload, "whsec_unit", timestamp);
