@@ -11,6 +11,7 @@ import { assertSameOrigin } from "~/auth/csrf.server";
 import { readPageForm, formRequest } from "~/http/body.server";
 import { getUser } from "~/auth/guards.server";
 import { startSession } from "~/auth/session.server";
+import { OAUTH_UNVERIFIED } from "~/auth/identities.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Loadline" }];
 
@@ -18,8 +19,7 @@ const OAUTH_MESSAGES: Record<string, string> = {
   cancelled: "Signing in with your Loadline pass was cancelled. You can try again, or use your password.",
   failed: "Signing in with your Loadline pass did not complete. Please try again.",
   unavailable: "The Loadline pass service is not answering just now. Sign in with your password, or try again in a few minutes.",
-  unverified:
-    "The e-mail address on your Loadline pass is not confirmed yet, so it cannot sign you in here. Confirm it there, or sign in with your password.",
+  unverified: OAUTH_UNVERIFIED,
   suspended: "This account is suspended, so it cannot sign in. Write to the moderators if you think this is a mistake.",
 };
 
