@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { Listing, ListingPhoto, User } from "~/models/index.server";
+import { blankListing } from "../support/blank-listing";
 import { CATEGORIES, COSMETIC_GRADES, LISTING_STATUSES, PHOTO_STATUSES, SERVICE_STATES, WORKSHOP_STATUSES } from "@shared/catalogue";
 
 // The database keeps the catalogue honest even when a bug slips past the forms: its CHECK lists
@@ -64,42 +65,7 @@ describe("catalogue rows the database refuses", () => {
     }
   }
 
-  const draft = (extra: Partial<Listing> = {}) => ({
-    sellerId,
-    category: "turntable" as const,
-    maker: null,
-    model: null,
-    yearFrom: null,
-    yearTo: null,
-    serialNumber: null,
-    mainsVoltageV: null,
-    mainsFrequencyHz: null,
-    weightG: null,
-    boxedLengthMm: null,
-    boxedWidthMm: null,
-    boxedHeightMm: null,
-    priceMinor: null,
-    country: null,
-    region: null,
-    town: null,
-    postcode: null,
-    handlingDays: null,
-    cosmeticGrade: null,
-    serviceState: null,
-    conditionNote: null,
-    publishedAt: null,
-    heldReason: null,
-    power8ohmW: null,
-    power4ohmW: null,
-    thdPct: null,
-    snrDb: null,
-    bandwidthHz: null,
-    wowFlutterPct: null,
-    sensitivityDb: null,
-    impedanceOhm: null,
-    workshopId: null,
-    ...extra,
-  });
+  const draft = (extra: Parameters<typeof blankListing>[2] = {}) => blankListing(sellerId, "turntable", extra);
 
   it("lets a draft be almost empty, but not go live without price, condition and location", async () => {
     expect(await refused((tx) => Listing.create(draft(), { transaction: tx }))).toBe("accepted");
