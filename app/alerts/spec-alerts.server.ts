@@ -4,7 +4,7 @@ import { findOwn } from "~/auth/ownership.server";
 import { SpecAlert } from "~/models/spec-alert.server";
 import { ALERT_FREQUENCIES, type AlertFrequency } from "./frequency";
 import { nameText } from "@shared/text";
-import { canonicalAlertQuery } from "./filters.server";
+import { canonicalAlertQuery } from "./filters";
 
 // A buyer's spec alerts: a name, the market's filters as its canonical query string, and how often
 // to mail (at once, a daily digest, or not at all: an unsubscribe link sets "off").

@@ -4,7 +4,7 @@ import type { Route } from "./+types/alerts";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requireUser } from "~/auth/guards.server";
 import { readPageForm } from "~/http/body.server";
-import { describeAlertQuery } from "~/alerts/filters.server";
+import { describeAlertQuery } from "~/alerts/filters";
 import { AlertFrequencyInput, AlertName, changeAlert, listAlerts } from "~/alerts/spec-alerts.server";
 import { FREQUENCY_LABELS, FrequencyChoice } from "~/alerts/ui/FrequencyChoice";
 import type { AlertFrequency } from "~/alerts/frequency";

@@ -3,7 +3,7 @@ import type { Route } from "./+types/new";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requireUser } from "~/auth/guards.server";
 import { readPageForm } from "~/http/body.server";
-import { canonicalAlertQuery, describeAlertQuery } from "~/alerts/filters.server";
+import { canonicalAlertQuery, describeAlertQuery } from "~/alerts/filters";
 import { createAlert, NewAlertForm } from "~/alerts/spec-alerts.server";
 import { Button } from "~/components/Button";
 import { Field, FormError } from "~/components/Field";
