@@ -106,6 +106,10 @@ export default function Watching({ loaderData, actionData }: Route.ComponentProp
         Units a seller withdraws or the review desk holds leave this list.{" "}
         <Link to="/market" className="underline decoration-rule-strong underline-offset-2 hover:text-ink">
           Back to the market
+        </Link>{" "}
+        ·{" "}
+        <Link to="/alerts" className="underline decoration-rule-strong underline-offset-2 hover:text-ink">
+          Your spec alerts
         </Link>
       </p>
     </main>
