@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
+import type { Role } from "~/auth/roles";
 import { account, cleanUp, liveAmplifier, queued, recipients, runJobs, unsubscribeToken, watch, type SentMail } from "./alerts-support";
 
 // Watchers hear of a price drop, a sale and a withdrawal: each watcher once, never the seller, not on
@@ -18,6 +19,7 @@ const { deliverWatchNotice, queueWatchNotice, NOTICE_WINDOW_HOURS } = await impo
 const { unsubscribe } = await import("~/alerts/unsubscribe.server");
 const { Watch } = await import("~/models/watch.server");
 const { enqueue, QUEUES } = await import("~/services/jobs.server");
+const { loadListingPage } = await import("~/listings/public.server");
 
 const run = (now?: Date) => runJobs(QUEUES.watchNotice, (data) => deliverWatchNotice(data, undefined, now));
 
@@ -128,6 +130,11 @@ describe("sold and withdrawn", () => {
     await run();
     expect(recipients(sent)).toEqual([ada.email, bo.email].sort());
     expect(sent[0].subject).toBe(`Withdrawn: Fenwold Acoustics ${listing.model}`);
+    // The mail's link works for a watcher (the page says it was withdrawn); anyone else still gets nothing.
+    const page = (viewer: { id: string; roles: Role[] }) => loadListingPage({ id: listing.id, viewer });
+    expect((await page({ id: ada.id, roles: ["buyer"] }))?.listing.status).toBe("withdrawn");
+    const stranger = await account("stranger");
+    expect(await page({ id: stranger.id, roles: ["buyer"] })).toBeNull();
   });
 
   // No sale exists yet (escrow comes later): the sale will mark the unit sold and call queueWatchNotice
