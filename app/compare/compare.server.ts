@@ -1,0 +1,76 @@
+import type { BenchSheet } from "@shared/bench";
+import { compareFigures } from "@shared/bench/figures";
+import { CATEGORY_LABELS } from "@shared/catalogue";
+import { Listing } from "~/models/index.server";
+import { summaryAttributes, summaryInclude, toSummaries } from "~/catalogue/summaries.server";
+import { responseSeries } from "~/listings/plot-math";
+import { PUBLIC_STATUSES } from "~/listings/visibility";
+import { figureGroups } from "./rows";
+import type { ComparedUnit, Comparison, ResponseSeries } from "./types";
+
+// The compare page's data. Only live and sold units are shown, to everyone alike (a seller's own
+// draft or a held unit is "no longer available" here too), so an id in a link reveals nothing.
+
+const POINTS_PER_SERIES = 200;
+
+/** Which of these ids are public listings (live or sold), in the order given. */
+export async function publicIds(ids: readonly string[]): Promise<string[]> {
+  if (!ids.length) return [];
+  const rows = await Listing.findAll({ where: { id: [...ids], status: [...PUBLIC_STATUSES] }, attributes: ["id"] });
+  const found = new Set(rows.map((r) => r.id));
+  return ids.filter((id) => found.has(id));
+}
+
+export async function loadComparison(ids: readonly string[]): Promise<Comparison> {
+  const rows = ids.length
+    ? await Listing.findAll({
+        where: { id: [...ids], status: [...PUBLIC_STATUSES] },
+        attributes: [...summaryAttributes, "status"],
+        include: summaryInclude,
+      })
+    : [];
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  const ordered = ids.flatMap((id) => byId.get(id) ?? []);
+  const summaries = await toSummaries(ordered);
+  const sheets = ordered.map((r) => r.benchSheet?.sheet ?? null);
+
+  const units: ComparedUnit[] = summaries.map((s, i) => ({
+    ...s,
+    status: ordered[i].status === "sold" ? "sold" : "live",
+    href: `/listings/${s.id}`,
+    categoryLabel: CATEGORY_LABELS[s.category].one,
+    shortName: numbered(summaries.map((x) => x.title))[i],
+  }));
+  const kinds = [...new Set(units.map((u) => u.categoryLabel))];
+  return {
+    units,
+    unavailable: ids.filter((id) => !byId.has(id)),
+    mixedKinds: kinds.length > 1 ? kinds : null,
+    groups: figureGroups(units.map((u, i) => ({ category: u.category, figures: sheets[i] ? compareFigures(sheets[i]) : [] }))),
+    responses: responses(units, sheets),
+  };
+}
+
+/** "Orrel Five Direct", "Orrel Five Direct (2)": the legend must tell two units of one model apart. */
+function numbered(titles: string[]): string[] {
+  return titles.map((t, i) => {
+    const before = titles.slice(0, i).filter((x) => x === t).length;
+    return before ? `${t} (${before + 1})` : t;
+  });
+}
+
+/** Each unit's first flat sweep, as level re 1 kHz; units without one are named so the plot's gaps are explained. */
+function responses(units: ComparedUnit[], sheets: (BenchSheet | null)[]): Comparison["responses"] {
+  const series: ResponseSeries[] = [];
+  const without: string[] = [];
+  units.forEach((u, i) => {
+    const sweep = sheets[i]?.sweeps.find((s) => s.kind === "flat");
+    if (!sweep) {
+      without.push(u.shortName);
+      return;
+    }
+    const r = responseSeries(sweep, POINTS_PER_SERIES);
+    series.push({ id: u.id, label: u.shortName, points: r.points.map((p) => ({ hz: p.f, db: p.level })) });
+  });
+  return { series, conditions: "Level relative to each unit's own 1 kHz level, from the sweep on its bench sheet.", without };
+}
