@@ -10,8 +10,8 @@ import type { ComparedUnit, FigureCell, FigureGroup } from "../types";
 // sideways (a phone shows one or two units at a time), and says what each row is and which way is better.
 
 const sticky = "sticky left-0 z-10 bg-card shadow-[1px_0_0_var(--color-rule)]";
-const headCell = "w-36 min-w-36 p-3 text-left align-top text-sm font-medium text-ink-soft sm:w-52 sm:min-w-52";
-const unitCell = "min-w-[10.5rem] p-3 align-top text-sm";
+const headCell = "p-3 text-left align-top text-sm font-medium text-ink-soft";
+const unitCell = "p-3 align-top text-sm";
 
 export function CompareTable({ units, groups }: { units: ComparedUnit[]; groups: FigureGroup[] }) {
   return (
@@ -31,7 +31,14 @@ export function CompareTable({ units, groups }: { units: ComparedUnit[]; groups:
         tabIndex={0}
         className="overflow-x-auto rounded-panel border border-rule bg-card shadow-panel"
       >
-        <table className="w-full border-separate border-spacing-0">
+        {/* Fixed layout: the units share the width evenly, and below it the table scrolls rather than squeezes them. */}
+        <table className="w-full table-fixed border-separate border-spacing-0" style={{ minWidth: `${9 + units.length * 10.5}rem` }}>
+          <colgroup>
+            <col className="w-36 sm:w-52" />
+            {units.map((u) => (
+              <col key={u.id} />
+            ))}
+          </colgroup>
           <caption className="sr-only">
             Measured figures of {units.length} {units.length === 1 ? "unit" : "units"}, with the stronger figure in each row marked where
             the conditions match
