@@ -1,4 +1,4 @@
-import type { BenchSheet } from "@shared/bench";
+import { describeConditions, type BenchSheet } from "@shared/bench";
 import { compareFigures } from "@shared/bench/figures";
 import { CATEGORY_LABELS } from "@shared/catalogue";
 import { Listing } from "~/models/index.server";
@@ -6,7 +6,8 @@ import { summaryAttributes, summaryInclude, toSummaries } from "~/catalogue/summ
 import { responseSeries } from "~/listings/plot-math";
 import { PUBLIC_STATUSES } from "~/listings/visibility";
 import { figureGroups } from "./rows";
-import type { ComparedUnit, Comparison, ResponseSeries } from "./types";
+import type { ResponseSeries } from "~/components/plots";
+import type { ComparedUnit, Comparison } from "./types";
 
 // The compare page's data. Only live and sold units are shown, to everyone alike (a seller's own
 // draft or a held unit is "no longer available" here too), so an id in a link reveals nothing.
@@ -62,6 +63,7 @@ function numbered(titles: string[]): string[] {
 /** Each unit's first flat sweep, as level re 1 kHz; units without one are named so the plot's gaps are explained. */
 function responses(units: ComparedUnit[], sheets: (BenchSheet | null)[]): Comparison["responses"] {
   const series: ResponseSeries[] = [];
+  const swept: string[] = [];
   const without: string[] = [];
   units.forEach((u, i) => {
     const sweep = sheets[i]?.sweeps.find((s) => s.kind === "flat");
@@ -71,6 +73,9 @@ function responses(units: ComparedUnit[], sheets: (BenchSheet | null)[]): Compar
     }
     const r = responseSeries(sweep, POINTS_PER_SERIES);
     series.push({ id: u.id, label: u.shortName, points: r.points.map((p) => ({ hz: p.f, db: p.level })) });
+    swept.push(describeConditions({ ...sweep.conditions, frequencyRange: undefined }) || "conditions not stated");
   });
-  return { series, conditions: "Level relative to each unit's own 1 kHz level, from the sweep on its bench sheet.", without };
+  const same = swept.every((c) => c === swept[0]);
+  const how = same ? swept[0] : series.map((s, i) => `${s.label}: ${swept[i]}`).join("; ");
+  return { series, conditions: `Level relative to each unit's own 1 kHz level. Swept ${same ? "" : "— "}${how}.`, without };
 }

@@ -1,6 +1,7 @@
 import type { FigureDirection, FigureKey } from "@shared/bench/figures";
 import type { RowJudgement } from "@shared/bench/compare";
 import type { ListingSummary } from "~/catalogue/types";
+import type { ResponseSeries } from "~/components/plots";
 
 // What the compare page receives: the units' heads, their measured figures row by row with the
 // judgement of each row, and their frequency responses. Built only from live and sold listings.
@@ -38,13 +39,6 @@ export interface FigureGroup {
   rows: FigureRow[];
 }
 
-export interface ResponseSeries {
-  /** The unit's id. */
-  id: string;
-  label: string;
-  points: { hz: number; db: number }[];
-}
-
 export interface Comparison {
   units: ComparedUnit[];
   /** Ids asked for that are not shown (no such listing, or not public): all said the same way. */
@@ -52,6 +46,7 @@ export interface Comparison {
   /** Category labels when the units are of different kinds; null when they are one kind. */
   mixedKinds: string[] | null;
   groups: FigureGroup[];
+  /** One series per unit with a flat sweep (its id is the unit's); `without` names the units that have none. */
   responses: { series: ResponseSeries[]; conditions: string; without: string[] };
 }
 

@@ -174,11 +174,15 @@ const POWER_BASIS: FigureComparison = {
   better: "higher",
   sameConditions: ["frequencyHz", "frequencyRange", "atDistortion", "channelsDriven"],
 };
+const DISTORTION_BASIS: (keyof Conditions)[] = ["loadOhm", "frequencyHz", "powerW", "bandwidth"];
 const RESPONSE_BASIS: (keyof Conditions)[] = ["loadOhm", "powerW", "voltageV", "tapeSpeedCmS"];
 export const FIGURE_COMPARISON: Record<FigureKey, FigureComparison> = {
   power8: POWER_BASIS,
   power4: POWER_BASIS,
-  distortion: { better: "lower", sameConditions: ["loadOhm", "frequencyHz", "powerW", "bandwidth"], sameQuantity: true },
+  distortion: { better: "lower", sameConditions: DISTORTION_BASIS, sameQuantity: true },
+  thd: { better: "lower", sameConditions: DISTORTION_BASIS },
+  thdN: { better: "lower", sameConditions: DISTORTION_BASIS },
+  noise: { better: "lower", sameConditions: ["weighting", "bandwidth", "loadOhm"] },
   snr: { better: "higher", sameConditions: ["weighting", "powerW", "voltageV", "bandwidth", "tapeSpeedCmS"] },
   bandwidthHigh: { better: "higher", sameConditions: RESPONSE_BASIS },
   bandwidthLow: { better: "lower", sameConditions: RESPONSE_BASIS },

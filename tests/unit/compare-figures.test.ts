@@ -3,6 +3,7 @@ import fc from "fast-check";
 import { compareFamily, judgeRow, type RowEntry } from "@shared/bench/compare";
 import { COMPARE_FIGURES, FIGURE_COMPARISON, compareFigures, type FigureKey, type KeyFigure } from "@shared/bench/figures";
 import { CATEGORIES, exampleIntegratedAmplifierSheet, type Category, type Conditions, type Quantity } from "@shared/bench";
+import { MEASURED_FILTERS, type MeasuredFilterKey } from "@shared/measured-filters";
 import { amplifierSheet } from "../../db/seeds/demo-sheets";
 
 // Which of several units' figures is the stronger, and when the bench refuses to say. The directions
@@ -12,7 +13,10 @@ const TRADE_DIRECTIONS: Record<FigureKey, "higher" | "lower" | "nearer_zero" | n
   power8: "higher",
   power4: "higher",
   distortion: "lower",
+  thd: "lower",
+  thdN: "lower",
   snr: "higher",
+  noise: "lower",
   bandwidthHigh: "higher",
   bandwidthLow: "lower",
   dampingFactor: "higher",
@@ -193,5 +197,35 @@ describe("the figures compare reads off a sheet", () => {
     expect(row("distortion")).toEqual({ kind: "stronger", strongest: [1] });
     expect(row("bandwidthLow")).toEqual({ kind: "stronger", strongest: [1] });
     expect(row("snr")).toEqual({ kind: "not_comparable", differ: ["output level"] });
+  });
+});
+
+describe("the market's filters", () => {
+  // The filters keep which way is better for their own use; it must say what the figures say.
+  const FIGURE_OF: Partial<Record<MeasuredFilterKey, FigureKey>> = {
+    power8: "power8",
+    power4: "power4",
+    thd: "thd",
+    thdn: "thdN",
+    snr: "snr",
+    f3Low: "bandwidthLow",
+    f3High: "bandwidthHigh",
+    damping: "dampingFactor",
+    riaa: "riaaDeviation",
+    noise: "noise",
+    sensitivity: "sensitivity",
+    impedanceMin: "impedanceMinimum",
+    speedError: "speedError",
+    wowFlutter: "wowFlutter",
+  };
+
+  it("call the same direction better as compare does", () => {
+    const checked = MEASURED_FILTERS.filter((f) => FIGURE_OF[f.key]);
+    expect(checked.length).toBe(Object.keys(FIGURE_OF).length);
+    for (const f of checked) {
+      const better = FIGURE_COMPARISON[FIGURE_OF[f.key]!].better;
+      // The speed-error column holds the size of the error, so "nearer zero" is "lower" there.
+      expect({ filter: f.key, better: f.better }).toEqual({ filter: f.key, better: better === "nearer_zero" ? "lower" : better });
+    }
   });
 });
