@@ -1,3 +1,4 @@
+import { useId } from "react";
 import { Form, Link } from "react-router";
 import { COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice } from "@shared/catalogue";
 import { BenchVerifiedMark } from "~/components/BenchVerifiedMark";
@@ -14,6 +15,7 @@ const headCell = "p-3 text-left align-top text-sm font-medium text-ink-soft";
 const unitCell = "p-3 align-top text-sm";
 
 export function CompareTable({ units, groups }: { units: ComparedUnit[]; groups: FigureGroup[] }) {
+  const tableId = useId();
   return (
     <div className="space-y-2">
       {units.length > 1 ? (
@@ -45,11 +47,11 @@ export function CompareTable({ units, groups }: { units: ComparedUnit[]; groups:
           </caption>
           <thead>
             <tr>
-              <td className={cx(sticky, headCell, "bg-sunk/70")}>
+              <td className={cx(sticky, headCell, "bg-sunk")}>
                 <span className="sr-only">Unit</span>
               </td>
               {units.map((u) => (
-                <th key={u.id} scope="col" className={cx(unitCell, "bg-sunk/70 text-left font-normal")}>
+                <th key={u.id} scope="col" className={cx(unitCell, "bg-sunk text-left font-normal")}>
                   <UnitHead unit={u} others={units.filter((x) => x.id !== u.id).map((x) => x.id)} />
                 </th>
               ))}
@@ -75,12 +77,18 @@ export function CompareTable({ units, groups }: { units: ComparedUnit[]; groups:
               render={(u) => (u.benchVerified ? <BenchVerifiedMark compact /> : <span className="text-ink-faint">Not bench-verified</span>)}
             />
           </tbody>
-          {groups.map((g) => (
-            <tbody key={g.title}>
+          {groups.map((g, gi) => (
+            // The group's title names its rows (a row group), so it does not stand over the units' columns.
+            <tbody key={g.title} aria-labelledby={`${tableId}-group-${gi}`}>
               <tr>
-                <th scope="colgroup" colSpan={units.length + 1} className="border-t border-rule-strong bg-paper p-0 text-left">
-                  <span className="sticky left-0 inline-block px-3 pb-1.5 pt-4 font-serif text-base font-semibold text-ink">{g.title}</span>
-                </th>
+                <td colSpan={units.length + 1} className="border-t border-rule-strong bg-paper p-0 text-left">
+                  <span
+                    id={`${tableId}-group-${gi}`}
+                    className="sticky left-0 inline-block px-3 pb-1.5 pt-4 font-serif text-base font-semibold text-ink"
+                  >
+                    {g.title}
+                  </span>
+                </td>
               </tr>
               {g.rows.map((row) => (
                 <tr key={row.key} data-figure-row={row.key}>
