@@ -1,4 +1,4 @@
-import { judgeRow, type RowEntry, type RowJudgement } from "@shared/bench/compare";
+import { compareFamily, judgeRow, type RowEntry, type RowJudgement } from "@shared/bench/compare";
 import { FIGURE_COMPARISON, type FigureDirection, type FigureKey, type KeyFigure } from "@shared/bench/figures";
 import { toCardFigure } from "@shared/listing-facets";
 import type { Category } from "@shared/catalogue";
@@ -68,7 +68,7 @@ function cell(f: KeyFigure, rowLabel: string, stronger: boolean): FigureCell {
   return { value: card.value, unit: card.unit, conditions, stronger, fromCapture: f.fromCapture };
 }
 
-function noteFor(j: RowJudgement, present: number): string | null {
+function noteFor(j: RowJudgement, present: number, mixed: boolean): string | null {
   switch (j.kind) {
     case "not_comparable": {
       const list = j.differ.length > 1 ? `${j.differ.slice(0, -1).join(", ")} and ${j.differ.at(-1)}` : j.differ[0];
@@ -79,7 +79,8 @@ function noteFor(j: RowJudgement, present: number): string | null {
     case "level":
       return "Measured alike.";
     case "alone":
-      return present === 1 ? "Only one of these units has this figure on its sheet." : null;
+      // Across kinds of unit most rows belong to one kind; saying so on each would only be noise.
+      return present === 1 && !mixed ? "Only one of these units has this figure on its sheet." : null;
     default:
       return null;
   }
@@ -88,6 +89,7 @@ function noteFor(j: RowJudgement, present: number): string | null {
 /** `units[i]`: the unit's category and its measured figures (compareFigures). Rows no unit has are left out. */
 export function figureGroups(units: { category: Category; figures: KeyFigure[] }[]): FigureGroup[] {
   const out: FigureGroup[] = [];
+  const mixed = new Set(units.map((u) => compareFamily(u.category))).size > 1;
   for (const group of GROUPS) {
     const rows: FigureRow[] = [];
     for (const [key, label] of group.rows) {
@@ -105,7 +107,7 @@ export function figureGroups(units: { category: Category; figures: KeyFigure[] }
         better: FIGURE_COMPARISON[key].better,
         cells: entries.map((e, i) => (e ? cell(e.figure, label, strongest.includes(i)) : null)),
         judgement,
-        note: units.length > 1 ? noteFor(judgement, present) : null,
+        note: units.length > 1 ? noteFor(judgement, present, mixed) : null,
       });
     }
     if (rows.length) out.push({ title: group.title, rows });
