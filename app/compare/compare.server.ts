@@ -60,22 +60,46 @@ function numbered(titles: string[]): string[] {
   });
 }
 
-/** Each unit's first flat sweep, as level re 1 kHz; units without one are named so the plot's gaps are explained. */
+/**
+ * Each unit's first flat sweep as level re 1 kHz, and a phono stage's RIAA sweep as its deviation from
+ * the curve (overlaying raw RIAA levels would only show the curve itself). Units with neither are named.
+ */
 function responses(units: ComparedUnit[], sheets: (BenchSheet | null)[]): Comparison["responses"] {
-  const series: ResponseSeries[] = [];
-  const swept: string[] = [];
+  const flat: { series: ResponseSeries; swept: string }[] = [];
+  const riaa: ResponseSeries[] = [];
   const without: string[] = [];
   units.forEach((u, i) => {
-    const sweep = sheets[i]?.sweeps.find((s) => s.kind === "flat");
-    if (!sweep) {
-      without.push(u.shortName);
-      return;
+    const sweeps = sheets[i]?.sweeps ?? [];
+    const f = sweeps.find((s) => s.kind === "flat");
+    const r = sweeps.find((s) => s.kind === "riaa");
+    if (f) {
+      const points = responseSeries(f, POINTS_PER_SERIES).points.map((p) => ({ hz: p.f, db: p.level }));
+      flat.push({
+        series: { id: u.id, label: u.shortName, points },
+        swept: describeConditions({ ...f.conditions, frequencyRange: undefined }) || "conditions not stated",
+      });
     }
-    const r = responseSeries(sweep, POINTS_PER_SERIES);
-    series.push({ id: u.id, label: u.shortName, points: r.points.map((p) => ({ hz: p.f, db: p.level })) });
-    swept.push(describeConditions({ ...sweep.conditions, frequencyRange: undefined }) || "conditions not stated");
+    if (r) {
+      const points = responseSeries(r, POINTS_PER_SERIES).points.flatMap((p) =>
+        p.deviation === undefined ? [] : [{ hz: p.f, db: p.deviation }],
+      );
+      riaa.push({ id: u.id, label: u.shortName, points });
+    }
+    if (!f && !r) without.push(u.shortName);
   });
-  const same = swept.every((c) => c === swept[0]);
-  const how = same ? swept[0] : series.map((s, i) => `${s.label}: ${swept[i]}`).join("; ");
-  return { series, conditions: `Level relative to each unit's own 1 kHz level. Swept ${same ? "" : "— "}${how}.`, without };
+  const same = flat.every((x) => x.swept === flat[0].swept);
+  const how = same ? (flat[0]?.swept ?? "") : `— ${flat.map((x) => `${x.series.label}: ${x.swept}`).join("; ")}`;
+  return {
+    flat: flat.length
+      ? { series: flat.map((x) => x.series), conditions: `Level relative to each unit's own 1 kHz level. Swept ${how}.` }
+      : null,
+    riaa: riaa.length
+      ? {
+          series: riaa,
+          conditions:
+            "Each unit's phono playback response less the RIAA curve that fits it best, both relative to 1 kHz: 0 dB is a perfect match.",
+        }
+      : null,
+    without,
+  };
 }

@@ -46,8 +46,17 @@ export interface Comparison {
   /** Category labels when the units are of different kinds; null when they are one kind. */
   mixedKinds: string[] | null;
   groups: FigureGroup[];
-  /** One series per unit with a flat sweep (its id is the unit's); `without` names the units that have none. */
-  responses: { series: ResponseSeries[]; conditions: string; without: string[] };
+  /**
+   * The units' responses, one series each (its id is the unit's): flat sweeps as level re 1 kHz, RIAA
+   * sweeps as deviation from the curve. `without` names the units with neither.
+   */
+  responses: { flat: Overlay | null; riaa: Overlay | null; without: string[] };
+}
+
+export interface Overlay {
+  series: ResponseSeries[];
+  /** How the sweeps were taken and what the level is relative to, in words. */
+  conditions: string;
 }
 
 /** What the compare action answers a script (a plain form is redirected instead). */

@@ -155,7 +155,22 @@ describe("the figures side by side", () => {
     expect(row("snr").judgement).toEqual({ kind: "not_comparable", differ: ["output level"] });
     expect(row("snr").note).toMatch(/^Not ranked: the output level differs/);
     expect(c.groups.map((g) => g.title)).toEqual(["Power", "Distortion and noise", "Frequency response"]);
-    expect(c.responses.series.map((s) => s.label)).toEqual(c.units.map((u) => u.title));
+    expect(c.responses.flat!.series.map((s) => s.label)).toEqual(c.units.map((u) => u.title));
+    expect(c.responses.riaa).toBeNull();
+  });
+
+  it("phono stages: their RIAA deviation overlaid, and the one without a sweep named", async () => {
+    const models = ["Tellis Phono I MM", "Tellis Phono II MC", "WQ 5ph"];
+    const rows = await Listing.findAll({ where: { model: models, status: "live" }, attributes: ["id", "model"] });
+    const ids = models.map((m) => rows.find((r) => r.model === m)!.id);
+    const c = page(await open(`?ids=${ids.join(",")}`)).comparison!;
+    expect(c.responses.flat).toBeNull();
+    expect(c.responses.riaa!.series.map((s) => s.label)).toEqual(["Calvorne Tellis Phono I MM", "Calvorne Tellis Phono II MC"]);
+    // Deviation from the curve, not the curve itself: a few tenths of a dB, not tens.
+    for (const s of c.responses.riaa!.series) expect(Math.max(...s.points.map((p) => Math.abs(p.db)))).toBeLessThan(2);
+    expect(c.responses.without).toEqual(["Carrowain WQ 5ph"]);
+    const riaa = c.groups.flatMap((g) => g.rows).find((r) => r.key === "riaaDeviation")!;
+    expect(riaa.cells.map((x) => x === null)).toEqual([false, false, true]);
   });
 
   it("says when the units are of different kinds, and marks nothing across them", async () => {
