@@ -10,7 +10,7 @@ export function ResponseOverlay({ responses }: { responses: Comparison["response
         Frequency response
       </h2>
       {flat ? <OverlayPlot overlay={flat} what="Frequency response" /> : null}
-      {riaa ? <OverlayPlot overlay={riaa} what="Deviation from the RIAA curve" yLabel="Deviation (dB)" /> : null}
+      {riaa ? <OverlayPlot overlay={riaa} what="Deviation from the RIAA curve" yLabel="Deviation (dB)" yDomain={around0(riaa)} /> : null}
       {!flat && !riaa ? (
         <p className="text-sm text-ink-soft">None of these units has a response sweep on its bench sheet.</p>
       ) : without.length ? (
@@ -20,7 +20,14 @@ export function ResponseOverlay({ responses }: { responses: Comparison["response
   );
 }
 
-function OverlayPlot({ overlay, what, yLabel }: { overlay: Overlay; what: string; yLabel?: string }) {
+/** A range centred on 0 dB that holds every deviation in half-decibel steps: ±1 dB at least, so ±0.2 dB reads small. */
+function around0(overlay: Overlay): [number, number] {
+  const worst = Math.max(0, ...overlay.series.flatMap((s) => s.points.map((p) => Math.abs(p.db))));
+  const edge = Math.max(1, Math.ceil((worst + 0.1) * 2) / 2);
+  return [-edge, edge];
+}
+
+function OverlayPlot({ overlay, what, yLabel, yDomain }: { overlay: Overlay; what: string; yLabel?: string; yDomain?: [number, number] }) {
   const n = overlay.series.length;
   return (
     <figure className="space-y-2 rounded-panel border border-rule bg-card p-4 shadow-panel">
@@ -29,6 +36,7 @@ function OverlayPlot({ overlay, what, yLabel }: { overlay: Overlay; what: string
         title={`${what} of ${n === 1 ? overlay.series[0].label : `${n} units overlaid`}`}
         series={overlay.series}
         yLabel={yLabel}
+        yDomain={yDomain}
         legend
       />
       <p className="text-[0.8125rem] text-ink-faint">{overlay.conditions}</p>
