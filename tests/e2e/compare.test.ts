@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
+import { SCREEN_DIR, baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
 
 // A buyer picks three of the demo amplifiers in the market, opens compare and sees them side by side:
 // three columns, the stronger power marked, their responses on one plot. Then the same without JavaScript.
@@ -18,7 +18,7 @@ async function addToCompare(page: Page, title: string) {
     card(page, title).getByRole("button", { name: "Add to compare" }).click(),
   ]);
   expect(response.status()).toBe(200);
-  await card(page, title).getByRole("button", { name: "Remove from compare" }).waitFor();
+  await card(page, title).getByRole("button", { name: "Comparing" }).waitFor();
 }
 
 describe("compare", () => {
@@ -81,6 +81,20 @@ describe("compare", () => {
     await region.evaluate((el) => el.scrollBy(300, 0));
     expect((await first.boundingBox())!.x).toBeCloseTo(before!.x, 0);
     await screenshot(page, "compare-390");
+
+    // A fifth unit is refused on its card, saying why; the list stays as it was.
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await page.goto("/market?category=integrated-amplifiers");
+    await addToCompare(page, "Vantrell Velt 80 Mk II");
+    const fifth = card(page, "Vantrell Velt 35");
+    const [refused] = await Promise.all([
+      page.waitForResponse((r) => r.request().method() === "POST" && new URL(r.url()).pathname.startsWith("/compare")),
+      fifth.getByRole("button", { name: "Add to compare" }).click(),
+    ]);
+    expect(refused.status()).toBe(409);
+    await fifth.getByText("You are comparing 4 units already").waitFor();
+    expect(await fifth.getByRole("button", { name: "Add to compare" }).getAttribute("aria-pressed")).toBe("false");
+    await fifth.screenshot({ path: `${SCREEN_DIR}/compare-fifth-refused.png` });
     await context.close();
   });
 
@@ -90,7 +104,7 @@ describe("compare", () => {
     await page.goto("/market?category=integrated-amplifiers");
     await Promise.all([page.waitForLoadState("load"), card(page, AMPS[1]).getByRole("button", { name: "Add to compare" }).click()]);
     expect(new URL(page.url()).pathname).toBe("/market");
-    expect(await card(page, AMPS[1]).getByRole("button", { name: "Remove from compare" }).getAttribute("aria-pressed")).toBe("true");
+    expect(await card(page, AMPS[1]).getByRole("button", { name: "Comparing" }).getAttribute("aria-pressed")).toBe("true");
 
     await page.goto("/compare");
     expect(page.url()).toMatch(/\/compare\?ids=[0-9a-f-]{36}$/);

@@ -48,12 +48,20 @@ export function CompareToggle({
         size="sm"
         variant="secondary"
         aria-pressed={chosen}
-        aria-label={chosen ? "Remove from compare" : "Add to compare"}
         data-compare-toggle={listingId}
         className={cx(card && "bg-card/95 shadow-panel backdrop-blur-sm", chosen && "border-trace/50 text-trace")}
       >
         <CompareIcon chosen={chosen} />
-        {card ? (chosen ? "Comparing" : "Compare") : chosen ? "Comparing" : "Add to compare"}
+        {/* The name holds the visible words; pressing a chosen unit's button takes it off the list. */}
+        {chosen ? (
+          "Comparing"
+        ) : card ? (
+          <>
+            <span className="sr-only">Add to </span>Compare
+          </>
+        ) : (
+          "Add to compare"
+        )}
       </Button>
       {!card && list.length ? (
         <Link to={compareHref(list)} className="text-sm font-medium text-walnut underline decoration-walnut/30 underline-offset-2">
