@@ -1,9 +1,8 @@
 import { readAlertQuery } from "./filters";
+import { listingsMatching } from "./match-sql.server";
 
-// Which of some listings a stored alert query matches. Waiting for the search slice's
-// listingsMatching (app/catalogue/search.server.ts); until it lands nothing matches.
+// Which of some listings a stored alert query matches, read with the market's own filter parser.
 
-export async function listingsMatchingQuery(query: string, listingIds: string[]): Promise<string[]> {
-  readAlertQuery(query);
-  return listingIds.length ? [] : [];
+export function listingsMatchingQuery(query: string, listingIds: string[]): Promise<string[]> {
+  return listingsMatching(readAlertQuery(query), listingIds);
 }
