@@ -77,6 +77,10 @@ describe("GET /api/v1/listings", () => {
     ["page=2", "page"],
     ["cursor=not%20base64", "cursor"],
     ["cursor=WyJuZXdlc3QiLCJ4Il0", "cursor"], // ["newest","x"]: well formed, not ours
+    // ["newest","2026-02-31 10:00:00+00",uuid]: a date that is not one
+    ["cursor=WyJuZXdlc3QiLCIyMDI2LTAyLTMxIDEwOjAwOjAwKzAwIiwiM2YxYzJhNGUtMDAwMC00MDAwLTgwMDAtMDAwMDAwMDAwMDAwIl0", "cursor"],
+    // ["price_asc","1e999",uuid]: a number past what the column holds
+    ["sort=price_asc&cursor=WyJwcmljZV9hc2MiLCIxZTk5OSIsIjNmMWMyYTRlLTAwMDAtNDAwMC04MDAwLTAwMDAwMDAwMDAwMCJd", "cursor"],
     ["figures=rated", "figures"],
   ])("%s is a 400 naming %s", async (qs, param) => {
     const res = await search(qs);
