@@ -47,7 +47,18 @@ export async function marketPage({ filters, issues }: MarketSearch, pageSize = M
   if (page !== filters.page) result = await searchListings(filters, { page, limit: pageSize });
   const filterCounts = result.counts ?? (await searchFilterCounts(filters));
   const counts = CATEGORIES.map((category) => ({ category, live: filterCounts.category[category] }));
-  return { items: result.items, total: result.total, page, pageCount, pageSize, category: filters.category, counts, filters, issues, filterCounts };
+  return {
+    items: result.items,
+    total: result.total,
+    page,
+    pageCount,
+    pageSize,
+    category: filters.category,
+    counts,
+    filters,
+    issues,
+    filterCounts,
+  };
 }
 
 /** How many live listings each category has (every category, zero included), in catalogue order. */

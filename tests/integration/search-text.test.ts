@@ -92,6 +92,24 @@ describe("text search", () => {
   });
 });
 
+describe("price bounds", () => {
+  it("hold exactly in the listing's own currency, though euro cents are coarser than öre", async () => {
+    // At 11.4 SEK to the euro, 1000.00 and 1000.05 SEK are the same euro cent.
+    const [at, over] = [
+      await unit("Kronor 1", { priceMinor: 100_000, currency: "SEK" }),
+      await unit("Kronor 2", { priceMinor: 100_005, currency: "SEK" }),
+    ];
+    try {
+      const ids = (await search(`q=${MAKER} kronor&priceMax=1000&currency=SEK`)).items.map((i) => i.id);
+      expect(ids).toEqual([at.id]);
+      const from = (await search(`q=${MAKER} kronor&priceMin=1000.05&currency=SEK`)).items.map((i) => i.id);
+      expect(from).toEqual([over.id]);
+    } finally {
+      await Listing.destroy({ where: { id: [at.id, over.id] } });
+    }
+  });
+});
+
 describe("cursor pages", () => {
   it("concatenate to the whole result in order, without a repeat, for every sort and page size (fast-check)", async () => {
     const arb = fc.record({
