@@ -80,6 +80,10 @@ describe("text search", () => {
 
   it("ranks a match in the model above one in the description", async () => {
     expect(await titles(`q=${MAKER} monitor`)).toEqual(["Quellin Monitor 4", "Quellin 5"]);
+    // One word alone (no nearness to weigh): the weight of where it was found decides.
+    const ours = [monitorModel.id, monitorNote.id];
+    const ranked = (await search("q=monitor", 100)).items.map((i) => i.id).filter((id) => ours.includes(id));
+    expect(ranked).toEqual(ours);
     expect((await search(`q=${MAKER} monitor&sort=newest`)).items.map((i) => i.id)).toEqual([monitorNote.id, monitorModel.id]);
   });
 
