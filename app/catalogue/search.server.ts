@@ -119,7 +119,8 @@ async function cachedCounts(filters: MarketFilters): Promise<Counted> {
 
 // One pass over the rows the common filters leave: each active dimension becomes a boolean column, and
 // each count is the rows where every other dimension holds.
-async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
+/** The SQL behind `filterCounts` (one row: "total" and one column per count), for `npm run bench` too. */
+export function countsQuery(filters: MarketFilters): { sql: string; bind: unknown[] } {
   const b = new Binds();
   const c = conditions(filters, b);
   const dims = [...c.dims.keys()];
@@ -154,7 +155,12 @@ async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
   const sql =
     `SELECT ${counts.map(([name, cond]) => `count(*) FILTER (WHERE ${cond}) AS "${name}"`).join(", ")}` +
     ` FROM (SELECT ${inner.join(", ")} FROM listings l WHERE ${c.common.join(" AND ")}) x`;
-  const [row] = await sequelize.query<Record<string, string>>(sql, { bind: b.values, type: QueryTypes.SELECT });
+  return { sql, bind: b.values };
+}
+
+async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
+  const { sql, bind } = countsQuery(filters);
+  const [row] = await sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT });
   const n = (name: string) => Number(row?.[name] ?? 0);
   const pick = <T extends string>(prefix: string, list: readonly T[]) =>
     Object.fromEntries(list.map((v) => [v, n(`${prefix}.${v}`)])) as Record<T, number>;
