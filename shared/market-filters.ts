@@ -103,12 +103,12 @@ export interface FilterCounts {
   measured: Record<MeasuredFilterKey, number>;
 }
 
-/** GET /api/v1/listings. `counts` comes with the first page (no cursor); later pages repeat null. */
+/** GET /api/v1/listings: one page, the number of units matching, the next page's cursor (null at the end) and the counts. */
 export interface ListingsPage {
   items: ListingSummary[];
   total: number;
   nextCursor: string | null;
-  counts: FilterCounts | null;
+  counts: FilterCounts;
 }
 
 type Params = URLSearchParams | Record<string, string | string[] | undefined>;

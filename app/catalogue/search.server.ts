@@ -58,11 +58,10 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
   return { sql, bind: b.values };
 }
 
-/** One page of live listings for the filters; counts come with the first page only. */
+/** One page of live listings for the filters, with the total and the counts (kept between pages; see cachedCounts). */
 export async function searchListings(filters: MarketFilters, opts: SearchOptions = {}): Promise<ListingsPage> {
   const { sql, bind } = searchQuery(filters, opts);
   const limit = clampLimit(opts.limit);
-  const first = !opts.cursor;
   const [rows, counted] = await Promise.all([
     sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT }),
     cachedCounts(filters),
@@ -71,7 +70,7 @@ export async function searchListings(filters: MarketFilters, opts: SearchOptions
   const last = page.at(-1);
   const nextCursor = rows.length > limit && last ? encodeCursor(filters.sort, keysOf(last)) : null;
   const items = await summariesInOrder(page.map((r) => r.id));
-  return { items, total: counted.total, nextCursor, counts: first ? counted.counts : null };
+  return { items, total: counted.total, nextCursor, counts: counted.counts };
 }
 
 /** Of `listingIds`, those live and matching the filters (a spec alert's check of newly published units). */
