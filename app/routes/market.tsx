@@ -1,5 +1,6 @@
 import type { Route } from "./+types/market";
-import { CATEGORY_LABELS, type Category } from "@shared/catalogue";
+import { CATEGORY_LABELS } from "@shared/catalogue";
+import { marketFiltersToParams, type MarketFilters } from "@shared/market-filters";
 import { marketPage, parseMarketSearch } from "~/catalogue/market.server";
 import { getUser } from "~/auth/guards.server";
 import { watchStates } from "~/listings/watch.server";
@@ -28,16 +29,14 @@ export const meta: Route.MetaFunction = ({ data }) => {
   return [{ title: `${many ?? "Used and vintage hi-fi"} · Market · Loadline` }, { name: "description", content: marketDescription(many) }];
 };
 
-function marketHref(category: Category | null, page = 1): string {
-  const q = new URLSearchParams();
-  if (category) q.set("category", CATEGORY_LABELS[category].slug);
-  if (page > 1) q.set("page", String(page));
-  const s = q.toString();
+// Links keep every filter in the URL: only the category or the page changes.
+function marketHref(filters: MarketFilters, change: Partial<MarketFilters>): string {
+  const s = marketFiltersToParams({ ...filters, cursor: null, page: 1, ...change }).toString();
   return s ? `/market?${s}` : "/market";
 }
 
 export default function Market({ loaderData }: Route.ComponentProps) {
-  const { items, total, page, pageCount, category, counts, watching } = loaderData;
+  const { items, total, page, pageCount, category, counts, watching, filters } = loaderData;
   const title = category ? CATEGORY_LABELS[category].many : "The market";
   return (
     <main className="mx-auto w-full max-w-6xl space-y-6 px-4 py-8 sm:px-6 sm:py-10">
@@ -51,7 +50,7 @@ export default function Market({ loaderData }: Route.ComponentProps) {
           </>
         }
       />
-      <CategoryNav counts={counts} current={category} hrefFor={(c) => marketHref(c)} />
+      <CategoryNav counts={counts} current={category} hrefFor={(c) => marketHref(filters, { category: c })} />
       <p className="flex items-start gap-2 text-sm text-ink-soft">
         <BenchGlyph className="mt-0.5 size-4 shrink-0 text-trace" />
         <span>
@@ -90,7 +89,7 @@ export default function Market({ loaderData }: Route.ComponentProps) {
           </p>
         </div>
       )}
-      <Pagination page={page} pageCount={pageCount} hrefFor={(p) => marketHref(category, p)} className="pt-2" />
+      <Pagination page={page} pageCount={pageCount} hrefFor={(p) => marketHref(filters, { page: p })} className="pt-2" />
     </main>
   );
 }
