@@ -23,11 +23,9 @@ export class ListingsError extends Error {
 /** One page of results; `cursor` continues after a page's `nextCursor`. */
 export async function fetchListings(params: string, cursor: string | null, signal?: AbortSignal): Promise<ListingsPage> {
   const query = new URLSearchParams(params);
-  if (cursor) {
-    // A cursor carries its own position: the HTML page's number would only conflict with it.
-    query.delete("page");
-    query.set("cursor", cursor);
-  }
+  // The API pages by cursor only: the HTML page's number is the loader's business.
+  query.delete("page");
+  if (cursor) query.set("cursor", cursor);
   const search = query.toString();
   let response: Response;
   try {

@@ -52,12 +52,11 @@ export function sortOptions(f: Pick<MarketFilters, "q" | "category">): { value: 
   ];
 }
 
-/** A measured filter's label without its bound ("Power into 8 Ω"), and the bound as a sign. */
-export function measuredChip(m: MeasuredFilter, value: number): { short: string; long: string } {
+/** A measured filter as a chip: its label without the words of the bound, the bound as a sign ("THD ≤ 0.05 %"). */
+export function measuredChip(m: MeasuredFilter, value: number): string {
   const plusMinus = m.label.endsWith("±");
-  const short = m.label.replace(/, at (least|most)( ±)?$/, "");
-  const sign = m.bound === "min" ? "≥" : "≤";
-  return { short: `${short} ${sign} ${plusMinus ? "±" : ""}${formatMeasured(m, value)}`, long: `${m.label}${plusMinus ? "" : " "}${formatMeasured(m, value)}` };
+  const name = m.label.replace(/, at (least|most)( ±)?$/, "");
+  return `${name} ${m.bound === "min" ? "≥" : "≤"} ${plusMinus ? "±" : ""}${formatMeasured(m, value)}`;
 }
 
 export interface AppliedFilter {
@@ -65,8 +64,6 @@ export interface AppliedFilter {
   id: string;
   /** What the chip shows. */
   label: string;
-  /** What a screen reader hears on its remove link. */
-  spoken: string;
   /** The same filters without this one. */
   without: MarketFilters;
 }
@@ -74,9 +71,9 @@ export interface AppliedFilter {
 /** Every filter the buyer set, in panel order; the category is not among them (the category links show it). */
 export function appliedFilters(f: MarketFilters): AppliedFilter[] {
   const out: AppliedFilter[] = [];
-  const add = (id: string, label: string, without: Partial<MarketFilters>, spoken = label) =>
-    out.push({ id, label, spoken, without: { ...withoutPaging(f), ...without } });
-  if (f.q) add("q", `“${f.q}”`, { q: null, sort: f.sort === "relevance" ? "newest" : f.sort }, `search for ${f.q}`);
+  const add = (id: string, label: string, without: Partial<MarketFilters>) =>
+    out.push({ id, label, without: { ...withoutPaging(f), ...without } });
+  if (f.q) add("q", `“${f.q}”`, { q: null, sort: f.sort === "relevance" ? "newest" : f.sort });
   if (f.priceMinMinor !== null) add("priceMin", `From ${formatPrice(f.priceMinMinor, f.currency)}`, { priceMinMinor: null });
   if (f.priceMaxMinor !== null) add("priceMax", `Up to ${formatPrice(f.priceMaxMinor, f.currency)}`, { priceMaxMinor: null });
   for (const g of f.condition) add(`condition:${g}`, COSMETIC_GRADE_TEXT[g].label, { condition: f.condition.filter((x) => x !== g) });
@@ -89,10 +86,9 @@ export function appliedFilters(f: MarketFilters): AppliedFilter[] {
   for (const m of MEASURED_FILTERS) {
     const value = f.measured[m.key];
     if (value === undefined) continue;
-    const { short, long } = measuredChip(m, value);
     const measured = { ...f.measured };
     delete measured[m.key];
-    add(m.param, short, { measured }, long);
+    add(m.param, measuredChip(m, value), { measured });
   }
   return out;
 }

@@ -30,8 +30,12 @@ export function AppliedFilters({
         const without = showCounts ? unitsWithout(a, filters, counts) : null;
         return (
           <li key={a.id}>
-            <Link to={marketHref(a.without)} preventScrollReset className={chip} aria-label={`Remove ${a.spoken}`}>
-              <span>{a.label}</span>
+            <Link to={marketHref(a.without)} preventScrollReset className={chip}>
+              {/* The name begins with what the chip shows, so speech control finds it by what is seen. */}
+              <span>
+                <span className="sr-only">Remove </span>
+                {a.label}
+              </span>
               {without === null ? null : <span className="figures text-xs text-ink-faint">{without} without it</span>}
               <svg aria-hidden="true" viewBox="0 0 12 12" className="size-3 text-ink-faint">
                 <path d="M3 3l6 6M9 3l-6 6" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" />

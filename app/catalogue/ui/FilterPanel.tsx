@@ -92,6 +92,7 @@ export function FilterPanel({
           ))}
         </div>
       </fieldset>
+      <MeasuredFields state={state} category={category} counts={counts} errors={errors} />
       <fieldset>
         <Legend>Condition</Legend>
         {COSMETIC_GRADES.map((g) => (
@@ -180,7 +181,6 @@ export function FilterPanel({
           error={errors.get("deliverTo")}
         />
       </fieldset>
-      <MeasuredFields state={state} category={category} counts={counts} errors={errors} />
       <div className="sticky bottom-0 -mx-4 border-t border-rule bg-card/95 px-4 py-3 backdrop-blur-sm lg:static lg:mx-0 lg:border-0 lg:bg-transparent lg:p-0">
         <Button type="submit" className="w-full">
           Show {total} {total === 1 ? "unit" : "units"}
