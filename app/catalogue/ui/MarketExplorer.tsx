@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { CATEGORIES, CATEGORY_LABELS } from "@shared/catalogue";
 import { MEASURED_FILTERS } from "@shared/market-filters";
 import { appliedFilters, inCategory, marketHref } from "~/catalogue/market-view";
@@ -45,6 +45,13 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
   const hydrated = useHydrated();
   // A bad value in the address: the phone's panel starts open, so its message is seen.
   const [open, setOpen] = useState(() => state.issues.length > 0);
+  const toggle = useRef<HTMLButtonElement>(null);
+  // The phone's panel closed from inside: focus returns to its toggle, just above the results.
+  const done = () => {
+    if (!open) return;
+    setOpen(false);
+    toggle.current?.focus();
+  };
 
   const { errors, problem } = useMemo(() => {
     const errors = new Map(state.issues.map((i) => [i.param, i.message]));
@@ -82,7 +89,14 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
       </p>
       <div className="lg:hidden">
         {hydrated ? (
-          <Button variant="secondary" aria-expanded={open} aria-controls="filters" onClick={() => setOpen((o) => !o)} className="w-full">
+          <Button
+            ref={toggle}
+            variant="secondary"
+            aria-expanded={open}
+            aria-controls="filters"
+            onClick={() => setOpen((o) => !o)}
+            className="w-full"
+          >
             <FunnelIcon /> {toggleLabel}
           </Button>
         ) : (
@@ -95,6 +109,9 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
         <aside
           id="filters"
           aria-labelledby="filters-title"
+          onKeyDown={(e) => {
+            if (e.key === "Escape") done();
+          }}
           className={cx(
             open ? "block" : "hidden",
             "mb-6 rounded-panel border border-rule bg-card px-4 pt-4 shadow-panel target:block lg:mb-0 lg:block lg:pb-4",
@@ -103,7 +120,7 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
           <h2 id="filters-title" className="mb-4 text-lg">
             Filters
           </h2>
-          <FilterPanel state={state} counts={counts} errors={errors} total={results.total} onDone={() => setOpen(false)} />
+          <FilterPanel state={state} counts={counts} errors={errors} total={results.total} onDone={done} />
         </aside>
         <MarketResults
           results={results}

@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { CATEGORY_LABELS } from "@shared/catalogue";
 import { marketFiltersToParams, withoutPaging, type MarketFilters } from "@shared/market-filters";
-import { appliedFilters, clearedFilters, marketHref, marketPageHref } from "~/catalogue/market-view";
+import { appliedFilters, marketPageHref } from "~/catalogue/market-view";
 import { ListingCard } from "~/components/ListingCard";
 import { Pagination } from "~/components/Pagination";
 import { WatchButton } from "~/components/WatchButton";
@@ -102,7 +102,7 @@ export function MarketResults({
           ))}
         </ul>
       ) : (
-        <Empty filters={filters} results={results} units={units} />
+        <Empty filters={filters} results={results} />
       )}
       {hydrated ? (
         results.hasMore ? (
@@ -119,7 +119,7 @@ export function MarketResults({
   );
 }
 
-function Empty({ filters, results, units }: { filters: MarketFilters; results: Results; units: string }) {
+function Empty({ filters, results }: { filters: MarketFilters; results: Results }) {
   const applied = appliedFilters(filters);
   const what = filters.category ? CATEGORY_LABELS[filters.category].many.toLowerCase() : "units";
   return (
@@ -132,8 +132,7 @@ function Empty({ filters, results, units }: { filters: MarketFilters; results: R
         </>
       ) : (
         <p className="mt-2 text-ink-soft">
-          None are for sale right now ({units}). Try another category or{" "}
-          <Link to={marketHref(clearedFilters(filters))}>the whole market</Link>.
+          None are for sale right now. Try another category or <Link to="/market">the whole market</Link>.
         </p>
       )}
     </div>

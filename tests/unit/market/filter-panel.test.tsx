@@ -164,6 +164,17 @@ describe("the market's filter panel", () => {
     expect(asked).toHaveLength(2);
   });
 
+  it("loads more with the cursor of the last page, after the cards already shown", async () => {
+    api((p) => ({ body: page([unit("Orrin A-120")], { total: 3, counts: null, nextCursor: p.get("cursor") === "c1" ? null : "c2" }) }));
+    mountMarket(`/market?${AMPS}`, { params: AMPS, page: page([unit("Orrin A-60"), unit("Orrin A-100")], { total: 3, nextCursor: "c1" }) });
+    fireEvent.click(await screen.findByRole("button", { name: "Load more of 3 units" }));
+    await waitFor(() => expect(titles()).toEqual(["Orrin A-60", "Orrin A-100", "Orrin A-120"]));
+    expect(asked).toEqual([`${AMPS}&cursor=c1`]);
+    expect(screen.queryByRole("button", { name: /Load more/ })).toBeNull();
+    // The counts of the first page stay: later pages carry none.
+    expect(screen.getByRole("checkbox", { name: "Clean 1 unit" })).toBeTruthy();
+  });
+
   it("without JavaScript it is a GET form to the market with every field named", () => {
     mountMarket(`/market?${AMPS}&power8Min=100+W`, { params: `${AMPS}&power8Min=100+W`, page: first });
     const form = screen.getByRole("form", { name: "Filters" });
