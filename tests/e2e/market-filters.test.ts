@@ -3,6 +3,7 @@ import { QueryTypes } from "sequelize";
 import type { Browser, Page } from "playwright-core";
 import { sequelize } from "~/db.server";
 import { baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
+import { signIn } from "./support/accounts";
 
 // The market's filters in a browser: an amplifier of at least 100 W into 8 Ω at no more than 0.05 % THD.
 // What the page shows is checked against the database (the figures stored from the checked bench sheets)
@@ -148,6 +149,26 @@ describe("the market's filters", () => {
     const message = (await page.locator(`[id="${described.at(-1)}"]`).textContent())!;
     expect(message.length).toBeGreaterThan(0);
     await plain.close();
+  });
+
+  it("a signed-in buyer can watch the units the panel fetched after the page loaded", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    await signIn(page, "buyer@loadline.test");
+    await page.goto("/market?category=turntables");
+    await page.locator("main article").first().waitFor();
+    await Promise.all([
+      page.waitForResponse((r) => new URL(r.url()).pathname === "/api/v1/listings"),
+      page
+        .getByRole("navigation", { name: "Categories" })
+        .getByRole("link", { name: /^Integrated amplifiers/ })
+        .click(),
+    ]);
+    await page.getByRole("heading", { level: 1, name: "Integrated amplifiers" }).waitFor();
+    const cardsShown = page.locator("main article");
+    await cardsShown.first().getByRole("button", { name: /watch/i }).waitFor();
+    expect(await cardsShown.getByRole("button", { name: /watch/i }).count()).toBe(await cardsShown.count());
+    await context.close();
   });
 
   it("moving to another page on a slow network shows progress", async () => {
