@@ -47,7 +47,8 @@ export function FilterPanel({
       method="get"
       action="/market"
       aria-label="Filters"
-      className="space-y-5"
+      // A field reached with Tab scrolls clear of the phone's sticky submit bar.
+      className="space-y-5 [&_input]:scroll-mb-24 [&_select]:scroll-mb-24"
       onSubmit={(e) => {
         e.preventDefault();
         state.apply();
