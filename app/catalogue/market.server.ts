@@ -3,7 +3,7 @@ import { sequelize } from "~/db.server";
 import { Listing, Workshop } from "~/models/index.server";
 import { CATEGORIES, type Category } from "@shared/catalogue";
 import { parseMarketFilters, type FilterCounts, type FilterIssue, type MarketFilters } from "@shared/market-filters";
-import { filterCounts as searchFilterCounts, searchListings } from "./search.server";
+import { searchListings } from "./search.server";
 import { summaryAttributes, summaryInclude, toSummaries } from "./summaries.server";
 import type { ListingSummary } from "./types";
 
@@ -45,9 +45,20 @@ export async function marketPage({ filters, issues }: MarketSearch, pageSize = M
   const page = Math.min(filters.page, pageCount);
   // A page number past the end (an old link) shows the last page.
   if (page !== filters.page) result = await searchListings(filters, { page, limit: pageSize });
-  const filterCounts = result.counts ?? (await searchFilterCounts(filters));
+  const filterCounts = result.counts;
   const counts = CATEGORIES.map((category) => ({ category, live: filterCounts.category[category] }));
-  return { items: result.items, total: result.total, page, pageCount, pageSize, category: filters.category, counts, filters, issues, filterCounts };
+  return {
+    items: result.items,
+    total: result.total,
+    page,
+    pageCount,
+    pageSize,
+    category: filters.category,
+    counts,
+    filters,
+    issues,
+    filterCounts,
+  };
 }
 
 /** How many live listings each category has (every category, zero included), in catalogue order. */

@@ -62,7 +62,10 @@ export function conditions(f: MarketFilters, b: Binds): Conditions {
   for (const filter of MEASURED_FILTERS) {
     const value = f.measured[filter.key];
     if (value === undefined) continue;
-    dims.set(`measured:${filter.key}`, `${counted(f)}l.${filter.column} ${filter.bound === "min" ? ">=" : "<="} ${b.add(value, "::float8")}`);
+    dims.set(
+      `measured:${filter.key}`,
+      `${counted(f)}l.${filter.column} ${filter.bound === "min" ? ">=" : "<="} ${b.add(value, "::float8")}`,
+    );
   }
   return { common, dims };
 }

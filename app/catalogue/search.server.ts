@@ -39,7 +39,18 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
   const spec = sortSpec(filters, b);
   const where = [whereOf(conditions(filters, b))];
   const cursor = opts.cursor ?? null;
-  if (cursor) where.push(after(spec, decodeCursor(cursor, filters.sort, spec.keys.map((k) => k.cast)), b));
+  if (cursor)
+    where.push(
+      after(
+        spec,
+        decodeCursor(
+          cursor,
+          filters.sort,
+          spec.keys.map((k) => k.cast),
+        ),
+        b,
+      ),
+    );
   const limit = clampLimit(opts.limit);
   const offset = !cursor && opts.page && opts.page > 1 ? ` OFFSET ${b.add((opts.page - 1) * limit, "::int")}` : "";
   // One row more than the page shows: it says whether there is a next page.
@@ -47,11 +58,10 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
   return { sql, bind: b.values };
 }
 
-/** One page of live listings for the filters; counts come with the first page only. */
+/** One page of live listings for the filters, with the total and the counts (kept between pages; see cachedCounts). */
 export async function searchListings(filters: MarketFilters, opts: SearchOptions = {}): Promise<ListingsPage> {
   const { sql, bind } = searchQuery(filters, opts);
   const limit = clampLimit(opts.limit);
-  const first = !opts.cursor;
   const [rows, counted] = await Promise.all([
     sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT }),
     cachedCounts(filters),
@@ -60,7 +70,7 @@ export async function searchListings(filters: MarketFilters, opts: SearchOptions
   const last = page.at(-1);
   const nextCursor = rows.length > limit && last ? encodeCursor(filters.sort, keysOf(last)) : null;
   const items = await summariesInOrder(page.map((r) => r.id));
-  return { items, total: counted.total, nextCursor, counts: first ? counted.counts : null };
+  return { items, total: counted.total, nextCursor, counts: counted.counts };
 }
 
 /** Of `listingIds`, those live and matching the filters (a spec alert's check of newly published units). */
@@ -68,10 +78,13 @@ export async function listingsMatching(filters: MarketFilters, listingIds: reado
   if (listingIds.length === 0) return [];
   const b = new Binds();
   const where = whereOf(conditions(filters, b));
-  const rows = await sequelize.query<{ id: string }>(`SELECT l.id FROM listings l WHERE l.id = ANY(${b.add(listingIds, "::uuid[]")}) AND ${where}`, {
-    bind: b.values,
-    type: QueryTypes.SELECT,
-  });
+  const rows = await sequelize.query<{ id: string }>(
+    `SELECT l.id FROM listings l WHERE l.id = ANY(${b.add(listingIds, "::uuid[]")}) AND ${where}`,
+    {
+      bind: b.values,
+      type: QueryTypes.SELECT,
+    },
+  );
   const hit = new Set(rows.map((r) => r.id));
   return listingIds.filter((id) => hit.has(id));
 }
@@ -105,7 +118,8 @@ async function cachedCounts(filters: MarketFilters): Promise<Counted> {
 
 // One pass over the rows the common filters leave: each active dimension becomes a boolean column, and
 // each count is the rows where every other dimension holds.
-async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
+/** The SQL behind `filterCounts` (one row: "total" and one column per count), for `npm run bench` too. */
+export function countsQuery(filters: MarketFilters): { sql: string; bind: unknown[] } {
   const b = new Binds();
   const c = conditions(filters, b);
   const dims = [...c.dims.keys()];
@@ -127,7 +141,10 @@ async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
     ...CATEGORIES.map((v): [string, string] => [`category.${v}`, holds(...others("category"), `category = ${lit(v)}`)]),
     ...COSMETIC_GRADES.map((v): [string, string] => [`condition.${v}`, holds(...others("condition"), `cosmetic_grade = ${lit(v)}`)]),
     ...SERVICE_STATES.map((v): [string, string] => [`service.${v}`, holds(...others("service"), `service_state = ${lit(v)}`)]),
-    ...SELLER_KINDS.map((v): [string, string] => [`seller.${v}`, holds(...others("seller"), v === "workshop" ? "by_workshop" : "NOT by_workshop")]),
+    ...SELLER_KINDS.map((v): [string, string] => [
+      `seller.${v}`,
+      holds(...others("seller"), v === "workshop" ? "by_workshop" : "NOT by_workshop"),
+    ]),
     ["verified", holds(...others("verified"), "bench_verified")],
     ...MEASURED_FILTERS.map((m, i): [string, string] => [
       `measured.${m.key}`,
@@ -137,9 +154,15 @@ async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
   const sql =
     `SELECT ${counts.map(([name, cond]) => `count(*) FILTER (WHERE ${cond}) AS "${name}"`).join(", ")}` +
     ` FROM (SELECT ${inner.join(", ")} FROM listings l WHERE ${c.common.join(" AND ")}) x`;
-  const [row] = await sequelize.query<Record<string, string>>(sql, { bind: b.values, type: QueryTypes.SELECT });
+  return { sql, bind: b.values };
+}
+
+async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
+  const { sql, bind } = countsQuery(filters);
+  const [row] = await sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT });
   const n = (name: string) => Number(row?.[name] ?? 0);
-  const pick = <T extends string>(prefix: string, list: readonly T[]) => Object.fromEntries(list.map((v) => [v, n(`${prefix}.${v}`)])) as Record<T, number>;
+  const pick = <T extends string>(prefix: string, list: readonly T[]) =>
+    Object.fromEntries(list.map((v) => [v, n(`${prefix}.${v}`)])) as Record<T, number>;
   return {
     total: n("total"),
     counts: {
@@ -148,7 +171,10 @@ async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
       service: pick("service", SERVICE_STATES),
       seller: pick("seller", SELLER_KINDS),
       verified: n("verified"),
-      measured: pick("measured", MEASURED_FILTERS.map((m) => m.key)),
+      measured: pick(
+        "measured",
+        MEASURED_FILTERS.map((m) => m.key),
+      ),
     },
   };
 }
@@ -183,7 +209,7 @@ function decodeCursor(cursor: string, sort: string, casts: string[]): string[] {
     parsed = null;
   }
   const keys = Array.isArray(parsed) && parsed[0] === sort ? parsed.slice(1) : [];
-  const ok = keys.length === casts.length && keys.every((k, i) => typeof k === "string" && KEY_SHAPES[casts[i]]?.test(k));
+  const ok = keys.length === casts.length && keys.every((k, i) => typeof k === "string" && KEY_SHAPES[casts[i]]?.(k) === true);
   if (!ok) {
     throw refusal("invalid", "This cursor does not belong to this search; start again from the first page.", {
       issues: [{ path: "cursor", message: "Use the nextCursor of a page of this same search and sort." }],
@@ -192,12 +218,18 @@ function decodeCursor(cursor: string, sort: string, casts: string[]): string[] {
   return keys as string[];
 }
 
-// What each kind of sort key looks like as PostgreSQL writes it: nothing else is ever bound from a cursor.
-const NUMBER = /^(-?\d+(\.\d+)?(e[+-]?\d+)?|-?Infinity)$/;
-const KEY_SHAPES: Record<string, RegExp> = {
-  "::timestamptz": /^\d{4}-\d\d-\d\d \d\d:\d\d:\d\d(\.\d{1,6})?[+-]\d\d(:\d\d)?$/,
-  "::bigint": /^-?\d{1,18}$/,
-  "::float8": NUMBER,
-  "::real": NUMBER,
-  "::uuid": UUID_PATTERN,
+// What each kind of sort key looks like as PostgreSQL writes it, and within what it can read back:
+// nothing else is ever bound from a cursor, so a made-up one is a 400 and never a database error.
+const number = (max: number) => (k: string) =>
+  /^-?Infinity$/.test(k) || (/^-?\d+(\.\d+)?(e[+-]?\d{1,3})?$/.test(k) && Math.abs(Number(k)) < max);
+const KEY_SHAPES: Record<string, (k: string) => boolean> = {
+  "::timestamptz": (k) => {
+    const m = /^(\d{4}-\d\d-\d\d) (\d\d:\d\d:\d\d)(\.\d{1,6})?\+00$/.exec(k);
+    const at = m ? new Date(`${m[1]}T${m[2]}Z`) : null;
+    return !!at && !Number.isNaN(at.getTime()) && at.toISOString().startsWith(`${m![1]}T${m![2]}`);
+  },
+  "::bigint": (k) => /^-?\d{1,18}$/.test(k),
+  "::float8": number(1e308),
+  "::real": number(3e38),
+  "::uuid": (k) => UUID_PATTERN.test(k),
 };

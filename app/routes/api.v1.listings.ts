@@ -17,7 +17,8 @@ const route = apiRoute<Route.LoaderArgs>({
     if (limitText.length > 1 || !/^\d{1,3}$/.test(limitText[0] ?? "1") || limit < 1 || limit > MAX_LIMIT) {
       issues.push({ param: "limit", message: `Give limit once, a whole number from 1 to ${MAX_LIMIT}.` });
     }
-    if (params.has("page")) issues.push({ param: "page", message: "The API pages with cursor (each page's nextCursor), not page numbers." });
+    if (params.has("page"))
+      issues.push({ param: "page", message: "The API pages with cursor (each page's nextCursor), not page numbers." });
     if (issues.length) {
       throw refusal("invalid", `Check ${issues.map((i) => i.param).join(", ")}.`, {
         issues: issues.map((i) => ({ path: i.param, message: i.message })),

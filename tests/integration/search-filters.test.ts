@@ -32,14 +32,15 @@ const filters = (qs: string): MarketFilters => {
 async function searchAll(f: MarketFilters): Promise<{ ids: string[]; total: number }> {
   const out: string[] = [];
   let cursor: string | null = null;
-  let total = 0;
+  const totals = new Set<number>();
   do {
     const page = await searchListings(f, { cursor, limit: 50 });
     out.push(...page.items.map((i) => i.id));
-    total = page.total;
+    totals.add(page.total);
     cursor = page.nextCursor;
   } while (cursor);
-  return { ids: out, total };
+  expect(totals.size).toBe(1);
+  return { ids: out, total: [...totals][0] };
 }
 
 async function expectSame(qs: string, handWhere: string, bind: unknown[] = []) {

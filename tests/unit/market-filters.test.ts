@@ -66,6 +66,11 @@ describe("strict and lenient reading", () => {
     // relevance is fine here: q was given (the first of the two).
   });
 
+  it("refuses words the database could not hold (NUL, a broken character) rather than failing on them", () => {
+    expect(strict("q=velt%00").issues.map((i) => i.param)).toEqual(["q"]);
+    expect(parseMarketFilters({ q: "velt \ud800" }, { strict: true }).issues.map((i) => i.param)).toEqual(["q"]);
+  });
+
   it("refuses relevance without words to search for", () => {
     expect(strict("sort=relevance").issues.map((i) => i.param)).toEqual(["sort"]);
     expect(strict("q=velt&sort=relevance").issues).toEqual([]);

@@ -165,13 +165,19 @@ describe("the market's filter panel", () => {
   });
 
   it("loads more with the cursor of the last page, after the cards already shown", async () => {
-    api((p) => ({ body: page([unit("Orrin A-120")], { total: 3, counts: null, nextCursor: p.get("cursor") === "c1" ? null : "c2" }) }));
+    api((p) => ({
+      body: page([unit("Orrin A-120")], {
+        total: 3,
+        counts: counts({ condition: { clean: 9 } }),
+        nextCursor: p.get("cursor") === "c1" ? null : "c2",
+      }),
+    }));
     mountMarket(`/market?${AMPS}`, { params: AMPS, page: page([unit("Orrin A-60"), unit("Orrin A-100")], { total: 3, nextCursor: "c1" }) });
     fireEvent.click(await screen.findByRole("button", { name: "Load more of 3 units" }));
     await waitFor(() => expect(titles()).toEqual(["Orrin A-60", "Orrin A-100", "Orrin A-120"]));
     expect(asked).toEqual([`${AMPS}&cursor=c1`]);
     expect(screen.queryByRole("button", { name: /Load more/ })).toBeNull();
-    // The counts of the first page stay: later pages carry none.
+    // The counts shown are the first page's (for the whole search), whatever a later page repeats.
     expect(screen.getByRole("checkbox", { name: "Clean 1 unit" })).toBeTruthy();
   });
 
