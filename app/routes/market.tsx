@@ -11,10 +11,9 @@ export function loader({ request }: Route.LoaderArgs) {
 }
 
 // In the browser the panel fetches its own results from /api/v1/listings: a change of filters only
-// moves the URL, it does not run this loader again.
-export function shouldRevalidate({ currentUrl, nextUrl, formMethod, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
-  if (!formMethod && currentUrl.pathname === nextUrl.pathname) return false;
-  return defaultShouldRevalidate;
+// moves the URL, and an action on the page (watch, compare) changes nothing this loader reads.
+export function shouldRevalidate({ currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
+  return currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;
 }
 
 export const meta: Route.MetaFunction = ({ location }) => {
