@@ -1,12 +1,23 @@
 import "./zod-jitless";
 import { useState } from "react";
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
-import { data, isRouteErrorResponse, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
+import {
+  data,
+  isRouteErrorResponse,
+  Links,
+  Meta,
+  Outlet,
+  Scripts,
+  ScrollRestoration,
+  useRouteLoaderData,
+  type ShouldRevalidateFunctionArgs,
+} from "react-router";
 import type { Route } from "./+types/root";
 import { getUser } from "~/auth/guards.server";
 import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
+import { NavigationProgress, useNavigating } from "~/components/NavigationProgress";
 import { readCompareList } from "~/compare/compare-list.server";
 import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
@@ -36,6 +47,7 @@ export const meta: Route.MetaFunction = () => [
 export function Layout({ children }: { children: React.ReactNode }) {
   // Undefined when the root loader itself failed; the header then shows the signed-out state.
   const root = useRouteLoaderData<typeof loader>("root");
+  const navigating = useNavigating();
   return (
     <html lang="en-GB">
       <head>
@@ -47,6 +59,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
         <Links />
       </head>
       <body className="flex min-h-dvh flex-col">
+        <NavigationProgress />
         <a
           href="#main"
           className="sr-only z-50 rounded-md bg-walnut px-3 py-2 text-card focus:not-sr-only focus:fixed focus:left-3 focus:top-3"
@@ -59,7 +72,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
             <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
           </div>
         ) : null}
-        <div id="main" className="flex flex-1 flex-col">
+        <div id="main" aria-busy={navigating || undefined} className="flex flex-1 flex-col">
           {children}
         </div>
         <CompareTray />
@@ -69,6 +82,13 @@ export function Layout({ children }: { children: React.ReactNode }) {
       </body>
     </html>
   );
+}
+
+// The market's filters move only its URL (the panel fetches its own results): who is signed in and the
+// notice do not change with them, so the root's loader is not asked again.
+export function shouldRevalidate({ currentUrl, nextUrl, formMethod, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
+  if (!formMethod && currentUrl.pathname === "/market" && nextUrl.pathname === "/market") return false;
+  return defaultShouldRevalidate;
 }
 
 export default function App() {
