@@ -7,6 +7,8 @@ import { getUser } from "~/auth/guards.server";
 import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
+import { PricingProvider } from "~/components/Price";
+import { pricingFor } from "~/currencies/display.server";
 import { SITE_DESCRIPTION } from "~/meta";
 import "@fontsource/source-serif-4/400.css";
 import "@fontsource/source-serif-4/600.css";
@@ -18,9 +20,15 @@ import "@fontsource/jetbrains-mono/500.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, { notice, headers }] = await Promise.all([getUser(request), takeNotice(request)]);
+  const [user, { notice, headers }, pricing] = await Promise.all([
+    getUser(request),
+    takeNotice(request),
+    pricingFor(request).catch(() => null),
+  ]);
   const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
-  return data({ user: header, notice }, { headers });
+  // Every page may show prices: the buyer's display currency and the rates ride along (a dozen rows).
+  // Without them prices still show, in the seller's currency only.
+  return data({ user: header, notice, pricing }, { headers });
 }
 
 export const meta: Route.MetaFunction = () => [
@@ -57,10 +65,12 @@ export function Layout({ children }: { children: React.ReactNode }) {
             <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
           </div>
         ) : null}
-        <div id="main" className="flex flex-1 flex-col">
-          {children}
-        </div>
-        <SiteFooter />
+        <PricingProvider pricing={root?.pricing ?? null}>
+          <div id="main" className="flex flex-1 flex-col">
+            {children}
+          </div>
+          <SiteFooter display={root?.pricing?.display ?? null} />
+        </PricingProvider>
         <ScrollRestoration />
         <Scripts />
       </body>

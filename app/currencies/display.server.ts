@@ -1,0 +1,41 @@
+import { createCookie } from "react-router";
+import { env } from "~/env.server";
+import { countryFromAcceptLanguage } from "~/listings/zones";
+import { currencyForCountry, readCurrency, type Rates } from "@shared/currency";
+import type { Currency } from "@shared/listing-input";
+import { currentRates } from "./rates.server";
+
+// The buyer's display currency: what they chose (a cookie, a year long; no account needed), else a
+// guess from the browser's language tags. Prices stay in the seller's currency; this only decides
+// which approximate figure appears beside them and what the market's price bounds are typed in.
+
+/** What pages need to show approximate prices. */
+export interface Pricing {
+  display: Currency;
+  rates: Rates;
+}
+
+const YEAR_S = 365 * 24 * 3600;
+let cookie: ReturnType<typeof createCookie> | undefined;
+function currencyCookie() {
+  // Not signed: a preference with nothing to forge. Read back through readCurrency either way.
+  cookie ??= createCookie("loadline_currency", { path: "/", sameSite: "lax", httpOnly: true, secure: env().secureCookies, maxAge: YEAR_S });
+  return cookie;
+}
+
+/** The buyer's display currency for this request. The panel's price bounds default to it. */
+export async function displayCurrency(request: Request): Promise<Currency> {
+  const chosen = readCurrency(await currencyCookie().parse(request.headers.get("Cookie")));
+  return chosen ?? currencyForCountry(countryFromAcceptLanguage(request.headers.get("Accept-Language")));
+}
+
+/** The display currency and the current rates (kept briefly; see currentRates). */
+export async function pricingFor(request: Request): Promise<Pricing> {
+  const [display, rates] = await Promise.all([displayCurrency(request), currentRates()]);
+  return { display, rates };
+}
+
+/** The Set-Cookie header that keeps a chosen display currency. */
+export function displayCurrencyCookie(currency: Currency): Promise<string> {
+  return currencyCookie().serialize(currency);
+}
