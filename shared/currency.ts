@@ -36,7 +36,7 @@ function divRound(a: bigint, b: bigint): bigint {
 /**
  * The ONE conversion: `amountMinor` of `from` in minor units of `to`, at the rates given (both
  * through the euro, as the table is kept). `whole` rounds to whole units of `to` in the same step
- * (approximate figures). Null when either currency has no rate or the amount is not a safe integer.
+ * (approximate figures). Null when either currency has no rate, or the amount or the result is not a safe integer.
  */
 export function convertMinor(amountMinor: number, from: string, to: string, rates: Rates, opts: { whole?: boolean } = {}): number | null {
   if (!Number.isSafeInteger(amountMinor)) return null;
@@ -49,7 +49,8 @@ export function convertMinor(amountMinor: number, from: string, to: string, rate
   const wholeDigits = opts.whole ? BigInt(rt.minorDigits) : 0n;
   const numerator = BigInt(amountMinor) * toRate * 10n ** BigInt(rt.minorDigits);
   const denominator = fromRate * 10n ** BigInt(rf.minorDigits) * 10n ** wholeDigits;
-  return Number(divRound(numerator, denominator) * 10n ** wholeDigits);
+  const result = divRound(numerator, denominator) * 10n ** wholeDigits;
+  return result <= BigInt(Number.MAX_SAFE_INTEGER) && result >= -BigInt(Number.MAX_SAFE_INTEGER) ? Number(result) : null;
 }
 
 /** A price as a buyer sees it: the seller's figure, and an approximate one in the buyer's currency when they differ. */
