@@ -25,7 +25,7 @@ export function CurrencyPicker({ display }: { display: string }) {
         ))}
       </select>
       <button type="submit" className={buttonClass("secondary", "sm")}>
-        Show
+        Apply
       </button>
     </Form>
   );

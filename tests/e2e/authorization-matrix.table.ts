@@ -76,7 +76,10 @@ export const MATRIX: Record<string, Entry> = {
   },
   "/currency": {
     cases: [
-      { get: everyone({ to: "/" }), post: { body: form({ currency: "GBP", returnTo: "/market" }), expect: everyone({ to: "/market" }) } },
+      {
+        get: everyone({ to: "/" }),
+        writes: { POST: { body: form({ currency: "GBP", returnTo: "/market" }), expect: everyone({ to: "/market" }) } },
+      },
     ],
   },
 
