@@ -42,13 +42,7 @@ export function Price({
 }) {
   const pricing = usePricing();
   const shown = showPrice(minor, currency, pricing?.display ?? null, pricing?.rates ?? null);
-  const approx = shown.approx ? (
-    <span className={cx("text-ink-soft", approxClassName)} data-testid="approx-price" title="Approximate, at Loadline's exchange rate">
-      <span aria-hidden="true">≈ </span>
-      <span className="sr-only">about </span>
-      {shown.approx}
-    </span>
-  ) : null;
+  const approx = shown.approx ? <Approx text={shown.approx} className={approxClassName} /> : null;
   if (layout === "stacked") {
     return (
       <>
@@ -73,4 +67,22 @@ export function Price({
       ) : null}
     </p>
   );
+}
+
+function Approx({ text, className }: { text: string; className?: string }) {
+  return (
+    <span className={cx("text-ink-soft", className)} data-testid="approx-price" title="Approximate, at Loadline's exchange rate">
+      <span aria-hidden="true">≈ </span>
+      <span className="sr-only">about </span>
+      {text}
+    </span>
+  );
+}
+
+/** Only the approximate figure (or nothing), for a price already shown beside it (shipping costs). */
+export function ApproxPrice({ minor, currency, className }: { minor: number; currency: string; className?: string }) {
+  const pricing = usePricing();
+  const shown = showPrice(minor, currency, pricing?.display ?? null, pricing?.rates ?? null);
+  // "Free" needs no conversion.
+  return minor > 0 && shown.approx ? <Approx text={shown.approx} className={className} /> : null;
 }

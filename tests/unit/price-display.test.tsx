@@ -3,7 +3,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import { cleanup, render, screen } from "@testing-library/react";
 import { MemoryRouter } from "react-router";
 import { ListingCard } from "~/components/ListingCard";
-import { Price, PricingProvider, type PricingData } from "~/components/Price";
+import { ApproxPrice, Price, PricingProvider, type PricingData } from "~/components/Price";
 import type { ListingSummary } from "~/catalogue/types";
 
 // A price in the seller's currency, and beside it, for a buyer who shows prices in another, an
@@ -73,5 +73,21 @@ describe("prices for a buyer in another currency", () => {
       </PricingProvider>,
     );
     expect(screen.getByTestId("price").textContent).toBe("£1,200 · , ≈ about €1,395");
+  });
+
+  it("adds only the approximation beside a shipping cost, and none to a free one", () => {
+    render(
+      <PricingProvider pricing={PRICING}>
+        <p data-testid="parcel">
+          <ApproxPrice minor={3_900} currency="GBP" />
+        </p>
+        <p data-testid="free">
+          <ApproxPrice minor={0} currency="GBP" />
+        </p>
+      </PricingProvider>,
+    );
+    // £39 / 0.86 = €45.35 → €45.
+    expect(screen.getByTestId("parcel").textContent).toBe("≈ about €45");
+    expect(screen.getByTestId("free").textContent).toBe("");
   });
 });
