@@ -58,7 +58,7 @@ export function Price({
       {shown.text}
       {approx ? (
         <>
-          <span aria-hidden="true" className="text-ink-faint">
+          <span aria-hidden="true" className={cx("text-ink-faint", approxClassName)}>
             {" · "}
           </span>
           <span className="sr-only">, </span>

@@ -61,13 +61,13 @@ export function RatesForm({ rates, result }: { rates: RateRow[]; result: RatesAc
           <caption className="sr-only">Units of each currency per euro</caption>
           <thead className="border-b border-rule text-left text-xs uppercase tracking-[0.08em] text-ink-faint">
             <tr>
-              <th scope="col" className="px-4 py-2.5 font-semibold">
+              <th scope="col" className="px-2 py-2.5 font-semibold sm:px-4">
                 Currency
               </th>
-              <th scope="col" className="px-4 py-2.5 font-semibold">
+              <th scope="col" className="px-2 py-2.5 font-semibold sm:px-4">
                 1 EUR =
               </th>
-              <th scope="col" className="px-4 py-2.5 font-semibold">
+              <th scope="col" className="px-2 py-2.5 font-semibold sm:px-4">
                 Last changed
               </th>
             </tr>
@@ -78,14 +78,14 @@ export function RatesForm({ rates, result }: { rates: RateRow[]; result: RatesAc
               const id = `rate-${r.currency}`;
               return (
                 <tr key={r.currency} className="align-top">
-                  <th scope="row" className="px-4 py-3 text-left font-medium">
+                  <th scope="row" className="px-2 py-3 text-left font-medium sm:px-4">
                     {r.currency} <span className="block text-xs font-normal text-ink-faint">{name(r.currency)}</span>
                   </th>
-                  <td className="px-4 py-3">
+                  <td className="px-2 py-3 sm:px-4">
                     {r.currency === BASE_CURRENCY ? (
                       <span className="figures">1 EUR (the base)</span>
                     ) : (
-                      <div className="flex max-w-56 items-center gap-2">
+                      <div className="flex min-w-24 max-w-56 items-center gap-2">
                         <input
                           id={id}
                           name={`rate.${r.currency}`}
@@ -106,8 +106,9 @@ export function RatesForm({ rates, result }: { rates: RateRow[]; result: RatesAc
                       </p>
                     ) : null}
                   </td>
-                  <td className="px-4 py-3 text-ink-soft">
-                    <span className="figures">{when(r.updatedAt)}</span>
+                  <td className="px-2 py-3 text-xs text-ink-soft sm:px-4 sm:text-sm">
+                    <span className="figures block whitespace-nowrap sm:inline">{r.updatedAt.slice(0, 10)}</span>{" "}
+                    <span className="figures whitespace-nowrap">{r.updatedAt.slice(11, 16)} UTC</span>
                     {r.updatedBy ? <span className="block text-xs text-ink-faint">by {r.updatedBy}</span> : null}
                   </td>
                 </tr>
