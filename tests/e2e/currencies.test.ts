@@ -6,6 +6,8 @@ import { DEMO, signIn } from "./support/accounts";
 // Prices stay in the seller's currency; a buyer who shows prices in another sees an approximate
 // figure beside them. The admin's rate moves that figure at once.
 
+/** A seller's price in pounds (not an approximation in pounds, which reads "≈ about £…"). */
+const POUNDS = /^£[\d,.]+$/;
 /** "£1,250" or "£1,250.50" → 125000 / 125050. */
 const minorOf = (text: string) => Math.round(Number(text.replace(/[^\d.]/g, "")) * 100);
 /** A whole-euro approximation worked by hand: pence / rate, to the nearest euro. */
@@ -50,7 +52,10 @@ describe("prices in several currencies", () => {
     const page = await context.newPage();
     // The browser says en-GB: prices in pounds show as they are.
     await page.goto("/market");
-    const card = page.locator("article").filter({ hasText: "£" }).first();
+    const card = page
+      .locator("article")
+      .filter({ has: page.getByText(POUNDS) })
+      .first();
     await card.waitFor();
     expect(await card.getByTestId("approx-price").count()).toBe(0);
 
@@ -81,10 +86,13 @@ describe("prices in several currencies", () => {
       await screenshot(page, "currencies-admin-rates-1280");
       await page.goto("/market");
       await chooseDisplayCurrency(page, "EUR");
-      const first = page.locator("article").filter({ hasText: "£" }).first();
+      const first = page
+        .locator("article")
+        .filter({ has: page.getByText(POUNDS) })
+        .first();
       const title = (await first.getByRole("heading", { level: 3 }).textContent())!.trim();
       const card = cardTitled(page, title);
-      const pence = minorOf((await card.getByText(/^£[\d,.]+$/).textContent())!);
+      const pence = minorOf((await card.getByText(POUNDS).textContent())!);
       expect(await card.getByTestId("approx-price").textContent()).toBe(`≈ about ${approxEuro(pence, 0.86)}`);
 
       await setGbpRate(page, "0.8");
