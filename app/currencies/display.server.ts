@@ -1,12 +1,16 @@
 import { createCookie } from "react-router";
+import { QueryTypes } from "sequelize";
+import { sequelize } from "~/db.server";
 import { env } from "~/env.server";
+import { getUser } from "~/auth/guards.server";
 import { countryFromAcceptLanguage } from "~/listings/zones";
 import { currencyForCountry, readCurrency, type Rates } from "@shared/currency";
 import type { Currency } from "@shared/listing-input";
 import { currentRates } from "./rates.server";
 
-// The buyer's display currency: what they chose (a cookie, a year long; no account needed), else a
-// guess from the browser's language tags. Prices stay in the seller's currency; this only decides
+// The buyer's display currency: what they chose in this browser (a cookie, a year long; no account
+// needed), else what their account keeps (chosen while signed in elsewhere), else a guess from the
+// browser's language tags. Prices stay in the seller's currency; this only decides
 // which approximate figure appears beside them and what the market's price bounds are typed in.
 
 /** What pages need to show approximate prices. */
@@ -25,8 +29,25 @@ function currencyCookie() {
 
 /** The buyer's display currency for this request. The panel's price bounds default to it. */
 export async function displayCurrency(request: Request): Promise<Currency> {
-  const chosen = readCurrency(await currencyCookie().parse(request.headers.get("Cookie")));
+  const chosen = readCurrency(await currencyCookie().parse(request.headers.get("Cookie"))) ?? (await accountCurrency(request));
   return chosen ?? currencyForCountry(countryFromAcceptLanguage(request.headers.get("Accept-Language")));
+}
+
+async function accountCurrency(request: Request): Promise<Currency | null> {
+  const user = await getUser(request);
+  if (!user) return null;
+  const [row] = await sequelize.query<{ display_currency: string | null }>(`SELECT display_currency FROM users WHERE id = :id`, {
+    type: QueryTypes.SELECT,
+    replacements: { id: user.id },
+  });
+  return readCurrency(row?.display_currency);
+}
+
+/** Keeps the choice with the account too, when the buyer is signed in. */
+export async function keepDisplayCurrency(request: Request, currency: Currency): Promise<void> {
+  const user = await getUser(request);
+  if (user)
+    await sequelize.query(`UPDATE users SET display_currency = :currency WHERE id = :id`, { replacements: { currency, id: user.id } });
 }
 
 /** The display currency and the current rates (kept briefly; see currentRates). */

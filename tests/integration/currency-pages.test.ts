@@ -152,6 +152,20 @@ describe("the display currency", () => {
     expect(pricing.rates.JPY).toMatchObject({ minorDigits: 0 });
   });
 
+  it("follows a signed-in buyer to another browser; this browser's own choice comes first", async () => {
+    const chosen = await run(() => currency.action(routeArgs(post("/currency", [["currency", "CHF"]], cookies.buyer), {})));
+    expect(chosen).toMatchObject({ status: 302, location: "/" });
+    // Another browser: the session only, no currency cookie.
+    expect(await displayCurrency(request({ Cookie: cookies.buyer!, "Accept-Language": "en-GB" }))).toBe("CHF");
+    const here = chosen.headers!.get("Set-Cookie")!.split(";")[0];
+    const other = await run(() => currency.action(routeArgs(post("/currency", [["currency", "SEK"]]), {})));
+    const sek = other.headers!.get("Set-Cookie")!.split(";")[0];
+    expect(await displayCurrency(request({ Cookie: `${cookies.buyer!}; ${sek}` }))).toBe("SEK");
+    expect(await displayCurrency(request({ Cookie: here }))).toBe("CHF");
+    // Someone else's account is untouched.
+    expect(await displayCurrency(request({ Cookie: cookies.moderator!, "Accept-Language": "en-GB" }))).toBe("GBP");
+  });
+
   it("refuses an unknown currency and never sends the buyer off the site", async () => {
     expect((await run(() => currency.action(routeArgs(post("/currency", [["currency", "XAU"]]), {})))).status).toBe(400);
     const away = await run(() =>

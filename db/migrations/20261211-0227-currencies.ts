@@ -1,8 +1,9 @@
 import type { Migration } from "../migrator";
 
-// Who changed which exchange rate, from what to what. Append-only: a trigger refuses edits and
-// deletions, except the database's own ON DELETE SET NULL when an admin's account is removed (the
-// name seen at the time stays with the line).
+// Currencies: who changed which exchange rate, from what to what, and the display currency a signed-in
+// buyer chose (so it follows them to another browser). The change log is append-only: a trigger
+// refuses edits and deletions, except the database's own ON DELETE SET NULL when an admin's account is
+// removed (the name seen at the time stays with the line).
 
 const sql = String.raw;
 
@@ -33,11 +34,13 @@ export const up: Migration = async ({ context: qi }) => {
     await q(sql`
       CREATE TRIGGER currency_rate_changes_append_only BEFORE UPDATE OR DELETE ON currency_rate_changes
         FOR EACH ROW EXECUTE FUNCTION currency_rate_changes_append_only()`);
+    await q(`ALTER TABLE users ADD COLUMN display_currency char(3) CHECK (display_currency ~ '^[A-Z]{3}$')`);
   });
 };
 
 export const down: Migration = async ({ context: qi }) => {
   await qi.sequelize.transaction(async (transaction) => {
+    await qi.sequelize.query(`ALTER TABLE users DROP COLUMN IF EXISTS display_currency`, { transaction });
     await qi.sequelize.query(`DROP TABLE IF EXISTS currency_rate_changes`, { transaction });
     await qi.sequelize.query(`DROP FUNCTION IF EXISTS currency_rate_changes_append_only()`, { transaction });
   });
