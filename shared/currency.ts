@@ -1,4 +1,4 @@
-import { formatPrice } from "./catalogue";
+import { formatPrice } from "./money";
 import { CURRENCIES, isCurrency, type Currency } from "./listing-input";
 
 // Prices stay in the seller's currency; a buyer may also see an approximate figure in their own

@@ -5,6 +5,7 @@ import { assertSameOrigin } from "~/auth/csrf.server";
 import { safeRedirect } from "~/auth/redirect";
 import { displayCurrencyCookie, keepDisplayCurrency } from "~/currencies/display.server";
 import { readPageForm } from "~/http/body.server";
+import { methodNotAllowed } from "~/http/errors.server";
 import { CURRENCY_CODES } from "@shared/listing-input";
 
 // The footer's display-currency form posts here: keep the choice in a cookie (and with the account, when
@@ -20,6 +21,7 @@ export function loader() {
 }
 
 export async function action({ request }: Route.ActionArgs) {
+  if (request.method !== "POST") return methodNotAllowed(["POST"]);
   assertSameOrigin(request);
   const parsed = CurrencyForm.safeParse(Object.fromEntries(await readPageForm(request)));
   if (!parsed.success) throw data({ message: parsed.error.issues[0].message }, { status: 400, statusText: "Bad Request" });

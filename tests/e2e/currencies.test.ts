@@ -99,7 +99,9 @@ describe("prices in several currencies", () => {
       expect(await page.getByRole("status").filter({ hasText: "Saved" }).textContent()).toMatch(
         /Saved 1 EUR = 0\.8 GBP; \d+ listings? re-priced\./,
       );
-      expect(await page.getByText("GBP: 0.86 → 0.8").first().isVisible()).toBe(true);
+      expect(await page.getByRole("region", { name: "Changes" }).getByText("GBP: 0.86 → 0.8", { exact: true }).first().isVisible()).toBe(
+        true,
+      );
 
       await page.goto("/market");
       expect(await card.getByTestId("approx-price").textContent()).toBe(`≈ about ${approxEuro(pence, 0.8)}`);
