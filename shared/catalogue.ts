@@ -1,9 +1,6 @@
 import { z } from "zod";
 import { freeText, nameText } from "./text";
 
-// Prices are formatted in shared/money.ts, which stays free of zod (see there).
-export { formatPrice } from "./money";
-
 // The catalogue's vocabulary, shared by the database checks, the forms and the pages. Values are the
 // stored codes; labels and seller descriptions are Loadline's own words (README and docs).
 
@@ -181,6 +178,9 @@ export function formatEra(from: number | null | undefined, to: number | null | u
   const sameCentury = Math.floor(a / 100) === Math.floor(b / 100);
   return `${a}–${sameCentury ? String(b).slice(2) : b}`;
 }
+
+// Prices are formatted in shared/money.ts, which stays free of zod (see there).
+export { formatPrice } from "./money";
 
 /** Grams to "14.2 kg" or "850 g". */
 export function formatWeight(grams: number): string {

@@ -2,7 +2,7 @@ import { formatPrice } from "./money";
 import { CURRENCIES, isCurrency, type Currency } from "./listing-input";
 
 // Prices stay in the seller's currency; a buyer may also see an approximate figure in their own
-// (docs/decisions/0011). The rates are the admin's table (`currency_rates`: units of a currency per
+// (docs/decisions/0013). The rates are the admin's table (`currency_rates`: units of a currency per
 // euro), passed in as data so the server and the browser convert alike. Integer arithmetic only: a
 // rate is a decimal string, read as an integer count of millionths.
 
