@@ -50,6 +50,19 @@ export async function keepDisplayCurrency(request: Request, currency: Currency):
     await sequelize.query(`UPDATE users SET display_currency = :currency WHERE id = :id`, { replacements: { currency, id: user.id } });
 }
 
+/**
+ * The currency the market's price bounds are typed in: the URL's `currency`; else, when the URL has no
+ * price bound, the buyer's display currency; bounds without a currency stay euros (the filters'
+ * default), so a shared link means the same to everyone.
+ */
+export async function marketCurrency(request: Request): Promise<Currency> {
+  const params = new URL(request.url).searchParams;
+  const named = readCurrency(params.get("currency"));
+  if (named) return named;
+  if (params.get("priceMin")?.trim() || params.get("priceMax")?.trim()) return "EUR";
+  return displayCurrency(request);
+}
+
 /** The display currency and the current rates (kept briefly; see currentRates). */
 export async function pricingFor(request: Request): Promise<Pricing> {
   const [display, rates] = await Promise.all([displayCurrency(request), currentRates()]);

@@ -13,7 +13,7 @@ const { sequelize } = await import("~/db.server");
 const { createAccount } = await import("~/auth/accounts.server");
 const rates = await import("~/routes/admin/rates");
 const currency = await import("~/routes/currency");
-const { displayCurrency, pricingFor } = await import("~/currencies/display.server");
+const { displayCurrency, marketCurrency, pricingFor } = await import("~/currencies/display.server");
 
 const BASE = "http://127.0.0.1";
 const cookies: Partial<Record<"admin" | "moderator" | "buyer", string>> = {};
@@ -164,6 +164,15 @@ describe("the display currency", () => {
     expect(await displayCurrency(request({ Cookie: here }))).toBe("CHF");
     // Someone else's account is untouched.
     expect(await displayCurrency(request({ Cookie: cookies.moderator!, "Accept-Language": "en-GB" }))).toBe("GBP");
+  });
+
+  it("is what the market's price bounds are typed in, unless the link names one or carries bounds in euros", async () => {
+    const market = (qs: string) => marketCurrency(new Request(`${BASE}/market${qs}`, { headers: { "Accept-Language": "en-GB" } }));
+    expect(await market("")).toBe("GBP");
+    expect(await market("?category=turntables")).toBe("GBP");
+    expect(await market("?currency=jpy&priceMax=200000")).toBe("JPY");
+    expect(await market("?priceMax=1200")).toBe("EUR");
+    expect(await market("?currency=XAU")).toBe("GBP");
   });
 
   it("refuses an unknown currency and never sends the buyer off the site", async () => {
