@@ -9,6 +9,8 @@ import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome
 import { ErrorPage } from "~/components/ErrorPage";
 import { PricingProvider } from "~/components/Price";
 import { pricingFor } from "~/currencies/display.server";
+import { readCompareList } from "~/compare/compare-list.server";
+import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
 import "@fontsource/source-serif-4/400.css";
 import "@fontsource/source-serif-4/600.css";
@@ -20,15 +22,16 @@ import "@fontsource/jetbrains-mono/500.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, { notice, headers }, pricing] = await Promise.all([
+  const [user, { notice, headers }, compare, pricing] = await Promise.all([
     getUser(request),
     takeNotice(request),
+    readCompareList(request),
     pricingFor(request).catch(() => null),
   ]);
   const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
   // Every page may show prices: the buyer's display currency and the rates ride along (a dozen rows).
   // Without them prices still show, in the seller's currency only.
-  return data({ user: header, notice, pricing }, { headers });
+  return data({ user: header, notice, compare, pricing }, { headers });
 }
 
 export const meta: Route.MetaFunction = () => [
@@ -59,7 +62,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
         >
           Skip to content
         </a>
-        <SiteHeader user={root?.user ?? null} />
+        <SiteHeader user={root?.user ?? null} compareCount={root?.compare.length ?? 0} />
         {root?.notice ? (
           <div role="status" className="border-b border-trace/25 bg-trace-wash">
             <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
@@ -69,6 +72,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
           <div id="main" className="flex flex-1 flex-col">
             {children}
           </div>
+          <CompareTray />
           <SiteFooter display={root?.pricing?.display ?? null} />
         </PricingProvider>
         <ScrollRestoration />
