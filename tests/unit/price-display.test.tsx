@@ -1,7 +1,7 @@
 // @vitest-environment happy-dom
 import { afterEach, describe, expect, it } from "vitest";
 import { cleanup, render, screen } from "@testing-library/react";
-import { MemoryRouter } from "react-router";
+import { createMemoryRouter, RouterProvider } from "react-router";
 import { ListingCard } from "~/components/ListingCard";
 import { ApproxPrice, Price, PricingProvider, type PricingData } from "~/components/Price";
 import type { ListingSummary } from "~/catalogue/types";
@@ -36,19 +36,30 @@ const LISTING: ListingSummary = {
 
 afterEach(cleanup);
 
-function card(pricing: PricingData | null) {
-  render(
-    <MemoryRouter>
-      <PricingProvider pricing={pricing}>
-        <ListingCard listing={LISTING} href="/listings/x" />
-      </PricingProvider>
-    </MemoryRouter>,
+/** The card inside a data router whose root has loaded (the card's compare toggle reads the root's data). */
+async function card(pricing: PricingData | null) {
+  const router = createMemoryRouter(
+    [
+      {
+        id: "root",
+        path: "/",
+        loader: () => ({ compare: [] }),
+        element: (
+          <PricingProvider pricing={pricing}>
+            <ListingCard listing={LISTING} href="/listings/x" />
+          </PricingProvider>
+        ),
+      },
+    ],
+    { hydrationData: { loaderData: { root: { compare: [] } } } },
   );
+  render(<RouterProvider router={router} />);
+  await screen.findByText("£1,200");
 }
 
 describe("prices for a buyer in another currency", () => {
-  it("shows the seller's price and the approximation on a card, read as 'about'", () => {
-    card(PRICING);
+  it("shows the seller's price and the approximation on a card, read as 'about'", async () => {
+    await card(PRICING);
     expect(screen.getByText("£1,200")).toBeTruthy();
     const approx = screen.getByTestId("approx-price");
     expect(approx.textContent).toBe("≈ about €1,395");
@@ -57,12 +68,12 @@ describe("prices for a buyer in another currency", () => {
     expect(approx.querySelector(".sr-only")!.textContent).toBe("about ");
   });
 
-  it("shows no approximation in the seller's own currency or without rates", () => {
-    card({ ...PRICING, display: "GBP" });
+  it("shows no approximation in the seller's own currency or without rates", async () => {
+    await card({ ...PRICING, display: "GBP" });
     expect(screen.getByText("£1,200")).toBeTruthy();
     expect(screen.queryByTestId("approx-price")).toBeNull();
     cleanup();
-    card(null);
+    await card(null);
     expect(screen.queryByTestId("approx-price")).toBeNull();
   });
 
