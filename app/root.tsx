@@ -18,6 +18,8 @@ import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
 import { NavigationProgress, useNavigating } from "~/components/NavigationProgress";
+import { PricingProvider } from "~/components/Price";
+import { pricingFor } from "~/currencies/display.server";
 import { readCompareList } from "~/compare/compare-list.server";
 import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
@@ -31,9 +33,16 @@ import "@fontsource/jetbrains-mono/500.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, { notice, headers }, compare] = await Promise.all([getUser(request), takeNotice(request), readCompareList(request)]);
+  const [user, { notice, headers }, compare, pricing] = await Promise.all([
+    getUser(request),
+    takeNotice(request),
+    readCompareList(request),
+    pricingFor(request).catch(() => null),
+  ]);
   const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
-  return data({ user: header, notice, compare }, { headers });
+  // Every page may show prices: the buyer's display currency and the rates ride along (a dozen rows).
+  // Without them prices still show, in the seller's currency only.
+  return data({ user: header, notice, compare, pricing }, { headers });
 }
 
 export const meta: Route.MetaFunction = () => [
@@ -72,11 +81,13 @@ export function Layout({ children }: { children: React.ReactNode }) {
             <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
           </div>
         ) : null}
-        <div id="main" aria-busy={navigating || undefined} className="flex flex-1 flex-col">
-          {children}
-        </div>
-        <CompareTray />
-        <SiteFooter />
+        <PricingProvider pricing={root?.pricing ?? null}>
+          <div id="main" aria-busy={navigating || undefined} className="flex flex-1 flex-col">
+            {children}
+          </div>
+          <CompareTray />
+          <SiteFooter display={root?.pricing?.display ?? null} />
+        </PricingProvider>
         <ScrollRestoration />
         <Scripts />
       </body>

@@ -54,4 +54,7 @@ export default [
   // Listing photos (seller only)
   route("api/v1/listings/:id/photos", "routes/api.v1.listings.$id.photos.ts"),
   route("api/v1/listings/:id/photos/:photoId", "routes/api.v1.listings.$id.photos.$photoId.ts"),
+  // Currencies: the admin's exchange rates, the buyer's display currency (a cookie)
+  route("admin/rates", "routes/admin/rates.tsx"),
+  route("currency", "routes/currency.tsx"),
 ] satisfies RouteConfig;

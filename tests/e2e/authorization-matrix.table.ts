@@ -64,6 +64,25 @@ export const MATRIX: Record<string, Entry> = {
   },
   "/desk": { cases: [{ get: desk }] },
 
+  // Currencies: the rate table is the admin's alone (moderators included in the 403s); anyone may
+  // choose the currency approximate prices are shown in.
+  "/admin/rates": {
+    cases: [
+      {
+        get: { anonymous: "sign-in", admin: "ok", others: 403 },
+        post: { body: form({ "rate.GBP": "not a rate" }), expect: { anonymous: "sign-in", admin: 400, others: 403 } },
+      },
+    ],
+  },
+  "/currency": {
+    cases: [
+      {
+        get: everyone({ to: "/" }),
+        writes: { POST: { body: form({ currency: "GBP", returnTo: "/market" }), expect: everyone({ to: "/market" }) } },
+      },
+    ],
+  },
+
   // The public listing page: live for everyone; held for its seller and the desk; a draft for its seller only.
   "/listings/:id": {
     cases: [
