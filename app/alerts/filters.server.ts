@@ -1,7 +1,8 @@
+import { listingsMatching } from "~/catalogue/search.server";
 import { readAlertQuery } from "./filters";
-import { listingsMatching } from "./match-sql.server";
 
-// Which of some listings a stored alert query matches, read with the market's own filter parser.
+// Which of some listings a stored alert query matches: the market's own search, so an alert finds
+// exactly what the market shows for the same filters.
 
 export function listingsMatchingQuery(query: string, listingIds: string[]): Promise<string[]> {
   return listingsMatching(readAlertQuery(query), listingIds);
