@@ -2,15 +2,8 @@
 // server) and readers that turn the HTML form's text into that shape with a message per field.
 // Isomorphic: the editor checks as the seller types; the server is the authority.
 import { z } from "zod";
-import {
-  CATEGORIES,
-  COSMETIC_GRADES,
-  SERVICE_STATES,
-  SHIPPING_ZONES,
-  ShippingOptionsSchema,
-  type ShippingOption,
-  type ShippingZone,
-} from "./catalogue";
+import { CATEGORIES, COSMETIC_GRADES, SERVICE_STATES, SHIPPING_ZONES, type ShippingZone } from "./catalogue";
+import { ShippingOptionsSchema, type ShippingOption } from "./catalogue-schemas";
 import {
   CURRENCY_CODES,
   eraInputValue,
