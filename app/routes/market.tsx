@@ -66,12 +66,13 @@ export default function Market({ loaderData }: Route.ComponentProps) {
             Units for sale
           </h2>
           <ul className="grid grid-cols-1 gap-5 sm:grid-cols-2 lg:grid-cols-3">
-            {items.map((l) => (
+            {items.map((l, i) => (
               <li key={l.id} className="flex min-w-0">
                 <ListingCard
                   listing={l}
                   href={`/listings/${l.id}`}
                   className="w-full"
+                  priority={i === 0}
                   action={
                     l.id in watching ? (
                       <WatchButton listingId={l.id} watching={watching[l.id]} action={`/listings/${l.id}`} layout="card" />
