@@ -130,7 +130,7 @@ export function Plots({ plots }: { plots: PlotSet }) {
   const count = plots.spectra.length + plots.responses.length + plots.squares.length;
   if (count === 0) return null;
   return (
-    <section aria-labelledby="plots-heading" className="space-y-4">
+    <section aria-labelledby="plots-heading" className="below-fold space-y-4">
       <div className="space-y-1">
         <h2 id="plots-heading" className="text-2xl">
           What the bench saw
