@@ -58,6 +58,10 @@ describe("frequency-response plot", () => {
     ]);
     const y = [...host.querySelectorAll('[role="img"] span[style*="top"]')];
     expect(y.map((el) => el.textContent)).toEqual(["−4", "−2", "0", "2", "4"]);
+    // Up is louder: the lowest level sits at the bottom of the plot, the highest at the top.
+    expect(y.map((el) => (el as HTMLElement).style.top)).toEqual(["100%", "75%", "50%", "25%", "0%"]);
+    expect((x[0] as HTMLElement).style.left).toBe("0%");
+    expect((x[5] as HTMLElement).style.left).toBe("56.632%"); // 1 kHz: log(1000 / 20) / log(20000 / 20)
   });
   it("has a legend entry per series, each drawn in its own colour and dash", () => {
     const host = serverRender(<FrequencyResponsePlot title="t" series={[...units, { id: "u4", label: "Unit four", points: sweep(1) }]} />);
