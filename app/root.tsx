@@ -8,13 +8,7 @@ import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
 import { SITE_DESCRIPTION } from "~/meta";
-import "@fontsource/source-serif-4/400.css";
-import "@fontsource/source-serif-4/600.css";
-import "@fontsource/inter/400.css";
-import "@fontsource/inter/500.css";
-import "@fontsource/inter/600.css";
-import "@fontsource/jetbrains-mono/400.css";
-import "@fontsource/jetbrains-mono/500.css";
+import "./fonts.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
