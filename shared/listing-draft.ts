@@ -19,7 +19,8 @@ import {
   type Currency,
 } from "./listing-input";
 import { COUNTRY_CODES } from "./countries";
-import { freeText, nameText, type TextKind } from "./text";
+import { freeText, nameText } from "./text";
+import type { TextKind } from "./text-rules";
 
 export const EDITOR_STEPS = [
   { id: "item", label: "Item" },
