@@ -1,9 +1,10 @@
 import { COSMETIC_GRADES, COSMETIC_GRADE_TEXT, SERVICE_STATES, SERVICE_STATE_TEXT, CATEGORY_LABELS } from "@shared/catalogue";
 import { countryOptions } from "@shared/countries";
-import { CURRENCIES, type Currency } from "@shared/listing-input";
+import { CURRENCIES, isCurrency, type Currency } from "@shared/listing-input";
 import { defaultSort, type FilterCounts } from "@shared/market-filters";
 import { Field, SelectField } from "~/components/Field";
 import { Button } from "~/components/Button";
+import { usePricing } from "~/components/Price";
 import { sortOptions } from "~/catalogue/market-view";
 import { valuesOf, type MarketState } from "./use-market-state";
 import { MeasuredFields } from "./MeasuredFields";
@@ -31,7 +32,7 @@ export function FilterPanel({
 }) {
   const { draft, filters } = state;
   const category = filters.category;
-  const currency: Currency = filters.currency;
+  const currency = priceCurrency(state.draft, usePricing()?.display ?? null);
   const picked = (name: string) => valuesOf(draft, name);
   const toggle = (name: string, value: string, on: boolean) =>
     state.choose(name, on ? [...picked(name), value] : picked(name).filter((v) => v !== value));
@@ -84,7 +85,11 @@ export function FilterPanel({
               label={name === "priceMin" ? "From" : "Up to"}
               name={name}
               value={draft.get(name) ?? ""}
-              onChange={(e) => state.type(name, e.target.value)}
+              onChange={(e) => {
+                // Bounds typed in the buyer's own currency name it, so the link means the same to anyone.
+                if (!state.draft.get("currency") && currency !== "EUR") state.type("currency", currency);
+                state.type(name, e.target.value);
+              }}
               inputMode={CURRENCIES[currency] ? "decimal" : "numeric"}
               autoComplete="off"
               unit={currency}
@@ -197,4 +202,15 @@ function FieldMessage({ text }: { text: string | undefined }) {
       {text}
     </p>
   ) : null;
+}
+
+/**
+ * The currency the price bounds are typed in: the one the link names; else euros when the link has
+ * bounds (as the server reads it); else the buyer's display currency.
+ */
+export function priceCurrency(draft: URLSearchParams, display: string | null): Currency {
+  const named = draft.get("currency")?.trim().toUpperCase();
+  if (named && isCurrency(named)) return named;
+  if (draft.get("priceMin")?.trim() || draft.get("priceMax")?.trim()) return "EUR";
+  return display && isCurrency(display) ? display : "EUR";
 }
