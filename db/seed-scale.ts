@@ -7,7 +7,7 @@
 // write to a server elsewhere by accident: a host other than this machine needs --allow-remote.
 import path from "node:path";
 import { parseArgs } from "node:util";
-import { startCluster, type Cluster } from "./cluster";
+import { createDatabase, startCluster, type Cluster } from "./cluster";
 import { migrateUp } from "./migrator";
 import { profile } from "../scripts/stack";
 import { seedScale, SCALE_UNTIL } from "./seeds/scale/write";
@@ -43,6 +43,7 @@ if (!["127.0.0.1", "localhost", "::1", "[::1]"].includes(host) && !values["allow
 
 try {
   console.log(`Scale seed: ${listings.toLocaleString("en")} listings into ${url.replace(/\/\/[^@]*@/, "//")} (seed ${seed})`);
+  await createDatabase(url, decodeURIComponent(new URL(url).pathname.slice(1))); // a scratch database is made if missing
   const applied = await migrateUp(url);
   if (applied.length) console.log(`Applied ${applied.length} migration(s)`);
   const r = await seedScale({ databaseUrl: url, listings, seed, until, log: console.log });
