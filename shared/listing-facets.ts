@@ -5,41 +5,79 @@ import { keyFigures, sheetFilterFacets, type FigureKey, type KeyFigure as BenchK
 import type { Category } from "./bench/quantities";
 import type { BenchSheet } from "./bench/schema";
 
-/** Columns on `listings` that copy measured figures; null when the sheet has no such reading. */
+/**
+ * Columns on `listings` that copy measured figures, in the units their names say; null when the sheet
+ * has no such measured reading. Rated (maker's) figures never count. The one home for these values:
+ * the bench's check, the demo seed and the search migration's backfill all call `listingFacets`.
+ */
 export interface ListingFacets {
   power8ohmW: number | null;
   power4ohmW: number | null;
+  /** THD; THD+N where only that was measured (it bounds THD from above). */
   thdPct: number | null;
+  thdnPct: number | null;
   snrDb: number | null;
-  bandwidthHz: number | null;
-  wowFlutterPct: number | null;
+  /** The lower −3 dB point (the higher of the channels'). */
+  f3LowHz: number | null;
+  /** The upper −3 dB point (the lower of the channels'). */
+  f3HighHz: number | null;
+  dampingFactor: number | null;
+  /** Worst deviation from the RIAA curve, ± dB as a magnitude. */
+  riaaDeviationDb: number | null;
+  gainDb: number | null;
+  /** Output noise in µV. */
+  noiseUv: number | null;
+  /** At 2.83 V, 1 m. */
   sensitivityDb: number | null;
-  impedanceOhm: number | null;
+  /** The measured impedance minimum (never the rated impedance). */
+  impedanceMinOhm: number | null;
+  /** Speed error as a magnitude, %. */
+  speedErrorPct: number | null;
+  wowFlutterPct: number | null;
 }
 
 export const NO_FACETS: ListingFacets = {
   power8ohmW: null,
   power4ohmW: null,
   thdPct: null,
+  thdnPct: null,
   snrDb: null,
-  bandwidthHz: null,
-  wowFlutterPct: null,
+  f3LowHz: null,
+  f3HighHz: null,
+  dampingFactor: null,
+  riaaDeviationDb: null,
+  gainDb: null,
+  noiseUv: null,
   sensitivityDb: null,
-  impedanceOhm: null,
+  impedanceMinOhm: null,
+  speedErrorPct: null,
+  wowFlutterPct: null,
 };
+
+// The columns' checks: a figure outside them is a sheet the bench will flag, not a facet to store.
+const positive = (v: number | undefined) => (v !== undefined && Number.isFinite(v) && v > 0 ? v : null);
+const nonNegative = (v: number | undefined) => (v !== undefined && Number.isFinite(v) && v >= 0 ? v : null);
+const finite = (v: number | undefined) => (v !== undefined && Number.isFinite(v) ? v : null);
 
 export function listingFacets(sheet: BenchSheet | null | undefined): ListingFacets {
   if (!sheet) return { ...NO_FACETS };
   const f = sheetFilterFacets(sheet);
   return {
-    power8ohmW: f.powerW8Ohm ?? null,
-    power4ohmW: f.powerW4Ohm ?? null,
-    thdPct: f.distortionPct ?? null,
-    snrDb: f.snrDb ?? null,
-    bandwidthHz: f.bandwidthHighHz ?? null,
-    wowFlutterPct: f.wowFlutterPct ?? null,
-    sensitivityDb: f.sensitivityDb ?? null,
-    impedanceOhm: f.ratedImpedanceOhm ?? f.impedanceMinOhm ?? null,
+    power8ohmW: positive(f.powerW8Ohm),
+    power4ohmW: positive(f.powerW4Ohm),
+    thdPct: nonNegative(f.thdPct ?? f.thdnPct),
+    thdnPct: nonNegative(f.thdnPct),
+    snrDb: finite(f.snrDb),
+    f3LowHz: positive(f.bandwidthLowHz),
+    f3HighHz: positive(f.bandwidthHighHz),
+    dampingFactor: positive(f.dampingFactor),
+    riaaDeviationDb: nonNegative(f.riaaDeviationDb),
+    gainDb: finite(f.gainDb),
+    noiseUv: positive(f.noiseV === undefined ? undefined : f.noiseV * 1e6),
+    sensitivityDb: finite(f.sensitivityDb),
+    impedanceMinOhm: positive(f.impedanceMinOhm),
+    speedErrorPct: nonNegative(f.speedErrorPct),
+    wowFlutterPct: nonNegative(f.wowFlutterPct),
   };
 }
 

@@ -2,7 +2,8 @@ import { Op, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { BenchSheet, Listing } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
-import { checkBenchSheet, parseBenchSheet, sheetFilterFacets, type BenchSheet as Sheet, type Verdict } from "@shared/bench";
+import { checkBenchSheet, parseBenchSheet, type BenchSheet as Sheet, type Verdict } from "@shared/bench";
+import { listingFacets } from "@shared/listing-facets";
 import { CATEGORY_QUANTITIES } from "@shared/bench/quantities";
 import type { Reading, Sweep } from "@shared/bench/schema";
 import { sheetFingerprint } from "@shared/bench-form/state";
@@ -94,28 +95,10 @@ export function heldReasonFor(verdict: Verdict): string | null {
   return `Bench check: ${first.title.toLowerCase()} — implausible. ${first.detail}${more}`.slice(0, 1000);
 }
 
-/** Listing columns the market filters by, from the sheet's conservative figures. */
-export function facetColumns(sheet: Sheet | null) {
-  const f = sheet ? sheetFilterFacets(sheet) : null;
-  const positive = (v: number | undefined) => (v !== undefined && Number.isFinite(v) && v > 0 ? v : null);
-  const nonNegative = (v: number | undefined) => (v !== undefined && Number.isFinite(v) && v >= 0 ? v : null);
-  const finite = (v: number | undefined) => (v !== undefined && Number.isFinite(v) ? v : null);
-  return {
-    power8ohmW: positive(f?.powerW8Ohm),
-    power4ohmW: positive(f?.powerW4Ohm),
-    thdPct: nonNegative(f?.distortionPct),
-    snrDb: finite(f?.snrDb),
-    bandwidthHz: positive(f?.bandwidthHighHz),
-    wowFlutterPct: nonNegative(f?.wowFlutterPct),
-    sensitivityDb: finite(f?.sensitivityDb),
-    impedanceOhm: positive(f?.ratedImpedanceOhm ?? f?.impedanceMinOhm),
-  };
-}
-
 /** Apply a fresh verdict to a published listing: the mark, the facets, and the desk for implausible sheets. */
 export function verdictUpdate(listing: Listing, sheet: Sheet | null, verdict: Verdict | null) {
   const reason = verdict ? heldReasonFor(verdict) : null;
-  const update: Partial<Listing> = { ...facetColumns(sheet), benchVerified: !!verdict?.benchVerified && !reason };
+  const update: Partial<Listing> = { ...listingFacets(sheet), benchVerified: !!verdict?.benchVerified && !reason };
   if (reason) {
     update.status = "held";
     update.heldReason = reason;
@@ -154,7 +137,7 @@ export async function saveBenchSheet(
     if (stored) await stored.update({ sheet, verdict, checkedAt }, { transaction });
     else await BenchSheet.create({ listingId, sheet, verdict, checkedAt }, { transaction });
     if (isPublished(listing)) await listing.update(verdictUpdate(listing, sheet, verdict), { transaction });
-    else await listing.update(facetColumns(sheet), { transaction });
+    else await listing.update(listingFacets(sheet), { transaction });
     return { listing, sheet, verdict, changed, wasVerified };
   };
   return opts.transaction ? run(opts.transaction) : sequelize.transaction(run);

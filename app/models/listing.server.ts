@@ -61,11 +61,20 @@ export class Listing extends Model<InferAttributes<Listing>, InferCreationAttrib
   declare power8ohmW: number | null;
   declare power4ohmW: number | null;
   declare thdPct: number | null;
+  declare thdnPct: number | null;
   declare snrDb: number | null;
-  declare bandwidthHz: number | null;
-  declare wowFlutterPct: number | null;
+  declare f3LowHz: number | null;
+  declare f3HighHz: number | null;
+  declare dampingFactor: number | null;
+  declare riaaDeviationDb: number | null;
+  declare gainDb: number | null;
+  declare noiseUv: number | null;
   declare sensitivityDb: number | null;
-  declare impedanceOhm: number | null;
+  declare impedanceMinOhm: number | null;
+  declare speedErrorPct: number | null;
+  declare wowFlutterPct: number | null;
+  /** The price in euro cents at the admin's rates; kept by database triggers (search migration), never written here. */
+  declare priceEurMinor: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -80,6 +89,7 @@ export class Listing extends Model<InferAttributes<Listing>, InferCreationAttrib
 const readShippingOptions = jsonColumn("listings.shipping_options", ShippingOptionsSchema, (): ShippingOption[] => []);
 
 const nullable = (type: DataTypes.DataType) => ({ type, allowNull: true });
+const facet = (field: string) => ({ type: DataTypes.DOUBLE, allowNull: true, field });
 
 Listing.init(
   {
@@ -125,14 +135,32 @@ Listing.init(
     benchVerified: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     publishedAt: nullable(DataTypes.DATE),
     heldReason: nullable(DataTypes.TEXT),
-    power8ohmW: { type: DataTypes.DOUBLE, allowNull: true, field: "power_8ohm_w" },
-    power4ohmW: { type: DataTypes.DOUBLE, allowNull: true, field: "power_4ohm_w" },
-    thdPct: nullable(DataTypes.DOUBLE),
-    snrDb: nullable(DataTypes.DOUBLE),
-    bandwidthHz: nullable(DataTypes.DOUBLE),
-    wowFlutterPct: nullable(DataTypes.DOUBLE),
-    sensitivityDb: nullable(DataTypes.DOUBLE),
-    impedanceOhm: nullable(DataTypes.DOUBLE),
+    // Facet columns, named for their units (shared/listing-facets.ts fills them).
+    power8ohmW: facet("power_8ohm_w"),
+    power4ohmW: facet("power_4ohm_w"),
+    thdPct: facet("thd_pct"),
+    thdnPct: facet("thdn_pct"),
+    snrDb: facet("snr_db"),
+    f3LowHz: facet("f3_low_hz"),
+    f3HighHz: facet("f3_high_hz"),
+    dampingFactor: facet("damping_factor"),
+    riaaDeviationDb: facet("riaa_deviation_db"),
+    gainDb: facet("gain_db"),
+    noiseUv: facet("noise_uv"),
+    sensitivityDb: facet("sensitivity_db"),
+    impedanceMinOhm: facet("impedance_min_ohm"),
+    speedErrorPct: facet("speed_error_pct"),
+    wowFlutterPct: facet("wow_flutter_pct"),
+    priceEurMinor: {
+      type: DataTypes.BIGINT,
+      allowNull: true,
+      field: "price_eur_minor",
+      // pg reads bigint as a string; euro cents of any price fit a double exactly.
+      get() {
+        const v: unknown = this.getDataValue("priceEurMinor");
+        return v === null || v === undefined ? null : Number(v);
+      },
+    },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

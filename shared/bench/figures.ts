@@ -29,7 +29,10 @@ export type FigureKey =
   | "power8"
   | "power4"
   | "distortion"
+  | "thd"
+  | "thdN"
   | "snr"
+  | "noise"
   | "bandwidthHigh"
   | "bandwidthLow"
   | "dampingFactor"
@@ -55,7 +58,11 @@ function one(item: Item | undefined): Pick | undefined {
 
 /** THD+N (else THD) at the rated power into 8 Ω, or at the highest level measured; the worse channel. */
 function distortionAtRatedPower(ix: SheetIndex): Pick | undefined {
-  const q: Quantity = ix.measured("thd_n").length ? "thd_n" : "thd";
+  return distortionOf(ix, ix.measured("thd_n").length ? "thd_n" : "thd");
+}
+
+/** One distortion measure at the rated power into 8 Ω, or at the highest level measured; the worse channel. */
+function distortionOf(ix: SheetIndex, q: Quantity): Pick | undefined {
   const xs = ix.measured(q);
   if (!xs.length) return undefined;
   const rated = ix.rated("output_power").find((r) => r.conditions.loadOhm !== undefined && near(r.conditions.loadOhm, 8, 0.05));
@@ -106,7 +113,10 @@ const PICKS: Record<FigureKey, (ix: SheetIndex) => Pick | undefined> = {
   power8: (ix) => one(weakestChannelBest(atLoad(ix.measured("output_power"), 8))),
   power4: (ix) => one(weakestChannelBest(atLoad(ix.measured("output_power"), 4))),
   distortion: distortionAtRatedPower,
+  thd: (ix) => distortionOf(ix, "thd"),
+  thdN: (ix) => distortionOf(ix, "thd_n"),
   snr: (ix) => one(min(ix.measured("snr"))),
+  noise: (ix) => one(max(ix.measured("noise"))),
   bandwidthHigh: (ix) => one(min(ix.measured("f3db_high"))),
   bandwidthLow: (ix) => one(max(ix.measured("f3db_low"))),
   dampingFactor: (ix) => one(min(ix.measured("damping_factor"))),
@@ -174,7 +184,13 @@ export type SheetFacets = {
   powerW4Ohm?: number;
   /** THD+N (else THD) at rated power into 8 Ω, worse channel, in %. */
   distortionPct?: number;
+  /** THD alone, at rated power into 8 Ω (else the highest level measured), worse channel, in %. */
+  thdPct?: number;
+  /** THD+N alone, as `thdPct`. */
+  thdnPct?: number;
   snrDb?: number;
+  /** Output noise, worse channel, in V rms. */
+  noiseV?: number;
   bandwidthHighHz?: number;
   bandwidthLowHz?: number;
   dampingFactor?: number;
@@ -197,7 +213,10 @@ const FACET_OF: Record<FigureKey, [Exclude<keyof SheetFacets, "category" | "meas
     power8: ["powerW8Ohm", (v) => v],
     power4: ["powerW4Ohm", (v) => v],
     distortion: ["distortionPct", (v) => v * 100],
+    thd: ["thdPct", (v) => v * 100],
+    thdN: ["thdnPct", (v) => v * 100],
     snr: ["snrDb", (v) => v],
+    noise: ["noiseV", (v) => v],
     bandwidthHigh: ["bandwidthHighHz", (v) => v],
     bandwidthLow: ["bandwidthLowHz", (v) => v],
     dampingFactor: ["dampingFactor", (v) => v],
@@ -211,12 +230,17 @@ const FACET_OF: Record<FigureKey, [Exclude<keyof SheetFacets, "category" | "meas
     rumble: ["rumbleDb", (v) => v],
   };
 
+// Beyond the headline figures: both distortion measures apart (buyers filter by either), the lower
+// −3 dB point, and a phono stage's output noise.
+const DISTORTION_KEYS: FigureKey[] = ["thd", "thdN"];
 const FACET_KEYS: Record<Category, FigureKey[]> = {
   ...KEY_FIGURES,
-  integrated_amplifier: [...AMP_KEYS, "bandwidthLow"],
-  power_amplifier: [...AMP_KEYS, "bandwidthLow"],
-  receiver: [...AMP_KEYS, "bandwidthLow"],
-  preamplifier: [...KEY_FIGURES.preamplifier, "bandwidthLow"],
+  integrated_amplifier: [...AMP_KEYS, "bandwidthLow", ...DISTORTION_KEYS],
+  power_amplifier: [...AMP_KEYS, "bandwidthLow", ...DISTORTION_KEYS],
+  receiver: [...AMP_KEYS, "bandwidthLow", ...DISTORTION_KEYS],
+  preamplifier: [...KEY_FIGURES.preamplifier, "bandwidthLow", ...DISTORTION_KEYS],
+  phono_stage: [...KEY_FIGURES.phono_stage, ...DISTORTION_KEYS, "noise"],
+  tape_deck: [...KEY_FIGURES.tape_deck, ...DISTORTION_KEYS],
 };
 
 export function sheetFilterFacets(sheet: BenchSheet): SheetFacets {

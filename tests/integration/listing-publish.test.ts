@@ -67,9 +67,12 @@ describe("publishing a listing", () => {
     expect(listing.power8ohmW).toBe(65);
     expect(listing.power4ohmW).toBe(96);
     expect(listing.snrDb).toBe(98);
-    expect(listing.bandwidthHz).toBe(95_000);
-    // THD+N at rated power (60 W), worse channel: 0.00021 = 0.021 %.
-    expect(listing.thdPct).toBeCloseTo(0.021, 6);
+    expect(listing.f3HighHz).toBe(95_000);
+    expect(listing.f3LowHz).toBe(7);
+    // At rated power (60 W), worse channel: THD 0.00014 = 0.014 %, THD+N 0.00021 = 0.021 %.
+    expect(listing.thdPct).toBeCloseTo(0.014, 6);
+    expect(listing.thdnPct).toBeCloseTo(0.021, 6);
+    expect(listing.dampingFactor).toBe(150);
   });
 
   it("holds a sheet whose 4 Ω power is three times its 8 Ω power for the review desk, without the mark", async () => {

@@ -140,6 +140,8 @@ describe("keyFigures and sheetFilterFacets", () => {
       powerW8Ohm: 65,
       powerW4Ohm: 96,
       distortionPct: expect.closeTo(0.021, 9),
+      thdPct: expect.closeTo(0.014, 9),
+      thdnPct: expect.closeTo(0.021, 9),
       snrDb: 98,
       bandwidthHighHz: 95000,
       bandwidthLowHz: 7,
