@@ -229,12 +229,13 @@ export async function seedScale(opts: ScaleSeedOptions): Promise<ScaleSeedResult
     }
     await pending;
     await db.query("COMMIT");
+    // Fresh statistics (or the planner guesses at the new rows) and the visibility map a market that
+    // has settled would have (or index-only scans read the heap anyway).
+    await db.query("VACUUM (ANALYZE) users, workshops, listings, bench_sheets");
   } catch (error) {
     await db.query("ROLLBACK").catch(() => undefined);
     throw error;
   } finally {
-    // Fresh statistics, or the planner guesses at the new rows.
-    await db.query("ANALYZE users, workshops, listings, bench_sheets").catch(() => undefined);
     await db.end();
   }
   result.seconds = Math.round((performance.now() - started) / 100) / 10;
