@@ -198,6 +198,9 @@ export async function seedScale(opts: ScaleSeedOptions): Promise<ScaleSeedResult
       privates: new SellerPicker(privates),
     };
     await db.query("BEGIN");
+    // New rows' text-search entries wait in the index's pending list until the vacuum below files them
+    // all at once, rather than every 4 MB.
+    await db.query("SET LOCAL gin_pending_list_limit = '64MB'");
     // One scale seeder at a time on a database.
     await db.query(`SELECT pg_advisory_xact_lock(hashtext('loadline-scale-seed'))`);
     result.removed = await removePrevious(db);
