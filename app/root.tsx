@@ -7,6 +7,8 @@ import { getUser } from "~/auth/guards.server";
 import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
+import { readCompareList } from "~/compare/compare-list.server";
+import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
 import "@fontsource/source-serif-4/400.css";
 import "@fontsource/source-serif-4/600.css";
@@ -18,9 +20,9 @@ import "@fontsource/jetbrains-mono/500.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, { notice, headers }] = await Promise.all([getUser(request), takeNotice(request)]);
+  const [user, { notice, headers }, compare] = await Promise.all([getUser(request), takeNotice(request), readCompareList(request)]);
   const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
-  return data({ user: header, notice }, { headers });
+  return data({ user: header, notice, compare }, { headers });
 }
 
 export const meta: Route.MetaFunction = () => [
@@ -51,7 +53,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
         >
           Skip to content
         </a>
-        <SiteHeader user={root?.user ?? null} />
+        <SiteHeader user={root?.user ?? null} compareCount={root?.compare.length ?? 0} />
         {root?.notice ? (
           <div role="status" className="border-b border-trace/25 bg-trace-wash">
             <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
@@ -60,6 +62,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
         <div id="main" className="flex flex-1 flex-col">
           {children}
         </div>
+        <CompareTray />
         <SiteFooter />
         <ScrollRestoration />
         <Scripts />

@@ -20,6 +20,8 @@ export default [
   route("desk", "routes/desk/desk.tsx"),
   // The public listing page (watch is its action)
   route("listings/:id", "routes/listings/listing.tsx"),
+  // Compare: up to four units side by side; its action keeps the visitor's compare list
+  route("compare", "routes/compare.tsx"),
   // The buyer's watch list: the page and its API
   route("watching", "routes/watching.tsx"),
   route("api/v1/watches", "routes/api.v1.watches.ts"),

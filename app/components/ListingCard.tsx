@@ -2,6 +2,7 @@ import type { ReactNode } from "react";
 import { Link } from "react-router";
 import { CATEGORY_LABELS, COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice } from "@shared/catalogue";
 import type { ListingSummary } from "~/catalogue/types";
+import { CompareToggle } from "~/compare/ui/CompareToggle";
 import { BenchVerifiedMark } from "./BenchVerifiedMark";
 import { Figure } from "./Figure";
 import { cx } from "./cx";
@@ -49,6 +50,9 @@ export function ListingCard({
         )}
         {l.benchVerified ? <BenchVerifiedMark compact className="absolute left-2.5 top-2.5 bg-card/95 backdrop-blur-sm" /> : null}
         {action ? <div className="absolute right-2.5 top-2.5">{action}</div> : null}
+        <div className="absolute bottom-2.5 right-2.5">
+          <CompareToggle listingId={l.id} />
+        </div>
       </div>
       <div className="flex flex-1 flex-col gap-3 p-4">
         <div className="space-y-0.5">

@@ -18,6 +18,7 @@ interface NavItem {
 // Only pages that exist and that this visitor may open; selling appears once its flow is in place.
 const NAV: NavItem[] = [
   { to: "/market", label: "Market", show: () => true },
+  { to: "/compare", label: "Compare", show: () => true },
   { to: "/watching", label: "Watching", show: (u) => !!u },
   { to: "/sell", label: "Sell", show: (u) => !!u },
   { to: "/desk", label: "Review desk", show: (u) => !!u && holdsRole(u.roles, "moderator") },
@@ -32,8 +33,20 @@ const navLink = ({ isActive }: { isActive: boolean }) =>
       : "text-ink-soft hover:bg-sunk hover:text-ink",
   );
 
-export function SiteHeader({ user }: { user: HeaderUser | null }) {
+export function SiteHeader({ user, compareCount = 0 }: { user: HeaderUser | null; compareCount?: number }) {
   const items = NAV.filter((n) => n.show(user));
+  const label = (n: NavItem) =>
+    n.to === "/compare" && compareCount ? (
+      <>
+        {n.label}
+        <span className="figures ml-1.5 rounded-full bg-walnut-wash px-1.5 text-xs text-walnut-deep">
+          {compareCount}
+          <span className="sr-only"> chosen</span>
+        </span>
+      </>
+    ) : (
+      n.label
+    );
   return (
     <header className="border-b border-rule bg-paper/95 backdrop-blur-sm">
       <div className="h-[3px] bg-walnut" aria-hidden="true" />
@@ -44,7 +57,7 @@ export function SiteHeader({ user }: { user: HeaderUser | null }) {
         <nav aria-label="Main" className="hidden flex-1 items-center gap-1 md:flex">
           {items.map((n) => (
             <NavLink key={n.to} to={n.to} className={navLink}>
-              {n.label}
+              {label(n)}
             </NavLink>
           ))}
         </nav>
@@ -55,7 +68,7 @@ export function SiteHeader({ user }: { user: HeaderUser | null }) {
         <div className="mx-auto flex max-w-6xl gap-1 overflow-x-auto px-2 py-1">
           {items.map((n) => (
             <NavLink key={n.to} to={n.to} className={navLink}>
-              {n.label}
+              {label(n)}
             </NavLink>
           ))}
         </div>

@@ -26,7 +26,7 @@ export const DEMO_UNITS: DemoUnit[] = [
     note: "Exceptional: original box and inserts, no marks under raking light. Phono input measured too.",
     weightKg: 17.5, box: [58, 50, 26], mains: UK, includes: ["manual", "remote", "packing"], handlingDays: 3, photos: 2,
     sheet: amplifierSheet("integrated_amplifier", who("Carrowain", "WQ 72i", 1982, keswater, 4), {
-      rated8: 100, rated4: 150, meas8: [108, 106], meas4: [162, 158], thdPct: [0.009, 0.011], snrDb: 101, f3HighHz: 110_000, f3LowHz: 5, dampingFactor: 200,
+      rated8: 100, rated4: 150, meas8: [108, 106], meas4: [162, 158], thdPct: [0.009, 0.011], snrDb: 101, f3HighHz: 110_000, f3LowHz: 5, dampingFactor: 200, sweep: true,
     }),
     log: ampRecap("Bram Keswater", 4, 2),
   },
@@ -45,7 +45,7 @@ export const DEMO_UNITS: DemoUnit[] = [
     note: "Small chip on the volume knob's skirt, otherwise clean. Remote works; new batteries included.",
     weightKg: 13.8, box: [54, 46, 22], mains: UK, includes: ["manual", "remote"], handlingDays: 2, photos: 1,
     sheet: amplifierSheet("integrated_amplifier", who("Vantrell", "Velt 80 Mk II", 1984, corrowmere, 9), {
-      rated8: 80, rated4: 120, meas8: [86, 85], meas4: [124, 121], thdPct: [0.01, 0.012], snrDb: 99, f3HighHz: 85_000, f3LowHz: 6,
+      rated8: 80, rated4: 120, meas8: [86, 85], meas4: [124, 121], thdPct: [0.01, 0.012], snrDb: 99, f3HighHz: 85_000, f3LowHz: 6, sweep: true,
     }),
     log: ampRecap("Ottilie Varn", 9, 3),
   },
@@ -71,7 +71,7 @@ export const DEMO_UNITS: DemoUnit[] = [
     note: "Electrically as new after service; the front panel has honest wear around the selector and a faint scratch across the badge.",
     weightKg: 15.1, box: [56, 48, 24], mains: SWITCH, includes: ["remote"], handlingDays: 2, photos: 1,
     sheet: amplifierSheet("integrated_amplifier", who("Vantrell", "Velt 120 Studio", 1988, corrowmere, 17), {
-      rated8: 120, rated4: 180, meas8: [128, 127], meas4: [188, 185], thdPct: [0.006, 0.007], snrDb: 103, f3HighHz: 120_000, f3LowHz: 4, dampingFactor: 250,
+      rated8: 120, rated4: 180, meas8: [128, 127], meas4: [188, 185], thdPct: [0.006, 0.007], snrDb: 103, f3HighHz: 120_000, f3LowHz: 4, dampingFactor: 250, sweep: true,
     }),
     log: ampRecap("Ottilie Varn", 17, 5),
   },

@@ -1,4 +1,4 @@
-import type { BenchSheet, Conditions, Reading } from "@shared/bench/schema";
+import type { BenchSheet, Conditions, Reading, Sweep } from "@shared/bench/schema";
 import { riaaPlaybackDb } from "@shared/bench/curves";
 import type { Category } from "@shared/catalogue";
 
@@ -52,6 +52,8 @@ export interface AmpFigures {
   dampingFactor?: number;
   /** Only typed power and THD, as a private seller with a meter and a dummy load might have. */
   basic?: boolean;
+  /** A typed response sweep at 1 W into 8 Ω whose corners are the −3 dB points above. */
+  sweep?: boolean;
   doctor?: "half-load" | "rails" | "voltage";
 }
 
@@ -130,7 +132,23 @@ export function amplifierSheet(category: Category, who: Who, f: AmpFigures): Ben
   } else {
     readings.push(r("snr", f.snrDb, "dB(A)", { channel: "both", conditions: { powerW: 1, loadOhm: 8, weighting: "A" } }));
   }
-  return { ...head(category, who), channelCount: 2, readings };
+  const sheet: BenchSheet = { ...head(category, who), channelCount: 2, readings };
+  if (f.sweep && !f.basic) sheet.sweeps = [responseSweep(f.f3LowHz, f.f3HighHz)];
+  return sheet;
+}
+
+// Third-octave centres (IEC 61260), 10 Hz–200 kHz.
+const THIRD_OCTAVES = [10, 12.5, 16, 20, 25, 31.5, 40, 50, 63, 80]
+  .flatMap((f) => [f, f * 10, f * 100, f * 1000, f * 10_000])
+  .sort((a, b) => a - b);
+
+/** A flat sweep at 1 W into 8 Ω through single-pole corners at `lowHz` and `highHz`, as a bench's sweep would show them. */
+function responseSweep(lowHz: number, highHz: number): Sweep {
+  const points = THIRD_OCTAVES.filter((hz) => hz <= 200_000).map((hz) => ({
+    frequencyHz: hz,
+    levelDb: round(-10 * Math.log10(1 + (lowHz / hz) ** 2) - 10 * Math.log10(1 + (hz / highHz) ** 2), 3),
+  }));
+  return { kind: "flat", channel: "left", origin: "typed", conditions: { loadOhm: 8, powerW: 1 }, points };
 }
 
 export interface LineFigures {

@@ -1,7 +1,7 @@
 // Headline measured figures for listings, and numbers to index for buyers' filters.
 // Always the conservative reading: the weaker channel's power, the worse channel's distortion.
 import { QUANTITY_INFO, type Category, type Quantity } from "./quantities";
-import type { BenchSheet, Reading } from "./schema";
+import type { BenchSheet, Conditions, Reading } from "./schema";
 import { describeConditions, formatReadingValue } from "./describe";
 import { bestRiaaFit } from "./rules/phono";
 import { near, weakestChannelBest } from "./rules/match";
@@ -23,6 +23,13 @@ export type KeyFigure = {
   fromCapture: boolean;
   /** Path of the reading or sweep, e.g. "readings.4". */
   ref: string;
+  /** The reading's quantity (THD or THD+N for `distortion`); absent for figures read off a sweep. */
+  quantity?: Quantity;
+  /**
+   * The conditions the figure stands on, for setting units side by side (see FIGURE_COMPARISON). A
+   * figure taken at the unit's own rated power leaves the power out: "at rated power" is its basis.
+   */
+  basis: Conditions;
 };
 
 export type FigureKey =
@@ -45,7 +52,16 @@ export type FigureKey =
   | "speedError"
   | "rumble";
 
-type Pick = { item?: Item; value?: number; display?: string; label?: string; ref?: string; fromCapture?: boolean; conditions?: string };
+type Pick = {
+  item?: Item;
+  value?: number;
+  display?: string;
+  label?: string;
+  ref?: string;
+  fromCapture?: boolean;
+  conditions?: string;
+  basis?: Conditions;
+};
 
 const min = (xs: Item[]) => xs.reduce<Item | undefined>((a, b) => (!a || b.value < a.value ? b : a), undefined);
 const max = (xs: Item[]) => xs.reduce<Item | undefined>((a, b) => (!a || b.value > a.value ? b : a), undefined);
@@ -67,7 +83,10 @@ function distortionOf(ix: SheetIndex, q: Quantity): Pick | undefined {
   if (!xs.length) return undefined;
   const rated = ix.rated("output_power").find((r) => r.conditions.loadOhm !== undefined && near(r.conditions.loadOhm, 8, 0.05));
   const atRated = rated ? xs.filter((x) => x.conditions.powerW !== undefined && near(x.conditions.powerW, rated.value, 0.2)) : [];
-  if (atRated.length) return { item: max(atRated)!, label: `${QUANTITY_INFO[q].label} at rated power` };
+  if (atRated.length) {
+    const { powerW: _rated, ...basis } = max(atRated)!.conditions;
+    return { item: max(atRated)!, label: `${QUANTITY_INFO[q].label} at rated power`, basis };
+  }
   const top = Math.max(...xs.map((x) => x.conditions.powerW ?? 0));
   return { item: max(xs.filter((x) => (x.conditions.powerW ?? 0) === top))!, label: QUANTITY_INFO[q].label };
 }
@@ -85,6 +104,7 @@ function riaa(ix: SheetIndex): Pick | undefined {
       ref: s.ref,
       fromCapture: s.origin === "capture",
       conditions: `worst at ${formatValue(fit.atHz, "frequency")}, ${formatValue(fit.lowHz, "frequency")}–${formatValue(fit.highHz, "frequency")}`,
+      basis: { frequencyRange: { lowHz: fit.lowHz, highHz: fit.highHz } },
     };
   }
   return best ?? one(maxAbs(ix.measured("riaa_deviation")));
@@ -137,6 +157,48 @@ const LABELS: Partial<Record<FigureKey, string>> = {
   bandwidthLow: "Lower −3 dB point",
 };
 
+/**
+ * Which way each figure is better, and the conditions two units' figures must share before one is
+ * called the stronger: power at 1 % THD is not power at 0.1 %, nor SNR re 1 W the SNR re 100 W.
+ * `better: null` where more is not better (gain suits the system, not the unit) or the figure is rated.
+ * `sameQuantity`: THD and THD+N are different measures. Distortion at the unit's own rated power is
+ * compared as the trade compares it (its basis drops the power, see KeyFigure.basis).
+ */
+export type FigureDirection = "higher" | "lower" | "nearer_zero";
+export interface FigureComparison {
+  better: FigureDirection | null;
+  sameConditions: readonly (keyof Conditions)[];
+  sameQuantity?: boolean;
+}
+const POWER_BASIS: FigureComparison = {
+  better: "higher",
+  sameConditions: ["frequencyHz", "frequencyRange", "atDistortion", "channelsDriven"],
+};
+const DISTORTION_BASIS: (keyof Conditions)[] = ["loadOhm", "frequencyHz", "powerW", "bandwidth"];
+const RESPONSE_BASIS: (keyof Conditions)[] = ["loadOhm", "powerW", "voltageV", "tapeSpeedCmS"];
+export const FIGURE_COMPARISON: Record<FigureKey, FigureComparison> = {
+  power8: POWER_BASIS,
+  power4: POWER_BASIS,
+  distortion: { better: "lower", sameConditions: DISTORTION_BASIS, sameQuantity: true },
+  thd: { better: "lower", sameConditions: DISTORTION_BASIS },
+  thdN: { better: "lower", sameConditions: DISTORTION_BASIS },
+  noise: { better: "lower", sameConditions: ["weighting", "bandwidth", "loadOhm"] },
+  snr: { better: "higher", sameConditions: ["weighting", "powerW", "voltageV", "bandwidth", "tapeSpeedCmS"] },
+  bandwidthHigh: { better: "higher", sameConditions: RESPONSE_BASIS },
+  bandwidthLow: { better: "lower", sameConditions: RESPONSE_BASIS },
+  dampingFactor: { better: "higher", sameConditions: ["loadOhm", "frequencyHz"] },
+  gain: { better: null, sameConditions: [] },
+  riaaDeviation: { better: "lower", sameConditions: ["frequencyRange"] },
+  sensitivity: { better: "higher", sameConditions: ["distanceM"] },
+  // A higher minimum is an easier load for the amplifier.
+  impedanceMinimum: { better: "higher", sameConditions: [] },
+  ratedImpedance: { better: null, sameConditions: [] },
+  wowFlutter: { better: "lower", sameConditions: ["weighting", "speedRpm", "tapeSpeedCmS"] },
+  speedError: { better: "nearer_zero", sameConditions: ["speedRpm", "tapeSpeedCmS"] },
+  // Quoted as dB below the reference level: more is quieter.
+  rumble: { better: "higher", sameConditions: ["weighting", "speedRpm"] },
+};
+
 const AMP_KEYS: FigureKey[] = ["power8", "power4", "distortion", "snr", "bandwidthHigh", "dampingFactor"];
 export const KEY_FIGURES: Record<Category, FigureKey[]> = {
   integrated_amplifier: AMP_KEYS,
@@ -163,6 +225,8 @@ function toFigure(key: FigureKey, p: Pick): KeyFigure {
     ...(it?.channel ? { channel: it.channel } : {}),
     fromCapture: p.fromCapture ?? it?.origin === "capture",
     ref: p.ref ?? it?.ref ?? "",
+    ...(it ? { quantity: it.quantity } : {}),
+    basis: p.basis ?? it?.conditions ?? {},
   };
 }
 
@@ -171,6 +235,29 @@ export function keyFigures(sheet: BenchSheet): KeyFigure[] {
   const ix = indexSheet(sheet);
   const out: KeyFigure[] = [];
   for (const key of KEY_FIGURES[sheet.category]) {
+    const p = PICKS[key](ix);
+    if (p) out.push(toFigure(key, p));
+  }
+  return out;
+}
+
+/** What compare sets side by side per category: the key figures and the lower −3 dB point, measured only (no rated impedance). */
+export const COMPARE_FIGURES: Record<Category, FigureKey[]> = {
+  integrated_amplifier: [...AMP_KEYS, "bandwidthLow"],
+  power_amplifier: [...AMP_KEYS, "bandwidthLow"],
+  receiver: [...AMP_KEYS, "bandwidthLow"],
+  preamplifier: [...KEY_FIGURES.preamplifier, "bandwidthLow"],
+  phono_stage: KEY_FIGURES.phono_stage,
+  loudspeaker: ["sensitivity", "impedanceMinimum", "bandwidthLow"],
+  turntable: KEY_FIGURES.turntable,
+  tape_deck: [...KEY_FIGURES.tape_deck, "bandwidthLow"],
+};
+
+/** The measured figures compare shows for the sheet, in `COMPARE_FIGURES` order; only those the sheet has. */
+export function compareFigures(sheet: BenchSheet): KeyFigure[] {
+  const ix = indexSheet(sheet);
+  const out: KeyFigure[] = [];
+  for (const key of COMPARE_FIGURES[sheet.category]) {
     const p = PICKS[key](ix);
     if (p) out.push(toFigure(key, p));
   }

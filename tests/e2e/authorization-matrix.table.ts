@@ -92,6 +92,20 @@ export const MATRIX: Record<string, Entry> = {
     ],
   },
 
+  // Compare: public and the same for everyone (only live and sold units are shown). Its action keeps the
+  // visitor's own compare list in a cookie, signed in or not, and sends a plain form back where it came from.
+  "/compare": {
+    cases: [
+      {
+        get: everyone("ok"),
+        post: {
+          body: (f) => ({ form: { intent: "remove", listingId: f.live.id, returnTo: "/market" } }),
+          expect: everyone({ to: "/market" }),
+        },
+      },
+    ],
+  },
+
   // The watch list: any account; the form's fallback unwatches without JavaScript.
   "/watching": {
     cases: [

@@ -15,6 +15,7 @@ import { Plots } from "~/listings/ui/Plots";
 import { RestorationLog } from "~/listings/ui/RestorationLog";
 import { SafetyCautions, SellerCard, ShippingPanel } from "~/listings/ui/SidePanels";
 import { UnitDetails } from "~/listings/ui/UnitDetails";
+import { CompareToggle } from "~/compare/ui/CompareToggle";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
@@ -86,6 +87,7 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
           <ListingTitle listing={listing} />
           <PriceAndCondition listing={listing} />
           <WatchControl listing={listing} viewer={viewer} />
+          {listing.status === "live" || listing.status === "sold" ? <CompareToggle listingId={listing.id} layout="page" /> : null}
           <OwnerLinks listing={listing} viewer={viewer} />
           <div className="border-t border-rule pt-5">
             <KeyFigures figures={keyFigures} verified={listing.benchVerified} />
