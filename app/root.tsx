@@ -1,12 +1,25 @@
 import "./zod-jitless";
 import { useState } from "react";
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
-import { data, isRouteErrorResponse, Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
+import {
+  data,
+  isRouteErrorResponse,
+  Links,
+  Meta,
+  Outlet,
+  Scripts,
+  ScrollRestoration,
+  useRouteLoaderData,
+  type ShouldRevalidateFunctionArgs,
+} from "react-router";
 import type { Route } from "./+types/root";
 import { getUser } from "~/auth/guards.server";
 import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
+import { NavigationProgress, useNavigating } from "~/components/NavigationProgress";
+import { PricingProvider } from "~/components/Price";
+import { pricingFor } from "~/currencies/display.server";
 import { readCompareList } from "~/compare/compare-list.server";
 import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
@@ -20,9 +33,16 @@ import "@fontsource/jetbrains-mono/500.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, { notice, headers }, compare] = await Promise.all([getUser(request), takeNotice(request), readCompareList(request)]);
+  const [user, { notice, headers }, compare, pricing] = await Promise.all([
+    getUser(request),
+    takeNotice(request),
+    readCompareList(request),
+    pricingFor(request).catch(() => null),
+  ]);
   const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
-  return data({ user: header, notice, compare }, { headers });
+  // Every page may show prices: the buyer's display currency and the rates ride along (a dozen rows).
+  // Without them prices still show, in the seller's currency only.
+  return data({ user: header, notice, compare, pricing }, { headers });
 }
 
 export const meta: Route.MetaFunction = () => [
@@ -36,6 +56,7 @@ export const meta: Route.MetaFunction = () => [
 export function Layout({ children }: { children: React.ReactNode }) {
   // Undefined when the root loader itself failed; the header then shows the signed-out state.
   const root = useRouteLoaderData<typeof loader>("root");
+  const navigating = useNavigating();
   return (
     <html lang="en-GB">
       <head>
@@ -47,6 +68,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
         <Links />
       </head>
       <body className="flex min-h-dvh flex-col">
+        <NavigationProgress />
         <a
           href="#main"
           className="sr-only z-50 rounded-md bg-walnut px-3 py-2 text-card focus:not-sr-only focus:fixed focus:left-3 focus:top-3"
@@ -59,16 +81,25 @@ export function Layout({ children }: { children: React.ReactNode }) {
             <p className="mx-auto max-w-6xl px-4 py-2.5 text-sm font-medium text-trace sm:px-6">{root.notice}</p>
           </div>
         ) : null}
-        <div id="main" className="flex flex-1 flex-col">
-          {children}
-        </div>
-        <CompareTray />
-        <SiteFooter />
+        <PricingProvider pricing={root?.pricing ?? null}>
+          <div id="main" aria-busy={navigating || undefined} className="flex flex-1 flex-col">
+            {children}
+          </div>
+          <CompareTray />
+          <SiteFooter display={root?.pricing?.display ?? null} />
+        </PricingProvider>
         <ScrollRestoration />
         <Scripts />
       </body>
     </html>
   );
+}
+
+// The market's filters move only its URL (the panel fetches its own results): who is signed in and the
+// notice do not change with them, so the root's loader is not asked again.
+export function shouldRevalidate({ currentUrl, nextUrl, formMethod, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
+  if (!formMethod && currentUrl.pathname === "/market" && nextUrl.pathname === "/market") return false;
+  return defaultShouldRevalidate;
 }
 
 export default function App() {

@@ -36,7 +36,7 @@ export default [
   route("api/v1/captures/:id", "routes/api.v1.captures.$id.ts"),
   // Bench-sheet check (open to anyone)
   route("api/v1/bench-sheets/check", "routes/api.v1.bench-sheets.check.ts"),
-  // The seller's path: your listings, a new draft, the editor's steps, and the owner's listing API
+  // The seller's path: your listings, a new draft, the editor's steps
   route("sell", "routes/sell/index.tsx"),
   route("sell/new", "routes/sell/new.tsx"),
   route("sell/:id", "routes/sell/editor.tsx", [
@@ -48,8 +48,13 @@ export default [
     route("bench", "routes/sell/bench.tsx"),
     route("review", "routes/sell/review.tsx"),
   ]),
+  // Search: the market's listings API; /:id is the owner's editor API and everyone else's public view
+  route("api/v1/listings", "routes/api.v1.listings.ts"),
   route("api/v1/listings/:id", "routes/api.v1.listings.$id.ts"),
   // Listing photos (seller only)
   route("api/v1/listings/:id/photos", "routes/api.v1.listings.$id.photos.ts"),
   route("api/v1/listings/:id/photos/:photoId", "routes/api.v1.listings.$id.photos.$photoId.ts"),
+  // Currencies: the admin's exchange rates, the buyer's display currency (a cookie)
+  route("admin/rates", "routes/admin/rates.tsx"),
+  route("currency", "routes/currency.tsx"),
 ] satisfies RouteConfig;

@@ -179,33 +179,8 @@ export function formatEra(from: number | null | undefined, to: number | null | u
   return `${a}–${sameCentury ? String(b).slice(2) : b}`;
 }
 
-// Building an Intl.NumberFormat costs far more than formatting with one, and a list page formats a
-// price per card: keep one per locale, currency and style.
-const priceFormats = new Map<string, Intl.NumberFormat>();
-function priceFormat(locale: string, currency: string, fractionDigits?: [number, number]): Intl.NumberFormat {
-  const key = `${locale}|${currency}|${fractionDigits?.join(",") ?? ""}`;
-  let fmt = priceFormats.get(key);
-  if (!fmt) {
-    fmt = new Intl.NumberFormat(locale, {
-      style: "currency",
-      currency,
-      ...(fractionDigits ? { minimumFractionDigits: fractionDigits[0], maximumFractionDigits: fractionDigits[1] } : {}),
-    });
-    if (priceFormats.size > 200) priceFormats.clear();
-    priceFormats.set(key, fmt);
-  }
-  return fmt;
-}
-
-/** Integer minor units to a display price, respecting the currency's own decimals (JPY has none). */
-export function formatPrice(minorUnits: number, currency: string, opts: { locale?: string } = {}): string {
-  const locale = opts.locale ?? "en-GB";
-  const digits = priceFormat(locale, currency).resolvedOptions().maximumFractionDigits ?? 2;
-  const major = minorUnits / 10 ** digits;
-  // Whole prices read calmer without ".00".
-  const whole = Number.isInteger(major);
-  return priceFormat(locale, currency, [whole ? 0 : digits, digits]).format(major);
-}
+// Prices are formatted in shared/money.ts, which stays free of zod (see there).
+export { formatPrice } from "./money";
 
 /** Grams to "14.2 kg" or "850 g". */
 export function formatWeight(grams: number): string {

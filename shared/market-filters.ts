@@ -11,6 +11,7 @@ import {
 } from "./catalogue";
 import { CURRENCY_CODES, isCurrency, parsePrice, priceInputValue, type Currency } from "./listing-input";
 import { isOneOf } from "./one-of";
+import { textProblem } from "./text";
 import { MEASURED_FILTERS, MEASURED_FILTER_BY_PARAM, measuredParam, parseMeasured, type MeasuredFilterKey } from "./measured-filters";
 
 // The market's whole state as URL parameters: the page's URL, the API's query string and a stored spec
@@ -102,12 +103,12 @@ export interface FilterCounts {
   measured: Record<MeasuredFilterKey, number>;
 }
 
-/** GET /api/v1/listings. `counts` comes with the first page (no cursor); later pages repeat null. */
+/** GET /api/v1/listings: one page, the number of units matching, the next page's cursor (null at the end) and the counts. */
 export interface ListingsPage {
   items: ListingSummary[];
   total: number;
   nextCursor: string | null;
-  counts: FilterCounts | null;
+  counts: FilterCounts;
 }
 
 type Params = URLSearchParams | Record<string, string | string[] | undefined>;
@@ -166,9 +167,11 @@ export function parseMarketFilters(
   }
   const f: MarketFilters = { ...DEFAULT_FILTERS, measured: {}, condition: [], service: [] };
 
-  const q = one("q")?.replace(/\s+/g, " ");
+  const q = one("q")?.normalize("NFC").replace(/\s+/g, " ");
   if (q) {
-    if (q.length > MAX_QUERY_LENGTH) issue("q", `Search for at most ${MAX_QUERY_LENGTH} characters.`);
+    const problem = textProblem(q, "name", "The search");
+    if (problem) issue("q", problem);
+    else if (q.length > MAX_QUERY_LENGTH) issue("q", `Search for at most ${MAX_QUERY_LENGTH} characters.`);
     else if (!/[\p{L}\p{N}]/u.test(q)) issue("q", "Type a word or a model number to search for.");
     else f.q = q;
   }

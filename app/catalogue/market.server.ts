@@ -1,28 +1,22 @@
-import { Op, QueryTypes, type WhereOptions } from "sequelize";
-import { z } from "zod";
+import { Op, QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { Listing, Workshop } from "~/models/index.server";
-import { CATEGORIES, categoryFromSlug, type Category } from "@shared/catalogue";
+import { CATEGORIES, type Category } from "@shared/catalogue";
+import { parseMarketFilters, type FilterCounts, type FilterIssue, type MarketFilters } from "@shared/market-filters";
+import { searchListings } from "./search.server";
 import { summaryAttributes, summaryInclude, toSummaries } from "./summaries.server";
 import type { ListingSummary } from "./types";
 
 export const MARKET_PAGE_SIZE = 24;
 
-/** The market's URL parameters: `?category=turntables&page=2`. Unknown values fall back, never error. */
-export const MarketSearchSchema = z.object({
-  category: z
-    .string()
-    .optional()
-    .transform((s) => categoryFromSlug(s)),
-  page: z.coerce.number().int().min(1).max(10_000).catch(1).default(1),
-});
-export type MarketSearch = z.infer<typeof MarketSearchSchema>;
+/** The market's URL, read leniently: a bad value is dropped and its message kept for the field it belongs to. */
+export interface MarketSearch {
+  filters: MarketFilters;
+  issues: FilterIssue[];
+}
 
 export function parseMarketSearch(url: URL): MarketSearch {
-  return MarketSearchSchema.parse({
-    category: url.searchParams.get("category") ?? undefined,
-    page: url.searchParams.get("page") ?? undefined,
-  });
+  return parseMarketFilters(url.searchParams, { strict: false });
 }
 
 export interface MarketPage {
@@ -32,7 +26,11 @@ export interface MarketPage {
   pageCount: number;
   pageSize: number;
   category: Category | null;
+  /** Units per category, the other filters as set. */
   counts: CategoryCount[];
+  filters: MarketFilters;
+  issues: FilterIssue[];
+  filterCounts: FilterCounts;
 }
 
 export interface CategoryCount {
@@ -40,26 +38,27 @@ export interface CategoryCount {
   live: number;
 }
 
-/** Live listings, newest first, optionally in one category. Only `live` is ever shown in the market. */
-export async function marketPage(search: MarketSearch, pageSize = MARKET_PAGE_SIZE): Promise<MarketPage> {
-  const where: WhereOptions = { status: "live", ...(search.category ? { category: search.category } : {}) };
-  // The category counts give the total too: one query fewer per page.
-  const counts = await liveCountsByCategory();
-  const total = counts.reduce((n, c) => (!search.category || c.category === search.category ? n + c.live : n), 0);
-  const pageCount = Math.max(1, Math.ceil(total / pageSize));
-  const page = Math.min(search.page, pageCount);
-  const rows = await Listing.findAll({
-    where,
-    attributes: [...summaryAttributes],
-    include: summaryInclude,
-    order: [
-      ["publishedAt", "DESC"],
-      ["id", "DESC"],
-    ],
-    limit: pageSize,
-    offset: (page - 1) * pageSize,
-  });
-  return { items: await toSummaries(rows), total, page, pageCount, pageSize, category: search.category, counts };
+/** The market page: the first page of the search (by page number, for visitors without JavaScript and for crawlers). */
+export async function marketPage({ filters, issues }: MarketSearch, pageSize = MARKET_PAGE_SIZE): Promise<MarketPage> {
+  let result = await searchListings(filters, { page: filters.page, limit: pageSize });
+  const pageCount = Math.max(1, Math.ceil(result.total / pageSize));
+  const page = Math.min(filters.page, pageCount);
+  // A page number past the end (an old link) shows the last page.
+  if (page !== filters.page) result = await searchListings(filters, { page, limit: pageSize });
+  const filterCounts = result.counts;
+  const counts = CATEGORIES.map((category) => ({ category, live: filterCounts.category[category] }));
+  return {
+    items: result.items,
+    total: result.total,
+    page,
+    pageCount,
+    pageSize,
+    category: filters.category,
+    counts,
+    filters,
+    issues,
+    filterCounts,
+  };
 }
 
 /** How many live listings each category has (every category, zero included), in catalogue order. */

@@ -1,10 +1,11 @@
 import type { ReactNode } from "react";
 import { Link } from "react-router";
-import { CATEGORY_LABELS, COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice } from "@shared/catalogue";
+import { CATEGORY_LABELS, COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT } from "@shared/catalogue";
 import type { ListingSummary } from "~/catalogue/types";
 import { CompareToggle } from "~/compare/ui/CompareToggle";
 import { BenchVerifiedMark } from "./BenchVerifiedMark";
 import { Figure } from "./Figure";
+import { Price } from "./Price";
 import { cx } from "./cx";
 
 /**
@@ -87,7 +88,7 @@ export function ListingCard({
             </p>
           </div>
           <div className="shrink-0 text-right">
-            <p className="figures text-lg font-semibold text-ink">{formatPrice(l.priceMinor, l.currency)}</p>
+            <Price minor={l.priceMinor} currency={l.currency} layout="stacked" className="text-lg font-semibold text-ink" />
             {l.offersWelcome ? <p className="text-xs text-brass-ink">Offers welcome</p> : null}
           </div>
         </div>

@@ -1,6 +1,7 @@
 import { Form, Link, NavLink } from "react-router";
 import { holdsRole, type Role } from "~/auth/roles";
 import { buttonClass } from "./Button";
+import { CurrencyPicker } from "./CurrencyPicker";
 import { Wordmark } from "./Wordmark";
 import { cx } from "./cx";
 
@@ -122,7 +123,7 @@ function AccountMenu({ user }: { user: HeaderUser }) {
   );
 }
 
-export function SiteFooter() {
+export function SiteFooter({ display = null }: { display?: string | null }) {
   return (
     <footer className="mt-16 border-t border-rule bg-sunk/60">
       <div className="mx-auto grid max-w-6xl gap-6 px-4 py-8 text-sm text-ink-soft sm:grid-cols-[1.2fr_1fr] sm:px-6">
@@ -144,6 +145,7 @@ export function SiteFooter() {
               Browse the market
             </Link>
           </p>
+          {display ? <CurrencyPicker display={display} /> : null}
         </div>
       </div>
     </footer>

@@ -27,6 +27,11 @@ for (const pair of NEIGHBOUR_PAIRS) {
   }
 }
 
+/** The countries in a country's "nearby" shipping zone. */
+export function neighboursOf(country: string): string[] {
+  return [...(NEIGHBOURS.get(country.toUpperCase()) ?? [])];
+}
+
 export function areNeighbours(a: string, b: string): boolean {
   return NEIGHBOURS.get(a.toUpperCase())?.has(b.toUpperCase()) ?? false;
 }

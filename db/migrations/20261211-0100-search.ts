@@ -7,7 +7,7 @@ import { listingFacets, type ListingFacets } from "../../shared/listing-facets";
 // euros for filtering and sorting across currencies, and the indexes the market's filters and sorts use.
 // Facets are the bench's measured readings only (shared/listing-facets.ts), recomputed here for every
 // listing with a sheet. Rates are the admin's (`currency_rates`); triggers keep `price_eur_minor` in
-// step with them (docs/decisions/0007). All market indexes are partial on live rows.
+// step with them (docs/decisions/0011). All market indexes are partial on live rows.
 
 const sql = String.raw;
 

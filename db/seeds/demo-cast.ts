@@ -142,8 +142,10 @@ export interface DemoUnit {
   maker: string;
   model: string;
   years: [number, number];
-  /** Whole pounds. */
+  /** Whole units of `currency`. */
   price: number;
+  /** GBP unless given (the demo sellers are in Britain; some price in euros). */
+  currency?: "GBP" | "EUR";
   offers?: boolean;
   grade: CosmeticGrade;
   service: ServiceState;

@@ -1,5 +1,6 @@
 import type { DemoUnit } from "./demo-cast";
 import { MORE_DEMO_UNITS } from "./demo-data-more";
+import { SEARCH_DEMO_UNITS } from "./demo-data-search";
 import { ampRecap, belts, corrowmere, keswater, pennick, refoam, SWITCH, tapeService, UK, who } from "./demo-logs";
 import { amplifierSheet, loudspeakerSheet, phonoSheet, preamplifierSheet, tapeSheet, turntableSheet } from "./demo-sheets";
 
@@ -375,4 +376,5 @@ export const DEMO_UNITS: DemoUnit[] = [
 
   // The scenario's second batch, kept in its own file.
   ...MORE_DEMO_UNITS,
+  ...SEARCH_DEMO_UNITS,
 ];

@@ -187,6 +187,8 @@ export interface PhonoFigures {
   wobbleDb: number;
   /** No sweep: the sheet stays short of the mark. */
   noSweep?: boolean;
+  /** Output noise, A-weighted, input shorted, µV. */
+  noiseUv?: number;
 }
 
 export function phonoSheet(who: Who, f: PhonoFigures): BenchSheet {
@@ -205,6 +207,9 @@ export function phonoSheet(who: Who, f: PhonoFigures): BenchSheet {
     r("thd", f.thdPct * PCT, "%", { channel: "left", conditions: { voltageV: 1, frequencyHz: 1000 } }),
     r("channel_balance", 0.15, "dB", { conditions: { frequencyHz: 1000 } }),
   ];
+  if (f.noiseUv !== undefined) {
+    readings.push(r("noise", f.noiseUv * 1e-6, "µV", { channel: "left", conditions: { weighting: "A" }, note: "Input shorted." }));
+  }
   const sheet: BenchSheet = { ...head("phono_stage", who), channelCount: 2, readings };
   if (!f.noSweep) sheet.sweeps = [{ kind: "riaa", channel: "left", origin: "typed", conditions: {}, points }];
   return sheet;

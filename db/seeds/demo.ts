@@ -245,7 +245,7 @@ async function ensureListing(
       includesRemote: unit.includes?.includes("remote") ?? false,
       includesOriginalPacking: unit.includes?.includes("packing") ?? false,
       priceMinor: unit.price * 100,
-      currency: "GBP",
+      currency: unit.currency ?? "GBP",
       offersWelcome: unit.offers ?? false,
       country: "GB",
       region: place.region,

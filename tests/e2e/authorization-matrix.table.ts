@@ -64,6 +64,25 @@ export const MATRIX: Record<string, Entry> = {
   },
   "/desk": { cases: [{ get: desk }] },
 
+  // Currencies: the rate table is the admin's alone (moderators included in the 403s); anyone may
+  // choose the currency approximate prices are shown in.
+  "/admin/rates": {
+    cases: [
+      {
+        get: { anonymous: "sign-in", admin: "ok", others: 403 },
+        post: { body: form({ "rate.GBP": "not a rate" }), expect: { anonymous: "sign-in", admin: 400, others: 403 } },
+      },
+    ],
+  },
+  "/currency": {
+    cases: [
+      {
+        get: everyone({ to: "/" }),
+        writes: { POST: { body: form({ currency: "GBP", returnTo: "/market" }), expect: everyone({ to: "/market" }) } },
+      },
+    ],
+  },
+
   // The public listing page: live for everyone; held for its seller and the desk; a draft for its seller only.
   "/listings/:id": {
     cases: [
@@ -172,9 +191,16 @@ export const MATRIX: Record<string, Entry> = {
         get: apiOwnerOnly(),
         writes: { PATCH: { body: () => ({ json: { condition: { conditionNote: "Matrix probe." } } }), expect: apiOwnerOnly() } },
       },
-      // The owner's view carries the serial number: a live listing's is still the owner's alone.
-      { name: "live", params: (f) => ({ id: f.live.id }), get: apiOwnerOnly() },
+      // A live unit: its owner gets the editor's view (serial number included), everyone else the public view.
+      { name: "live", params: (f) => ({ id: f.live.id }), get: everyone("ok") },
+      // Held: the owner's; anyone else signed in gets 404, as for an id that does not exist.
+      { name: "held", params: (f) => ({ id: f.held.id }), get: apiOwnerOnly() },
+      { name: "no such listing", params: () => ({ id: randomUUID() }), get: apiSignedIn(404) },
     ],
+  },
+  // Search: the market's listings for anyone. Read-only: writes get apiRoute's 405.
+  "/api/v1/listings": {
+    cases: [{ get: everyone("ok"), writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } } }],
   },
   // Watching: any account, for what it may see. The seller's own unit and a unit that is not for sale
   // are refused with 409; someone else's draft or held unit is a 404, as for one that does not exist.

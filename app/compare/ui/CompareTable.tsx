@@ -1,6 +1,7 @@
 import { useId } from "react";
 import { Form, Link } from "react-router";
 import { COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice } from "@shared/catalogue";
+import { ApproxPrice } from "~/components/Price";
 import { BenchVerifiedMark } from "~/components/BenchVerifiedMark";
 import { cx } from "~/components/cx";
 import { BETTER_WORDS } from "../rows";
@@ -171,6 +172,7 @@ function Price({ unit: u }: { unit: ComparedUnit }) {
   return (
     <>
       <span className="figures text-base font-semibold text-ink">{formatPrice(u.priceMinor, u.currency)}</span>
+      <ApproxPrice minor={u.priceMinor} currency={u.currency} className="figures block text-xs" />
       {u.status === "sold" ? <span className="block text-xs text-ink-faint">Sold at this price</span> : null}
       {u.offersWelcome && u.status === "live" ? <span className="block text-xs text-brass-ink">Offers welcome</span> : null}
     </>

@@ -1,6 +1,7 @@
 import { Badge } from "~/components/Badge";
 import { BenchVerifiedMark } from "~/components/BenchVerifiedMark";
 import { ButtonLink } from "~/components/Button";
+import { Price } from "~/components/Price";
 import { EyeIcon, WatchButton } from "~/components/WatchButton";
 import type { ListingHead, ViewerState } from "../types";
 
@@ -87,11 +88,15 @@ export function PriceAndCondition({ listing }: { listing: ListingHead }) {
   const { cosmetic, service, note } = listing.condition;
   return (
     <div className="space-y-4">
-      {listing.priceText ? (
+      {listing.priceMinor !== null ? (
         <div className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
-          <p className="figures text-[1.875rem] font-semibold leading-none text-ink" data-testid="price">
-            {listing.priceText}
-          </p>
+          <Price
+            testId="price"
+            minor={listing.priceMinor}
+            currency={listing.currency}
+            className="text-[1.875rem] font-semibold leading-none text-ink"
+            approxClassName="text-lg font-medium"
+          />
           {listing.offersWelcome ? <Badge tone="brass">Offers welcome</Badge> : null}
         </div>
       ) : null}

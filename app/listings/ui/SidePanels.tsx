@@ -2,6 +2,7 @@ import { useState } from "react";
 import { Form } from "react-router";
 import { Badge } from "~/components/Badge";
 import { Card } from "~/components/Card";
+import { ApproxPrice } from "~/components/Price";
 import { TWO_PERSON_LIFT_G, type ShippingZone } from "@shared/catalogue";
 import type { ListingHead, SellerCard as Seller, ShippingView } from "../types";
 import { parseZone } from "../zones";
@@ -47,7 +48,7 @@ export function SellerCard({ seller }: { seller: Seller }) {
   );
 }
 
-export function ShippingPanel({ shipping }: { shipping: ShippingView }) {
+export function ShippingPanel({ shipping, currency }: { shipping: ShippingView; currency: string }) {
   const [zone, setZone] = useState<ShippingZone>(shipping.zone);
   const label = shipping.zones.find((z) => z.zone === zone)?.label ?? zone;
   return (
@@ -103,7 +104,10 @@ export function ShippingPanel({ shipping }: { shipping: ShippingView }) {
                   {o.method === "collection" ? (
                     <span className="text-ink">No charge</span>
                   ) : price ? (
-                    <span className="text-ink">{price.text}</span>
+                    <>
+                      <span className="text-ink">{price.text}</span>
+                      <ApproxPrice minor={price.minor} currency={currency} className="block text-xs" />
+                    </>
                   ) : (
                     <span className="font-sans text-xs text-ink-faint">not to this zone</span>
                   )}

@@ -3,6 +3,7 @@ import type { Route } from "./+types/users";
 import { Badge } from "~/components/Badge";
 import { Button } from "~/components/Button";
 import { controlClass, FormError } from "~/components/Field";
+import { AdminNav } from "~/components/AdminNav";
 import { PageHeader } from "~/components/PageHeader";
 import { Pagination } from "~/components/Pagination";
 import { Notice } from "~/auth/AuthPanel";
@@ -57,6 +58,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
         overline="Admin"
         title="Accounts"
         lede={`${total} account${total === 1 ? "" : "s"}. Every account is a buyer; grant the other roles here.`}
+        actions={<AdminNav />}
       />
       <Form method="get" className="flex max-w-md gap-2" role="search">
         <label htmlFor="account-search" className="sr-only">

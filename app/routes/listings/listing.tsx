@@ -98,7 +98,7 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
       <div className="grid gap-10 lg:grid-cols-12">
         <aside className="space-y-5 lg:col-span-4 lg:col-start-9 lg:row-start-1" aria-label="Seller and delivery">
           <SellerCard seller={seller} />
-          <ShippingPanel shipping={shipping} />
+          <ShippingPanel shipping={shipping} currency={listing.currency} />
           <SafetyCautions listing={listing} />
         </aside>
         <div className="min-w-0 space-y-12 lg:col-span-8 lg:row-start-1">
