@@ -2,7 +2,8 @@
 // served app, the server's own time (its Server-Timing header) and the wall time, against the very
 // same SQL (`searchQuery`) run directly; and each query's plan, to show which indexes carry it.
 import pg from "pg";
-import { parseMarketFilters, type MarketFilters } from "@shared/market-filters";
+import { countsQuery, DEFAULT_LIMIT, searchQuery } from "~/catalogue/search.server";
+import { parseMarketFilters } from "@shared/market-filters";
 import { ms, pct, type Figure, type ServedApp } from "./served-app";
 
 export const SEARCH_CASES: { name: string; params: Record<string, string> }[] = [
@@ -34,20 +35,11 @@ const RUNS = 60;
 const SLOW_RUNS = 30;
 const WARM_UP = 5;
 
-type Sql = { sql: string; bind: unknown[] };
-/** What the bench runs from app/catalogue/search.server.ts (the search slice's; named by a variable until it is on every branch). */
-interface SearchSql {
-  searchQuery(filters: MarketFilters, opts: { cursor: null; limit: number }): Sql;
-  countsQuery(filters: MarketFilters): Sql;
-  DEFAULT_LIMIT: number;
-}
-const SEARCH_MODULE = "../../app/catalogue/search.server";
-
 /** The SQL the API runs for a query string: the page (searchQuery, at the API's page size) and the counts. */
-function sqlOf(search: SearchSql, params: URLSearchParams) {
+function sqlOf(params: URLSearchParams) {
   const { filters, issues } = parseMarketFilters(params, { strict: true });
   if (issues.length) throw new Error(`the bench's own filters do not parse: ${JSON.stringify(issues)}`);
-  return { page: search.searchQuery(filters, { cursor: null, limit: search.DEFAULT_LIMIT }), counts: search.countsQuery(filters) };
+  return { page: searchQuery(filters, { cursor: null, limit: DEFAULT_LIMIT }), counts: countsQuery(filters) };
 }
 
 async function explain(db: pg.Client, q: { sql: string; bind: unknown[] }): Promise<string> {
@@ -102,13 +94,6 @@ const apiFigure = (what: string, api: ApiTimes): Figure => ({
 
 export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]; notes: string[] }> {
   const figures: Figure[] = [];
-  const search = (await import(SEARCH_MODULE).catch(() => ({}))) as Partial<SearchSql>;
-  if (!search.searchQuery || !search.countsQuery || !search.DEFAULT_LIMIT)
-    return {
-      figures,
-      notes: ["search figures skipped: searchQuery and countsQuery (app/catalogue/search.server.ts) are not on this branch"],
-    };
-  const sql = { searchQuery: search.searchQuery, countsQuery: search.countsQuery, DEFAULT_LIMIT: search.DEFAULT_LIMIT };
   const db = new pg.Client({ connectionString: app.databaseUrl });
   await db.connect();
   try {
@@ -120,7 +105,7 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
       // has moved since the last search like theirs (the epoch moved before each call), then kept.
       const fresh = await timedApi(url, SLOW_RUNS, () => db.query(`SELECT nextval('market_epoch')`));
       const kept = await timedApi(url, RUNS);
-      const q = sqlOf(sql, params);
+      const q = sqlOf(params);
       const page = await timedSql(db, q.page, RUNS);
       const counts = await timedSql(db, q.counts, SLOW_RUNS);
       const pagePlan = await explain(db, q.page);
