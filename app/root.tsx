@@ -23,13 +23,7 @@ import { pricingFor } from "~/currencies/display.server";
 import { readCompareList } from "~/compare/compare-list.server";
 import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
-import "@fontsource/source-serif-4/400.css";
-import "@fontsource/source-serif-4/600.css";
-import "@fontsource/inter/400.css";
-import "@fontsource/inter/500.css";
-import "@fontsource/inter/600.css";
-import "@fontsource/jetbrains-mono/400.css";
-import "@fontsource/jetbrains-mono/500.css";
+import "./fonts.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {

@@ -2,15 +2,8 @@
 // server) and readers that turn the HTML form's text into that shape with a message per field.
 // Isomorphic: the editor checks as the seller types; the server is the authority.
 import { z } from "zod";
-import {
-  CATEGORIES,
-  COSMETIC_GRADES,
-  SERVICE_STATES,
-  SHIPPING_ZONES,
-  ShippingOptionsSchema,
-  type ShippingOption,
-  type ShippingZone,
-} from "./catalogue";
+import { CATEGORIES, COSMETIC_GRADES, SERVICE_STATES, SHIPPING_ZONES, type ShippingZone } from "./catalogue";
+import { ShippingOptionsSchema, type ShippingOption } from "./catalogue-schemas";
 import {
   CURRENCY_CODES,
   eraInputValue,
@@ -26,7 +19,8 @@ import {
   type Currency,
 } from "./listing-input";
 import { COUNTRY_CODES } from "./countries";
-import { freeText, nameText, type TextKind } from "./text";
+import { freeText, nameText } from "./text";
+import type { TextKind } from "./text-rules";
 
 export const EDITOR_STEPS = [
   { id: "item", label: "Item" },

@@ -11,7 +11,7 @@ import {
 } from "./catalogue";
 import { CURRENCY_CODES, isCurrency, parsePrice, priceInputValue, type Currency } from "./listing-input";
 import { isOneOf } from "./one-of";
-import { textProblem } from "./text";
+import { textProblem } from "./text-rules";
 import { MEASURED_FILTERS, MEASURED_FILTER_BY_PARAM, measuredParam, parseMeasured, type MeasuredFilterKey } from "./measured-filters";
 
 // The market's whole state as URL parameters: the page's URL, the API's query string and a stored spec

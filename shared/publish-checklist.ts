@@ -1,5 +1,6 @@
 // What a listing needs before it can go on the market. The review step shows it; the server enforces it.
-import { type ShippingOption, type CosmeticGrade, type ServiceState } from "./catalogue";
+import { type CosmeticGrade, type ServiceState } from "./catalogue";
+import type { ShippingOption } from "./catalogue-schemas";
 import type { EditorStep } from "./listing-draft";
 
 export type ChecklistInput = {

@@ -1,7 +1,7 @@
 // One restoration log entry as stored, and the form that writes it: the date, the work, the parts with
 // quantities, who did it, and readings before and after (each a value with its unit and how it was taken).
 import { z } from "zod";
-import { RestorationPartSchema, RestorationReadingSchema, type RestorationPart, type RestorationReading } from "./catalogue";
+import { RestorationPartSchema, RestorationReadingSchema, type RestorationPart, type RestorationReading } from "./catalogue-schemas";
 import { freeText, nameText } from "./text";
 import { issuesToFields, type FieldErrors, type FormLike } from "./listing-draft";
 

@@ -1,4 +1,3 @@
-import { z } from "zod";
 import { UUID_PATTERN } from "@shared/ids";
 
 // Which units a buyer compares: at most four listing ids, in the order they were chosen. The page
@@ -8,8 +7,6 @@ export const MAX_COMPARED = 4;
 
 /** What `?ids=` may hold before it is read at all: four ids and their commas, with room for spaces. */
 const MAX_IDS_TEXT = 400;
-
-const idEntry = z.string().regex(UUID_PATTERN, "is not a listing id");
 
 /** `first`: when there are too many, the first four, for a link that compares those. */
 export type CompareIds = { ok: true; ids: string[] } | { ok: false; message: string; first?: string[] };
@@ -22,7 +19,9 @@ export function parseCompareIds(values: readonly string[]): CompareIds {
     .split(",")
     .map((s) => s.trim())
     .filter(Boolean);
-  const bad = entries.filter((e) => !idEntry.safeParse(e).success);
+  // The id rule itself, not a zod schema: the compare toggle on every card imports this module, and a
+  // schema built at load time would bring zod to every public page.
+  const bad = entries.filter((e) => !UUID_PATTERN.test(e));
   if (bad.length) {
     const shown = bad.slice(0, 3).map((b) => `“${b.length > 40 ? `${b.slice(0, 40)}…` : b}”`);
     const more = bad.length > 3 ? ` and ${bad.length - 3} more` : "";

@@ -18,12 +18,15 @@ export function ListingCard({
   href,
   className,
   action,
+  priority = false,
 }: {
   listing: ListingSummary;
   href: string;
   className?: string;
   /** A control over the photo's corner (the watch button), above the card's link. */
   action?: ReactNode;
+  /** The first card of a list: its photo is the page's largest paint, so it loads at once, first. */
+  priority?: boolean;
 }) {
   const l = listing;
   return (
@@ -42,7 +45,8 @@ export function ListingCard({
             alt=""
             width={l.cover.width}
             height={l.cover.height}
-            loading="lazy"
+            loading={priority ? "eager" : "lazy"}
+            fetchPriority={priority ? "high" : undefined}
             decoding="async"
             className="size-full object-cover"
           />

@@ -51,7 +51,7 @@ export interface PolicyOptions {
 
 /**
  * The document policy: scripts only from this site or inline with this response's nonce; no
- * plugins, no <base>, no framing. Style attributes are allowed (React and the charts set them);
+ * plugins, no <base>, no framing. Style attributes are allowed (React and the plots set them);
  * style elements only from this site (CSP3 browsers; older ones fall back to style-src).
  */
 export function contentSecurityPolicy({ nonce, formTargets = [], https = false, dev = false }: PolicyOptions): string {

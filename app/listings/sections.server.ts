@@ -4,9 +4,9 @@ import {
   SHIPPING_ZONE_LABELS,
   TWO_PERSON_LIFT_G,
   formatPrice,
-  type RestorationReading,
   type ShippingZone,
 } from "@shared/catalogue";
+import type { RestorationReading } from "@shared/catalogue-schemas";
 import type { Listing, RestorationEntry, User, Workshop } from "~/models/index.server";
 import type { RestorationEntryView, SellerCard, ShippingView } from "./types";
 

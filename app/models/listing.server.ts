@@ -1,13 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute } from "sequelize";
 import { sequelize } from "~/db.server";
-import {
-  ShippingOptionsSchema,
-  type Category,
-  type CosmeticGrade,
-  type ListingStatus,
-  type ServiceState,
-  type ShippingOption,
-} from "@shared/catalogue";
+import { type Category, type CosmeticGrade, type ListingStatus, type ServiceState } from "@shared/catalogue";
+import { ShippingOptionsSchema, type ShippingOption } from "@shared/catalogue-schemas";
 import type { BenchSheet } from "./bench-sheet.server";
 import { jsonColumn } from "./json-column.server";
 import type { ListingPhoto } from "./listing-photo.server";

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
-import { RestorationPartSchema, RestorationReadingSchema, type RestorationPart, type RestorationReading } from "@shared/catalogue";
+import { RestorationPartSchema, RestorationReadingSchema, type RestorationPart, type RestorationReading } from "@shared/catalogue-schemas";
 import { z } from "zod";
 import { jsonColumn } from "./json-column.server";
 

@@ -1,5 +1,6 @@
 import type { BenchSheet } from "@shared/bench/schema";
-import type { Category, CosmeticGrade, RestorationPart, RestorationReading, ServiceState } from "@shared/catalogue";
+import type { Category, CosmeticGrade, ServiceState } from "@shared/catalogue";
+import type { RestorationPart, RestorationReading } from "@shared/catalogue-schemas";
 import type { Role } from "~/auth/roles";
 
 // The demo scenario's people, workshops and places, and the shape of a demo unit. All invented.

@@ -6,7 +6,7 @@ import { deleteObjects, putObject, randomKey } from "~/services/storage.server";
 import { photoKeyPrefix } from "~/catalogue/media-url";
 import { checkBenchSheet } from "@shared/bench/verdict";
 import { benchSheetSchema } from "@shared/bench/schema";
-import { ShippingOptionsSchema, type ShippingOption } from "@shared/catalogue";
+import { ShippingOptionsSchema, type ShippingOption } from "@shared/catalogue-schemas";
 import { listingFacets, publishState } from "@shared/listing-facets";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES, type AccountKey, type DemoUnit } from "./demo-data";
 import { drawDemoPhotos } from "./demo-photo-files";

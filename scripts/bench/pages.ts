@@ -78,6 +78,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
         }
         return measurePages(app.base);
       });
-  for (const f of figures) console.log(`${f.label}: ${f.value} ${f.unit}${f.limit ? ` (limit < ${f.limit} ${f.unit})` : ""}`);
+  for (const f of figures)
+    console.log(`${f.label}: ${f.value} ${f.unit}${f.limit ? ` (${f.atLeast ? "at least" : "limit <"} ${f.limit} ${f.unit})` : ""}`);
   process.exit(0);
 }

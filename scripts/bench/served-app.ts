@@ -5,7 +5,8 @@ import fs from "node:fs";
 import path from "node:path";
 import { bin, bringUp, finished, launch, profile, root, stopChild, waitForHttp } from "../stack";
 
-export type Figure = { label: string; value: number; unit: string; limit?: number };
+// A limit is a ceiling (the value must stay under it), or with atLeast a floor (Lighthouse scores).
+export type Figure = { label: string; value: number; unit: string; limit?: number; atLeast?: boolean };
 
 export interface ServedApp {
   base: string;

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { launchBrowser, newContext, screenshot } from "./support/browser";
+import { baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
 import { DEMO, DEMO_PASSWORD, submitSignIn } from "./support/accounts";
 
 // A buyer finds the seeded, bench-verified Carrowain WQ 46i in the market and reads its page: the mark,
@@ -37,17 +37,12 @@ describe("the listing page", () => {
     expect(await page.locator('[data-figure="power4"]').textContent()).toMatch(/96\s*W\s*into 4 Ω/);
     expect(await page.locator('[data-figure="distortion"]').textContent()).toMatch(/\d\.\d+\s*%.*at 60 W/);
 
-    // Plots: drawn in the browser as SVG, with labelled axes.
-    await page.locator(".chart svg.recharts-surface").first().waitFor();
-    expect(await page.locator(".chart svg.recharts-surface").count()).toBeGreaterThanOrEqual(3);
-    expect(
-      await page
-        .getByRole("figure", { name: /Harmonic spectrum/ })
-        .locator("svg")
-        .first()
-        .isVisible(),
-    ).toBe(true);
-    expect(await page.getByText("dB re fundamental").first().isVisible()).toBe(true);
+    // Plots: SVG drawn on the server (there before any script runs), named, with labelled axes.
+    expect(await page.locator('[role="img"]:has(svg [data-series])').count()).toBeGreaterThanOrEqual(3);
+    const spectrum = page.getByRole("img", { name: /Harmonic spectrum/ });
+    expect(await spectrum.locator("svg").first().isVisible()).toBe(true);
+    expect(await spectrum.locator("svg rect[data-series]").count()).toBeGreaterThan(0);
+    expect(await page.getByText("Level re fundamental (dB)").first().isVisible()).toBe(true);
     expect(await page.getByText("Frequency (Hz)").first().isVisible()).toBe(true);
 
     // Photos come from the media route, which streams them from object storage.
@@ -79,6 +74,29 @@ describe("the listing page", () => {
     expect(await page.evaluate(() => document.activeElement?.tagName === "A" && document.activeElement.textContent?.trim())).toMatch(
       /^Zoom/,
     );
+    await context.close();
+  });
+
+  it("draws its plots on the server, and loads no chart library", async () => {
+    // With script off, the plots are there as sent: spectrum, square wave and response, each an SVG.
+    const bare = await browser.newContext({ baseURL: baseUrl(), javaScriptEnabled: false });
+    const still = await bare.newPage();
+    await openDemoAmplifier(still);
+    expect(await still.locator('[role="img"]:has(svg [data-series])').count()).toBeGreaterThanOrEqual(3);
+    await bare.close();
+
+    // With script on, nothing the page loads is the chart library the plots replaced.
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    const scripts: Promise<string>[] = [];
+    page.on("response", (r) => {
+      if (r.request().resourceType() === "script") scripts.push(r.text());
+    });
+    await openDemoAmplifier(page);
+    await page.waitForLoadState("networkidle");
+    const bodies = await Promise.all(scripts);
+    expect(bodies.length).toBeGreaterThan(0);
+    expect(bodies.filter((b) => b.includes("recharts"))).toEqual([]);
     await context.close();
   });
 

@@ -102,7 +102,7 @@ describe("security headers and the content security policy", () => {
     await settle(page);
     await page.getByRole("link", { name: "Carrowain WQ 46i" }).click();
     await page.waitForURL(/\/listings\/[0-9a-f-]{36}$/);
-    await page.locator(".chart svg.recharts-surface").first().waitFor();
+    await page.locator('[role="img"] svg path[data-series]').first().waitFor();
     await settle(page);
     // The zoom dialog loads the large photo.
     await page.getByRole("link", { name: /^Zoom/ }).click();

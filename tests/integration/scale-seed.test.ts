@@ -3,7 +3,7 @@ import pg from "pg";
 import { Listing } from "~/models/index.server";
 import { parseBenchSheet } from "@shared/bench/schema";
 import { checkBenchSheet } from "@shared/bench/verdict";
-import { ShippingOptionsSchema } from "@shared/catalogue";
+import { ShippingOptionsSchema } from "@shared/catalogue-schemas";
 import { isCurrency } from "@shared/listing-input";
 import { listingFacets } from "@shared/listing-facets";
 import { createDatabase, dropDatabase } from "../../db/cluster";

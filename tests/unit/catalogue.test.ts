@@ -5,12 +5,12 @@ import {
   CATEGORY_LABELS,
   COSMETIC_GRADE_TEXT,
   SERVICE_STATE_TEXT,
-  ShippingOptionsSchema,
   categoryFromSlug,
   formatEra,
   formatPrice,
   formatWeight,
 } from "@shared/catalogue";
+import { ShippingOptionsSchema } from "@shared/catalogue-schemas";
 import { leadFigure, listingFacets, publishState } from "@shared/listing-facets";
 import { checkBenchSheet, doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet } from "@shared/bench";
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { freeText, hasLoneSurrogate, nameText, textProblem } from "@shared/text";
+import { freeText, nameText } from "@shared/text";
+import { hasLoneSurrogate, textProblem } from "@shared/text-rules";
 import { SignUpForm } from "~/auth/forms";
 import { ItemPatchSchema, readItemForm, ConditionSchema } from "@shared/listing-draft";
 import { parseBenchSheet } from "@shared/bench/schema";

@@ -81,12 +81,13 @@ export function MarketResults({
         </p>
       ) : items.length ? (
         <ul className={cx("grid grid-cols-1 gap-5 transition-opacity sm:grid-cols-2 xl:grid-cols-3", updating && "opacity-55")}>
-          {items.map((l) => (
+          {items.map((l, i) => (
             <li key={l.id} className="flex min-w-0">
               <ListingCard
                 listing={l}
                 href={`/listings/${l.id}`}
                 className="w-full"
+                priority={i === 0}
                 action={
                   l.id in watching || (watched && signedIn) ? (
                     <WatchButton

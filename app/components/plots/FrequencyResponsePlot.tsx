@@ -133,12 +133,12 @@ export function FrequencyResponsePlot({
   );
 }
 
-export function Legend({ entries }: { entries: { id: string; label: string; style: SeriesStyle }[] }) {
+export function Legend({ entries, bars = false }: { entries: { id: string; label: string; style: SeriesStyle }[]; bars?: boolean }) {
   return (
     <ul className="flex flex-wrap gap-x-4 gap-y-1 text-[0.8125rem] text-ink-soft" aria-label="Legend">
       {entries.map((e) => (
         <li key={e.id} className="flex items-center gap-1.5">
-          <LegendSwatch style={e.style} />
+          <LegendSwatch style={e.style} bar={bars} />
           <span>{e.label}</span>
         </li>
       ))}

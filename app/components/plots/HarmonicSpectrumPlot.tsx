@@ -84,7 +84,9 @@ export function HarmonicSpectrumPlot({
       <p id={descriptionId} className="sr-only">
         {describeHarmonics(harmonics, channels)}
       </p>
-      {channels.length > 1 ? <Legend entries={channels.map((c, i) => ({ id: c.key, label: c.label, style: seriesStyle(i) }))} /> : null}
+      {channels.length > 1 ? (
+        <Legend bars entries={channels.map((c, i) => ({ id: c.key, label: c.label, style: seriesStyle(i) }))} />
+      ) : null}
     </div>
   );
 }

@@ -128,8 +128,10 @@ export function niceDomain(values: number[], minSpan: number, maxTicks = 7): { d
   // A flat trace still gets an axis: some span around its value.
   const span = Math.max(max - min, minSpan, Math.abs(mid) * 0.1, 1e-9) || 1;
   const step = niceStep(span * 1.1, maxTicks);
-  const lo = Math.floor(Math.min(min, mid - span / 2) / step) * step;
-  const hi = Math.ceil(Math.max(max, mid + span / 2) / step) * step;
+  // A trace that reaches a whole step does not run along the frame: a little air each side.
+  const air = span * 0.02;
+  const lo = Math.floor(Math.min(min - air, mid - span / 2) / step) * step;
+  const hi = Math.ceil(Math.max(max + air, mid + span / 2) / step) * step;
   return { domain: [Number(lo.toPrecision(12)), Number(hi.toPrecision(12))], step };
 }
 

@@ -21,11 +21,15 @@ export function seriesStyle(index: number): SeriesStyle {
   return SERIES_STYLES[index % SERIES_STYLES.length];
 }
 
-/** The line sample beside a legend entry, drawn as the series is. */
-export function LegendSwatch({ style }: { style: SeriesStyle }) {
+/** The sample beside a legend entry, drawn as the series is: a line, or a block for bars. */
+export function LegendSwatch({ style, bar = false }: { style: SeriesStyle; bar?: boolean }) {
   return (
     <svg width="28" height="10" viewBox="0 0 28 10" aria-hidden="true" focusable="false" className="shrink-0">
-      <path d="M1 5H27" stroke={style.stroke} strokeWidth={2} strokeDasharray={style.dash} fill="none" />
+      {bar ? (
+        <rect x="9" y="0" width="10" height="10" rx="1" fill={style.stroke} />
+      ) : (
+        <path d="M1 5H27" stroke={style.stroke} strokeWidth={2} strokeDasharray={style.dash} fill="none" />
+      )}
     </svg>
   );
 }

@@ -52,7 +52,7 @@ export function BenchSheetSection({ bench, listingVerified }: { bench: BenchView
     .filter(Boolean)
     .join(" ");
   return (
-    <section aria-labelledby="bench-heading" className="space-y-5">
+    <section aria-labelledby="bench-heading" className="below-fold space-y-5">
       <div className="space-y-2">
         <div className="flex flex-wrap items-center gap-3">
           <h2 id="bench-heading" className="text-2xl">

@@ -1,33 +1,10 @@
-import { lazy, Suspense, useSyncExternalStore, type ReactNode } from "react";
+import type { ReactNode } from "react";
 import type { PlotSet, ResponsePlot, SpectrumPlot } from "../types";
 import { CaptureTag } from "./CaptureTag";
+import { ResponseChart, SpectrumChart, SquareChart } from "./charts";
 
-// Charts load in the browser only, in their own chunk: the page's text arrives first, and the numbers
-// behind every chart are in a table beside it for readers who would rather read, or have no script.
-const Charts = {
-  Spectrum: lazy(() => import("./charts").then((m) => ({ default: m.SpectrumChart }))),
-  Response: lazy(() => import("./charts").then((m) => ({ default: m.ResponseChart }))),
-  Square: lazy(() => import("./charts").then((m) => ({ default: m.SquareChart }))),
-};
-
-const subscribe = () => () => {};
-function useHydrated(): boolean {
-  return useSyncExternalStore(
-    subscribe,
-    () => true,
-    () => false,
-  );
-}
-
-function ChartFrame({ height, children }: { height: number; children: ReactNode }) {
-  const hydrated = useHydrated();
-  const placeholder = <div style={{ height }} className="rounded-md bg-sunk/60" aria-hidden="true" />;
-  return (
-    <div className="chart" data-chart-ready={hydrated ? "true" : undefined}>
-      {hydrated ? <Suspense fallback={placeholder}>{children}</Suspense> : placeholder}
-    </div>
-  );
-}
+// The plots are SVG drawn on the server: they show before any script runs, and the numbers behind
+// each are in a table beside it for readers who would rather read.
 
 function PlotFigure({
   id,
@@ -153,7 +130,7 @@ export function Plots({ plots }: { plots: PlotSet }) {
   const count = plots.spectra.length + plots.responses.length + plots.squares.length;
   if (count === 0) return null;
   return (
-    <section aria-labelledby="plots-heading" className="space-y-4">
+    <section aria-labelledby="plots-heading" className="below-fold space-y-4">
       <div className="space-y-1">
         <h2 id="plots-heading" className="text-2xl">
           What the bench saw
@@ -163,9 +140,7 @@ export function Plots({ plots }: { plots: PlotSet }) {
       <div className="grid gap-4 xl:grid-cols-2">
         {plots.spectra.map((p) => (
           <PlotFigure key={p.id} id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<SpectrumNumbers plot={p} />}>
-            <ChartFrame height={260}>
-              <Charts.Spectrum plot={p} />
-            </ChartFrame>
+            <SpectrumChart plot={p} />
             <ul className="flex flex-wrap gap-x-5 gap-y-1 text-[0.8125rem] text-ink-soft">
               {p.channels.map((c) => (
                 <li key={c.key}>
@@ -184,9 +159,7 @@ export function Plots({ plots }: { plots: PlotSet }) {
             fromCapture
             numbers={<FigureList figures={p.figures} />}
           >
-            <ChartFrame height={240}>
-              <Charts.Square plot={p} />
-            </ChartFrame>
+            <SquareChart plot={p} />
             <FigureList figures={p.figures} />
           </PlotFigure>
         ))}
@@ -200,9 +173,7 @@ export function Plots({ plots }: { plots: PlotSet }) {
             fromCapture={p.fromCapture}
             numbers={<ResponseNumbers plot={p} />}
           >
-            <ChartFrame height={p.kind === "riaa" ? 394 : 260}>
-              <Charts.Response plot={p} />
-            </ChartFrame>
+            <ResponseChart plot={p} />
             {p.riaa ? (
               <p className="text-[0.8125rem] text-ink-soft">
                 Against {p.riaa.variant} (brass, dashed); worst deviation <span className="figures text-ink">{p.riaa.worst}</span>.

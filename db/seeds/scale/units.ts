@@ -1,5 +1,6 @@
 import type { BenchSheet } from "@shared/bench/schema";
-import type { Category, CosmeticGrade, ServiceState, ShippingOption } from "@shared/catalogue";
+import type { Category, CosmeticGrade, ServiceState } from "@shared/catalogue";
+import type { ShippingOption } from "@shared/catalogue-schemas";
 import { CURRENCIES, type Currency } from "@shared/listing-input";
 import { amplifierSheet, loudspeakerSheet, phonoSheet, preamplifierSheet, tapeSheet, turntableSheet } from "../demo-sheets";
 import { CATEGORY_SHARE, SCALE_MODELS, type ScaleModel } from "./models";

@@ -1,7 +1,7 @@
 import pg from "pg";
 import { benchSheetSchema } from "@shared/bench/schema";
 import { checkBenchSheet } from "@shared/bench/verdict";
-import { ShippingOptionsSchema } from "@shared/catalogue";
+import { ShippingOptionsSchema } from "@shared/catalogue-schemas";
 import { listingFacets, publishState } from "@shared/listing-facets";
 import { SCALE_EMAIL_DOMAIN, scaleSellers, type ScaleSeller } from "./people";
 import { scaleUnit, SellerPicker, type UnitContext } from "./units";
