@@ -94,26 +94,69 @@ export async function filterCounts(filters: MarketFilters): Promise<FilterCounts
   return (await cachedCounts(filters)).counts;
 }
 
-// Counting reads every live row the common filters leave, so counts are kept per filter set until a
-// live listing changes (the market_epoch sequence moves; see its migration), and a minute at most.
+// Counting reads every live row the common filters leave (a parallel scan, tens of milliseconds at scale),
+// so counts are kept per filter set. When a live listing changes (the market_epoch sequence moves; see its
+// migration) or a minute has passed, the kept counts are stale: they are still served, and recounted in the
+// background at most once per RECOUNT_EVERY_MS for that filter set. Only a filter set never counted waits.
 const COUNTS_TTL_MS = 60_000;
+const RECOUNT_EVERY_MS = 15_000;
 const COUNTS_KEPT = 500;
-const countsKept = new Map<string, { epoch: string; at: number; value: Promise<Counted> }>();
 type Counted = { total: number; counts: FilterCounts };
+interface KeptCounts {
+  filters: MarketFilters;
+  /** The epoch and time the value was counted at. */
+  epoch: string;
+  at: number;
+  value: Promise<Counted>;
+  /** When the last recount started, and the recount in flight. */
+  recountedAt: number;
+  recount: Promise<void> | null;
+}
+const countsKept = new Map<string, KeptCounts>();
 
-async function cachedCounts(filters: MarketFilters): Promise<Counted> {
-  const key = marketFiltersToParams({ ...withoutPaging(filters), sort: defaultSort(filters.q) }).toString();
+async function marketEpoch(): Promise<string> {
   const [row] = await sequelize.query<{ epoch: string }>(`SELECT last_value || ':' || is_called AS epoch FROM market_epoch`, {
     type: QueryTypes.SELECT,
   });
-  const epoch = row?.epoch ?? "";
+  return row?.epoch ?? "";
+}
+
+const isFresh = (kept: KeptCounts, epoch: string) => kept.epoch === epoch && Date.now() - kept.at < COUNTS_TTL_MS;
+
+async function cachedCounts(filters: MarketFilters): Promise<Counted> {
+  const key = marketFiltersToParams({ ...withoutPaging(filters), sort: defaultSort(filters.q) }).toString();
+  const epoch = await marketEpoch();
   const kept = countsKept.get(key);
-  if (kept && kept.epoch === epoch && Date.now() - kept.at < COUNTS_TTL_MS) return kept.value;
-  const value = countsAndTotal(filters);
-  if (countsKept.size >= COUNTS_KEPT) countsKept.delete(countsKept.keys().next().value!);
-  countsKept.set(key, { epoch, at: Date.now(), value });
-  value.catch(() => countsKept.delete(key));
-  return value;
+  if (!kept) {
+    const value = countsAndTotal(filters);
+    if (countsKept.size >= COUNTS_KEPT) countsKept.delete(countsKept.keys().next().value!);
+    const now = Date.now();
+    countsKept.set(key, { filters, epoch, at: now, value, recountedAt: now, recount: null });
+    value.catch(() => countsKept.delete(key));
+    return value;
+  }
+  if (!isFresh(kept, epoch) && !kept.recount && Date.now() - kept.recountedAt >= RECOUNT_EVERY_MS) void recount(kept, epoch);
+  return kept.value;
+}
+
+/** Counts `kept` again for `epoch`; the old counts stay in use until the new ones are in (or if counting fails). */
+function recount(kept: KeptCounts, epoch: string): Promise<void> {
+  kept.recountedAt = Date.now();
+  const at = kept.recountedAt;
+  kept.recount = countsAndTotal(kept.filters)
+    .then((counted) => {
+      Object.assign(kept, { epoch, at, value: Promise.resolve(counted) });
+    })
+    .catch(() => undefined)
+    .finally(() => {
+      kept.recount = null;
+    });
+  return kept.recount;
+}
+
+/** For tests: waits for the background recounts in flight (none starts here). */
+export async function settleCounts(): Promise<void> {
+  await Promise.all([...countsKept.values()].flatMap((kept) => (kept.recount ? [kept.recount] : [])));
 }
 
 // One pass over the rows the common filters leave: each active dimension becomes a boolean column, and

@@ -1,0 +1,49 @@
+import { afterAll, afterEach, describe, expect, it, vi } from "vitest";
+import { Listing, type User } from "~/models/index.server";
+import { searchListings, settleCounts } from "~/catalogue/search.server";
+import { parseMarketFilters, type MarketFilters } from "@shared/market-filters";
+import { createAmplifierListing, removeFixtureUsers } from "../support/listing-fixtures";
+
+// The panel's counts are kept per filter set: after a live listing changes, the kept counts are still
+// served while a background recount (at most one per interval per filter set) brings them up to date.
+
+const filters = (qs: string): MarketFilters => parseMarketFilters(new URLSearchParams(qs), { strict: true }).filters;
+const liveAmps = () => Listing.count({ where: { status: "live", category: "integrated_amplifier" } });
+const sellers: User[] = [];
+
+afterEach(() => vi.restoreAllMocks());
+afterAll(async () => {
+  await removeFixtureUsers(sellers);
+});
+
+describe("kept counts", () => {
+  it("serve the last counts after a change, and recount in the background at most once per interval", async () => {
+    const amps = filters("category=integrated-amplifiers");
+    const first = await searchListings(amps, { limit: 1 });
+    expect(first.total).toBe(await liveAmps()); // a filter set never counted waits for its counts
+
+    const added = await createAmplifierListing({ label: "counts-swr" });
+    sellers.push(added.seller);
+    const now = await liveAmps();
+    expect(now).toBe(first.total + 1);
+
+    // Within the interval: the kept counts, and no recount started.
+    expect((await searchListings(amps, { limit: 1 })).total).toBe(first.total);
+    await settleCounts();
+    expect((await searchListings(amps, { limit: 1 })).total).toBe(first.total);
+
+    // Past the interval: this request still gets the kept counts, and starts the recount.
+    const realNow = Date.now();
+    vi.spyOn(Date, "now").mockReturnValue(realNow + 16_000);
+    expect((await searchListings(amps, { limit: 1 })).total).toBe(first.total);
+    await settleCounts();
+    const after = await searchListings(amps, { limit: 1 });
+    expect(after.total).toBe(now);
+    expect(after.counts.category.integrated_amplifier).toBe(now);
+
+    // Another filter set, never counted, gets counts made at once.
+    expect((await searchListings(filters("category=integrated-amplifiers&verified=1"), { limit: 1 })).total).toBe(
+      await Listing.count({ where: { status: "live", category: "integrated_amplifier", benchVerified: true } }),
+    );
+  });
+});
