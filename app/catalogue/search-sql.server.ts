@@ -20,8 +20,10 @@ export type Dimension = "category" | "condition" | "service" | "seller" | "verif
 export interface Conditions {
   /** Always applied (live, text, price, mains, delivery). */
   common: string[];
-  /** One condition per active dimension. */
+  /** One condition per active dimension (a measured one without the figures gate; see dimensionSql). */
   dims: Map<Dimension, string>;
+  /** What every measured figure needs to count ("" when any measured figure counts). */
+  figuresGate: string;
 }
 
 export function conditions(f: MarketFilters, b: Binds): Conditions {
@@ -62,12 +64,15 @@ export function conditions(f: MarketFilters, b: Binds): Conditions {
   for (const filter of MEASURED_FILTERS) {
     const value = f.measured[filter.key];
     if (value === undefined) continue;
-    dims.set(
-      `measured:${filter.key}`,
-      `${counted(f)}l.${filter.column} ${filter.bound === "min" ? ">=" : "<="} ${b.add(value, "::float8")}`,
-    );
+    dims.set(`measured:${filter.key}`, `l.${filter.column} ${filter.bound === "min" ? ">=" : "<="} ${b.add(value, "::float8")}`);
   }
-  return { common, dims };
+  return { common, dims, figuresGate: f.figures === "verified" ? "l.bench_verified" : "" };
+}
+
+/** A dimension's condition on its own, as a count flags it (a measured one with its figures gate). */
+export function dimensionSql(c: Conditions, d: Dimension): string {
+  const sql = c.dims.get(d)!;
+  return d.startsWith("measured:") && c.figuresGate ? `${c.figuresGate} AND ${sql}` : sql;
 }
 
 /** Whether a row has a figure that counts for the filter at all (for the counts of filters not set). */
@@ -81,8 +86,12 @@ function counted(f: Pick<MarketFilters, "figures">): string {
   return f.figures === "verified" ? "l.bench_verified AND " : "";
 }
 
+// The figures gate goes in once however many measured filters are set: repeated, the planner multiplies
+// its selectivity once per copy and expects far fewer rows than come (and picks plans for that).
 export function whereOf(c: Conditions, leaveOut?: Dimension): string {
-  return [...c.common, ...[...c.dims].filter(([d]) => d !== leaveOut).map(([, sql]) => sql)].join(" AND ");
+  const dims = [...c.dims].filter(([d]) => d !== leaveOut);
+  const gated = c.figuresGate && dims.some(([d]) => d.startsWith("measured:")) && !dims.some(([d]) => d === "verified");
+  return [...c.common, ...(gated ? [c.figuresGate] : []), ...dims.map(([, sql]) => sql)].join(" AND ");
 }
 
 /** Each sort: its key expressions (in order, the last is always the id) and direction. */

@@ -14,7 +14,18 @@ import {
   type ListingsPage,
   type MarketFilters,
 } from "@shared/market-filters";
-import { Binds, after, conditions, hasFigure, keySelect, orderBy, sortSpec, whereOf, type Dimension } from "./search-sql.server";
+import {
+  Binds,
+  after,
+  conditions,
+  dimensionSql,
+  hasFigure,
+  keySelect,
+  orderBy,
+  sortSpec,
+  whereOf,
+  type Dimension,
+} from "./search-sql.server";
 import { summaryAttributes, summaryInclude, toSummaries } from "./summaries.server";
 
 // The market's search: live listings matching the filters, in the chosen order, a page at a time.
@@ -175,7 +186,7 @@ export function countsQuery(filters: MarketFilters): { sql: string; bind: unknow
     "l.service_state",
     "l.workshop_id IS NOT NULL AS by_workshop",
     "l.bench_verified",
-    ...dims.map((d) => `(${c.dims.get(d)}) AS ${flag(d)}`),
+    ...dims.map((d) => `(${dimensionSql(c, d)}) AS ${flag(d)}`),
     ...MEASURED_FILTERS.map((m, i) => `(${hasFigure(m, filters)}) AS h${i}`),
   ];
   const lit = (s: string) => `'${s}'`; // catalogue codes only, never input

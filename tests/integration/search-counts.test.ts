@@ -1,6 +1,6 @@
 import { afterAll, afterEach, describe, expect, it, vi } from "vitest";
 import { Listing, type User } from "~/models/index.server";
-import { searchListings, settleCounts } from "~/catalogue/search.server";
+import { countsQuery, searchListings, searchQuery, settleCounts } from "~/catalogue/search.server";
 import { parseMarketFilters, type MarketFilters } from "@shared/market-filters";
 import { createAmplifierListing, removeFixtureUsers } from "../support/listing-fixtures";
 
@@ -45,5 +45,19 @@ describe("kept counts", () => {
     expect((await searchListings(filters("category=integrated-amplifiers&verified=1"), { limit: 1 })).total).toBe(
       await Listing.count({ where: { status: "live", category: "integrated_amplifier", benchVerified: true } }),
     );
+  });
+});
+
+describe("the figures gate", () => {
+  const gates = (sql: string) => sql.match(/l\.bench_verified/g)?.length ?? 0;
+
+  it("goes into the page query once however many measured filters are set, and into each measured count", () => {
+    const both = filters("power8Min=80 W&thdMax=0.05 %&dampingMin=40");
+    expect(gates(searchQuery(both).sql)).toBe(1);
+    expect(gates(searchQuery(filters("power8Min=80 W&thdMax=0.05 %&figures=measured")).sql)).toBe(0);
+    // verified=1 asks for the same column: once in all.
+    expect(gates(searchQuery(filters("power8Min=80 W&thdMax=0.05 %&verified=1")).sql)).toBe(1);
+    // A count leaves one measured filter out at a time, so each keeps its own copy of the gate.
+    expect(countsQuery(both).sql).toMatch(/\(l\.bench_verified AND l\.power_8ohm_w >= \$\d+::float8\) AS d0/);
   });
 });
