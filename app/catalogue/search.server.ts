@@ -125,11 +125,22 @@ interface KeptCounts {
 }
 const countsKept = new Map<string, KeptCounts>();
 
-async function marketEpoch(): Promise<string> {
-  const [row] = await sequelize.query<{ epoch: string }>(`SELECT last_value || ':' || is_called AS epoch FROM market_epoch`, {
-    type: QueryTypes.SELECT,
+// The epoch is read at most once a second per process: a count a second late is no harm, and a query
+// per call is (5 ms and a pool connection under load).
+const EPOCH_READ_EVERY_MS = 1_000;
+let epochRead: { at: number; value: Promise<string> } | null = null;
+
+function marketEpoch(): Promise<string> {
+  if (epochRead && Date.now() - epochRead.at < EPOCH_READ_EVERY_MS) return epochRead.value;
+  const value = sequelize
+    .query<{ epoch: string }>(`SELECT last_value || ':' || is_called AS epoch FROM market_epoch`, { type: QueryTypes.SELECT })
+    .then(([row]) => row?.epoch ?? "");
+  const read = { at: Date.now(), value };
+  epochRead = read;
+  value.catch(() => {
+    if (epochRead === read) epochRead = null;
   });
-  return row?.epoch ?? "";
+  return value;
 }
 
 const isFresh = (kept: KeptCounts, epoch: string) => kept.epoch === epoch && Date.now() - kept.at < COUNTS_TTL_MS;

@@ -36,26 +36,36 @@ export const summaryAttributes = [
 export const summaryInclude = [
   { model: User, as: "seller", attributes: ["id", "displayName"] },
   { model: Workshop, as: "workshop", attributes: ["id", "name", "slug", "verificationStatus"] },
-  { model: BenchSheet, as: "benchSheet", attributes: ["id", "updatedAt", "sheet"] },
+  // The sheet itself only on a miss of the lead figures kept below: parsing every card's sheet costs more than the page.
+  { model: BenchSheet, as: "benchSheet", attributes: ["id", "updatedAt"] },
 ];
 
 // A card's figure comes from its whole sheet, read through the sheet's schema: worth doing once per
-// sheet version, not once per card per request. The sheet's getter is lazy, so a hit never parses it.
+// sheet version, not once per card per request. The cards' query reads only the sheet's id and version;
+// the sheets kept figures do not cover are read in one query.
 const leadFigures = new Map<string, { updatedAt: number; figure: CardFigure | null }>();
 
-function cardFigure(bench: BenchSheet | null | undefined): CardFigure | null {
-  if (!bench) return null;
-  const updatedAt = bench.updatedAt.getTime();
-  const hit = leadFigures.get(bench.id);
-  if (hit && hit.updatedAt === updatedAt) return hit.figure;
-  const figure = leadFigure(bench.sheet);
-  if (leadFigures.size >= 10_000) leadFigures.clear();
-  leadFigures.set(bench.id, { updatedAt, figure });
-  return figure;
+async function cardFigures(rows: Listing[]): Promise<Map<string, CardFigure | null>> {
+  const out = new Map<string, CardFigure | null>();
+  const missed: string[] = [];
+  for (const { benchSheet: bench } of rows) {
+    if (!bench) continue;
+    const hit = leadFigures.get(bench.id);
+    if (hit && hit.updatedAt === bench.updatedAt.getTime()) out.set(bench.id, hit.figure);
+    else missed.push(bench.id);
+  }
+  if (missed.length === 0) return out;
+  for (const bench of await BenchSheet.findAll({ where: { id: missed }, attributes: ["id", "updatedAt", "sheet"] })) {
+    const figure = leadFigure(bench.sheet);
+    if (leadFigures.size >= 10_000) leadFigures.clear();
+    leadFigures.set(bench.id, { updatedAt: bench.updatedAt.getTime(), figure });
+    out.set(bench.id, figure);
+  }
+  return out;
 }
 
 export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
-  const covers = await coversFor(rows.map((r) => r.id));
+  const [covers, figures] = await Promise.all([coversFor(rows.map((r) => r.id)), cardFigures(rows)]);
   return rows.map((l) => ({
     id: l.id,
     title: listingTitle(l.maker, l.model),
@@ -75,7 +85,7 @@ export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
       : // Private sellers go by first name in lists.
         { name: (l.seller?.displayName ?? "").split(/\s+/)[0] ?? "", kind: "private", verified: false },
     cover: covers.get(l.id) ?? null,
-    keyFigure: cardFigure(l.benchSheet),
+    keyFigure: (l.benchSheet && figures.get(l.benchSheet.id)) ?? null,
     publishedAt: (l.publishedAt ?? l.createdAt).toISOString(),
   }));
 }

@@ -69,7 +69,8 @@ describe("market", () => {
       // Every statement goes through the logging option (typed only on the constructor's options).
       const options = (sequelize as unknown as { options: { logging: unknown } }).options;
       const before = options.logging;
-      options.logging = (sql: string) => void seen.push(sql);
+      // The market epoch is read at most once a second, so whether a call reads it depends on the clock.
+      options.logging = (sql: string) => void (sql.includes("market_epoch") || seen.push(sql));
       try {
         await run();
       } finally {
@@ -77,13 +78,13 @@ describe("market", () => {
       }
       return seen;
     };
-    await marketPage(search(""), 1); // the counts, kept until a live listing changes
+    await marketPage(search(""), 500); // the counts and the cards' lead figures, kept until they change
     const one = await statements(() => marketPage(search(""), 1));
     const many = await statements(() => marketPage(search(""), 500));
     const home = await statements(() => homeData(6));
     expect(await Listing.count({ where: { status: "live" } })).toBeGreaterThan(20);
-    // Whether the kept counts still hold, the page's ids, the cards with seller and sheet, the covers.
-    expect(many.length).toBe(4);
+    // The page's ids, the cards with seller and sheet version, the covers.
+    expect(many.length).toBe(3);
     expect(one.length).toBe(many.length);
     expect(home.length).toBeLessThanOrEqual(5);
     // Home takes its totals from the market's kept counts: no count over the listings on each visit.

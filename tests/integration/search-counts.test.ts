@@ -1,4 +1,5 @@
 import { afterAll, afterEach, describe, expect, it, vi } from "vitest";
+import { sequelize } from "~/db.server";
 import { Listing, type User } from "~/models/index.server";
 import { countsQuery, searchListings, searchQuery, settleCounts } from "~/catalogue/search.server";
 import { parseMarketFilters, type MarketFilters } from "@shared/market-filters";
@@ -59,5 +60,50 @@ describe("the figures gate", () => {
     expect(gates(searchQuery(filters("power8Min=80 W&thdMax=0.05 %&verified=1")).sql)).toBe(1);
     // A count leaves one measured filter out at a time, so each keeps its own copy of the gate.
     expect(countsQuery(both).sql).toMatch(/\(l\.bench_verified AND l\.power_8ohm_w >= \$\d+::float8\) AS d0/);
+  });
+});
+
+describe("the market epoch", () => {
+  it("is read at most once a second per process", async () => {
+    const seen: string[] = [];
+    const options = (sequelize as unknown as { options: { logging: unknown } }).options;
+    const before = options.logging;
+    options.logging = (sql: string) => void (sql.includes("market_epoch") && seen.push(sql));
+    try {
+      const at = Date.now() + 60_000;
+      const clock = vi.spyOn(Date, "now").mockReturnValue(at);
+      const amps = filters("category=integrated-amplifiers");
+      await searchListings(amps, { limit: 1 });
+      clock.mockReturnValue(at + 999);
+      await searchListings(amps, { limit: 1 });
+      expect(seen.length).toBe(1);
+      clock.mockReturnValue(at + 1_000);
+      await searchListings(amps, { limit: 1 });
+      expect(seen.length).toBe(2);
+    } finally {
+      options.logging = before;
+    }
+  });
+});
+
+describe("the cards", () => {
+  it("read a bench sheet only for a lead figure not kept", async () => {
+    const seen: string[] = [];
+    const options = (sequelize as unknown as { options: { logging: unknown } }).options;
+    const before = options.logging;
+    options.logging = (sql: string) => void seen.push(sql);
+    try {
+      const amps = filters("category=integrated-amplifiers");
+      const first = await searchListings(amps, { limit: 50 });
+      expect(first.items.some((i) => i.keyFigure)).toBe(true);
+      const sheets = () => seen.filter((sql) => /"sheet"/.test(sql));
+      expect(sheets().length).toBe(1);
+      seen.length = 0;
+      const again = await searchListings(amps, { limit: 50 });
+      expect(again.items.map((i) => i.keyFigure)).toEqual(first.items.map((i) => i.keyFigure));
+      expect(sheets()).toEqual([]);
+    } finally {
+      options.logging = before;
+    }
   });
 });
