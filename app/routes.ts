@@ -26,6 +26,10 @@ export default [
   route("watching", "routes/watching.tsx"),
   route("api/v1/watches", "routes/api.v1.watches.ts"),
   route("api/v1/watches/:listingId", "routes/api.v1.watches.$listingId.ts"),
+  // Spec alerts (save the market's filters, manage them) and unsubscribe links from notices (no sign-in)
+  route("alerts", "routes/alerts/alerts.tsx"),
+  route("alerts/new", "routes/alerts/new.tsx"),
+  route("unsubscribe/:token", "routes/alerts/unsubscribe.tsx"),
   // Service health (liveness, readiness; /healthz is readiness) and the payments provider's webhook
   route("healthz", "routes/healthz.ts"),
   route("healthz/ready", "routes/healthz.ts", { id: "routes/healthz-ready" }),

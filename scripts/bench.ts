@@ -114,23 +114,58 @@ async function sheetFigures(): Promise<{ figures: Figure[]; note?: string }> {
   }
 }
 
-async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[]; failed?: boolean }> {
+type Section = { figures: Figure[]; notes: string[]; failed?: boolean };
+
+// One served app for every server figure: the edge first (it measures a fresh web process) and the
+// page weights, then the scale seed's listings are added and the search API and the public pages'
+// pace are measured at that size.
+async function serverFigures(): Promise<Section> {
   if (process.argv.includes("--no-server")) return { figures: [], notes: ["server figures left out (--no-server)"] };
+  const out: Section = { figures: [], notes: [] };
+  const section = async (what: string, measure: () => Promise<{ figures: Figure[]; notes?: string[] }>) => {
+    try {
+      const r = await measure();
+      out.figures.push(...r.figures);
+      out.notes.push(...(r.notes ?? []));
+    } catch (e) {
+      out.notes.push(`${what} could not be measured: ${(e as Error).message}`);
+      out.failed = true;
+    }
+  };
+  const { serveApp } = await import("./bench/served-app");
+  let app: Awaited<ReturnType<typeof serveApp>>;
   try {
-    const mod = await import("./bench/edge");
-    return await mod.edgeFigures();
+    app = await serveApp({ worker: true });
   } catch (e) {
     return { figures: [], notes: [`server figures could not be measured: ${(e as Error).message}`], failed: true };
   }
-}
-
-async function publicPageFigures(): Promise<{ figures: Figure[]; notes: string[]; failed?: boolean }> {
-  if (process.argv.includes("--no-server")) return { figures: [], notes: [] };
   try {
-    return await (await import("./bench/pages")).pageFigures();
-  } catch (e) {
-    return { figures: [], notes: [`public page figures could not be measured: ${(e as Error).message}`], failed: true };
+    await section("the request edge", async () => (await import("./bench/edge")).edgeFigures(app));
+    // What a phone gets from the public pages, on the demo scenario (its listings have photos and plots).
+    await section("the page weights", async () => (await import("./bench/weight")).weightFigures(app.base));
+    const at = process.argv.indexOf("--listings");
+    const listings = at > 0 ? Number(process.argv[at + 1]) : 100_000;
+    await section("the scale seed", async () => {
+      const { seedScale } = await import("../db/seeds/scale/write");
+      const r = await seedScale({ databaseUrl: app.databaseUrl, listings, log: (line) => console.error(`[seed:scale] ${line}`) });
+      await app.restartWeb(); // no caches from before the seed
+      return {
+        figures: [
+          {
+            label: `scale seed: ${r.listings.toLocaleString("en")} listings (${r.sheets.toLocaleString("en")} bench sheets, ${r.verified.toLocaleString("en")} bench-verified) added to the demo scenario`,
+            value: r.seconds,
+            unit: "s",
+            limit: 120,
+          },
+        ],
+      };
+    });
+    await section("search through the API", async () => (await import("./bench/search")).searchFigures(app));
+    await section("the public pages", async () => ({ figures: await (await import("./bench/pages")).measurePages(app.base) }));
+  } finally {
+    await app.stop();
   }
+  return out;
 }
 
 const figures = await captureFigures();
@@ -138,12 +173,9 @@ const sheet = await sheetFigures();
 figures.push(...sheet.figures);
 const notes = [sheet.note];
 figures.push(...(await (await import("./bench/photos")).photoFigures()));
-const edge = await edgeFigures();
-figures.push(...edge.figures);
-notes.push(...edge.notes);
-const pages = await publicPageFigures();
-figures.push(...pages.figures);
-notes.push(...pages.notes);
+const server = await serverFigures();
+figures.push(...server.figures);
+notes.push(...server.notes);
 
 // The anonymous account forms' timing and health checks under load need a running app: `npm start`,
 // or BENCH_URL.
@@ -159,7 +191,7 @@ if (answers) figures.push(...(await (await import("./bench/account-timing")).acc
 if (answers) figures.push(...(await (await import("./bench/health")).healthFigures(benchUrl)));
 else notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);
 
-let missed = (edge.failed ? 1 : 0) + (pages.failed ? 1 : 0);
+let missed = server.failed ? 1 : 0;
 for (const f of figures) {
   const over = f.limit !== undefined && !(f.atLeast ? f.value >= f.limit : f.value < f.limit);
   if (over) missed++;

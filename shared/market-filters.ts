@@ -292,7 +292,8 @@ export function marketFiltersToParams(f: MarketFilters): URLSearchParams {
   if (f.category) p.set("category", CATEGORY_LABELS[f.category].slug);
   if (f.priceMinMinor !== null) p.set("priceMin", priceInputValue(f.priceMinMinor, f.currency));
   if (f.priceMaxMinor !== null) p.set("priceMax", priceInputValue(f.priceMaxMinor, f.currency));
-  if (f.currency !== DEFAULT_FILTERS.currency) p.set("currency", f.currency);
+  // The currency only says what the price bounds are in: without a bound it changes nothing, so it is left out.
+  if (f.currency !== DEFAULT_FILTERS.currency && (f.priceMinMinor !== null || f.priceMaxMinor !== null)) p.set("currency", f.currency);
   for (const c of COSMETIC_GRADES.filter((g) => f.condition.includes(g))) p.append("condition", c);
   for (const s of SERVICE_STATES.filter((g) => f.service.includes(g))) p.append("service", s);
   if (f.mains !== null) p.set("mains", String(f.mains));

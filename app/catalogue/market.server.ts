@@ -2,8 +2,8 @@ import { Op, QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { Listing, Workshop } from "~/models/index.server";
 import { CATEGORIES, type Category } from "@shared/catalogue";
-import { parseMarketFilters, type FilterCounts, type FilterIssue, type MarketFilters } from "@shared/market-filters";
-import { searchListings } from "./search.server";
+import { DEFAULT_FILTERS, parseMarketFilters, type FilterCounts, type FilterIssue, type MarketFilters } from "@shared/market-filters";
+import { filterCounts, searchListings } from "./search.server";
 import { summaryAttributes, summaryInclude, toSummaries } from "./summaries.server";
 import type { ListingSummary } from "./types";
 
@@ -77,9 +77,13 @@ export interface HomeData {
   totals: { live: number; benchVerified: number; verifiedWorkshops: number };
 }
 
-/** The home page: the latest bench-verified units, the categories and a few honest totals. */
+/**
+ * The home page: the latest bench-verified units, the categories and a few honest totals. The totals are
+ * the market's own counts with no filter set, kept until a live listing changes: counting every live
+ * row on each visit made home the slowest public page at 100,000 listings.
+ */
 export async function homeData(limit = 6): Promise<HomeData> {
-  const [rows, counts, benchVerified, verifiedWorkshops] = await Promise.all([
+  const [rows, marketCounts, verifiedWorkshops] = await Promise.all([
     Listing.findAll({
       where: { status: "live", benchVerified: true },
       attributes: [...summaryAttributes],
@@ -90,10 +94,10 @@ export async function homeData(limit = 6): Promise<HomeData> {
       ],
       limit,
     }),
-    liveCountsByCategory(),
-    Listing.count({ where: { status: "live", benchVerified: true } }),
+    filterCounts(DEFAULT_FILTERS),
     Workshop.count({ where: { verificationStatus: "verified", verifiedAt: { [Op.ne]: null } } }),
   ]);
+  const counts = CATEGORIES.map((category) => ({ category, live: marketCounts.category[category] }));
   const live = counts.reduce((n, c) => n + c.live, 0);
-  return { recentVerified: await toSummaries(rows), counts, totals: { live, benchVerified, verifiedWorkshops } };
+  return { recentVerified: await toSummaries(rows), counts, totals: { live, benchVerified: marketCounts.verified, verifiedWorkshops } };
 }

@@ -2,6 +2,9 @@ import { QUEUES, type QueueName } from "~/services/jobs.server";
 import { processPhoto } from "~/photos/process.server";
 import { analyseCaptureJob } from "~/bench/capture-job.server";
 import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
+import { deliverWatchNotice } from "~/alerts/watch-notices.server";
+import { matchSpecAlerts } from "~/alerts/matching.server";
+import { digestJob } from "~/alerts/digest.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -11,4 +14,8 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.photoProcess]: processPhoto,
   [QUEUES.captureAnalyze]: analyseCaptureJob,
   [QUEUES.accountMail]: deliverAccountMail,
+  // Keeping track: watch notices, spec-alert matching on publish, the daily digest (scheduled by the worker).
+  [QUEUES.watchNotice]: deliverWatchNotice,
+  [QUEUES.alertMatch]: matchSpecAlerts,
+  [QUEUES.alertDigest]: digestJob,
 };

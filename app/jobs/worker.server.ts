@@ -1,4 +1,5 @@
 import { QUEUES, startBoss } from "~/services/jobs.server";
+import { DIGEST_SCHEDULE } from "~/alerts/digest.server";
 import { handlers } from "./handlers.server";
 
 export async function startWorker({ log = console.log }: { log?: (line: string) => void } = {}) {
@@ -10,6 +11,8 @@ export async function startWorker({ log = console.log }: { log?: (line: string) 
       if (job) await handler(job.data, job.id);
     });
   }
+  // Once a day for every worker together: pg-boss keeps one schedule per name in the database.
+  await boss.schedule(QUEUES.alertDigest, DIGEST_SCHEDULE, {}, { tz: "UTC" });
   log(`Worker listening on ${Object.keys(handlers).join(", ") || "no queues"}`);
   return { stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }

@@ -10,6 +10,7 @@ import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, ListingStateError, type Issue } from "./errors.server";
 import { NO_FACETS } from "@shared/listing-facets";
 import { isOneOf } from "@shared/one-of";
+import { noticePriceChange, queueWatchNotice } from "~/alerts/watch-notices.server";
 
 // Drafts and the item and condition steps. Who may list: any signed-in account. Listing for the first
 // time makes the account a seller (the role is added with the draft, in one transaction); a workshop
@@ -96,7 +97,9 @@ export async function saveItem(listingId: string, sellerId: string, patch: unkno
       }
     }
     if (issues.length) throw new ListingInputError(issues);
+    const before = { status: listing.status, priceMinor: listing.priceMinor, currency: listing.currency };
     await listing.update(values, { transaction });
+    await noticePriceChange(listing.id, before, listing, transaction);
     return listing;
   };
   return opts.transaction ? run(opts.transaction) : sequelize.transaction(run);
@@ -136,6 +139,7 @@ export async function withdrawListing(listingId: string, sellerId: string): Prom
         "not_published",
       );
     await listing.update({ status: "withdrawn" }, { transaction });
+    await queueWatchNotice({ kind: "withdrawn", listingId: listing.id }, transaction);
     return listing;
   });
 }

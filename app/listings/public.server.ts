@@ -50,7 +50,10 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
       { model: BenchSheet, as: "benchSheet", attributes: ["id", "sheet", "verdict", "checkedAt"] },
     ],
   });
-  if (!listing || !canViewListing(listing.status, listing.sellerId, req.viewer)) return null;
+  if (!listing) return null;
+  // A watcher keeps reading a unit its seller withdrew: the watch notice links here.
+  const watcherOfWithdrawn = async () => listing.status === "withdrawn" && !!req.viewer && (await isWatching(req.viewer.id, listing.id));
+  if (!canViewListing(listing.status, listing.sellerId, req.viewer) && !(await watcherOfWithdrawn())) return null;
   const sheet = listing.benchSheet?.sheet ?? null;
   const [photos, entries, captures, watching, serialOnFile] = await Promise.all([
     ListingPhoto.findAll({

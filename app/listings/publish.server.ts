@@ -7,6 +7,7 @@ import { publishChecklist, type ChecklistItem } from "@shared/publish-checklist"
 import { assertEditable, ownListing } from "./access.server";
 import { verdictUpdate } from "./bench.server";
 import { ListingInputError, ListingStateError } from "./errors.server";
+import { queueAlertMatching } from "~/alerts/matching.server";
 
 // Publishing: everything a buyer needs is present, the bench runs on the stored sheet (never on what
 // the browser showed), and the listing goes live — or, with an implausible outcome, to the review desk
@@ -74,10 +75,10 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
       await row.update({ verdict, checkedAt: new Date() }, { transaction });
     }
     const update = verdictUpdate(listing, sheet, verdict);
-    await listing.update(
-      { ...update, status: update.status ?? "live", heldReason: update.heldReason ?? null, publishedAt: new Date() },
-      { transaction },
-    );
+    const status = update.status ?? "live";
+    await listing.update({ ...update, status, heldReason: update.heldReason ?? null, publishedAt: new Date() }, { transaction });
+    // A held unit is matched when the desk clears it.
+    if (status === "live") await queueAlertMatching(listing.id, transaction);
     return { listing, verdict };
   });
 }

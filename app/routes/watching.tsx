@@ -1,23 +1,27 @@
-import { data, isRouteErrorResponse, Link } from "react-router";
+import { data, Form, isRouteErrorResponse, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/watching";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requireUser } from "~/auth/guards.server";
 import { readPageForm } from "~/http/body.server";
 import { setWatch, watchList } from "~/listings/watch.server";
-import { ButtonLink } from "~/components/Button";
+import { Button, ButtonLink } from "~/components/Button";
 import { ErrorPage } from "~/components/ErrorPage";
 import { ListingCard } from "~/components/ListingCard";
 import { PageHeader } from "~/components/PageHeader";
 import { WatchButton } from "~/components/WatchButton";
 import { idSchema } from "@shared/ids";
+import { setWatchMail, watchMailOn } from "~/alerts/unsubscribe.server";
 
 // The buyer's watch list: the watched units as market cards, newest watch first. An unwatched card
 // stays until the page is next loaded, so a slip of the finger can be undone with the same button.
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  return data({ watches: await watchList(user.id) }, { headers: { "Cache-Control": "private, no-store" } });
+  return data(
+    { watches: await watchList(user.id), watchMail: await watchMailOn(user.id) },
+    { headers: { "Cache-Control": "private, no-store" } },
+  );
 }
 
 const WatchForm = z.object({
@@ -29,7 +33,13 @@ const WatchForm = z.object({
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
-  const parsed = WatchForm.safeParse(Object.fromEntries(await readPageForm(request)));
+  const form = Object.fromEntries(await readPageForm(request));
+  // The watch notices' switch (an unsubscribe link turns them off; this turns them back on).
+  if (form.intent === "watch-mail") {
+    await setWatchMail(user.id, form.on === "1");
+    return { watchMail: form.on === "1" };
+  }
+  const parsed = WatchForm.safeParse(form);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     return data({ reason: issue.message, path: String(issue.path[0] ?? "") }, { status: 400 });
@@ -91,13 +101,33 @@ export default function Watching({ loaderData, actionData }: Route.ComponentProp
           </ButtonLink>
         </div>
       )}
+      <WatchMailSwitch on={loaderData.watchMail} />
       <p className="text-sm text-ink-faint">
         Units a seller withdraws or the review desk holds leave this list.{" "}
         <Link to="/market" className="underline decoration-rule-strong underline-offset-2 hover:text-ink">
           Back to the market
+        </Link>{" "}
+        ·{" "}
+        <Link to="/alerts" className="underline decoration-rule-strong underline-offset-2 hover:text-ink">
+          Your spec alerts
         </Link>
       </p>
     </main>
+  );
+}
+
+function WatchMailSwitch({ on }: { on: boolean }) {
+  return (
+    <Form method="post" className="flex flex-wrap items-center gap-3 rounded-md border border-rule bg-card px-4 py-3 text-sm">
+      <input type="hidden" name="intent" value="watch-mail" />
+      <input type="hidden" name="on" value={on ? "0" : "1"} />
+      <p className="text-ink-soft">
+        {on ? "We e-mail you when a watched unit's price drops, or it is sold or withdrawn." : "E-mails about watched units are off."}
+      </p>
+      <Button type="submit" variant="secondary" size="sm">
+        {on ? "Stop these e-mails" : "E-mail me again"}
+      </Button>
+    </Form>
   );
 }
 

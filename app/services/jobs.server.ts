@@ -9,6 +9,10 @@ export const QUEUES = {
   captureAnalyze: "capture-analyze",
   photoProcess: "photo-process",
   accountMail: "account-mail",
+  // Keeping track (app/alerts): watchers' notices, spec-alert matching on publish, the daily digest.
+  watchNotice: "watch-notice",
+  alertMatch: "spec-alert-match",
+  alertDigest: "spec-alert-digest",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

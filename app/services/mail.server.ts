@@ -10,6 +10,8 @@ export interface OutgoingMail {
   text: string;
   html?: string;
   replyTo?: string;
+  /** Extra headers (List-Unsubscribe on notices a reader asked for). */
+  headers?: Record<string, string>;
 }
 
 type Mailer = Transporter<SMTPTransport.SentMessageInfo>;
@@ -38,6 +40,7 @@ export async function sendMail(mail: OutgoingMail): Promise<{ messageId: string 
     text: mail.text,
     html: mail.html,
     replyTo: mail.replyTo,
+    headers: mail.headers,
   });
   return { messageId: info.messageId };
 }

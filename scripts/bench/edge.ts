@@ -1,14 +1,13 @@
 // The request edge against a running server (built app, worker, stand-ins on the throw-away test
 // stack): the web process's memory while over-limit bodies are sent chunked, and how fast the
 // liveness check and a public listing page answer while a 48 MB capture is uploaded and analysed.
-import { spawn, type ChildProcess } from "node:child_process";
+import { spawn } from "node:child_process";
 import fs from "node:fs";
 import http from "node:http";
 import os from "node:os";
 import path from "node:path";
-import { bin, bringUp, finished, launch, profile, root, stopChild, waitForHttp } from "../stack";
-
-export type Figure = { label: string; value: number; unit: string; limit?: number };
+import { finished, root } from "../stack";
+import { ms, pct, type Figure, type ServedApp } from "./served-app";
 
 const MiB = 1024 * 1024;
 
@@ -87,167 +86,142 @@ async function probeWhile(urls: string[], until: Promise<unknown>): Promise<Reco
   return JSON.parse(out) as Record<string, number[]>;
 }
 
-const pct = (a: number[], p: number) => {
-  const s = [...a].sort((x, y) => x - y);
-  return s[Math.min(s.length - 1, Math.floor((p / 100) * s.length))];
-};
-const ms = (x: number) => Math.round(x * 10) / 10;
-
-export async function edgeFigures(): Promise<{ figures: Figure[]; notes: string[] }> {
+/** Needs the app served with a worker, fresh (its memory is measured from the start). */
+export async function edgeFigures(app: ServedApp): Promise<{ figures: Figure[]; notes: string[] }> {
   const figures: Figure[] = [];
   const notes: string[] = [];
-  const p = profile("test");
-  fs.rmSync(p.dir, { recursive: true, force: true });
-  const stack = await bringUp(p, { log: () => {} });
-  const children: ChildProcess[] = [];
-  try {
-    const env = { ...stack.env };
-    if ((await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true))) !== 0)
-      throw new Error("react-router build failed");
-    // node --import tsx rather than the tsx binary: one process, so its memory is the server's.
-    const web = spawn(process.execPath, ["--import", "tsx", path.join(root, "scripts/serve.ts")], {
-      cwd: root,
-      env: { ...process.env, ...env, NODE_ENV: "production", HOST: "127.0.0.1" },
-      stdio: ["ignore", "ignore", "inherit"],
-    });
-    children.push(web, launch(bin("tsx"), ["scripts/worker.ts"], env, true));
-    const base = `http://127.0.0.1:${env.PORT}`;
-    await waitForHttp(`${base}/healthz`, 90_000, web);
+  const { base } = app;
+  const web = app.web();
+  const signIn = await fetch(`${base}/sign-in`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { Origin: base, "Content-Type": "application/x-www-form-urlencoded" },
+    body: new URLSearchParams({ email: "seller@loadline.test", password: "bench-demo-2026", redirectTo: "/sell" }),
+  });
+  const cookie = (signIn.headers.getSetCookie().find((c) => c.startsWith("loadline_session=")) ?? "").split(";")[0];
+  if (!cookie) throw new Error(`sign-in as the demo seller failed (${signIn.status})`);
+  const market = await (await fetch(`${base}/market`)).text();
+  const listing = /href="(\/listings\/[0-9a-f-]{36})"/.exec(market)?.[1];
+  if (!listing) throw new Error("no public listing on /market");
+  const live = (await fetch(`${base}/healthz/live`)).status === 200 ? "/healthz/live" : "/healthz";
+  if (live === "/healthz")
+    notes.push("/healthz/live is not on this branch yet: the liveness figures use /healthz, which checks every dependency on each call");
 
-    const signIn = await fetch(`${base}/sign-in`, {
-      method: "POST",
-      redirect: "manual",
-      headers: { Origin: base, "Content-Type": "application/x-www-form-urlencoded" },
-      body: new URLSearchParams({ email: "seller@loadline.test", password: "bench-demo-2026", redirectTo: "/sell" }),
-    });
-    const cookie = (signIn.headers.getSetCookie().find((c) => c.startsWith("loadline_session=")) ?? "").split(";")[0];
-    if (!cookie) throw new Error(`sign-in as the demo seller failed (${signIn.status})`);
-    const market = await (await fetch(`${base}/market`)).text();
-    const listing = /href="(\/listings\/[0-9a-f-]{36})"/.exec(market)?.[1];
-    if (!listing) throw new Error("no public listing on /market");
-    const live = (await fetch(`${base}/healthz/live`)).status === 200 ? "/healthz/live" : "/healthz";
-    if (live === "/healthz")
-      notes.push("/healthz/live is not on this branch yet: the liveness figures use /healthz, which checks every dependency on each call");
-
-    // --- Memory while over-limit bodies are refused (a fresh, warmed-up process) ---
-    for (let i = 0; i < 20; i++) await (await fetch(`${base}${listing}`)).arrayBuffer();
-    await new Promise((r) => setTimeout(r, 1000));
-    const baseline = rssMiB(web.pid!);
-    const overLimit: [string, string, number, Record<string, string>, string][] = [
-      [
-        "40 MiB JSON to /api/v1/bench-sheets/check",
-        "/api/v1/bench-sheets/check",
-        40 * MiB,
-        { "Content-Type": "application/json" },
-        '{"notes":"',
-      ],
-      [
-        "120 MiB multipart to /api/v1/captures/analyze",
-        "/api/v1/captures/analyze?wait=0",
-        120 * MiB,
-        { "Content-Type": "multipart/form-data; boundary=BB", Cookie: cookie },
-        '--BB\r\nContent-Disposition: form-data; name="file"; filename="s.csv"\r\nContent-Type: text/csv\r\n\r\nfrequency,level\n',
-      ],
-      [
-        "100 MiB to /api/v1/webhooks/stripe",
-        "/api/v1/webhooks/stripe",
-        100 * MiB,
-        { "Content-Type": "application/json", "Stripe-Signature": "t=1,v1=00" },
-        '{"id":"',
-      ],
-    ];
-    let peak = baseline;
-    for (const [label, route, total, headers, head] of overLimit) {
-      let localPeak = rssMiB(web.pid!);
-      const sampler = setInterval(() => (localPeak = Math.max(localPeak, rssMiB(web.pid!))), 10);
-      const out = await sendChunked(`${base}${route}`, total, headers, head);
-      await new Promise((r) => setTimeout(r, 300));
-      clearInterval(sampler);
-      peak = Math.max(peak, localPeak);
-      const code = /"error":"([a-z_]+)"/.exec(out.body)?.[1];
-      figures.push({
-        label: `${label}, chunked: answer ${out.status}${code ? ` ${code}` : ""} after ${out.sentMiB} MiB sent; web RSS peak above the start`,
-        value: ms(localPeak - baseline),
-        unit: "MiB",
-        limit: 100,
-      });
-    }
+  // --- Memory while over-limit bodies are refused (a fresh, warmed-up process) ---
+  for (let i = 0; i < 20; i++) await (await fetch(`${base}${listing}`)).arrayBuffer();
+  await new Promise((r) => setTimeout(r, 1000));
+  const baseline = rssMiB(web.pid!);
+  const overLimit: [string, string, number, Record<string, string>, string][] = [
+    [
+      "40 MiB JSON to /api/v1/bench-sheets/check",
+      "/api/v1/bench-sheets/check",
+      40 * MiB,
+      { "Content-Type": "application/json" },
+      '{"notes":"',
+    ],
+    [
+      "120 MiB multipart to /api/v1/captures/analyze",
+      "/api/v1/captures/analyze?wait=0",
+      120 * MiB,
+      { "Content-Type": "multipart/form-data; boundary=BB", Cookie: cookie },
+      '--BB\r\nContent-Disposition: form-data; name="file"; filename="s.csv"\r\nContent-Type: text/csv\r\n\r\nfrequency,level\n',
+    ],
+    [
+      "100 MiB to /api/v1/webhooks/stripe",
+      "/api/v1/webhooks/stripe",
+      100 * MiB,
+      { "Content-Type": "application/json", "Stripe-Signature": "t=1,v1=00" },
+      '{"id":"',
+    ],
+  ];
+  let peak = baseline;
+  for (const [label, route, total, headers, head] of overLimit) {
+    let localPeak = rssMiB(web.pid!);
+    const sampler = setInterval(() => (localPeak = Math.max(localPeak, rssMiB(web.pid!))), 10);
+    const out = await sendChunked(`${base}${route}`, total, headers, head);
+    await new Promise((r) => setTimeout(r, 300));
+    clearInterval(sampler);
+    peak = Math.max(peak, localPeak);
+    const code = /"error":"([a-z_]+)"/.exec(out.body)?.[1];
     figures.push({
-      label: `web RSS before the over-limit bodies ${ms(baseline)} MiB, peak while they were refused`,
-      value: ms(peak),
+      label: `${label}, chunked: answer ${out.status}${code ? ` ${code}` : ""} after ${out.sentMiB} MiB sent; web RSS peak above the start`,
+      value: ms(localPeak - baseline),
       unit: "MiB",
+      limit: 100,
     });
+  }
+  figures.push({
+    label: `web RSS before the over-limit bodies ${ms(baseline)} MiB, peak while they were refused`,
+    value: ms(peak),
+    unit: "MiB",
+  });
 
-    // --- Latency while a 48 MB capture is uploaded and analysed (after 3 s without it, for comparison) ---
-    const csv = squareCsv(48 * MiB);
-    const urls = [`${base}${live}`, `${base}${listing}`];
-    const what = (url: string) => (url.endsWith(live) ? `GET ${live} (liveness)` : `GET ${listing} (a public listing page)`);
-    const idle = await probeWhile(urls, new Promise((r) => setTimeout(r, 3000)));
-    for (const url of urls) {
-      const t = idle[url];
-      figures.push({
-        label: `${what(url)} without the upload, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95 ${ms(pct(t, 95))} ms, max`,
-        value: ms(Math.max(...t)),
-        unit: "ms",
-      });
-    }
-    let uploadMs = 0;
-    let uploadStatus = 0;
-    let capture: { status: string; createdAt: string; finishedAt: string | null; error?: { error: string } } = {
-      status: "queued",
-      createdAt: "",
-      finishedAt: null,
-    };
-    const t0 = performance.now();
-    const work = (async () => {
-      await new Promise((r) => setTimeout(r, 300));
-      const form = new FormData();
-      form.append("file", new Blob([csv as Uint8Array<ArrayBuffer>], { type: "text/csv" }), "scope-1k.csv");
-      form.append("kind", "square");
-      form.append("loadOhm", "8");
-      const upload = await fetch(`${base}/api/v1/captures/analyze?wait=0`, {
-        method: "POST",
-        body: form,
-        headers: { Cookie: cookie, Origin: base },
-      });
-      uploadMs = performance.now() - t0 - 300;
-      uploadStatus = upload.status;
-      const queued = (await upload.json()) as { id?: string; error?: string };
-      if (!queued.id) throw new Error(`the capture upload was refused: ${JSON.stringify(queued)}`);
-      const deadline = Date.now() + 180_000;
-      while (capture.status !== "done" && capture.status !== "failed" && Date.now() < deadline) {
-        await new Promise((r) => setTimeout(r, 250));
-        capture = await (await fetch(`${base}/api/v1/captures/${queued.id}`, { headers: { Cookie: cookie } })).json();
-      }
-      await new Promise((r) => setTimeout(r, 300));
-    })();
-    const busy = await probeWhile(urls, work);
-    const totalMs = performance.now() - t0;
-    const analysedMs = capture.finishedAt ? Date.parse(capture.finishedAt) - Date.parse(capture.createdAt) : NaN;
+  // --- Latency while a 48 MB capture is uploaded and analysed (after 3 s without it, for comparison) ---
+  const csv = squareCsv(48 * MiB);
+  const urls = [`${base}${live}`, `${base}${listing}`];
+  const what = (url: string) => (url.endsWith(live) ? `GET ${live} (liveness)` : `GET ${listing} (a public listing page)`);
+  const idle = await probeWhile(urls, new Promise((r) => setTimeout(r, 3000)));
+  for (const url of urls) {
+    const t = idle[url];
     figures.push({
-      label: `${(csv.length / MiB).toFixed(1)} MiB square-wave CSV: upload answered ${uploadStatus} in ${ms(uploadMs)} ms; the job ended ${capture.status}${capture.error ? ` (${capture.error.error})` : ""} ${ms(analysedMs)} ms after the row was made; ${ms(totalMs)} ms in all`,
-      value: ms(totalMs),
+      label: `${what(url)} without the upload, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95 ${ms(pct(t, 95))} ms, max`,
+      value: ms(Math.max(...t)),
       unit: "ms",
     });
-    for (const url of urls) {
-      const t = busy[url];
-      const limited = !(url.endsWith(live) && live === "/healthz");
-      figures.push({
-        label: `${what(url)} meanwhile, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95`,
-        value: ms(pct(t, 95)),
-        unit: "ms",
-        ...(limited ? { limit: 200 } : {}),
-      });
-      figures.push({ label: `${what(url)} meanwhile, max`, value: ms(Math.max(...t)), unit: "ms", ...(limited ? { limit: 200 } : {}) });
-    }
-    figures.push({
-      label: "load average over the last minute (2 cores, shared)",
-      value: Math.round(os.loadavg()[0] * 100) / 100,
-      unit: "",
-    });
-  } finally {
-    for (const c of children) await stopChild(c);
-    await stack.stop();
   }
+  let uploadMs = 0;
+  let uploadStatus = 0;
+  let capture: { status: string; createdAt: string; finishedAt: string | null; error?: { error: string } } = {
+    status: "queued",
+    createdAt: "",
+    finishedAt: null,
+  };
+  const t0 = performance.now();
+  const work = (async () => {
+    await new Promise((r) => setTimeout(r, 300));
+    const form = new FormData();
+    form.append("file", new Blob([csv as Uint8Array<ArrayBuffer>], { type: "text/csv" }), "scope-1k.csv");
+    form.append("kind", "square");
+    form.append("loadOhm", "8");
+    const upload = await fetch(`${base}/api/v1/captures/analyze?wait=0`, {
+      method: "POST",
+      body: form,
+      headers: { Cookie: cookie, Origin: base },
+    });
+    uploadMs = performance.now() - t0 - 300;
+    uploadStatus = upload.status;
+    const queued = (await upload.json()) as { id?: string; error?: string };
+    if (!queued.id) throw new Error(`the capture upload was refused: ${JSON.stringify(queued)}`);
+    const deadline = Date.now() + 180_000;
+    while (capture.status !== "done" && capture.status !== "failed" && Date.now() < deadline) {
+      await new Promise((r) => setTimeout(r, 250));
+      capture = await (await fetch(`${base}/api/v1/captures/${queued.id}`, { headers: { Cookie: cookie } })).json();
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  })();
+  const busy = await probeWhile(urls, work);
+  const totalMs = performance.now() - t0;
+  const analysedMs = capture.finishedAt ? Date.parse(capture.finishedAt) - Date.parse(capture.createdAt) : NaN;
+  figures.push({
+    label: `${(csv.length / MiB).toFixed(1)} MiB square-wave CSV: upload answered ${uploadStatus} in ${ms(uploadMs)} ms; the job ended ${capture.status}${capture.error ? ` (${capture.error.error})` : ""} ${ms(analysedMs)} ms after the row was made; ${ms(totalMs)} ms in all`,
+    value: ms(totalMs),
+    unit: "ms",
+  });
+  for (const url of urls) {
+    const t = busy[url];
+    const limited = !(url.endsWith(live) && live === "/healthz");
+    figures.push({
+      label: `${what(url)} meanwhile, ${t.length} requests: p50 ${ms(pct(t, 50))} ms, p95`,
+      value: ms(pct(t, 95)),
+      unit: "ms",
+      ...(limited ? { limit: 200 } : {}),
+    });
+    figures.push({ label: `${what(url)} meanwhile, max`, value: ms(Math.max(...t)), unit: "ms", ...(limited ? { limit: 200 } : {}) });
+  }
+  figures.push({
+    label: "load average over the last minute (2 cores, shared)",
+    value: Math.round(os.loadavg()[0] * 100) / 100,
+    unit: "",
+  });
   return { figures, notes };
 }

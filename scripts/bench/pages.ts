@@ -1,15 +1,12 @@
 // The public pages under load, side by side: home, the market and a public listing page, each at 50
-// connections with autocannon, against the built app on the throw-away test stack (demo scenario).
+// connections with autocannon, against the built app on the throw-away test stack (`npm run bench`
+// measures them with the scale seed's 100,000 listings added to the demo scenario).
 // The load generator shares the machine's two cores with the server, so absolute figures are lower
 // than a separate client would see; the market's pace against a listing page's is what is limited.
-import { spawn, type ChildProcess } from "node:child_process";
-import fs from "node:fs";
 import { createRequire } from "node:module";
 import os from "node:os";
-import path from "node:path";
-import { bin, bringUp, finished, launch, profile, root, stopChild, waitForHttp } from "../stack";
-
-export type Figure = { label: string; value: number; unit: string; limit?: number; atLeast?: boolean };
+import { seedScale } from "../../db/seeds/scale/write";
+import { withServedApp, type Figure } from "./served-app";
 
 type AutocannonResult = {
   requests: { average: number; total: number };
@@ -66,37 +63,21 @@ export async function measurePages(base: string, connections = 50, seconds = 10)
   return figures;
 }
 
-/** Builds the app, serves it on the throw-away test stack and measures the public pages. */
-export async function pageFigures(): Promise<{ figures: Figure[]; notes: string[] }> {
-  const p = profile("test");
-  fs.rmSync(p.dir, { recursive: true, force: true });
-  const stack = await bringUp(p, { log: () => {} });
-  const children: ChildProcess[] = [];
-  try {
-    const env = { ...stack.env };
-    if ((await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true))) !== 0)
-      throw new Error("react-router build failed");
-    const web = spawn(process.execPath, ["--import", "tsx", path.join(root, "scripts/serve.ts")], {
-      cwd: root,
-      env: { ...process.env, ...env, NODE_ENV: "production", HOST: "127.0.0.1" },
-      stdio: ["ignore", "ignore", "inherit"],
-    });
-    children.push(web);
-    const base = `http://127.0.0.1:${env.PORT}`;
-    await waitForHttp(`${base}/healthz`, 90_000, web);
-    const load = await measurePages(base);
-    // What a phone gets from the same pages: script weight, elements, Lighthouse (scripts/bench/weight.ts).
-    const weight = await (await import("./weight")).weightFigures(base);
-    return { figures: [...load, ...weight.figures], notes: weight.notes };
-  } finally {
-    for (const c of children) await stopChild(c);
-    await stack.stop();
-  }
-}
-
-// Runnable alone: `npx tsx scripts/bench/pages.ts` (own stack), or `… pages.ts http://host:port`.
+// Runnable alone: `npx tsx scripts/bench/pages.ts [--listings N]` (own stack; N made-up listings added
+// with the scale seed first), or `… pages.ts http://host:port`.
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const figures = process.argv[2] ? await measurePages(process.argv[2]) : (await pageFigures()).figures;
+  const url = process.argv.slice(2).find((a) => a.startsWith("http"));
+  const at = process.argv.indexOf("--listings");
+  const listings = at > 0 ? Number(process.argv[at + 1]) : 0;
+  const figures = url
+    ? await measurePages(url)
+    : await withServedApp({}, async (app) => {
+        if (listings > 0) {
+          await seedScale({ databaseUrl: app.databaseUrl, listings, log: console.log });
+          await app.restartWeb();
+        }
+        return measurePages(app.base);
+      });
   for (const f of figures)
     console.log(`${f.label}: ${f.value} ${f.unit}${f.limit ? ` (${f.atLeast ? "at least" : "limit <"} ${f.limit} ${f.unit})` : ""}`);
   process.exit(0);

@@ -5,7 +5,7 @@ import { gzipSync } from "node:zlib";
 import { createRequire } from "node:module";
 import os from "node:os";
 import { chromium, type Browser } from "playwright-core";
-import type { Figure } from "./pages";
+import type { Figure } from "./served-app";
 
 export const JS_BUDGET_KB = 150;
 export const SCORE_FLOOR = 95;

@@ -135,6 +135,36 @@ export const MATRIX: Record<string, Entry> = {
     ],
   },
 
+  // Spec alerts: any account saves and manages its own; someone else's alert is a 404. The unsubscribe
+  // link needs no account (its token is the authority): a live token works for anyone, any other is a 404.
+  "/alerts": {
+    cases: [
+      {
+        get: signedIn("ok"),
+        post: { body: (f) => ({ form: { intent: "rename", alertId: f.alert.id, name: "Matrix alert" } }), expect: ownerOnly("ok") },
+      },
+    ],
+  },
+  "/alerts/new": {
+    cases: [{ get: signedIn("ok"), post: { body: form({ name: "", frequency: "instant", query: "" }), expect: signedIn(400) } }],
+  },
+  "/unsubscribe/:token": {
+    cases: [
+      {
+        name: "live token",
+        params: (f) => ({ token: f.unsubscribeToken }),
+        get: everyone("ok"),
+        post: { body: form({}), expect: everyone("ok") },
+      },
+      {
+        name: "unknown token",
+        params: () => ({ token: "A".repeat(43) }),
+        get: everyone(404),
+        post: { body: form({}), expect: everyone(404) },
+      },
+    ],
+  },
+
   // The seller's path. Any account may start selling; the editor is the owner's alone.
   "/sell": {
     cases: [

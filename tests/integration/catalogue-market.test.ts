@@ -86,6 +86,8 @@ describe("market", () => {
     expect(many.length).toBe(4);
     expect(one.length).toBe(many.length);
     expect(home.length).toBeLessThanOrEqual(5);
+    // Home takes its totals from the market's kept counts: no count over the listings on each visit.
+    expect(home.filter((sql) => /count\(/i.test(sql) && /listings/i.test(sql))).toEqual([]);
     const cards = [...many, ...home].filter((sql) => sql.includes('FROM "listings" AS "Listing"') && sql.includes("LEFT OUTER JOIN"));
     expect(cards.length).toBe(2);
     for (const sql of cards) {
@@ -115,6 +117,8 @@ describe("market", () => {
     const counts = await liveCountsByCategory();
     for (const c of counts) expect(c.live).toBe(await Listing.count({ where: { status: "live", category: c.category } }));
     const home = await homeData(6);
+    expect(home.counts).toEqual(counts);
+    expect(home.totals.benchVerified).toBe(await Listing.count({ where: { status: "live", benchVerified: true } }));
     expect(home.recentVerified.length).toBeGreaterThan(0);
     expect(home.recentVerified.every((l) => l.benchVerified)).toBe(true);
   });

@@ -140,6 +140,8 @@ const filtersArb: fc.Arbitrary<MarketFilters> = fc
     }
     return {
       ...r,
+      // A currency means something only beside a price bound (the canonical URL leaves it out otherwise).
+      currency: lo === null && hi === null ? "EUR" : r.currency,
       measured: measuredValues,
       priceMinMinor: lo,
       priceMaxMinor: lo !== null && hi !== null && hi < lo ? null : hi,
@@ -148,6 +150,15 @@ const filtersArb: fc.Arbitrary<MarketFilters> = fc
   });
 
 describe("the canonical URL", () => {
+  it("leaves out a currency that no price bound is in, and keeps one that is", () => {
+    expect(marketFiltersToParams(parseMarketFilters(new URLSearchParams("category=turntables&currency=GBP")).filters).toString()).toBe(
+      "category=turntables",
+    );
+    expect(marketFiltersToParams(parseMarketFilters(new URLSearchParams("priceMax=1500&currency=GBP")).filters).get("currency")).toBe(
+      "GBP",
+    );
+  });
+
   it("reads back exactly what it wrote (fast-check)", () => {
     fc.assert(
       fc.property(filtersArb, (f) => {

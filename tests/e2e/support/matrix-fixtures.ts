@@ -3,6 +3,8 @@ import { Op } from "sequelize";
 import { Listing, ListingPhoto, User } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { Watch } from "~/models/watch.server";
+import { SpecAlert } from "~/models/spec-alert.server";
+import { issueUnsubscribeUrl } from "~/alerts/unsubscribe.server";
 import { hashPassword } from "~/auth/password.server";
 import type { Role } from "~/auth/roles";
 import type { ListingStatus } from "@shared/catalogue";
@@ -42,6 +44,9 @@ export interface Fixtures {
   capture: Capture;
   /** A ready photo of a live demo listing (its public size key and its private original key). */
   media: { public: string; original: string };
+  /** The owner's spec alert, and an unsubscribe link's token for it. */
+  alert: SpecAlert;
+  unsubscribeToken: string;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -136,7 +141,9 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
   });
   if (!demoPhoto?.listingKey) throw new Error("The demo scenario has no ready photo of a live listing: is the seed loaded?");
   const media = { public: demoPhoto.listingKey, original: demoPhoto.originalKey };
-  return { run, password, users, draft, held, live, photo, capture, media };
+  const alert = await SpecAlert.create({ userId: ownerId, name: "Matrix alert", query: "category=turntables", frequency: "instant" });
+  const unsubscribeToken = new URL(await issueUnsubscribeUrl(ownerId, { kind: "alert", alertId: alert.id })).pathname.split("/").pop()!;
+  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
