@@ -1,3 +1,4 @@
+import { useEffect, useState } from "react";
 import type { Category } from "@shared/catalogue";
 import { MEASURED_FILTERS, measuredFiltersFor, type FilterCounts, type MeasuredFilter } from "@shared/market-filters";
 import { Field } from "~/components/Field";
@@ -21,6 +22,13 @@ export function MeasuredFields({
   const { draft } = state;
   const set = (m: MeasuredFilter) => (draft.get(m.param) ?? "") !== "";
   const offered = measuredFiltersFor(category);
+  const anySet = MEASURED_FILTERS.some(set);
+  // Every category's fields are a hundred-odd elements most visitors never open: the server sends only
+  // those in use (a category's own figures come with the category); the rest are drawn once unfolded.
+  const [unfolded, setUnfolded] = useState(false);
+  useEffect(() => {
+    if (anySet) setUnfolded(true);
+  }, [anySet]);
   const fields = (list: readonly MeasuredFilter[]) => (
     <div className="space-y-3">
       {list.map((m) => (
@@ -35,10 +43,12 @@ export function MeasuredFields({
         fields(offered)
       ) : (
         // Every category's figures are many: folded away until asked for, open when one is in use.
-        <details open={MEASURED_FILTERS.some(set)} className="group text-sm">
+        <details open={anySet} onToggle={(e) => e.currentTarget.open && setUnfolded(true)} className="group text-sm">
           <summary className="cursor-pointer font-medium text-walnut hover:text-walnut-deep">Figures of every category</summary>
-          <p className="my-2 text-[0.8125rem] text-ink-soft">Choose a category above to see only its figures.</p>
-          {fields(MEASURED_FILTERS)}
+          <p className="my-2 text-[0.8125rem] text-ink-soft">
+            {unfolded ? "Choose a category above to see only its figures." : "Choose a category above to filter by its figures."}
+          </p>
+          {fields(unfolded ? MEASURED_FILTERS : MEASURED_FILTERS.filter(set))}
         </details>
       )}
       <fieldset className="rounded-md border border-rule bg-paper/60 px-3 pb-2.5 pt-1">
