@@ -101,8 +101,9 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
     for (const c of SEARCH_CASES) {
       const params = new URLSearchParams(c.params);
       const url = `${app.base}/api/v1/listings?${params}`;
-      // The counts are kept until a live listing changes: first as a buyer meets them when the market
-      // has moved since the last search like theirs (the epoch moved before each call), then kept.
+      // The counts are kept per filter set: first as a buyer meets them when the market has moved since
+      // the last search like theirs (the epoch moved before each call: the kept counts are served and
+      // recounted in the background at most every 15 s), then with the market still.
       const fresh = await timedApi(url, SLOW_RUNS, () => db.query(`SELECT nextval('market_epoch')`));
       const kept = await timedApi(url, RUNS);
       const q = sqlOf(params);
@@ -114,7 +115,7 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
       console.log(`-- its counts (${q.counts.sql.length} characters of SQL):\n${countsPlan}`);
 
       const what = `search "${c.name}" (${kept.total.toLocaleString("en")} units): GET /api/v1/listings`;
-      figures.push(apiFigure(`${what}, counts made afresh (the market moved)`, fresh));
+      figures.push(apiFigure(`${what}, the market moved (kept counts served, recounted behind)`, fresh));
       figures.push(apiFigure(`${what}, counts kept`, kept));
       const [p50, c50] = [pct(page, 50), pct(counts, 50)];
       const indexes = indexesInPlan(pagePlan).join(", ") || "none, sequential scan";
