@@ -40,6 +40,11 @@ export const summaryInclude = [
   { model: BenchSheet, as: "benchSheet", attributes: ["id", "updatedAt"] },
 ];
 
+/** The cards' include with each whole sheet read too, for a page that shows the sheets themselves. */
+export const summaryIncludeWithSheets = summaryInclude.map((i) =>
+  i.as === "benchSheet" ? { ...i, attributes: [...i.attributes, "sheet"] } : i,
+);
+
 // A card's figure comes from its whole sheet, read through the sheet's schema: worth doing once per
 // sheet version, not once per card per request. The cards' query reads only the sheet's id and version;
 // the sheets kept figures do not cover are read in one query.
@@ -52,16 +57,21 @@ async function cardFigures(rows: Listing[]): Promise<Map<string, CardFigure | nu
     if (!bench) continue;
     const hit = leadFigures.get(bench.id);
     if (hit && hit.updatedAt === bench.updatedAt.getTime()) out.set(bench.id, hit.figure);
+    else if ("sheet" in bench.dataValues) out.set(bench.id, keep(bench));
     else missed.push(bench.id);
   }
   if (missed.length === 0) return out;
   for (const bench of await BenchSheet.findAll({ where: { id: missed }, attributes: ["id", "updatedAt", "sheet"] })) {
-    const figure = leadFigure(bench.sheet);
-    if (leadFigures.size >= 10_000) leadFigures.clear();
-    leadFigures.set(bench.id, { updatedAt: bench.updatedAt.getTime(), figure });
-    out.set(bench.id, figure);
+    out.set(bench.id, keep(bench));
   }
   return out;
+}
+
+function keep(bench: BenchSheet): CardFigure | null {
+  const figure = leadFigure(bench.sheet);
+  if (leadFigures.size >= 10_000) leadFigures.clear();
+  leadFigures.set(bench.id, { updatedAt: bench.updatedAt.getTime(), figure });
+  return figure;
 }
 
 export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {

@@ -2,7 +2,7 @@ import { describeConditions, type BenchSheet } from "@shared/bench";
 import { compareFigures } from "@shared/bench/figures";
 import { CATEGORY_LABELS } from "@shared/catalogue";
 import { Listing } from "~/models/index.server";
-import { summaryAttributes, summaryInclude, toSummaries } from "~/catalogue/summaries.server";
+import { summaryAttributes, summaryIncludeWithSheets, toSummaries } from "~/catalogue/summaries.server";
 import { responseSeries } from "~/listings/plot-math";
 import { PUBLIC_STATUSES } from "~/listings/visibility";
 import { figureGroups } from "./rows";
@@ -27,7 +27,7 @@ export async function loadComparison(ids: readonly string[]): Promise<Comparison
     ? await Listing.findAll({
         where: { id: [...ids], status: [...PUBLIC_STATUSES] },
         attributes: [...summaryAttributes, "status"],
-        include: summaryInclude,
+        include: summaryIncludeWithSheets,
       })
     : [];
   const byId = new Map(rows.map((r) => [r.id, r]));
