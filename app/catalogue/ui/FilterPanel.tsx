@@ -99,38 +99,26 @@ export function FilterPanel({
         </div>
       </fieldset>
       <MeasuredFields state={state} category={category} counts={counts} errors={errors} />
-      <fieldset>
-        <Legend>Condition</Legend>
-        {COSMETIC_GRADES.map((g) => (
-          <Choice
-            key={g}
-            type="checkbox"
-            name="condition"
-            value={g}
-            label={COSMETIC_GRADE_TEXT[g].label}
-            count={counts?.condition[g]}
-            checked={picked("condition").includes(g)}
-            onChange={(e) => toggle("condition", g, e.target.checked)}
-          />
-        ))}
-        <FieldMessage text={errors.get("condition")} />
-      </fieldset>
-      <fieldset>
-        <Legend>Service state</Legend>
-        {SERVICE_STATES.map((s) => (
-          <Choice
-            key={s}
-            type="checkbox"
-            name="service"
-            value={s}
-            label={SERVICE_STATE_TEXT[s].label}
-            count={counts?.service[s]}
-            checked={picked("service").includes(s)}
-            onChange={(e) => toggle("service", s, e.target.checked)}
-          />
-        ))}
-        <FieldMessage text={errors.get("service")} />
-      </fieldset>
+      <CheckboxGroup
+        legend="Condition"
+        name="condition"
+        values={COSMETIC_GRADES}
+        labelOf={(g) => COSMETIC_GRADE_TEXT[g].label}
+        counts={counts?.condition}
+        picked={picked("condition")}
+        onToggle={(g, on) => toggle("condition", g, on)}
+        error={errors.get("condition")}
+      />
+      <CheckboxGroup
+        legend="Service state"
+        name="service"
+        values={SERVICE_STATES}
+        labelOf={(v) => SERVICE_STATE_TEXT[v].label}
+        counts={counts?.service}
+        picked={picked("service")}
+        onToggle={(v, on) => toggle("service", v, on)}
+        error={errors.get("service")}
+      />
       <fieldset>
         <Legend>Seller</Legend>
         {(
@@ -213,4 +201,44 @@ export function priceCurrency(draft: URLSearchParams, display: string | null): C
   if (named && isCurrency(named)) return named;
   if (draft.get("priceMin")?.trim() || draft.get("priceMax")?.trim()) return "EUR";
   return display && isCurrency(display) ? display : "EUR";
+}
+
+/** A repeatable parameter as checkboxes, each with the units it would leave. */
+function CheckboxGroup<T extends string>({
+  legend,
+  name,
+  values,
+  labelOf,
+  counts,
+  picked,
+  onToggle,
+  error,
+}: {
+  legend: string;
+  name: string;
+  values: readonly T[];
+  labelOf: (value: T) => string;
+  counts: Record<T, number> | undefined;
+  picked: readonly string[];
+  onToggle: (value: T, on: boolean) => void;
+  error: string | undefined;
+}) {
+  return (
+    <fieldset>
+      <Legend>{legend}</Legend>
+      {values.map((v) => (
+        <Choice
+          key={v}
+          type="checkbox"
+          name={name}
+          value={v}
+          label={labelOf(v)}
+          count={counts?.[v]}
+          checked={picked.includes(v)}
+          onChange={(e) => onToggle(v, e.target.checked)}
+        />
+      ))}
+      <FieldMessage text={error} />
+    </fieldset>
+  );
 }
