@@ -5,6 +5,8 @@ import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
 import { deliverWatchNotice } from "~/alerts/watch-notices.server";
 import { matchSpecAlerts } from "~/alerts/matching.server";
 import { digestJob } from "~/alerts/digest.server";
+import { orderDeadlineJob } from "~/orders/deadlines.server";
+import { deliverOrderMail } from "~/orders/mail.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -18,4 +20,7 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.watchNotice]: deliverWatchNotice,
   [QUEUES.alertMatch]: matchSpecAlerts,
   [QUEUES.alertDigest]: digestJob,
+  // Buying: order deadlines (deferred, one per deadline) and order mails. The provider's queues are app/orders/provider's.
+  [QUEUES.orderDeadline]: orderDeadlineJob,
+  [QUEUES.orderMail]: deliverOrderMail,
 };
