@@ -116,7 +116,7 @@ describe("the ledger over random paths", () => {
         expect(["released", "refunded", "cancelled"]).toContain(o.state);
         expect(b.escrow).toBe(0);
         expect(b.seller_payable).toBe(0);
-        const paid = o.paymentIntentId ? o.totalMinor : 0;
+        const paid: number = o.paymentIntentId ? o.totalMinor : 0;
         expect(b.buyer).toBe(-paid + o.refundedMinor);
         expect(b.platform_fees).toBe(o.feeMinor ?? 0);
         expect(b.seller_paid).toBe(paid - o.refundedMinor - (o.feeMinor ?? 0));
