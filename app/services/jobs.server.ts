@@ -13,6 +13,10 @@ export const QUEUES = {
   watchNotice: "watch-notice",
   alertMatch: "spec-alert-match",
   alertDigest: "spec-alert-digest",
+  // Buying, the provider's side (app/payments): a recorded webhook event, the seller's payout, a refund.
+  paymentEvent: "payment-event",
+  orderRelease: "order-release",
+  orderRefund: "order-refund",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
