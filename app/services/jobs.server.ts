@@ -18,7 +18,10 @@ export const QUEUES = {
   messageMail: "message-mail",
   offerMail: "offer-mail",
   offerExpiry: "offer-expiry",
-  // Buying, the provider's side (app/payments): a recorded webhook event, the seller's payout, a refund.
+  // Buying (app/orders): one deferred job per order deadline and the order mails; the provider's
+  // side (app/payments): a recorded webhook event, paying the seller, refunding the buyer.
+  orderDeadline: "order-deadline",
+  orderMail: "order-mail",
   paymentEvent: "payment-event",
   orderRelease: "order-release",
   orderRefund: "order-refund",
