@@ -5,6 +5,9 @@ import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
 import { deliverWatchNotice } from "~/alerts/watch-notices.server";
 import { matchSpecAlerts } from "~/alerts/matching.server";
 import { digestJob } from "~/alerts/digest.server";
+import { deliverMessageMail } from "~/messages/message-mail.server";
+import { deliverOfferMail } from "~/offers/offer-mail.server";
+import { expireOffer } from "~/offers/offers.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -18,4 +21,8 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.watchNotice]: deliverWatchNotice,
   [QUEUES.alertMatch]: matchSpecAlerts,
   [QUEUES.alertDigest]: digestJob,
+  // Talking before buying: one mail per burst of messages, offer mails, offer expiry at its deadline.
+  [QUEUES.messageMail]: deliverMessageMail,
+  [QUEUES.offerMail]: deliverOfferMail,
+  [QUEUES.offerExpiry]: (data) => expireOffer(data),
 };
