@@ -8,6 +8,9 @@ import { digestJob } from "~/alerts/digest.server";
 import { orderRefundJob, orderReleaseJob, paymentEventJob } from "~/payments/jobs.server";
 import { orderDeadlineJob } from "~/orders/deadlines.server";
 import { deliverOrderMail } from "~/orders/mail.server";
+import { deliverMessageMail } from "~/messages/message-mail.server";
+import { deliverOfferMail } from "~/offers/offer-mail.server";
+import { expireOffer } from "~/offers/offers.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -28,4 +31,8 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   // Buying (app/orders): order deadlines (deferred, one per deadline) and order mails.
   [QUEUES.orderDeadline]: orderDeadlineJob,
   [QUEUES.orderMail]: deliverOrderMail,
+  // Talking before buying: one mail per burst of messages, offer mails, offer expiry at its deadline.
+  [QUEUES.messageMail]: deliverMessageMail,
+  [QUEUES.offerMail]: deliverOfferMail,
+  [QUEUES.offerExpiry]: (data) => expireOffer(data),
 };
