@@ -28,6 +28,10 @@ describe("50 buyers at once", () => {
     expect(won).toHaveLength(1);
     expect(lost).toHaveLength(49);
     expect(new Set(lost.map((r) => (r.reason as { code?: string }).code))).toEqual(new Set(["order_state"]));
+    // Refused by the listing's lock and status, not merely by the unique index behind them.
+    expect(new Set(lost.map((r) => (r.reason as Error).message))).toEqual(
+      new Set(["Another buyer is checking out this unit. If they do not pay in time it returns to the market."]),
+    );
     const orders = await Order.findAll({ where: { listingId: listing.id } });
     expect(orders).toHaveLength(1);
     expect(await OrderEvent.count({ where: { orderId: orders[0].id } })).toBe(1);
