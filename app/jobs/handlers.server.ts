@@ -5,6 +5,8 @@ import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
 import { deliverWatchNotice } from "~/alerts/watch-notices.server";
 import { matchSpecAlerts } from "~/alerts/matching.server";
 import { digestJob } from "~/alerts/digest.server";
+import { orderDeadlineJob } from "~/orders/deadlines.server";
+import { deliverOrderMail } from "~/orders/mail.server";
 import { orderRefundJob, orderReleaseJob, paymentEventJob } from "~/payments/jobs.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
@@ -19,7 +21,10 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.watchNotice]: deliverWatchNotice,
   [QUEUES.alertMatch]: matchSpecAlerts,
   [QUEUES.alertDigest]: digestJob,
-  // Buying, the provider's side: recorded webhook events, the seller's payout, refunds.
+  // Buying: order deadlines (deferred, one per deadline) and order mails; the provider's side
+  // (app/payments): recorded webhook events, the seller's payout, refunds.
+  [QUEUES.orderDeadline]: orderDeadlineJob,
+  [QUEUES.orderMail]: deliverOrderMail,
   [QUEUES.paymentEvent]: paymentEventJob,
   [QUEUES.orderRelease]: orderReleaseJob,
   [QUEUES.orderRefund]: orderRefundJob,

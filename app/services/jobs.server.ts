@@ -13,10 +13,13 @@ export const QUEUES = {
   watchNotice: "watch-notice",
   alertMatch: "spec-alert-match",
   alertDigest: "spec-alert-digest",
-  // Buying, the provider's side (app/payments): a recorded webhook event, the seller's payout, a refund.
-  paymentEvent: "payment-event",
+  // Buying (app/orders): one deferred job per order deadline, the order mails, and the provider's
+  // side (app/payments): paying the seller, refunding the buyer, recorded webhook events.
+  orderDeadline: "order-deadline",
+  orderMail: "order-mail",
   orderRelease: "order-release",
   orderRefund: "order-refund",
+  paymentEvent: "payment-event",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
