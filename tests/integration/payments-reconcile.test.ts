@@ -9,9 +9,9 @@ import { reconcile } from "~/payments/reconcile.server";
 import { checkout, deliverClean, liveUnit, pay, runMoneyJobs, startWorld, stopWorld, type World } from "../support/payments-world";
 
 // `npm run reconcile`: the ledger per order against the provider's charges, refunds and transfers.
-// A clean world agrees; a ledger broken on purpose (a refund the provider never made, a payment
-// recorded larger than charged) and a transfer made behind the ledger's back are each reported, and
-// the command exits non-zero.
+// A clean world agrees; a ledger broken on purpose (a refund the provider never made, a transfer
+// recorded larger than made) and a refund made behind the ledger's back are each reported, and the
+// command exits non-zero.
 
 describe("reconcile", () => {
   let world: World;
@@ -61,13 +61,8 @@ describe("reconcile", () => {
 
   it("reports each difference of a deliberately broken ledger and exits non-zero", async () => {
     const at = world.clock.app.now();
-    await sequelize.transaction(async (transaction) => {
-      // A refund the provider never made, and 100 more paid in than was charged.
-      await move(broken, "refund", "escrow", "buyer", 5_000, { providerRef: "re_neverhappened", at, transaction });
-      await move(broken, "buyer_payment", "buyer", "escrow", 100, { providerRef: broken.chargeId, at, transaction });
-    });
-    // A transfer the ledger knows nothing about.
-    const extra = await world.stripe.transfers.create({
+    // A transfer the ledger records larger than the provider made it, and a refund the provider never made.
+    const transfer = await world.stripe.transfers.create({
       amount: 1_000,
       currency: "gbp",
       destination: world.seller.payoutAccountId!,
@@ -75,13 +70,19 @@ describe("reconcile", () => {
       transfer_group: `order_${broken.id}`,
       metadata: { order_id: broken.id },
     });
+    await sequelize.transaction(async (transaction) => {
+      await move(broken, "refund", "escrow", "buyer", 5_000, { providerRef: "re_neverhappened", at, transaction });
+      await move(broken, "transfer", "seller_payable", "seller_paid", 1_200, { providerRef: transfer.id, at, transaction });
+    });
+    // A refund made at the provider behind the ledger's back.
+    const refund = await world.stripe.refunds.create({ charge: broken.chargeId!, amount: 700, metadata: { order_id: broken.id } });
 
     const differences = await reconcile(scope());
     expect(differences.map((d) => [d.orderId, d.kind, d.providerRef, d.ledgerMinor, d.providerMinor]).sort()).toEqual(
       [
-        [broken.id, "payment", broken.chargeId, 21_100, 21_000],
         [broken.id, "refund", "re_neverhappened", 5_000, null],
-        [broken.id, "transfer", extra.id, null, 1_000],
+        [broken.id, "refund", refund.id, null, 700],
+        [broken.id, "transfer", transfer.id, 1_200, 1_000],
       ].sort(),
     );
     // The released order is still in agreement.
@@ -91,6 +92,7 @@ describe("reconcile", () => {
     expect(cli.code).toBe(1);
     expect(cli.out).toContain("3 differences");
     expect(cli.out).toContain(`the ledger's refund re_neverhappened is not at the provider`);
-    expect(cli.out).toContain(`payment ${broken.chargeId}: ledger 21100 GBP, provider 21000 GBP`);
+    expect(cli.out).toContain(`transfer to the seller ${transfer.id}: ledger 1200 GBP, provider 1000 GBP`);
+    expect(cli.out).toContain(`the provider's refund ${refund.id} (700 GBP) is not in the ledger`);
   }, 60_000);
 });
