@@ -37,7 +37,7 @@ describe("demo sellers", () => {
     for (const email of ["workshop@loadline.test", "seller@loadline.test"]) {
       const user = await User.findOne({ where: { email }, rejectOnEmpty: true });
       expect(user.payoutsEnabled, email).toBe(true);
-      expect(accountCanBePaid(await payments().accounts.retrieve(user.payoutAccountId!))).toBe(true);
+      expect(accountCanBePaid(await payments().accounts.retrieve(user.payoutAccountId ?? ""))).toBe(true);
     }
     const unconnected = await User.findOne({ where: { email: "seller2@loadline.test" }, rejectOnEmpty: true });
     expect(unconnected).toMatchObject({ payoutsEnabled: false, payoutAccountId: null });
