@@ -115,10 +115,7 @@ export interface SellerShare {
  * Sends the seller's share to their connected account, from the order's own charge
  * (source_transaction), so it may go while the charge's funds are still pending at the provider.
  */
-export async function transferToSeller(
-  order: ProviderOrder,
-  share: SellerShare,
-): Promise<{ transferId: string; amountMinor: number }> {
+export async function transferToSeller(order: ProviderOrder, share: SellerShare): Promise<{ transferId: string; amountMinor: number }> {
   if (!order.chargeId) throw new Error(`Order ${order.id} has no charge to pay the seller from`);
   const seller = await User.findByPk(order.sellerId, { rejectOnEmpty: true });
   const destination = seller.get("payoutAccountId") as string | null;
