@@ -6,6 +6,7 @@ import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
 import { env } from "~/env.server";
+import { loggable } from "~/http/log.server";
 import { commonSecurityHeaders, contentSecurityPolicy, newNonce } from "~/http/security-headers.server";
 
 // Renders every HTML document. Each response gets its own nonce: React Router's inline scripts
@@ -85,12 +86,4 @@ export default function handleRequest(
 export function handleError(error: unknown, { request }: { request: Request }) {
   if (request.signal.aborted) return;
   console.error(`[web] ${request.method} ${new URL(request.url).pathname}:`, loggable(error));
-}
-
-export function loggable(error: unknown): string {
-  if (!(error instanceof Error)) return String(error);
-  const original = "original" in error && error.original instanceof Error ? error.original : null;
-  const code = original && "code" in original ? ` (${String(original.code)})` : "";
-  const stack = "sql" in error ? "" : `\n${error.stack ?? ""}`;
-  return `${error.name}: ${original?.message ?? error.message}${code}${stack}`;
 }

@@ -20,6 +20,7 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { NavigationProgress, useNavigating } from "~/components/NavigationProgress";
 import { PricingProvider } from "~/components/Price";
 import { pricingFor } from "~/currencies/display.server";
+import { loggable } from "~/http/log.server";
 import { readCompareList } from "~/compare/compare-list.server";
 import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
@@ -31,7 +32,11 @@ export async function loader({ request }: Route.LoaderArgs) {
     getUser(request),
     takeNotice(request),
     readCompareList(request),
-    pricingFor(request).catch(() => null),
+    // A broken rate table must not take every page down with it, but it must not go unnoticed either.
+    pricingFor(request).catch((error: unknown) => {
+      console.error("[web] the rate table could not be read; prices show in the seller's currency only:", loggable(error));
+      return null;
+    }),
   ]);
   const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
   // Every page may show prices: the buyer's display currency and the rates ride along (a dozen rows).

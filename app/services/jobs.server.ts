@@ -13,6 +13,11 @@ export const QUEUES = {
   watchNotice: "watch-notice",
   alertMatch: "spec-alert-match",
   alertDigest: "spec-alert-digest",
+  // Talking before buying (app/messages, app/offers): one mail per burst of messages, offer mails,
+  // and each open offer's expiry (deferred to its expires_at).
+  messageMail: "message-mail",
+  offerMail: "offer-mail",
+  offerExpiry: "offer-expiry",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
