@@ -5,6 +5,7 @@ import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
 import { deliverWatchNotice } from "~/alerts/watch-notices.server";
 import { matchSpecAlerts } from "~/alerts/matching.server";
 import { digestJob } from "~/alerts/digest.server";
+import { orderRefundJob, orderReleaseJob, paymentEventJob } from "~/payments/jobs.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -18,4 +19,8 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.watchNotice]: deliverWatchNotice,
   [QUEUES.alertMatch]: matchSpecAlerts,
   [QUEUES.alertDigest]: digestJob,
+  // Buying, the provider's side: recorded webhook events, the seller's payout, refunds.
+  [QUEUES.paymentEvent]: paymentEventJob,
+  [QUEUES.orderRelease]: orderReleaseJob,
+  [QUEUES.orderRefund]: orderRefundJob,
 };

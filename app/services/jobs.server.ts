@@ -18,6 +18,10 @@ export const QUEUES = {
   messageMail: "message-mail",
   offerMail: "offer-mail",
   offerExpiry: "offer-expiry",
+  // Buying, the provider's side (app/payments): a recorded webhook event, the seller's payout, a refund.
+  paymentEvent: "payment-event",
+  orderRelease: "order-release",
+  orderRefund: "order-refund",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
