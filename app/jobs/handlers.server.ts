@@ -6,6 +6,8 @@ import { deliverWatchNotice } from "~/alerts/watch-notices.server";
 import { matchSpecAlerts } from "~/alerts/matching.server";
 import { digestJob } from "~/alerts/digest.server";
 import { orderRefundJob, orderReleaseJob, paymentEventJob } from "~/payments/jobs.server";
+import { orderDeadlineJob } from "~/orders/deadlines.server";
+import { deliverOrderMail } from "~/orders/mail.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -23,4 +25,7 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.paymentEvent]: paymentEventJob,
   [QUEUES.orderRelease]: orderReleaseJob,
   [QUEUES.orderRefund]: orderRefundJob,
+  // Buying: order deadlines (deferred, one per deadline) and order mails.
+  [QUEUES.orderDeadline]: orderDeadlineJob,
+  [QUEUES.orderMail]: deliverOrderMail,
 };

@@ -18,6 +18,9 @@ export const QUEUES = {
   messageMail: "message-mail",
   offerMail: "offer-mail",
   offerExpiry: "offer-expiry",
+  // Buying (app/orders): one deferred job per order deadline and the order mails.
+  orderDeadline: "order-deadline",
+  orderMail: "order-mail",
   // Buying, the provider's side (app/payments): a recorded webhook event, the seller's payout, a refund.
   paymentEvent: "payment-event",
   orderRelease: "order-release",
