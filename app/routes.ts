@@ -61,4 +61,11 @@ export default [
   // Currencies: the admin's exchange rates, the buyer's display currency (a cookie)
   route("admin/rates", "routes/admin/rates.tsx"),
   route("currency", "routes/currency.tsx"),
+  // Talking before buying: conversations (one per listing and buyer) and offers, pages and API
+  route("messages", "routes/messages/index.tsx"),
+  route("messages/:threadId", "routes/messages/thread.tsx"),
+  route("api/v1/threads", "routes/api.v1.threads.ts"),
+  route("api/v1/threads/:id/messages", "routes/api.v1.threads.$id.messages.ts"),
+  route("api/v1/offers", "routes/api.v1.offers.ts"),
+  route("api/v1/offers/:id", "routes/api.v1.offers.$id.ts"),
 ] satisfies RouteConfig;

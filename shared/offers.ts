@@ -19,3 +19,16 @@ export const OFFER_STATE_LABELS: Record<OfferState, string> = {
 export const DEFAULT_OFFER_HOURS = 48;
 /** Hours an accepted offer's price holds for checkout when the settings say nothing. */
 export const DEFAULT_OFFER_CHECKOUT_HOURS = 24;
+
+export type OfferActionName = "accept" | "decline" | "counter" | "withdraw";
+
+/**
+ * What one side may do with an offer now: the side that did not make an open offer answers it (the
+ * seller may also counter; a buyer answers a counter by accepting or declining, or makes a new
+ * offer after), the side that made it may withdraw it. Nothing once it is no longer open.
+ */
+export function offerActions(offer: { state: OfferState; madeBy: OfferParty; expiresAt: Date }, side: OfferParty, now: Date): OfferActionName[] {
+  if (offer.state !== "open" || offer.expiresAt.getTime() <= now.getTime()) return [];
+  if (offer.madeBy === side) return ["withdraw"];
+  return side === "seller" ? ["accept", "decline", "counter"] : ["accept", "decline"];
+}

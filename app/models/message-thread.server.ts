@@ -14,6 +14,9 @@ export class MessageThread extends Model<InferAttributes<MessageThread>, InferCr
   declare buyerReadAt: Date | null;
   declare sellerReadAt: Date | null;
   declare lastMessageAt: Date | null;
+  /** Up to when each side has been mailed about new messages (the 'message-mail' job). */
+  declare buyerMailedAt: CreationOptional<Date | null>;
+  declare sellerMailedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -27,6 +30,8 @@ MessageThread.init(
     buyerReadAt: { type: DataTypes.DATE, allowNull: true },
     sellerReadAt: { type: DataTypes.DATE, allowNull: true },
     lastMessageAt: { type: DataTypes.DATE, allowNull: true },
+    buyerMailedAt: { type: DataTypes.DATE, allowNull: true },
+    sellerMailedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

@@ -165,6 +165,72 @@ export const MATRIX: Record<string, Entry> = {
     ],
   },
 
+  // Conversations: a thread is its buyer's and its seller's (the owner of the listing); anyone else gets
+  // a 404, as for a thread that does not exist. Asking about your own unit is refused (409).
+  "/messages": {
+    cases: [
+      {
+        get: signedIn("ok"),
+        post: { body: (f) => ({ form: { intent: "ask", listingId: f.live.id } }), expect: { anonymous: "sign-in", owner: 409, others: { to: /^\/messages\/[0-9a-f-]{36}$/ } } },
+      },
+    ],
+  },
+  "/messages/:threadId": {
+    cases: [
+      {
+        params: (f) => ({ threadId: f.thread.id }),
+        get: { anonymous: "sign-in", buyer: "ok", owner: "ok", others: 404 },
+        post: {
+          body: form({ intent: "send", body: "Is the left channel's bias adjustable?" }),
+          expect: { anonymous: "sign-in", buyer: { to: "/messages/:threadId" }, owner: { to: "/messages/:threadId" }, others: 404 },
+        },
+      },
+      { name: "no such thread", params: () => ({ threadId: randomUUID() }), get: signedIn(404) },
+    ],
+  },
+  "/api/v1/threads": {
+    cases: [
+      {
+        get: apiSignedIn("ok"),
+        writes: { POST: { body: (f) => ({ json: { listingId: f.live.id } }), expect: { anonymous: 401, owner: 409, others: 201 } } },
+      },
+    ],
+  },
+  "/api/v1/threads/:id/messages": {
+    cases: [
+      {
+        params: (f) => ({ id: f.thread.id }),
+        get: { anonymous: 401, buyer: "ok", owner: "ok", others: 404 },
+        writes: { POST: { body: () => ({ json: { body: "Does it come with the manual?" } }), expect: { anonymous: 401, buyer: 201, owner: 201, others: 404 } } },
+      },
+    ],
+  },
+  // Offers: the buyer persona already has one open (409 for a second); the owner cannot offer on their own unit.
+  "/api/v1/offers": {
+    cases: [
+      {
+        get: everyone(405),
+        writes: {
+          POST: {
+            body: (f) => ({ json: { listingId: f.live.id, amountMinor: 40_000, currency: "EUR" } }),
+            expect: { anonymous: 401, owner: 409, buyer: 409, others: 201 },
+          },
+        },
+      },
+    ],
+  },
+  // Answering: the side it was made to (the owner) may accept; the buyer who made it may not (403);
+  // anyone else gets a 404. The owner's acceptance closes the offer, so it runs last.
+  "/api/v1/offers/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.offer.id }),
+        get: everyone(405),
+        writes: { POST: { body: () => ({ json: { action: "accept" } }), expect: { anonymous: 401, buyer: 403, owner: "ok", others: 404 }, last: true } },
+      },
+    ],
+  },
+
   // The seller's path. Any account may start selling; the editor is the owner's alone.
   "/sell": {
     cases: [

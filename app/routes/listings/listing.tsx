@@ -12,6 +12,7 @@ import { BenchSheetSection, KeyFigures } from "~/listings/ui/BenchSheetSection";
 import { Gallery } from "~/listings/ui/Gallery";
 import { ListingTitle, OwnerLinks, PriceAndCondition, StatusBanner, WatchControl } from "~/listings/ui/ListingHeader";
 import { Plots } from "~/listings/ui/Plots";
+import { TalkControls } from "~/listings/ui/TalkControls";
 import { RestorationLog } from "~/listings/ui/RestorationLog";
 import { SafetyCautions, SellerCard, ShippingPanel } from "~/listings/ui/SidePanels";
 import { UnitDetails } from "~/listings/ui/UnitDetails";
@@ -87,6 +88,7 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
           <ListingTitle listing={listing} />
           <PriceAndCondition listing={listing} />
           <WatchControl listing={listing} viewer={viewer} />
+          <TalkControls listing={listing} viewer={viewer} />
           {listing.status === "live" || listing.status === "sold" ? <CompareToggle listingId={listing.id} layout="page" /> : null}
           <OwnerLinks listing={listing} viewer={viewer} />
           <div className="border-t border-rule pt-5">

@@ -4,6 +4,8 @@ import { Listing, ListingPhoto, User } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { Watch } from "~/models/watch.server";
 import { SpecAlert } from "~/models/spec-alert.server";
+import { MessageThread } from "~/models/message-thread.server";
+import { Offer } from "~/models/offer.server";
 import { issueUnsubscribeUrl } from "~/alerts/unsubscribe.server";
 import { hashPassword } from "~/auth/password.server";
 import type { Role } from "~/auth/roles";
@@ -47,6 +49,9 @@ export interface Fixtures {
   /** The owner's spec alert, and an unsubscribe link's token for it. */
   alert: SpecAlert;
   unsubscribeToken: string;
+  /** The buyer's conversation with the owner about the live listing, and the buyer's open offer in it. */
+  thread: MessageThread;
+  offer: Offer;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -143,7 +148,31 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
   const media = { public: demoPhoto.listingKey, original: demoPhoto.originalKey };
   const alert = await SpecAlert.create({ userId: ownerId, name: "Matrix alert", query: "category=turntables", frequency: "instant" });
   const unsubscribeToken = new URL(await issueUnsubscribeUrl(ownerId, { kind: "alert", alertId: alert.id })).pathname.split("/").pop()!;
-  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken };
+  // The live unit takes offers, so an offer API probe can get past the listing's own refusals.
+  await live.update({ offersWelcome: true });
+  const thread = await MessageThread.create({
+    listingId: live.id,
+    buyerId: users.buyer.id,
+    sellerId: ownerId,
+    buyerReadAt: new Date(),
+    sellerReadAt: null,
+    lastMessageAt: new Date(),
+  });
+  const offer = await Offer.create({
+    listingId: live.id,
+    buyerId: users.buyer.id,
+    sellerId: ownerId,
+    threadId: thread.id,
+    amountMinor: 42_000,
+    currency: "EUR",
+    madeBy: "buyer",
+    parentOfferId: null,
+    expiresAt: new Date(Date.now() + 48 * 3_600_000),
+    acceptedAt: null,
+    checkoutUntil: null,
+    decidedAt: null,
+  });
+  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
