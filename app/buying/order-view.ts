@@ -50,6 +50,7 @@ export interface OrderListingView {
   title: string;
   thumbUrl: string | null;
   heavy: boolean;
+  weightG: number | null;
   weightText: string | null;
   /** Everything but passive loudspeakers plugs into the wall. */
   mainsPowered: boolean;
