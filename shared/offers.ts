@@ -27,7 +27,11 @@ export type OfferActionName = "accept" | "decline" | "counter" | "withdraw";
  * seller may also counter; a buyer answers a counter by accepting or declining, or makes a new
  * offer after), the side that made it may withdraw it. Nothing once it is no longer open.
  */
-export function offerActions(offer: { state: OfferState; madeBy: OfferParty; expiresAt: Date }, side: OfferParty, now: Date): OfferActionName[] {
+export function offerActions(
+  offer: { state: OfferState; madeBy: OfferParty; expiresAt: Date },
+  side: OfferParty,
+  now: Date,
+): OfferActionName[] {
   if (offer.state !== "open" || offer.expiresAt.getTime() <= now.getTime()) return [];
   if (offer.madeBy === side) return ["withdraw"];
   return side === "seller" ? ["accept", "decline", "counter"] : ["accept", "decline"];

@@ -25,10 +25,13 @@ export async function openThread(buyerId: string, listingId: unknown, transactio
   if (existing) return existing;
   if (!listing || listing.status !== "live") throw refusal("not_found", "There is no unit for sale here to ask about.");
   if (listing.sellerId === buyerId) throw refusal("conflict", "This is your own listing.");
-  await MessageThread.bulkCreate([{ listingId: listing.id, buyerId, sellerId: listing.sellerId, buyerReadAt: null, sellerReadAt: null, lastMessageAt: null }], {
-    ignoreDuplicates: true,
-    transaction,
-  });
+  await MessageThread.bulkCreate(
+    [{ listingId: listing.id, buyerId, sellerId: listing.sellerId, buyerReadAt: null, sellerReadAt: null, lastMessageAt: null }],
+    {
+      ignoreDuplicates: true,
+      transaction,
+    },
+  );
   const thread = await MessageThread.findOne({ where: { listingId: listing.id, buyerId }, transaction });
   if (!thread) throw new Error("the thread just made is missing");
   return thread;
@@ -102,34 +105,32 @@ export async function conversation(userId: string, threadId: unknown, now: Date 
   if (!listing) throw refusal("not_found", "There is no conversation here.");
   const otherName = other?.displayName ?? "";
   const items: ConversationItem[] = [
-    ...messages.map(
-      (m): ConversationItem => ({
-        kind: "message",
-        id: m.id,
-        at: m.createdAt.toISOString(),
-        fromMe: m.senderId === userId,
-        senderName: m.senderId === userId ? "You" : otherName,
-        body: m.body,
-        masked: m.masked,
-      }),
-    ),
-    ...offers.map(
-      (o): ConversationItem => ({
-        kind: "offer",
-        id: o.id,
-        at: o.createdAt.toISOString(),
-        fromMe: o.madeBy === role,
-        madeBy: o.madeBy,
-        amountMinor: o.amountMinor,
-        currency: o.currency,
-        state: o.state,
-        expiresAt: o.expiresAt.toISOString(),
-        checkoutUntil: o.checkoutUntil?.toISOString() ?? null,
-        actions: offerActions(o, role, now),
-      }),
-    ),
+    ...messages.map((m): ConversationItem => ({
+      kind: "message",
+      id: m.id,
+      at: m.createdAt.toISOString(),
+      fromMe: m.senderId === userId,
+      senderName: m.senderId === userId ? "You" : otherName,
+      body: m.body,
+      masked: m.masked,
+    })),
+    ...offers.map((o): ConversationItem => ({
+      kind: "offer",
+      id: o.id,
+      at: o.createdAt.toISOString(),
+      fromMe: o.madeBy === role,
+      madeBy: o.madeBy,
+      amountMinor: o.amountMinor,
+      currency: o.currency,
+      state: o.state,
+      expiresAt: o.expiresAt.toISOString(),
+      checkoutUntil: o.checkoutUntil?.toISOString() ?? null,
+      actions: offerActions(o, role, now),
+    })),
   ].sort((a, b) => a.at.localeCompare(b.at));
-  const openOrAccepted = offers.some((o) => (o.state === "open" && o.expiresAt > now) || (o.state === "accepted" && o.checkoutUntil && o.checkoutUntil > now));
+  const openOrAccepted = offers.some(
+    (o) => (o.state === "open" && o.expiresAt > now) || (o.state === "accepted" && o.checkoutUntil && o.checkoutUntil > now),
+  );
   await markRead(thread, role, now);
   return {
     thread: {
@@ -166,7 +167,10 @@ export async function sendMessage(senderId: string, threadId: unknown, body: str
     const { thread, role } = await threadFor(senderId, threadId, { transaction, lock: true });
     const paid = await buyerHasPaid(thread.listingId, thread.buyerId, transaction);
     const shown = paid ? { text: body, masked: false } : maskContactDetails(body);
-    const message = await Message.create({ threadId: thread.id, senderId, body: shown.text, masked: shown.masked, createdAt: now }, { transaction });
+    const message = await Message.create(
+      { threadId: thread.id, senderId, body: shown.text, masked: shown.masked, createdAt: now },
+      { transaction },
+    );
     await touchThread(thread, role, now, transaction);
     await queueMessageMail(thread.id, role === "buyer" ? thread.sellerId : thread.buyerId, transaction);
     return { id: message.id, body: message.body, masked: message.masked, at: now.toISOString() };

@@ -41,7 +41,8 @@ function invalid(path: string, message: string) {
 
 function checkAmount(listing: Listing, amountMinor: number, currency: string) {
   if (currency !== listing.currency) throw invalid("currency", `Offers on this unit are in ${listing.currency}.`);
-  if (!Number.isSafeInteger(amountMinor) || amountMinor <= 0) throw invalid("amountMinor", "An offer must be a whole amount above nothing.");
+  if (!Number.isSafeInteger(amountMinor) || amountMinor <= 0)
+    throw invalid("amountMinor", "An offer must be a whole amount above nothing.");
   if (listing.priceMinor === null || amountMinor > listing.priceMinor)
     throw invalid("amountMinor", `An offer cannot be above the asking price (${formatPrice(listing.priceMinor ?? 0, listing.currency)}).`);
 }
@@ -50,7 +51,11 @@ async function queueSteps(offer: Offer, event: OfferMailEvent, transaction: Tran
   await enqueue(QUEUES.offerMail, { offerId: offer.id, event }, { transaction });
   if (offer.state === "open") {
     // Runs at the deadline and re-reads the offer: an answered one is left alone.
-    await enqueue(QUEUES.offerExpiry, { offerId: offer.id }, { transaction, startAfter: offer.expiresAt, singletonKey: `offer:${offer.id}:expiry` });
+    await enqueue(
+      QUEUES.offerExpiry,
+      { offerId: offer.id },
+      { transaction, startAfter: offer.expiresAt, singletonKey: `offer:${offer.id}:expiry` },
+    );
   }
 }
 
@@ -61,9 +66,7 @@ export async function makeOffer(
   now: Date = new Date(),
 ): Promise<OfferOutcome> {
   return sequelize.transaction(async (transaction) => {
-    const listing = isId(input.listingId)
-      ? await Listing.findByPk(input.listingId, { transaction, lock: transaction.LOCK.SHARE })
-      : null;
+    const listing = isId(input.listingId) ? await Listing.findByPk(input.listingId, { transaction, lock: transaction.LOCK.SHARE }) : null;
     if (!listing || !canViewListing(listing.status, listing.sellerId, buyer)) throw refusal("not_found", "There is no listing here.");
     if (listing.sellerId === buyer.id) throw refusal("conflict", "This is your own listing.");
     if (listing.status !== "live") throw refusal("conflict", "This unit is not for sale at the moment.");
@@ -73,11 +76,15 @@ export async function makeOffer(
       where: {
         listingId: listing.id,
         buyerId: buyer.id,
-        [Op.or]: [{ state: "open", expiresAt: { [Op.gt]: now } }, { state: "accepted", checkoutUntil: { [Op.gt]: now } }],
+        [Op.or]: [
+          { state: "open", expiresAt: { [Op.gt]: now } },
+          { state: "accepted", checkoutUntil: { [Op.gt]: now } },
+        ],
       },
       transaction,
     });
-    if (standing?.state === "open") throw refusal("conflict", "You already have an offer open on this unit: wait for the answer, or withdraw it first.");
+    if (standing?.state === "open")
+      throw refusal("conflict", "You already have an offer open on this unit: wait for the answer, or withdraw it first.");
     if (standing) throw refusal("conflict", "Your offer on this unit was accepted: you can buy it at that price now.");
     // An open offer past its time whose expiry job has not run yet gives way to the new one.
     await Offer.update(
@@ -129,16 +136,24 @@ export async function answerOffer(userId: string, offerId: unknown, answer: Offe
     }
     if (!offerActions(offer, side, now).includes(answer.action)) {
       if (offer.state !== "open") throw refusal("offer_closed", "This offer has already been answered or has expired.");
-      throw refusal("forbidden", answer.action === "withdraw" ? "Only the side that made an offer can withdraw it." : "You cannot answer your own offer.");
+      throw refusal(
+        "forbidden",
+        answer.action === "withdraw" ? "Only the side that made an offer can withdraw it." : "You cannot answer your own offer.",
+      );
     }
     const listing = await Listing.findByPk(offer.listingId, { transaction, lock: transaction.LOCK.SHARE });
     if (!listing) throw refusal("not_found", "There is no offer here.");
-    const thread = offer.threadId ? (await threadFor(userId, offer.threadId, { transaction })).thread : await openThread(offer.buyerId, offer.listingId, transaction);
+    const thread = offer.threadId
+      ? (await threadFor(userId, offer.threadId, { transaction })).thread
+      : await openThread(offer.buyerId, offer.listingId, transaction);
     let result: Offer = offer;
     if (answer.action === "accept") {
       if (listing.status !== "live") throw refusal("conflict", "This unit is not for sale at the moment.");
       const { checkoutHours } = await offerTimes(transaction);
-      await offer.update({ state: "accepted", acceptedAt: now, decidedAt: now, checkoutUntil: new Date(now.getTime() + checkoutHours * HOUR) }, { transaction });
+      await offer.update(
+        { state: "accepted", acceptedAt: now, decidedAt: now, checkoutUntil: new Date(now.getTime() + checkoutHours * HOUR) },
+        { transaction },
+      );
       await queueSteps(offer, "accepted", transaction);
     } else if (answer.action === "decline" || answer.action === "withdraw") {
       await offer.update({ state: answer.action === "decline" ? "declined" : "withdrawn", decidedAt: now }, { transaction });
@@ -146,7 +161,8 @@ export async function answerOffer(userId: string, offerId: unknown, answer: Offe
     } else {
       if (listing.status !== "live") throw refusal("conflict", "This unit is not for sale at the moment.");
       checkAmount(listing, answer.amountMinor, answer.currency);
-      if (answer.amountMinor <= offer.amountMinor) throw invalid("amountMinor", "A counter-offer is above the offer it answers; to take this offer, accept it.");
+      if (answer.amountMinor <= offer.amountMinor)
+        throw invalid("amountMinor", "A counter-offer is above the offer it answers; to take this offer, accept it.");
       await offer.update({ state: "countered", decidedAt: now }, { transaction });
       const { offerHours } = await offerTimes(transaction);
       result = await Offer.create(

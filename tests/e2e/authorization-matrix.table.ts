@@ -171,7 +171,10 @@ export const MATRIX: Record<string, Entry> = {
     cases: [
       {
         get: signedIn("ok"),
-        post: { body: (f) => ({ form: { intent: "ask", listingId: f.live.id } }), expect: { anonymous: "sign-in", owner: 409, others: { to: /^\/messages\/[0-9a-f-]{36}$/ } } },
+        post: {
+          body: (f) => ({ form: { intent: "ask", listingId: f.live.id } }),
+          expect: { anonymous: "sign-in", owner: 409, others: { to: /^\/messages\/[0-9a-f-]{36}$/ } },
+        },
       },
     ],
   },
@@ -201,7 +204,12 @@ export const MATRIX: Record<string, Entry> = {
       {
         params: (f) => ({ id: f.thread.id }),
         get: { anonymous: 401, buyer: "ok", owner: "ok", others: 404 },
-        writes: { POST: { body: () => ({ json: { body: "Does it come with the manual?" } }), expect: { anonymous: 401, buyer: 201, owner: 201, others: 404 } } },
+        writes: {
+          POST: {
+            body: () => ({ json: { body: "Does it come with the manual?" } }),
+            expect: { anonymous: 401, buyer: 201, owner: 201, others: 404 },
+          },
+        },
       },
     ],
   },
@@ -226,7 +234,13 @@ export const MATRIX: Record<string, Entry> = {
       {
         params: (f) => ({ id: f.offer.id }),
         get: everyone(405),
-        writes: { POST: { body: () => ({ json: { action: "accept" } }), expect: { anonymous: 401, buyer: 403, owner: "ok", others: 404 }, last: true } },
+        writes: {
+          POST: {
+            body: () => ({ json: { action: "accept" } }),
+            expect: { anonymous: 401, buyer: 403, owner: "ok", others: 404 },
+            last: true,
+          },
+        },
       },
     ],
   },

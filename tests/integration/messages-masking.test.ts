@@ -44,7 +44,11 @@ describe("before a sale", () => {
     const unit = await liveUnit(seller.id);
     const thread = await openThread(ada.id, unit.id);
     sent.length = 0;
-    const out = await sendMessage(ada.id, thread.id, "Cheaper if we skip the fees? Ring 07700 900123 or mail ada@example.test. It is the XR-7700 at 230 V 50 Hz?");
+    const out = await sendMessage(
+      ada.id,
+      thread.id,
+      "Cheaper if we skip the fees? Ring 07700 900123 or mail ada@example.test. It is the XR-7700 at 230 V 50 Hz?",
+    );
     expect(out.masked).toBe(true);
     const stored = await Message.findByPk(out.id);
     expect(stored?.body).toBe(`Cheaper if we skip the fees? Ring ${MASK_TOKEN} or mail ${MASK_TOKEN}. It is the XR-7700 at 230 V 50 Hz?`);

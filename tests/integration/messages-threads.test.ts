@@ -73,7 +73,8 @@ describe("only the two sides", () => {
     await expect(sendMessage(stranger.id, thread.id, "hello")).rejects.toMatchObject({ status: 404 });
 
     const cookie = await signedInCookie(stranger);
-    const get = (path: string) => routeArgs(new Request(BASE + path, { headers: { Cookie: cookie } }), { id: thread.id, threadId: thread.id });
+    const get = (path: string) =>
+      routeArgs(new Request(BASE + path, { headers: { Cookie: cookie } }), { id: thread.id, threadId: thread.id });
     const api = await call(() => threadApi.loader(get(`/api/v1/threads/${thread.id}/messages`)));
     expect(api.status).toBe(404);
     expect(api.body.error).toBe("not_found");
@@ -170,7 +171,7 @@ describe("reading and writing", () => {
   it("sends the page's plain form back to the thread, and an empty message back with its error", async () => {
     const unit = await liveUnit(seller.id);
     const cookie = await signedInCookie(bo);
-    const form = (path: string, fields: Record<string, string>, params: Record<string, string>) =>
+    const form = <P extends Record<string, string>>(path: string, fields: Record<string, string>, params: P) =>
       routeArgs(
         new Request(BASE + path, {
           method: "POST",
@@ -181,13 +182,13 @@ describe("reading and writing", () => {
       );
     const opened = await messagesPage.action(form("/messages", { intent: "offer", listingId: unit.id }, {}));
     expect(opened).toBeInstanceOf(Response);
-    const location = (opened as Response).headers.get("Location") ?? "";
+    const location = opened.headers.get("Location") ?? "";
     expect(location).toMatch(/^\/messages\/[0-9a-f-]{36}#make-offer$/);
     const threadId = location.slice("/messages/".length, -"#make-offer".length);
     const bad = await call(() => threadPage.action(form(`/messages/${threadId}`, { intent: "send", body: "" }, { threadId })));
     expect(bad.status).toBe(400);
     expect(bad.body.errors.body).toBe("Write a message first.");
     const good = await threadPage.action(form(`/messages/${threadId}`, { intent: "send", body: "Still for sale?" }, { threadId }));
-    expect((good as Response).headers.get("Location")).toBe(`/messages/${threadId}`);
+    expect(good instanceof Response && good.headers.get("Location")).toBe(`/messages/${threadId}`);
   });
 });

@@ -68,7 +68,10 @@ describe("offer expiry", () => {
   it("refuses an answer after the deadline even before the job has run, and records the lapse", async () => {
     const unit = await liveUnit(seller.id);
     const made = await makeOffer({ id: ada.id, roles: ["buyer"] }, { listingId: unit.id, amountMinor: 40_000, currency: "EUR" }, t0);
-    await expect(answerOffer(seller.id, made.offerId, { action: "accept" }, at(48))).rejects.toMatchObject({ status: 409, code: "offer_closed" });
+    await expect(answerOffer(seller.id, made.offerId, { action: "accept" }, at(48))).rejects.toMatchObject({
+      status: 409,
+      code: "offer_closed",
+    });
     expect((await Offer.findByPk(made.offerId))?.state).toBe("expired");
   });
 });

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
-import { account, cleanUp, hours, liveUnit, recipients, runQueue, waiting, type SentMail } from "./talk-support";
+import { account, cleanUp, hours, liveUnit, recipients, runQueue, type SentMail } from "./talk-support";
 
 // Offers from start to end: the buyer offers, the seller counters, the buyer accepts and may check
 // out at that price for its window; declines, withdrawals and the checks on every amount. Time moves
@@ -117,13 +117,17 @@ describe("who may answer", () => {
     await expect(answerOffer(ada.id, made.offerId, { action: "accept" }, at(1))).rejects.toMatchObject({ status: 403 });
     await expect(answerOffer(seller.id, made.offerId, { action: "withdraw" }, at(1))).rejects.toMatchObject({ status: 403 });
     await answerOffer(seller.id, made.offerId, { action: "decline" }, at(1));
-    await expect(answerOffer(seller.id, made.offerId, { action: "accept" }, at(2))).rejects.toMatchObject({ status: 409, code: "offer_closed" });
+    await expect(answerOffer(seller.id, made.offerId, { action: "accept" }, at(2))).rejects.toMatchObject({
+      status: 409,
+      code: "offer_closed",
+    });
   });
 
   it("refuses a counter that is not above the offer, or above the asking price", async () => {
     const unit = await liveUnit(seller.id);
     const made = await offer(ada, unit.id, 40_000);
-    const counter = (amountMinor: number) => answerOffer(seller.id, made.offerId, { action: "counter", amountMinor, currency: "EUR" }, at(1));
+    const counter = (amountMinor: number) =>
+      answerOffer(seller.id, made.offerId, { action: "counter", amountMinor, currency: "EUR" }, at(1));
     await expect(counter(40_000)).rejects.toMatchObject({ status: 400, issues: [{ path: "amountMinor" }] });
     await expect(counter(48_001)).rejects.toMatchObject({ status: 400, issues: [{ path: "amountMinor" }] });
     expect((await Offer.findByPk(made.offerId))?.state).toBe("open");

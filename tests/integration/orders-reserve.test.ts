@@ -41,7 +41,10 @@ describe("the reservation", () => {
   it("holds the price and delivery for the buyer's zone, for 30 minutes", async () => {
     const clock = testClock("2026-12-30T10:00:00Z");
     const c = await cast();
-    const order = await t.reserveUnit({ listingId: c.listing.id, buyerId: c.buyer.id, deliveryMethod: "parcel", deliveryZone: "nearby" }, clock);
+    const order = await t.reserveUnit(
+      { listingId: c.listing.id, buyerId: c.buyer.id, deliveryMethod: "parcel", deliveryZone: "nearby" },
+      clock,
+    );
     expect(order).toMatchObject({ state: "reserved", priceMinor: 48_000, deliveryMinor: 4_000, currency: "EUR", sellerId: c.seller.id });
     expect(order.reservedUntil.toISOString()).toBe("2026-12-30T10:30:00.000Z");
     const [deadline] = await jobsFor(QUEUES.orderDeadline, order.id);
@@ -52,7 +55,10 @@ describe("the reservation", () => {
   it("collection costs nothing; a method or zone the seller does not offer is refused", async () => {
     const clock = testClock();
     const c = await cast();
-    const collect = await t.reserveUnit({ listingId: c.listing.id, buyerId: c.buyer.id, deliveryMethod: "collection", deliveryZone: "worldwide" }, clock);
+    const collect = await t.reserveUnit(
+      { listingId: c.listing.id, buyerId: c.buyer.id, deliveryMethod: "collection", deliveryZone: "worldwide" },
+      clock,
+    );
     expect(collect.deliveryMinor).toBe(0);
     const d = await cast();
     const reserveWith = (method: "freight" | "parcel", zone: "worldwide" | "domestic") =>
@@ -122,7 +128,10 @@ describe("the lapse", () => {
 
     // The unit is back in the market: another buyer can reserve it.
     const next = await person("next");
-    const again = await t.reserveUnit({ listingId: c.listing.id, buyerId: next.id, deliveryMethod: "parcel", deliveryZone: "domestic" }, clock);
+    const again = await t.reserveUnit(
+      { listingId: c.listing.id, buyerId: next.id, deliveryMethod: "parcel", deliveryZone: "domestic" },
+      clock,
+    );
     expect(again.state).toBe("reserved");
   });
 

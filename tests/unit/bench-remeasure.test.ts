@@ -151,6 +151,28 @@ describe("judging", () => {
     expect(row.listed?.display).toBe("65 W");
   });
 
+  it("a left-channel reading pairs with the same channel's figure before the weaker other channel", () => {
+    const row = compareRemeasurement(sheet, {
+      readings: [{ quantity: "output_power", value: 60, unit: "W", channel: "left", conditions: POWER_8 }],
+    }).rows[0];
+    expect(row.listed?.ref).toBe("readings.3");
+    // A figure for the left channel comes before one given for both, even a weaker one.
+    const both: BenchSheet = { ...sheet, readings: [sheet.readings[3], { ...sheet.readings[3], channel: "both", value: 60 }] };
+    const again = compareRemeasurement(both, {
+      readings: [{ quantity: "output_power", value: 60, unit: "W", channel: "left", conditions: POWER_8 }],
+    }).rows[0];
+    expect(again.listed?.ref).toBe("readings.0");
+  });
+
+  it("a figure the sheet gives for both channels pairs with a one-channel reading", () => {
+    const snr = sheet.readings[13]; // 98 dB(A), both channels
+    const row = compareRemeasurement(sheet, {
+      readings: [{ quantity: "snr", value: 97, unit: "dB", channel: "left", conditions: snr.conditions }],
+    }).rows[0];
+    expect(row.listed?.ref).toBe("readings.13");
+    expect(row.outcome).toBe("within");
+  });
+
   it("a channel the sheet does not have is not comparable, and says which channels it has", () => {
     const one: BenchSheet = { ...sheet, readings: [sheet.readings[3]] };
     const row = compareRemeasurement(one, {
