@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { isId } from "@shared/ids";
 import {
   SHIPPING_METHODS,
   SHIPPING_ZONES,
@@ -62,6 +63,7 @@ export async function loadCheckout(
   where: { zone?: string | null; acceptLanguage?: string | null },
   clock: Clock,
 ): Promise<CheckoutView | null> {
+  if (!isId(listingId)) return null;
   const listing = await Listing.findByPk(listingId, {
     include: [
       { model: User, as: "seller", attributes: ["id", "displayName"] },
