@@ -204,7 +204,7 @@ describe("the lapse", () => {
     const late = await fund(order, clock);
     expect(late.state).toBe("cancelled");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: order.totalMinor, n: 1 },
+      { orderId: order.id, amountMinor: order.totalMinor, refundNo: 1 },
     ]);
     expect(await ledgerCheck(order.id)).toEqual({ total: 0, unbalanced: 0 });
     expect((await Listing.findByPk(c.listing.id))?.status).toBe("reserved");
