@@ -21,12 +21,18 @@ function documentHeaders(headers: Headers, nonce: string) {
   const policy = contentSecurityPolicy({
     nonce,
     https,
-    // Signing in with a Loadline pass posts to /auth/oauth, which redirects the form to the provider.
-    formTargets: [new URL(settings.oauth.issuer).origin],
+    // Signing in with a Loadline pass posts to /auth/oauth, which redirects the form to the provider;
+    // the checkout form redirects to the payment provider's hosted page.
+    formTargets: [new URL(settings.oauth.issuer).origin, paymentPagesOrigin(settings)],
     dev: import.meta.env.DEV,
   });
   headers.set("Content-Security-Policy", policy);
   for (const [name, value] of commonSecurityHeaders({ https })) headers.set(name, value);
+}
+
+/** Where the payment provider's hosted pages live: the stand-in serves them from its API address. */
+function paymentPagesOrigin(settings: ReturnType<typeof env>): string {
+  return settings.stripe.mode === "fake" ? new URL(settings.stripe.apiUrl).origin : "https://checkout.stripe.com";
 }
 
 export default function handleRequest(

@@ -68,4 +68,13 @@ export default [
   route("api/v1/threads/:id/messages", "routes/api.v1.threads.$id.messages.ts"),
   route("api/v1/offers", "routes/api.v1.offers.ts"),
   route("api/v1/offers/:id", "routes/api.v1.offers.$id.ts"),
+  // Buying: checkout, the buyer's purchases, the seller's sales, the desk's contested orders, the
+  // admin's marketplace settings (fee, timings)
+  route("checkout/:listingId", "routes/buying/checkout.tsx"),
+  route("purchases", "routes/buying/purchases.tsx"),
+  route("purchases/:orderId", "routes/buying/purchase.tsx"),
+  route("sales", "routes/buying/sales.tsx"),
+  route("sales/:orderId", "routes/buying/sale.tsx"),
+  route("desk/orders/:orderId", "routes/desk/order.tsx"),
+  route("admin/settings", "routes/admin/settings.tsx"),
 ] satisfies RouteConfig;

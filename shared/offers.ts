@@ -15,11 +15,6 @@ export const OFFER_STATE_LABELS: Record<OfferState, string> = {
   used: "Bought at this price",
 };
 
-/** Hours an offer stays open when the marketplace settings say nothing. */
-export const DEFAULT_OFFER_HOURS = 48;
-/** Hours an accepted offer's price holds for checkout when the settings say nothing. */
-export const DEFAULT_OFFER_CHECKOUT_HOURS = 24;
-
 export type OfferActionName = "accept" | "decline" | "counter" | "withdraw";
 
 /**
@@ -27,7 +22,11 @@ export type OfferActionName = "accept" | "decline" | "counter" | "withdraw";
  * seller may also counter; a buyer answers a counter by accepting or declining, or makes a new
  * offer after), the side that made it may withdraw it. Nothing once it is no longer open.
  */
-export function offerActions(offer: { state: OfferState; madeBy: OfferParty; expiresAt: Date }, side: OfferParty, now: Date): OfferActionName[] {
+export function offerActions(
+  offer: { state: OfferState; madeBy: OfferParty; expiresAt: Date },
+  side: OfferParty,
+  now: Date,
+): OfferActionName[] {
   if (offer.state !== "open" || offer.expiresAt.getTime() <= now.getTime()) return [];
   if (offer.madeBy === side) return ["withdraw"];
   return side === "seller" ? ["accept", "decline", "counter"] : ["accept", "decline"];

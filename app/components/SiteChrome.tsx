@@ -24,7 +24,9 @@ const NAV: NavItem[] = [
   { to: "/compare", label: "Compare", show: () => true },
   { to: "/watching", label: "Watching", show: (u) => !!u },
   { to: "/messages", label: "Messages", show: (u) => !!u },
+  { to: "/purchases", label: "Purchases", show: (u) => !!u },
   { to: "/sell", label: "Sell", show: (u) => !!u },
+  { to: "/sales", label: "Sales", show: (u) => !!u && holdsRole(u.roles, "seller") },
   { to: "/desk", label: "Review desk", show: (u) => !!u && holdsRole(u.roles, "moderator") },
   { to: "/admin/users", label: "Admin", show: (u) => !!u && holdsRole(u.roles, "admin") },
 ];

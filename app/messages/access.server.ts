@@ -12,7 +12,11 @@ export interface ThreadAccess {
   role: ThreadRole;
 }
 
-export async function threadFor(userId: string, threadId: unknown, options: { transaction?: Transaction; lock?: boolean } = {}): Promise<ThreadAccess> {
+export async function threadFor(
+  userId: string,
+  threadId: unknown,
+  options: { transaction?: Transaction; lock?: boolean } = {},
+): Promise<ThreadAccess> {
   const thread = isId(threadId)
     ? await MessageThread.findOne({
         where: { id: threadId, [Op.or]: [{ buyerId: userId }, { sellerId: userId }] },

@@ -50,7 +50,10 @@ export async function deliverMessageMail(data: unknown): Promise<number> {
     ]);
     if (!recipient || recipient.status !== "active") return 0;
     const last = waiting[waiting.length - 1].createdAt;
-    await MessageThread.update(side === "buyer" ? { buyerMailedAt: last } : { sellerMailedAt: last }, { where: { id: thread.id }, transaction });
+    await MessageThread.update(side === "buyer" ? { buyerMailedAt: last } : { sellerMailedAt: last }, {
+      where: { id: thread.id },
+      transaction,
+    });
     const title = listingTitle(listing?.maker, listing?.model);
     const who = sender?.displayName ?? "The other side";
     // Sent inside the transaction: a failed send rolls the mark back and the job's retry tries again.

@@ -17,7 +17,10 @@ export const OpenThreadSchema = z.object({ listingId: idSchema("listing") });
 
 /** An offer or a counter in the API: integer minor units in the listing's currency. */
 export const OfferAmountSchema = z.object({
-  amountMinor: z.number({ error: "Give the amount in minor units (cents, pence)." }).int("Give the amount in whole minor units.").positive("An offer must be more than nothing."),
+  amountMinor: z
+    .number({ error: "Give the amount in minor units (cents, pence)." })
+    .int("Give the amount in whole minor units.")
+    .positive("An offer must be more than nothing."),
   currency: z.string().regex(/^[A-Z]{3}$/, "Give a three-letter currency code."),
 });
 

@@ -47,7 +47,8 @@ export async function threadAction(
         try {
           await makeOffer(user, { listingId: thread.listingId, amountMinor: amount.value, currency });
         } catch (error) {
-          if (error instanceof HttpError && error.status < 500 && error.status !== 404) return { ok: false, status: error.status, errors: { amount: error.message } };
+          if (error instanceof HttpError && error.status < 500 && error.status !== 404)
+            return { ok: false, status: error.status, errors: { amount: error.message } };
           throw error;
         }
         return { ok: true };

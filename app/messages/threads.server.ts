@@ -12,6 +12,7 @@ import { refusal } from "~/http/errors.server";
 import { threadFor } from "./access.server";
 import { buyerHasPaid } from "./sale.server";
 import { queueMessageMail } from "./message-mail.server";
+import { systemClock, type Clock } from "~/orders/clock.server";
 import type { Conversation, ConversationItem, ThreadRole, ThreadSummary } from "./types";
 
 // Threads: one per listing and buyer, with the listing's seller. Opening one is idempotent (the
@@ -25,13 +26,22 @@ export async function openThread(buyerId: string, listingId: unknown, transactio
   if (existing) return existing;
   if (!listing || listing.status !== "live") throw refusal("not_found", "There is no unit for sale here to ask about.");
   if (listing.sellerId === buyerId) throw refusal("conflict", "This is your own listing.");
-  await MessageThread.bulkCreate([{ listingId: listing.id, buyerId, sellerId: listing.sellerId, buyerReadAt: null, sellerReadAt: null, lastMessageAt: null }], {
-    ignoreDuplicates: true,
-    transaction,
-  });
+  await MessageThread.bulkCreate(
+    [{ listingId: listing.id, buyerId, sellerId: listing.sellerId, buyerReadAt: null, sellerReadAt: null, lastMessageAt: null }],
+    {
+      ignoreDuplicates: true,
+      transaction,
+    },
+  );
   const thread = await MessageThread.findOne({ where: { listingId: listing.id, buyerId }, transaction });
   if (!thread) throw new Error("the thread just made is missing");
   return thread;
+}
+
+/** The thread between a listing's buyer and its seller, if they have one (for links from an order's page). */
+export async function threadIdFor(listingId: string, buyerId: string): Promise<string | null> {
+  const thread = await MessageThread.findOne({ where: { listingId, buyerId }, attributes: ["id"] });
+  return thread?.id ?? null;
 }
 
 const SNIPPET = 140;
@@ -90,7 +100,8 @@ export async function markRead(thread: MessageThread, role: ThreadRole, now: Dat
 }
 
 /** The thread as the viewer sees it (404 for anyone not in it), marked read for them. */
-export async function conversation(userId: string, threadId: unknown, now: Date = new Date()): Promise<Conversation> {
+export async function conversation(userId: string, threadId: unknown, clock: Clock = systemClock): Promise<Conversation> {
+  const now = clock.now();
   const { thread, role } = await threadFor(userId, threadId);
   const [listing, other, messages, offers, paid] = await Promise.all([
     Listing.findByPk(thread.listingId, { attributes: ["id", "maker", "model", "status", "priceMinor", "currency", "offersWelcome"] }),
@@ -102,34 +113,32 @@ export async function conversation(userId: string, threadId: unknown, now: Date 
   if (!listing) throw refusal("not_found", "There is no conversation here.");
   const otherName = other?.displayName ?? "";
   const items: ConversationItem[] = [
-    ...messages.map(
-      (m): ConversationItem => ({
-        kind: "message",
-        id: m.id,
-        at: m.createdAt.toISOString(),
-        fromMe: m.senderId === userId,
-        senderName: m.senderId === userId ? "You" : otherName,
-        body: m.body,
-        masked: m.masked,
-      }),
-    ),
-    ...offers.map(
-      (o): ConversationItem => ({
-        kind: "offer",
-        id: o.id,
-        at: o.createdAt.toISOString(),
-        fromMe: o.madeBy === role,
-        madeBy: o.madeBy,
-        amountMinor: o.amountMinor,
-        currency: o.currency,
-        state: o.state,
-        expiresAt: o.expiresAt.toISOString(),
-        checkoutUntil: o.checkoutUntil?.toISOString() ?? null,
-        actions: offerActions(o, role, now),
-      }),
-    ),
+    ...messages.map((m): ConversationItem => ({
+      kind: "message",
+      id: m.id,
+      at: m.createdAt.toISOString(),
+      fromMe: m.senderId === userId,
+      senderName: m.senderId === userId ? "You" : otherName,
+      body: m.body,
+      masked: m.masked,
+    })),
+    ...offers.map((o): ConversationItem => ({
+      kind: "offer",
+      id: o.id,
+      at: o.createdAt.toISOString(),
+      fromMe: o.madeBy === role,
+      madeBy: o.madeBy,
+      amountMinor: o.amountMinor,
+      currency: o.currency,
+      state: o.state,
+      expiresAt: o.expiresAt.toISOString(),
+      checkoutUntil: o.checkoutUntil?.toISOString() ?? null,
+      actions: offerActions(o, role, now),
+    })),
   ].sort((a, b) => a.at.localeCompare(b.at));
-  const openOrAccepted = offers.some((o) => (o.state === "open" && o.expiresAt > now) || (o.state === "accepted" && o.checkoutUntil && o.checkoutUntil > now));
+  const openOrAccepted = offers.some(
+    (o) => (o.state === "open" && o.expiresAt > now) || (o.state === "accepted" && o.checkoutUntil && o.checkoutUntil > now),
+  );
   await markRead(thread, role, now);
   return {
     thread: {
@@ -161,12 +170,16 @@ export interface SentMessage {
  * masked in what is stored (the other side never receives them); the recipient's mail is queued to
  * go a little later, once per burst.
  */
-export async function sendMessage(senderId: string, threadId: unknown, body: string, now: Date = new Date()): Promise<SentMessage> {
+export async function sendMessage(senderId: string, threadId: unknown, body: string, clock: Clock = systemClock): Promise<SentMessage> {
+  const now = clock.now();
   return sequelize.transaction(async (transaction) => {
     const { thread, role } = await threadFor(senderId, threadId, { transaction, lock: true });
     const paid = await buyerHasPaid(thread.listingId, thread.buyerId, transaction);
     const shown = paid ? { text: body, masked: false } : maskContactDetails(body);
-    const message = await Message.create({ threadId: thread.id, senderId, body: shown.text, masked: shown.masked, createdAt: now }, { transaction });
+    const message = await Message.create(
+      { threadId: thread.id, senderId, body: shown.text, masked: shown.masked, createdAt: now },
+      { transaction },
+    );
     await touchThread(thread, role, now, transaction);
     await queueMessageMail(thread.id, role === "buyer" ? thread.sellerId : thread.buyerId, transaction);
     return { id: message.id, body: message.body, masked: message.masked, at: now.toISOString() };

@@ -39,7 +39,9 @@ export async function deliverOfferMail(data: unknown): Promise<number> {
       mails.push({
         to: seller,
         subject: `An offer of ${amount} for the ${title}`,
-        paragraphs: [`${buyer.displayName} offers ${amount} for the ${title}. The offer is open until ${when(offer.expiresAt)}: accept it, decline it or make a counter-offer.`],
+        paragraphs: [
+          `${buyer.displayName} offers ${amount} for the ${title}. The offer is open until ${when(offer.expiresAt)}: accept it, decline it or make a counter-offer.`,
+        ],
         label: "Answer the offer",
       });
       break;
@@ -56,7 +58,9 @@ export async function deliverOfferMail(data: unknown): Promise<number> {
       mails.push({
         to: buyer,
         subject: `Offer accepted: the ${title} at ${amount}`,
-        paragraphs: [`The offer of ${amount} for the ${title} is accepted. You can buy it at that price until ${until}; after that the asking price applies again.`],
+        paragraphs: [
+          `The offer of ${amount} for the ${title} is accepted. You can buy it at that price until ${until}; after that the asking price applies again.`,
+        ],
         label: "Buy at this price",
       });
       mails.push({
@@ -97,7 +101,13 @@ export async function deliverOfferMail(data: unknown): Promise<number> {
   let sent = 0;
   for (const m of mails) {
     if (m.to.status !== "active") continue;
-    const mail: TalkMail = { to: m.to.email, subject: m.subject, greeting: `Hello ${m.to.displayName},`, paragraphs: m.paragraphs, link: { label: m.label, path } };
+    const mail: TalkMail = {
+      to: m.to.email,
+      subject: m.subject,
+      greeting: `Hello ${m.to.displayName},`,
+      paragraphs: m.paragraphs,
+      link: { label: m.label, path },
+    };
     await sendTalkMail(mail);
     sent++;
   }

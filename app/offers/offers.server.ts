@@ -13,6 +13,7 @@ import { openThread, touchThread } from "~/messages/threads.server";
 import { threadFor } from "~/messages/access.server";
 import type { OfferAnswer } from "~/messages/schemas";
 import { offerTimes } from "./settings.server";
+import { systemClock, type Clock } from "~/orders/clock.server";
 import type { OfferMailEvent } from "./offer-mail.server";
 
 // Offers: a buyer offers an amount on a unit whose seller welcomes offers; the seller accepts,
@@ -41,7 +42,8 @@ function invalid(path: string, message: string) {
 
 function checkAmount(listing: Listing, amountMinor: number, currency: string) {
   if (currency !== listing.currency) throw invalid("currency", `Offers on this unit are in ${listing.currency}.`);
-  if (!Number.isSafeInteger(amountMinor) || amountMinor <= 0) throw invalid("amountMinor", "An offer must be a whole amount above nothing.");
+  if (!Number.isSafeInteger(amountMinor) || amountMinor <= 0)
+    throw invalid("amountMinor", "An offer must be a whole amount above nothing.");
   if (listing.priceMinor === null || amountMinor > listing.priceMinor)
     throw invalid("amountMinor", `An offer cannot be above the asking price (${formatPrice(listing.priceMinor ?? 0, listing.currency)}).`);
 }
@@ -50,7 +52,11 @@ async function queueSteps(offer: Offer, event: OfferMailEvent, transaction: Tran
   await enqueue(QUEUES.offerMail, { offerId: offer.id, event }, { transaction });
   if (offer.state === "open") {
     // Runs at the deadline and re-reads the offer: an answered one is left alone.
-    await enqueue(QUEUES.offerExpiry, { offerId: offer.id }, { transaction, startAfter: offer.expiresAt, singletonKey: `offer:${offer.id}:expiry` });
+    await enqueue(
+      QUEUES.offerExpiry,
+      { offerId: offer.id },
+      { transaction, startAfter: offer.expiresAt, singletonKey: `offer:${offer.id}:expiry` },
+    );
   }
 }
 
@@ -58,12 +64,11 @@ async function queueSteps(offer: Offer, event: OfferMailEvent, transaction: Tran
 export async function makeOffer(
   buyer: Actor,
   input: { listingId: string; amountMinor: number; currency: string },
-  now: Date = new Date(),
+  clock: Clock = systemClock,
 ): Promise<OfferOutcome> {
+  const now = clock.now();
   return sequelize.transaction(async (transaction) => {
-    const listing = isId(input.listingId)
-      ? await Listing.findByPk(input.listingId, { transaction, lock: transaction.LOCK.SHARE })
-      : null;
+    const listing = isId(input.listingId) ? await Listing.findByPk(input.listingId, { transaction, lock: transaction.LOCK.SHARE }) : null;
     if (!listing || !canViewListing(listing.status, listing.sellerId, buyer)) throw refusal("not_found", "There is no listing here.");
     if (listing.sellerId === buyer.id) throw refusal("conflict", "This is your own listing.");
     if (listing.status !== "live") throw refusal("conflict", "This unit is not for sale at the moment.");
@@ -73,11 +78,15 @@ export async function makeOffer(
       where: {
         listingId: listing.id,
         buyerId: buyer.id,
-        [Op.or]: [{ state: "open", expiresAt: { [Op.gt]: now } }, { state: "accepted", checkoutUntil: { [Op.gt]: now } }],
+        [Op.or]: [
+          { state: "open", expiresAt: { [Op.gt]: now } },
+          { state: "accepted", checkoutUntil: { [Op.gt]: now } },
+        ],
       },
       transaction,
     });
-    if (standing?.state === "open") throw refusal("conflict", "You already have an offer open on this unit: wait for the answer, or withdraw it first.");
+    if (standing?.state === "open")
+      throw refusal("conflict", "You already have an offer open on this unit: wait for the answer, or withdraw it first.");
     if (standing) throw refusal("conflict", "Your offer on this unit was accepted: you can buy it at that price now.");
     // An open offer past its time whose expiry job has not run yet gives way to the new one.
     await Offer.update(
@@ -112,7 +121,13 @@ export async function makeOffer(
 }
 
 /** The buyer's or the seller's answer to an offer (404 for anyone else; 409 offer_closed once it is not open). */
-export async function answerOffer(userId: string, offerId: unknown, answer: OfferAnswer, now: Date = new Date()): Promise<OfferOutcome> {
+export async function answerOffer(
+  userId: string,
+  offerId: unknown,
+  answer: OfferAnswer,
+  clock: Clock = systemClock,
+): Promise<OfferOutcome> {
+  const now = clock.now();
   const outcome = await sequelize.transaction(async (transaction) => {
     const offer = isId(offerId)
       ? await Offer.findOne({
@@ -129,16 +144,24 @@ export async function answerOffer(userId: string, offerId: unknown, answer: Offe
     }
     if (!offerActions(offer, side, now).includes(answer.action)) {
       if (offer.state !== "open") throw refusal("offer_closed", "This offer has already been answered or has expired.");
-      throw refusal("forbidden", answer.action === "withdraw" ? "Only the side that made an offer can withdraw it." : "You cannot answer your own offer.");
+      throw refusal(
+        "forbidden",
+        answer.action === "withdraw" ? "Only the side that made an offer can withdraw it." : "You cannot answer your own offer.",
+      );
     }
     const listing = await Listing.findByPk(offer.listingId, { transaction, lock: transaction.LOCK.SHARE });
     if (!listing) throw refusal("not_found", "There is no offer here.");
-    const thread = offer.threadId ? (await threadFor(userId, offer.threadId, { transaction })).thread : await openThread(offer.buyerId, offer.listingId, transaction);
+    const thread = offer.threadId
+      ? (await threadFor(userId, offer.threadId, { transaction })).thread
+      : await openThread(offer.buyerId, offer.listingId, transaction);
     let result: Offer = offer;
     if (answer.action === "accept") {
       if (listing.status !== "live") throw refusal("conflict", "This unit is not for sale at the moment.");
       const { checkoutHours } = await offerTimes(transaction);
-      await offer.update({ state: "accepted", acceptedAt: now, decidedAt: now, checkoutUntil: new Date(now.getTime() + checkoutHours * HOUR) }, { transaction });
+      await offer.update(
+        { state: "accepted", acceptedAt: now, decidedAt: now, checkoutUntil: new Date(now.getTime() + checkoutHours * HOUR) },
+        { transaction },
+      );
       await queueSteps(offer, "accepted", transaction);
     } else if (answer.action === "decline" || answer.action === "withdraw") {
       await offer.update({ state: answer.action === "decline" ? "declined" : "withdrawn", decidedAt: now }, { transaction });
@@ -146,7 +169,8 @@ export async function answerOffer(userId: string, offerId: unknown, answer: Offe
     } else {
       if (listing.status !== "live") throw refusal("conflict", "This unit is not for sale at the moment.");
       checkAmount(listing, answer.amountMinor, answer.currency);
-      if (answer.amountMinor <= offer.amountMinor) throw invalid("amountMinor", "A counter-offer is above the offer it answers; to take this offer, accept it.");
+      if (answer.amountMinor <= offer.amountMinor)
+        throw invalid("amountMinor", "A counter-offer is above the offer it answers; to take this offer, accept it.");
       await offer.update({ state: "countered", decidedAt: now }, { transaction });
       const { offerHours } = await offerTimes(transaction);
       result = await Offer.create(
@@ -179,7 +203,8 @@ export async function answerOffer(userId: string, offerId: unknown, answer: Offe
 }
 
 /** The 'offer-expiry' job: an offer still open at its deadline expires (and both sides hear). */
-export async function expireOffer(data: unknown, now: Date = new Date()): Promise<boolean> {
+export async function expireOffer(data: unknown, clock: Clock = systemClock): Promise<boolean> {
+  const now = clock.now();
   const offerId = (data as { offerId?: unknown } | null)?.offerId;
   if (!isId(offerId)) return false;
   return sequelize.transaction(async (transaction) => {

@@ -104,34 +104,42 @@ export async function expireCheckout(checkoutSessionId: string, orderId: string)
   await payments().checkout.sessions.expire(checkoutSessionId, {}, { idempotencyKey: idempotencyKey.expire(orderId) });
 }
 
-/** The seller's share: what the buyer paid, less what went back to them, less the platform fee. */
-export interface SellerShare {
-  grossMinor: number;
-  feeMinor: number;
-  payoutMinor: number;
-}
-
 /**
- * Sends the seller's share to their connected account, from the order's own charge
- * (source_transaction), so it may go while the charge's funds are still pending at the provider.
+ * Sends `amountMinor` (the seller's share, fixed when the money was released) to the seller's
+ * connected account, from the order's own charge (source_transaction), so it may go while the
+ * charge's funds are still pending at the provider.
  */
-export async function transferToSeller(order: ProviderOrder, share: SellerShare): Promise<{ transferId: string; amountMinor: number }> {
+export async function transferToSeller(order: ProviderOrder, amountMinor: number): Promise<{ transferId: string; amountMinor: number }> {
   if (!order.chargeId) throw new Error(`Order ${order.id} has no charge to pay the seller from`);
   const seller = await User.findByPk(order.sellerId, { rejectOnEmpty: true });
-  const destination = seller.get("payoutAccountId") as string | null;
-  if (!destination) throw new Error(`The seller of order ${order.id} has no payout account`);
+  if (!seller.payoutAccountId) throw new Error(`The seller of order ${order.id} has no payout account`);
   const transfer = await payments().transfers.create(
     {
-      amount: share.payoutMinor,
+      amount: amountMinor,
       currency: order.currency.toLowerCase(),
-      destination,
+      destination: seller.payoutAccountId,
       source_transaction: order.chargeId,
       transfer_group: transferGroup(order.id),
-      metadata: { order_id: order.id, fee_minor: String(share.feeMinor) },
+      metadata: { order_id: order.id },
     },
     { idempotencyKey: idempotencyKey.transfer(order.id) },
   );
   return { transferId: transfer.id, amountMinor: transfer.amount };
+}
+
+/** The order's transfer if the provider already made it (a retry later than the provider keeps keys). */
+export async function existingTransfer(order: ProviderOrder): Promise<{ transferId: string; amountMinor: number } | null> {
+  const list = await payments().transfers.list({ transfer_group: transferGroup(order.id), limit: 10 });
+  const found = list.data.find((t) => t.metadata?.order_id === order.id);
+  return found ? { transferId: found.id, amountMinor: found.amount } : null;
+}
+
+/** The order's refund number `n` if the provider already made it. */
+export async function existingRefund(order: ProviderOrder, n: number): Promise<{ refundId: string; amountMinor: number } | null> {
+  if (!order.chargeId) return null;
+  const list = await payments().refunds.list({ charge: order.chargeId, limit: 100 });
+  const found = list.data.find((r) => r.metadata?.order_id === order.id && r.metadata?.step === String(n));
+  return found ? { refundId: found.id, amountMinor: found.amount } : null;
 }
 
 /** Returns `amountMinor` of the order's charge to the buyer; `n` counts the order's refunds from 1. */
@@ -161,9 +169,10 @@ export async function ensurePayoutAccount(user: PayoutUser): Promise<string> {
     },
     { idempotencyKey: idempotencyKey.account(user.id) },
   );
-  await User.update({ payoutAccountId: account.id } as never, { where: { id: user.id, payoutAccountId: null } as never });
+  // Two requests at once share the idempotency key, so both see the same account.
+  await User.update({ payoutAccountId: account.id }, { where: { id: user.id, payoutAccountId: null } });
   const fresh = await User.findByPk(user.id, { rejectOnEmpty: true });
-  return (fresh.get("payoutAccountId") as string | null) ?? account.id;
+  return fresh.payoutAccountId ?? account.id;
 }
 
 /** A fresh, single-use onboarding link on the provider's page; it comes back to `returnUrl`. */

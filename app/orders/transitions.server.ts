@@ -10,7 +10,7 @@ import { isId } from "@shared/ids";
 import type { Clock } from "./clock.server";
 import { scheduleDeadline } from "./deadline-jobs.server";
 import { balancesFor, move } from "./ledger.server";
-import { acceptedOfferFor, markOfferUsed } from "./offer-price.server";
+import { acceptedOfferFor, markOfferUsed } from "~/offers/accepted.server";
 import { queueRefund, releaseToSeller, setListingStatus } from "./money.server";
 import { marketplaceSettings } from "./settings.server";
 import { lockOrder, recordEvent, runStep, stateRefusal, type Actor } from "./step.server";

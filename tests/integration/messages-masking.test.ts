@@ -34,17 +34,16 @@ afterAll(async () => {
   await sequelize.close();
 });
 
-const ordersTable = async () => {
-  const [[row]] = (await sequelize.query(`SELECT to_regclass('public.orders') IS NOT NULL AS ok`)) as [{ ok: boolean }[], unknown];
-  return row.ok;
-};
-
 describe("before a sale", () => {
   it("stores and shows the message masked, says so, and mails the masked text", async () => {
     const unit = await liveUnit(seller.id);
     const thread = await openThread(ada.id, unit.id);
     sent.length = 0;
-    const out = await sendMessage(ada.id, thread.id, "Cheaper if we skip the fees? Ring 07700 900123 or mail ada@example.test. It is the XR-7700 at 230 V 50 Hz?");
+    const out = await sendMessage(
+      ada.id,
+      thread.id,
+      "Cheaper if we skip the fees? Ring 07700 900123 or mail ada@example.test. It is the XR-7700 at 230 V 50 Hz?",
+    );
     expect(out.masked).toBe(true);
     const stored = await Message.findByPk(out.id);
     expect(stored?.body).toBe(`Cheaper if we skip the fees? Ring ${MASK_TOKEN} or mail ${MASK_TOKEN}. It is the XR-7700 at 230 V 50 Hz?`);
@@ -70,8 +69,7 @@ describe("before a sale", () => {
 });
 
 describe("after the buyer has paid", () => {
-  it("stops masking once the buyer's order on the unit is funded, not while it is only reserved", async (ctx) => {
-    if (!(await ordersTable())) ctx.skip();
+  it("stops masking once the buyer's order on the unit is funded, not while it is only reserved", async () => {
     const unit = await liveUnit(seller.id);
     const thread = await openThread(ada.id, unit.id);
     const [[order]] = (await sequelize.query(

@@ -42,7 +42,7 @@ describe("the handling time", () => {
     const cancelled = await Order.findByPk(order.id, { rejectOnEmpty: true });
     expect(cancelled.state).toBe("cancelled");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: 50_500, refundNo: 1 },
+      { orderId: order.id, amountMinor: 50_500, n: 1 },
     ]);
     expect((await Listing.findByPk(c.listing.id))?.status).toBe("withdrawn");
     const cancelEvent = await lastEventId(order.id);
@@ -101,7 +101,13 @@ describe("the audition window", () => {
     // €505.00 × 8 % = €40.40.
     expect(released.feeMinor).toBe(4_040);
     expect((await jobsFor(QUEUES.orderRelease, order.id)).map((j) => j.data)).toEqual([{ orderId: order.id, amountMinor: 46_460 }]);
-    expect(await balancesFor(order.id)).toEqual({ buyer: -50_500, escrow: 0, platform_fees: 4_040, seller_payable: 46_460, seller_paid: 0 });
+    expect(await balancesFor(order.id)).toEqual({
+      buyer: -50_500,
+      escrow: 0,
+      platform_fees: 4_040,
+      seller_payable: 46_460,
+      seller_paid: 0,
+    });
     expect((await Listing.findByPk(c.listing.id))?.status).toBe("sold");
     const [[notice]] = await sequelize.query(`SELECT data FROM pgboss.job WHERE name = $1 AND data->>'listingId' = $2`, {
       bind: [QUEUES.watchNotice, c.listing.id],
@@ -109,7 +115,13 @@ describe("the audition window", () => {
     expect((notice as { data: unknown }).data).toEqual({ kind: "sold", listingId: c.listing.id });
 
     await t.markReleased(order.id, { transferId: `tr_${order.id}` }, clock);
-    expect(await balancesFor(order.id)).toEqual({ buyer: -50_500, escrow: 0, platform_fees: 4_040, seller_payable: 0, seller_paid: 46_460 });
+    expect(await balancesFor(order.id)).toEqual({
+      buyer: -50_500,
+      escrow: 0,
+      platform_fees: 4_040,
+      seller_payable: 0,
+      seller_paid: 46_460,
+    });
   });
 
   it("does nothing after the buyer contested", async () => {

@@ -21,12 +21,26 @@ afterAll(() => sequelize.close());
 type Call = (o: Order, c: Cast, clock: TestClock, who: "right" | "stranger") => Promise<unknown>;
 
 const ship = { carrier: "Parcelwise", trackingNumber: "PW1" };
-const payment = (o: Order) => ({ paymentIntentId: `pi_other_${o.id}`, chargeId: `ch_other_${o.id}`, amountMinor: o.totalMinor, currency: o.currency, eventId: "evt_x" });
+const payment = (o: Order) => ({
+  paymentIntentId: `pi_other_${o.id}`,
+  chargeId: `ch_other_${o.id}`,
+  amountMinor: o.totalMinor,
+  currency: o.currency,
+  eventId: "evt_x",
+});
 
 /** Each transition, the states it starts from, and the person who may take it (null: the system or provider). */
 const TRANSITIONS: Record<string, { from: Reachable[]; call: Call; person: boolean }> = {
-  markShipped: { from: ["funded"], person: true, call: (o, c, k, w) => t.markShipped(o.id, w === "right" ? c.seller.id : c.stranger.id, ship, k) },
-  confirmArrival: { from: ["shipped"], person: true, call: (o, c, k, w) => t.confirmArrival(o.id, w === "right" ? c.buyer.id : c.stranger.id, k) },
+  markShipped: {
+    from: ["funded"],
+    person: true,
+    call: (o, c, k, w) => t.markShipped(o.id, w === "right" ? c.seller.id : c.stranger.id, ship, k),
+  },
+  confirmArrival: {
+    from: ["shipped"],
+    person: true,
+    call: (o, c, k, w) => t.confirmArrival(o.id, w === "right" ? c.buyer.id : c.stranger.id, k),
+  },
   acceptUnit: { from: ["audition"], person: true, call: (o, c, k, w) => t.acceptUnit(o.id, w === "right" ? c.buyer.id : c.stranger.id, k) },
   contestOrder: {
     from: ["audition"],
@@ -44,26 +58,34 @@ const TRANSITIONS: Record<string, { from: Reachable[]; call: Call; person: boole
   assumeArrival: { from: ["shipped"], person: false, call: (o, _c, k) => t.assumeArrival(o.id, k) },
   closeAudition: { from: ["audition"], person: false, call: (o, _c, k) => t.closeAudition(o.id, k) },
   markReleased: { from: ["released"], person: false, call: (o, _c, k) => t.markReleased(o.id, { transferId: `tr_other_${o.id}` }, k) },
-  markRefunded: { from: ["refunded"], person: false, call: (o, _c, k) => t.markRefunded(o.id, { refundId: `re_other_${o.id}`, amountMinor: 1 }, k) },
+  markRefunded: {
+    from: ["refunded"],
+    person: false,
+    call: (o, _c, k) => t.markRefunded(o.id, { refundId: `re_other_${o.id}`, amountMinor: 1 }, k),
+  },
 };
 
 const STATES: Reachable[] = ["reserved", "funded", "shipped", "audition", "contested", "released", "refunded", "cancelled"];
 
 describe("from a state it does not start from, each transition is refused and writes nothing", () => {
-  it.each(STATES)("an order that is %s", async (state) => {
-    const clock = testClock();
-    const { c, order } = await orderIn(state, clock);
-    // Far past every deadline, so only the state can be the reason.
-    clock.advanceDays(60);
-    const before = await footprint(order.id);
-    for (const [name, tr] of Object.entries(TRANSITIONS)) {
-      if (tr.from.includes(state)) continue;
-      // markFunded on a lapsed (cancelled) order is the late payment, which is taken and refunded: tested elsewhere.
-      if (name === "markFunded" && state === "cancelled") continue;
-      expect(await refusalOf(() => tr.call(order, c, clock, "right")), `${name} on ${state}`).toBe("order_state");
-      expect(await footprint(order.id), `${name} on ${state}`).toEqual(before);
-    }
-  }, 60_000);
+  it.each(STATES)(
+    "an order that is %s",
+    async (state) => {
+      const clock = testClock();
+      const { c, order } = await orderIn(state, clock);
+      // Far past every deadline, so only the state can be the reason.
+      clock.advanceDays(60);
+      const before = await footprint(order.id);
+      for (const [name, tr] of Object.entries(TRANSITIONS)) {
+        if (tr.from.includes(state)) continue;
+        // markFunded on a lapsed (cancelled) order is the late payment, which is taken and refunded: tested elsewhere.
+        if (name === "markFunded" && state === "cancelled") continue;
+        expect(await refusalOf(() => tr.call(order, c, clock, "right")), `${name} on ${state}`).toBe("order_state");
+        expect(await footprint(order.id), `${name} on ${state}`).toEqual(before);
+      }
+    },
+    60_000,
+  );
 });
 
 describe("by anyone but its side, each person's transition is refused and writes nothing", () => {
@@ -127,7 +149,8 @@ describe("a moderator's decision", () => {
     const clock = testClock();
     const { c, order } = await orderIn("contested", clock);
     const before = await footprint(order.id);
-    const resolve = (refundMinor: number, note: string) => refusalOf(() => t.resolveContest(order.id, c.moderator.id, { refundMinor, note }, clock));
+    const resolve = (refundMinor: number, note: string) =>
+      refusalOf(() => t.resolveContest(order.id, c.moderator.id, { refundMinor, note }, clock));
     expect(await resolve(1_000, "   ")).toBe("invalid");
     expect(await resolve(-1, "Because.")).toBe("order_state");
     expect(await resolve(order.totalMinor + 1, "Because.")).toBe("order_state");
@@ -149,7 +172,14 @@ describe("the database's own guards", () => {
     const clock = testClock();
     const { c, order } = await orderIn("funded", clock);
     const { Order: OrderModel } = await import("~/models/index.server");
-    const copy = { ...order.get({ plain: true }), id: undefined, buyerId: c.stranger.id, state: "reserved" as const, paymentIntentId: null, chargeId: null };
+    const copy = {
+      ...order.get({ plain: true }),
+      id: undefined,
+      buyerId: c.stranger.id,
+      state: "reserved" as const,
+      paymentIntentId: null,
+      chargeId: null,
+    };
     const error: unknown = await OrderModel.create(copy).then(
       () => null,
       (e: unknown) => e,
@@ -161,11 +191,13 @@ describe("the database's own guards", () => {
   it("ledger entries and timeline rows cannot be changed or removed, and an unbalanced movement is refused at commit", async () => {
     const clock = testClock();
     const { order } = await orderIn("funded", clock);
-    await expect(sequelize.query(`UPDATE ledger_entries SET amount_minor = amount_minor + 1 WHERE order_id = $1`, { bind: [order.id] })).rejects.toThrow(
+    await expect(
+      sequelize.query(`UPDATE ledger_entries SET amount_minor = amount_minor + 1 WHERE order_id = $1`, { bind: [order.id] }),
+    ).rejects.toThrow(/append-only/);
+    await expect(sequelize.query(`DELETE FROM ledger_entries WHERE order_id = $1`, { bind: [order.id] })).rejects.toThrow(/append-only/);
+    await expect(sequelize.query(`UPDATE order_events SET note = 'x' WHERE order_id = $1`, { bind: [order.id] })).rejects.toThrow(
       /append-only/,
     );
-    await expect(sequelize.query(`DELETE FROM ledger_entries WHERE order_id = $1`, { bind: [order.id] })).rejects.toThrow(/append-only/);
-    await expect(sequelize.query(`UPDATE order_events SET note = 'x' WHERE order_id = $1`, { bind: [order.id] })).rejects.toThrow(/append-only/);
     await expect(sequelize.query(`DELETE FROM order_events WHERE order_id = $1`, { bind: [order.id] })).rejects.toThrow(/append-only/);
     await expect(
       sequelize.query(

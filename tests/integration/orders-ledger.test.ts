@@ -41,8 +41,8 @@ async function provider(w: World) {
     void job;
   }
   for (const job of await jobsFor(QUEUES.orderRefund, w.orderId)) {
-    const { amountMinor, refundNo } = job.data as { amountMinor: number; refundNo: number };
-    for (let i = 0; i < 2; i++) await t.markRefunded(w.orderId, { refundId: `re_${w.orderId}_${refundNo}`, amountMinor }, w.clock);
+    const { amountMinor, n } = job.data as { amountMinor: number; n: number };
+    for (let i = 0; i < 2; i++) await t.markRefunded(w.orderId, { refundId: `re_${w.orderId}_${n}`, amountMinor }, w.clock);
   }
 }
 
@@ -55,10 +55,16 @@ type Step = { kind: string; run: (w: World) => Promise<unknown> };
 const stepArb: fc.Arbitrary<Step> = fc.oneof(
   fc.constant<Step>({ kind: "pay", run: async (w) => fund(await orderNow(w), w.clock) }),
   fc.constant<Step>({ kind: "pay with another payment", run: async (w) => fund(await orderNow(w), w.clock, "_b") }),
-  fc.constant<Step>({ kind: "ship", run: (w) => t.markShipped(w.orderId, w.c.seller.id, { carrier: "Parcelwise", trackingNumber: "PW9" }, w.clock) }),
+  fc.constant<Step>({
+    kind: "ship",
+    run: (w) => t.markShipped(w.orderId, w.c.seller.id, { carrier: "Parcelwise", trackingNumber: "PW9" }, w.clock),
+  }),
   fc.constant<Step>({ kind: "confirm arrival", run: (w) => t.confirmArrival(w.orderId, w.c.buyer.id, w.clock) }),
   fc.constant<Step>({ kind: "accept", run: (w) => t.acceptUnit(w.orderId, w.c.buyer.id, w.clock) }),
-  fc.constant<Step>({ kind: "contest", run: (w) => t.contestOrder(w.orderId, w.c.buyer.id, { reason: "Hum on the left channel." }, w.clock) }),
+  fc.constant<Step>({
+    kind: "contest",
+    run: (w) => t.contestOrder(w.orderId, w.c.buyer.id, { reason: "Hum on the left channel." }, w.clock),
+  }),
   fc.double({ min: 0, max: 1, noNaN: true }).map<Step>((share) => ({
     kind: `resolve ${share.toFixed(2)}`,
     run: async (w) => {
@@ -75,7 +81,8 @@ const stepArb: fc.Arbitrary<Step> = fc.oneof(
 async function expectBalanced(w: World, after: string) {
   expect(await ledgerCheck(w.orderId), after).toEqual({ total: 0, unbalanced: 0 });
   const b = await balancesFor(w.orderId);
-  for (const account of ["escrow", "platform_fees", "seller_payable", "seller_paid"] as const) expect(b[account], `${account} after ${after}`).toBeGreaterThanOrEqual(0);
+  for (const account of ["escrow", "platform_fees", "seller_payable", "seller_paid"] as const)
+    expect(b[account], `${account} after ${after}`).toBeGreaterThanOrEqual(0);
   expect(b.buyer, `buyer after ${after}`).toBeLessThanOrEqual(0);
 }
 
@@ -109,7 +116,7 @@ describe("the ledger over random paths", () => {
         expect(["released", "refunded", "cancelled"]).toContain(o.state);
         expect(b.escrow).toBe(0);
         expect(b.seller_payable).toBe(0);
-        const paid = o.paymentIntentId ? o.totalMinor : 0;
+        const paid: number = o.paymentIntentId ? o.totalMinor : 0;
         expect(b.buyer).toBe(-paid + o.refundedMinor);
         expect(b.platform_fees).toBe(o.feeMinor ?? 0);
         expect(b.seller_paid).toBe(paid - o.refundedMinor - (o.feeMinor ?? 0));
@@ -125,7 +132,13 @@ describe("worked examples", () => {
     const clock = testClock();
     const { order } = await orderIn("released", clock);
     await t.markReleased(order.id, { transferId: `tr_${order.id}` }, clock);
-    expect(await balancesFor(order.id)).toEqual({ buyer: -50_500, escrow: 0, platform_fees: 4_040, seller_payable: 0, seller_paid: 46_460 });
+    expect(await balancesFor(order.id)).toEqual({
+      buyer: -50_500,
+      escrow: 0,
+      platform_fees: 4_040,
+      seller_payable: 0,
+      seller_paid: 46_460,
+    });
   });
 
   it("a part refund of €151.50 (30 %): fee on the €353.50 released is €28.28, the seller gets €325.22", async () => {
@@ -133,11 +146,19 @@ describe("worked examples", () => {
     const { c, order } = await orderIn("contested", clock);
     const resolved = await t.resolveContest(order.id, c.moderator.id, { refundMinor: 15_150, note: "Power 30 % under the sheet." }, clock);
     expect(resolved.state).toBe("refunded");
-    expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([{ orderId: order.id, amountMinor: 15_150, refundNo: 1 }]);
+    expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
+      { orderId: order.id, amountMinor: 15_150, n: 1 },
+    ]);
     expect((await jobsFor(QUEUES.orderRelease, order.id)).map((j) => j.data)).toEqual([{ orderId: order.id, amountMinor: 32_522 }]);
     await t.markRefunded(order.id, { refundId: "re_part", amountMinor: 15_150 }, clock);
     await t.markReleased(order.id, { transferId: "tr_part" }, clock);
-    expect(await balancesFor(order.id)).toEqual({ buyer: -35_350, escrow: 0, platform_fees: 2_828, seller_payable: 0, seller_paid: 32_522 });
+    expect(await balancesFor(order.id)).toEqual({
+      buyer: -35_350,
+      escrow: 0,
+      platform_fees: 2_828,
+      seller_payable: 0,
+      seller_paid: 32_522,
+    });
   });
 
   it("a whole refund: no fee, nothing to the seller, the unit withdrawn", async () => {

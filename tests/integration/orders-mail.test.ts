@@ -58,7 +58,7 @@ describe("order mails along the path", () => {
     expect(toSeller.text).toContain(`/sales/${order.id}`);
     expect(toSeller.headers ?? {}).not.toHaveProperty("List-Unsubscribe");
     expect(toSeller.text).not.toMatch(/unsubscribe/i);
-    expect(paid.find((m) => m.to === c.buyer.email)!.text).toContain("€505.00");
+    expect(paid.find((m) => m.to === c.buyer.email)!.text).toContain("Your payment of €505 is held");
 
     await t.markShipped(order.id, c.seller.id, { carrier: "Parcelwise", trackingNumber: "PW777" }, clock);
     const shipped = await deliver(order.id);
@@ -78,7 +78,9 @@ describe("order mails along the path", () => {
 
     await t.acceptUnit(order.id, c.buyer.id, clock);
     const released = await deliver(order.id);
-    expect(released.map((m) => m.subject).sort()).toEqual([expect.stringMatching(/^Complete/), expect.stringMatching(/^Payment released/)].sort());
+    expect(released.map((m) => m.subject).sort()).toEqual(
+      [expect.stringMatching(/^Complete/), expect.stringMatching(/^Payment released/)].sort(),
+    );
     expect(released.find((m) => m.to === c.seller.email)!.text).toContain("€40.40");
 
     await t.markReleased(order.id, { transferId: "tr_mail" }, clock);

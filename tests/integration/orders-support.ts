@@ -137,7 +137,7 @@ export async function footprint(orderId: string) {
             (SELECT status FROM listings WHERE id = $3::uuid) AS listing`,
     { bind: [orderId, ORDER_QUEUES, order.listingId] },
   );
-  return { order: order.toJSON(), ...(counts as object) };
+  return { order: order.toJSON(), ...(counts as { events: number; ledger: number; contests: number; jobs: number; listing: string }) };
 }
 
 /** The refusal a call ends in (fails the test if it succeeds or throws something else). */

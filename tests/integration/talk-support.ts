@@ -64,8 +64,9 @@ export interface SentMail {
 export async function runQueue(queue: string, handler: (data: unknown) => Promise<unknown>): Promise<number> {
   const { sequelize } = await import("~/db.server");
   const { getBoss } = await import("~/services/jobs.server");
-  await sequelize.query(`UPDATE pgboss.job SET start_after = now() WHERE name = $1 AND state = 'created'`, { bind: [queue] });
+  // Started first: on a fresh database pg-boss makes its schema as it starts.
   const boss = await getBoss();
+  await sequelize.query(`UPDATE pgboss.job SET start_after = now() WHERE name = $1 AND state = 'created'`, { bind: [queue] });
   let ran = 0;
   for (;;) {
     const jobs = await boss.fetch<unknown>(queue, { batchSize: 20 });
@@ -79,7 +80,11 @@ export async function runQueue(queue: string, handler: (data: unknown) => Promis
 }
 
 /** Jobs waiting in a queue whose data has `key` = `value`, with when each may start. */
-export async function waiting(queue: string, key: string, value: string): Promise<{ data: Record<string, unknown>; startAfter: Date; singletonKey: string | null }[]> {
+export async function waiting(
+  queue: string,
+  key: string,
+  value: string,
+): Promise<{ data: Record<string, unknown>; startAfter: Date; singletonKey: string | null }[]> {
   const { sequelize } = await import("~/db.server");
   const [rows] = await sequelize.query(
     `SELECT data, start_after, singleton_key FROM pgboss.job WHERE name = $1 AND state = 'created' AND data->>$2 = $3 ORDER BY created_on`,

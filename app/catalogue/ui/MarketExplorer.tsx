@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useMemo, useRef, useState, type RefObject } from "react";
 import { CATEGORIES, CATEGORY_LABELS } from "@shared/catalogue";
 import { MEASURED_FILTERS } from "@shared/market-filters";
 import { appliedFilters, inCategory, marketHref } from "~/catalogue/market-view";
@@ -10,6 +10,7 @@ import { cx } from "~/components/cx";
 import { useMarketState } from "./use-market-state";
 import { useMarketResults, type FirstPage } from "./use-market-results";
 import { FilterPanel } from "./FilterPanel";
+import { useHydrated } from "./use-hydrated";
 import { MarketResults } from "./MarketResults";
 
 // The market page below its title: categories, the filter panel (a left column on a desktop, a
@@ -42,7 +43,6 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
   const state = useMarketState();
   const results = useMarketResults(state.canonical, first);
   const { filters } = state;
-  const hydrated = useHydrated();
   // A bad value in the address: the phone's panel starts open, so its message is seen.
   const [open, setOpen] = useState(() => state.issues.length > 0);
   const toggle = useRef<HTMLButtonElement>(null);
@@ -88,22 +88,7 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
         </span>
       </p>
       <div className="lg:hidden">
-        {hydrated ? (
-          <Button
-            ref={toggle}
-            variant="secondary"
-            aria-expanded={open}
-            aria-controls="filters"
-            onClick={() => setOpen((o) => !o)}
-            className="w-full"
-          >
-            <FunnelIcon /> {toggleLabel}
-          </Button>
-        ) : (
-          <a href="#filters" className={buttonClass("secondary", "md", "w-full")}>
-            <FunnelIcon /> {toggleLabel}
-          </a>
-        )}
+        <FiltersToggle toggle={toggle} open={open} onClick={() => setOpen((o) => !o)} label={toggleLabel} />
       </div>
       <div className="gap-8 lg:grid lg:grid-cols-[17.5rem_minmax(0,1fr)] lg:items-start">
         <aside
@@ -122,25 +107,33 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
           </h2>
           <FilterPanel state={state} counts={counts} errors={errors} total={results.total} onDone={done} />
         </aside>
-        <MarketResults
-          results={results}
-          filters={filters}
-          hydrated={hydrated}
-          pager={pager}
-          watching={watching}
-          signedIn={signedIn}
-          problem={problem}
-        />
+        <MarketResults results={results} filters={filters} pager={pager} watching={watching} signedIn={signedIn} problem={problem} />
       </div>
     </>
   );
 }
 
-/** False in the server's HTML and the first render; true once the page's JavaScript runs. */
-function useHydrated(): boolean {
-  const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
-  return hydrated;
+/** The phone's filter toggle: a button with JavaScript, without it a link to the panel (shown by :target). */
+function FiltersToggle({
+  toggle,
+  open,
+  onClick,
+  label,
+}: {
+  toggle: RefObject<HTMLButtonElement | null>;
+  open: boolean;
+  onClick: () => void;
+  label: string;
+}) {
+  return useHydrated() ? (
+    <Button ref={toggle} variant="secondary" aria-expanded={open} aria-controls="filters" onClick={onClick} className="w-full">
+      <FunnelIcon /> {label}
+    </Button>
+  ) : (
+    <a href="#filters" className={buttonClass("secondary", "md", "w-full")}>
+      <FunnelIcon /> {label}
+    </a>
+  );
 }
 
 function FunnelIcon() {

@@ -10,6 +10,7 @@ import { Button } from "~/components/Button";
 import { cx } from "~/components/cx";
 import type { useMarketResults } from "./use-market-results";
 import { AppliedFilters } from "./AppliedFilters";
+import { useHydrated } from "./use-hydrated";
 
 // The results beside the panel: how many units, the filters in use, the cards, and more of them. While
 // new filters load, the previous cards stay (dimmed) and a status line says so to screen readers too.
@@ -19,7 +20,6 @@ type Results = ReturnType<typeof useMarketResults>;
 export function MarketResults({
   results,
   filters,
-  hydrated,
   pager,
   watching,
   signedIn,
@@ -27,8 +27,6 @@ export function MarketResults({
 }: {
   results: Results;
   filters: MarketFilters;
-  /** With JavaScript, "Load more" follows the cursor; without it, the pager's links. */
-  hydrated: boolean;
   pager: { page: number; pageCount: number };
   /** The loader's watch states for its cards (never the buyer's own units). */
   watching: Record<string, boolean>;
@@ -37,7 +35,8 @@ export function MarketResults({
   problem: string | null;
 }) {
   const { items, total, counts, updating, loading } = results;
-  const watched = useWatchedIds(signedIn && hydrated && items.some((l) => !(l.id in watching)));
+  // Queries run only in the browser: on the server this asks nothing.
+  const watched = useWatchedIds(signedIn && items.some((l) => !(l.id in watching)));
   const alertParams = marketFiltersToParams(withoutPaging(filters)).toString();
   const units = `${total} ${total === 1 ? "unit" : "units"}`;
   return (
@@ -86,7 +85,8 @@ export function MarketResults({
               <ListingCard
                 listing={l}
                 href={`/listings/${l.id}`}
-                className="w-full"
+                // Cards below the first row are laid out and painted when scrolled near, not with the page.
+                className={cx("w-full", i > 1 && "[contain-intrinsic-size:auto_28rem] [content-visibility:auto]")}
                 priority={i === 0}
                 action={
                   l.id in watching || (watched && signedIn) ? (
@@ -105,19 +105,33 @@ export function MarketResults({
       ) : (
         <Empty filters={filters} results={results} />
       )}
-      {hydrated ? (
-        results.hasMore ? (
-          <div className="flex justify-center pt-2">
-            <Button variant="secondary" busy={results.loadingMore} onClick={results.loadMore}>
-              {results.loadingMore ? "Loading more…" : `Load more of ${units}`}
-            </Button>
-          </div>
-        ) : null
-      ) : (
-        <Pagination page={pager.page} pageCount={pager.pageCount} hrefFor={(p) => marketPageHref(filters, p)} className="pt-2" />
-      )}
+      <MoreResults results={results} filters={filters} pager={pager} units={units} />
     </section>
   );
+}
+
+/** With JavaScript, "Load more" follows the cursor; without it, the pager's links. */
+function MoreResults({
+  results,
+  filters,
+  pager,
+  units,
+}: {
+  results: Results;
+  filters: MarketFilters;
+  pager: { page: number; pageCount: number };
+  units: string;
+}) {
+  const hydrated = useHydrated();
+  if (!hydrated)
+    return <Pagination page={pager.page} pageCount={pager.pageCount} hrefFor={(p) => marketPageHref(filters, p)} className="pt-2" />;
+  return results.hasMore ? (
+    <div className="flex justify-center pt-2">
+      <Button variant="secondary" busy={results.loadingMore} onClick={results.loadMore}>
+        {results.loadingMore ? "Loading more…" : `Load more of ${units}`}
+      </Button>
+    </div>
+  ) : null;
 }
 
 function Empty({ filters, results }: { filters: MarketFilters; results: Results }) {

@@ -84,23 +84,20 @@ export function CompareToggle({
 
 /** Two columns side by side; a tick in the second once chosen. */
 export function CompareIcon({ chosen = false }: { chosen?: boolean }) {
+  // One path while not chosen: the icon is drawn on every card of a list, and each element counts.
+  const columns =
+    "M3.2 3.5h4.1a1.2 1.2 0 0 1 1.2 1.2v10.6a1.2 1.2 0 0 1-1.2 1.2H3.2A1.2 1.2 0 0 1 2 15.3V4.7a1.2 1.2 0 0 1 1.2-1.2z" +
+    "M12.7 3.5h4.1a1.2 1.2 0 0 1 1.2 1.2v10.6a1.2 1.2 0 0 1-1.2 1.2h-4.1a1.2 1.2 0 0 1-1.2-1.2V4.7a1.2 1.2 0 0 1 1.2-1.2z";
   return (
     <svg aria-hidden="true" viewBox="0 0 20 20" className="size-4">
-      <rect x="2" y="3.5" width="6.5" height="13" rx="1.2" fill="none" stroke="currentColor" strokeWidth="1.5" />
-      <rect
-        x="11.5"
-        y="3.5"
-        width="6.5"
-        height="13"
-        rx="1.2"
-        fill={chosen ? "currentColor" : "none"}
-        stroke="currentColor"
-        strokeWidth="1.5"
-      />
       {chosen ? (
-        <path d="M12.9 10.2l1.5 1.5 2.3-2.9" fill="none" stroke="var(--color-card)" strokeWidth="1.5" strokeLinecap="round" />
+        <>
+          <path d={columns} fill="none" stroke="currentColor" strokeWidth="1.5" />
+          <rect x="11.5" y="3.5" width="6.5" height="13" rx="1.2" fill="currentColor" />
+          <path d="M12.9 10.2l1.5 1.5 2.3-2.9" fill="none" stroke="var(--color-card)" strokeWidth="1.5" strokeLinecap="round" />
+        </>
       ) : (
-        <path d="M14.75 7.5v5M12.25 10h5" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" />
+        <path d={`${columns}M14.75 7.5v5M12.25 10h5`} fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" />
       )}
     </svg>
   );

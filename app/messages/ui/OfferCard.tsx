@@ -29,10 +29,16 @@ export function OfferCard({ offer, thread, errors }: { offer: OfferItem; thread:
         <p className="text-sm text-ink-soft">
           {title} from <span className="font-medium text-ink">{who}</span>
         </p>
-        <Badge tone={offer.state === "accepted" ? "trace" : offer.state === "open" ? "brass" : "neutral"}>{OFFER_STATE_LABELS[offer.state]}</Badge>
+        <Badge tone={offer.state === "accepted" ? "trace" : offer.state === "open" ? "brass" : "neutral"}>
+          {OFFER_STATE_LABELS[offer.state]}
+        </Badge>
       </div>
       <Price minor={offer.amountMinor} currency={offer.currency} className="text-xl font-semibold text-ink" />
-      {offer.state === "open" ? <p className="text-xs text-ink-faint">Open until <span className="figures">{dateTime(offer.expiresAt)}</span></p> : null}
+      {offer.state === "open" ? (
+        <p className="text-xs text-ink-faint">
+          Open until <span className="figures">{dateTime(offer.expiresAt)}</span>
+        </p>
+      ) : null}
       {offer.state === "accepted" && offer.checkoutUntil ? (
         <p className="text-sm text-ink">
           {thread.role === "buyer" ? "You can buy at this price until " : "The buyer can buy at this price until "}
@@ -95,9 +101,13 @@ export function MakeOfferForm({ thread, errors }: { thread: ThreadHead; errors?:
       </h2>
       <p className="text-sm text-ink-soft">
         The asking price is{" "}
-        {thread.priceMinor !== null ? <Price minor={thread.priceMinor} currency={thread.currency} className="font-medium text-ink" /> : "not set"}. The
-        seller can accept, decline or answer with a counter-offer before your offer expires; an accepted offer lets you buy at that price for a
-        limited time, shown with it.
+        {thread.priceMinor !== null ? (
+          <Price minor={thread.priceMinor} currency={thread.currency} className="font-medium text-ink" />
+        ) : (
+          "not set"
+        )}
+        . The seller can accept, decline or answer with a counter-offer before your offer expires; an accepted offer lets you buy at that
+        price for a limited time, shown with it.
       </p>
       <Form method="post" className="flex flex-wrap items-end gap-2">
         <input type="hidden" name="intent" value="offer" />

@@ -57,7 +57,7 @@ export function ThreadView({ initial, errors, draft }: { initial: Conversation; 
         )}
       </ol>
 
-      <form method="post" onSubmit={onSubmit} className="space-y-3" noValidate>
+      <form method="post" onSubmit={(e) => void onSubmit(e)} className="space-y-3" noValidate>
         <input type="hidden" name="intent" value="send" />
         <TextareaField
           label={`Write to ${thread.otherName || "the other side"}`}

@@ -6,6 +6,7 @@ import { Watch } from "~/models/watch.server";
 import { SpecAlert } from "~/models/spec-alert.server";
 import { MessageThread } from "~/models/message-thread.server";
 import { Offer } from "~/models/offer.server";
+import { Order } from "~/models/order.server";
 import { issueUnsubscribeUrl } from "~/alerts/unsubscribe.server";
 import { hashPassword } from "~/auth/password.server";
 import type { Role } from "~/auth/roles";
@@ -52,6 +53,8 @@ export interface Fixtures {
   /** The buyer's conversation with the owner about the live listing, and the buyer's open offer in it. */
   thread: MessageThread;
   offer: Offer;
+  /** The buyer's paid order of another of the owner's units (the owner is its seller). */
+  order: Order;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -172,7 +175,23 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     checkoutUntil: null,
     decidedAt: null,
   });
-  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer };
+  // Made straight in the database (no provider behind it): paid and waiting for the owner to ship.
+  const sold = await listing(ownerId, "reserved");
+  const order = await Order.create({
+    listingId: sold.id,
+    buyerId: users.buyer.id,
+    sellerId: ownerId,
+    state: "funded",
+    currency: "EUR",
+    priceMinor: 48_000,
+    deliveryMinor: 0,
+    deliveryMethod: "collection",
+    deliveryZone: "domestic",
+    reservedUntil: new Date(Date.now() + 30 * 60_000),
+    fundedAt: new Date(),
+    shipBy: new Date(Date.now() + 3 * 86_400_000),
+  });
+  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer, order };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
@@ -196,7 +215,13 @@ export async function removeFixtures(f: Fixtures | undefined) {
   if (!f) return;
   const ids = Object.values(f.users).map((u) => u.id);
   await Watch.destroy({ where: { userId: ids } });
-  await Listing.destroy({ where: { sellerId: ids } });
+  // Orders are never deleted (their timeline is append-only): their units and people stay behind.
+  const kept = (await Order.findAll({ where: { [Op.or]: [{ buyerId: ids }, { sellerId: ids }] } })).flatMap((o) => [
+    o.listingId,
+    o.buyerId,
+    o.sellerId,
+  ]);
+  await Listing.destroy({ where: { sellerId: ids, id: { [Op.notIn]: kept.length ? kept : [randomUUID()] } } });
   await Capture.destroy({ where: { ownerId: ids } });
-  await User.destroy({ where: { id: ids } });
+  await User.destroy({ where: { id: { [Op.in]: ids, [Op.notIn]: kept.length ? kept : [randomUUID()] } } });
 }

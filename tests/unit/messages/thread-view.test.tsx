@@ -80,7 +80,10 @@ describe("ThreadView", () => {
         const body = (await request.json()) as { body: string };
         posted.push(body);
         items = [...items, message("m2", body.body, true, 1), message("m3", "Happy to show it running.", false, 2)];
-        return HttpResponse.json({ message: { id: "m2", body: body.body, masked: false, at: "2026-12-30T10:01:00.000Z" } }, { status: 201 });
+        return HttpResponse.json(
+          { message: { id: "m2", body: body.body, masked: false, at: "2026-12-30T10:01:00.000Z" } },
+          { status: 201 },
+        );
       }),
     );
     mount();
@@ -99,7 +102,11 @@ describe("ThreadView", () => {
       http.get(`*/api/v1/threads/${THREAD}/messages`, () => HttpResponse.json(conversation([first]))),
       http.post(`*/api/v1/threads/${THREAD}/messages`, () =>
         HttpResponse.json(
-          { error: "invalid", message: "Keep a message under 4,000 characters.", issues: [{ path: "body", message: "Keep a message under 4,000 characters." }] },
+          {
+            error: "invalid",
+            message: "Keep a message under 4,000 characters.",
+            issues: [{ path: "body", message: "Keep a message under 4,000 characters." }],
+          },
           { status: 400 },
         ),
       ),
