@@ -15,11 +15,6 @@ export const OFFER_STATE_LABELS: Record<OfferState, string> = {
   used: "Bought at this price",
 };
 
-/** Hours an offer stays open when the marketplace settings say nothing. */
-export const DEFAULT_OFFER_HOURS = 48;
-/** Hours an accepted offer's price holds for checkout when the settings say nothing. */
-export const DEFAULT_OFFER_CHECKOUT_HOURS = 24;
-
 export type OfferActionName = "accept" | "decline" | "counter" | "withdraw";
 
 /**

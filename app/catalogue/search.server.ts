@@ -1,6 +1,5 @@
 import { QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
-import { Listing } from "~/models/index.server";
 import { refusal } from "~/http/errors.server";
 import { UUID_PATTERN } from "@shared/ids";
 import { CATEGORIES, COSMETIC_GRADES, SERVICE_STATES } from "@shared/catalogue";
@@ -26,7 +25,7 @@ import {
   whereOf,
   type Dimension,
 } from "./search-sql.server";
-import { summaryAttributes, summaryInclude, toSummaries } from "./summaries.server";
+import { CARD_COLUMNS, CARD_JOINS, summariesFromRows, type CardRow } from "./card-rows.server";
 
 // The market's search: live listings matching the filters, in the chosen order, a page at a time.
 // The API pages by cursor (the sort keys of the last row, exact, so pages never skip or repeat a unit
@@ -44,7 +43,11 @@ export interface SearchOptions {
   page?: number;
 }
 
-/** The SQL that selects one page of listing ids (with their sort keys), as `npm run bench` runs it too. */
+/**
+ * The SQL of one page: the matching listings' ids with their sort keys, and in the same statement what a
+ * card shows (seller, workshop, sheet version, cover photo), as `npm run bench` runs it too. One round
+ * trip and plain rows: the cards are built from them without model instances.
+ */
 export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): { sql: string; bind: unknown[] } {
   const b = new Binds();
   const spec = sortSpec(filters, b);
@@ -64,8 +67,12 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
     );
   const limit = clampLimit(opts.limit);
   const offset = !cursor && opts.page && opts.page > 1 ? ` OFFSET ${b.add((opts.page - 1) * limit, "::int")}` : "";
-  // One row more than the page shows: it says whether there is a next page.
-  const sql = `SELECT l.id, ${keySelect(spec)} FROM listings l WHERE ${where.join(" AND ")} ORDER BY ${orderBy(spec)} LIMIT ${b.add(limit + 1, "::int")}${offset}`;
+  // One row more than the page shows: it says whether there is a next page. The keys come twice: as
+  // exact text for the cursor, and as they are for putting the joined rows back in order.
+  const ordered = spec.keys.map((k, i) => `${k.expr} AS o${i}`).join(", ");
+  const page = `SELECT l.id, ${keySelect(spec)}, ${ordered} FROM listings l WHERE ${where.join(" AND ")} ORDER BY ${orderBy(spec)} LIMIT ${b.add(limit + 1, "::int")}${offset}`;
+  const reorder = spec.keys.map((_, i) => `p.o${i} ${spec.desc ? "DESC" : "ASC"}`).join(", ");
+  const sql = `SELECT p.id, ${spec.keys.map((_, i) => `p.k${i}`).join(", ")}, ${CARD_COLUMNS} FROM (${page}) p ${CARD_JOINS} ORDER BY ${reorder}`;
   return { sql, bind: b.values };
 }
 
@@ -74,13 +81,13 @@ export async function searchListings(filters: MarketFilters, opts: SearchOptions
   const { sql, bind } = searchQuery(filters, opts);
   const limit = clampLimit(opts.limit);
   const [rows, counted] = await Promise.all([
-    sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT }),
+    sequelize.query<CardRow & Record<string, string>>(sql, { bind, type: QueryTypes.SELECT }),
     cachedCounts(filters),
   ]);
   const page = rows.slice(0, limit);
   const last = page.at(-1);
   const nextCursor = rows.length > limit && last ? encodeCursor(filters.sort, keysOf(last)) : null;
-  const items = await summariesInOrder(page.map((r) => r.id));
+  const items = await summariesFromRows(page);
   return { items, total: counted.total, nextCursor, counts: counted.counts };
 }
 
@@ -242,13 +249,6 @@ async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
       ),
     },
   };
-}
-
-async function summariesInOrder(ids: string[]) {
-  if (ids.length === 0) return [];
-  const rows = await Listing.findAll({ where: { id: ids }, attributes: [...summaryAttributes], include: summaryInclude });
-  const byId = new Map(rows.map((r) => [r.id, r]));
-  return toSummaries(ids.map((id) => byId.get(id)).filter((r): r is Listing => r !== undefined));
 }
 
 function clampLimit(limit: number | undefined): number {

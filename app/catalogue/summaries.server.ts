@@ -1,8 +1,10 @@
 import { QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
-import { BenchSheet, Listing, User, Workshop } from "~/models/index.server";
+import { BenchSheet, User, Workshop } from "~/models/index.server";
 import { formatEra, listingTitle } from "@shared/catalogue";
 import { leadFigure, type CardFigure } from "@shared/listing-facets";
+import type { Category, CosmeticGrade, ServiceState } from "@shared/catalogue";
+import type { BenchSheet as Sheet } from "@shared/bench/schema";
 import type { ListingSummary, PhotoRef } from "./types";
 import { mediaUrl } from "./media-url";
 
@@ -50,14 +52,45 @@ export const summaryIncludeWithSheets = summaryInclude.map((i) =>
 // the sheets kept figures do not cover are read in one query.
 const leadFigures = new Map<string, { updatedAt: number; figure: CardFigure | null }>();
 
-async function cardFigures(rows: Listing[]): Promise<Map<string, CardFigure | null>> {
+/**
+ * What a card is built from: a listing model with its includes, or a plain row of the market's search
+ * (card-rows.server.ts). The sheet itself only when it was read (else its id and version suffice).
+ */
+export interface CardSource {
+  id: string;
+  category: Category;
+  maker: string | null;
+  model: string | null;
+  yearFrom: number | null;
+  yearTo: number | null;
+  priceMinor: number | null;
+  currency: string;
+  offersWelcome: boolean;
+  country: string | null;
+  region: string | null;
+  town: string | null;
+  cosmeticGrade: CosmeticGrade | null;
+  serviceState: ServiceState | null;
+  benchVerified: boolean;
+  publishedAt: Date | null;
+  createdAt: Date;
+  seller?: { displayName: string } | null;
+  workshop?: { name: string; verificationStatus: string } | null;
+  benchSheet?: SheetRef | null;
+}
+type SheetRef = { id: string; updatedAt: Date; sheet?: Sheet | null };
+
+/** Whether the sheet's own column was read (a model instance has the attribute either way). */
+const sheetRead = (bench: SheetRef) => ("dataValues" in bench ? "sheet" in (bench as BenchSheet).dataValues : "sheet" in bench);
+
+async function cardFigures(rows: readonly CardSource[]): Promise<Map<string, CardFigure | null>> {
   const out = new Map<string, CardFigure | null>();
   const missed: string[] = [];
   for (const { benchSheet: bench } of rows) {
     if (!bench) continue;
     const hit = leadFigures.get(bench.id);
     if (hit && hit.updatedAt === bench.updatedAt.getTime()) out.set(bench.id, hit.figure);
-    else if ("sheet" in bench.dataValues) out.set(bench.id, keep(bench));
+    else if (sheetRead(bench)) out.set(bench.id, keep(bench));
     else missed.push(bench.id);
   }
   if (missed.length === 0) return out;
@@ -67,15 +100,16 @@ async function cardFigures(rows: Listing[]): Promise<Map<string, CardFigure | nu
   return out;
 }
 
-function keep(bench: BenchSheet): CardFigure | null {
-  const figure = leadFigure(bench.sheet);
+function keep(bench: SheetRef): CardFigure | null {
+  const figure = leadFigure(bench.sheet ?? null);
   if (leadFigures.size >= 10_000) leadFigures.clear();
   leadFigures.set(bench.id, { updatedAt: bench.updatedAt.getTime(), figure });
   return figure;
 }
 
-export async function toSummaries(rows: Listing[]): Promise<ListingSummary[]> {
-  const [covers, figures] = await Promise.all([coversFor(rows.map((r) => r.id)), cardFigures(rows)]);
+/** The cards for `rows`, in their order; covers read in one query unless the rows came with theirs. */
+export async function toSummaries(rows: readonly CardSource[], knownCovers?: Map<string, PhotoRef>): Promise<ListingSummary[]> {
+  const [covers, figures] = await Promise.all([knownCovers ?? coversFor(rows.map((r) => r.id)), cardFigures(rows)]);
   return rows.map((l) => ({
     id: l.id,
     title: listingTitle(l.maker, l.model),

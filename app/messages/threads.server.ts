@@ -12,6 +12,7 @@ import { refusal } from "~/http/errors.server";
 import { threadFor } from "./access.server";
 import { buyerHasPaid } from "./sale.server";
 import { queueMessageMail } from "./message-mail.server";
+import { systemClock, type Clock } from "~/orders/clock.server";
 import type { Conversation, ConversationItem, ThreadRole, ThreadSummary } from "./types";
 
 // Threads: one per listing and buyer, with the listing's seller. Opening one is idempotent (the
@@ -35,6 +36,12 @@ export async function openThread(buyerId: string, listingId: unknown, transactio
   const thread = await MessageThread.findOne({ where: { listingId: listing.id, buyerId }, transaction });
   if (!thread) throw new Error("the thread just made is missing");
   return thread;
+}
+
+/** The thread between a listing's buyer and its seller, if they have one (for links from an order's page). */
+export async function threadIdFor(listingId: string, buyerId: string): Promise<string | null> {
+  const thread = await MessageThread.findOne({ where: { listingId, buyerId }, attributes: ["id"] });
+  return thread?.id ?? null;
 }
 
 const SNIPPET = 140;
@@ -93,7 +100,8 @@ export async function markRead(thread: MessageThread, role: ThreadRole, now: Dat
 }
 
 /** The thread as the viewer sees it (404 for anyone not in it), marked read for them. */
-export async function conversation(userId: string, threadId: unknown, now: Date = new Date()): Promise<Conversation> {
+export async function conversation(userId: string, threadId: unknown, clock: Clock = systemClock): Promise<Conversation> {
+  const now = clock.now();
   const { thread, role } = await threadFor(userId, threadId);
   const [listing, other, messages, offers, paid] = await Promise.all([
     Listing.findByPk(thread.listingId, { attributes: ["id", "maker", "model", "status", "priceMinor", "currency", "offersWelcome"] }),
@@ -162,7 +170,8 @@ export interface SentMessage {
  * masked in what is stored (the other side never receives them); the recipient's mail is queued to
  * go a little later, once per burst.
  */
-export async function sendMessage(senderId: string, threadId: unknown, body: string, now: Date = new Date()): Promise<SentMessage> {
+export async function sendMessage(senderId: string, threadId: unknown, body: string, clock: Clock = systemClock): Promise<SentMessage> {
+  const now = clock.now();
   return sequelize.transaction(async (transaction) => {
     const { thread, role } = await threadFor(senderId, threadId, { transaction, lock: true });
     const paid = await buyerHasPaid(thread.listingId, thread.buyerId, transaction);

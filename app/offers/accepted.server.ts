@@ -34,3 +34,16 @@ export async function markOfferUsed(offerId: string, tx: Transaction): Promise<v
   );
   if (count !== 1) throw refusal("conflict", "That offer can no longer be used at checkout.");
 }
+
+/**
+ * Gives a spent offer back when the reservation it went into ended unpaid (the reservation lapsed or
+ * was cancelled before funding) and its checkout window is still open at `now`; otherwise nothing.
+ * Returns whether the buyer may use it again.
+ */
+export async function restoreOfferUse(offerId: string, now: Date, tx: Transaction): Promise<boolean> {
+  const [, count] = await sequelize.query(
+    `UPDATE offers SET state = 'accepted', updated_at = now() WHERE id = :offerId AND state = 'used' AND checkout_until > :now`,
+    { replacements: { offerId, now }, type: QueryTypes.UPDATE, transaction: tx },
+  );
+  return count === 1;
+}

@@ -13,6 +13,7 @@ import { openThread, touchThread } from "~/messages/threads.server";
 import { threadFor } from "~/messages/access.server";
 import type { OfferAnswer } from "~/messages/schemas";
 import { offerTimes } from "./settings.server";
+import { systemClock, type Clock } from "~/orders/clock.server";
 import type { OfferMailEvent } from "./offer-mail.server";
 
 // Offers: a buyer offers an amount on a unit whose seller welcomes offers; the seller accepts,
@@ -63,8 +64,9 @@ async function queueSteps(offer: Offer, event: OfferMailEvent, transaction: Tran
 export async function makeOffer(
   buyer: Actor,
   input: { listingId: string; amountMinor: number; currency: string },
-  now: Date = new Date(),
+  clock: Clock = systemClock,
 ): Promise<OfferOutcome> {
+  const now = clock.now();
   return sequelize.transaction(async (transaction) => {
     const listing = isId(input.listingId) ? await Listing.findByPk(input.listingId, { transaction, lock: transaction.LOCK.SHARE }) : null;
     if (!listing || !canViewListing(listing.status, listing.sellerId, buyer)) throw refusal("not_found", "There is no listing here.");
@@ -119,7 +121,13 @@ export async function makeOffer(
 }
 
 /** The buyer's or the seller's answer to an offer (404 for anyone else; 409 offer_closed once it is not open). */
-export async function answerOffer(userId: string, offerId: unknown, answer: OfferAnswer, now: Date = new Date()): Promise<OfferOutcome> {
+export async function answerOffer(
+  userId: string,
+  offerId: unknown,
+  answer: OfferAnswer,
+  clock: Clock = systemClock,
+): Promise<OfferOutcome> {
+  const now = clock.now();
   const outcome = await sequelize.transaction(async (transaction) => {
     const offer = isId(offerId)
       ? await Offer.findOne({
@@ -195,7 +203,8 @@ export async function answerOffer(userId: string, offerId: unknown, answer: Offe
 }
 
 /** The 'offer-expiry' job: an offer still open at its deadline expires (and both sides hear). */
-export async function expireOffer(data: unknown, now: Date = new Date()): Promise<boolean> {
+export async function expireOffer(data: unknown, clock: Clock = systemClock): Promise<boolean> {
+  const now = clock.now();
   const offerId = (data as { offerId?: unknown } | null)?.offerId;
   if (!isId(offerId)) return false;
   return sequelize.transaction(async (transaction) => {

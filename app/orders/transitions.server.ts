@@ -2,13 +2,15 @@ import { UniqueConstraintError } from "sequelize";
 import { sequelize } from "~/db.server";
 import { refusal } from "~/http/errors.server";
 import { LedgerEntry, Listing, Order, OrderContest, User } from "~/models/index.server";
+import { OrderRemeasurement } from "~/models/order-remeasurement.server";
+import type { BuyerReadings, Remeasurement } from "@shared/bench/remeasure";
 import { holdsRole } from "~/auth/roles";
 import type { ShippingMethod, ShippingZone } from "@shared/catalogue";
 import { isId } from "@shared/ids";
 import type { Clock } from "./clock.server";
 import { scheduleDeadline } from "./deadline-jobs.server";
 import { balancesFor, move } from "./ledger.server";
-import { acceptedOfferFor, markOfferUsed } from "./offer-price.server";
+import { acceptedOfferFor, markOfferUsed } from "~/offers/accepted.server";
 import { queueRefund, releaseToSeller, setListingStatus } from "./money.server";
 import { marketplaceSettings } from "./settings.server";
 import { lockOrder, recordEvent, runStep, stateRefusal, type Actor } from "./step.server";
@@ -247,8 +249,14 @@ export function assumeArrival(orderId: string, clock: Clock): Promise<Order> {
 
 const auditionOver = (order: Order, now: Date) => !!order.auditionEndsAt && now >= order.auditionEndsAt;
 
-/** The buyer is satisfied before the window closes: the money is released to the seller. */
-export function acceptUnit(orderId: string, buyerId: string, clock: Clock): Promise<Order> {
+/** The buyer's own figures entered with an acceptance, and their comparison with the bench sheet. */
+export interface AcceptRemeasurement {
+  readings: BuyerReadings;
+  comparison: Remeasurement;
+}
+
+/** The buyer is satisfied before the window closes: the money is released to the seller (with their figures, if they measured). */
+export function acceptUnit(orderId: string, buyerId: string, clock: Clock, remeasurement?: AcceptRemeasurement): Promise<Order> {
   return runStep(
     orderId,
     {
@@ -256,7 +264,10 @@ export function acceptUnit(orderId: string, buyerId: string, clock: Clock): Prom
       side: "buyer",
       from: ["arrived", "audition"],
       to: "released",
-      apply: (order, { tx, now }) => releaseToSeller(order, 0, now, tx),
+      apply: async (order, { tx, now }) => {
+        if (remeasurement) await OrderRemeasurement.create({ orderId: order.id, ...remeasurement, enteredAt: now }, { transaction: tx });
+        await releaseToSeller(order, 0, now, tx);
+      },
       mail: ["buyer", "seller"],
     },
     clock,

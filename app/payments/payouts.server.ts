@@ -48,4 +48,3 @@ export async function payoutStatusFor(userId: string, { refresh = false } = {}):
   }
   return payoutStatus(user);
 }
-

@@ -69,7 +69,13 @@ async function sessionPaid(sessionId: string, eventId: string, clock: Clock): Pr
   // markFunded funds a reserved order, and records then refunds in whole one that lapsed meanwhile.
   await markFunded(
     orderId,
-    { paymentIntentId: pi.id, chargeId, amountMinor: session.amount_total ?? pi.amount, currency: session.currency ?? pi.currency, eventId },
+    {
+      paymentIntentId: pi.id,
+      chargeId,
+      amountMinor: session.amount_total ?? pi.amount,
+      currency: session.currency ?? pi.currency,
+      eventId,
+    },
     clock,
   );
 }

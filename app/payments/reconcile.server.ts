@@ -43,7 +43,8 @@ async function ledgerSide(orderIds?: string[]): Promise<{ movements: Money[]; un
     const key = `${leg[0]}:${e.providerRef ?? `missing:${e.movementId}`}`;
     const seen = movements.get(key);
     if (seen) seen.amountMinor += e.amountMinor;
-    else movements.set(key, { orderId: e.orderId, kind: leg[0], ref: e.providerRef ?? "", amountMinor: e.amountMinor, currency: e.currency });
+    else
+      movements.set(key, { orderId: e.orderId, kind: leg[0], ref: e.providerRef ?? "", amountMinor: e.amountMinor, currency: e.currency });
   }
   const unbalanced = [...sums]
     .filter(([, sum]) => sum !== 0)
@@ -115,7 +116,11 @@ export async function reconcile({ stripe = payments(), orderIds }: { stripe?: St
     }
     matched.add(key);
     if (theirs.orderId && theirs.orderId !== m.orderId) {
-      differences.push({ ...base, providerMinor: theirs.amountMinor, message: `the provider files ${m.ref} under order ${theirs.orderId}` });
+      differences.push({
+        ...base,
+        providerMinor: theirs.amountMinor,
+        message: `the provider files ${m.ref} under order ${theirs.orderId}`,
+      });
     } else if (theirs.amountMinor !== m.amountMinor || theirs.currency.toUpperCase() !== m.currency.toUpperCase()) {
       differences.push({
         ...base,

@@ -28,7 +28,7 @@ export function payments(): Stripe {
 }
 
 /** Points `payments()` at another client (a test's own stand-in with its own clock); undefined restores the default. */
-export function usePaymentsClient(next: Stripe | undefined): void {
+export function setPaymentsClient(next: Stripe | undefined): void {
   client = next;
 }
 

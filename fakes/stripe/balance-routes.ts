@@ -40,7 +40,12 @@ export const balanceRoutes: Route[] = [
   route("GET", "/v1/payouts", (ctx, params) => {
     const p = new P(params, ["limit", "starting_after", "ending_before", "created", "status", "arrival_date", "destination"]);
     const status = p.str("status");
-    return page(ctx, p, owned(ctx, "payout").filter((o) => !status || o.status === status), "/v1/payouts");
+    return page(
+      ctx,
+      p,
+      owned(ctx, "payout").filter((o) => !status || o.status === status),
+      "/v1/payouts",
+    );
   }),
   route("GET", "/v1/payouts/:id", (ctx, _params, [id]) => {
     const payout = ctx.store.find(id, "payout", "payout");
@@ -50,7 +55,12 @@ export const balanceRoutes: Route[] = [
   route("GET", "/v1/application_fees", (ctx, params) => {
     const p = new P(params, ["limit", "starting_after", "ending_before", "created", "charge"]);
     const charge = p.str("charge");
-    return page(ctx, p, ctx.store.all("application_fee").filter((f) => !charge || f.charge === charge), "/v1/application_fees");
+    return page(
+      ctx,
+      p,
+      ctx.store.all("application_fee").filter((f) => !charge || f.charge === charge),
+      "/v1/application_fees",
+    );
   }),
   route("GET", "/v1/application_fees/:id", (ctx, _params, [id]) => publicView(ctx.store.find(id, "application_fee", "application fee"))),
 ];

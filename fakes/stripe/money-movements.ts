@@ -28,7 +28,13 @@ export function settleCharge(ctx: Ctx, charge: StripeObject, pi: StripeObject): 
   if (!destination) return;
   const fee = Math.min(pi.application_fee_amount ?? 0, charge.amount_captured);
   const share = pi.transfer_data.amount ?? charge.amount_captured - fee;
-  const transfer = transferFromCharge(ctx, { amount: share, currency: charge.currency, destination, source: charge, group: pi.transfer_group });
+  const transfer = transferFromCharge(ctx, {
+    amount: share,
+    currency: charge.currency,
+    destination,
+    source: charge,
+    group: pi.transfer_group,
+  });
   charge.transfer = transfer.id;
   charge.destination = destination;
   if (fee > 0) {
@@ -55,7 +61,15 @@ export function settleCharge(ctx: Ctx, charge: StripeObject, pi: StripeObject): 
 
 function transferFromCharge(
   ctx: Ctx,
-  t: { amount: number; currency: string; destination: string; source: StripeObject | null; group: string | null; description?: string | null; metadata?: Record<string, string> },
+  t: {
+    amount: number;
+    currency: string;
+    destination: string;
+    source: StripeObject | null;
+    group: string | null;
+    description?: string | null;
+    metadata?: Record<string, string>;
+  },
 ): StripeObject {
   const sourceTxn = t.source ? ctx.store.get(t.source.balance_transaction) : undefined;
   const transfer = ctx.store.insert({
@@ -96,7 +110,6 @@ function transferFromCharge(
   ctx.emit("transfer.created", transfer);
   return transfer;
 }
-
 
 function createRefund(ctx: Ctx, params: Params): StripeObject {
   const p = new P(params, ["payment_intent", "charge", "amount", "reason", "metadata", "instructions_email"]);
@@ -226,7 +239,13 @@ function reverseTransfer(ctx: Ctx, params: Params, id: string): StripeObject {
   transfer.reversed = transfer.amount_reversed >= transfer.amount;
   transfer.reversals.data.unshift(reversal);
   addBalanceTransaction(ctx, { owner: null, amount, currency: transfer.currency, type: "transfer_refund", source: reversal.id });
-  addBalanceTransaction(ctx, { owner: transfer.destination, amount: -amount, currency: transfer.currency, type: "payment_refund", source: reversal.id });
+  addBalanceTransaction(ctx, {
+    owner: transfer.destination,
+    amount: -amount,
+    currency: transfer.currency,
+    type: "payment_refund",
+    source: reversal.id,
+  });
   ctx.store.changed();
   ctx.emit(transfer.reversed ? "transfer.reversed" : "transfer.updated", transfer, before);
   return reversal;

@@ -2,10 +2,10 @@
 // the bench sheet's own shape. Kept apart from remeasure.ts so pages that only show a comparison load no zod.
 import { z } from "zod";
 import { QUANTITIES, QUANTITY_INFO } from "./quantities";
-import { CHANNELS, ORIGINS, conditionsSchema } from "./schema";
+import { BASES, CHANNELS, ORIGINS, conditionsSchema } from "./schema";
 import { kindName, unitKind } from "./units";
 import { freeText } from "../text";
-import type { BuyerReading, BuyerReadings } from "./remeasure";
+import { REMEASURE_OUTCOMES, REMEASURE_ROW_OUTCOMES, type BuyerReading, type BuyerReadings, type Remeasurement } from "./remeasure";
 
 export const MAX_BUYER_READINGS = 60;
 
@@ -45,9 +45,41 @@ export const BuyerReadingsSchema = z.strictObject({
   equipment: freeText("What you measured with").max(300).optional(),
 });
 
+const sideSchema = z.object({
+  value: z.number(),
+  unit: z.string(),
+  display: z.string(),
+  conditionsText: z.string(),
+  channel: z.enum(CHANNELS).optional(),
+});
+
+/** A stored comparison (order_contests.comparison, order_remeasurements.comparison), read back through this. */
+export const remeasurementSchema = z.object({
+  version: z.int(),
+  outcome: z.enum(REMEASURE_OUTCOMES),
+  rows: z.array(
+    z.object({
+      quantity: z.enum(QUANTITIES),
+      label: z.string(),
+      conditions: conditionsSchema,
+      conditionsText: z.string(),
+      listed: sideSchema.extend({ ref: z.string(), basis: z.enum(BASES) }).nullable(),
+      measured: sideSchema.extend({ index: z.int() }),
+      difference: z.object({ value: z.number(), display: z.string() }).nullable(),
+      tolerance: z.object({ text: z.string(), source: z.string() }),
+      outcome: z.enum(REMEASURE_ROW_OUTCOMES),
+      direction: z.enum(["better", "worse", "same"]).optional(),
+      reason: z.string().optional(),
+    }),
+  ),
+  counts: z.object({ within: z.int(), outside: z.int(), not_comparable: z.int() }),
+});
+
 // The parsed shape is the comparison's own input type; this line fails to compile if the two drift apart.
 type Parsed = z.infer<typeof BuyerReadingsSchema>;
 const _fits: (p: Parsed) => BuyerReadings = (p) => p;
 const _fitsReading: (p: z.infer<typeof buyerReadingSchema>) => BuyerReading = (p) => p;
+const _fitsComparison: (p: z.infer<typeof remeasurementSchema>) => Remeasurement = (p) => p;
 void _fits;
 void _fitsReading;
+void _fitsComparison;

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
+import { testClock } from "../support/clock";
 import { account, cleanUp, liveUnit, recipients, runQueue, waiting, type SentMail } from "./talk-support";
 
 // A burst of messages is one e-mail: the first queues a deferred job keyed by thread and recipient,
@@ -73,7 +74,7 @@ describe("message mail", () => {
     expect(sent[1].text).not.toContain("First question");
 
     await sendMessage(ada.id, thread.id, "Third: read on the site before the mail goes.");
-    await conversation(seller.id, thread.id, new Date(Date.now() + 1000));
+    await conversation(seller.id, thread.id, testClock(new Date(Date.now() + 1000)));
     await run();
     expect(sent).toHaveLength(2);
   });
@@ -86,7 +87,7 @@ describe("message mail", () => {
     expect(recipients(sent)).toEqual([seller.email]);
     await sendMessage(ada.id, thread.id, "Or Sunday, if that is easier.");
     // The seller answers before that mail went: answering is reading, so only Ada hears.
-    await sendMessage(seller.id, thread.id, "Saturday morning suits.", new Date(Date.now() + 1000));
+    await sendMessage(seller.id, thread.id, "Saturday morning suits.", testClock(new Date(Date.now() + 1000)));
     await run();
     expect(recipients(sent)).toEqual([seller.email, ada.email].sort());
     const toAda = sent.find((m) => m.to === ada.email);

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { testClock } from "../support/clock";
 import { account, cleanUp, liveUnit, runQueue, type SentMail } from "./talk-support";
 import { signedInCookie } from "../support/sessions";
 import { routeArgs } from "../support/route-args";
@@ -68,7 +69,7 @@ describe("only the two sides", () => {
   it("gives anyone else (a moderator included) the same 404 as a missing thread, in services, API and page", async () => {
     const unit = await liveUnit(seller.id);
     const thread = await openThread(ada.id, unit.id);
-    await sendMessage(ada.id, thread.id, "Is the hum gone after the recap?", t(0));
+    await sendMessage(ada.id, thread.id, "Is the hum gone after the recap?", testClock(t(0)));
     await expect(conversation(stranger.id, thread.id)).rejects.toMatchObject({ status: 404 });
     await expect(sendMessage(stranger.id, thread.id, "hello")).rejects.toMatchObject({ status: 404 });
 
@@ -104,13 +105,13 @@ describe("reading and writing", () => {
     const [u1, u2] = [await liveUnit(seller.id), await liveUnit(seller.id)];
     const older = await openThread(ada.id, u1.id);
     const newer = await openThread(bo.id, u2.id);
-    await sendMessage(ada.id, older.id, "Does it come with the original box?", t(1));
-    await sendMessage(bo.id, newer.id, "Would you post it to the coast?", t(2));
+    await sendMessage(ada.id, older.id, "Does it come with the original box?", testClock(t(1)));
+    await sendMessage(bo.id, newer.id, "Would you post it to the coast?", testClock(t(2)));
     const before = await unreadCount(seller.id);
     expect(before).toBeGreaterThanOrEqual(2);
 
     // The seller reads the newer one: the older (still unread) comes first in the list.
-    await conversation(seller.id, newer.id, t(3));
+    await conversation(seller.id, newer.id, testClock(t(3)));
     const list = (await threadList(seller.id)).filter((s) => s.id === older.id || s.id === newer.id);
     expect(list.map((s) => [s.id, s.unread])).toEqual([
       [older.id, true],
@@ -119,10 +120,10 @@ describe("reading and writing", () => {
     expect(await unreadCount(seller.id)).toBe(before - 1);
 
     // The seller answers: Ada has one unread, the seller's own answer does not count for the seller.
-    await sendMessage(seller.id, older.id, "Yes, with its foam inserts.", t(4));
+    await sendMessage(seller.id, older.id, "Yes, with its foam inserts.", testClock(t(4)));
     expect(await unreadCount(seller.id)).toBe(before - 2);
     expect(await unreadCount(ada.id)).toBeGreaterThanOrEqual(1);
-    const seen = await conversation(ada.id, older.id, t(5));
+    const seen = await conversation(ada.id, older.id, testClock(t(5)));
     expect(seen.items.map((i) => (i.kind === "message" ? [i.fromMe, i.body] : null))).toEqual([
       [true, "Does it come with the original box?"],
       [false, "Yes, with its foam inserts."],

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sequelize } from "~/db.server";
 import { Offer } from "~/models/offer.server";
-import { acceptedOfferFor, markOfferUsed } from "~/offers/accepted.server";
+import { acceptedOfferFor, markOfferUsed, restoreOfferUse } from "~/offers/accepted.server";
 import { account, cleanUp, hours, liveUnit } from "./talk-support";
 
 // What checkout asks of offers: an accepted offer's price holds for its buyer only, only inside its
@@ -93,5 +93,24 @@ describe("markOfferUsed", () => {
     await expect(sequelize.transaction((tx) => markOfferUsed(offer.id, tx))).rejects.toMatchObject({ status: 409 });
     await offer.reload();
     expect(offer.state).toBe("open");
+  });
+});
+
+describe("restoreOfferUse", () => {
+  it("gives a spent offer back inside its window only", async () => {
+    const unit = await liveUnit(seller.id);
+    const offer = await accepted(unit.id, ada.id, 42_000);
+    await sequelize.transaction((tx) => markOfferUsed(offer.id, tx));
+    expect(await sequelize.transaction((tx) => restoreOfferUse(offer.id, new Date(t0.getTime() + hours(24)), tx))).toBe(false);
+    expect(await sequelize.transaction((tx) => restoreOfferUse(offer.id, new Date(t0.getTime() + hours(1)), tx))).toBe(true);
+    await sequelize.transaction(async (tx) => {
+      expect(await acceptedOfferFor(unit.id, ada.id, new Date(t0.getTime() + hours(2)), tx)).toEqual({
+        offerId: offer.id,
+        amountMinor: 42_000,
+      });
+    });
+    // An offer that was never spent is not changed.
+    const open = await accepted(unit.id, bo.id, 40_000, "open");
+    expect(await sequelize.transaction((tx) => restoreOfferUse(open.id, t0, tx))).toBe(false);
   });
 });

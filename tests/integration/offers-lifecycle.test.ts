@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
+import { testClock } from "../support/clock";
 import { account, cleanUp, hours, liveUnit, recipients, runQueue, type SentMail } from "./talk-support";
 
 // Offers from start to end: the buyer offers, the seller counters, the buyer accepts and may check
@@ -43,8 +44,9 @@ afterAll(async () => {
 
 const t0 = new Date();
 const at = (h: number) => new Date(t0.getTime() + hours(h));
+const clockAt = (h: number) => testClock(at(h));
 const offer = (buyer: { id: string; roles: ["buyer"] | string[] }, listingId: string, amountMinor: number, now = t0, currency = "EUR") =>
-  makeOffer({ id: buyer.id, roles: ["buyer"] }, { listingId, amountMinor, currency }, now);
+  makeOffer({ id: buyer.id, roles: ["buyer"] }, { listingId, amountMinor, currency }, testClock(now));
 
 describe("offer, counter, accept", () => {
   it("walks the whole way, with the conversation and the mails at each step", async () => {
@@ -57,7 +59,7 @@ describe("offer, counter, accept", () => {
     expect(recipients(sent)).toEqual([seller.email]);
     expect(sent[0].subject).toContain("€400");
 
-    const countered = await answerOffer(seller.id, made.offerId, { action: "counter", amountMinor: 45_000, currency: "EUR" }, at(2));
+    const countered = await answerOffer(seller.id, made.offerId, { action: "counter", amountMinor: 45_000, currency: "EUR" }, clockAt(2));
     await first?.reload();
     expect(first?.state).toBe("countered");
     const counter = await Offer.findByPk(countered.offerId);
@@ -68,8 +70,8 @@ describe("offer, counter, accept", () => {
     expect(recipients(sent)).toEqual([ada.email]);
 
     // The seller cannot accept their own counter; the buyer can.
-    await expect(answerOffer(seller.id, countered.offerId, { action: "accept" }, at(3))).rejects.toMatchObject({ status: 403 });
-    const accepted = await answerOffer(ada.id, countered.offerId, { action: "accept" }, at(3));
+    await expect(answerOffer(seller.id, countered.offerId, { action: "accept" }, clockAt(3))).rejects.toMatchObject({ status: 403 });
+    const accepted = await answerOffer(ada.id, countered.offerId, { action: "accept" }, clockAt(3));
     expect(accepted.state).toBe("accepted");
     await counter?.reload();
     expect(counter?.checkoutUntil?.getTime()).toBe(at(27).getTime());
@@ -85,7 +87,7 @@ describe("offer, counter, accept", () => {
     });
 
     // The offers are in the conversation, in order, with nothing left to do on them.
-    const seen = await conversation(ada.id, made.threadId, at(4));
+    const seen = await conversation(ada.id, made.threadId, clockAt(4));
     const offers = seen.items.filter((i) => i.kind === "offer");
     expect(offers.map((o) => (o.kind === "offer" ? [o.madeBy, o.amountMinor, o.state, o.actions] : null))).toEqual([
       ["buyer", 40_000, "countered", []],
@@ -97,10 +99,10 @@ describe("offer, counter, accept", () => {
   it("lets the seller decline and the buyer withdraw, each telling the other side", async () => {
     const unit = await liveUnit(seller.id);
     const a = await offer(ada, unit.id, 30_000);
-    await answerOffer(seller.id, a.offerId, { action: "decline" }, at(1));
+    await answerOffer(seller.id, a.offerId, { action: "decline" }, clockAt(1));
     expect((await Offer.findByPk(a.offerId))?.state).toBe("declined");
     const b = await offer(ada, unit.id, 35_000, at(2));
-    await answerOffer(ada.id, b.offerId, { action: "withdraw" }, at(3));
+    await answerOffer(ada.id, b.offerId, { action: "withdraw" }, clockAt(3));
     expect((await Offer.findByPk(b.offerId))?.state).toBe("withdrawn");
     await mails();
     const steps = sent.map((m) => [m.to, m.subject.split(":")[0]]);
@@ -113,11 +115,11 @@ describe("who may answer", () => {
   it("gives a stranger a 404, the buyer a 403 on their own offer, and 409 offer_closed once it is answered", async () => {
     const unit = await liveUnit(seller.id);
     const made = await offer(ada, unit.id, 40_000);
-    await expect(answerOffer(bo.id, made.offerId, { action: "decline" }, at(1))).rejects.toMatchObject({ status: 404 });
-    await expect(answerOffer(ada.id, made.offerId, { action: "accept" }, at(1))).rejects.toMatchObject({ status: 403 });
-    await expect(answerOffer(seller.id, made.offerId, { action: "withdraw" }, at(1))).rejects.toMatchObject({ status: 403 });
-    await answerOffer(seller.id, made.offerId, { action: "decline" }, at(1));
-    await expect(answerOffer(seller.id, made.offerId, { action: "accept" }, at(2))).rejects.toMatchObject({
+    await expect(answerOffer(bo.id, made.offerId, { action: "decline" }, clockAt(1))).rejects.toMatchObject({ status: 404 });
+    await expect(answerOffer(ada.id, made.offerId, { action: "accept" }, clockAt(1))).rejects.toMatchObject({ status: 403 });
+    await expect(answerOffer(seller.id, made.offerId, { action: "withdraw" }, clockAt(1))).rejects.toMatchObject({ status: 403 });
+    await answerOffer(seller.id, made.offerId, { action: "decline" }, clockAt(1));
+    await expect(answerOffer(seller.id, made.offerId, { action: "accept" }, clockAt(2))).rejects.toMatchObject({
       status: 409,
       code: "offer_closed",
     });
@@ -127,7 +129,7 @@ describe("who may answer", () => {
     const unit = await liveUnit(seller.id);
     const made = await offer(ada, unit.id, 40_000);
     const counter = (amountMinor: number) =>
-      answerOffer(seller.id, made.offerId, { action: "counter", amountMinor, currency: "EUR" }, at(1));
+      answerOffer(seller.id, made.offerId, { action: "counter", amountMinor, currency: "EUR" }, clockAt(1));
     await expect(counter(40_000)).rejects.toMatchObject({ status: 400, issues: [{ path: "amountMinor" }] });
     await expect(counter(48_001)).rejects.toMatchObject({ status: 400, issues: [{ path: "amountMinor" }] });
     expect((await Offer.findByPk(made.offerId))?.state).toBe("open");
@@ -161,7 +163,7 @@ describe("what may be offered", () => {
   it("holds a second offer back while an accepted one can still be used", async () => {
     const unit = await liveUnit(seller.id);
     const made = await offer(ada, unit.id, 40_000);
-    await answerOffer(seller.id, made.offerId, { action: "accept" }, at(1));
+    await answerOffer(seller.id, made.offerId, { action: "accept" }, clockAt(1));
     await expect(offer(ada, unit.id, 39_000, at(2))).rejects.toMatchObject({ status: 409 });
     // After the checkout window a new offer is welcome.
     await expect(offer(ada, unit.id, 39_000, at(26))).resolves.toMatchObject({ state: "open" });

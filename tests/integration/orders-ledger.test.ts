@@ -41,8 +41,8 @@ async function provider(w: World) {
     void job;
   }
   for (const job of await jobsFor(QUEUES.orderRefund, w.orderId)) {
-    const { amountMinor, refundNo } = job.data as { amountMinor: number; refundNo: number };
-    for (let i = 0; i < 2; i++) await t.markRefunded(w.orderId, { refundId: `re_${w.orderId}_${refundNo}`, amountMinor }, w.clock);
+    const { amountMinor, n } = job.data as { amountMinor: number; n: number };
+    for (let i = 0; i < 2; i++) await t.markRefunded(w.orderId, { refundId: `re_${w.orderId}_${n}`, amountMinor }, w.clock);
   }
 }
 
@@ -147,7 +147,7 @@ describe("worked examples", () => {
     const resolved = await t.resolveContest(order.id, c.moderator.id, { refundMinor: 15_150, note: "Power 30 % under the sheet." }, clock);
     expect(resolved.state).toBe("refunded");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: 15_150, refundNo: 1 },
+      { orderId: order.id, amountMinor: 15_150, n: 1 },
     ]);
     expect((await jobsFor(QUEUES.orderRelease, order.id)).map((j) => j.data)).toEqual([{ orderId: order.id, amountMinor: 32_522 }]);
     await t.markRefunded(order.id, { refundId: "re_part", amountMinor: 15_150 }, clock);

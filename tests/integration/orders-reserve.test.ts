@@ -28,6 +28,10 @@ describe("50 buyers at once", () => {
     expect(won).toHaveLength(1);
     expect(lost).toHaveLength(49);
     expect(new Set(lost.map((r) => (r.reason as { code?: string }).code))).toEqual(new Set(["order_state"]));
+    // Refused by the listing's lock and status, not merely by the unique index behind them.
+    expect(new Set(lost.map((r) => (r.reason as Error).message))).toEqual(
+      new Set(["Another buyer is checking out this unit. If they do not pay in time it returns to the market."]),
+    );
     const orders = await Order.findAll({ where: { listingId: listing.id } });
     expect(orders).toHaveLength(1);
     expect(await OrderEvent.count({ where: { orderId: orders[0].id } })).toBe(1);
@@ -97,6 +101,47 @@ describe("the reservation", () => {
   });
 });
 
+describe("an accepted offer", () => {
+  async function acceptedOffer(
+    c: { listing: { id: string }; buyer: { id: string }; seller: { id: string } },
+    amountMinor: number,
+    checkoutUntil: string,
+  ) {
+    const [[row]] = await sequelize.query(
+      `INSERT INTO offers (listing_id, buyer_id, seller_id, amount_minor, currency, made_by, state, expires_at, accepted_at, checkout_until)
+       VALUES ($1, $2, $3, $4, 'EUR', 'buyer', 'accepted', $5, $5, $5) RETURNING id`,
+      { bind: [c.listing.id, c.buyer.id, c.seller.id, amountMinor, checkoutUntil] },
+    );
+    return (row as { id: string }).id;
+  }
+  const offerState = async (id: string) => {
+    const [[row]] = await sequelize.query(`SELECT state FROM offers WHERE id = $1`, { bind: [id] });
+    return (row as { state: string }).state;
+  };
+
+  it("sets the price for its buyer within its checkout window, and is spent by the reservation", async () => {
+    const clock = testClock("2026-12-30T10:00:00Z");
+    const c = await cast();
+    const offerId = await acceptedOffer(c, 41_000, "2026-12-31T10:00:00Z");
+    const order = await reserve(c, clock);
+    expect(order).toMatchObject({ priceMinor: 41_000, deliveryMinor: 2_500, offerId });
+    expect(await offerState(offerId)).toBe("used");
+  });
+
+  it("does not apply after its checkout window, nor to another buyer", async () => {
+    const clock = testClock("2026-12-30T10:00:00Z");
+    const c = await cast();
+    const late = await acceptedOffer(c, 41_000, "2026-12-30T09:59:00Z");
+    const order = await reserve(c, clock);
+    expect(order).toMatchObject({ priceMinor: 48_000, offerId: null });
+    expect(await offerState(late)).toBe("accepted");
+    const d = await cast();
+    const theirs = await acceptedOffer({ ...d, buyer: d.stranger }, 30_000, "2026-12-31T10:00:00Z");
+    expect((await reserve(d, clock)).priceMinor).toBe(48_000);
+    expect(await offerState(theirs)).toBe("accepted");
+  });
+});
+
 describe("the lapse", () => {
   it("at 29 minutes the deadline job only waits; at 30 the order is cancelled and the unit is live again", async () => {
     const clock = testClock("2026-12-30T10:00:00Z");
@@ -159,7 +204,7 @@ describe("the lapse", () => {
     const late = await fund(order, clock);
     expect(late.state).toBe("cancelled");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: order.totalMinor, refundNo: 1 },
+      { orderId: order.id, amountMinor: order.totalMinor, n: 1 },
     ]);
     expect(await ledgerCheck(order.id)).toEqual({ total: 0, unbalanced: 0 });
     expect((await Listing.findByPk(c.listing.id))?.status).toBe("reserved");

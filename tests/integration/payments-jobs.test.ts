@@ -5,7 +5,17 @@ import { LedgerEntry, Order } from "~/models/index.server";
 import { acceptUnit, cancelUnshipped, confirmArrival, markShipped } from "~/orders/transitions.server";
 import { checkoutExpiresAt, createCheckout, idempotencyKey, transferToSeller } from "~/orders/provider.server";
 import { armFault, disarmFaults, InjectedFault } from "~/payments/faults.server";
-import { checkout, deliverClean, liveUnit, pay, runMoneyJobs, runQueued, startWorld, stopWorld, type World } from "../support/payments-world";
+import {
+  checkout,
+  deliverClean,
+  liveUnit,
+  pay,
+  runMoneyJobs,
+  runQueued,
+  startWorld,
+  stopWorld,
+  type World,
+} from "../support/payments-world";
 
 // The provider calls and the jobs that make them: the Checkout Session's shape and key, and a failure
 // between a provider call and the database write that follows — thrown, or the process killed — after
@@ -120,10 +130,14 @@ describe("payments provider calls and jobs", () => {
       (d) => d.orderId === order.id,
       async (d) => void (job = d),
     );
-    const child = spawn(process.execPath, ["--import", "tsx", path.resolve("tests/support/release-child.ts"), job!.orderId, String(job!.amountMinor)], {
-      env: { ...process.env, FAKE_STRIPE_PORT: String(world.fake.port), STRIPE_SECRET_KEY: "" },
-      stdio: ["ignore", "pipe", "pipe"],
-    });
+    const child = spawn(
+      process.execPath,
+      ["--import", "tsx", path.resolve("tests/support/release-child.ts"), job!.orderId, String(job!.amountMinor)],
+      {
+        env: { ...process.env, FAKE_STRIPE_PORT: String(world.fake.port), STRIPE_SECRET_KEY: "" },
+        stdio: ["ignore", "pipe", "pipe"],
+      },
+    );
     let output = "";
     child.stdout.on("data", (c) => (output += c));
     child.stderr.on("data", (c) => (output += c));

@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { Listing, Order, User } from "~/models/index.server";
 import { LedgerEntry } from "~/models/ledger-entry.server";
-import { usePaymentsClient } from "~/services/payments.server";
+import { setPaymentsClient } from "~/services/payments.server";
 import { attachCheckout, reserveUnit } from "~/orders/transitions.server";
 import { createCheckout, ensurePayoutAccount } from "~/orders/provider.server";
 import { syncPayoutAccount } from "~/payments/payouts.server";
@@ -33,7 +33,7 @@ export interface World extends TestFake {
 export async function startWorld(start = "2026-12-30T10:00:00Z"): Promise<World> {
   const app = testClock(start);
   const t = await startTestFake({ clock: () => Math.floor(app.now().getTime() / 1000) });
-  usePaymentsClient(t.stripe);
+  setPaymentsClient(t.stripe);
   const seller = await user("seller", ["buyer", "seller"]);
   const buyer = await user("buyer", ["buyer"]);
   await connect(seller, t.fake);
@@ -42,7 +42,7 @@ export async function startWorld(start = "2026-12-30T10:00:00Z"): Promise<World>
 }
 
 export async function stopWorld(world: World | undefined): Promise<void> {
-  usePaymentsClient(undefined);
+  setPaymentsClient(undefined);
   await world?.fake.stop();
 }
 
@@ -137,7 +137,9 @@ export async function processRecorded(world: World): Promise<number> {
 /** Runs the payout and refund jobs the order transitions queued for these orders. */
 export async function runMoneyJobs(world: World, orderIds: string[]): Promise<void> {
   const mine = (d: { orderId: string }) => orderIds.includes(d.orderId);
-  await runQueued<{ orderId: string; amountMinor: number }>("order-release", mine, (d) => releaseOrder(d.orderId, d.amountMinor, world.clock.app));
+  await runQueued<{ orderId: string; amountMinor: number }>("order-release", mine, (d) =>
+    releaseOrder(d.orderId, d.amountMinor, world.clock.app),
+  );
   await runQueued<{ orderId: string; amountMinor: number; refundNo: number }>("order-refund", mine, (d) =>
     refundOrder(d.orderId, d.amountMinor, d.refundNo, world.clock.app),
   );
@@ -164,7 +166,14 @@ export async function snapshotOrder(orderId: string) {
   const entries = await LedgerEntry.findAll({ where: { orderId }, order: [["seq", "ASC"]] });
   const ledger = entries.map((e) => `${e.kind} ${e.account} ${e.amountMinor}`).sort();
   const sum = entries.reduce((s, e) => s + e.amountMinor, 0);
-  return { state: order.state, refundedMinor: order.refundedMinor, funded: Boolean(order.chargeId), paidOut: Boolean(order.transferId), ledger, sum };
+  return {
+    state: order.state,
+    refundedMinor: order.refundedMinor,
+    funded: Boolean(order.chargeId),
+    paidOut: Boolean(order.transferId),
+    ledger,
+    sum,
+  };
 }
 
 /**

@@ -43,6 +43,11 @@ export function ReadingsEntry({ figures, errors = {}, values = {}, extras = true
         Type what you read, with its unit, beside the figures you measured; leave the rest blank. Each box keeps the bench sheet&apos;s
         conditions, so measure under them: the same load, frequency and level.
       </p>
+      {errors._readings ? (
+        <p role="alert" className="text-[0.8125rem] font-medium text-fault">
+          {errors._readings}
+        </p>
+      ) : null}
       {figures.length ? (
         <div className="grid gap-4 sm:grid-cols-2">
           {figures.map((f) => {

@@ -35,7 +35,11 @@ export function PayoutsCard({ payouts, message, busy }: { payouts: PayoutsView; 
       <Form method="post">
         <input type="hidden" name="intent" value="connect-payouts" />
         <Button type="submit" variant={payouts.enabled ? "secondary" : "primary"} busy={busy}>
-          {payouts.enabled ? "Update payout details" : payouts.connected ? "Finish connecting your payout account" : "Connect a payout account"}
+          {payouts.enabled
+            ? "Update payout details"
+            : payouts.connected
+              ? "Finish connecting your payout account"
+              : "Connect a payout account"}
         </Button>
       </Form>
     </Card>

@@ -49,7 +49,8 @@ export async function action({ request }: Route.ActionArgs) {
   if (!parsed.success) return data<ActionResult>({ ok: false, text: "Unknown request.", section: "email" }, { status: 400 });
   const input = parsed.data;
   if (input.intent === "connect-payouts") {
-    if (!hasRole(user, "seller")) return data<ActionResult>({ ok: false, text: "Payouts are for sellers.", section: "payouts" }, { status: 403 });
+    if (!hasRole(user, "seller"))
+      return data<ActionResult>({ ok: false, text: "Payouts are for sellers.", section: "payouts" }, { status: 403 });
     try {
       return redirect(await startPayoutOnboarding(user.id, `${env().appUrl}/account?payouts=back#payouts`));
     } catch (error) {
