@@ -167,7 +167,8 @@ describe("authorization matrix", () => {
     console.log(
       `[matrix] ${probes.length} requests over ${leaves.length} routes; ${[...failures.values()].flat().length} differ from the table`,
     );
-  });
+    // Every route is probed here, for every persona: the time grows with the route table.
+  }, 300_000);
 
   afterAll(async () => {
     await removeFixtures(f);

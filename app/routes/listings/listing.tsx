@@ -91,9 +91,11 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
         <div className="space-y-6 lg:col-span-5">
           <ListingTitle listing={listing} />
           <PriceAndCondition listing={listing} />
-          <BuyPanel state={buy} />
+          {/* Buy beside the conversation's buttons: one row of ways to get this unit. */}
+          <BuyPanel state={buy}>
+            <TalkControls listing={listing} viewer={viewer} />
+          </BuyPanel>
           <WatchControl listing={listing} viewer={viewer} />
-          <TalkControls listing={listing} viewer={viewer} />
           {listing.status === "live" || listing.status === "sold" ? <CompareToggle listingId={listing.id} layout="page" /> : null}
           <OwnerLinks listing={listing} viewer={viewer} />
           <div className="border-t border-rule pt-5">
