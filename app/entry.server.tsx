@@ -6,6 +6,7 @@ import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
 import { env } from "~/env.server";
+import { loggable } from "~/http/log.server";
 import { commonSecurityHeaders, contentSecurityPolicy, newNonce } from "~/http/security-headers.server";
 
 // Renders every HTML document. Each response gets its own nonce: React Router's inline scripts
@@ -20,12 +21,18 @@ function documentHeaders(headers: Headers, nonce: string) {
   const policy = contentSecurityPolicy({
     nonce,
     https,
-    // Signing in with a Loadline pass posts to /auth/oauth, which redirects the form to the provider.
-    formTargets: [new URL(settings.oauth.issuer).origin],
+    // Signing in with a Loadline pass posts to /auth/oauth, which redirects the form to the provider;
+    // the checkout form redirects to the payment provider's hosted page.
+    formTargets: [new URL(settings.oauth.issuer).origin, paymentPagesOrigin(settings)],
     dev: import.meta.env.DEV,
   });
   headers.set("Content-Security-Policy", policy);
   for (const [name, value] of commonSecurityHeaders({ https })) headers.set(name, value);
+}
+
+/** Where the payment provider's hosted pages live: the stand-in serves them from its API address. */
+function paymentPagesOrigin(settings: ReturnType<typeof env>): string {
+  return settings.stripe.mode === "fake" ? new URL(settings.stripe.apiUrl).origin : "https://checkout.stripe.com";
 }
 
 export default function handleRequest(
@@ -85,12 +92,4 @@ export default function handleRequest(
 export function handleError(error: unknown, { request }: { request: Request }) {
   if (request.signal.aborted) return;
   console.error(`[web] ${request.method} ${new URL(request.url).pathname}:`, loggable(error));
-}
-
-export function loggable(error: unknown): string {
-  if (!(error instanceof Error)) return String(error);
-  const original = "original" in error && error.original instanceof Error ? error.original : null;
-  const code = original && "code" in original ? ` (${String(original.code)})` : "";
-  const stack = "sql" in error ? "" : `\n${error.stack ?? ""}`;
-  return `${error.name}: ${original?.message ?? error.message}${code}${stack}`;
 }

@@ -20,20 +20,27 @@ import { ErrorPage } from "~/components/ErrorPage";
 import { NavigationProgress, useNavigating } from "~/components/NavigationProgress";
 import { PricingProvider } from "~/components/Price";
 import { pricingFor } from "~/currencies/display.server";
+import { loggable } from "~/http/log.server";
 import { readCompareList } from "~/compare/compare-list.server";
+import { unreadCount } from "~/messages/unread.server";
 import { CompareTray } from "~/compare/ui/CompareTray";
 import { SITE_DESCRIPTION } from "~/meta";
 import "./fonts.css";
 import "./app.css";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const [user, { notice, headers }, compare, pricing] = await Promise.all([
-    getUser(request),
+  const [{ user, unread }, { notice, headers }, compare, pricing] = await Promise.all([
+    // The header's unread badge: one indexed count, and only for a signed-in account.
+    getUser(request).then(async (user) => ({ user, unread: user ? await unreadCount(user.id).catch(() => 0) : 0 })),
     takeNotice(request),
     readCompareList(request),
-    pricingFor(request).catch(() => null),
+    // A broken rate table must not take every page down with it, but it must not go unnoticed either.
+    pricingFor(request).catch((error: unknown) => {
+      console.error("[web] the rate table could not be read; prices show in the seller's currency only:", loggable(error));
+      return null;
+    }),
   ]);
-  const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles } : null;
+  const header: HeaderUser | null = user ? { displayName: user.displayName, roles: user.roles, unread } : null;
   // Every page may show prices: the buyer's display currency and the rates ride along (a dozen rows).
   // Without them prices still show, in the seller's currency only.
   return data({ user: header, notice, compare, pricing }, { headers });

@@ -61,4 +61,20 @@ export default [
   // Currencies: the admin's exchange rates, the buyer's display currency (a cookie)
   route("admin/rates", "routes/admin/rates.tsx"),
   route("currency", "routes/currency.tsx"),
+  // Talking before buying: conversations (one per listing and buyer) and offers, pages and API
+  route("messages", "routes/messages/index.tsx"),
+  route("messages/:threadId", "routes/messages/thread.tsx"),
+  route("api/v1/threads", "routes/api.v1.threads.ts"),
+  route("api/v1/threads/:id/messages", "routes/api.v1.threads.$id.messages.ts"),
+  route("api/v1/offers", "routes/api.v1.offers.ts"),
+  route("api/v1/offers/:id", "routes/api.v1.offers.$id.ts"),
+  // Buying: checkout, the buyer's purchases, the seller's sales, the desk's contested orders, the
+  // admin's marketplace settings (fee, timings)
+  route("checkout/:listingId", "routes/buying/checkout.tsx"),
+  route("purchases", "routes/buying/purchases.tsx"),
+  route("purchases/:orderId", "routes/buying/purchase.tsx"),
+  route("sales", "routes/buying/sales.tsx"),
+  route("sales/:orderId", "routes/buying/sale.tsx"),
+  route("desk/orders/:orderId", "routes/desk/order.tsx"),
+  route("admin/settings", "routes/admin/settings.tsx"),
 ] satisfies RouteConfig;

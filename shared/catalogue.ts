@@ -32,13 +32,14 @@ export function categoryFromSlug(slug: string | null | undefined): Category | nu
   return hit ?? null;
 }
 
-export const LISTING_STATUSES = ["draft", "held", "live", "sold", "withdrawn", "removed"] as const;
+export const LISTING_STATUSES = ["draft", "held", "live", "reserved", "sold", "withdrawn", "removed"] as const;
 export type ListingStatus = (typeof LISTING_STATUSES)[number];
 
 export const LISTING_STATUS_LABELS: Record<ListingStatus, string> = {
   draft: "Draft",
   held: "Held for review",
   live: "Live",
+  reserved: "Reserved",
   sold: "Sold",
   withdrawn: "Withdrawn",
   removed: "Removed",

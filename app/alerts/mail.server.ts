@@ -21,7 +21,8 @@ export interface Notice {
   /** Grouped units (a digest has one group per alert). */
   groups: { heading?: string; units: NoticeUnit[] }[];
   links: { label: string; href: string }[];
-  unsubscribe: { href: string; what: string };
+  /** Every notice has one; a transactional mail about the reader's own order (app/orders) has none. */
+  unsubscribe?: { href: string; what: string };
 }
 
 export function appLink(path: string): string {
@@ -48,7 +49,7 @@ function html(n: Notice): string {
   return `<!doctype html><html><body style="background:#f5f0e6;color:#1f1a15;font-family:system-ui,sans-serif;font-size:15px;line-height:1.5;padding:24px">
 <div style="max-width:560px;margin:0 auto;background:#fcfaf5;border:1px solid #dcd1bd;border-radius:8px;padding:24px">
 ${p(n.greeting)}${n.paragraphs.map(p).join("")}${groups}<p style="margin:14px 0">${links}</p>
-<p style="margin:20px 0 0;${muted}">${escapeHtml(n.unsubscribe.what)} <a href="${escapeHtml(n.unsubscribe.href)}" style="color:#6b5f52">Unsubscribe</a></p>
+${n.unsubscribe ? `<p style="margin:20px 0 0;${muted}">${escapeHtml(n.unsubscribe.what)} <a href="${escapeHtml(n.unsubscribe.href)}" style="color:#6b5f52">Unsubscribe</a></p>` : ""}
 </div></body></html>`;
 }
 
@@ -57,9 +58,8 @@ function text(n: Notice): string {
     [...(g.heading ? [g.heading] : []), ...g.units.map((u) => `- ${u.title}\n  ${u.detail}\n  ${u.href}`)].join("\n"),
   );
   const links = n.links.map((l) => `${l.label}: ${l.href}`);
-  return [n.greeting, ...n.paragraphs, ...groups, links.join("\n"), "--", `${n.unsubscribe.what} Unsubscribe: ${n.unsubscribe.href}`].join(
-    "\n\n",
-  );
+  const footer = n.unsubscribe ? ["--", `${n.unsubscribe.what} Unsubscribe: ${n.unsubscribe.href}`] : [];
+  return [n.greeting, ...n.paragraphs, ...groups, links.join("\n"), ...footer].join("\n\n");
 }
 
 export async function sendNotice(n: Notice): Promise<void> {
@@ -68,6 +68,6 @@ export async function sendNotice(n: Notice): Promise<void> {
     subject: n.subject,
     text: text(n),
     html: html(n),
-    headers: { "List-Unsubscribe": `<${n.unsubscribe.href}>`, "List-Unsubscribe-Post": "List-Unsubscribe=One-Click" },
+    headers: n.unsubscribe ? { "List-Unsubscribe": `<${n.unsubscribe.href}>`, "List-Unsubscribe-Post": "List-Unsubscribe=One-Click" } : {},
   });
 }

@@ -50,13 +50,14 @@ export const StatusForm = z.object({
   status: z.enum(["active", "suspended"], "Unknown status."),
 });
 
-// The account page's own forms: a new confirmation link, and ending sessions.
+// The account page's own forms: a new confirmation link, ending sessions, connecting a payout account.
 export const AccountActionForm = z.discriminatedUnion(
   "intent",
   [
     z.object({ intent: z.literal("resend-verification") }),
     z.object({ intent: z.literal("sign-out-session"), sessionId: idSchema("session") }),
     z.object({ intent: z.literal("sign-out-others") }),
+    z.object({ intent: z.literal("connect-payouts") }),
   ],
   { error: "Unknown request." },
 );

@@ -5,11 +5,12 @@ import { cx } from "./cx";
 const SECTIONS = [
   { to: "/admin/users", label: "Accounts" },
   { to: "/admin/rates", label: "Exchange rates" },
+  { to: "/admin/settings", label: "Marketplace settings" },
 ];
 
 export function AdminNav() {
   return (
-    <nav aria-label="Admin" className="flex gap-1 text-sm">
+    <nav aria-label="Admin" className="flex flex-wrap gap-1 text-sm">
       {SECTIONS.map((s) => (
         <NavLink
           key={s.to}

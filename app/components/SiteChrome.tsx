@@ -8,6 +8,8 @@ import { cx } from "./cx";
 export interface HeaderUser {
   displayName: string;
   roles: Role[];
+  /** Conversations with something unread (the Messages badge). */
+  unread?: number;
 }
 
 interface NavItem {
@@ -21,7 +23,10 @@ const NAV: NavItem[] = [
   { to: "/market", label: "Market", show: () => true },
   { to: "/compare", label: "Compare", show: () => true },
   { to: "/watching", label: "Watching", show: (u) => !!u },
+  { to: "/messages", label: "Messages", show: (u) => !!u },
+  { to: "/purchases", label: "Purchases", show: (u) => !!u },
   { to: "/sell", label: "Sell", show: (u) => !!u },
+  { to: "/sales", label: "Sales", show: (u) => !!u && holdsRole(u.roles, "seller") },
   { to: "/desk", label: "Review desk", show: (u) => !!u && holdsRole(u.roles, "moderator") },
   { to: "/admin/users", label: "Admin", show: (u) => !!u && holdsRole(u.roles, "admin") },
 ];
@@ -36,8 +41,17 @@ const navLink = ({ isActive }: { isActive: boolean }) =>
 
 export function SiteHeader({ user, compareCount = 0 }: { user: HeaderUser | null; compareCount?: number }) {
   const items = NAV.filter((n) => n.show(user));
+  const unread = user?.unread ?? 0;
   const label = (n: NavItem) =>
-    n.to === "/compare" && compareCount ? (
+    n.to === "/messages" && unread ? (
+      <>
+        {n.label}
+        <span className="figures ml-1.5 rounded-full bg-walnut px-1.5 text-xs text-card" data-testid="unread-count">
+          {unread}
+          <span className="sr-only"> unread</span>
+        </span>
+      </>
+    ) : n.to === "/compare" && compareCount ? (
       <>
         {n.label}
         <span className="figures ml-1.5 rounded-full bg-walnut-wash px-1.5 text-xs text-walnut-deep">

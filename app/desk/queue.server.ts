@@ -1,8 +1,9 @@
 import { CATEGORY_LABELS } from "@shared/catalogue";
-import { Listing, User, Workshop } from "~/models/index.server";
+import { Listing, Order, User, Workshop } from "~/models/index.server";
+import { contestedOrders, type ContestedOrderItem } from "~/buying/desk-queue.server";
 
-// The review desk's queue: listings held for review and workshops waiting to be verified, oldest
-// first so nothing waits longest. (Acting on them arrives with the moderation work.)
+// The review desk's queue: listings held for review, workshops waiting to be verified and contested
+// orders, oldest first so nothing waits longest. (Acting on them arrives with the moderation work.)
 
 export const QUEUE_LIMIT = 100;
 
@@ -25,8 +26,10 @@ export interface WorkshopApplicationItem {
   since: string;
 }
 
+export type { ContestedOrderItem };
+
 export async function reviewQueue() {
-  const [held, heldCount, applications, applicationCount] = await Promise.all([
+  const [held, heldCount, applications, applicationCount, contested, contestedCount] = await Promise.all([
     Listing.findAll({
       where: { status: "held" },
       include: [
@@ -44,6 +47,8 @@ export async function reviewQueue() {
       limit: QUEUE_LIMIT,
     }),
     Workshop.count({ where: { verificationStatus: "applied" } }),
+    contestedOrders(QUEUE_LIMIT),
+    Order.count({ where: { state: "contested" } }),
   ]);
 
   return {
@@ -66,5 +71,7 @@ export async function reviewQueue() {
       since: w.createdAt.toISOString(),
     })),
     applicationCount,
+    contestedOrders: contested,
+    contestedCount,
   };
 }

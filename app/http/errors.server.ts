@@ -32,6 +32,10 @@ export const ERROR_CODES = {
   removed: 409,
   published: 409,
   not_published: 409,
+  // An order's state (or its unit's) does not allow the step
+  order_state: 409,
+  // An offer that was answered, withdrawn or has expired
+  offer_closed: 409,
   // A file that was read but cannot be used (photos; empty_file and file_too_large come with the capture codes)
   damaged_file: 422,
   truncated_file: 422,

@@ -5,6 +5,12 @@ import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
 import { deliverWatchNotice } from "~/alerts/watch-notices.server";
 import { matchSpecAlerts } from "~/alerts/matching.server";
 import { digestJob } from "~/alerts/digest.server";
+import { orderRefundJob, orderReleaseJob, paymentEventJob } from "~/payments/jobs.server";
+import { orderDeadlineJob } from "~/orders/deadlines.server";
+import { deliverOrderMail } from "~/orders/mail.server";
+import { deliverMessageMail } from "~/messages/message-mail.server";
+import { deliverOfferMail } from "~/offers/offer-mail.server";
+import { expireOffer } from "~/offers/offers.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -18,4 +24,15 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.watchNotice]: deliverWatchNotice,
   [QUEUES.alertMatch]: matchSpecAlerts,
   [QUEUES.alertDigest]: digestJob,
+  // Buying, the provider's side (app/payments): recorded webhook events, the seller's payout, refunds.
+  [QUEUES.paymentEvent]: paymentEventJob,
+  [QUEUES.orderRelease]: orderReleaseJob,
+  [QUEUES.orderRefund]: orderRefundJob,
+  // Buying (app/orders): order deadlines (deferred, one per deadline) and order mails.
+  [QUEUES.orderDeadline]: orderDeadlineJob,
+  [QUEUES.orderMail]: deliverOrderMail,
+  // Talking before buying: one mail per burst of messages, offer mails, offer expiry at its deadline.
+  [QUEUES.messageMail]: deliverMessageMail,
+  [QUEUES.offerMail]: deliverOfferMail,
+  [QUEUES.offerExpiry]: (data) => expireOffer(data),
 };

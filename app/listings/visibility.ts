@@ -1,7 +1,7 @@
 import type { ListingStatus } from "@shared/catalogue";
 import { holdsRole, type Role } from "~/auth/roles";
 
-// Who may open a listing's page. Only live and sold units are public; a held unit is for its seller
+// Who may open a listing's page. Only live, reserved and sold units are public; a held unit is for its seller
 // and the review desk; a draft is the seller's alone. Withdrawn and removed units stay readable by
 // their seller and the desk (the record of what was said about a unit), never by the public.
 
@@ -12,10 +12,12 @@ export interface Viewer {
   roles: readonly Role[];
 }
 
-export const PUBLIC_STATUSES: readonly ListingStatus[] = ["live", "sold"];
+// A reserved unit (held for one buyer's checkout or order) stays readable: it is still for sale until paid and released.
+export const PUBLIC_STATUSES: readonly ListingStatus[] = ["live", "reserved", "sold"];
 
 const AUDIENCES: Record<ListingStatus, readonly ListingAudience[]> = {
   live: ["public", "seller", "desk"],
+  reserved: ["public", "seller", "desk"],
   sold: ["public", "seller", "desk"],
   held: ["seller", "desk"],
   withdrawn: ["seller", "desk"],

@@ -4,6 +4,11 @@ import { Listing } from "~/models/listing.server";
 import { ListingPhoto } from "~/models/listing-photo.server";
 import { BenchSheet } from "~/models/bench-sheet.server";
 import { RestorationEntry } from "~/models/restoration-entry.server";
+import { Order } from "~/models/order.server";
+import { OrderEvent } from "~/models/order-event.server";
+import { LedgerEntry } from "~/models/ledger-entry.server";
+import { OrderContest } from "~/models/order-contest.server";
+import { MarketplaceSettings } from "~/models/marketplace-settings.server";
 
 // Each model initialises itself on import; this module wires the catalogue's associations.
 // Import catalogue models from here so the associations are always in place.
@@ -31,4 +36,12 @@ wire(BenchSheet, "listing", () => BenchSheet.belongsTo(Listing, { foreignKey: "l
 wire(Listing, "restorationEntries", () => Listing.hasMany(RestorationEntry, { foreignKey: "listingId", as: "restorationEntries" }));
 wire(RestorationEntry, "listing", () => RestorationEntry.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
 
-export { User, Workshop, Listing, ListingPhoto, BenchSheet, RestorationEntry };
+// Buying: an order belongs to its listing and both people; its timeline, ledger legs and contest hang off it.
+wire(Order, "listing", () => Order.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
+wire(Order, "buyer", () => Order.belongsTo(User, { foreignKey: "buyerId", as: "buyer" }));
+wire(Order, "seller", () => Order.belongsTo(User, { foreignKey: "sellerId", as: "seller" }));
+wire(Order, "events", () => Order.hasMany(OrderEvent, { foreignKey: "orderId", as: "events" }));
+wire(Order, "ledger", () => Order.hasMany(LedgerEntry, { foreignKey: "orderId", as: "ledger" }));
+wire(Order, "contest", () => Order.hasOne(OrderContest, { foreignKey: "orderId", as: "contest" }));
+
+export { User, Workshop, Listing, ListingPhoto, BenchSheet, RestorationEntry, Order, OrderEvent, LedgerEntry, OrderContest, MarketplaceSettings };

@@ -1,5 +1,6 @@
 import {
   DataTypes,
+  type Transaction,
   Model,
   UniqueConstraintError,
   type CreationOptional,
@@ -22,8 +23,29 @@ export class PaymentEvent extends Model<InferAttributes<PaymentEvent>, InferCrea
   declare processedAt: Date | null;
 
   /** Stores the event once; `duplicate` is true when this id was already recorded. */
-  static async record(event: Stripe.Event): Promise<{ event: PaymentEvent; duplicate: boolean }> {
+  static async record(event: Stripe.Event, transaction?: Transaction): Promise<{ event: PaymentEvent; duplicate: boolean }> {
     const object = event.data.object;
+    // Inside a caller's transaction a failed insert would poison it, so the id is claimed with
+    // ON CONFLICT DO NOTHING there; alone, the unique violation tells the same.
+    if (transaction) {
+      const [rows] = await PaymentEvent.sequelize!.query(
+        `INSERT INTO payment_events (event_id, type, object_id, livemode, payload, event_created_at)
+         VALUES ($1, $2, $3, $4, $5, $6) ON CONFLICT (event_id) DO NOTHING RETURNING event_id`,
+        {
+          bind: [
+            event.id,
+            event.type,
+            "id" in object && typeof object.id === "string" ? object.id : null,
+            event.livemode,
+            JSON.stringify(event),
+            new Date(event.created * 1000),
+          ],
+          transaction,
+        },
+      );
+      const existing = await PaymentEvent.findByPk(event.id, { rejectOnEmpty: true, transaction });
+      return { event: existing, duplicate: rows.length === 0 };
+    }
     try {
       const row = await PaymentEvent.create({
         eventId: event.id,

@@ -13,6 +13,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare roles: CreationOptional<Role[]>;
   declare status: CreationOptional<AccountStatus>;
   declare lastSignInAt: Date | null;
+  /** The payment provider's connected account for payouts (sellers). */
+  declare payoutAccountId: CreationOptional<string | null>;
+  declare payoutsEnabled: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -27,6 +30,8 @@ User.init(
     roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: ["buyer"] },
     status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "active" },
     lastSignInAt: { type: DataTypes.DATE, allowNull: true },
+    payoutAccountId: { type: DataTypes.TEXT, allowNull: true },
+    payoutsEnabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

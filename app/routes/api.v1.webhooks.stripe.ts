@@ -1,13 +1,15 @@
 import type { Route } from "./+types/api.v1.webhooks.stripe";
-import { PaymentEvent } from "~/models/payment-event.server";
 import { apiRoute, json } from "~/http/api-route.server";
 import { KiB, readBytes, tooLarge } from "~/http/limited-stream.server";
 import { refusal } from "~/http/errors.server";
 import { verifyWebhook, WebhookSignatureError } from "~/services/payments.server";
+import { recordPaymentEvent } from "~/payments/events.server";
 
 // POST /api/v1/webhooks/stripe: events from the payments provider. The caller is a machine, not an
 // account, so it is authenticated by the signature over the raw body instead of a session (and any
-// origin may call it). A payment event is a few kilobytes: the body may be 64 KB at most.
+// origin may call it). A payment event is a few kilobytes: the body may be 64 KB at most. The event is
+// stored once and its processing queued in the same transaction ('payment-event'), so the answer is
+// quick and a crash after the answer loses nothing.
 const WEBHOOK_MAX_BYTES = 64 * KiB;
 
 const route = apiRoute<Route.ActionArgs>(
@@ -21,7 +23,7 @@ const route = apiRoute<Route.ActionArgs>(
         if (!(error instanceof WebhookSignatureError)) throw error;
         throw refusal("invalid_signature", `The signature does not verify: ${error.message}.`);
       }
-      const { duplicate } = await PaymentEvent.record(event);
+      const { duplicate } = await recordPaymentEvent(event);
       return json({ received: true, duplicate });
     },
   },

@@ -5,6 +5,7 @@ const TONE: Record<ListingStatus, Tone> = {
   draft: "neutral",
   held: "brass",
   live: "trace",
+  reserved: "brass",
   sold: "walnut",
   withdrawn: "neutral",
   removed: "fault",

@@ -13,8 +13,22 @@ export const QUEUES = {
   watchNotice: "watch-notice",
   alertMatch: "spec-alert-match",
   alertDigest: "spec-alert-digest",
+  // Talking before buying (app/messages, app/offers): one mail per burst of messages, offer mails,
+  // and each open offer's expiry (deferred to its expires_at).
+  messageMail: "message-mail",
+  offerMail: "offer-mail",
+  offerExpiry: "offer-expiry",
+  // Buying (app/orders): one deferred job per order deadline and the order mails; the provider's
+  // side (app/payments): a recorded webhook event, paying the seller, refunding the buyer.
+  orderDeadline: "order-deadline",
+  orderMail: "order-mail",
+  paymentEvent: "payment-event",
+  orderRelease: "order-release",
+  orderRefund: "order-refund",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
+
+const SHORT_QUEUES = new Set<string>([QUEUES.messageMail]);
 
 declare global {
   var __loadlineBoss: Promise<PgBoss> | undefined;
@@ -25,7 +39,9 @@ async function startBoss(options: Partial<PgBoss.ConstructorOptions> = {}): Prom
   boss.on("error", (error) => console.error("[jobs]", error));
   await boss.start();
   for (const name of Object.values(QUEUES)) {
-    await boss.createQueue(name, { name, retryLimit: 2, retryDelay: 5, expireInSeconds: 300 });
+    // 'short' queues hold one waiting job per singletonKey: a burst of messages is one mail job.
+    const policy = SHORT_QUEUES.has(name) ? "short" : undefined;
+    await boss.createQueue(name, { name, retryLimit: 2, retryDelay: 5, expireInSeconds: 300, ...(policy ? { policy } : {}) });
   }
   return boss;
 }
@@ -52,6 +68,19 @@ export async function enqueue(
   const id = await boss.send(name, data, transaction ? { ...options, db: transactionDb(transaction) } : options);
   if (!id) throw new Error(`Could not queue a ${name} job`);
   return id;
+}
+
+/**
+ * Like enqueue, for a job with a singletonKey on a 'short' queue: when one with the same key is
+ * already waiting, nothing is queued and the answer is null.
+ */
+export async function enqueueOnce(
+  name: QueueName,
+  data: object,
+  { transaction, ...options }: PgBoss.SendOptions & { transaction?: Transaction; singletonKey: string },
+): Promise<string | null> {
+  const boss = await getBoss();
+  return boss.send(name, data, transaction ? { ...options, db: transactionDb(transaction) } : options);
 }
 
 // pg-boss runs its insert through any executor; this one is our open transaction.

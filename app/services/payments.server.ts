@@ -27,6 +27,11 @@ export function payments(): Stripe {
   return client;
 }
 
+/** Points `payments()` at another client (a test's own stand-in with its own clock); undefined restores the default. */
+export function setPaymentsClient(next: Stripe | undefined): void {
+  client = next;
+}
+
 /** How far a webhook's signed timestamp may be from our clock, either way. */
 export const WEBHOOK_TOLERANCE_SECONDS = 300;
 

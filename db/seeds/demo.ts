@@ -11,6 +11,7 @@ import { listingFacets, publishState } from "@shared/listing-facets";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES, type AccountKey, type DemoUnit } from "./demo-data";
 import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
+import { seedDemoPayouts } from "./demo-payouts";
 
 // Loads the invented demo scenario. Idempotent: accounts are matched by e-mail, workshops by slug and
 // listings by (seller, serial number); anything already there is left exactly as it is, so a restart
@@ -58,6 +59,7 @@ export async function seedDemo(): Promise<SeedResult> {
   const orphans = uploadedKeys.filter((k) => !usedKeys.has(k));
   if (orphans.length) await deleteObjects(orphans);
   created = (await seedDemoCaptures()).created || created;
+  created = (await seedDemoPayouts()).connected > 0 || created;
   return { created, accounts };
 }
 

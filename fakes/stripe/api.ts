@@ -9,12 +9,21 @@ import { checkoutRoutes, expireSession, lineItems } from "./checkout";
 import { eventRoutes } from "./events";
 import { moneyMovementRoutes } from "./money-movements";
 import { paymentIntentRoutes } from "./payment-intents";
+import { balanceRoutes } from "./balance-routes";
+import { runPayouts } from "./balance";
 import { expireHold } from "./payments";
 
 // The REST side: API key check, Stripe's request encoding, idempotent replays, `expand[]`, and
 // errors in Stripe's JSON shape.
 
-const ROUTES: Route[] = [...accountRoutes, ...checkoutRoutes, ...paymentIntentRoutes, ...moneyMovementRoutes, ...eventRoutes];
+const ROUTES: Route[] = [
+  ...accountRoutes,
+  ...checkoutRoutes,
+  ...paymentIntentRoutes,
+  ...moneyMovementRoutes,
+  ...balanceRoutes,
+  ...eventRoutes,
+];
 
 export interface ApiConfig {
   store: StripeStore;
@@ -77,7 +86,17 @@ export async function handleApi(cfg: ApiConfig, req: IncomingMessage, res: Serve
     });
   }
 
-  const ctx = makeCtx(cfg.store, cfg.baseUrl(), { id: requestId, idempotency_key: idempotencyKey ?? null });
+  const onBehalf = header(req, "stripe-account") ?? null;
+  if (onBehalf && cfg.store.get(onBehalf)?.object !== "account") {
+    return send(403, {
+      error: {
+        type: "invalid_request_error",
+        code: "account_invalid",
+        message: `The provided key does not have access to account '${onBehalf}' (or that account does not exist).`,
+      },
+    });
+  }
+  const ctx = makeCtx(cfg.store, cfg.baseUrl(), { id: requestId, idempotency_key: idempotencyKey ?? null }, onBehalf);
   sweep(ctx);
   let status = 200;
   let payload: unknown;
@@ -100,10 +119,13 @@ export async function handleApi(cfg: ApiConfig, req: IncomingMessage, res: Serve
   send(status, payload);
 }
 
-/** Lapsed holds and sessions change state on their own, as they would at Stripe. */
+/** Lapsed holds and sessions and due payouts change state on their own, as they would at Stripe;
+ *  these are not caused by the request at hand, so their events name no request. */
 export function sweep(ctx: Ctx): void {
-  for (const pi of ctx.store.all("payment_intent")) if (pi.status === "requires_capture") expireHold(ctx, pi);
-  for (const s of ctx.store.all("checkout.session")) if (s.status === "open") expireSession(ctx, s);
+  const auto = makeCtx(ctx.store, ctx.baseUrl, { id: null, idempotency_key: null });
+  for (const pi of auto.store.all("payment_intent")) if (pi.status === "requires_capture") expireHold(auto, pi);
+  for (const s of auto.store.all("checkout.session")) if (s.status === "open") expireSession(auto, s);
+  runPayouts(auto);
 }
 
 function findRoute(method: string, path: string): { route: Route; args: string[] } | null {

@@ -8,7 +8,11 @@ export interface Ctx {
   store: StripeStore;
   baseUrl: string;
   request: RequestInfo;
+  /** The connected account named by a `Stripe-Account` header, or null for the platform. */
+  account: string | null;
   emit(type: string, obj: StripeObject, previous?: Record<string, unknown>): void;
+  /** An event on a connected account's behalf (Connect events carry `account`); null = the platform. */
+  emitFor(account: string | null, type: string, obj: StripeObject, previous?: Record<string, unknown>): void;
 }
 
 export type Handler = (ctx: Ctx, params: Params, args: string[]) => unknown;
@@ -24,12 +28,14 @@ export function route(method: Route["method"], pattern: string, handler: Handler
   return { method, path: new RegExp(`^${source}$`), handler };
 }
 
-export function makeCtx(store: StripeStore, baseUrl: string, request: RequestInfo): Ctx {
+export function makeCtx(store: StripeStore, baseUrl: string, request: RequestInfo, account: string | null = null): Ctx {
   return {
     store,
     baseUrl,
     request,
+    account,
     emit: (type, obj, previous) => void store.emit(type, obj, request, previous),
+    emitFor: (on, type, obj, previous) => void store.emit(type, obj, request, previous, on),
   };
 }
 

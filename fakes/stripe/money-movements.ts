@@ -4,18 +4,111 @@ import { P } from "./params";
 import { publicView, type StripeObject } from "./store";
 import { route, type Ctx, type Route } from "./context";
 import { listOf } from "./payment-intents";
+import { addBalanceTransaction, availableOnFrom, balanceOf } from "./balance";
 
 // Refunds, transfers to connected accounts (separate charges and transfers, linked by
-// transfer_group) and the platform balance they draw on.
+// transfer_group, or tied to their charge by source_transaction), the automatic transfer and
+// application fee of a destination charge, and the balance transactions each of them makes.
 
-/** Platform balance per currency: captured minus refunded, minus transferred net of reversals.
- *  Simplification: funds are available at capture (Stripe holds them pending for days) and no fees. */
-export function balance(ctx: Ctx): Record<string, number> {
-  const out: Record<string, number> = {};
-  for (const ch of ctx.store.all("charge"))
-    out[ch.currency] = (out[ch.currency] ?? 0) + ch.amount_captured - (ch.captured ? ch.amount_refunded : 0);
-  for (const tr of ctx.store.all("transfer")) out[tr.currency] = (out[tr.currency] ?? 0) - tr.amount + tr.amount_reversed;
-  return out;
+/** A captured charge's funds enter the platform balance, pending until available_on; a destination
+ *  charge then sends its share to the connected account at once and keeps the application fee. */
+export function settleCharge(ctx: Ctx, charge: StripeObject, pi: StripeObject): void {
+  if (charge.balance_transaction) return;
+  const availableOn = availableOnFrom(ctx.store.now());
+  charge.balance_transaction = addBalanceTransaction(ctx, {
+    owner: null,
+    amount: charge.amount_captured,
+    currency: charge.currency,
+    type: "charge",
+    source: charge.id,
+    description: charge.description,
+    availableOn,
+  }).id;
+  const destination = pi.transfer_data?.destination as string | undefined;
+  if (!destination) return;
+  const fee = Math.min(pi.application_fee_amount ?? 0, charge.amount_captured);
+  const share = pi.transfer_data.amount ?? charge.amount_captured - fee;
+  const transfer = transferFromCharge(ctx, {
+    amount: share,
+    currency: charge.currency,
+    destination,
+    source: charge,
+    group: pi.transfer_group,
+  });
+  charge.transfer = transfer.id;
+  charge.destination = destination;
+  if (fee > 0) {
+    const appFee = ctx.store.insert({
+      id: ctx.store.newId("fee"),
+      object: "application_fee",
+      account: destination,
+      amount: fee,
+      amount_refunded: 0,
+      balance_transaction: null as string | null,
+      charge: charge.id,
+      created: ctx.store.now(),
+      currency: charge.currency,
+      livemode: false,
+      originating_transaction: charge.id,
+      refunded: false,
+    });
+    charge.application_fee = appFee.id;
+    charge.application_fee_amount = fee;
+    ctx.emit("application_fee.created", appFee);
+  }
+  ctx.store.changed();
+}
+
+function transferFromCharge(
+  ctx: Ctx,
+  t: {
+    amount: number;
+    currency: string;
+    destination: string;
+    source: StripeObject | null;
+    group: string | null;
+    description?: string | null;
+    metadata?: Record<string, string>;
+  },
+): StripeObject {
+  const sourceTxn = t.source ? ctx.store.get(t.source.balance_transaction) : undefined;
+  const transfer = ctx.store.insert({
+    id: ctx.store.newId("tr"),
+    object: "transfer",
+    amount: t.amount,
+    amount_reversed: 0,
+    balance_transaction: null as string | null,
+    created: ctx.store.now(),
+    currency: t.currency,
+    description: t.description ?? null,
+    destination: t.destination,
+    destination_payment: ctx.store.newId("py"),
+    livemode: false,
+    metadata: t.metadata ?? {},
+    reversals: { object: "list", data: [], has_more: false, url: "" },
+    reversed: false,
+    source_transaction: t.source?.id ?? null,
+    transfer_group: t.group,
+  });
+  transfer.reversals.url = `/v1/transfers/${transfer.id}/reversals`;
+  transfer.balance_transaction = addBalanceTransaction(ctx, {
+    owner: null,
+    amount: -t.amount,
+    currency: t.currency,
+    type: "transfer",
+    source: transfer.id,
+  }).id;
+  // On the connected account the money is pending for as long as the charge it came from is.
+  addBalanceTransaction(ctx, {
+    owner: t.destination,
+    amount: t.amount,
+    currency: t.currency,
+    type: "payment",
+    source: transfer.destination_payment,
+    availableOn: sourceTxn?.available_on,
+  });
+  ctx.emit("transfer.created", transfer);
+  return transfer;
 }
 
 function createRefund(ctx: Ctx, params: Params): StripeObject {
@@ -52,7 +145,7 @@ function createRefund(ctx: Ctx, params: Params): StripeObject {
     id: ctx.store.newId("re"),
     object: "refund",
     amount,
-    balance_transaction: null,
+    balance_transaction: null as string | null,
     charge: charge.id,
     created: ctx.store.now(),
     currency: charge.currency,
@@ -61,6 +154,13 @@ function createRefund(ctx: Ctx, params: Params): StripeObject {
     reason: p.oneOf("reason", ["duplicate", "fraudulent", "requested_by_customer"] as const) ?? null,
     status: "succeeded",
   });
+  refund.balance_transaction = addBalanceTransaction(ctx, {
+    owner: null,
+    amount: -amount,
+    currency: charge.currency,
+    type: "refund",
+    source: refund.id,
+  }).id;
   const before = { amount_refunded: charge.amount_refunded, refunded: charge.refunded };
   charge.amount_refunded += amount;
   charge.refunded = charge.amount_refunded >= charge.amount_captured;
@@ -91,7 +191,9 @@ function createTransfer(ctx: Ctx, params: Params): StripeObject {
       .all("transfer")
       .filter((t) => t.source_transaction === sourceId)
       .reduce((s, t) => s + t.amount - t.amount_reversed, 0);
+    // Allowed while the charge's funds are pending; never beyond what is left of it after refunds.
     const left = source.amount_captured - source.amount_refunded - used;
+    if (!source.captured) throw invalid(`Charge ${sourceId} has not been captured.`, "source_transaction");
     if (amount > left) {
       throw invalid(
         `Transfer amount (${amount}) exceeds what remains of source_transaction ${sourceId} (${left}).`,
@@ -99,32 +201,20 @@ function createTransfer(ctx: Ctx, params: Params): StripeObject {
         "amount_too_large",
       );
     }
-  } else if ((balance(ctx)[currency] ?? 0) < amount) {
+  } else if ((balanceOf(ctx, null).available[currency] ?? 0) < amount) {
     throw new StripeFakeError(400, "invalid_request_error", "You have insufficient available funds in your Stripe account.", {
       code: "balance_insufficient",
     });
   }
-  const transfer = ctx.store.insert({
-    id: ctx.store.newId("tr"),
-    object: "transfer",
+  return transferFromCharge(ctx, {
     amount,
-    amount_reversed: 0,
-    balance_transaction: null,
-    created: ctx.store.now(),
     currency,
-    description: p.str("description") ?? null,
     destination: destination.id,
-    destination_payment: ctx.store.newId("py"),
-    livemode: false,
+    source: sourceId ? ctx.store.get(sourceId)! : null,
+    group: p.str("transfer_group") ?? null,
+    description: p.str("description") ?? null,
     metadata: p.metadata(),
-    reversals: { object: "list", data: [], has_more: false, url: "" },
-    reversed: false,
-    source_transaction: sourceId ?? null,
-    transfer_group: p.str("transfer_group") ?? null,
   });
-  transfer.reversals.url = `/v1/transfers/${transfer.id}/reversals`;
-  ctx.emit("transfer.created", transfer);
-  return transfer;
 }
 
 function reverseTransfer(ctx: Ctx, params: Params, id: string): StripeObject {
@@ -148,6 +238,14 @@ function reverseTransfer(ctx: Ctx, params: Params, id: string): StripeObject {
   transfer.amount_reversed += amount;
   transfer.reversed = transfer.amount_reversed >= transfer.amount;
   transfer.reversals.data.unshift(reversal);
+  addBalanceTransaction(ctx, { owner: null, amount, currency: transfer.currency, type: "transfer_refund", source: reversal.id });
+  addBalanceTransaction(ctx, {
+    owner: transfer.destination,
+    amount: -amount,
+    currency: transfer.currency,
+    type: "payment_refund",
+    source: reversal.id,
+  });
   ctx.store.changed();
   ctx.emit(transfer.reversed ? "transfer.reversed" : "transfer.updated", transfer, before);
   return reversal;
@@ -161,15 +259,4 @@ export const moneyMovementRoutes: Route[] = [
   route("GET", "/v1/transfers", (ctx, params) => listOf(ctx, params, "transfer", "/v1/transfers", ["destination", "transfer_group"])),
   route("GET", "/v1/transfers/:id", (ctx, _params, [id]) => publicView(ctx.store.find(id, "transfer", "transfer"))),
   route("POST", "/v1/transfers/:id/reversals", (ctx, params, [id]) => reverseTransfer(ctx, params, id)),
-  route("GET", "/v1/balance", (ctx) => {
-    const amounts = Object.entries(balance(ctx));
-    return {
-      object: "balance",
-      available: amounts.length
-        ? amounts.map(([currency, amount]) => ({ amount, currency, source_types: { card: amount } }))
-        : [{ amount: 0, currency: "usd", source_types: { card: 0 } }],
-      pending: [],
-      livemode: false,
-    };
-  }),
 ];

@@ -2,6 +2,7 @@ import { chargeCardNumber, testPaymentMethodNumber, type Card, type Outcome } fr
 import { StripeFakeError, invalid, noSuch } from "./errors";
 import { publicView, randomToken, type StripeObject } from "./store";
 import { snapshot, type Ctx } from "./context";
+import { settleCharge } from "./money-movements";
 
 // The money core shared by the PaymentIntents API and the hosted payment page: payment methods,
 // charges, authorisation, capture, cancellation and the 7-day expiry of uncaptured holds.
@@ -177,6 +178,7 @@ export function attemptPayment(ctx: Ctx, pi: StripeObject, pm: StripeObject, out
     pi.amount_received = pi.amount;
     charge.captured = true;
     charge.amount_captured = pi.amount;
+    settleCharge(ctx, charge, pi);
   }
   ctx.store.changed();
   ctx.emit("charge.succeeded", charge);
@@ -208,6 +210,7 @@ export function capturePaymentIntent(ctx: Ctx, pi: StripeObject, amountToCapture
   pi.amount_capturable = 0;
   charge.captured = true;
   charge.amount_captured = amount;
+  settleCharge(ctx, charge, pi);
   ctx.store.changed();
   ctx.emit("charge.captured", charge);
   ctx.emit("payment_intent.succeeded", pi, before);

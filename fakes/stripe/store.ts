@@ -105,10 +105,11 @@ export class StripeStore {
   }
 
   /** Records an event with a snapshot of the object and hands it to the webhook sender. */
-  emit(type: string, obj: StripeObject, request: RequestInfo, previous?: Record<string, unknown>): StripeObject {
+  emit(type: string, obj: StripeObject, request: RequestInfo, previous?: Record<string, unknown>, account?: string | null): StripeObject {
     const event: StripeObject = {
       id: this.newId("evt"),
       object: "event",
+      ...(account ? { account } : {}),
       api_version: this.apiVersion,
       created: this.now(),
       data: { object: publicView(obj), ...(previous ? { previous_attributes: previous } : {}) },

@@ -26,6 +26,9 @@ export interface DeliveryAttempt {
 
 const DEFAULT_RETRIES = [5_000, 30_000, 120_000, 600_000, 1_800_000, 3_600_000, 7_200_000];
 
+// Each event's delivery state lives on the stored event (saved in the state file with everything
+// else): `pending_webhooks`, `_failures` and `_next_attempt_at` (ms). A stand-in stopped or killed
+// with deliveries outstanding resumes them on its next start, due ones at once and in creation order.
 export class WebhookSender {
   private timers = new Set<NodeJS.Timeout>();
   private chain: Promise<void> = Promise.resolve();
@@ -37,22 +40,52 @@ export class WebhookSender {
     private readonly log: (line: string) => void = () => {},
   ) {
     store.onEvent((event) => this.enqueue(event));
+    this.resume();
   }
 
   private enqueue(event: StripeObject): void {
     if (!this.target) return;
     event.pending_webhooks = 1;
-    const deliveries: DeliveryAttempt[] = [];
-    event._deliveries = deliveries;
-    // First attempts go out one at a time in creation order, after the API answer that caused them.
-    this.chain = this.chain.then(() => new Promise((resolve) => setImmediate(resolve))).then(() => this.attempt(event, 0));
+    event._deliveries = [] satisfies DeliveryAttempt[];
+    event._failures = 0;
+    event._next_attempt_at = Date.now();
+    this.store.changed();
+    this.queueFirst(event.id);
   }
 
-  private async attempt(event: StripeObject, retry: number): Promise<void> {
-    if (this.stopped || !this.target) return;
+  // First attempts go out one at a time in creation order, after the API answer that caused them.
+  private queueFirst(id: string): void {
+    this.chain = this.chain.then(() => new Promise((resolve) => setImmediate(resolve))).then(() => this.attempt(id));
+  }
+
+  private resume(): void {
+    if (!this.target) return;
+    const waiting = this.store
+      .all("event")
+      .filter((e) => e.pending_webhooks > 0 && typeof e._next_attempt_at === "number")
+      .reverse();
+    if (waiting.length) this.log(`payments stand-in: resuming ${waiting.length} webhook deliveries`);
+    for (const event of waiting) {
+      const wait = event._next_attempt_at - Date.now();
+      if (wait <= 0) this.queueFirst(event.id);
+      else this.later(event.id, wait);
+    }
+  }
+
+  private later(id: string, wait: number): void {
+    const timer = setTimeout(() => {
+      this.timers.delete(timer);
+      void this.attempt(id);
+    }, wait);
+    timer.unref();
+    this.timers.add(timer);
+  }
+
+  private async attempt(id: string): Promise<void> {
+    const stored = this.store.get(id);
+    if (this.stopped || !this.target || !stored || !(stored.pending_webhooks > 0)) return;
     const { url, secret, timeoutMs = 10_000 } = this.target;
     const delays = this.target.retryDelaysMs ?? DEFAULT_RETRIES;
-    const stored = this.store.get(event.id) ?? event;
     const payload = JSON.stringify({ ...publicEvent(stored), pending_webhooks: 1 }, null, 2);
     let status: number | null = null;
     let error: string | null = null;
@@ -72,22 +105,23 @@ export class WebhookSender {
     } catch (err) {
       error = (err as Error).message;
     }
+    if (this.stopped) return; // the next start tries again
     const ok = status !== null && status >= 200 && status < 300;
     (stored._deliveries ??= []).push({ at: new Date().toISOString(), status, error } satisfies DeliveryAttempt);
-    if (ok) stored.pending_webhooks = 0;
+    if (ok) {
+      stored.pending_webhooks = 0;
+      stored._next_attempt_at = null;
+      this.store.changed();
+      return;
+    }
+    stored._failures = (stored._failures ?? 0) + 1;
+    const wait = delays[stored._failures - 1];
+    stored._next_attempt_at = wait === undefined ? null : Date.now() + wait;
     this.store.changed();
-    if (ok) return;
-    const wait = delays[retry];
     this.log(
       `payments stand-in: ${stored.type} ${stored.id} not delivered (${status ?? error})${wait === undefined ? ", giving up" : `, retrying in ${Math.round(wait / 1000)} s`}`,
     );
-    if (wait === undefined || this.stopped) return;
-    const timer = setTimeout(() => {
-      this.timers.delete(timer);
-      void this.attempt(stored, retry + 1);
-    }, wait);
-    timer.unref();
-    this.timers.add(timer);
+    if (wait !== undefined) this.later(id, wait);
   }
 
   /** Resolves once every first attempt queued so far has finished (retries excluded). */

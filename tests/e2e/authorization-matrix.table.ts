@@ -74,6 +74,60 @@ export const MATRIX: Record<string, Entry> = {
       },
     ],
   },
+  // Buying. The checkout is any account's (the fixture unit has no delivery to offer, so the probe's
+  // order is refused before anything is reserved); an order is its buyer's on /purchases and its
+  // seller's on /sales, a 404 for everyone else; the desk's order screen is for moderators; the
+  // marketplace settings are the admin's.
+  "/checkout/:listingId": {
+    cases: [
+      {
+        params: (f) => ({ listingId: f.live.id }),
+        get: signedIn("ok"),
+        post: { body: form({ zone: "domestic", deliveryMethod: "parcel" }), expect: signedIn(400) },
+      },
+      { name: "a draft", params: (f) => ({ listingId: f.draft.id }), get: signedIn(404) },
+    ],
+  },
+  "/purchases": { cases: [{ get: signedIn("ok") }] },
+  "/purchases/:orderId": {
+    cases: [
+      {
+        params: (f) => ({ orderId: f.order.id }),
+        get: { anonymous: "sign-in", buyer: "ok", others: 404 },
+        post: { body: form({ intent: "matrix-probe" }), expect: { anonymous: "sign-in", buyer: 400, others: 404 } },
+      },
+    ],
+  },
+  "/sales": { cases: [{ get: { anonymous: "sign-in", owner: "ok", seller: "ok", workshop: "ok", others: 403 } }] },
+  "/sales/:orderId": {
+    cases: [
+      {
+        params: (f) => ({ orderId: f.order.id }),
+        get: ownerOnly(),
+        post: { body: form({ intent: "ship", carrier: "", trackingNumber: "" }), expect: ownerOnly(400) },
+      },
+    ],
+  },
+  "/desk/orders/:orderId": {
+    cases: [
+      {
+        params: (f) => ({ orderId: f.order.id }),
+        get: desk,
+        post: {
+          body: form({ resolution: "release", note: "" }),
+          expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 },
+        },
+      },
+    ],
+  },
+  "/admin/settings": {
+    cases: [
+      {
+        get: { anonymous: "sign-in", admin: "ok", others: 403 },
+        post: { body: form({ feePercent: "not a fee" }), expect: { anonymous: "sign-in", admin: 400, others: 403 } },
+      },
+    ],
+  },
   "/currency": {
     cases: [
       {
@@ -161,6 +215,86 @@ export const MATRIX: Record<string, Entry> = {
         params: () => ({ token: "A".repeat(43) }),
         get: everyone(404),
         post: { body: form({}), expect: everyone(404) },
+      },
+    ],
+  },
+
+  // Conversations: a thread is its buyer's and its seller's (the owner of the listing); anyone else gets
+  // a 404, as for a thread that does not exist. Asking about your own unit is refused (409).
+  "/messages": {
+    cases: [
+      {
+        get: signedIn("ok"),
+        post: {
+          body: (f) => ({ form: { intent: "ask", listingId: f.live.id } }),
+          expect: { anonymous: "sign-in", owner: 409, others: { to: /^\/messages\/[0-9a-f-]{36}$/ } },
+        },
+      },
+    ],
+  },
+  "/messages/:threadId": {
+    cases: [
+      {
+        params: (f) => ({ threadId: f.thread.id }),
+        get: { anonymous: "sign-in", buyer: "ok", owner: "ok", others: 404 },
+        post: {
+          body: form({ intent: "send", body: "Is the left channel's bias adjustable?" }),
+          expect: { anonymous: "sign-in", buyer: { to: "/messages/:threadId" }, owner: { to: "/messages/:threadId" }, others: 404 },
+        },
+      },
+      { name: "no such thread", params: () => ({ threadId: randomUUID() }), get: signedIn(404) },
+    ],
+  },
+  "/api/v1/threads": {
+    cases: [
+      {
+        get: apiSignedIn("ok"),
+        writes: { POST: { body: (f) => ({ json: { listingId: f.live.id } }), expect: { anonymous: 401, owner: 409, others: 201 } } },
+      },
+    ],
+  },
+  "/api/v1/threads/:id/messages": {
+    cases: [
+      {
+        params: (f) => ({ id: f.thread.id }),
+        get: { anonymous: 401, buyer: "ok", owner: "ok", others: 404 },
+        writes: {
+          POST: {
+            body: () => ({ json: { body: "Does it come with the manual?" } }),
+            expect: { anonymous: 401, buyer: 201, owner: 201, others: 404 },
+          },
+        },
+      },
+    ],
+  },
+  // Offers: the buyer persona already has one open (409 for a second); the owner cannot offer on their own unit.
+  "/api/v1/offers": {
+    cases: [
+      {
+        get: everyone(405),
+        writes: {
+          POST: {
+            body: (f) => ({ json: { listingId: f.live.id, amountMinor: 40_000, currency: "EUR" } }),
+            expect: { anonymous: 401, owner: 409, buyer: 409, others: 201 },
+          },
+        },
+      },
+    ],
+  },
+  // Answering: the side it was made to (the owner) may accept; the buyer who made it may not (403);
+  // anyone else gets a 404. The owner's acceptance closes the offer, so it runs last.
+  "/api/v1/offers/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.offer.id }),
+        get: everyone(405),
+        writes: {
+          POST: {
+            body: () => ({ json: { action: "accept" } }),
+            expect: { anonymous: 401, buyer: 403, owner: "ok", others: 404 },
+            last: true,
+          },
+        },
       },
     ],
   },

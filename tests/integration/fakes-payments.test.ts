@@ -127,11 +127,16 @@ describe("payments stand-in", () => {
 
     const captured = await stripe.paymentIntents.capture(held.id);
     expect(captured).toMatchObject({ status: "succeeded", amount_received: 64_900 });
+    // The captured funds are pending, so only a transfer tied to this charge may go yet.
+    await expect(
+      stripe.transfers.create({ amount: 58_410, currency: "eur", destination: account.id, transfer_group: "order_o-5" }),
+    ).rejects.toMatchObject({ code: "balance_insufficient" });
     const transfer = await stripe.transfers.create({
       amount: 58_410,
       currency: "eur",
       destination: account.id,
       transfer_group: "order_o-5",
+      source_transaction: captured.latest_charge as string,
     });
     expect(transfer).toMatchObject({ amount: 58_410, destination: account.id, transfer_group: "order_o-5" });
     const refund = await stripe.refunds.create({ payment_intent: held.id, amount: 1_000, reason: "requested_by_customer" });

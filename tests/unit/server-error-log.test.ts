@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { DatabaseError } from "sequelize";
-import { loggable } from "~/entry.server";
+import { loggable } from "~/http/log.server";
 
 // What the web process writes when a request fails: enough to find the fault, never the values a
 // database error carries (bench sheets, e-mail addresses).

@@ -82,8 +82,17 @@ export function logTicks([lo, hi]: readonly [number, number]): Tick[] {
       out.push({ value: v, label: hzTick(v), ...(m === 1 || end ? {} : { minor: true }) });
     }
   }
+  // A decade label too near an end's label ("100k" beside "200k") would overprint it on a phone.
+  const at = logScale([lo, hi]);
+  for (const t of out) {
+    if (t.minor || t.value === lo || t.value === hi) continue;
+    if (at(t.value) < END_LABEL_ROOM || 1 - at(t.value) < END_LABEL_ROOM) t.minor = true;
+  }
   return out;
 }
+
+/** The share of a log axis that two labels need between their centres on a phone-narrow plot. */
+const END_LABEL_ROOM = 0.09;
 
 /** The faint lines between ticks on a log axis: 2…9 × 10ⁿ, the graph paper of a response plot. */
 export function logGrid([lo, hi]: readonly [number, number]): number[] {

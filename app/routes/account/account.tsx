@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { data, Form, useNavigation } from "react-router";
+import { data, Form, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/account";
 import { Badge } from "~/components/Badge";
 import { Button } from "~/components/Button";
@@ -13,10 +13,13 @@ import { MAIL_UNAVAILABLE, MailDeliveryError } from "~/auth/emails.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { readPageForm } from "~/http/body.server";
 import { AccountActionForm } from "~/auth/forms";
-import { requireSession } from "~/auth/guards.server";
+import { hasRole, requireSession } from "~/auth/guards.server";
 import { sessionList, type SessionRow } from "~/auth/session-list.server";
 import { endSession } from "~/auth/session.server";
 import { revokeOtherSessions, revokeOwnSession } from "~/auth/session-store.server";
+import { env } from "~/env.server";
+import { payoutStatusFor, startPayoutOnboarding } from "~/payments/payouts.server";
+import { PayoutsCard } from "~/payments/ui/PayoutsCard";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Loadline" }];
 
@@ -24,7 +27,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   const { user, sessionId } = await requireSession(request);
   // One-time notices (e.g. "confirmed") are shown by the root layout.
   const [methods, sessions] = await Promise.all([signInMethods(user.id), sessionList(user.id, sessionId)]);
-  return { user, methods, sessions };
+  // Back from the provider's onboarding page (?payouts=back): ask the provider now, not only by webhook.
+  const back = new URL(request.url).searchParams.get("payouts") === "back";
+  const payouts = hasRole(user, "seller") ? await payoutStatusFor(user.id, { refresh: back }) : null;
+  return { user, methods, sessions, payouts };
 }
 
 const RESEND_MESSAGES = {
@@ -33,7 +39,7 @@ const RESEND_MESSAGES = {
   too_many: { ok: false, text: "We have sent several links in the last hour. Please use the newest one, or try again later." },
 } as const;
 
-type ActionResult = { ok: boolean; text: string; section: "email" | "sessions" };
+type ActionResult = { ok: boolean; text: string; section: "email" | "sessions" | "payouts" };
 
 export async function action({ request }: Route.ActionArgs) {
   assertSameOrigin(request);
@@ -42,6 +48,17 @@ export async function action({ request }: Route.ActionArgs) {
   const parsed = AccountActionForm.safeParse(Object.fromEntries(form));
   if (!parsed.success) return data<ActionResult>({ ok: false, text: "Unknown request.", section: "email" }, { status: 400 });
   const input = parsed.data;
+  if (input.intent === "connect-payouts") {
+    if (!hasRole(user, "seller"))
+      return data<ActionResult>({ ok: false, text: "Payouts are for sellers.", section: "payouts" }, { status: 403 });
+    try {
+      return redirect(await startPayoutOnboarding(user.id, `${env().appUrl}/account?payouts=back#payouts`));
+    } catch (error) {
+      console.error("[payouts]", error);
+      const text = "The payment provider could not be reached. Please try again in a minute.";
+      return data<ActionResult>({ ok: false, text, section: "payouts" }, { status: 503 });
+    }
+  }
   if (input.intent === "sign-out-session") {
     // Ending this device's own session is signing out.
     if (input.sessionId === sessionId) return endSession(request, "/");
@@ -67,7 +84,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
-  const { user, methods, sessions } = loaderData;
+  const { user, methods, sessions, payouts } = loaderData;
   const busy = useNavigation().state === "submitting";
   const message = (section: ActionResult["section"]) =>
     actionData?.section !== section ? null : actionData.ok ? <Notice>{actionData.text}</Notice> : <FormError>{actionData.text}</FormError>;
@@ -131,6 +148,8 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           </Button>
         </Form>
       </Card>
+
+      {payouts ? <PayoutsCard payouts={payouts} message={message("payouts")} busy={busy} /> : null}
 
       <SessionsCard sessions={sessions} message={message("sessions")} />
     </main>

@@ -4,7 +4,7 @@ import { Badge } from "~/components/Badge";
 import { Card, CardTitle } from "~/components/Card";
 import { PageHeader } from "~/components/PageHeader";
 import { requireRole } from "~/auth/guards.server";
-import { reviewQueue, type HeldListingItem, type WorkshopApplicationItem } from "~/desk/queue.server";
+import { reviewQueue, type ContestedOrderItem, type HeldListingItem, type WorkshopApplicationItem } from "~/desk/queue.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Review desk · Loadline" }];
 
@@ -18,8 +18,8 @@ function day(iso: string) {
 }
 
 export default function Desk({ loaderData }: Route.ComponentProps) {
-  const { heldListings, heldCount, workshopApplications, applicationCount } = loaderData;
-  const clear = heldCount === 0 && applicationCount === 0;
+  const { heldListings, heldCount, workshopApplications, applicationCount, contestedOrders, contestedCount } = loaderData;
+  const clear = heldCount === 0 && applicationCount === 0 && contestedCount === 0;
   return (
     <main className="mx-auto w-full max-w-5xl space-y-8 px-4 py-10">
       <PageHeader
@@ -27,10 +27,15 @@ export default function Desk({ loaderData }: Route.ComponentProps) {
         title="Review desk"
         lede={
           clear
-            ? "The queue is clear: no listing is held for review and no workshop is waiting to be verified."
-            : `${heldCount} listing${heldCount === 1 ? "" : "s"} held for review · ${applicationCount} workshop application${applicationCount === 1 ? "" : "s"}, oldest first.`
+            ? "The queue is clear: no listing is held for review, no workshop is waiting to be verified and no order is contested."
+            : `${contestedCount} contested order${contestedCount === 1 ? "" : "s"} · ${heldCount} listing${heldCount === 1 ? "" : "s"} held for review · ${applicationCount} workshop application${applicationCount === 1 ? "" : "s"}, oldest first.`
         }
       />
+      <Queue title="Contested orders" count={contestedCount} empty="No order is contested.">
+        {contestedOrders.map((o) => (
+          <ContestedOrder key={o.id} item={o} />
+        ))}
+      </Queue>
       <Queue title="Listings held for review" count={heldCount} empty="No listing is held for review.">
         {heldListings.map((l) => (
           <HeldListing key={l.id} item={l} />
@@ -73,6 +78,27 @@ function HeldListing({ item }: { item: HeldListingItem }) {
       <p className="text-sm">{item.reason}</p>
       <p className="text-xs text-ink-faint">
         {item.workshop ? `${item.workshop} (${item.seller})` : item.seller} · held since <span className="figures">{day(item.since)}</span>
+      </p>
+    </li>
+  );
+}
+
+function ContestedOrder({ item }: { item: ContestedOrderItem }) {
+  return (
+    <li className="space-y-1 py-3">
+      <p className="flex flex-wrap items-center gap-2">
+        <Link
+          to={`/desk/orders/${item.id}`}
+          className="font-serif text-lg text-ink underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep"
+        >
+          {item.title}
+        </Link>
+        <Badge tone="fault">Contested</Badge>
+        <span className="figures text-sm text-ink-faint">Order {item.ref}</span>
+      </p>
+      <p className="text-sm">{item.reason}</p>
+      <p className="text-xs text-ink-faint">
+        {item.buyer} bought from {item.seller} · contested <span className="figures">{day(item.since)}</span>
       </p>
     </li>
   );

@@ -12,24 +12,29 @@ import { BenchSheetSection, KeyFigures } from "~/listings/ui/BenchSheetSection";
 import { Gallery } from "~/listings/ui/Gallery";
 import { ListingTitle, OwnerLinks, PriceAndCondition, StatusBanner, WatchControl } from "~/listings/ui/ListingHeader";
 import { Plots } from "~/listings/ui/Plots";
+import { TalkControls } from "~/listings/ui/TalkControls";
 import { RestorationLog } from "~/listings/ui/RestorationLog";
 import { SafetyCautions, SellerCard, ShippingPanel } from "~/listings/ui/SidePanels";
 import { UnitDetails } from "~/listings/ui/UnitDetails";
 import { CompareToggle } from "~/compare/ui/CompareToggle";
+import { buyState } from "~/buying/buy-state.server";
+import { BuyPanel } from "~/buying/ui/BuyPanel";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
+  const viewer = await getUser(request);
   const page = await loadListingPage({
     id: params.id,
-    viewer: await getUser(request),
+    viewer,
     zone: url.searchParams.get("zone"),
     acceptLanguage: request.headers.get("Accept-Language"),
   });
   if (!page) throw data({ message: "There is no listing here." }, { status: 404, statusText: "Not Found" });
   const photo = Number(url.searchParams.get("photo"));
+  const buy = await buyState(page.listing.id, viewer);
   // The page differs per viewer (watch state, held banner): never from a shared cache.
   return data(
-    { ...page, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 },
+    { ...page, buy, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 },
     { headers: { "Cache-Control": "private, no-store" } },
   );
 }
@@ -64,7 +69,7 @@ export function meta({ data: page }: Route.MetaArgs) {
 }
 
 export default function ListingPage({ loaderData }: Route.ComponentProps) {
-  const { listing, viewer, photos, keyFigures, bench, plots, restoration, seller, shipping, initialPhoto } = loaderData;
+  const { listing, viewer, photos, keyFigures, bench, plots, restoration, seller, shipping, initialPhoto, buy } = loaderData;
   return (
     <main className="mx-auto w-full max-w-6xl space-y-10 px-4 pb-16 pt-6 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-sm text-ink-faint">
@@ -86,7 +91,9 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
         <div className="space-y-6 lg:col-span-5">
           <ListingTitle listing={listing} />
           <PriceAndCondition listing={listing} />
+          <BuyPanel state={buy} />
           <WatchControl listing={listing} viewer={viewer} />
+          <TalkControls listing={listing} viewer={viewer} />
           {listing.status === "live" || listing.status === "sold" ? <CompareToggle listingId={listing.id} layout="page" /> : null}
           <OwnerLinks listing={listing} viewer={viewer} />
           <div className="border-t border-rule pt-5">

@@ -4,6 +4,9 @@ import { Listing, ListingPhoto, User } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { Watch } from "~/models/watch.server";
 import { SpecAlert } from "~/models/spec-alert.server";
+import { MessageThread } from "~/models/message-thread.server";
+import { Offer } from "~/models/offer.server";
+import { Order } from "~/models/order.server";
 import { issueUnsubscribeUrl } from "~/alerts/unsubscribe.server";
 import { hashPassword } from "~/auth/password.server";
 import type { Role } from "~/auth/roles";
@@ -47,6 +50,11 @@ export interface Fixtures {
   /** The owner's spec alert, and an unsubscribe link's token for it. */
   alert: SpecAlert;
   unsubscribeToken: string;
+  /** The buyer's conversation with the owner about the live listing, and the buyer's open offer in it. */
+  thread: MessageThread;
+  offer: Offer;
+  /** The buyer's paid order of another of the owner's units (the owner is its seller). */
+  order: Order;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -143,7 +151,47 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
   const media = { public: demoPhoto.listingKey, original: demoPhoto.originalKey };
   const alert = await SpecAlert.create({ userId: ownerId, name: "Matrix alert", query: "category=turntables", frequency: "instant" });
   const unsubscribeToken = new URL(await issueUnsubscribeUrl(ownerId, { kind: "alert", alertId: alert.id })).pathname.split("/").pop()!;
-  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken };
+  // The live unit takes offers, so an offer API probe can get past the listing's own refusals.
+  await live.update({ offersWelcome: true });
+  const thread = await MessageThread.create({
+    listingId: live.id,
+    buyerId: users.buyer.id,
+    sellerId: ownerId,
+    buyerReadAt: new Date(),
+    sellerReadAt: null,
+    lastMessageAt: new Date(),
+  });
+  const offer = await Offer.create({
+    listingId: live.id,
+    buyerId: users.buyer.id,
+    sellerId: ownerId,
+    threadId: thread.id,
+    amountMinor: 42_000,
+    currency: "EUR",
+    madeBy: "buyer",
+    parentOfferId: null,
+    expiresAt: new Date(Date.now() + 48 * 3_600_000),
+    acceptedAt: null,
+    checkoutUntil: null,
+    decidedAt: null,
+  });
+  // Made straight in the database (no provider behind it): paid and waiting for the owner to ship.
+  const sold = await listing(ownerId, "reserved");
+  const order = await Order.create({
+    listingId: sold.id,
+    buyerId: users.buyer.id,
+    sellerId: ownerId,
+    state: "funded",
+    currency: "EUR",
+    priceMinor: 48_000,
+    deliveryMinor: 0,
+    deliveryMethod: "collection",
+    deliveryZone: "domestic",
+    reservedUntil: new Date(Date.now() + 30 * 60_000),
+    fundedAt: new Date(),
+    shipBy: new Date(Date.now() + 3 * 86_400_000),
+  });
+  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer, order };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
@@ -167,7 +215,13 @@ export async function removeFixtures(f: Fixtures | undefined) {
   if (!f) return;
   const ids = Object.values(f.users).map((u) => u.id);
   await Watch.destroy({ where: { userId: ids } });
-  await Listing.destroy({ where: { sellerId: ids } });
+  // Orders are never deleted (their timeline is append-only): their units and people stay behind.
+  const kept = (await Order.findAll({ where: { [Op.or]: [{ buyerId: ids }, { sellerId: ids }] } })).flatMap((o) => [
+    o.listingId,
+    o.buyerId,
+    o.sellerId,
+  ]);
+  await Listing.destroy({ where: { sellerId: ids, id: { [Op.notIn]: kept.length ? kept : [randomUUID()] } } });
   await Capture.destroy({ where: { ownerId: ids } });
-  await User.destroy({ where: { id: ids } });
+  await User.destroy({ where: { id: { [Op.in]: ids, [Op.notIn]: kept.length ? kept : [randomUUID()] } } });
 }
