@@ -122,8 +122,22 @@ describe("buying in the browser", () => {
     await shots(seller, "sale-released");
 
     // Every step's mail, to both sides.
-    await mailsAbout(DEMO.buyer, unit.title, [/^A counter-offer/, /^Offer accepted/, /^Paid/, /^On its way/, /^Your audition window is open/, /^Complete/]);
-    await mailsAbout(SELLER, unit.title, [/^An offer of/, /^Offer accepted/, /^Sold, ship by/, /^Shipment recorded/, /^Arrived/, /^(Payment released|Payout sent)/]);
+    await mailsAbout(DEMO.buyer, unit.title, [
+      /^A counter-offer/,
+      /^Offer accepted/,
+      /^Paid/,
+      /^On its way/,
+      /^Your audition window is open/,
+      /^Complete/,
+    ]);
+    await mailsAbout(SELLER, unit.title, [
+      /^An offer of/,
+      /^Offer accepted/,
+      /^Sold, ship by/,
+      /^Shipment recorded/,
+      /^Arrived/,
+      /^(Payment released|Payout sent)/,
+    ]);
 
     const ledger = await ledgerOf(orderId);
     expect(ledger.total).toBe(0);
@@ -141,7 +155,10 @@ describe("buying in the browser", () => {
     const orderId = orderIdOf(buyer.url());
     await waitForState(buyer, `/purchases/${orderId}`, "funded");
     await seller.goto(`/sales/${orderId}`);
-    await seller.getByText(/Heavy unit/).first().waitFor();
+    await seller
+      .getByText(/Heavy unit/)
+      .first()
+      .waitFor();
     await shots(seller, "sale-heavy-to-ship");
     await ship(seller, orderId);
     await confirmArrival(buyer, orderId);
