@@ -52,6 +52,7 @@ export function CheckoutPage({ view, errors }: { view: CheckoutView; errors: Rec
                 <dt className="text-ink-soft">{offer ? "Your accepted offer" : "Price"}</dt>
                 <dd>
                   <Price
+                    layout="stacked"
                     minor={view.priceMinor}
                     currency={currency}
                     className="text-right font-semibold"
