@@ -44,4 +44,16 @@ wire(Order, "events", () => Order.hasMany(OrderEvent, { foreignKey: "orderId", a
 wire(Order, "ledger", () => Order.hasMany(LedgerEntry, { foreignKey: "orderId", as: "ledger" }));
 wire(Order, "contest", () => Order.hasOne(OrderContest, { foreignKey: "orderId", as: "contest" }));
 
-export { User, Workshop, Listing, ListingPhoto, BenchSheet, RestorationEntry, Order, OrderEvent, LedgerEntry, OrderContest, MarketplaceSettings };
+export {
+  User,
+  Workshop,
+  Listing,
+  ListingPhoto,
+  BenchSheet,
+  RestorationEntry,
+  Order,
+  OrderEvent,
+  LedgerEntry,
+  OrderContest,
+  MarketplaceSettings,
+};

@@ -10,7 +10,7 @@ import { isId } from "@shared/ids";
 import type { Clock } from "./clock.server";
 import { scheduleDeadline } from "./deadline-jobs.server";
 import { balancesFor, move } from "./ledger.server";
-import { acceptedOfferFor, markOfferUsed } from "~/offers/accepted.server";
+import { acceptedOfferFor, markOfferUsed, restoreOfferUse } from "~/offers/accepted.server";
 import { queueRefund, releaseToSeller, setListingStatus } from "./money.server";
 import { marketplaceSettings } from "./settings.server";
 import { lockOrder, recordEvent, runStep, stateRefusal, type Actor } from "./step.server";
@@ -155,6 +155,8 @@ export function lapseReservation(orderId: string, clock: Clock): Promise<Order> 
       apply: async (order, { tx, now }) => {
         order.closedAt = now;
         await setListingStatus(order.listingId, "live", tx);
+        // An accepted offer spent on this reservation may be used again while its checkout window lasts.
+        if (order.offerId) await restoreOfferUse(order.offerId, now, tx);
       },
       note: "The reservation lapsed unpaid; the unit is back in the market.",
       mail: ["buyer"],

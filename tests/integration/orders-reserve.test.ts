@@ -138,6 +138,10 @@ describe("an accepted offer", () => {
     const order = await reserve(c, clock);
     expect(order).toMatchObject({ priceMinor: 41_000, deliveryMinor: 2_500, offerId });
     expect(await offerState(offerId)).toBe("used");
+    // Unpaid at 30 minutes: the offer is the buyer's to use again within its checkout window.
+    clock.advanceMinutes(30);
+    await t.lapseReservation(order.id, clock);
+    expect(await offerState(offerId)).toBe("accepted");
   });
 
   it("does not apply after its checkout window, nor to another buyer", async () => {
