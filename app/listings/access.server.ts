@@ -17,8 +17,10 @@ export async function ownListing(
   return listing;
 }
 
-/** Sold and removed listings are a record; nothing on them changes from the editor. */
+/** Sold and removed listings are a record; nothing on them changes from the editor. A reserved one is what a buyer is buying. */
 export function assertEditable(listing: Listing): void {
+  if (listing.status === "reserved")
+    throw new ListingStateError("A buyer holds this unit in checkout or an open order; its listing cannot change meanwhile.", "conflict");
   if (listing.status === "sold") throw new ListingStateError("This unit is sold; its listing can no longer be changed.", "sold");
   if (listing.status === "removed")
     throw new ListingStateError(

@@ -4,7 +4,7 @@ import type { Order } from "~/models/index.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { queueWatchNotice } from "~/alerts/watch-notices.server";
 import { platformFeeMinor } from "@shared/order-fee";
-import { balancesFor, move } from "./ledger.server";
+import { move } from "./ledger.server";
 import { marketplaceSettings } from "./settings.server";
 
 // What a release or a refund decision writes: the ledger legs that are decided here (fee, seller
@@ -17,11 +17,11 @@ export interface ReleaseJob {
   amountMinor: number;
 }
 
-/** The job PAYMENTS' 'order-refund' handler receives; `n` numbers the order's refunds from 1 (its idempotency key's last part). */
+/** The job PAYMENTS' 'order-refund' handler receives; `refundNo` numbers the order's refunds from 1 (its idempotency key's last part). */
 export interface RefundJob {
   orderId: string;
   amountMinor: number;
-  n: number;
+  refundNo: number;
 }
 
 /**
@@ -46,21 +46,10 @@ export async function releaseToSeller(order: Order, refundMinor: number, now: Da
 }
 
 /** Queues a refund of `amountMinor` to the buyer; the ledger moves when the provider confirms it. */
-export async function queueRefund(order: Order, amountMinor: number, tx: Transaction, n = 1): Promise<void> {
+export async function queueRefund(order: Order, amountMinor: number, tx: Transaction, refundNo = 1): Promise<void> {
   if (amountMinor <= 0) return;
-  const job: RefundJob = { orderId: order.id, amountMinor, n };
-  await enqueue(QUEUES.orderRefund, job, { transaction: tx, singletonKey: `order:${order.id}:refund:${n}` });
-}
-
-/** The seller's share of a released order as the ledger has it (what the transfer must send). */
-export async function sellerShare(
-  order: Pick<Order, "id" | "feeMinor">,
-  tx?: Transaction,
-): Promise<{ grossMinor: number; feeMinor: number; payoutMinor: number }> {
-  const b = await balancesFor(order.id, tx);
-  const payoutMinor = b.seller_payable + b.seller_paid;
-  const feeMinor = order.feeMinor ?? 0;
-  return { grossMinor: payoutMinor + feeMinor, feeMinor, payoutMinor };
+  const job: RefundJob = { orderId: order.id, amountMinor, refundNo };
+  await enqueue(QUEUES.orderRefund, job, { transaction: tx, singletonKey: `order:${order.id}:refund:${refundNo}` });
 }
 
 /**

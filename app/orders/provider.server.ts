@@ -2,6 +2,7 @@ import type Stripe from "stripe";
 import { payments } from "~/services/payments.server";
 import { Listing } from "~/models/listing.server";
 import { User } from "~/models/user.server";
+import { refusal } from "~/http/errors.server";
 
 // Every call Loadline makes to the payments provider for an order. Each carries an idempotency key
 // made of the order and the step (`order:<id>:checkout`, `order:<id>:transfer`, `order:<id>:refund:<n>`),
@@ -26,6 +27,7 @@ export interface ProviderOrder {
   refundedMinor: number;
   reservedUntil: Date | null;
   createdAt: Date;
+  checkoutSessionId?: string | null;
 }
 
 /** A seller as the payout calls need them. */
@@ -65,6 +67,13 @@ export async function createCheckout(
   order: ProviderOrder,
   { successUrl, cancelUrl }: { successUrl: string; cancelUrl: string },
 ): Promise<{ id: string; url: string }> {
+  // Back to pay again: the session already made, while it is open (a replayed creation would show
+  // the page address of a session that may since have closed).
+  if (order.checkoutSessionId) {
+    const existing = await payments().checkout.sessions.retrieve(order.checkoutSessionId);
+    if (existing.status === "open" && existing.url) return { id: existing.id, url: existing.url };
+    throw refusal("order_state", "The payment page for this order has closed.");
+  }
   const listing = await Listing.findByPk(order.listingId, { attributes: ["id", "maker", "model"], rejectOnEmpty: true });
   const buyer = await User.findByPk(order.buyerId, { attributes: ["id", "email"] });
   const currency = order.currency.toLowerCase();

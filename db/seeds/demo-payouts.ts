@@ -6,11 +6,11 @@ import { accountCanBePaid, syncPayoutAccount } from "~/payments/payouts.server";
 import { payments } from "~/services/payments.server";
 
 // The demo sellers who can sell from the start: their payout accounts are connected at the local
-// payments stand-in, through its own onboarding page, as a seller would. The other demo sellers are
-// left unconnected, so the demo also shows a unit that cannot be bought yet. Against the real
-// provider nothing is done: onboarding there is a person's job.
+// payments stand-in, through its own onboarding page, as a seller would. One private seller
+// (seller2@) is left unconnected, so the demo also shows units that cannot be bought yet. Against the
+// real provider nothing is done: onboarding there is a person's job.
 
-const CONNECTED = ["workshop@loadline.test", "seller@loadline.test"];
+const CONNECTED = ["workshop@loadline.test", "valves@loadline.test", "platters@loadline.test", "seller@loadline.test"];
 
 export async function seedDemoPayouts(log: (line: string) => void = console.warn): Promise<{ connected: number }> {
   if (env().stripe.mode !== "fake") return { connected: 0 };

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sequelize } from "~/db.server";
 import { MessageThread } from "~/models/message-thread.server";
-import { unreadCount } from "~/messages/unread.server";
+import { UNREAD_COUNT_SQL, unreadCount } from "~/messages/unread.server";
 import { account, cleanUp, liveUnit } from "./talk-support";
 
 // The header's badge: threads with something the user has not read, counted per side.
@@ -54,5 +54,16 @@ describe("unreadCount", () => {
     expect(await unreadCount(seller.id)).toBe(1);
     await MessageThread.update({ sellerReadAt: later }, { where: { listingId: a.id } });
     expect(await unreadCount(seller.id)).toBe(0);
+  });
+
+  it("reads the two partial unread indexes (its predicates match theirs)", async () => {
+    const plan = await sequelize.transaction(async (transaction) => {
+      // Forbid the table scan a near-empty table would get anyway, so the plan shows which index fits.
+      await sequelize.query("SET LOCAL enable_seqscan = off", { transaction });
+      const [rows] = await sequelize.query(`EXPLAIN (FORMAT JSON) ${UNREAD_COUNT_SQL}`, { bind: [ada.id], transaction });
+      return JSON.stringify(rows);
+    });
+    expect(plan).toContain("message_threads_buyer_unread_idx");
+    expect(plan).toContain("message_threads_seller_unread_idx");
   });
 });

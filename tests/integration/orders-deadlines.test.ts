@@ -42,7 +42,7 @@ describe("the handling time", () => {
     const cancelled = await Order.findByPk(order.id, { rejectOnEmpty: true });
     expect(cancelled.state).toBe("cancelled");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: 50_500, n: 1 },
+      { orderId: order.id, amountMinor: 50_500, refundNo: 1 },
     ]);
     expect((await Listing.findByPk(c.listing.id))?.status).toBe("withdrawn");
     const cancelEvent = await lastEventId(order.id);

@@ -41,8 +41,8 @@ async function provider(w: World) {
     void job;
   }
   for (const job of await jobsFor(QUEUES.orderRefund, w.orderId)) {
-    const { amountMinor, n } = job.data as { amountMinor: number; n: number };
-    for (let i = 0; i < 2; i++) await t.markRefunded(w.orderId, { refundId: `re_${w.orderId}_${n}`, amountMinor }, w.clock);
+    const { amountMinor, refundNo } = job.data as { amountMinor: number; refundNo: number };
+    for (let i = 0; i < 2; i++) await t.markRefunded(w.orderId, { refundId: `re_${w.orderId}_${refundNo}`, amountMinor }, w.clock);
   }
 }
 
@@ -147,9 +147,13 @@ describe("worked examples", () => {
     const resolved = await t.resolveContest(order.id, c.moderator.id, { refundMinor: 15_150, note: "Power 30 % under the sheet." }, clock);
     expect(resolved.state).toBe("refunded");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: 15_150, n: 1 },
+      { orderId: order.id, amountMinor: 15_150, refundNo: 1 },
     ]);
     expect((await jobsFor(QUEUES.orderRelease, order.id)).map((j) => j.data)).toEqual([{ orderId: order.id, amountMinor: 32_522 }]);
+    // The jobs are what PAYMENTS' handlers read.
+    const { OrderRefundJob, OrderReleaseJob } = await import("~/payments/jobs.server");
+    for (const job of await jobsFor(QUEUES.orderRefund, order.id)) expect(OrderRefundJob.parse(job.data)).toEqual(job.data);
+    for (const job of await jobsFor(QUEUES.orderRelease, order.id)) expect(OrderReleaseJob.parse(job.data)).toEqual(job.data);
     await t.markRefunded(order.id, { refundId: "re_part", amountMinor: 15_150 }, clock);
     await t.markReleased(order.id, { transferId: "tr_part" }, clock);
     expect(await balancesFor(order.id)).toEqual({

@@ -101,6 +101,18 @@ describe("the reservation", () => {
   });
 });
 
+describe("a reserved listing", () => {
+  it("cannot be edited or withdrawn by its seller while a buyer holds it", async () => {
+    const clock = testClock();
+    const c = await cast();
+    await reserve(c, clock);
+    const { saveItem, withdrawListing } = await import("~/listings/drafts.server");
+    expect(await refusalOf(() => saveItem(c.listing.id, c.seller.id, { priceMinor: 99_000 }))).toBe("conflict");
+    expect(await refusalOf(() => withdrawListing(c.listing.id, c.seller.id))).toBe("conflict");
+    expect(await Listing.findByPk(c.listing.id)).toMatchObject({ status: "reserved", priceMinor: 48_000 });
+  });
+});
+
 describe("an accepted offer", () => {
   async function acceptedOffer(
     c: { listing: { id: string }; buyer: { id: string }; seller: { id: string } },
@@ -204,7 +216,7 @@ describe("the lapse", () => {
     const late = await fund(order, clock);
     expect(late.state).toBe("cancelled");
     expect((await jobsFor(QUEUES.orderRefund, order.id)).map((j) => j.data)).toEqual([
-      { orderId: order.id, amountMinor: order.totalMinor, n: 1 },
+      { orderId: order.id, amountMinor: order.totalMinor, refundNo: 1 },
     ]);
     expect(await ledgerCheck(order.id)).toEqual({ total: 0, unbalanced: 0 });
     expect((await Listing.findByPk(c.listing.id))?.status).toBe("reserved");

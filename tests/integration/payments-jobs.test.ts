@@ -67,9 +67,14 @@ describe("payments provider calls and jobs", () => {
     ]);
     // The session outlives the 30-minute reservation by the provider's minimum, never less.
     expect(session.expires_at).toBe(Math.floor(order.createdAt.getTime() / 1000) + 31 * 60);
-    // The same order again: the key returns the same session.
-    const again = await createCheckout(order, { successUrl: "http://127.0.0.1:3000/purchases/x", cancelUrl: "http://127.0.0.1:3000/" });
-    expect(again.id).toBe(sessionId);
+    // The same order again (its session id not yet saved, as after a crash): the key returns the same session.
+    const urls = { successUrl: "http://127.0.0.1:3000/purchases/x", cancelUrl: "http://127.0.0.1:3000/" };
+    expect((await createCheckout(order, urls)).id).toBe(sessionId);
+    // Saved and still open: the buyer is sent back to the same page; once it has closed, refused.
+    const saved = (await Order.findByPk(order.id))!;
+    expect(await createCheckout(saved, urls)).toEqual({ id: sessionId, url: session.url });
+    await world.stripe.checkout.sessions.expire(sessionId);
+    await expect(createCheckout(saved, urls)).rejects.toMatchObject({ code: "order_state" });
     expect(idempotencyKey.checkout(order.id)).toBe(`order:${order.id}:checkout`);
   });
 

@@ -33,8 +33,8 @@ async function run(fn: () => Promise<unknown>): Promise<Outcome> {
 }
 
 describe("demo sellers", () => {
-  it("are connected by the seed at the stand-in, the other demo sellers are not", async () => {
-    for (const email of ["workshop@loadline.test", "seller@loadline.test"]) {
+  it("are connected by the seed at the stand-in, all but one private seller", async () => {
+    for (const email of ["workshop@loadline.test", "valves@loadline.test", "platters@loadline.test", "seller@loadline.test"]) {
       const user = await User.findOne({ where: { email }, rejectOnEmpty: true });
       expect(user.payoutsEnabled, email).toBe(true);
       expect(accountCanBePaid(await payments().accounts.retrieve(user.payoutAccountId ?? ""))).toBe(true);
