@@ -154,3 +154,47 @@ describe("accepting with the buyer's own figures", () => {
     expect(await OrderRemeasurement.findByPk(a.order.id)).toBeNull();
   });
 });
+
+describe("through the purchase page's action (?intent=…)", () => {
+  const BASE = "http://127.0.0.1";
+  // The page uses the system clock (app/buying/clock.server.ts); the test orders' windows are still open then.
+  async function act(orderId: string, intent: string, body: FormData, who: { id: string }) {
+    const { routeArgs, isData } = await import("../support/route-args");
+    const { signedInCookie } = await import("../support/sessions");
+    const purchase = await import("~/routes/buying/purchase");
+    const request = new Request(`${BASE}/purchases/${orderId}?intent=${intent}`, {
+      method: "POST",
+      body,
+      headers: { Origin: BASE, Cookie: await signedInCookie(who) },
+    });
+    try {
+      const out = await purchase.action(routeArgs(request, { orderId }));
+      if (out instanceof Response) return { status: out.status, body: null };
+      if (isData(out)) return { status: out.init?.status ?? 200, body: out.data as { audition?: { errors: Record<string, string> } } };
+      return { status: 200, body: null };
+    } catch (thrown) {
+      if (thrown instanceof Response) return { status: thrown.status, body: null };
+      if (isData(thrown)) return { status: thrown.init?.status ?? 500, body: null };
+      throw thrown;
+    }
+  }
+
+  it("a contest posts multipart and redirects; a missing reason comes back beside its field; someone else's order is a 404", async () => {
+    const { c, order } = await auditionWithSheet();
+    const bad = new FormData();
+    bad.append("note", "It hums loudly from the left speaker.");
+    const refused = await act(order.id, "contest", bad, c.buyer);
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body?.audition?.errors ?? {})).toEqual(["reason"]);
+    const stranger = await act(order.id, "contest", bad, c.stranger);
+    expect(stranger.status).toBe(404);
+    const good = new FormData();
+    good.append("reason", "fault");
+    good.append("note", "It hums loudly from the left speaker.");
+    good.append("photos", new File([new Uint8Array(await twoToneJpeg(32, 32))], "hum.jpg", { type: "image/jpeg" }));
+    const done = await act(order.id, "contest", good, c.buyer);
+    expect(done.status).toBe(302);
+    const contest = await OrderContest.findByPk(order.id, { rejectOnEmpty: true });
+    expect(contest.photoKeys).toHaveLength(1);
+  });
+});
