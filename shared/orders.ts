@@ -66,10 +66,20 @@ export interface OrderStepView {
   transferId?: string | null;
 }
 
+/** "2 Dec 2026, 14:05": the one way the site writes a moment (UTC), as the order pages' timeline does. */
+export const ORDER_TIME_FORMAT = new Intl.DateTimeFormat("en-GB", {
+  day: "numeric",
+  month: "short",
+  year: "numeric",
+  hour: "2-digit",
+  minute: "2-digit",
+  timeZone: "UTC",
+});
+
 function when(value: Date | string | null | undefined): string {
   if (!value) return "";
   const d = typeof value === "string" ? new Date(value) : value;
-  return ` by ${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+  return ` by ${ORDER_TIME_FORMAT.format(d)} UTC`;
 }
 
 /** The order's next step and who owes it, worded for the one looking. */

@@ -96,7 +96,7 @@ export function DeskOrderPage({
           <Timeline events={view.events} />
         </div>
         <aside className="space-y-5" aria-label="Money and delivery">
-          <MoneyPanel money={view.money} viewer="moderator" />
+          <MoneyPanel money={view.money} viewer="moderator" state={view.state} />
           <DeliveryPanel order={view} />
         </aside>
       </div>

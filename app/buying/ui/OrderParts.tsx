@@ -3,6 +3,7 @@ import { Badge, type Tone } from "~/components/Badge";
 import { Card } from "~/components/Card";
 import { Price } from "~/components/Price";
 import { cx } from "~/components/cx";
+import { ORDER_TIME_FORMAT } from "@shared/orders";
 import type { OrderDetailView, OrderEventView, OrderMoneyView, OrderSummaryView, OrderViewer } from "../order-view";
 import { Minus, Money } from "./Money";
 
@@ -31,14 +32,10 @@ export function StateBadge({ state, label }: { state: string; label: string }) {
   );
 }
 
-const when = new Intl.DateTimeFormat("en-GB", {
-  day: "numeric",
-  month: "short",
-  year: "numeric",
-  hour: "2-digit",
-  minute: "2-digit",
-  timeZone: "UTC",
-});
+const when = ORDER_TIME_FORMAT;
+
+/** States in which the buyer's money has not (or never) reached escrow. */
+const UNPAID_STATES: readonly string[] = ["reserved", "cancelled"];
 
 /** "2 Dec 2026, 14:05 UTC" in the figures face, with a machine-readable datetime. */
 export function When({ iso, className }: { iso: string; className?: string }) {
@@ -69,7 +66,9 @@ export function NextStep({ next }: { next: OrderSummaryView["next"] }) {
   );
 }
 
-export function MoneyPanel({ money, viewer }: { money: OrderMoneyView; viewer: OrderViewer }) {
+export function MoneyPanel({ money, viewer, state }: { money: OrderMoneyView; viewer: OrderViewer; state: string }) {
+  // Before the provider has confirmed the payment nothing has been paid: the total is what is owed.
+  const paid = !UNPAID_STATES.includes(state);
   const c = money.currency;
   const row = "flex items-baseline justify-between gap-4 py-1.5";
   return (
@@ -91,9 +90,9 @@ export function MoneyPanel({ money, viewer }: { money: OrderMoneyView; viewer: O
           </dd>
         </div>
         <div className={cx(row, "font-semibold")}>
-          <dt>{viewer === "buyer" ? "You paid" : "Buyer paid"}</dt>
+          <dt>{paid ? (viewer === "buyer" ? "You paid" : "Buyer paid") : viewer === "buyer" ? "To pay" : "Buyer to pay"}</dt>
           <dd className="text-right">
-            <Price minor={money.totalMinor} currency={c} approxClassName="block text-xs font-normal" />
+            <Price minor={money.totalMinor} currency={c} layout="stacked" />
           </dd>
         </div>
         {money.refundedMinor > 0 ? (

@@ -32,7 +32,7 @@ export function PurchasePage({
           <Timeline events={order.events} />
         </div>
         <aside className="space-y-5" aria-label="Money and delivery">
-          <MoneyPanel money={order.money} viewer="buyer" />
+          <MoneyPanel money={order.money} viewer="buyer" state={order.state} />
           <DeliveryPanel order={order} />
         </aside>
       </div>

@@ -34,7 +34,7 @@ export function SalePage({ order, result }: { order: OrderDetailView; result: Or
           <Timeline events={order.events} />
         </div>
         <aside className="space-y-5" aria-label="Money and delivery">
-          <MoneyPanel money={order.money} viewer="seller" />
+          <MoneyPanel money={order.money} viewer="seller" state={order.state} />
           <DeliveryPanel order={order} />
         </aside>
       </div>
