@@ -1,3 +1,4 @@
+import { eventNote } from "./event-notes";
 import { SHIPPING_METHOD_LABELS, SHIPPING_ZONE_LABELS, TWO_PERSON_LIFT_G, formatWeight, listingTitle } from "@shared/catalogue";
 import { ORDER_STATE_LABELS, nextStep, type ActorKind, type OrderState, type OwedBy } from "@shared/orders";
 import { isOneOf } from "@shared/one-of";
@@ -111,7 +112,7 @@ function eventView(e: OrderEvent, viewer: OrderViewer, moderatorNames: Map<strin
     toState: e.toState,
     label: e.fromState === null ? "Reserved for checkout" : stateLabel(e.toState),
     actor: actor.charAt(0).toUpperCase() + actor.slice(1),
-    note: e.note,
+    note: eventNote(e, viewer),
     at: e.at.toISOString(),
   };
 }

@@ -1,3 +1,4 @@
+import { formatPrice } from "@shared/money";
 import { UniqueConstraintError } from "sequelize";
 import { sequelize } from "~/db.server";
 import { refusal } from "~/http/errors.server";
@@ -420,7 +421,7 @@ export function markRefunded(
     await order.save({ transaction: tx });
     await move(order, "refund", "escrow", "buyer", amountMinor, { providerRef: refundId, at: now, transaction: tx });
     await recordEvent(order, order.state, provider, {
-      note: `Refunded ${amountMinor} to the buyer (${refundId}).`,
+      note: `Refunded ${formatPrice(amountMinor, order.currency)} to the buyer (${refundId}).`,
       mail: ["buyer"],
       now,
       tx,

@@ -175,7 +175,10 @@ describe("buying in the browser", () => {
 
     const moderator = await signedIn(DEMO.moderator);
     await moderator.goto("/desk");
-    await Promise.all([moderator.waitForURL(`**/desk/orders/${orderId}`), moderator.getByRole("link", { name: unit.title }).click()]);
+    // The desk lists the contested order and links to its screen.
+    const deskLink = moderator.locator(`a[href="/desk/orders/${orderId}"]`);
+    expect(await deskLink.innerText()).toContain(unit.title);
+    await moderator.goto(`/desk/orders/${orderId}`);
     await moderator.locator('[data-outcome="outside"]').first().waitFor();
     await shots(moderator, "desk-contested");
     await moderator.getByLabel("Refund the buyer in part").check();
