@@ -132,7 +132,10 @@ export function after(spec: SortSpec, values: string[], b: Binds): string {
   return `(${left}) ${spec.desc ? "<" : ">"} (${right})`;
 }
 
-/** The keys selected as exact text, so a cursor repeats them without any rounding. */
-export function keySelect(spec: SortSpec): string {
-  return spec.keys.map((k, i) => `(${k.expr})::text AS k${i}`).join(", ");
+/**
+ * The keys selected as exact text, so a cursor repeats them without any rounding: from their expressions,
+ * or from the columns `o0, o1 …` of a subquery aliased `from` that computed them already.
+ */
+export function keySelect(spec: SortSpec, from?: string): string {
+  return spec.keys.map((k, i) => `(${from ? `${from}.o${i}` : k.expr})::text AS k${i}`).join(", ");
 }

@@ -67,12 +67,13 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
     );
   const limit = clampLimit(opts.limit);
   const offset = !cursor && opts.page && opts.page > 1 ? ` OFFSET ${b.add((opts.page - 1) * limit, "::int")}` : "";
-  // One row more than the page shows: it says whether there is a next page. The keys come twice: as
-  // exact text for the cursor, and as they are for putting the joined rows back in order.
+  // One row more than the page shows: it says whether there is a next page. Each key is computed once
+  // per candidate row (a rank is the costly one), then outside the page as exact text for the cursor and
+  // as it is for putting the joined rows back in order.
   const ordered = spec.keys.map((k, i) => `${k.expr} AS o${i}`).join(", ");
-  const page = `SELECT l.id, ${keySelect(spec)}, ${ordered} FROM listings l WHERE ${where.join(" AND ")} ORDER BY ${orderBy(spec)} LIMIT ${b.add(limit + 1, "::int")}${offset}`;
+  const page = `SELECT l.id, ${ordered} FROM listings l WHERE ${where.join(" AND ")} ORDER BY ${orderBy(spec)} LIMIT ${b.add(limit + 1, "::int")}${offset}`;
   const reorder = spec.keys.map((_, i) => `p.o${i} ${spec.desc ? "DESC" : "ASC"}`).join(", ");
-  const sql = `SELECT p.id, ${spec.keys.map((_, i) => `p.k${i}`).join(", ")}, ${CARD_COLUMNS} FROM (${page}) p ${CARD_JOINS} ORDER BY ${reorder}`;
+  const sql = `SELECT p.id, ${keySelect(spec, "p")}, ${CARD_COLUMNS} FROM (${page}) p ${CARD_JOINS} ORDER BY ${reorder}`;
   return { sql, bind: b.values };
 }
 

@@ -1,6 +1,7 @@
 // Search at scale: five representative filter combinations through `GET /api/v1/listings` on the
 // served app, the server's own time (its Server-Timing header) and the wall time, against the very
 // same SQL (`searchQuery`) run directly; and each query's plan, to show which indexes carry it.
+import os from "node:os";
 import pg from "pg";
 import { countsQuery, DEFAULT_LIMIT, searchQuery } from "~/catalogue/search.server";
 import { parseMarketFilters } from "@shared/market-filters";
@@ -94,6 +95,13 @@ const apiFigure = (what: string, api: ApiTimes): Figure => ({
 
 export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]; notes: string[] }> {
   const figures: Figure[] = [];
+  // Load inflates wall time on a shared machine more than plans and buffers: say what it was.
+  const load = () =>
+    os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(" / ");
+  const notes = [`search: load average (1 / 5 / 15 min) at the start ${load()}`];
   const db = new pg.Client({ connectionString: app.databaseUrl });
   await db.connect();
   try {
@@ -135,5 +143,6 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
   } finally {
     await db.end();
   }
-  return { figures, notes: [] };
+  notes.push(`search: load average at the end ${load()} (2 cores)`);
+  return { figures, notes };
 }
