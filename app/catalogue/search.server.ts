@@ -18,12 +18,14 @@ import {
   after,
   conditions,
   dimensionSql,
+  euroBoundsQuery,
   hasFigure,
   keySelect,
   orderBy,
   sortSpec,
   whereOf,
   type Dimension,
+  type EuroBounds,
 } from "./search-sql.server";
 import { CARD_COLUMNS, CARD_JOINS, summariesFromRows, type CardRow } from "./card-rows.server";
 
@@ -41,6 +43,16 @@ export interface SearchOptions {
   limit?: number;
   /** The HTML page's number (from 1); ignored with a cursor. */
   page?: number;
+  /** The price bounds in euros, from `euroBounds` (else the SQL converts them). */
+  euro?: EuroBounds;
+}
+
+/** The price filter's bounds in euro cents, converted once by the database; undefined without a price filter. */
+export async function euroBounds(filters: MarketFilters): Promise<EuroBounds | undefined> {
+  const q = euroBoundsQuery(filters);
+  if (!q) return undefined;
+  const [row] = await sequelize.query<EuroBounds>(q.sql, { bind: q.bind, type: QueryTypes.SELECT });
+  return row;
 }
 
 /**
@@ -51,7 +63,7 @@ export interface SearchOptions {
 export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): { sql: string; bind: unknown[] } {
   const b = new Binds();
   const spec = sortSpec(filters, b);
-  const where = [whereOf(conditions(filters, b))];
+  const where = [whereOf(conditions(filters, b, opts.euro))];
   const cursor = opts.cursor ?? null;
   if (cursor)
     where.push(
@@ -79,7 +91,7 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
 
 /** One page of live listings for the filters, with the total and the counts (kept between pages; see cachedCounts). */
 export async function searchListings(filters: MarketFilters, opts: SearchOptions = {}): Promise<ListingsPage> {
-  const { sql, bind } = searchQuery(filters, opts);
+  const { sql, bind } = searchQuery(filters, { ...opts, euro: await euroBounds(filters) });
   const limit = clampLimit(opts.limit);
   const [rows, counted] = await Promise.all([
     sequelize.query<CardRow & Record<string, string>>(sql, { bind, type: QueryTypes.SELECT }),
@@ -192,9 +204,9 @@ export async function settleCounts(): Promise<void> {
 // One pass over the rows the common filters leave: each active dimension becomes a boolean column, and
 // each count is the rows where every other dimension holds.
 /** The SQL behind `filterCounts` (one row: "total" and one column per count), for `npm run bench` too. */
-export function countsQuery(filters: MarketFilters): { sql: string; bind: unknown[] } {
+export function countsQuery(filters: MarketFilters, euro?: EuroBounds): { sql: string; bind: unknown[] } {
   const b = new Binds();
-  const c = conditions(filters, b);
+  const c = conditions(filters, b, euro);
   const dims = [...c.dims.keys()];
   const flag = (d: Dimension) => `d${dims.indexOf(d)}`;
   const others = (leaveOut?: Dimension) => dims.filter((d) => d !== leaveOut).map(flag);
@@ -231,7 +243,7 @@ export function countsQuery(filters: MarketFilters): { sql: string; bind: unknow
 }
 
 async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
-  const { sql, bind } = countsQuery(filters);
+  const { sql, bind } = countsQuery(filters, await euroBounds(filters));
   const [row] = await sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT });
   const n = (name: string) => Number(row?.[name] ?? 0);
   const pick = <T extends string>(prefix: string, list: readonly T[]) =>

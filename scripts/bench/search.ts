@@ -4,6 +4,7 @@
 import os from "node:os";
 import pg from "pg";
 import { countsQuery, DEFAULT_LIMIT, searchQuery } from "~/catalogue/search.server";
+import { euroBoundsQuery, type EuroBounds } from "~/catalogue/search-sql.server";
 import { parseMarketFilters } from "@shared/market-filters";
 import { ms, pct, type Figure, type ServedApp } from "./served-app";
 
@@ -37,10 +38,13 @@ const SLOW_RUNS = 30;
 const WARM_UP = 5;
 
 /** The SQL the API runs for a query string: the page (searchQuery, at the API's page size) and the counts. */
-function sqlOf(params: URLSearchParams) {
+async function sqlOf(db: pg.Client, params: URLSearchParams) {
   const { filters, issues } = parseMarketFilters(params, { strict: true });
   if (issues.length) throw new Error(`the bench's own filters do not parse: ${JSON.stringify(issues)}`);
-  return { page: searchQuery(filters, { cursor: null, limit: DEFAULT_LIMIT }), counts: countsQuery(filters) };
+  // The price bounds in euros, converted first as the API does (that round trip is not timed here).
+  const bounds = euroBoundsQuery(filters);
+  const euro = bounds ? (await db.query<EuroBounds>(bounds.sql, bounds.bind)).rows[0] : undefined;
+  return { page: searchQuery(filters, { cursor: null, limit: DEFAULT_LIMIT, euro }), counts: countsQuery(filters, euro) };
 }
 
 async function explain(db: pg.Client, q: { sql: string; bind: unknown[] }): Promise<string> {
@@ -114,7 +118,7 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
       // recounted in the background at most every 15 s), then with the market still.
       const fresh = await timedApi(url, SLOW_RUNS, () => db.query(`SELECT nextval('market_epoch')`));
       const kept = await timedApi(url, RUNS);
-      const q = sqlOf(params);
+      const q = await sqlOf(db, params);
       const page = await timedSql(db, q.page, RUNS);
       const counts = await timedSql(db, q.counts, SLOW_RUNS);
       const pagePlan = await explain(db, q.page);
