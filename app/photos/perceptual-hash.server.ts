@@ -1,14 +1,14 @@
 import { shrink, type Bitmap } from "./pixels.server";
 
 // The copied-photo check's fingerprint: a 64-bit DCT hash. The picture is squeezed to 32 × 32 grey
-// levels (area average), transformed with the orthonormal 2-D DCT-II, and the 8 × 8 block of the
-// lowest frequencies next to the DC term — rows and columns 1…8, so the DC term (overall brightness)
-// is left out — becomes 64 bits: 1 where a coefficient is above the block's median. Small edits
-// (another size, heavier compression, a light crop, brighter) move few bits; another photo about
-// half of them. Measurements and the threshold: docs/decisions/0023.
+// levels (area average), transformed with the orthonormal 2-D DCT-II, and the top-left 8 × 8 block of
+// the lowest frequencies becomes the bits: the DC term (overall brightness) is left out and stays a
+// 0 bit, each of the other 63 is 1 where its coefficient is above their median. Small edits (another
+// size, heavier compression, a light crop, brighter) move few bits; another photo about half of them.
+// Measurements and the threshold: docs/decisions/0023.
 
 export const HASH_SIDE = 32;
-/** Rows and columns of the DCT kept for the hash, from index 1 (the DC term's row and column are 0). */
+/** Rows and columns of the DCT the hash reads (the lowest frequencies, DC term at 0, 0). */
 const BLOCK = 8;
 
 /**
@@ -73,21 +73,20 @@ export function greyThumbnail(image: Bitmap): Float64Array {
   return out;
 }
 
-/** The 64 coefficients the hash thresholds: rows and columns 1…8 of the 2-D DCT, row-major. */
+/** The top-left 8 × 8 block of the grey picture's 2-D DCT, row-major (index 0 is the DC term). */
 export function hashCoefficients(image: Bitmap): Float64Array {
-  const all = dct2d(greyThumbnail(image), HASH_SIDE, BLOCK + 1);
-  const out = new Float64Array(BLOCK * BLOCK);
-  for (let u = 0; u < BLOCK; u++) for (let v = 0; v < BLOCK; v++) out[u * BLOCK + v] = all[(u + 1) * (BLOCK + 1) + v + 1];
-  return out;
+  return dct2d(greyThumbnail(image), HASH_SIDE, BLOCK);
 }
 
-/** Bits from coefficients: 1 above the median, first coefficient in the highest bit; 16 hex digits. */
-export function bitsAboveMedian(coefficients: Float64Array): string {
-  if (coefficients.length !== 64) throw new Error("bitsAboveMedian: expected 64 coefficients");
-  const sorted = Float64Array.from(coefficients).sort();
-  const median = (sorted[31] + sorted[32]) / 2;
+/**
+ * Bits from the 8 × 8 block, first coefficient in the highest bit: the DC term's bit is always 0, each
+ * other bit 1 when its coefficient is above the median of the 63 (so 31 ones); 16 hex digits.
+ */
+export function bitsAboveMedian(block: Float64Array): string {
+  if (block.length !== 64) throw new Error("bitsAboveMedian: expected 64 coefficients");
+  const median = Float64Array.from(block.subarray(1)).sort()[31];
   let bits = 0n;
-  for (const c of coefficients) bits = (bits << 1n) | (c > median ? 1n : 0n);
+  for (let i = 0; i < 64; i++) bits = (bits << 1n) | (i > 0 && block[i] > median ? 1n : 0n);
   return bits.toString(16).padStart(16, "0");
 }
 

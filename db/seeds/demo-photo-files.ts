@@ -12,7 +12,7 @@ import { drawUnit } from "./demo-photos";
 // The demo's photo files: drawn once, encoded as the photo pipeline would store them, and kept in a
 // git-ignored cache so a fresh test database seeds in seconds. Bump GENERATION when the drawing changes.
 
-const GENERATION = 7;
+const GENERATION = 8;
 const here = path.dirname(fileURLToPath(import.meta.url));
 const CACHE = path.resolve(here, "../../.local/cache/demo-photos", `g${GENERATION}`);
 

@@ -92,30 +92,32 @@ describe("the orthonormal 2-D DCT-II", () => {
 });
 
 describe("the 64-bit hash", () => {
-  it("sets the bits above the block's median, first coefficient first", () => {
-    const coefficients = Float64Array.from({ length: 64 }, (_, i) => (i % 2 === 0 ? 10 + i : -i));
-    expect(bitsAboveMedian(coefficients)).toBe("aaaaaaaaaaaaaaaa");
-    // A ramp: the upper 32 of 64 values are above the median, 31.5.
-    expect(bitsAboveMedian(Float64Array.from({ length: 64 }, (_, i) => i))).toBe("00000000ffffffff");
+  it("sets the bits above the median of the 63 terms after the DC term, first coefficient first, the DC bit always 0", () => {
+    // The DC term (index 0) is huge and must neither set its bit nor move the median.
+    const alternating = Float64Array.from({ length: 64 }, (_, i) => (i === 0 ? 1e6 : i % 2 === 0 ? 10 + i : -i));
+    expect(bitsAboveMedian(alternating)).toBe("2aaaaaaaaaaaaaaa");
+    // A ramp 1…63 after the DC term: the median is 32, so terms 33…63 (31 of them) are 1.
+    expect(bitsAboveMedian(Float64Array.from({ length: 64 }, (_, i) => (i === 0 ? -1e6 : i)))).toBe("000000007fffffff");
   });
 
-  it("reads rows and columns 1…8 of the DCT of the grey picture, row-major, with the DC term left out", () => {
+  it("reads the top-left 8 × 8 block of the DCT of the grey picture, row-major, with the DC term left out", () => {
     // A picture built from basis images: +20 at the wanted bits' frequencies, −20 at the others, so
     // the hash must spell the wanted bits exactly (rounding to 8-bit levels moves coefficients by
-    // about 0.3). Not symmetric, so swapping rows and columns would show.
-    const wanted = 0xd3a5_19f0_6c2e_b847n;
+    // about 0.3). Not symmetric, so swapping rows and columns would show. 31 ones besides the DC bit.
+    const wanted = 0x53a5_19f0_6c2e_b847n;
     const picture = grid((y, x) => {
       let value = 128 + 40; // the DC term: brightness only, which the hash must not read
       for (let u = 0; u < 8; u++) {
         for (let v = 0; v < 8; v++) {
+          if (u === 0 && v === 0) continue;
           const bit = (wanted >> BigInt(63 - (u * 8 + v))) & 1n;
-          value += (bit ? 20 : -20) * s(u + 1) * cosine(u + 1, y) * s(v + 1) * cosine(v + 1, x);
+          value += (bit ? 20 : -20) * s(u) * cosine(u, y) * s(v) * cosine(v, x);
         }
       }
       return value;
     });
     expect(dctHash(greyBitmap(picture, N, N))).toBe(wanted.toString(16));
-    // Brighter overall (the DC term) changes nothing.
+    // Darker overall (the DC term) changes nothing.
     expect(
       dctHash(
         greyBitmap(
