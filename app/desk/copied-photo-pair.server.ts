@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { idSchema } from "@shared/ids";
-import { LISTING_STATUS_LABELS } from "@shared/catalogue";
+import { LISTING_STATUS_LABELS, type ListingStatus } from "@shared/catalogue";
 import { ListingPhoto, Listing, User } from "~/models/index.server";
 import { mediaUrl } from "~/catalogue/media-url";
 import type { CopiedPhotoPairData, PairSide } from "./ui/CopiedPhotoPair";
@@ -34,7 +34,7 @@ async function side(photoId: string): Promise<PairSide | null> {
     imageUrl: key ? mediaUrl(key) : null,
     listingId: listing.id,
     listingTitle: [listing.maker, listing.model].filter(Boolean).join(" ") || "Untitled unit",
-    listingStatus: LISTING_STATUS_LABELS[listing.status] ?? listing.status,
+    listingStatus: LISTING_STATUS_LABELS[listing.status as ListingStatus], // CreationOptional hides the union from indexing
     publishedAt: listing.publishedAt?.toISOString() ?? null,
     sellerId: listing.sellerId,
     sellerName: listing.seller?.displayName ?? "unknown seller",

@@ -2,7 +2,7 @@ import { QueryTypes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { raiseFlag } from "~/desk/flags.server";
 import { Listing } from "~/models/index.server";
-import { PHOTO_MATCH_MAX_DISTANCE } from "./perceptual-hash.server";
+import { PHASH_SCHEME, PHOTO_MATCH_MAX_DISTANCE } from "./perceptual-hash.server";
 
 // The copied-photo check: a listing's photo whose hash is within the match distance of a photo on
 // ANOTHER seller's listing that buyers have seen holds the listing for the review desk and raises a
@@ -34,14 +34,22 @@ export async function copiedPhotoMatches(
             bit_count(('x' || p.phash)::bit(64) # ('x' || q.phash)::bit(64))::int AS distance
        FROM listing_photos p
        JOIN listing_photos q ON q.listing_id <> p.listing_id AND q.status = 'ready' AND q.phash IS NOT NULL
+                            AND q.phash_scheme = :scheme
        JOIN listings other ON other.id = q.listing_id
-      WHERE p.listing_id = :listingId AND p.status = 'ready' AND p.phash IS NOT NULL
+      WHERE p.listing_id = :listingId AND p.status = 'ready' AND p.phash IS NOT NULL AND p.phash_scheme = :scheme
         ${opts.photoIds ? "AND p.id IN (:photoIds)" : ""}
         AND other.seller_id <> :sellerId AND other.status IN (:seen)
         AND bit_count(('x' || p.phash)::bit(64) # ('x' || q.phash)::bit(64)) <= :max
       ORDER BY p.id, distance, q.created_at, q.id`,
     {
-      replacements: { listingId, sellerId, photoIds: opts.photoIds ?? [], seen: SEEN_STATUSES, max: PHOTO_MATCH_MAX_DISTANCE },
+      replacements: {
+        listingId,
+        sellerId,
+        photoIds: opts.photoIds ?? [],
+        seen: SEEN_STATUSES,
+        max: PHOTO_MATCH_MAX_DISTANCE,
+        scheme: PHASH_SCHEME,
+      },
       type: QueryTypes.SELECT,
       transaction: opts.transaction,
     },

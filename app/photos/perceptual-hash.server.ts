@@ -8,6 +8,8 @@ import { shrink, type Bitmap } from "./pixels.server";
 // Measurements and the threshold: docs/decisions/0023.
 
 export const HASH_SIDE = 32;
+/** Stored beside each hash (listing_photos.phash_scheme); 1 was the earlier library hash. */
+export const PHASH_SCHEME = 2;
 /** Rows and columns of the DCT the hash reads (the lowest frequencies, DC term at 0, 0). */
 const BLOCK = 8;
 

@@ -6,7 +6,9 @@ import { sequelize } from "~/db.server";
 import { COPIED_PHOTO_HELD_REASON, copiedPhotoMatches, holdLiveListingIfCopied } from "~/photos/copied.server";
 import { copiedPhotoPair } from "~/desk/copied-photo-pair.server";
 import { PHOTO_MATCH_MAX_DISTANCE } from "~/photos/perceptual-hash.server";
-import { cleanUp, makeAccount, readyDraft, type Seller } from "./listing-support";
+import { saveBenchSheet } from "~/listings/bench.server";
+import { exampleIntegratedAmplifierSheet } from "@shared/bench";
+import { cleanUp, makeAccount, readyDraft, withOwnCaptures, type Seller } from "./listing-support";
 
 // The copied-photo check on real PostgreSQL: publishing with a photo whose hash is within the match
 // distance of a photo on another seller's listing holds the listing and raises a copied_photo flag.
@@ -28,6 +30,7 @@ async function photoOf(listing: Listing) {
 
 async function draftWithHash(seller: Seller, phash: string) {
   const draft = await readyDraft(seller);
+  await saveBenchSheet(draft.id, seller.user.id, await withOwnCaptures(exampleIntegratedAmplifierSheet(), seller.user.id));
   await ListingPhoto.update({ phash }, { where: { listingId: draft.id } });
   return draft;
 }
@@ -82,7 +85,10 @@ describe("publishing with a photo that matches another seller's", () => {
     const unseen = await makeAccount("unseen");
     const hidden = await draftWithHash(unseen, "0f0f0f0f0f0f0f0f");
     const held = await draftWithHash(unseen, "f0f0f0f0f0f0f0f0");
-    await Listing.update({ status: "held", publishedAt: new Date() }, { where: { id: held.id } });
+    await Listing.update(
+      { status: "held", heldReason: "Bench check: held in this test.", publishedAt: new Date() },
+      { where: { id: held.id } },
+    );
     const later = await makeAccount("later");
     for (const hash of ["0f0f0f0f0f0f0f0f", "f0f0f0f0f0f0f0f0"]) {
       const draft = await draftWithHash(later, hash);

@@ -26,9 +26,8 @@ export function CopiedPhotoPair({ pair }: { pair: CopiedPhotoPairData }) {
         <Side side={pair.original} heading="Matches a photo on another seller's listing" testId="copied-photo-other" />
       </div>
       <figcaption className="text-sm text-ink-soft">
-        The two photos' fingerprints differ in <span className="figures">{pair.distance}</span> of{" "}
-        <span className="figures">64</span> bits; <span className="figures">0</span> is the same picture, and photos of different units
-        usually differ in about half.
+        The two photos' fingerprints differ in <span className="figures">{pair.distance}</span> of <span className="figures">64</span> bits;{" "}
+        <span className="figures">0</span> is the same picture, and photos of different units usually differ in about half.
       </figcaption>
     </figure>
   );
