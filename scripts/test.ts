@@ -125,6 +125,9 @@ async function dropQueuedJobs(databaseUrl: string) {
   const client = new pg.Client({ connectionString: databaseUrl });
   await client.connect();
   try {
+    // No suite may have started pg-boss yet (a narrowed run): then there is nothing to drop.
+    const { rows } = await client.query<{ t: string | null }>(`SELECT to_regclass('pgboss.job')::text AS t`);
+    if (!rows[0]?.t) return;
     const { rowCount } = await client.query(`DELETE FROM pgboss.job WHERE state < 'completed'`);
     console.log(`[setup] dropped ${rowCount} jobs left queued by the integration suites`);
   } finally {
