@@ -16,6 +16,8 @@ export default [
   route("auth/oauth", "routes/account/oauth-start.tsx"),
   route("auth/oauth/callback", "routes/account/oauth-callback.tsx"),
   route("account", "routes/account/account.tsx"),
+  // Applying as a workshop (the document goes to the private bucket)
+  route("account/workshop", "routes/account/workshop.tsx"),
   route("admin/users", "routes/admin/users.tsx"),
   route("desk", "routes/desk/desk.tsx"),
   // The public listing page (watch is its action)
@@ -76,5 +78,7 @@ export default [
   route("sales", "routes/buying/sales.tsx"),
   route("sales/:orderId", "routes/buying/sale.tsx"),
   route("desk/orders/:orderId", "routes/desk/order.tsx"),
+  // The desk's workshop applications: the item page and the document behind its short-lived signed link
+  route("desk/documents/:id", "routes/desk/document.ts"),
   route("admin/settings", "routes/admin/settings.tsx"),
 ] satisfies RouteConfig;

@@ -9,6 +9,7 @@ import { OrderEvent } from "~/models/order-event.server";
 import { LedgerEntry } from "~/models/ledger-entry.server";
 import { OrderContest } from "~/models/order-contest.server";
 import { MarketplaceSettings } from "~/models/marketplace-settings.server";
+import { WorkshopApplication } from "~/models/workshop-application.server";
 
 // Each model initialises itself on import; this module wires the catalogue's associations.
 // Import catalogue models from here so the associations are always in place.
@@ -44,6 +45,10 @@ wire(Order, "events", () => Order.hasMany(OrderEvent, { foreignKey: "orderId", a
 wire(Order, "ledger", () => Order.hasMany(LedgerEntry, { foreignKey: "orderId", as: "ledger" }));
 wire(Order, "contest", () => Order.hasOne(OrderContest, { foreignKey: "orderId", as: "contest" }));
 
+// Workshop applications: each belongs to its workshop and the account that applied.
+wire(WorkshopApplication, "workshop", () => WorkshopApplication.belongsTo(Workshop, { foreignKey: "workshopId", as: "workshop" }));
+wire(WorkshopApplication, "applicant", () => WorkshopApplication.belongsTo(User, { foreignKey: "applicantId", as: "applicant" }));
+
 export {
   User,
   Workshop,
@@ -56,4 +61,5 @@ export {
   LedgerEntry,
   OrderContest,
   MarketplaceSettings,
+  WorkshopApplication,
 };
