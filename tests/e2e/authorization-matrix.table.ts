@@ -274,6 +274,37 @@ export const MATRIX: Record<string, Entry> = {
       { name: "no such thread", params: () => ({ threadId: randomUUID() }), get: signedIn(404) },
     ],
   },
+  // Reports: any account reports a public listing that is not its own (its seller gets a 403, a listing the
+  // public cannot see is a 404); a conversation only by its two sides. The desk reads a reported
+  // conversation; its action dismisses a report with a note.
+  "/listings/:id/report": {
+    cases: [
+      {
+        params: (f) => ({ id: f.live.id }),
+        get: { anonymous: "sign-in", owner: 403, others: "ok" },
+        post: { body: form({ reason: "", note: "" }), expect: { anonymous: "sign-in", owner: 403, others: 400 } },
+      },
+      { name: "a draft", params: (f) => ({ id: f.draft.id }), get: signedIn(404) },
+    ],
+  },
+  "/messages/:threadId/report": {
+    cases: [
+      {
+        params: (f) => ({ threadId: f.thread.id }),
+        get: { anonymous: "sign-in", buyer: "ok", owner: "ok", others: 404 },
+        post: { body: form({ reason: "", note: "" }), expect: { anonymous: "sign-in", buyer: 400, owner: 400, others: 404 } },
+      },
+    ],
+  },
+  "/desk/threads/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.thread.id }),
+        get: desk,
+        post: { body: form({ flagId: "", note: "" }), expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 } },
+      },
+    ],
+  },
   "/api/v1/threads": {
     cases: [
       {

@@ -46,9 +46,9 @@ async function person(label: string, roles: ("buyer" | "seller" | "moderator")[]
 }
 
 const FIELDS = {
-  businessName: "Tamsworth Bench Repairs",
+  businessName: "Quillmoor Bench Repairs",
   address: "Unit 4, Ferrow Yard\nMill Lane",
-  town: "Tamsworth",
+  town: "Quillmoor",
   region: "Lowfell",
   country: "GB",
   registrationNumber: "TB-40417",
@@ -75,7 +75,7 @@ afterAll(() => sequelize.close());
 describe("applying as a workshop", () => {
   it("keeps the document in the private bucket and writes the workshop with its application", async () => {
     const seller = await person("seller");
-    const result = await submitApplication(applicationRequest({ ...FIELDS, businessName: `Tamsworth Bench ${RUN}` }, pdf), seller.id);
+    const result = await submitApplication(applicationRequest({ ...FIELDS, businessName: `Quillmoor Bench ${RUN}` }, pdf), seller.id);
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     const application = await WorkshopApplication.findByPk(result.application.id, { rejectOnEmpty: true });
     expect(application).toMatchObject({
@@ -91,7 +91,7 @@ describe("applying as a workshop", () => {
     expect(workshop).toMatchObject({
       ownerId: seller.id,
       verificationStatus: "applied",
-      town: "Tamsworth",
+      town: "Quillmoor",
       country: "GB",
       slug: `tamsworth-bench-${RUN}`,
     });
