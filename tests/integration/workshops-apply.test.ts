@@ -93,7 +93,7 @@ describe("applying as a workshop", () => {
       verificationStatus: "applied",
       town: "Quillmoor",
       country: "GB",
-      slug: `tamsworth-bench-${RUN}`,
+      slug: `quillmoor-bench-${RUN}`,
     });
 
     // The private bucket has it, byte for byte; the media bucket does not, and /media refuses the key.

@@ -18,7 +18,7 @@ vi.mock("~/services/mail.server", () => ({
 const { sequelize } = await import("~/db.server");
 const { AuditRecord, User, Workshop, WorkshopApplication } = await import("~/models/index.server");
 const { ensureBucket } = await import("~/services/storage.server");
-const { QUEUES } = await import("~/services/jobs.server");
+const { QUEUES, getBoss } = await import("~/services/jobs.server");
 const { submitApplication, applicationState } = await import("~/workshops/apply.server");
 const { workshopApplicationItems } = await import("~/workshops/desk.server");
 const { deskWorkshopPage, decideFromDesk } = await import("~/workshops/desk-page.server");
@@ -82,6 +82,8 @@ let mossy: InstanceType<typeof User>;
 let wren: InstanceType<typeof User>;
 beforeAll(async () => {
   await ensureBucket();
+  // Started first: on a fresh database pg-boss makes its schema as it starts.
+  await getBoss();
   mossy = await person("moderator", ["buyer", "moderator"]);
   wren = await person("moderator", ["buyer", "moderator"]);
 });
