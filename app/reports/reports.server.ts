@@ -103,8 +103,9 @@ export async function submitReport(
     kind === "listing"
       ? { kind, id: (await reportableListing(reporterId, rawId)).id }
       : { kind, id: (await threadFor(reporterId, rawId)).thread.id };
-  const values = { reason: String(fields.reason ?? "").slice(0, 40), note: String(fields.note ?? "").slice(0, 2 * REPORT_NOTE_MAX) };
-  const parsed = (kind === "listing" ? ListingReportForm : ThreadReportForm).safeParse({ reason: fields.reason ?? "", note: values.note });
+  const text = (v: unknown) => (typeof v === "string" ? v : "");
+  const values = { reason: text(fields.reason).slice(0, 40), note: text(fields.note).slice(0, 2 * REPORT_NOTE_MAX) };
+  const parsed = (kind === "listing" ? ListingReportForm : ThreadReportForm).safeParse({ reason: text(fields.reason), note: values.note });
   if (!parsed.success) {
     const errors: ReportErrors = {};
     for (const i of parsed.error.issues) errors[i.path[0] === "reason" ? "reason" : i.path[0] === "note" ? "note" : "_form"] ??= i.message;

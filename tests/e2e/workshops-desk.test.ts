@@ -20,7 +20,12 @@ import { shots } from "./support/buying";
 
 const PASSWORD = "workshop-desk-e2e-2026";
 let browser: Browser;
-const people: Record<"seller" | "moderator" | "buyer", User> = {} as never;
+const people = new Map<"seller" | "moderator" | "buyer", User>();
+const who = (key: "seller" | "moderator" | "buyer"): User => {
+  const user = people.get(key);
+  if (!user) throw new Error(`no ${key}: beforeAll did not run`);
+  return user;
+};
 
 async function person(label: string, roles: Role[]): Promise<User> {
   return User.create({
@@ -35,9 +40,9 @@ async function person(label: string, roles: Role[]): Promise<User> {
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  people.seller = await person("seller", ["buyer", "seller"]);
-  people.moderator = await person("moderator", ["buyer", "moderator"]);
-  people.buyer = await person("buyer", ["buyer"]);
+  people.set("seller", await person("seller", ["buyer", "seller"]));
+  people.set("moderator", await person("moderator", ["buyer", "moderator"]));
+  people.set("buyer", await person("buyer", ["buyer"]));
 });
 afterAll(async () => {
   await browser?.close();
@@ -53,7 +58,7 @@ describe("workshop applications on the desk", () => {
   it("a seller applies; the moderator opens the document through its signed link, verifies with a note; an expired link is refused", async () => {
     const name = `Ferrowby Amplifier Rooms ${Date.now().toString(36)}`;
     const scan = await plainPng(120, 80, 0x2f5d3aff);
-    const seller = await signedIn(people.seller);
+    const seller = await signedIn(who("seller"));
     await seller.goto("/account/workshop");
     await seller.getByLabel("Business name").fill(name);
     await seller.getByLabel("Street address").fill("Yard 7, Tanners Walk");
@@ -68,11 +73,11 @@ describe("workshop applications on the desk", () => {
     await seller.getByText("Your application is with the review desk.").waitFor();
     await expect(seller.getByTestId("application-status").textContent()).resolves.toContain("Waiting for the desk");
     await shots(seller, "workshop-applied");
-    const workshop = await Workshop.findOne({ where: { ownerId: people.seller.id }, rejectOnEmpty: true });
+    const workshop = await Workshop.findOne({ where: { ownerId: who("seller").id }, rejectOnEmpty: true });
     const application = await WorkshopApplication.findOne({ where: { workshopId: workshop.id }, rejectOnEmpty: true });
 
     // The moderator finds it in the queue and opens its page.
-    const desk = await signedIn(people.moderator);
+    const desk = await signedIn(who("moderator"));
     await desk.goto("/desk?kind=workshop_application");
     await Promise.all([desk.waitForURL(`**/desk/workshops/${workshop.id}`), desk.getByRole("link", { name }).click()]);
     await desk.getByText("FA-220871").waitFor();
@@ -90,7 +95,7 @@ describe("workshop applications on the desk", () => {
 
     // The same kind of link, made six minutes ago, has expired.
     const sixMinutesAgo = testClock(new Date(Date.now() - (DOCUMENT_LINK_SECONDS + 60) * 1000));
-    const stale = signDocumentLink(application.id, people.moderator.id, sixMinutesAgo).href;
+    const stale = signDocumentLink(application.id, who("moderator").id, sixMinutesAgo).href;
     const refused = await desk.goto(stale);
     expect(refused?.status()).toBe(410);
     await desk.getByText(/This link to the document has expired/).waitFor();
@@ -107,7 +112,7 @@ describe("workshop applications on the desk", () => {
     await expect(trail.textContent()).resolves.toContain("Verified the workshop");
     await expect(trail.textContent()).resolves.toContain("Register extract matches the business name and the address.");
     await shots(desk, "desk-workshop-verified");
-    const mail = await waitForMail(people.seller.email, { subject: /^Verified: / });
+    const mail = await waitForMail(who("seller").email, { subject: /^Verified: / });
     expect(mail.text).toContain("Register extract matches the business name and the address.");
     await seller.goto("/account/workshop");
     await expect(seller.getByTestId("application-status").textContent()).resolves.toContain("Verified");
@@ -118,7 +123,7 @@ describe("reports", () => {
   it("a buyer reports a listing and the report is in the desk's queue", async () => {
     // The applicant's own unit, published in 2020 so it sits far below the market's first page.
     const unit = await Listing.create(
-      blankListing(people.seller.id, "integrated_amplifier", {
+      blankListing(who("seller").id, "integrated_amplifier", {
         status: "live",
         maker: "Ferrowby",
         model: `Tallis ${Date.now().toString(36).slice(-4)}`,
@@ -132,7 +137,7 @@ describe("reports", () => {
       }),
     );
     const title = `Ferrowby ${unit.model}`;
-    const buyer = await signedIn(people.buyer);
+    const buyer = await signedIn(who("buyer"));
     await buyer.goto(`/listings/${unit.id}`);
     await Promise.all([
       buyer.waitForURL(`**/listings/${unit.id}/report`),
@@ -145,7 +150,7 @@ describe("reports", () => {
     await buyer.getByTestId("already-reported").waitFor();
     await shots(buyer, "report-sent");
 
-    const desk = await signedIn(people.moderator);
+    const desk = await signedIn(who("moderator"));
     await desk.goto("/desk?kind=report");
     await desk.getByRole("link", { name: title }).first().waitFor();
     await shots(desk, "desk-reports");

@@ -175,7 +175,7 @@ describe("workshop applications on the desk", () => {
   });
 
   it("refuses with a note; the applicant may apply again and the earlier application stays on file", async () => {
-    const { applicant, workshopId, application } = await applied("refuse");
+    const { applicant, workshopId } = await applied("refuse");
     const clock = testClock(new Date());
     await deskWorkshopPage(asViewer(wren), workshopId, clock);
     const done = await decideFromDesk(
