@@ -38,6 +38,12 @@ const EnvSchema = z
       .string()
       .regex(/^[a-z0-9.-]{3,63}$/, "must be a valid bucket name")
       .default("loadline-media"),
+    // Private documents (workshop applications): never served by /media, opened only through the
+    // desk's short-lived signed links.
+    S3_PRIVATE_BUCKET: z
+      .string()
+      .regex(/^[a-z0-9.-]{3,63}$/, "must be a valid bucket name")
+      .default("loadline-private"),
 
     SMTP_URL: z.url().optional(),
     MAIL_FROM: z.string().default("Loadline <no-reply@loadline.test>"),
@@ -100,6 +106,7 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
           accessKeyId: raw.S3_ACCESS_KEY_ID!,
           secretAccessKey: raw.S3_SECRET_ACCESS_KEY!,
           bucket: raw.S3_BUCKET,
+          privateBucket: raw.S3_PRIVATE_BUCKET,
         }
       : {
           mode: "fake" as const,
@@ -108,6 +115,7 @@ function resolve(raw: z.infer<typeof EnvSchema>) {
           accessKeyId: "S3RVER",
           secretAccessKey: "S3RVER",
           bucket: raw.S3_BUCKET,
+          privateBucket: raw.S3_PRIVATE_BUCKET,
           port: raw.FAKE_S3_PORT,
         },
     mail: raw.SMTP_URL

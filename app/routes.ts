@@ -16,10 +16,15 @@ export default [
   route("auth/oauth", "routes/account/oauth-start.tsx"),
   route("auth/oauth/callback", "routes/account/oauth-callback.tsx"),
   route("account", "routes/account/account.tsx"),
+  // Applying as a workshop (the document goes to the private bucket)
+  route("account/workshop", "routes/account/workshop.tsx"),
   route("admin/users", "routes/admin/users.tsx"),
   route("desk", "routes/desk/desk.tsx"),
   // The public listing page (watch is its action)
   route("listings/:id", "routes/listings/listing.tsx"),
+  // Reports to the review desk: a public listing, or a conversation by either of its sides
+  route("listings/:id/report", "routes/listings/report.tsx"),
+  route("messages/:threadId/report", "routes/messages/report.tsx"),
   // Compare: up to four units side by side; its action keeps the visitor's compare list
   route("compare", "routes/compare.tsx"),
   // The buyer's watch list: the page and its API
@@ -76,5 +81,10 @@ export default [
   route("sales", "routes/buying/sales.tsx"),
   route("sales/:orderId", "routes/buying/sale.tsx"),
   route("desk/orders/:orderId", "routes/desk/order.tsx"),
+  // The desk's workshop applications: the item page and the document behind its short-lived signed link
+  route("desk/workshops/:id", "routes/desk/workshop.tsx"),
+  route("desk/documents/:id", "routes/desk/document.ts"),
+  // A reported conversation, read-only for moderators
+  route("desk/threads/:id", "routes/desk/thread.tsx"),
   route("admin/settings", "routes/admin/settings.tsx"),
 ] satisfies RouteConfig;

@@ -45,9 +45,11 @@ export async function startFakes(opts: StartFakesOptions): Promise<RunningFakes>
     const s3Port = s3.mode === "fake" ? s3.port : undefined;
     if (s3Port !== undefined) {
       const dir = path.join(dataDir, "s3");
-      const fake = await guard("object storage", s3Port, () => startS3Fake({ port: s3Port, directory: dir, buckets: [s3.bucket] }));
+      const fake = await guard("object storage", s3Port, () =>
+        startS3Fake({ port: s3Port, directory: dir, buckets: [s3.bucket, s3.privateBucket] }),
+      );
       stops.push(fake.stop);
-      row("Object storage", `${fake.endpoint}  (bucket ${s3.bucket}, files in ${dir})`);
+      row("Object storage", `${fake.endpoint}  (buckets ${s3.bucket} and ${s3.privateBucket}, files in ${dir})`);
     } else row("Object storage", `${s3.endpoint}  (real service)`);
 
     const mail = env.mail;

@@ -51,6 +51,8 @@ export const ERROR_CODES = {
   // A capture that cannot be measured (also a failed capture's `error.error`): the bench's own table
   ...CAPTURE_ERROR_STATUS,
   file_lost: 422,
+  // A signed link past its time (the desk's private documents)
+  link_expired: 410,
   // Ours
   server_error: 500,
   unavailable: 503,
@@ -128,6 +130,7 @@ const STATUS_TEXT: Record<number, string> = {
   409: "Conflict",
   413: "Content Too Large",
   415: "Unsupported Media Type",
+  410: "Gone",
   422: "Unprocessable Content",
 };
 

@@ -12,6 +12,7 @@ import { MarketplaceSettings } from "~/models/marketplace-settings.server";
 import { AuditRecord } from "~/models/audit-record.server";
 import { DeskClaim } from "~/models/desk-claim.server";
 import { DeskFlag } from "~/models/desk-flag.server";
+import { WorkshopApplication } from "~/models/workshop-application.server";
 
 // Each model initialises itself on import; this module wires the catalogue's associations.
 // Import catalogue models from here so the associations are always in place.
@@ -52,6 +53,9 @@ wire(AuditRecord, "actor", () => AuditRecord.belongsTo(User, { foreignKey: "acto
 wire(DeskClaim, "moderator", () => DeskClaim.belongsTo(User, { foreignKey: "moderatorId", as: "moderator" }));
 wire(DeskFlag, "listing", () => DeskFlag.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
 wire(DeskFlag, "reporter", () => DeskFlag.belongsTo(User, { foreignKey: "reporterId", as: "reporter" }));
+// Workshop applications: each belongs to its workshop and the account that applied.
+wire(WorkshopApplication, "workshop", () => WorkshopApplication.belongsTo(Workshop, { foreignKey: "workshopId", as: "workshop" }));
+wire(WorkshopApplication, "applicant", () => WorkshopApplication.belongsTo(User, { foreignKey: "applicantId", as: "applicant" }));
 
 export {
   User,
@@ -68,4 +72,5 @@ export {
   AuditRecord,
   DeskClaim,
   DeskFlag,
+  WorkshopApplication,
 };

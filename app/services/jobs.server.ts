@@ -27,6 +27,8 @@ export const QUEUES = {
   paymentEvent: "payment-event",
   orderRelease: "order-release",
   orderRefund: "order-refund",
+  // The review desk (app/workshops): the applicant's mail about the desk's decision.
+  workshopMail: "workshop-mail",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

@@ -36,7 +36,8 @@ export function createStorageClient(s3: Env["s3"] = env().s3): S3Client {
 }
 
 let client: S3Client | undefined;
-function s3(): S3Client {
+/** The shared client (app/services/private-storage.server.ts uses it for the private bucket). */
+export function s3(): S3Client {
   client ??= createStorageClient();
   return client;
 }
@@ -192,13 +193,18 @@ export async function deleteObjects(keys: string[]): Promise<void> {
   }
 }
 
-/** Creates the bucket when it is missing (the stand-in creates it at start; a real bucket may be pre-made). */
+/**
+ * Creates the media bucket and the private one when missing (the stand-in creates both at start; real
+ * buckets may be pre-made).
+ */
 export async function ensureBucket(): Promise<void> {
-  try {
-    await s3().send(new HeadBucketCommand({ Bucket: bucket() }));
-  } catch (err) {
-    if (!isMissing(err)) throw err;
-    await s3().send(new CreateBucketCommand({ Bucket: bucket() }));
+  for (const name of [bucket(), env().s3.privateBucket]) {
+    try {
+      await s3().send(new HeadBucketCommand({ Bucket: name }));
+    } catch (err) {
+      if (!isMissing(err)) throw err;
+      await s3().send(new CreateBucketCommand({ Bucket: name }));
+    }
   }
 }
 
@@ -206,7 +212,7 @@ export async function ping(): Promise<void> {
   await s3().send(new HeadBucketCommand({ Bucket: bucket() }));
 }
 
-function isMissing(err: unknown): boolean {
+export function isMissing(err: unknown): boolean {
   if (err instanceof NoSuchKey || err instanceof NotFound) return true;
   return err instanceof S3ServiceException && (err.$metadata.httpStatusCode === 404 || err.name === "NoSuchBucket");
 }

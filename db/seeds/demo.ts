@@ -12,6 +12,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES
 import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 import { seedDemoPayouts } from "./demo-payouts";
+import { seedDemoApplications } from "./demo-applications";
 
 // Loads the invented demo scenario. Idempotent: accounts are matched by e-mail, workshops by slug and
 // listings by (seller, serial number); anything already there is left exactly as it is, so a restart
@@ -60,6 +61,7 @@ export async function seedDemo(): Promise<SeedResult> {
   if (orphans.length) await deleteObjects(orphans);
   created = (await seedDemoCaptures()).created || created;
   created = (await seedDemoPayouts()).connected > 0 || created;
+  created = (await seedDemoApplications()).created > 0 || created;
   return { created, accounts };
 }
 

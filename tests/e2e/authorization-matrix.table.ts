@@ -20,6 +20,19 @@ const photoUpload = () => {
   return { multipart };
 };
 
+const applicationWithoutDocument = () => {
+  const multipart = new FormData();
+  for (const [k, v] of Object.entries({
+    businessName: "Matrix Probe Bench",
+    address: "Werkhof 3",
+    town: "Fenwold",
+    country: "DE",
+    registrationNumber: "MP-1",
+  }))
+    multipart.set(k, v);
+  return { multipart };
+};
+
 export const MATRIX: Record<string, Entry> = {
   "/": { cases: [{ get: everyone("ok") }] },
   "/market": { cases: [{ get: everyone("ok") }] },
@@ -52,6 +65,8 @@ export const MATRIX: Record<string, Entry> = {
   },
   "/auth/oauth/callback": { cases: [{ get: everyone({ to: /^\/sign-in\?oauth=/ }) }] },
   "/account": { cases: [{ get: signedIn("ok"), post: { body: form({ intent: "matrix-probe" }), expect: signedIn(400) } }] },
+  // Applying as a workshop: any account; the probe's application has no document, so it is refused at the form.
+  "/account/workshop": { cases: [{ get: signedIn("ok"), post: { body: applicationWithoutDocument, expect: signedIn(400) } }] },
 
   // Roles: the desk for moderators (and admins, who hold everything a moderator may do), accounts for admins.
   "/admin/users": {
@@ -119,6 +134,20 @@ export const MATRIX: Record<string, Entry> = {
         },
       },
     ],
+  },
+  // Workshop applications on the desk, and their documents: only through a link signed for the
+  // moderator who opens it, so a bare address is a 404 even for the desk.
+  "/desk/workshops/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.workshopApplication.workshopId }),
+        get: desk,
+        post: { body: form({ decision: "verify", note: "" }), expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 } },
+      },
+    ],
+  },
+  "/desk/documents/:id": {
+    cases: [{ params: (f) => ({ id: f.workshopApplication.id }), get: { anonymous: "sign-in", moderator: 404, admin: 404, others: 403 } }],
   },
   "/admin/settings": {
     cases: [
@@ -243,6 +272,37 @@ export const MATRIX: Record<string, Entry> = {
         },
       },
       { name: "no such thread", params: () => ({ threadId: randomUUID() }), get: signedIn(404) },
+    ],
+  },
+  // Reports: any account reports a public listing that is not its own (its seller gets a 403, a listing the
+  // public cannot see is a 404); a conversation only by its two sides. The desk reads a reported
+  // conversation; its action dismisses a report with a note.
+  "/listings/:id/report": {
+    cases: [
+      {
+        params: (f) => ({ id: f.live.id }),
+        get: { anonymous: "sign-in", owner: 403, others: "ok" },
+        post: { body: form({ reason: "", note: "" }), expect: { anonymous: "sign-in", owner: 403, others: 400 } },
+      },
+      { name: "a draft", params: (f) => ({ id: f.draft.id }), get: signedIn(404) },
+    ],
+  },
+  "/messages/:threadId/report": {
+    cases: [
+      {
+        params: (f) => ({ threadId: f.thread.id }),
+        get: { anonymous: "sign-in", buyer: "ok", owner: "ok", others: 404 },
+        post: { body: form({ reason: "", note: "" }), expect: { anonymous: "sign-in", buyer: 400, owner: 400, others: 404 } },
+      },
+    ],
+  },
+  "/desk/threads/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.thread.id }),
+        get: desk,
+        post: { body: form({ flagId: "", note: "" }), expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 } },
+      },
     ],
   },
   "/api/v1/threads": {

@@ -108,7 +108,12 @@ function Application({ item }: { item: WorkshopApplicationItem }) {
   return (
     <li className="space-y-1 py-3">
       <p className="flex flex-wrap items-center gap-2">
-        <span className="font-serif text-lg">{item.name}</span>
+        <Link
+          to={`/desk/workshops/${item.id}`}
+          className="font-serif text-lg text-ink underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep"
+        >
+          {item.name}
+        </Link>
         <Badge tone="walnut">Applied</Badge>
       </p>
       <p className="text-sm text-ink-soft">{item.place}</p>

@@ -109,6 +109,13 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
           <SellerCard seller={seller} />
           <ShippingPanel shipping={shipping} currency={listing.currency} />
           <SafetyCautions listing={listing} />
+          {viewer.isSeller ? null : (
+            <p className="text-sm">
+              <Link to={`/listings/${listing.id}/report`} className="text-ink-soft underline-offset-2 hover:text-walnut" rel="nofollow">
+                Report this listing
+              </Link>
+            </p>
+          )}
         </aside>
         <div className="min-w-0 space-y-12 lg:col-span-8 lg:row-start-1">
           <Plots plots={plots} />

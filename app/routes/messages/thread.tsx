@@ -47,6 +47,11 @@ export default function Thread({ loaderData, actionData }: Route.ComponentProps)
         overline={thread.role === "buyer" ? `Seller: ${thread.otherName}` : `Buyer: ${thread.otherName}`}
         title={thread.listingTitle}
         lede={thread.listingStatus === "live" ? null : "This unit is no longer for sale."}
+        actions={
+          <Link to={`/messages/${thread.id}/report`} className="text-sm text-ink-soft hover:text-walnut">
+            Report this conversation
+          </Link>
+        }
       />
       <ThreadView initial={loaderData.conversation} errors={actionData?.errors} draft={actionData?.draft} />
     </main>

@@ -1,6 +1,6 @@
 import { randomBytes, randomUUID } from "node:crypto";
 import { Op } from "sequelize";
-import { Listing, ListingPhoto, User } from "~/models/index.server";
+import { Listing, ListingPhoto, User, Workshop, WorkshopApplication } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { Watch } from "~/models/watch.server";
 import { SpecAlert } from "~/models/spec-alert.server";
@@ -55,6 +55,8 @@ export interface Fixtures {
   offer: Offer;
   /** The buyer's paid order of another of the owner's units (the owner is its seller). */
   order: Order;
+  /** A workshop waiting for the desk (its applicant is none of the personas) and its application. */
+  workshopApplication: WorkshopApplication;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -191,7 +193,53 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     fundedAt: new Date(),
     shipBy: new Date(Date.now() + 3 * 86_400_000),
   });
-  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer, order };
+  const applicant = await User.create({
+    email: `${label}-${run}-applicant@example.test`,
+    displayName: `${label} applicant`,
+    passwordHash: null,
+    roles: ["buyer", "seller"],
+    emailVerifiedAt: new Date(),
+    lastSignInAt: null,
+  });
+  const applying = await Workshop.create({
+    ownerId: applicant.id,
+    name: `Matrix Bench ${run}`,
+    slug: `matrix-bench-${label.toLowerCase().replace(/[^a-z0-9]+/g, "-")}-${run}`,
+    about: null,
+    country: "DE",
+    region: null,
+    town: "Fenwold",
+    verifiedAt: null,
+  });
+  const workshopApplication = await WorkshopApplication.create({
+    workshopId: applying.id,
+    applicantId: applicant.id,
+    businessName: applying.name,
+    address: "Werkhof 3",
+    registrationNumber: `MB-${run}`,
+    // No object behind it: every probe is refused before the document would be read.
+    documentKey: `workshop-documents/matrix/${run}/${randomUUID()}.pdf`,
+    documentType: "application/pdf",
+    documentName: "register.pdf",
+    documentBytes: 1000,
+  });
+  return {
+    run,
+    password,
+    users,
+    draft,
+    held,
+    live,
+    photo,
+    capture,
+    media,
+    alert,
+    unsubscribeToken,
+    thread,
+    offer,
+    order,
+    workshopApplication,
+  };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
