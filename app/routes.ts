@@ -76,5 +76,7 @@ export default [
   route("sales", "routes/buying/sales.tsx"),
   route("sales/:orderId", "routes/buying/sale.tsx"),
   route("desk/orders/:orderId", "routes/desk/order.tsx"),
+  // A contest's photos, metadata-free, through short-lived links (the buyer who sent them, moderators)
+  route("orders/:orderId/contest-photos/:n", "routes/buying/contest-photo.ts"),
   route("admin/settings", "routes/admin/settings.tsx"),
 ] satisfies RouteConfig;

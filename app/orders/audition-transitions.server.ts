@@ -6,6 +6,8 @@ import { OrderRemeasurement } from "~/models/order-remeasurement.server";
 import type { Clock } from "./clock.server";
 import { queueRefund, releaseToSeller, setListingStatus } from "./money.server";
 import { runStep, type Actor } from "./step.server";
+import { enqueue, QUEUES } from "~/services/jobs.server";
+import { createContestCaptures, type ContestCaptureUpload } from "./contest-captures.server";
 
 // The audition window's transitions: the buyer accepts or contests, the window closes on schedule, a
 // moderator resolves a contest. Same rules as the rest of the state machine (transitions.server.ts).
@@ -44,7 +46,8 @@ export interface ContestInput {
   note?: string | null;
   readings?: unknown;
   photoKeys?: string[];
-  captureIds?: string[];
+  /** Capture files received with the contest form: their rows and analysis jobs are made with the contest. */
+  captures?: ContestCaptureUpload[];
   /** The outcome of compareRemeasurement, computed by the contest's caller. */
   comparison?: unknown;
 }
@@ -60,6 +63,7 @@ export function contestOrder(orderId: string, buyerId: string, contest: ContestI
       to: "contested",
       refuse: (order, now) => (auditionOver(order, now) ? "the audition window has closed." : null),
       apply: async (order, { tx, now }) => {
+        const captureIds = await createContestCaptures(buyerId, contest.captures ?? [], tx);
         await OrderContest.create(
           {
             orderId: order.id,
@@ -67,12 +71,14 @@ export function contestOrder(orderId: string, buyerId: string, contest: ContestI
             note: contest.note ?? null,
             readings: contest.readings ?? null,
             photoKeys: contest.photoKeys ?? [],
-            captureIds: contest.captureIds ?? [],
+            captureIds,
             comparison: contest.comparison ?? null,
             createdAt: now,
           },
           { transaction: tx },
         );
+        // The photos are kept only as metadata-free copies, made by the worker.
+        if (contest.photoKeys?.length) await enqueue(QUEUES.contestPhoto, { orderId: order.id }, { transaction: tx });
       },
       note: contest.reason,
       mail: ["buyer", "seller"],
