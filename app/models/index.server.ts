@@ -9,6 +9,9 @@ import { OrderEvent } from "~/models/order-event.server";
 import { LedgerEntry } from "~/models/ledger-entry.server";
 import { OrderContest } from "~/models/order-contest.server";
 import { MarketplaceSettings } from "~/models/marketplace-settings.server";
+import { AuditRecord } from "~/models/audit-record.server";
+import { DeskClaim } from "~/models/desk-claim.server";
+import { DeskFlag } from "~/models/desk-flag.server";
 
 // Each model initialises itself on import; this module wires the catalogue's associations.
 // Import catalogue models from here so the associations are always in place.
@@ -44,6 +47,12 @@ wire(Order, "events", () => Order.hasMany(OrderEvent, { foreignKey: "orderId", a
 wire(Order, "ledger", () => Order.hasMany(LedgerEntry, { foreignKey: "orderId", as: "ledger" }));
 wire(Order, "contest", () => Order.hasOne(OrderContest, { foreignKey: "orderId", as: "contest" }));
 
+// The review desk: who acted, who holds an item, and a flag's listing and reporter.
+wire(AuditRecord, "actor", () => AuditRecord.belongsTo(User, { foreignKey: "actorId", as: "actor" }));
+wire(DeskClaim, "moderator", () => DeskClaim.belongsTo(User, { foreignKey: "moderatorId", as: "moderator" }));
+wire(DeskFlag, "listing", () => DeskFlag.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
+wire(DeskFlag, "reporter", () => DeskFlag.belongsTo(User, { foreignKey: "reporterId", as: "reporter" }));
+
 export {
   User,
   Workshop,
@@ -56,4 +65,7 @@ export {
   LedgerEntry,
   OrderContest,
   MarketplaceSettings,
+  AuditRecord,
+  DeskClaim,
+  DeskFlag,
 };
