@@ -6,6 +6,8 @@ import { OrderRemeasurement } from "~/models/order-remeasurement.server";
 import type { Clock } from "./clock.server";
 import { queueRefund, releaseToSeller, setListingStatus } from "./money.server";
 import { runStep, type Actor } from "./step.server";
+import { recordAudit } from "~/desk/audit.server";
+import { releaseClaim, requireClaim } from "~/desk/claims.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { createContestCaptures, type ContestCaptureUpload } from "./contest-captures.server";
 
@@ -110,7 +112,10 @@ export interface Resolution {
   note: string;
 }
 
-/** A moderator's decision on a contested order, with a required note. */
+/**
+ * A moderator's decision on a contested order, with a required note: only while they hold the desk's
+ * claim on it, and written to the order's audit trail (release_order / refund_order) in the same step.
+ */
 export async function resolveContest(orderId: string, moderatorId: string, resolution: Resolution, clock: Clock): Promise<Order> {
   const moderator = await User.findByPk(moderatorId);
   if (!moderator || !holdsRole(moderator.roles, "moderator")) throw refusal("forbidden", "Only a moderator can resolve a contest.");
@@ -129,6 +134,10 @@ export async function resolveContest(orderId: string, moderatorId: string, resol
           ? null
           : `a refund must be between 0 and the order's total (${order.totalMinor}).`,
       apply: async (order, { tx, now }) => {
+        // The desk's rule: only the moderator holding the order acts on it (409 item_taken otherwise).
+        const subject = { type: "order", id: order.id } as const;
+        await requireClaim(subject, moderatorId, tx, clock);
+        const before = { state: order.state, refundedMinor: order.refundedMinor };
         await OrderContest.update(
           { resolvedBy: moderatorId, resolutionNote: note, resolvedAt: now },
           { where: { orderId: order.id }, transaction: tx },
@@ -140,6 +149,18 @@ export async function resolveContest(orderId: string, moderatorId: string, resol
           // Refunded in whole: the unit goes back to its seller, who may list it again.
           await setListingStatus(order.listingId, "withdrawn", tx);
         }
+        await recordAudit(
+          {
+            actorId: moderatorId,
+            action: refund === 0 ? "release_order" : "refund_order",
+            subject,
+            note,
+            before,
+            after: { state: refund === 0 ? "released" : "refunded", refundMinor: refund, currency: order.currency },
+          },
+          tx,
+        );
+        await releaseClaim(subject, tx);
       },
       note,
       mail: ["buyer", "seller"],
