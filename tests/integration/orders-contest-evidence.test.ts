@@ -52,7 +52,7 @@ async function contested() {
   form.set("capture.channel", "left");
   const photo = withExif(await twoToneJpeg(64, 48), { orientation: 1, gps: true });
   form.append("photos", new File([new Uint8Array(photo)], "hum.jpg", { type: "image/jpeg" }));
-  form.append("capture", new File([distortedWav()], "left-60w.wav", { type: "audio/wav" }));
+  form.append("capture", new File([new Uint8Array(distortedWav())], "left-60w.wav", { type: "audio/wav" }));
   const request = new Request("http://loadline.test/purchases/x?intent=contest", { method: "POST", body: form });
   const result = await submitContest(request, { orderId: order.id, buyerId: c.buyer.id }, clock);
   expect(result).toMatchObject({ ok: true });
