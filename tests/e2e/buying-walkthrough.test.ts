@@ -187,9 +187,9 @@ describe("buying in the browser", () => {
     await contestForm
       .locator('input[name="capture"]')
       .setInputFiles({ name: "left-60w.wav", mimeType: "audio/wav", buffer: Buffer.from(wav) });
-    await contestForm.getByLabel("Full scale stands for").fill("40");
-    await contestForm.getByLabel("Load").fill("8");
-    await contestForm.getByLabel("Channel").selectOption("left");
+    await contestForm.locator('input[name="capture.volts"]').fill("40");
+    await contestForm.locator('input[name="capture.loadOhm"]').fill("8");
+    await contestForm.locator('select[name="capture.channel"]').selectOption("left");
     await Promise.all([buyer.waitForLoadState("load"), buyer.getByRole("button", { name: "Contest the order" }).click()]);
     await waitForState(buyer, `/purchases/${orderId}`, "contested");
 
