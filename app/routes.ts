@@ -86,5 +86,7 @@ export default [
   route("desk/documents/:id", "routes/desk/document.ts"),
   // A reported conversation, read-only for moderators
   route("desk/threads/:id", "routes/desk/thread.tsx"),
+  // A contest's photos, metadata-free, through short-lived links (the buyer who sent them, moderators)
+  route("orders/:orderId/contest-photos/:n", "routes/buying/contest-photo.ts"),
   route("admin/settings", "routes/admin/settings.tsx"),
 ] satisfies RouteConfig;

@@ -9,6 +9,8 @@ import { digestJob } from "~/alerts/digest.server";
 import { orderRefundJob, orderReleaseJob, paymentEventJob } from "~/payments/jobs.server";
 import { orderDeadlineJob } from "~/orders/deadlines.server";
 import { deliverOrderMail } from "~/orders/mail.server";
+import { cleanContestPhotos } from "~/orders/contest-photos.server";
+import { contestCaptureFinished } from "~/orders/contest-captures.server";
 import { deliverMessageMail } from "~/messages/message-mail.server";
 import { deliverOfferMail } from "~/offers/offer-mail.server";
 import { expireOffer } from "~/offers/offers.server";
@@ -21,7 +23,13 @@ export type JobHandler = (data: unknown, jobId: string) => Promise<unknown>;
 export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.photoProcess]: processPhoto,
   [QUEUES.photoRehash]: rehashPhotos,
-  [QUEUES.captureAnalyze]: analyseCaptureJob,
+  // A contest's capture joins the buyer's figures once analysed (app/orders/contest-captures.server.ts).
+  [QUEUES.captureAnalyze]: async (data) => {
+    const done = await analyseCaptureJob(data);
+    const captureId = (data as { captureId?: unknown } | null)?.captureId;
+    if (done.status === "done" && typeof captureId === "string") await contestCaptureFinished(captureId);
+    return done;
+  },
   [QUEUES.accountMail]: deliverAccountMail,
   // Keeping track: watch notices, spec-alert matching on publish, the daily digest (scheduled by the worker).
   [QUEUES.watchNotice]: deliverWatchNotice,
@@ -34,6 +42,7 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   // Buying (app/orders): order deadlines (deferred, one per deadline) and order mails.
   [QUEUES.orderDeadline]: orderDeadlineJob,
   [QUEUES.orderMail]: deliverOrderMail,
+  [QUEUES.contestPhoto]: cleanContestPhotos,
   // Talking before buying: one mail per burst of messages, offer mails, offer expiry at its deadline.
   [QUEUES.messageMail]: deliverMessageMail,
   [QUEUES.offerMail]: deliverOfferMail,

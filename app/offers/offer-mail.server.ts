@@ -9,7 +9,8 @@ import { sendTalkMail, type TalkMail } from "~/messages/talk-mail.server";
 // The 'offer-mail' job: each step of an offer mailed to the side that needs to know (both sides when
 // one is accepted or expires). Written as the offer stands when the job runs.
 
-export const OFFER_MAIL_EVENTS = ["made", "countered", "accepted", "declined", "withdrawn", "expired"] as const;
+// "closed": declined because the seller accepted another offer on the unit (to the buyer only).
+export const OFFER_MAIL_EVENTS = ["made", "countered", "accepted", "declined", "withdrawn", "expired", "closed"] as const;
 export type OfferMailEvent = (typeof OFFER_MAIL_EVENTS)[number];
 
 export const OfferMailJobSchema = z.object({ offerId: idSchema("offer"), event: z.enum(OFFER_MAIL_EVENTS) });
@@ -84,6 +85,16 @@ export async function deliverOfferMail(data: unknown): Promise<number> {
         to: other,
         subject: `Offer withdrawn: the ${title}`,
         paragraphs: [`${maker.displayName} withdrew the offer of ${amount} for the ${title}.`],
+        label: "Open the conversation",
+      });
+      break;
+    case "closed":
+      mails.push({
+        to: buyer,
+        subject: `Offer closed: the ${title}`,
+        paragraphs: [
+          `${seller.displayName} accepted another offer for the ${title}, so the offer of ${amount} between you is closed. If that sale does not go ahead, the unit returns to the market and you may offer again.`,
+        ],
         label: "Open the conversation",
       });
       break;

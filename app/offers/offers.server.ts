@@ -129,14 +129,14 @@ export async function answerOffer(
 ): Promise<OfferOutcome> {
   const now = clock.now();
   const outcome = await sequelize.transaction(async (transaction) => {
-    const offer = isId(offerId)
-      ? await Offer.findOne({
-          where: { id: offerId, [Op.or]: [{ buyerId: userId }, { sellerId: userId }] },
-          transaction,
-          lock: transaction.LOCK.UPDATE,
-        })
-      : null;
-    if (!offer) throw refusal("not_found", "There is no offer here.");
+    const mine = { id: offerId, [Op.or]: [{ buyerId: userId }, { sellerId: userId }] };
+    const found = isId(offerId) ? await Offer.findOne({ where: mine, attributes: ["listingId"], transaction }) : null;
+    if (!found) throw refusal("not_found", "There is no offer here.");
+    // The unit's row first, then offers: accepting one closes the unit's other open offers, so two
+    // answers on one unit must take their locks in the same order (or they could deadlock).
+    const listing = await Listing.findByPk(found.listingId, { transaction, lock: transaction.LOCK.NO_KEY_UPDATE });
+    const offer = listing ? await Offer.findOne({ where: mine, transaction, lock: transaction.LOCK.UPDATE }) : null;
+    if (!listing || !offer) throw refusal("not_found", "There is no offer here.");
     const side: OfferParty = offer.buyerId === userId ? "buyer" : "seller";
     if (offer.state === "open" && offer.expiresAt <= now) {
       await offer.update({ state: "expired", decidedAt: now }, { transaction });
@@ -149,8 +149,6 @@ export async function answerOffer(
         answer.action === "withdraw" ? "Only the side that made an offer can withdraw it." : "You cannot answer your own offer.",
       );
     }
-    const listing = await Listing.findByPk(offer.listingId, { transaction, lock: transaction.LOCK.SHARE });
-    if (!listing) throw refusal("not_found", "There is no offer here.");
     const thread = offer.threadId
       ? (await threadFor(userId, offer.threadId, { transaction })).thread
       : await openThread(offer.buyerId, offer.listingId, transaction);
@@ -163,6 +161,7 @@ export async function answerOffer(
         { transaction },
       );
       await queueSteps(offer, "accepted", transaction);
+      await closeOtherOffers(offer, now, transaction);
     } else if (answer.action === "decline" || answer.action === "withdraw") {
       await offer.update({ state: answer.action === "decline" ? "declined" : "withdrawn", decidedAt: now }, { transaction });
       await queueSteps(offer, answer.action === "decline" ? "declined" : "withdrawn", transaction);
@@ -200,6 +199,24 @@ export async function answerOffer(
   // The lapse was saved; the answer itself is refused.
   if (outcome === "expired") throw refusal("offer_closed", "This offer has expired.");
   return outcome;
+}
+
+/**
+ * One unit, one agreed price: once an offer on it is accepted, the unit's other open offers (other
+ * buyers', and the seller's counters to them) close as declined, and each of those buyers is told.
+ * An offer already past its time is left to its expiry job, which words it as expired.
+ */
+async function closeOtherOffers(accepted: Offer, now: Date, transaction: Transaction): Promise<number> {
+  const others = await Offer.findAll({
+    where: { listingId: accepted.listingId, state: "open", id: { [Op.ne]: accepted.id }, expiresAt: { [Op.gt]: now } },
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
+  for (const other of others) {
+    await other.update({ state: "declined", decidedAt: now }, { transaction });
+    await enqueue(QUEUES.offerMail, { offerId: other.id, event: "closed" }, { transaction });
+  }
+  return others.length;
 }
 
 /** The 'offer-expiry' job: an offer still open at its deadline expires (and both sides hear). */

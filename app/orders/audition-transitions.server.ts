@@ -6,6 +6,10 @@ import { OrderRemeasurement } from "~/models/order-remeasurement.server";
 import type { Clock } from "./clock.server";
 import { queueRefund, releaseToSeller, setListingStatus } from "./money.server";
 import { runStep, type Actor } from "./step.server";
+import { recordAudit } from "~/desk/audit.server";
+import { releaseClaim, requireClaim } from "~/desk/claims.server";
+import { enqueue, QUEUES } from "~/services/jobs.server";
+import { createContestCaptures, type ContestCaptureUpload } from "./contest-captures.server";
 
 // The audition window's transitions: the buyer accepts or contests, the window closes on schedule, a
 // moderator resolves a contest. Same rules as the rest of the state machine (transitions.server.ts).
@@ -44,7 +48,8 @@ export interface ContestInput {
   note?: string | null;
   readings?: unknown;
   photoKeys?: string[];
-  captureIds?: string[];
+  /** Capture files received with the contest form: their rows and analysis jobs are made with the contest. */
+  captures?: ContestCaptureUpload[];
   /** The outcome of compareRemeasurement, computed by the contest's caller. */
   comparison?: unknown;
 }
@@ -60,6 +65,7 @@ export function contestOrder(orderId: string, buyerId: string, contest: ContestI
       to: "contested",
       refuse: (order, now) => (auditionOver(order, now) ? "the audition window has closed." : null),
       apply: async (order, { tx, now }) => {
+        const captureIds = await createContestCaptures(buyerId, contest.captures ?? [], tx);
         await OrderContest.create(
           {
             orderId: order.id,
@@ -67,12 +73,14 @@ export function contestOrder(orderId: string, buyerId: string, contest: ContestI
             note: contest.note ?? null,
             readings: contest.readings ?? null,
             photoKeys: contest.photoKeys ?? [],
-            captureIds: contest.captureIds ?? [],
+            captureIds,
             comparison: contest.comparison ?? null,
             createdAt: now,
           },
           { transaction: tx },
         );
+        // The photos are kept only as metadata-free copies, made by the worker.
+        if (contest.photoKeys?.length) await enqueue(QUEUES.contestPhoto, { orderId: order.id }, { transaction: tx });
       },
       note: contest.reason,
       mail: ["buyer", "seller"],
@@ -104,7 +112,10 @@ export interface Resolution {
   note: string;
 }
 
-/** A moderator's decision on a contested order, with a required note. */
+/**
+ * A moderator's decision on a contested order, with a required note: only while they hold the desk's
+ * claim on it, and written to the order's audit trail (release_order / refund_order) in the same step.
+ */
 export async function resolveContest(orderId: string, moderatorId: string, resolution: Resolution, clock: Clock): Promise<Order> {
   const moderator = await User.findByPk(moderatorId);
   if (!moderator || !holdsRole(moderator.roles, "moderator")) throw refusal("forbidden", "Only a moderator can resolve a contest.");
@@ -123,6 +134,10 @@ export async function resolveContest(orderId: string, moderatorId: string, resol
           ? null
           : `a refund must be between 0 and the order's total (${order.totalMinor}).`,
       apply: async (order, { tx, now }) => {
+        // The desk's rule: only the moderator holding the order acts on it (409 item_taken otherwise).
+        const subject = { type: "order", id: order.id } as const;
+        await requireClaim(subject, moderatorId, tx, clock);
+        const before = { state: order.state, refundedMinor: order.refundedMinor };
         await OrderContest.update(
           { resolvedBy: moderatorId, resolutionNote: note, resolvedAt: now },
           { where: { orderId: order.id }, transaction: tx },
@@ -134,6 +149,18 @@ export async function resolveContest(orderId: string, moderatorId: string, resol
           // Refunded in whole: the unit goes back to its seller, who may list it again.
           await setListingStatus(order.listingId, "withdrawn", tx);
         }
+        await recordAudit(
+          {
+            actorId: moderatorId,
+            action: refund === 0 ? "release_order" : "refund_order",
+            subject,
+            note,
+            before,
+            after: { state: refund === 0 ? "released" : "refunded", refundMinor: refund, currency: order.currency },
+          },
+          tx,
+        );
+        await releaseClaim(subject, tx);
       },
       note,
       mail: ["buyer", "seller"],

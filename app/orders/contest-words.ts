@@ -13,3 +13,6 @@ export const CONTEST_REASON_LABELS: Record<ContestReason, string> = {
 
 export const CONTEST_NOTE_MAX = 4000;
 export const CONTEST_PHOTOS_MAX = 8;
+export const CONTEST_CAPTURES_MAX = 1;
+/** The capture's stated conditions travel as `capture.volts`, `capture.loadOhm` … beside the contest's own fields. */
+export const CAPTURE_FIELD_PREFIX = "capture.";

@@ -18,17 +18,18 @@ import type { BenchSheet } from "@shared/bench/schema";
 import { systemClock, type Clock } from "./clock.server";
 import { acceptUnit, contestOrder } from "./transitions.server";
 import { stateRefusal } from "./step.server";
-import { CONTEST_NOTE_MAX, CONTEST_PHOTOS_MAX, CONTEST_REASONS } from "./contest-words";
+import { CONTEST_INCOMING_PREFIX } from "./contest-photos.server";
+import { captureFrom, receiveCapture, type CaptureFile } from "./contest-capture-form.server";
+import { CONTEST_CAPTURES_MAX, CONTEST_NOTE_MAX, CONTEST_PHOTOS_MAX, CONTEST_REASONS } from "./contest-words";
 import { readingsFromForm, type FieldErrors } from "./readings-form";
 
-// The buyer's side of the audition window: contesting (reason, note, private photos, their own figures)
-// and accepting with their own figures. Both compare the figures with the listing's bench sheet here,
+// The buyer's side of the audition window: contesting (reason, note, private photos, their own figures
+// typed or in a capture) and accepting with their own figures. Both compare the figures with the listing's bench sheet here,
 // on the server, and hand the result to the order's transition, which stores it in its transaction.
 
 export type AuditionFormResult = { ok: true; order: Order } | { ok: false; errors: FieldErrors; values: Record<string, string> };
 
-/** Private: never under the public media prefixes, so /media never serves them. */
-export const CONTEST_PHOTO_PREFIX = "contests/";
+export { CONTEST_PHOTO_PREFIX } from "./contest-photos.server";
 /** Room for the boundaries and the text fields around the photos. */
 const FORM_OVERHEAD = 256 * 1024;
 const HEADER_BYTES = 256 * 1024;
@@ -59,6 +60,7 @@ const contestFields = z.object({
 const OPEN: readonly OrderState[] = ["arrived", "audition"];
 
 type Photo = { key: string } | { error: string } | null;
+type Part = Photo | CaptureFile;
 
 /** One photo: its header checked as it arrives, then streamed to a private key; a refused one is drained, not fatal. */
 async function receivePhoto(part: FilePart, written: string[]): Promise<Photo> {
@@ -76,7 +78,8 @@ async function receivePhoto(part: FilePart, written: string[]): Promise<Photo> {
     throw e;
   }
   const now = new Date();
-  const key = `${CONTEST_PHOTO_PREFIX}${now.getUTCFullYear()}/${String(now.getUTCMonth() + 1).padStart(2, "0")}/${randomUUID()}.${checked.ext}`;
+  // Waits under incoming/ for the contest-photo job, which keeps only a metadata-free copy.
+  const key = `${CONTEST_INCOMING_PREFIX}${now.getUTCFullYear()}/${String(now.getUTCMonth() + 1).padStart(2, "0")}/${randomUUID()}.${checked.ext}`;
   written.push(key);
   await putObjectStream(key, all, { contentType: checked.contentType });
   return { key };
@@ -142,15 +145,17 @@ export async function submitContest(
   const written: string[] = [];
   try {
     let form: FormData;
-    const photos: Photo[] = [];
+    const photos: Part[] = [];
     if (mediaType(request) === "multipart/form-data") {
       try {
-        const read = await readMultipart(request, {
-          maxBytes: CONTEST_PHOTOS_MAX * PHOTO_LIMITS.maxBytes + FORM_OVERHEAD,
+        const read = await readMultipart<Part>(request, {
+          maxBytes: (CONTEST_PHOTOS_MAX + CONTEST_CAPTURES_MAX) * PHOTO_LIMITS.maxBytes + FORM_OVERHEAD,
+          // A minute of stereo 24-bit audio at 48 kHz is about 17 MB: one limit serves photos and captures.
           maxFileBytes: PHOTO_LIMITS.maxBytes,
-          maxFiles: CONTEST_PHOTOS_MAX,
-          tooManyFiles: () => refusal("bad_request", `Send at most ${CONTEST_PHOTOS_MAX} photos with a contest.`),
-          onFile: (part) => receivePhoto(part, written),
+          maxFiles: CONTEST_PHOTOS_MAX + CONTEST_CAPTURES_MAX,
+          tooManyFiles: () =>
+            refusal("bad_request", `Send at most ${CONTEST_PHOTOS_MAX} photos and ${CONTEST_CAPTURES_MAX} capture with a contest.`),
+          onFile: (part) => (part.field === "capture" ? receiveCapture(part, written) : receivePhoto(part, written)),
         });
         form = read.fields;
         photos.push(...read.files);
@@ -164,11 +169,15 @@ export async function submitContest(
     if (!fields.success) for (const i of fields.error.issues) errors[String(i.path[0] ?? "_form")] ??= i.message;
     const photoErrors = photos.flatMap((p) => (p && "error" in p ? [p.error] : []));
     if (photoErrors.length) errors.photos = photoErrors.join(" ");
+    if (photos.filter((p) => p && "capture" in p).length > CONTEST_CAPTURES_MAX)
+      errors.capture = `Send at most ${CONTEST_CAPTURES_MAX} capture with a contest.`;
+    const captures = captureFrom(form, photos, errors);
     const sheet = (await storedSheet(order.listingId)).sheet;
     const measured = remeasurementFrom(form, sheet, errors);
 
     if (!fields.success || Object.keys(errors).length) return await undo(written, { ok: false, errors, values: valuesOf(form) });
     const photoKeys = photos.flatMap((p) => (p && "key" in p ? [p.key] : []));
+    // The capture's own figures join the comparison once the worker has analysed it (contest-captures.server.ts).
     try {
       const after = await contestOrder(
         orderId,
@@ -178,7 +187,7 @@ export async function submitContest(
           note: fields.data.note,
           readings: measured?.readings ?? null,
           photoKeys,
-          captureIds: [],
+          captures,
           comparison: measured?.comparison ?? null,
         },
         clock,

@@ -1,4 +1,6 @@
+import { QueryTypes } from "sequelize";
 import { z } from "zod";
+import { sequelize } from "~/db.server";
 import { Listing, Order, OrderEvent, User } from "~/models/index.server";
 import { appLink, sendNotice } from "~/alerts/mail.server";
 import { idSchema } from "@shared/ids";
@@ -123,6 +125,11 @@ function wording(order: Order, event: OrderEvent, to: Audience, title: string, h
   return { subject: `Your order: ${title}`, paragraphs: [event.note ?? "Your order has changed."] };
 }
 
+/**
+ * The job: one mail to one side about one timeline row, at most once. Its mark (order_mail_marks) is
+ * written in the transaction that sends; a second run (a retry after a crash past the send, or a
+ * doubled job) waits on the first's mark, finds it, and sends nothing. Returns whether it sent.
+ */
 export async function deliverOrderMail(data: unknown): Promise<boolean> {
   const job = OrderMailSchema.parse(data);
   const [order, event] = await Promise.all([Order.findByPk(job.orderId), OrderEvent.findByPk(job.eventId)]);
@@ -132,17 +139,29 @@ export async function deliverOrderMail(data: unknown): Promise<boolean> {
     User.findByPk(job.to === "buyer" ? order.buyerId : order.sellerId),
   ]);
   if (!reader) return false;
+  return sequelize.transaction(async (transaction) => {
+    const [marked] = await sequelize.query(
+      `INSERT INTO order_mail_marks (event_id, audience) VALUES ($1, $2) ON CONFLICT DO NOTHING RETURNING event_id`,
+      { bind: [event.id, job.to], type: QueryTypes.SELECT, transaction },
+    );
+    if (!marked) return false;
+    // Sent inside the transaction: a failed send rolls the mark back and the job's retry sends again.
+    await send(order, event, job.to, listing, reader);
+    return true;
+  });
+}
+
+async function send(order: Order, event: OrderEvent, to: Audience, listing: Listing | null, reader: User): Promise<void> {
   const title = listingTitle(listing?.maker, listing?.model);
   const heavy = (listing?.weightG ?? 0) >= TWO_PERSON_LIFT_G;
-  const { subject, paragraphs } = wording(order, event, job.to, title, heavy);
-  const path = job.to === "buyer" ? `/purchases/${order.id}` : `/sales/${order.id}`;
+  const { subject, paragraphs } = wording(order, event, to, title, heavy);
+  const path = to === "buyer" ? `/purchases/${order.id}` : `/sales/${order.id}`;
   await sendNotice({
     to: reader.email,
     subject,
     greeting: `Hello ${reader.displayName},`,
-    paragraphs: [...paragraphs, `Next: ${nextStep(order, job.to).text}`],
+    paragraphs: [...paragraphs, `Next: ${nextStep(order, to).text}`],
     groups: [],
-    links: [{ label: job.to === "buyer" ? "Your purchase" : "Your sale", href: appLink(path) }],
+    links: [{ label: to === "buyer" ? "Your purchase" : "Your sale", href: appLink(path) }],
   });
-  return true;
 }

@@ -24,6 +24,8 @@ export const QUEUES = {
   // side (app/payments): a recorded webhook event, paying the seller, refunding the buyer.
   orderDeadline: "order-deadline",
   orderMail: "order-mail",
+  // A contest's photos re-encoded without their metadata (app/orders/contest-photos.server.ts).
+  contestPhoto: "contest-photo",
   paymentEvent: "payment-event",
   orderRelease: "order-release",
   orderRefund: "order-refund",

@@ -149,6 +149,11 @@ export const MATRIX: Record<string, Entry> = {
   "/desk/documents/:id": {
     cases: [{ params: (f) => ({ id: f.workshopApplication.id }), get: { anonymous: "sign-in", moderator: 404, admin: 404, others: 403 } }],
   },
+  // A contest's photo opens only through a short-lived link signed for its viewer: without one it is
+  // the same 404 for everyone signed in (links are tested in tests/integration/orders-contest-evidence.test.ts).
+  "/orders/:orderId/contest-photos/:n": {
+    cases: [{ params: (f) => ({ orderId: f.order.id, n: "0" }), get: { anonymous: "sign-in", others: 404 } }],
+  },
   "/admin/settings": {
     cases: [
       {

@@ -4,6 +4,8 @@ import { Listing, Order } from "~/models/index.server";
 import { runDeadline } from "~/orders/deadlines.server";
 import { figureField } from "~/orders/readings-form";
 import { testClock } from "../support/clock";
+import { toneWav } from "../support/capture-files";
+import { twoToneJpeg, withExif } from "../support/photo-files";
 import { launchBrowser, newContext } from "./support/browser";
 import { DEMO, signIn } from "./support/accounts";
 import { demoUnit, ledgerOf, mailsAbout, orderIdOf, payOnHostedPage, shot, shots, waitForState, type DemoUnit } from "./support/buying";
@@ -147,7 +149,7 @@ describe("buying in the browser", () => {
     expect((await Listing.findByPk(unit.listing.id))?.status).toBe("sold");
   }, 300_000);
 
-  it("a contest whose re-measurement shows 30 % less power ends in a part refund by a moderator", async () => {
+  it("a contest with a photo, a capture and a re-measurement showing 30 % less power ends in a part refund by a moderator, on the trail", async () => {
     const unit = await demoUnit({ weightG: 31_500 });
     const buyer = await signedIn(DEMO.buyer);
     const seller = await signedIn(SELLER);
@@ -170,6 +172,24 @@ describe("buying in the browser", () => {
     const reading = powerReading(unit, 0.7);
     const contestForm = buyer.locator("form", { has: buyer.getByRole("button", { name: "Contest the order" }) });
     await contestForm.locator(`input[name="${reading.field}"]`).fill(reading.text);
+    // A photo (with a camera's location in it) and a capture: 60 W into 8 Ω at 1 kHz with ten times the sheet's THD+N.
+    const photo = withExif(await twoToneJpeg(320, 240), { orientation: 1, gps: true });
+    await contestForm.locator('input[name="photos"]').setInputFiles({ name: "clipping.jpg", mimeType: "image/jpeg", buffer: photo });
+    const wav = toneWav({
+      sampleRate: 48_000,
+      seconds: 1,
+      f0: 1000,
+      peak: (Math.sqrt(480) * Math.SQRT2) / 40,
+      harmonics: [1, 0.002],
+      bits: "24",
+      channels: 1,
+    });
+    await contestForm
+      .locator('input[name="capture"]')
+      .setInputFiles({ name: "left-60w.wav", mimeType: "audio/wav", buffer: Buffer.from(wav) });
+    await contestForm.locator('input[name="capture.volts"]').fill("40");
+    await contestForm.locator('input[name="capture.loadOhm"]').fill("8");
+    await contestForm.locator('select[name="capture.channel"]').selectOption("left");
     await Promise.all([buyer.waitForLoadState("load"), buyer.getByRole("button", { name: "Contest the order" }).click()]);
     await waitForState(buyer, `/purchases/${orderId}`, "contested");
 
@@ -178,14 +198,37 @@ describe("buying in the browser", () => {
     // The desk lists the contested order and links to its screen.
     const deskLink = moderator.locator(`a[href="/desk/orders/${orderId}"]`);
     expect(await deskLink.innerText()).toContain(unit.title);
-    await moderator.goto(`/desk/orders/${orderId}`);
+    // The worker strips the photo and analyses the capture; the screen shows both once done.
+    const ready = Date.now() + 60_000;
+    for (;;) {
+      await moderator.goto(`/desk/orders/${orderId}`);
+      const done = await moderator.locator('[data-testid="contest-captures"] li[data-status="done"]').count();
+      const photos = await moderator.locator('[data-testid="contest-photos"] img').count();
+      if (done && photos) break;
+      if (Date.now() > ready) throw new Error(`capture analysed: ${done}, photos ready: ${photos}`);
+      await moderator.waitForTimeout(500);
+    }
+    await moderator.getByTestId("claim-banner").getByText("You have taken this item").waitFor();
     await moderator.locator('[data-outcome="outside"]').first().waitFor();
+    // The moderator opens the photo through its short-lived link: a JPEG without the camera's metadata.
+    const href = await moderator.locator('[data-testid="contest-photos"] a').first().getAttribute("href");
+    const opened = await moderator.context().request.get(href!);
+    expect(opened.status()).toBe(200);
+    expect(opened.headers()["content-type"]).toBe("image/jpeg");
+    expect(Buffer.from(await opened.body()).includes(Buffer.from("Exif"))).toBe(false);
+    // The same link opens nothing for the seller.
+    expect((await seller.context().request.get(href!)).status()).toBe(404);
     await shots(moderator, "desk-contested");
     await moderator.getByLabel("Refund the buyer in part").check();
     await moderator.getByLabel("Part refund (EUR)").fill("360");
     await moderator.getByLabel("Note").fill("The buyer's reading is 30 % under the sheet's power into 8 Ω; 30 % of the price goes back.");
     await Promise.all([moderator.waitForLoadState("load"), moderator.getByRole("button", { name: "Record the decision" }).click()]);
     await moderator.getByText("The buyer's reading is 30 % under").first().waitFor();
+    // The order's trail shows the decision with its note.
+    const trail = moderator.getByTestId("audit-trail");
+    await trail.getByText("Refunded the order").waitFor();
+    await trail.getByText("The buyer's reading is 30 % under").waitFor();
+    await shots(moderator, "desk-contest-decided");
 
     const deadline = Date.now() + 45_000;
     for (;;) {

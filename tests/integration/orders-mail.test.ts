@@ -3,7 +3,7 @@ import { afterAll, beforeEach, describe, expect, it, vi } from "vitest";
 // Order mails: each transition queues one 'order-mail' job per side it tells, in its own transaction;
 // the job words the mail from the timeline row it was queued for, in the notices' layout, without an
 // unsubscribe link (it is about the reader's own order). Heavy units carry the two-person caution, and
-// the audition mail the receiving-safely cautions.
+// the audition mail the receiving-safely cautions. Each event and side is mailed once, however often its job runs.
 interface SentMail {
   to: string;
   subject: string;
@@ -12,8 +12,10 @@ interface SentMail {
   headers?: Record<string, string>;
 }
 const sent: SentMail[] = [];
+let sendFails = false;
 vi.mock("~/services/mail.server", () => ({
   sendMail: async (mail: SentMail) => {
+    if (sendFails) throw new Error("mail server down");
     sent.push(mail);
     return { messageId: `test-${sent.length}` };
   },
@@ -97,5 +99,33 @@ describe("order mails along the path", () => {
     expect(await jobsFor(QUEUES.orderMail, order.id)).toHaveLength(before);
     expect(await deliverOrderMail({ orderId: order.id, eventId: "00000000-0000-4000-8000-000000000000", to: "buyer" })).toBe(false);
     expect(sent).toEqual([]);
+  });
+});
+
+describe("once per event and side", () => {
+  it("a retried or doubled job sends nothing twice; a failed send leaves no mark and its retry sends", async () => {
+    const clock = testClock();
+    const c = await cast();
+    const order = await reserve(c, clock);
+    await fund(order, clock);
+    const jobs = await jobsFor(QUEUES.orderMail, order.id);
+    const toBuyer = jobs.find((j) => j.data.to === "buyer")!;
+    const toSeller = jobs.find((j) => j.data.to === "seller")!;
+
+    // The same job twice at once (a doubled job), then again (a retry after the send): one mail.
+    const runs = await Promise.all([deliverOrderMail(toBuyer.data), deliverOrderMail(toBuyer.data)]);
+    expect(runs.filter(Boolean)).toHaveLength(1);
+    expect(await deliverOrderMail(toBuyer.data)).toBe(false);
+    expect(sent.filter((m) => m.to === c.buyer.email)).toHaveLength(1);
+
+    // The seller's side is its own mark: the buyer's mail does not stand for it.
+    sendFails = true;
+    await expect(deliverOrderMail(toSeller.data)).rejects.toThrow("mail server down");
+    sendFails = false;
+    expect(sent.filter((m) => m.to === c.seller.email)).toHaveLength(0);
+    expect(await deliverOrderMail(toSeller.data)).toBe(true);
+    expect(await deliverOrderMail(toSeller.data)).toBe(false);
+    expect(sent.filter((m) => m.to === c.seller.email)).toHaveLength(1);
+    for (const j of jobs) done.add(j.id);
   });
 });

@@ -7,27 +7,34 @@ import type { OrderDetailView } from "../order-view";
 import { DeliveryPanel } from "./DeliveryPanel";
 import { MoneyPanel, NextStep, OrderHead, Timeline, When } from "./OrderParts";
 import { ResolveForm } from "./ResolveForm";
+import { ContestCaptures, ContestPhotos, DeskThreadCard } from "./DeskEvidence";
+import type { DeskThread } from "../desk-thread.server";
+import { AuditTrail, type AuditTrailLine } from "~/desk/ui/AuditTrail";
+import { ClaimBanner, type ClaimState } from "~/desk/ui/ClaimBanner";
 
 // The desk's contested-order screen: the buyer's evidence beside the seller's listing, the decision
 // form while it is contested, and the whole timeline.
 
 const linkClass = "font-medium text-walnut underline decoration-walnut/40 underline-offset-2 hover:text-walnut-deep";
 
-export function DeskOrderPage({
-  page,
-  errors,
-  values,
-}: {
-  page: { view: OrderDetailView; contest: ContestView | null; refundableMinor: number };
-  errors: FieldErrors;
-  values: Record<string, string>;
-}) {
-  const { view, contest } = page;
+export interface DeskOrderData {
+  view: OrderDetailView;
+  contest: ContestView | null;
+  refundableMinor: number;
+  claim: ClaimState | null;
+  claimMinutes: number;
+  trail: AuditTrailLine[];
+  thread: DeskThread | null;
+}
+
+export function DeskOrderPage({ page, errors, values }: { page: DeskOrderData; errors: FieldErrors; values: Record<string, string> }) {
+  const { view, contest, claim } = page;
   return (
     <main className="mx-auto w-full max-w-6xl space-y-6 px-4 pb-16 pt-6 sm:px-6">
       <OrderHead order={view} backTo={{ href: "/desk", label: "Review desk" }} />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-6">
+          {claim ? <ClaimBanner claim={claim} minutes={page.claimMinutes} /> : null}
           <NextStep next={view.next} />
           {contest ? (
             <div className="grid gap-5 xl:grid-cols-2">
@@ -50,6 +57,8 @@ export function DeskOrderPage({
                   {contest.captureCount === 1 ? "" : "s"}
                   {contest.equipment ? ` · measured with ${contest.equipment}` : ""}
                 </p>
+                <ContestPhotos photos={contest.photos} />
+                <ContestCaptures captures={contest.captures} />
               </Card>
               <Card className="space-y-3" aria-labelledby="seller-evidence">
                 <h2 id="seller-evidence" className="text-xl">
@@ -64,11 +73,11 @@ export function DeskOrderPage({
                       The listing and its bench sheet
                     </Link>
                   </li>
-                  {view.threadHref ? (
+                  {page.thread ? (
                     <li>
-                      <Link to={view.threadHref} className={linkClass}>
-                        Their messages
-                      </Link>
+                      <a href="#desk-thread" className={linkClass}>
+                        Their conversation, below
+                      </a>
                     </li>
                   ) : null}
                 </ul>
@@ -85,7 +94,13 @@ export function DeskOrderPage({
             <p className="text-sm text-ink-soft">The buyer gave no readings of their own.</p>
           ) : null}
           {view.state === "contested" ? (
-            <ResolveForm currency={view.money.currency} refundableMinor={page.refundableMinor} errors={errors} values={values} />
+            <ResolveForm
+              currency={view.money.currency}
+              refundableMinor={page.refundableMinor}
+              errors={errors}
+              values={values}
+              disabled={claim ? !claim.mine : false}
+            />
           ) : contest?.resolutionNote ? (
             <Card className="space-y-1">
               <h2 className="text-xl">Decision</h2>
@@ -93,6 +108,8 @@ export function DeskOrderPage({
               <p className="whitespace-pre-line text-sm text-ink">{contest.resolutionNote}</p>
             </Card>
           ) : null}
+          <DeskThreadCard thread={page.thread} buyer={view.buyerName} seller={view.sellerName} />
+          <AuditTrail items={page.trail} title="The order's trail" />
           <Timeline events={view.events} />
         </div>
         <aside className="space-y-5" aria-label="Money and delivery">

@@ -13,11 +13,14 @@ export function ResolveForm({
   refundableMinor,
   errors,
   values,
+  disabled = false,
 }: {
   currency: string;
   refundableMinor: number;
   errors: FieldErrors;
   values: Record<string, string>;
+  /** Another moderator holds the order: the form shows, closed (the server refuses it anyway). */
+  disabled?: boolean;
 }) {
   const busy = useNavigation().state === "submitting";
   const chosen = values.resolution ?? "";
@@ -43,50 +46,52 @@ export function ResolveForm({
       </h2>
       <Form method="post" className="space-y-4" noValidate>
         <input type="hidden" name="intent" value="resolve" />
-        <FormError>{errors.form}</FormError>
-        <fieldset className="space-y-2" aria-describedby={errors.resolution ? "resolution-error" : undefined}>
-          <legend className="mb-1 text-sm font-medium text-ink">What happens to the held money</legend>
-          {option("release", "Release to the seller", "The unit is as described; the seller is paid less the platform fee.")}
-          {option(
-            "refund_whole",
-            "Refund the buyer in whole",
-            <>
-              <Money minor={refundableMinor} currency={currency} /> back to the buyer; arrange the unit's return with both sides.
-            </>,
-          )}
-          {option(
-            "refund_part",
-            "Refund the buyer in part",
-            "The amount below goes back to the buyer; the rest is released to the seller.",
-          )}
-          {errors.resolution ? (
-            <p id="resolution-error" role="alert" className="text-[0.8125rem] font-medium text-fault">
-              {errors.resolution}
-            </p>
-          ) : null}
+        <fieldset disabled={disabled} className="space-y-4">
+          <FormError>{errors.form}</FormError>
+          <fieldset className="space-y-2" aria-describedby={errors.resolution ? "resolution-error" : undefined}>
+            <legend className="mb-1 text-sm font-medium text-ink">What happens to the held money</legend>
+            {option("release", "Release to the seller", "The unit is as described; the seller is paid less the platform fee.")}
+            {option(
+              "refund_whole",
+              "Refund the buyer in whole",
+              <>
+                <Money minor={refundableMinor} currency={currency} /> back to the buyer; arrange the unit's return with both sides.
+              </>,
+            )}
+            {option(
+              "refund_part",
+              "Refund the buyer in part",
+              "The amount below goes back to the buyer; the rest is released to the seller.",
+            )}
+            {errors.resolution ? (
+              <p id="resolution-error" role="alert" className="text-[0.8125rem] font-medium text-fault">
+                {errors.resolution}
+              </p>
+            ) : null}
+          </fieldset>
+          <Field
+            label={`Part refund (${currency})`}
+            name="amount"
+            inputMode="decimal"
+            autoComplete="off"
+            defaultValue={values.amount}
+            error={errors.amount}
+            hint="Only for a part refund: less than what the buyer paid."
+            className="max-w-56"
+            unit={currency}
+          />
+          <TextareaField
+            label="Note"
+            name="note"
+            rows={4}
+            defaultValue={values.note}
+            error={errors.note}
+            hint="Why you decided so. Both sides read it, and it stays on the order's timeline."
+          />
+          <Button type="submit" busy={busy}>
+            Record the decision
+          </Button>
         </fieldset>
-        <Field
-          label={`Part refund (${currency})`}
-          name="amount"
-          inputMode="decimal"
-          autoComplete="off"
-          defaultValue={values.amount}
-          error={errors.amount}
-          hint="Only for a part refund: less than what the buyer paid."
-          className="max-w-56"
-          unit={currency}
-        />
-        <TextareaField
-          label="Note"
-          name="note"
-          rows={4}
-          defaultValue={values.note}
-          error={errors.note}
-          hint="Why you decided so. Both sides read it, and it stays on the order's timeline."
-        />
-        <Button type="submit" busy={busy}>
-          Record the decision
-        </Button>
       </Form>
     </Card>
   );

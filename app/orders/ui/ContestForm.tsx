@@ -6,6 +6,7 @@ import { ReceivingSafely } from "~/components/cautions/ReceivingSafely";
 import { CONTEST_NOTE_MAX, CONTEST_PHOTOS_MAX, CONTEST_REASONS, CONTEST_REASON_LABELS } from "../contest-words";
 import type { FieldErrors } from "../readings-form";
 import { ReadingsEntry } from "./ReadingsEntry";
+import { ContestCaptureFields } from "./ContestCaptureFields";
 
 // Contesting an order inside the audition window: a reason, what is wrong in the buyer's words, photos,
 // and the buyer's own figures beside the bench sheet's. Multipart, so photos travel with it; it posts
@@ -78,8 +79,8 @@ export function ContestForm({ figures, errors = {}, values = {}, action = `?inte
           className="block w-full text-sm text-ink-soft file:mr-3 file:rounded-md file:border file:border-rule-strong file:bg-card file:px-3 file:py-1.5 file:text-sm file:text-ink"
         />
         <p id="contest-photos-hint" className="text-[0.8125rem] text-ink-faint">
-          Up to {CONTEST_PHOTOS_MAX} JPEG or PNG photos: damage, the packing, your measurement set-up. Only the seller and the moderators
-          see them.
+          Up to {CONTEST_PHOTOS_MAX} JPEG or PNG photos: damage, the packing, your measurement set-up. Only you and Loadline's moderators
+          see them, with their camera and location details removed.
         </p>
         {errors.photos ? (
           <p id="contest-photos-error" role="alert" className="text-[0.8125rem] font-medium text-fault">
@@ -89,6 +90,7 @@ export function ContestForm({ figures, errors = {}, values = {}, action = `?inte
       </div>
       <ReceivingSafely headingLevel={3} />
       <ReadingsEntry figures={figures} errors={errors} values={values} />
+      <ContestCaptureFields errors={errors} values={values} />
       <Button type="submit" variant="danger">
         Contest the order
       </Button>

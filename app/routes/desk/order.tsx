@@ -7,7 +7,8 @@ import { requestClock } from "~/buying/clock.server";
 import { deskOrderPage, resolveFromDesk } from "~/buying/desk-order.server";
 import { DeskOrderPage } from "~/buying/ui/DeskOrderPage";
 
-// /desk/orders/:orderId: a contested order on the review desk: both sides' evidence and the decision.
+// /desk/orders/:orderId: a contested order on the review desk: both sides' evidence, their conversation,
+// the claim (opening it takes it), the decision and the order's trail.
 
 export function meta({ data: page }: Route.MetaArgs) {
   return [{ title: page ? `Order ${page.view.ref} · Review desk · Loadline` : "Order · Review desk · Loadline" }];
@@ -15,7 +16,7 @@ export function meta({ data: page }: Route.MetaArgs) {
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const moderator = await requireRole(request, "moderator");
-  return data(await deskOrderPage(moderator, params.orderId), { headers: { "Cache-Control": "private, no-store" } });
+  return data(await deskOrderPage(moderator, params.orderId, await requestClock()), { headers: { "Cache-Control": "private, no-store" } });
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
