@@ -9,6 +9,7 @@ import { OrderEvent } from "~/models/order-event.server";
 import { LedgerEntry } from "~/models/ledger-entry.server";
 import { OrderContest } from "~/models/order-contest.server";
 import { MarketplaceSettings } from "~/models/marketplace-settings.server";
+import { Review } from "~/models/review.server";
 
 // Each model initialises itself on import; this module wires the catalogue's associations.
 // Import catalogue models from here so the associations are always in place.
@@ -44,6 +45,11 @@ wire(Order, "events", () => Order.hasMany(OrderEvent, { foreignKey: "orderId", a
 wire(Order, "ledger", () => Order.hasMany(LedgerEntry, { foreignKey: "orderId", as: "ledger" }));
 wire(Order, "contest", () => Order.hasOne(OrderContest, { foreignKey: "orderId", as: "contest" }));
 
+// Reputation: a review belongs to its order and names both people.
+wire(Review, "order", () => Review.belongsTo(Order, { foreignKey: "orderId", as: "order" }));
+wire(Review, "buyer", () => Review.belongsTo(User, { foreignKey: "buyerId", as: "buyer" }));
+wire(Order, "review", () => Order.hasOne(Review, { foreignKey: "orderId", as: "review" }));
+
 export {
   User,
   Workshop,
@@ -56,4 +62,5 @@ export {
   LedgerEntry,
   OrderContest,
   MarketplaceSettings,
+  Review,
 };
