@@ -77,4 +77,11 @@ export default [
   route("sales/:orderId", "routes/buying/sale.tsx"),
   route("desk/orders/:orderId", "routes/desk/order.tsx"),
   route("admin/settings", "routes/admin/settings.tsx"),
+  // Reputation: sellers' and workshops' public pages, the buyer's review of a completed order, the
+  // seller's answer, and the desk's page for hiding an abusive review
+  route("sellers/:id", "routes/sellers/seller.tsx"),
+  route("workshops/:slug", "routes/sellers/workshop.tsx"),
+  route("purchases/:orderId/review", "routes/buying/purchase-review.tsx"),
+  route("sales/:orderId/review", "routes/buying/sale-review.tsx"),
+  route("desk/reviews/:id", "routes/desk/review.tsx"),
 ] satisfies RouteConfig;
