@@ -12,6 +12,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES
 import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 import { seedDemoPayouts } from "./demo-payouts";
+import { seedDemoSales } from "./demo-sales";
 
 // Loads the invented demo scenario. Idempotent: accounts are matched by e-mail, workshops by slug and
 // listings by (seller, serial number); anything already there is left exactly as it is, so a restart
@@ -60,6 +61,9 @@ export async function seedDemo(): Promise<SeedResult> {
   if (orphans.length) await deleteObjects(orphans);
   created = (await seedDemoCaptures()).created || created;
   created = (await seedDemoPayouts()).connected > 0 || created;
+  // Completed sales (and their reviews) need the sellers' payout accounts connected just above.
+  const sales = await seedDemoSales((unit, users, workshops) => sequelize.transaction((t) => ensureListing(unit, users, workshops, [], t)));
+  created = sales.created > 0 || created;
   return { created, accounts };
 }
 
@@ -207,7 +211,7 @@ function shippingFor(unit: DemoUnit, town: string): ShippingOption[] {
   return ShippingOptionsSchema.parse(options);
 }
 
-async function ensureListing(
+export async function ensureListing(
   unit: DemoUnit,
   users: Record<AccountKey, string>,
   workshops: Partial<Record<AccountKey, string>>,
