@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import type { ChildProcess } from "node:child_process";
+import pg from "pg";
 import { bin, bringUp, finished, launch, profile, stopChild, waitForHttp } from "./stack";
 
 // `npm test`: a throw-away cluster and stand-ins on their own ports, then typecheck, lint, the unit,
@@ -118,6 +119,19 @@ async function lint(env: Record<string, string>) {
   }
 }
 
+// The integration suites queue jobs (mails, deadlines, photos) that no worker ran; left in place,
+// the browser suite's worker would spend minutes on them before the jobs its own walkthroughs wait for.
+async function dropQueuedJobs(databaseUrl: string) {
+  const client = new pg.Client({ connectionString: databaseUrl });
+  await client.connect();
+  try {
+    const { rowCount } = await client.query(`DELETE FROM pgboss.job WHERE state < 'completed'`);
+    console.log(`[setup] dropped ${rowCount} jobs left queued by the integration suites`);
+  } finally {
+    await client.end();
+  }
+}
+
 async function browserSuite(env: Record<string, string>) {
   console.log("\n== Browser suite");
   const build = await finished(launch(bin("react-router"), ["build"], { ...env, NODE_ENV: "production" }, true));
@@ -125,6 +139,7 @@ async function browserSuite(env: Record<string, string>) {
     total.failed += 1;
     failures.push("react-router build failed");
   } else {
+    await dropQueuedJobs(env.DATABASE_URL);
     const serverEnv = { ...env, NODE_ENV: "production", HOST: "127.0.0.1" };
     const web = launch(bin("tsx"), ["scripts/serve.ts"], serverEnv, true);
     children.push(web, launch(bin("tsx"), ["scripts/worker.ts"], env, true));

@@ -38,6 +38,9 @@ export const ERROR_CODES = {
   already_done: 409,
   // An offer that was answered, withdrawn or has expired
   offer_closed: 409,
+  // The review desk: another moderator holds the item; the item has moved on since the page was read
+  item_taken: 409,
+  item_state: 409,
   // A file that was read but cannot be used (photos; empty_file and file_too_large come with the capture codes)
   damaged_file: 422,
   truncated_file: 422,

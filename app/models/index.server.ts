@@ -10,6 +10,9 @@ import { LedgerEntry } from "~/models/ledger-entry.server";
 import { OrderContest } from "~/models/order-contest.server";
 import { MarketplaceSettings } from "~/models/marketplace-settings.server";
 import { Review } from "~/models/review.server";
+import { AuditRecord } from "~/models/audit-record.server";
+import { DeskClaim } from "~/models/desk-claim.server";
+import { DeskFlag } from "~/models/desk-flag.server";
 
 // Each model initialises itself on import; this module wires the catalogue's associations.
 // Import catalogue models from here so the associations are always in place.
@@ -45,6 +48,12 @@ wire(Order, "events", () => Order.hasMany(OrderEvent, { foreignKey: "orderId", a
 wire(Order, "ledger", () => Order.hasMany(LedgerEntry, { foreignKey: "orderId", as: "ledger" }));
 wire(Order, "contest", () => Order.hasOne(OrderContest, { foreignKey: "orderId", as: "contest" }));
 
+// The review desk: who acted, who holds an item, and a flag's listing and reporter.
+wire(AuditRecord, "actor", () => AuditRecord.belongsTo(User, { foreignKey: "actorId", as: "actor" }));
+wire(DeskClaim, "moderator", () => DeskClaim.belongsTo(User, { foreignKey: "moderatorId", as: "moderator" }));
+wire(DeskFlag, "listing", () => DeskFlag.belongsTo(Listing, { foreignKey: "listingId", as: "listing" }));
+wire(DeskFlag, "reporter", () => DeskFlag.belongsTo(User, { foreignKey: "reporterId", as: "reporter" }));
+
 // Reputation: a review belongs to its order and names both people.
 wire(Review, "order", () => Review.belongsTo(Order, { foreignKey: "orderId", as: "order" }));
 wire(Review, "buyer", () => Review.belongsTo(User, { foreignKey: "buyerId", as: "buyer" }));
@@ -63,4 +72,7 @@ export {
   OrderContest,
   MarketplaceSettings,
   Review,
+  AuditRecord,
+  DeskClaim,
+  DeskFlag,
 };

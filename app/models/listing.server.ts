@@ -52,6 +52,8 @@ export class Listing extends Model<InferAttributes<Listing>, InferCreationAttrib
   declare benchVerified: CreationOptional<boolean>;
   declare publishedAt: Date | null;
   declare heldReason: string | null;
+  /** The moderator's note when they asked for changes; shown in the seller's editor. */
+  declare reviewNote: CreationOptional<string | null>;
   declare power8ohmW: number | null;
   declare power4ohmW: number | null;
   declare thdPct: number | null;
@@ -129,6 +131,7 @@ Listing.init(
     benchVerified: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     publishedAt: nullable(DataTypes.DATE),
     heldReason: nullable(DataTypes.TEXT),
+    reviewNote: nullable(DataTypes.TEXT),
     // Facet columns, named for their units (shared/listing-facets.ts fills them).
     power8ohmW: facet("power_8ohm_w"),
     power4ohmW: facet("power_4ohm_w"),

@@ -69,7 +69,8 @@ export async function demoUnit(opts: { sellerEmail?: string; weightG?: number; p
       cosmeticGrade: "clean",
       serviceState: "serviced_measured",
       benchVerified: verdict.benchVerified,
-      publishedAt: new Date(),
+      // Back-dated so the market's newest-first pages keep the demo units other suites open from page 1.
+      publishedAt: new Date(Date.UTC(2020, 0, 1)),
       ...listingFacets(sheet),
     }),
   );
