@@ -5,6 +5,7 @@ import { Listing, Order, Review, User } from "~/models/index.server";
 import { lockOrder, notFound } from "~/orders/step.server";
 import type { Clock } from "~/orders/clock.server";
 import { recordAudit } from "~/desk/audit.server";
+import { appLink, sendNotice } from "~/alerts/mail.server";
 import { listingTitle } from "@shared/catalogue";
 import { isId } from "@shared/ids";
 import { AnswerForm, HideForm, ReviewForm, readFields, type FieldErrors } from "./review-form";
@@ -119,7 +120,7 @@ export async function answerReview(sellerId: string, orderId: string, fields: Re
   );
 }
 
-/** A moderator hides an abusive review; the note goes to the audit trail with the review as it was. */
+/** A moderator hides an abusive review; the note goes to the audit trail with the review as it was, and to its writer. */
 export async function hideReview(
   moderatorId: string,
   reviewId: string,
@@ -128,7 +129,8 @@ export async function hideReview(
 ): Promise<FormResult> {
   const read = readFields(HideForm, fields);
   if (!read.ok) return { ok: false, status: 400, errors: read.errors };
-  return refusedAsForm(() =>
+  const out: { hidden?: Review } = {};
+  const done = await refusedAsForm(() =>
     sequelize.transaction(async (tx) => {
       const review = await lockReview(reviewId, tx);
       if (review.hiddenAt) throw refusal("already_done", "This review is already hidden.");
@@ -146,8 +148,29 @@ export async function hideReview(
         },
         tx,
       );
+      out.hidden = review;
     }),
   );
+  if (done.ok && out.hidden)
+    await tellTheWriter(out.hidden).catch((e: unknown) => console.error("[reviews] the hidden-review mail failed", e));
+  return done;
+}
+
+/** The buyer hears that their review was hidden, and why (after the change is committed; a lost mail changes nothing). */
+async function tellTheWriter(review: Review): Promise<void> {
+  const buyer = await User.findByPk(review.buyerId, { attributes: ["email", "displayName"] });
+  if (!buyer) return;
+  await sendNotice({
+    to: buyer.email,
+    subject: "Your review was hidden by the review desk",
+    greeting: `Hello ${buyer.displayName},`,
+    paragraphs: [
+      "A moderator has hidden your review of a seller on Loadline, so it no longer shows on the seller's page or counts in their rating.",
+      `The moderator's note: ${review.hiddenNote ?? ""}`,
+    ],
+    groups: [],
+    links: [{ label: "Your review", href: appLink(`/purchases/${review.orderId}/review`) }],
+  });
 }
 
 async function lockReview(reviewId: string, tx: Transaction): Promise<Review> {

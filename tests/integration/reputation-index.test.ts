@@ -7,44 +7,12 @@ import { afterAll, describe, expect, it, vi } from "vitest";
 vi.mock("~/services/mail.server", () => ({ sendMail: async () => ({ messageId: "test" }) }));
 
 const { sequelize } = await import("~/db.server");
-const t = await import("~/orders/transitions.server");
 const { soldPriceIndex } = await import("~/reputation/price-index.server");
 const { currentRates } = await import("~/currencies/rates.server");
 const { convertMinor } = await import("@shared/currency");
-const { testClock } = await import("../support/clock");
-const { person, seller: newSeller, liveUnit } = await import("./orders-support");
+const { sale } = await import("./reputation-support");
 
 afterAll(() => sequelize.close());
-
-const clock = testClock("2026-12-30T10:00:00Z");
-
-/** A unit of `maker`/`model` sold at `priceMinor` (collection, so the total is the price); `refund` part-refunds it through a contest. */
-async function sale(
-  maker: string,
-  model: string,
-  priceMinor: number,
-  opts: { verified?: boolean; currency?: string; refund?: number; stopInAudition?: boolean } = {},
-) {
-  const s = await newSeller();
-  const buyer = await person("buyer");
-  const unit = await liveUnit(s.id, { maker, model, priceMinor, currency: opts.currency ?? "EUR", benchVerified: opts.verified ?? false });
-  let order = await t.reserveUnit({ listingId: unit.id, buyerId: buyer.id, deliveryMethod: "collection", deliveryZone: "domestic" }, clock);
-  const ref = order.id;
-  order = await t.markFunded(
-    order.id,
-    { paymentIntentId: `pi_${ref}`, chargeId: `ch_${ref}`, amountMinor: order.totalMinor, currency: order.currency, eventId: `evt_${ref}` },
-    clock,
-  );
-  await t.markShipped(order.id, s.id, { carrier: "Parcelwise", trackingNumber: "PW1" }, clock);
-  order = await t.confirmArrival(order.id, buyer.id, clock);
-  if (opts.stopInAudition) return order;
-  if (opts.refund) {
-    await t.contestOrder(order.id, buyer.id, { reason: "Scratches not shown." }, clock);
-    const moderator = await person("moderator", ["moderator"]);
-    return t.resolveContest(order.id, moderator.id, { refundMinor: opts.refund, note: "Part refund for the scratches." }, clock);
-  }
-  return t.acceptUnit(order.id, buyer.id, clock);
-}
 
 const model = () => `Index ${randomBytes(3).toString("hex")}`;
 

@@ -7,6 +7,7 @@ import { SpecAlert } from "~/models/spec-alert.server";
 import { MessageThread } from "~/models/message-thread.server";
 import { Offer } from "~/models/offer.server";
 import { Order } from "~/models/order.server";
+import { Review } from "~/models/review.server";
 import { issueUnsubscribeUrl } from "~/alerts/unsubscribe.server";
 import { hashPassword } from "~/auth/password.server";
 import type { Role } from "~/auth/roles";
@@ -55,6 +56,8 @@ export interface Fixtures {
   offer: Offer;
   /** The buyer's paid order of another of the owner's units (the owner is its seller). */
   order: Order;
+  /** The buyer's review of that order (made straight in the database). */
+  review: Review;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -191,7 +194,8 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     fundedAt: new Date(),
     shipBy: new Date(Date.now() + 3 * 86_400_000),
   });
-  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer, order };
+  const review = await Review.create({ orderId: order.id, sellerId: ownerId, buyerId: users.buyer.id, rating: 4, body: "Matrix review." });
+  return { run, password, users, draft, held, live, photo, capture, media, alert, unsubscribeToken, thread, offer, order, review };
 }
 
 /** A signed-in agent per persona (anonymous: no cookie). */
