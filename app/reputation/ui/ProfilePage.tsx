@@ -23,15 +23,7 @@ export function ProfilePage({ profile }: { profile: SellerProfile }) {
         title={name}
         lede={workshop?.place ?? null}
         actions={
-          workshop ? (
-            workshop.verified ? (
-              <Badge tone="trace">Verified workshop</Badge>
-            ) : (
-              <Badge>Workshop, not yet verified</Badge>
-            )
-          ) : (
-            <Badge>Private seller</Badge>
-          )
+          workshop ? workshop.verified ? <Badge tone="trace">Verified workshop</Badge> : <Badge>Workshop, not yet verified</Badge> : null
         }
       />
       {workshop?.about ? <p className="max-w-3xl leading-relaxed text-ink-soft">{workshop.about}</p> : null}
