@@ -32,12 +32,13 @@ describe("the demo scenario's completed sales", () => {
     for (const order of orders) {
       expect(order.state).toBe("released");
       const b = await balancesFor(order.id);
+      const total: number = order.totalMinor;
       expect(b).toEqual({
-        buyer: -order.totalMinor,
+        buyer: -total,
         escrow: 0,
         platform_fees: order.feeMinor,
         seller_payable: 0,
-        seller_paid: order.totalMinor - order.feeMinor!,
+        seller_paid: total - order.feeMinor!,
       });
       const [{ events }] = await sequelize.query<{ events: number }>(
         `SELECT count(*)::int AS events FROM order_events WHERE order_id = :id`,
