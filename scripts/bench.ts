@@ -9,6 +9,19 @@ import { analyseCapture } from "../app/bench/captures.server";
 import { decodeWavData, readWavFormat } from "../app/bench/wav.server";
 import { bareFft, nextPowerOfTwo } from "../shared/bench/analysis";
 
+// `npm run bench -- --only search` (or several parts, comma-separated) measures only those parts; the
+// scale seed runs whenever search or pages is among them. Without --only everything runs.
+const SECTIONS = ["capture", "sheet", "photos", "edge", "weight", "search", "pages", "account"] as const;
+type SectionName = (typeof SECTIONS)[number];
+const onlyAt = process.argv.indexOf("--only");
+const only = onlyAt > 0 ? (process.argv[onlyAt + 1] ?? "").split(",").filter(Boolean) : null;
+const unknown = only?.filter((name) => !(SECTIONS as readonly string[]).includes(name)) ?? [];
+if (only && (only.length === 0 || unknown.length)) {
+  console.error(`--only: one or more of ${SECTIONS.join(", ")}, comma-separated (not ${unknown.join(", ") || "nothing"})`);
+  process.exit(2);
+}
+const runs = (name: SectionName) => !only || only.includes(name);
+
 // A limit is a ceiling (the value must stay under it), or with atLeast a floor (Lighthouse scores).
 type Figure = { label: string; value: number; unit: string; limit?: number; atLeast?: boolean };
 const { WaveFile } = wavefile as unknown as {
@@ -121,6 +134,7 @@ type Section = { figures: Figure[]; notes: string[]; failed?: boolean };
 // pace are measured at that size.
 async function serverFigures(): Promise<Section> {
   if (process.argv.includes("--no-server")) return { figures: [], notes: ["server figures left out (--no-server)"] };
+  if (!["edge", "weight", "search", "pages"].some((name) => runs(name as SectionName))) return { figures: [], notes: [] };
   const out: Section = { figures: [], notes: [] };
   const section = async (what: string, measure: () => Promise<{ figures: Figure[]; notes?: string[] }>) => {
     try {
@@ -140,9 +154,10 @@ async function serverFigures(): Promise<Section> {
     return { figures: [], notes: [`server figures could not be measured: ${(e as Error).message}`], failed: true };
   }
   try {
-    await section("the request edge", async () => (await import("./bench/edge")).edgeFigures(app));
+    if (runs("edge")) await section("the request edge", async () => (await import("./bench/edge")).edgeFigures(app));
     // What a phone gets from the public pages, on the demo scenario (its listings have photos and plots).
-    await section("the page weights", async () => (await import("./bench/weight")).weightFigures(app.base));
+    if (runs("weight")) await section("the page weights", async () => (await import("./bench/weight")).weightFigures(app.base));
+    if (!runs("search") && !runs("pages")) return out;
     const at = process.argv.indexOf("--listings");
     const listings = at > 0 ? Number(process.argv[at + 1]) : 100_000;
     await section("the scale seed", async () => {
@@ -160,19 +175,20 @@ async function serverFigures(): Promise<Section> {
         ],
       };
     });
-    await section("search through the API", async () => (await import("./bench/search")).searchFigures(app));
-    await section("the public pages", async () => ({ figures: await (await import("./bench/pages")).measurePages(app.base) }));
+    if (runs("search")) await section("search through the API", async () => (await import("./bench/search")).searchFigures(app));
+    if (runs("pages"))
+      await section("the public pages", async () => ({ figures: await (await import("./bench/pages")).measurePages(app.base) }));
   } finally {
     await app.stop();
   }
   return out;
 }
 
-const figures = await captureFigures();
-const sheet = await sheetFigures();
+const figures = runs("capture") ? await captureFigures() : [];
+const sheet: Awaited<ReturnType<typeof sheetFigures>> = runs("sheet") ? await sheetFigures() : { figures: [] };
 figures.push(...sheet.figures);
 const notes = [sheet.note];
-figures.push(...(await (await import("./bench/photos")).photoFigures()));
+if (runs("photos")) figures.push(...(await (await import("./bench/photos")).photoFigures()));
 const server = await serverFigures();
 figures.push(...server.figures);
 notes.push(...server.notes);
@@ -180,16 +196,19 @@ notes.push(...server.notes);
 // The anonymous account forms' timing and health checks under load need a running app: `npm start`,
 // or BENCH_URL.
 const benchUrl = process.env.BENCH_URL ?? "http://127.0.0.1:3000";
-const answers = await fetch(`${benchUrl}/healthz`, { signal: AbortSignal.timeout(5000) }).then(
-  () => true,
-  () => false,
-);
-const accountNote = answers
-  ? undefined
-  : `account-form timing skipped: nothing answers at ${benchUrl} (run \`npm start\`, or set BENCH_URL)`;
+const answers =
+  runs("account") &&
+  (await fetch(`${benchUrl}/healthz`, { signal: AbortSignal.timeout(5000) }).then(
+    () => true,
+    () => false,
+  ));
+const accountNote =
+  answers || !runs("account")
+    ? undefined
+    : `account-form timing skipped: nothing answers at ${benchUrl} (run \`npm start\`, or set BENCH_URL)`;
 if (answers) figures.push(...(await (await import("./bench/account-timing")).accountTimingFigures(benchUrl)));
 if (answers) figures.push(...(await (await import("./bench/health")).healthFigures(benchUrl)));
-else notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);
+else if (runs("account")) notes.push(`health-check load figures skipped: nothing answers at ${benchUrl}`);
 
 let missed = server.failed ? 1 : 0;
 for (const f of figures) {

@@ -26,7 +26,27 @@ export interface Conditions {
   figuresGate: string;
 }
 
-export function conditions(f: MarketFilters, b: Binds): Conditions {
+/**
+ * The price bounds in euro cents at the admin's rates (null where a currency has no rate), worked out once
+ * per search by `euroBoundsQuery`. Without them the bounds are the conversion function in the SQL, which
+ * the planner estimates as well but which runs once per row wherever the price is a filter and not the
+ * index's condition (a query of the rates table each time: most of a counting scan's time).
+ */
+export interface EuroBounds {
+  min: string | null;
+  max: string | null;
+}
+
+/** The SQL that converts the price filter's bounds to euro cents, as the listings' own column is kept; null without a price filter. */
+export function euroBoundsQuery(f: MarketFilters): { sql: string; bind: unknown[] } | null {
+  if (f.priceMinMinor === null && f.priceMaxMinor === null) return null;
+  return {
+    sql: `SELECT loadline_eur_minor($1::bigint, $3::char(3))::text AS min, loadline_eur_minor($2::bigint, $3::char(3))::text AS max`,
+    bind: [f.priceMinMinor, f.priceMaxMinor, f.currency],
+  };
+}
+
+export function conditions(f: MarketFilters, b: Binds, euro?: EuroBounds): Conditions {
   const common = ["l.status = 'live'"];
   const dims = new Map<Dimension, string>();
   if (f.q) common.push(`l.search_doc @@ loadline_search_query(${b.add(f.q, "::text")})`);
@@ -35,11 +55,13 @@ export function conditions(f: MarketFilters, b: Binds): Conditions {
     // The euro column narrows through its index; in the buyer's own currency the asked price is exact.
     if (f.priceMinMinor !== null) {
       const min = b.add(f.priceMinMinor, "::bigint");
-      common.push(`l.price_eur_minor >= loadline_eur_minor(${min}, ${cur})`, `(l.currency <> ${cur} OR l.price_minor >= ${min})`);
+      const eur = euro ? b.add(euro.min, "::bigint") : `loadline_eur_minor(${min}, ${cur})`;
+      common.push(`l.price_eur_minor >= ${eur}`, `(l.currency <> ${cur} OR l.price_minor >= ${min})`);
     }
     if (f.priceMaxMinor !== null) {
       const max = b.add(f.priceMaxMinor, "::bigint");
-      common.push(`l.price_eur_minor <= loadline_eur_minor(${max}, ${cur})`, `(l.currency <> ${cur} OR l.price_minor <= ${max})`);
+      const eur = euro ? b.add(euro.max, "::bigint") : `loadline_eur_minor(${max}, ${cur})`;
+      common.push(`l.price_eur_minor <= ${eur}`, `(l.currency <> ${cur} OR l.price_minor <= ${max})`);
     }
   }
   if (f.mains !== null) {
@@ -132,7 +154,10 @@ export function after(spec: SortSpec, values: string[], b: Binds): string {
   return `(${left}) ${spec.desc ? "<" : ">"} (${right})`;
 }
 
-/** The keys selected as exact text, so a cursor repeats them without any rounding. */
-export function keySelect(spec: SortSpec): string {
-  return spec.keys.map((k, i) => `(${k.expr})::text AS k${i}`).join(", ");
+/**
+ * The keys selected as exact text, so a cursor repeats them without any rounding: from their expressions,
+ * or from the columns `o0, o1 …` of a subquery aliased `from` that computed them already.
+ */
+export function keySelect(spec: SortSpec, from?: string): string {
+  return spec.keys.map((k, i) => `(${from ? `${from}.o${i}` : k.expr})::text AS k${i}`).join(", ");
 }

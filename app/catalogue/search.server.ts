@@ -18,12 +18,14 @@ import {
   after,
   conditions,
   dimensionSql,
+  euroBoundsQuery,
   hasFigure,
   keySelect,
   orderBy,
   sortSpec,
   whereOf,
   type Dimension,
+  type EuroBounds,
 } from "./search-sql.server";
 import { CARD_COLUMNS, CARD_JOINS, summariesFromRows, type CardRow } from "./card-rows.server";
 
@@ -41,6 +43,16 @@ export interface SearchOptions {
   limit?: number;
   /** The HTML page's number (from 1); ignored with a cursor. */
   page?: number;
+  /** The price bounds in euros, from `euroBounds` (else the SQL converts them). */
+  euro?: EuroBounds;
+}
+
+/** The price filter's bounds in euro cents, converted once by the database; undefined without a price filter. */
+export async function euroBounds(filters: MarketFilters): Promise<EuroBounds | undefined> {
+  const q = euroBoundsQuery(filters);
+  if (!q) return undefined;
+  const [row] = await sequelize.query<EuroBounds>(q.sql, { bind: q.bind, type: QueryTypes.SELECT });
+  return row;
 }
 
 /**
@@ -51,7 +63,7 @@ export interface SearchOptions {
 export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): { sql: string; bind: unknown[] } {
   const b = new Binds();
   const spec = sortSpec(filters, b);
-  const where = [whereOf(conditions(filters, b))];
+  const where = [whereOf(conditions(filters, b, opts.euro))];
   const cursor = opts.cursor ?? null;
   if (cursor)
     where.push(
@@ -67,18 +79,19 @@ export function searchQuery(filters: MarketFilters, opts: SearchOptions = {}): {
     );
   const limit = clampLimit(opts.limit);
   const offset = !cursor && opts.page && opts.page > 1 ? ` OFFSET ${b.add((opts.page - 1) * limit, "::int")}` : "";
-  // One row more than the page shows: it says whether there is a next page. The keys come twice: as
-  // exact text for the cursor, and as they are for putting the joined rows back in order.
+  // One row more than the page shows: it says whether there is a next page. Each key is computed once
+  // per candidate row (a rank is the costly one), then outside the page as exact text for the cursor and
+  // as it is for putting the joined rows back in order.
   const ordered = spec.keys.map((k, i) => `${k.expr} AS o${i}`).join(", ");
-  const page = `SELECT l.id, ${keySelect(spec)}, ${ordered} FROM listings l WHERE ${where.join(" AND ")} ORDER BY ${orderBy(spec)} LIMIT ${b.add(limit + 1, "::int")}${offset}`;
+  const page = `SELECT l.id, ${ordered} FROM listings l WHERE ${where.join(" AND ")} ORDER BY ${orderBy(spec)} LIMIT ${b.add(limit + 1, "::int")}${offset}`;
   const reorder = spec.keys.map((_, i) => `p.o${i} ${spec.desc ? "DESC" : "ASC"}`).join(", ");
-  const sql = `SELECT p.id, ${spec.keys.map((_, i) => `p.k${i}`).join(", ")}, ${CARD_COLUMNS} FROM (${page}) p ${CARD_JOINS} ORDER BY ${reorder}`;
+  const sql = `SELECT p.id, ${keySelect(spec, "p")}, ${CARD_COLUMNS} FROM (${page}) p ${CARD_JOINS} ORDER BY ${reorder}`;
   return { sql, bind: b.values };
 }
 
 /** One page of live listings for the filters, with the total and the counts (kept between pages; see cachedCounts). */
 export async function searchListings(filters: MarketFilters, opts: SearchOptions = {}): Promise<ListingsPage> {
-  const { sql, bind } = searchQuery(filters, opts);
+  const { sql, bind } = searchQuery(filters, { ...opts, euro: await euroBounds(filters) });
   const limit = clampLimit(opts.limit);
   const [rows, counted] = await Promise.all([
     sequelize.query<CardRow & Record<string, string>>(sql, { bind, type: QueryTypes.SELECT }),
@@ -191,9 +204,9 @@ export async function settleCounts(): Promise<void> {
 // One pass over the rows the common filters leave: each active dimension becomes a boolean column, and
 // each count is the rows where every other dimension holds.
 /** The SQL behind `filterCounts` (one row: "total" and one column per count), for `npm run bench` too. */
-export function countsQuery(filters: MarketFilters): { sql: string; bind: unknown[] } {
+export function countsQuery(filters: MarketFilters, euro?: EuroBounds): { sql: string; bind: unknown[] } {
   const b = new Binds();
-  const c = conditions(filters, b);
+  const c = conditions(filters, b, euro);
   const dims = [...c.dims.keys()];
   const flag = (d: Dimension) => `d${dims.indexOf(d)}`;
   const others = (leaveOut?: Dimension) => dims.filter((d) => d !== leaveOut).map(flag);
@@ -230,7 +243,7 @@ export function countsQuery(filters: MarketFilters): { sql: string; bind: unknow
 }
 
 async function countsAndTotal(filters: MarketFilters): Promise<Counted> {
-  const { sql, bind } = countsQuery(filters);
+  const { sql, bind } = countsQuery(filters, await euroBounds(filters));
   const [row] = await sequelize.query<Record<string, string>>(sql, { bind, type: QueryTypes.SELECT });
   const n = (name: string) => Number(row?.[name] ?? 0);
   const pick = <T extends string>(prefix: string, list: readonly T[]) =>

@@ -1,5 +1,6 @@
 import { QUEUES, type QueueName } from "~/services/jobs.server";
 import { processPhoto } from "~/photos/process.server";
+import { rehashPhotos } from "~/photos/rehash.server";
 import { analyseCaptureJob } from "~/bench/capture-job.server";
 import { deliverAccountMail } from "~/auth/account-mail-delivery.server";
 import { deliverWatchNotice } from "~/alerts/watch-notices.server";
@@ -18,6 +19,7 @@ export type JobHandler = (data: unknown, jobId: string) => Promise<unknown>;
 
 export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.photoProcess]: processPhoto,
+  [QUEUES.photoRehash]: rehashPhotos,
   [QUEUES.captureAnalyze]: analyseCaptureJob,
   [QUEUES.accountMail]: deliverAccountMail,
   // Keeping track: watch notices, spec-alert matching on publish, the daily digest (scheduled by the worker).

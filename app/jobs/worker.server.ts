@@ -1,11 +1,12 @@
 import { QUEUES, startBoss } from "~/services/jobs.server";
 import { DIGEST_SCHEDULE } from "~/alerts/digest.server";
 import { handlers } from "./handlers.server";
+import { queuePhotoRehashIfNeeded } from "~/photos/rehash.server";
 import { runBatch } from "./batch";
 
 // Light jobs (mails, events, deadlines) ten to a fetch; heavy ones (photos, captures) one at a time,
 // so a batch stays well inside the queue's expiry and the worker's memory budget.
-const HEAVY = new Set<string>([QUEUES.photoProcess, QUEUES.captureAnalyze]);
+const HEAVY = new Set<string>([QUEUES.photoProcess, QUEUES.photoRehash, QUEUES.captureAnalyze]);
 
 export async function startWorker({ log = console.log }: { log?: (line: string) => void } = {}) {
   const boss = await startBoss();
@@ -23,6 +24,8 @@ export async function startWorker({ log = console.log }: { log?: (line: string) 
   }
   // Once a day for every worker together: pg-boss keeps one schedule per name in the database.
   await boss.schedule(QUEUES.alertDigest, DIGEST_SCHEDULE, {}, { tz: "UTC" });
+  // Photos stored before the hash changed scheme are hashed again, once, in the background.
+  if (await queuePhotoRehashIfNeeded()) log("Queued photo-rehash for photos without a perceptual hash");
   log(`Worker listening on ${Object.keys(handlers).join(", ") || "no queues"}`);
   return { stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }

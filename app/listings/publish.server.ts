@@ -8,11 +8,13 @@ import { assertEditable, ownListing } from "./access.server";
 import { verdictUpdate } from "./bench.server";
 import { ListingInputError, ListingStateError } from "./errors.server";
 import { queueAlertMatching } from "~/alerts/matching.server";
+import { COPIED_PHOTO_HELD_REASON, flagCopiedPhotos } from "~/photos/copied.server";
 import { flagLowPrice } from "~/reputation/low-price.server";
 
 // Publishing: everything a buyer needs is present, the bench runs on the stored sheet (never on what
-// the browser showed), and the listing goes live — or, with an implausible outcome, to the review desk
-// as held, where a moderator clears it before the market shows it.
+// the browser showed), and the listing goes live — or, with an implausible outcome or a photo copied
+// from another seller's listing, to the review desk as held, where a moderator clears it before the
+// market shows it.
 
 export type PhotoCounts = { ready: number; processing: number; failed: number };
 
@@ -76,8 +78,11 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
       await row.update({ verdict, checkedAt: new Date() }, { transaction });
     }
     const update = verdictUpdate(listing, sheet, verdict);
-    const status = update.status ?? "live";
-    await listing.update({ ...update, status, heldReason: update.heldReason ?? null, publishedAt: new Date() }, { transaction });
+    // The photo check runs after the bench: either may hold the unit, and the seller reads both reasons.
+    const copied = await flagCopiedPhotos(listing.id, user.id, transaction);
+    const heldReason = [update.heldReason, copied.length ? COPIED_PHOTO_HELD_REASON : null].filter(Boolean).join(" ") || null;
+    const status = heldReason ? "held" : (update.status ?? "live");
+    await listing.update({ ...update, status, heldReason, publishedAt: new Date() }, { transaction });
     // A held unit is matched when the desk clears it.
     if (status === "live") await queueAlertMatching(listing.id, transaction);
     // Far under what the same maker and model sold for: the desk takes a look (the unit stays as it is).

@@ -8,6 +8,7 @@ import { incomingKey } from "./access.server";
 import { renderPhoto, UnreadableImage } from "./render.server";
 import { inspectPhoto } from "./inspect.server";
 import { PhotoRefusal } from "./refusal.server";
+import { holdLiveListingIfCopied } from "./copied.server";
 
 // The photo-process job: the upload waiting under incoming/ becomes an upright, metadata-free original
 // and three sizes under fresh random keys, then the photo is ready. Safe to run twice: the derived
@@ -28,6 +29,7 @@ export async function processPhoto(data: unknown, jobId?: string): Promise<Proce
   }
   if (photo.status !== "processing") {
     await deleteObject(waiting); // an earlier run finished but was stopped before this clean-up
+    if (photo.status === "ready") await holdLiveListingIfCopied(photo.listingId, photo.id);
     return "already-done";
   }
 
@@ -95,6 +97,9 @@ export async function processPhoto(data: unknown, jobId?: string): Promise<Proce
     throw error;
   }
 
+  // A photo added to a live listing is checked now (drafts are checked when they are published); if
+  // this throws, the retry finds the photo ready and checks again.
+  await holdLiveListingIfCopied(photo.listingId, photoId);
   await deleteObject(waiting); // if this throws, the retry finds the photo ready and tries again
   return "ready";
 }

@@ -10,6 +10,7 @@ import { JpegDataProblem } from "./jpeg-huffman.server";
 import { exifOrientation } from "./exif-orientation.server";
 import { encodeJpeg } from "./jpeg-encode.server";
 import { encodePng } from "./png-encode.server";
+import { dctHash, hashDistance } from "./perceptual-hash.server";
 
 // Decodes an upload that passed the checks, turns it upright, and re-encodes everything from the
 // decoded pixels: no byte of the upload's metadata (EXIF, GPS, comments, text chunks) can survive,
@@ -23,7 +24,7 @@ export type RenderedPhoto = {
   /** Full size, upright, metadata-free; JPEG stays JPEG and PNG stays PNG (lossless stays lossless). */
   original: RenderedImage;
   sizes: Record<PhotoSize, RenderedImage>;
-  /** 64-bit DCT perceptual hash as 16 hex digits. */
+  /** 64-bit DCT perceptual hash as 16 hex digits, from the smallest size (upright and flattened, as buyers see it). */
   phash: string;
 };
 
@@ -53,7 +54,7 @@ export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "im
   const zoom = next("zoom");
   const listing = next("listing");
   const thumb = next("thumb");
-  return { original, sizes: { zoom, listing, thumb }, phash: perceptualHash(source) };
+  return { original, sizes: { zoom, listing, thumb }, phash: dctHash(source) };
 }
 
 /** The upright RGBA pixels, or UnreadableImage, without decoding anything the budget does not allow. */
@@ -98,27 +99,5 @@ async function decodeWithinBudget(input: Buffer, contentType: "image/jpeg" | "im
   }
 }
 
-// jimp's DCT hash squeezes the picture to 32 × 32 first; doing that step here with the area average
-// (from the smallest size: upright and flattened, as buyers see it) saves its slower resampling.
-function perceptualHash(smallest: Bitmap): string {
-  const side = Math.min(32, smallest.width, smallest.height);
-  const squeezed = shrink(smallest, side, side);
-  // jimp types the instance fromBitmap makes as any.
-  return bitsToHex((Jimp.fromBitmap(squeezed) as { pHash(): string }).pHash());
-}
-
-function bitsToHex(bits: string): string {
-  if (!/^[01]{64}$/.test(bits)) throw new Error(`unexpected perceptual hash: ${bits}`);
-  return BigInt(`0b${bits}`).toString(16).padStart(16, "0");
-}
-
 /** Bits that differ between two hashes (0 = the same picture; small = probably the same photo). */
-export function phashDistance(a: string, b: string): number {
-  let x = BigInt(`0x${a}`) ^ BigInt(`0x${b}`);
-  let count = 0;
-  while (x) {
-    count += Number(x & 1n);
-    x >>= 1n;
-  }
-  return count;
-}
+export const phashDistance = hashDistance;

@@ -8,6 +8,8 @@ import { sequelize } from "~/db.server";
 export const QUEUES = {
   captureAnalyze: "capture-analyze",
   photoProcess: "photo-process",
+  // Hashes again the photos stored before the perceptual hash changed scheme (queued at worker start).
+  photoRehash: "photo-rehash",
   accountMail: "account-mail",
   // Keeping track (app/alerts): watchers' notices, spec-alert matching on publish, the daily digest.
   watchNotice: "watch-notice",

@@ -6,12 +6,13 @@ import { fileURLToPath } from "node:url";
 import { Jimp } from "jimp";
 import type { Category } from "@shared/catalogue";
 import { shrink } from "~/photos/pixels.server";
+import { dctHash } from "~/photos/perceptual-hash.server";
 import { drawUnit } from "./demo-photos";
 
 // The demo's photo files: drawn once, encoded as the photo pipeline would store them, and kept in a
 // git-ignored cache so a fresh test database seeds in seconds. Bump GENERATION when the drawing changes.
 
-const GENERATION = 6;
+const GENERATION = 8;
 const here = path.dirname(fileURLToPath(import.meta.url));
 const CACHE = path.resolve(here, "../../.local/cache/demo-photos", `g${GENERATION}`);
 
@@ -129,9 +130,7 @@ async function encodeJpeg(bitmap: Bitmap, quality: number): Promise<Buffer> {
   return Buffer.from(await jpegEncoder({ data: bitmap.data, width: bitmap.width, height: bitmap.height }, { quality }));
 }
 
-/** The same hash the photo pipeline stores (app/photos/render.server.ts): jimp's DCT hash of the smallest size. */
+/** The same hash the photo pipeline stores (app/photos/render.server.ts): the DCT hash of the smallest size. */
 function pipelineHash(smallest: Bitmap): string {
-  const side = Math.min(32, smallest.width, smallest.height);
-  const bits = Jimp.fromBitmap(shrink(smallest, side, side)).pHash();
-  return BigInt(`0b${bits}`).toString(16).padStart(16, "0");
+  return dctHash(smallest);
 }

@@ -1,8 +1,10 @@
 // Search at scale: five representative filter combinations through `GET /api/v1/listings` on the
 // served app, the server's own time (its Server-Timing header) and the wall time, against the very
 // same SQL (`searchQuery`) run directly; and each query's plan, to show which indexes carry it.
+import os from "node:os";
 import pg from "pg";
 import { countsQuery, DEFAULT_LIMIT, searchQuery } from "~/catalogue/search.server";
+import { euroBoundsQuery, type EuroBounds } from "~/catalogue/search-sql.server";
 import { parseMarketFilters } from "@shared/market-filters";
 import { ms, pct, type Figure, type ServedApp } from "./served-app";
 
@@ -36,10 +38,13 @@ const SLOW_RUNS = 30;
 const WARM_UP = 5;
 
 /** The SQL the API runs for a query string: the page (searchQuery, at the API's page size) and the counts. */
-function sqlOf(params: URLSearchParams) {
+async function sqlOf(db: pg.Client, params: URLSearchParams) {
   const { filters, issues } = parseMarketFilters(params, { strict: true });
   if (issues.length) throw new Error(`the bench's own filters do not parse: ${JSON.stringify(issues)}`);
-  return { page: searchQuery(filters, { cursor: null, limit: DEFAULT_LIMIT }), counts: countsQuery(filters) };
+  // The price bounds in euros, converted first as the API does (that round trip is not timed here).
+  const bounds = euroBoundsQuery(filters);
+  const euro = bounds ? (await db.query<EuroBounds>(bounds.sql, bounds.bind)).rows[0] : undefined;
+  return { page: searchQuery(filters, { cursor: null, limit: DEFAULT_LIMIT, euro }), counts: countsQuery(filters, euro) };
 }
 
 async function explain(db: pg.Client, q: { sql: string; bind: unknown[] }): Promise<string> {
@@ -94,6 +99,13 @@ const apiFigure = (what: string, api: ApiTimes): Figure => ({
 
 export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]; notes: string[] }> {
   const figures: Figure[] = [];
+  // Load inflates wall time on a shared machine more than plans and buffers: say what it was.
+  const load = () =>
+    os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(" / ");
+  const notes = [`search: load average (1 / 5 / 15 min) at the start ${load()}`];
   const db = new pg.Client({ connectionString: app.databaseUrl });
   await db.connect();
   try {
@@ -106,7 +118,7 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
       // recounted in the background at most every 15 s), then with the market still.
       const fresh = await timedApi(url, SLOW_RUNS, () => db.query(`SELECT nextval('market_epoch')`));
       const kept = await timedApi(url, RUNS);
-      const q = sqlOf(params);
+      const q = await sqlOf(db, params);
       const page = await timedSql(db, q.page, RUNS);
       const counts = await timedSql(db, q.counts, SLOW_RUNS);
       const pagePlan = await explain(db, q.page);
@@ -135,5 +147,6 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
   } finally {
     await db.end();
   }
-  return { figures, notes: [] };
+  notes.push(`search: load average at the end ${load()} (2 cores)`);
+  return { figures, notes };
 }

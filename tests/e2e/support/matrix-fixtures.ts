@@ -114,7 +114,7 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     byteSize: 1000,
     width: 1200,
     height: 800,
-    phash: "0".repeat(16),
+    phash: randomBytes(8).toString("hex"), // equal hashes across sellers would read as a copied photo
     error: null,
   });
   const capture = await Capture.create({
