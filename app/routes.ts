@@ -89,4 +89,11 @@ export default [
   // A contest's photos, metadata-free, through short-lived links (the buyer who sent them, moderators)
   route("orders/:orderId/contest-photos/:n", "routes/buying/contest-photo.ts"),
   route("admin/settings", "routes/admin/settings.tsx"),
+  // Reputation: sellers' and workshops' public pages, the buyer's review of a completed order, the
+  // seller's answer, and the desk's page for hiding an abusive review
+  route("sellers/:id", "routes/sellers/seller.tsx"),
+  route("workshops/:slug", "routes/sellers/workshop.tsx"),
+  route("purchases/:orderId/review", "routes/buying/purchase-review.tsx"),
+  route("sales/:orderId/review", "routes/buying/sale-review.tsx"),
+  route("desk/reviews/:id", "routes/desk/review.tsx"),
 ] satisfies RouteConfig;

@@ -20,5 +20,7 @@ try {
   console.error("Seeding the demo scenario failed:", error);
   process.exitCode = 1;
 } finally {
+  // The demo sales queue jobs through pg-boss, which keeps its own connections open.
+  await globalThis.__loadlineBoss?.then((boss) => boss.stop({ graceful: false })).catch(() => undefined);
   await sequelize.close();
 }

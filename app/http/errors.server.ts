@@ -34,6 +34,8 @@ export const ERROR_CODES = {
   not_published: 409,
   // An order's state (or its unit's) does not allow the step
   order_state: 409,
+  // Something done once only (a review of an order, its answer, hiding it) was already done
+  already_done: 409,
   // An offer that was answered, withdrawn or has expired
   offer_closed: 409,
   // The review desk: another moderator holds the item; the item has moved on since the page was read

@@ -9,6 +9,7 @@ import { verdictUpdate } from "./bench.server";
 import { ListingInputError, ListingStateError } from "./errors.server";
 import { queueAlertMatching } from "~/alerts/matching.server";
 import { COPIED_PHOTO_HELD_REASON, flagCopiedPhotos } from "~/photos/copied.server";
+import { flagLowPrice } from "~/reputation/low-price.server";
 
 // Publishing: everything a buyer needs is present, the bench runs on the stored sheet (never on what
 // the browser showed), and the listing goes live — or, with an implausible outcome or a photo copied
@@ -84,6 +85,8 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
     await listing.update({ ...update, status, heldReason, publishedAt: new Date() }, { transaction });
     // A held unit is matched when the desk clears it.
     if (status === "live") await queueAlertMatching(listing.id, transaction);
+    // Far under what the same maker and model sold for: the desk takes a look (the unit stays as it is).
+    await flagLowPrice(listing, transaction);
     return { listing, verdict };
   });
 }

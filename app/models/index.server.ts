@@ -9,6 +9,7 @@ import { OrderEvent } from "~/models/order-event.server";
 import { LedgerEntry } from "~/models/ledger-entry.server";
 import { OrderContest } from "~/models/order-contest.server";
 import { MarketplaceSettings } from "~/models/marketplace-settings.server";
+import { Review } from "~/models/review.server";
 import { AuditRecord } from "~/models/audit-record.server";
 import { DeskClaim } from "~/models/desk-claim.server";
 import { DeskFlag } from "~/models/desk-flag.server";
@@ -57,6 +58,11 @@ wire(DeskFlag, "reporter", () => DeskFlag.belongsTo(User, { foreignKey: "reporte
 wire(WorkshopApplication, "workshop", () => WorkshopApplication.belongsTo(Workshop, { foreignKey: "workshopId", as: "workshop" }));
 wire(WorkshopApplication, "applicant", () => WorkshopApplication.belongsTo(User, { foreignKey: "applicantId", as: "applicant" }));
 
+// Reputation: a review belongs to its order and names both people.
+wire(Review, "order", () => Review.belongsTo(Order, { foreignKey: "orderId", as: "order" }));
+wire(Review, "buyer", () => Review.belongsTo(User, { foreignKey: "buyerId", as: "buyer" }));
+wire(Order, "review", () => Order.hasOne(Review, { foreignKey: "orderId", as: "review" }));
+
 export {
   User,
   Workshop,
@@ -69,6 +75,7 @@ export {
   LedgerEntry,
   OrderContest,
   MarketplaceSettings,
+  Review,
   AuditRecord,
   DeskClaim,
   DeskFlag,

@@ -13,6 +13,7 @@ import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 import { seedDemoPayouts } from "./demo-payouts";
 import { seedDemoApplications } from "./demo-applications";
+import { seedDemoSales } from "./demo-sales";
 
 // Loads the invented demo scenario. Idempotent: accounts are matched by e-mail, workshops by slug and
 // listings by (seller, serial number); anything already there is left exactly as it is, so a restart
@@ -62,6 +63,9 @@ export async function seedDemo(): Promise<SeedResult> {
   created = (await seedDemoCaptures()).created || created;
   created = (await seedDemoPayouts()).connected > 0 || created;
   created = (await seedDemoApplications()).created > 0 || created;
+  // Completed sales (and their reviews) need the sellers' payout accounts connected just above.
+  const sales = await seedDemoSales((unit, users, workshops) => sequelize.transaction((t) => ensureListing(unit, users, workshops, [], t)));
+  created = sales.created > 0 || created;
   return { created, accounts };
 }
 
@@ -209,7 +213,7 @@ function shippingFor(unit: DemoUnit, town: string): ShippingOption[] {
   return ShippingOptionsSchema.parse(options);
 }
 
-async function ensureListing(
+export async function ensureListing(
   unit: DemoUnit,
   users: Record<AccountKey, string>,
   workshops: Partial<Record<AccountKey, string>>,

@@ -154,6 +154,41 @@ export const MATRIX: Record<string, Entry> = {
   "/orders/:orderId/contest-photos/:n": {
     cases: [{ params: (f) => ({ orderId: f.order.id, n: "0" }), get: { anonymous: "sign-in", others: 404 } }],
   },
+  // Reputation: public pages of sellers and workshops; the review of an order by its buyer, the answer
+  // by its seller (anyone else: 404); hiding a review on the desk.
+  "/sellers/:id": {
+    cases: [
+      { name: "a seller with a live unit", params: (f) => ({ id: f.users.owner.id }), get: everyone("ok") },
+      { name: "a buyer-only account", params: (f) => ({ id: f.users.buyer.id }), get: everyone(404) },
+    ],
+  },
+  "/workshops/:slug": {
+    cases: [
+      { name: "a demo workshop", params: () => ({ slug: "corrowmere-audio-bench" }), get: everyone("ok") },
+      { name: "no such workshop", params: () => ({ slug: "no-such-workshop" }), get: everyone(404) },
+    ],
+  },
+  "/purchases/:orderId/review": {
+    cases: [
+      {
+        params: (f) => ({ orderId: f.order.id }),
+        get: { anonymous: "sign-in", buyer: "ok", others: 404 },
+        post: { body: form({ rating: "", body: "" }), expect: { anonymous: "sign-in", buyer: 400, others: 404 } },
+      },
+    ],
+  },
+  "/sales/:orderId/review": {
+    cases: [{ params: (f) => ({ orderId: f.order.id }), get: ownerOnly(), post: { body: form({ answer: "" }), expect: ownerOnly(400) } }],
+  },
+  "/desk/reviews/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.review.id }),
+        get: desk,
+        post: { body: form({ note: "" }), expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 } },
+      },
+    ],
+  },
   "/admin/settings": {
     cases: [
       {

@@ -5,6 +5,7 @@ import { DeliveryPanel } from "./DeliveryPanel";
 import { ActionCard, IntentButton, type OrderActionData } from "./OrderActions";
 import { MoneyPanel, NextStep, OrderHead, Timeline, When } from "./OrderParts";
 import { HeavyUnit } from "~/components/cautions/HeavyUnit";
+import { ReviewLinkCard } from "~/reputation/ui/ReviewLinkCard";
 
 // The buyer's order page: the next step first, the one form that step takes, then the timeline;
 // money and delivery at the side (below on a phone).
@@ -29,6 +30,7 @@ export function PurchasePage({
         <div className="min-w-0 space-y-6">
           <NextStep next={order.next} />
           <BuyerStep order={order} paid={paid} result={result} audition={audition} />
+          {order.delivery.releasedAt ? <ReviewLinkCard orderId={order.id} side="buyer" /> : null}
           <Timeline events={order.events} />
         </div>
         <aside className="space-y-5" aria-label="Money and delivery">

@@ -2,6 +2,7 @@ import type { OrderDetailView } from "../order-view";
 import { DeliveryPanel } from "./DeliveryPanel";
 import { ActionCard, ShipForm, type OrderActionData } from "./OrderActions";
 import { MoneyPanel, NextStep, OrderHead, Timeline, When } from "./OrderParts";
+import { ReviewLinkCard } from "~/reputation/ui/ReviewLinkCard";
 
 // The seller's order page: the ship form while it is theirs to ship, otherwise what the buyer is
 // doing and when the money comes; the timeline; money (fee and payout) and delivery at the side.
@@ -31,6 +32,7 @@ export function SalePage({ order, result }: { order: OrderDetailView; result: Or
               </p>
             </ActionCard>
           ) : null}
+          {order.delivery.releasedAt ? <ReviewLinkCard orderId={order.id} side="seller" /> : null}
           <Timeline events={order.events} />
         </div>
         <aside className="space-y-5" aria-label="Money and delivery">

@@ -1,17 +1,24 @@
 import { useState } from "react";
-import { Form } from "react-router";
+import { Form, Link } from "react-router";
 import { Badge } from "~/components/Badge";
 import { Card } from "~/components/Card";
 import { ApproxPrice } from "~/components/Price";
 import { TWO_PERSON_LIFT_G, type ShippingZone } from "@shared/catalogue";
 import type { ListingHead, SellerCard as Seller, ShippingView } from "../types";
 import { parseZone } from "../zones";
+import { RatingPips } from "~/reputation/ui/RatingPips";
 
 // The seller's card, the shipping options for the visitor's zone, and the safety cautions.
 
 const panelTitle = "font-sans text-xs font-semibold uppercase tracking-[0.14em] text-brass-ink";
 
-export function SellerCard({ seller }: { seller: Seller }) {
+/** The seller's rating and public page (from app/reputation), when the page has them. */
+export interface SellerStanding {
+  href: string;
+  rating: { average: number | null; count: number };
+}
+
+export function SellerCard({ seller, standing }: { seller: Seller; standing?: SellerStanding | null }) {
   return (
     <Card className="space-y-3" aria-labelledby="seller-heading">
       <h2 id="seller-heading" className={panelTitle}>
@@ -43,6 +50,23 @@ export function SellerCard({ seller }: { seller: Seller }) {
         )}
       </div>
       {seller.about ? <p className="text-sm leading-relaxed text-ink-soft">{seller.about}</p> : null}
+      {standing ? (
+        <div className="flex flex-wrap items-center justify-between gap-2 text-sm">
+          {standing.rating.average !== null ? (
+            <span className="inline-flex items-center gap-2">
+              <RatingPips value={standing.rating.average} size="sm" />
+              <span className="text-xs text-ink-faint">
+                {standing.rating.count} {standing.rating.count === 1 ? "review" : "reviews"}
+              </span>
+            </span>
+          ) : (
+            <span className="text-xs text-ink-faint">Not rated yet</span>
+          )}
+          <Link to={standing.href} className="font-medium">
+            {seller.kind === "workshop" ? "The workshop's page" : "The seller's page"}
+          </Link>
+        </div>
+      ) : null}
       <p className="text-xs text-ink-faint">On Loadline since {seller.memberSince}.</p>
     </Card>
   );

@@ -19,6 +19,8 @@ import { UnitDetails } from "~/listings/ui/UnitDetails";
 import { CompareToggle } from "~/compare/ui/CompareToggle";
 import { buyState } from "~/buying/buy-state.server";
 import { BuyPanel } from "~/buying/ui/BuyPanel";
+import { listingReputation } from "~/reputation/listing-panels.server";
+import { SoldPriceIndexPanel } from "~/reputation/ui/SoldPriceIndexPanel";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
@@ -31,10 +33,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   });
   if (!page) throw data({ message: "There is no listing here." }, { status: 404, statusText: "Not Found" });
   const photo = Number(url.searchParams.get("photo"));
-  const buy = await buyState(page.listing.id, viewer);
+  const [buy, reputation] = await Promise.all([buyState(page.listing.id, viewer), listingReputation(page.listing.id)]);
   // The page differs per viewer (watch state, held banner): never from a shared cache.
   return data(
-    { ...page, buy, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 },
+    { ...page, buy, reputation, initialPhoto: Number.isInteger(photo) && photo > 0 ? photo - 1 : 0 },
     { headers: { "Cache-Control": "private, no-store" } },
   );
 }
@@ -69,7 +71,7 @@ export function meta({ data: page }: Route.MetaArgs) {
 }
 
 export default function ListingPage({ loaderData }: Route.ComponentProps) {
-  const { listing, viewer, photos, keyFigures, bench, plots, restoration, seller, shipping, initialPhoto, buy } = loaderData;
+  const { listing, viewer, photos, keyFigures, bench, plots, restoration, seller, shipping, initialPhoto, buy, reputation } = loaderData;
   return (
     <main className="mx-auto w-full max-w-6xl space-y-10 px-4 pb-16 pt-6 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-sm text-ink-faint">
@@ -106,7 +108,8 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
 
       <div className="grid gap-10 lg:grid-cols-12">
         <aside className="space-y-5 lg:col-span-4 lg:col-start-9 lg:row-start-1" aria-label="Seller and delivery">
-          <SellerCard seller={seller} />
+          <SellerCard seller={seller} standing={reputation?.seller} />
+          {reputation?.index ? <SoldPriceIndexPanel index={reputation.index} title={listing.title} /> : null}
           <ShippingPanel shipping={shipping} currency={listing.currency} />
           <SafetyCautions listing={listing} />
           {viewer.isSeller ? null : (

@@ -7,6 +7,7 @@ import { SpecAlert } from "~/models/spec-alert.server";
 import { MessageThread } from "~/models/message-thread.server";
 import { Offer } from "~/models/offer.server";
 import { Order } from "~/models/order.server";
+import { Review } from "~/models/review.server";
 import { issueUnsubscribeUrl } from "~/alerts/unsubscribe.server";
 import { hashPassword } from "~/auth/password.server";
 import type { Role } from "~/auth/roles";
@@ -57,6 +58,8 @@ export interface Fixtures {
   order: Order;
   /** A workshop waiting for the desk (its applicant is none of the personas) and its application. */
   workshopApplication: WorkshopApplication;
+  /** The buyer's review of that order (made straight in the database). */
+  review: Review;
 }
 
 async function listing(sellerId: string, status: ListingStatus): Promise<Listing> {
@@ -223,6 +226,7 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     documentName: "register.pdf",
     documentBytes: 1000,
   });
+  const review = await Review.create({ orderId: order.id, sellerId: ownerId, buyerId: users.buyer.id, rating: 4, body: "Matrix review." });
   return {
     run,
     password,
@@ -239,6 +243,7 @@ export async function makeFixtures(label: string): Promise<Fixtures> {
     offer,
     order,
     workshopApplication,
+    review,
   };
 }
 
