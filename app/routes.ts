@@ -18,6 +18,9 @@ export default [
   route("account", "routes/account/account.tsx"),
   route("admin/users", "routes/admin/users.tsx"),
   route("desk", "routes/desk/desk.tsx"),
+  // The review desk's item pages (moderators and admins): a listing, an account.
+  route("desk/listings/:id", "routes/desk/listing.tsx"),
+  route("desk/users/:id", "routes/desk/user.tsx"),
   // The public listing page (watch is its action)
   route("listings/:id", "routes/listings/listing.tsx"),
   // Compare: up to four units side by side; its action keeps the visitor's compare list

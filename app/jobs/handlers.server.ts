@@ -11,6 +11,7 @@ import { deliverOrderMail } from "~/orders/mail.server";
 import { deliverMessageMail } from "~/messages/message-mail.server";
 import { deliverOfferMail } from "~/offers/offer-mail.server";
 import { expireOffer } from "~/offers/offers.server";
+import { deliverDeskMail } from "~/desk/mail.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -35,4 +36,6 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.messageMail]: deliverMessageMail,
   [QUEUES.offerMail]: deliverOfferMail,
   [QUEUES.offerExpiry]: (data) => expireOffer(data),
+  // The review desk: the mail about a moderator's action to the person it affects.
+  [QUEUES.deskMail]: deliverDeskMail,
 };

@@ -13,6 +13,9 @@ import { queueAlertMatching } from "~/alerts/matching.server";
 // the browser showed), and the listing goes live — or, with an implausible outcome, to the review desk
 // as held, where a moderator clears it before the market shows it.
 
+/** The held reason of a listing published again after a moderator asked for changes. */
+export const RESUBMITTED_REASON = "Resubmitted after changes";
+
 export type PhotoCounts = { ready: number; processing: number; failed: number };
 
 export async function photoCounts(listingId: string, transaction?: Transaction): Promise<PhotoCounts> {
@@ -75,6 +78,11 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
       await row.update({ verdict, checkedAt: new Date() }, { transaction });
     }
     const update = verdictUpdate(listing, sheet, verdict);
+    // A moderator asked for changes: the edited listing goes back to the desk, not straight to the market.
+    if (listing.reviewNote) {
+      update.status = "held";
+      update.heldReason = [RESUBMITTED_REASON, update.heldReason].filter(Boolean).join(" · ");
+    }
     const status = update.status ?? "live";
     await listing.update({ ...update, status, heldReason: update.heldReason ?? null, publishedAt: new Date() }, { transaction });
     // A held unit is matched when the desk clears it.

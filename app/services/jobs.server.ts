@@ -25,6 +25,8 @@ export const QUEUES = {
   paymentEvent: "payment-event",
   orderRelease: "order-release",
   orderRefund: "order-refund",
+  // The review desk (app/desk): the mail to the person a moderator's action affects, one per audit record.
+  deskMail: "desk-mail",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
