@@ -20,6 +20,9 @@ export default [
   route("account/workshop", "routes/account/workshop.tsx"),
   route("admin/users", "routes/admin/users.tsx"),
   route("desk", "routes/desk/desk.tsx"),
+  // The review desk's item pages (moderators and admins): a listing, an account.
+  route("desk/listings/:id", "routes/desk/listing.tsx"),
+  route("desk/users/:id", "routes/desk/user.tsx"),
   // The public listing page (watch is its action)
   route("listings/:id", "routes/listings/listing.tsx"),
   // Reports to the review desk: a public listing, or a conversation by either of its sides

@@ -40,10 +40,11 @@ export interface AuditEntry {
   after?: unknown;
 }
 
-export async function recordAudit(e: AuditEntry, transaction: Transaction): Promise<void> {
+/** Writes the record; returns its id (a mail about the action is keyed by it). */
+export async function recordAudit(e: AuditEntry, transaction: Transaction): Promise<string> {
   if (!/^[a-z][a-z_]*$/.test(e.action)) throw new Error(`audit action must be snake_case: ${e.action}`);
   if (!e.note.trim()) throw new Error("an audit record needs a note");
-  await AuditRecord.create(
+  const row = await AuditRecord.create(
     {
       actorId: e.actorId,
       action: e.action,
@@ -55,6 +56,7 @@ export async function recordAudit(e: AuditEntry, transaction: Transaction): Prom
     },
     { transaction },
   );
+  return row.id;
 }
 
 /** One trail line, plain data for a loader. */

@@ -15,6 +15,7 @@ import { deliverMessageMail } from "~/messages/message-mail.server";
 import { deliverOfferMail } from "~/offers/offer-mail.server";
 import { expireOffer } from "~/offers/offers.server";
 import { deliverWorkshopMail } from "~/workshops/mail.server";
+import { deliverDeskMail } from "~/desk/mail.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -49,4 +50,6 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.offerExpiry]: (data) => expireOffer(data),
   // The review desk: the workshop applicant's mail about the decision.
   [QUEUES.workshopMail]: deliverWorkshopMail,
+  // The review desk: the mail about a moderator's action to the person it affects.
+  [QUEUES.deskMail]: deliverDeskMail,
 };

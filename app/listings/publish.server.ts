@@ -16,6 +16,9 @@ import { flagLowPrice } from "~/reputation/low-price.server";
 // from another seller's listing, to the review desk as held, where a moderator clears it before the
 // market shows it.
 
+/** The held reason of a listing published again after a moderator asked for changes. */
+export const RESUBMITTED_REASON = "Resubmitted after changes";
+
 export type PhotoCounts = { ready: number; processing: number; failed: number };
 
 export async function photoCounts(listingId: string, transaction?: Transaction): Promise<PhotoCounts> {
@@ -78,9 +81,12 @@ export async function publishListing(listingId: string, user: SessionUser): Prom
       await row.update({ verdict, checkedAt: new Date() }, { transaction });
     }
     const update = verdictUpdate(listing, sheet, verdict);
-    // The photo check runs after the bench: either may hold the unit, and the seller reads both reasons.
+    // A moderator asked for changes: the edited listing goes back to the desk, not straight to the market.
+    const resubmitted = listing.reviewNote ? RESUBMITTED_REASON : null;
+    // The photo check runs after the bench: either may hold the unit, and the seller reads every reason.
     const copied = await flagCopiedPhotos(listing.id, user.id, transaction);
-    const heldReason = [update.heldReason, copied.length ? COPIED_PHOTO_HELD_REASON : null].filter(Boolean).join(" ") || null;
+    const heldReason =
+      [resubmitted, update.heldReason, copied.length ? COPIED_PHOTO_HELD_REASON : null].filter(Boolean).join(" · ") || null;
     const status = heldReason ? "held" : (update.status ?? "live");
     await listing.update({ ...update, status, heldReason, publishedAt: new Date() }, { transaction });
     // A held unit is matched when the desk clears it.

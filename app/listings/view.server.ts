@@ -76,6 +76,7 @@ export async function editorData(listingId: string, user: SessionUser) {
       id: listing.id,
       status: listing.status,
       heldReason: listing.heldReason,
+      reviewNote: listing.reviewNote,
       benchVerified: listing.benchVerified,
       publishedAt: listing.publishedAt?.toISOString() ?? null,
       updatedAt: listing.updatedAt.toISOString(),

@@ -31,6 +31,8 @@ export const QUEUES = {
   orderRefund: "order-refund",
   // The review desk (app/workshops): the applicant's mail about the desk's decision.
   workshopMail: "workshop-mail",
+  // The review desk (app/desk): the mail to the person a moderator's action affects, one per audit record.
+  deskMail: "desk-mail",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

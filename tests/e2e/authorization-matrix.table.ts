@@ -189,6 +189,36 @@ export const MATRIX: Record<string, Entry> = {
       },
     ],
   },
+  // The review desk's item pages: moderators and admins only; a note is required, so an empty one is a 400.
+  "/desk/listings/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.held.id }),
+        get: desk,
+        post: {
+          body: form({ intent: "clear_hold", note: "" }),
+          expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 },
+        },
+      },
+      {
+        name: "no such listing",
+        params: () => ({ id: randomUUID() }),
+        get: { anonymous: "sign-in", moderator: 404, admin: 404, others: 403 },
+      },
+    ],
+  },
+  "/desk/users/:id": {
+    cases: [
+      {
+        params: (f) => ({ id: f.users.owner.id }),
+        get: desk,
+        post: {
+          body: form({ intent: "suspend_account", note: "" }),
+          expect: { anonymous: "sign-in", moderator: 400, admin: 400, others: 403 },
+        },
+      },
+    ],
+  },
   "/admin/settings": {
     cases: [
       {

@@ -9,7 +9,7 @@ const { sequelize } = await import("~/db.server");
 const { User, Workshop, Listing } = await import("~/models/index.server");
 const { createAccount } = await import("~/auth/accounts.server");
 const { listAccounts, setAccountRoles, setAccountStatus } = await import("~/auth/admin.server");
-const { reviewQueue } = await import("~/desk/queue.server");
+const { deskQueue } = await import("~/desk/queue.server");
 
 afterAll(async () => {
   const users = `SELECT id FROM users WHERE email LIKE :p`;
@@ -127,26 +127,24 @@ describe("review desk queue", () => {
     );
     const live = await Listing.create(blankListing(owner.id, base.category, { ...base, model: `Live ${RUN}`, status: "live" }));
 
-    const queue = await reviewQueue();
-    expect(queue.heldListings).toContainEqual(
+    const queue = await deskQueue();
+    expect(queue.items).toContainEqual(
       expect.objectContaining({
-        id: (held as { id: string }).id,
+        kind: "held_listing",
+        subject: { type: "listing", id: (held as { id: string }).id },
         title: `Harrowgate Held ${RUN}`,
-        category: "Integrated amplifier",
-        reason: "Power claim above the supply's limit",
-        seller: "Person workshop-owner",
+        summary: "Integrated amplifier · Person workshop-owner · Power claim above the supply's limit",
+        href: `/desk/listings/${(held as { id: string }).id}`,
       }),
     );
-    expect(queue.heldListings.map((l) => l.id)).not.toContain((live as { id: string }).id);
-    expect(queue.workshopApplications).toContainEqual(
-      expect.objectContaining({
-        id: applied.id,
-        name: `Quietwater Valve Works ${RUN}`,
-        ownerEmail: owner.email,
-      }),
+    expect(queue.items.map((i) => i.subject.id)).not.toContain((live as { id: string }).id);
+    const applications = (await deskQueue({ kind: "workshop_application" })).items;
+    expect(applications).toContainEqual(
+      expect.objectContaining({ subject: { type: "workshop", id: applied.id }, title: `Quietwater Valve Works ${RUN}` }),
     );
-    expect(queue.workshopApplications.map((w) => w.id)).not.toContain(verified.id);
-    expect(queue.heldCount).toBeGreaterThanOrEqual(1);
-    expect(queue.applicationCount).toBeGreaterThanOrEqual(1);
+    expect(applications.every((i) => i.kind === "workshop_application")).toBe(true);
+    expect(applications.map((w) => w.subject.id)).not.toContain(verified.id);
+    expect(queue.counts.held_listing).toBeGreaterThanOrEqual(1);
+    expect(queue.counts.workshop_application).toBeGreaterThanOrEqual(1);
   });
 });

@@ -74,6 +74,17 @@ export default function Editor({ loaderData }: Route.ComponentProps) {
           it. {listing.heldReason}
         </div>
       ) : null}
+      {listing.status === "draft" && listing.reviewNote ? (
+        <div
+          role="status"
+          className="rounded-md border border-brass/50 bg-brass-wash px-4 py-3 text-sm text-brass-ink"
+          data-testid="review-note"
+        >
+          <strong className="font-semibold">The review desk asked for changes.</strong>{" "}
+          <span className="whitespace-pre-line">{listing.reviewNote}</span>
+          <span className="mt-1 block">Make them, then publish again from the review step: the listing goes back to the desk.</span>
+        </div>
+      ) : null}
       {listing.status === "sold" || listing.status === "removed" ? (
         <div role="status" className="rounded-md border border-rule bg-sunk px-4 py-3 text-sm text-ink-soft">
           This listing is {listing.status}; it is kept as a record and can no longer be changed.

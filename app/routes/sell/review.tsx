@@ -36,7 +36,9 @@ export async function action({ request, params }: Route.ActionArgs) {
     const title = listingTitle(listing.maker, listing.model);
     const notice =
       listing.status === "held"
-        ? `${title} is published and waiting at the review desk: the bench found an implausible outcome. It reaches the market once a moderator clears it.`
+        ? listing.reviewNote
+          ? `${title} is back at the review desk with your changes. It reaches the market once a moderator clears it.`
+          : `${title} is published and waiting at the review desk: the bench found an implausible outcome. It reaches the market once a moderator clears it.`
         : listing.benchVerified
           ? `${title} is live and bench-verified.`
           : `${title} is live.${verdict ? " It does not carry the bench-verified mark; the verdict says why." : ""}`;
