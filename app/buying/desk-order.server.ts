@@ -1,4 +1,5 @@
 import type { SessionUser } from "~/auth/guards.server";
+import { sellerSuspended } from "~/desk/user-desk.server";
 import { HttpError, pageError } from "~/http/errors.server";
 import { User } from "~/models/index.server";
 import { orderFor } from "~/orders/queries.server";
@@ -64,12 +65,14 @@ export async function deskOrderPage(moderator: Pick<SessionUser, "id" | "display
   if (c?.resolvedBy) peopleIds.push(c.resolvedBy);
   const people = peopleIds.length ? await User.findAll({ where: { id: peopleIds }, attributes: ["id", "displayName"] }) : [];
   const names = new Map(people.map((p) => [p.id, p.displayName]));
-  const [view, trail, thread, photos, captureRows] = await Promise.all([
+  const [view, trail, thread, photos, captureRows, suspended] = await Promise.all([
     orderDetailView(detail, "moderator", names),
     auditTrail(subject),
     deskThread(detail.order.listingId, detail.order.buyerId),
     c ? contestPhotoLinks(detail.order.id, moderator, clock) : [],
     c?.captureIds.length ? Capture.findAll({ where: { id: c.captureIds } }) : [],
+    // A suspended seller's open orders run on, watched from here.
+    sellerSuspended(detail.order.sellerId),
   ]);
   const stored = BuyerReadingsSchema.safeParse(c?.readings);
   const fromCapture = (id: string) => (stored.success ? stored.data.readings.filter((r) => r.captureId === id).length : 0);
@@ -106,6 +109,7 @@ export async function deskOrderPage(moderator: Pick<SessionUser, "id" | "display
     claimMinutes: CLAIM_MINUTES,
     trail,
     thread,
+    sellerSuspended: suspended,
   };
 }
 

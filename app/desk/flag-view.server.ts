@@ -1,19 +1,10 @@
-import { Listing, ListingPhoto, User } from "~/models/index.server";
 import type { DeskFlag } from "~/models/desk-flag.server";
-import { mediaUrl } from "~/catalogue/media-url";
-import { isId } from "@shared/ids";
-import { listingTitle } from "@shared/catalogue";
+import { copiedPhotoPair } from "./copied-photo-pair.server";
+import type { CopiedPhotoPairData } from "./ui/CopiedPhotoPair";
 import { formatPrice } from "@shared/money";
 
 // A flag as the desk's listing page shows it: what was found, by whom, and the evidence (a copied
 // photo beside the one it copies; the sold-price index behind a low price; a report's reason and note).
-
-export interface PairPhoto {
-  url: string | null;
-  listingId: string;
-  listingTitle: string;
-  seller: string;
-}
 
 export interface FlagView {
   id: string;
@@ -23,8 +14,8 @@ export interface FlagView {
   note: string | null;
   reporter: string | null;
   at: string;
-  /** copied_photo: this listing's photo and the other seller's, with the hash distance. */
-  pair: { photo: PairPhoto | null; matches: PairPhoto | null; distance: number | null } | null;
+  /** copied_photo: this listing's photo and the other seller's, with the hash distance (null when one is gone). */
+  pair: CopiedPhotoPairData | null;
   /** low_price and anything else: the details as label and value lines. */
   facts: { label: string; value: string }[];
 }
@@ -41,23 +32,6 @@ export function words(code: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
 
-async function pairPhoto(photoId: unknown): Promise<PairPhoto | null> {
-  if (!isId(photoId)) return null;
-  const photo = await ListingPhoto.findByPk(photoId);
-  if (!photo) return null;
-  const listing = await Listing.findByPk(photo.listingId, {
-    attributes: ["id", "maker", "model", "sellerId"],
-    include: [{ model: User, as: "seller", attributes: ["displayName"] }],
-  });
-  const key = photo.listingKey ?? photo.thumbKey;
-  return {
-    url: key ? mediaUrl(key) : null,
-    listingId: photo.listingId,
-    listingTitle: listing ? listingTitle(listing.maker, listing.model) : "a listing no longer here",
-    seller: listing?.seller?.displayName ?? "unknown seller",
-  };
-}
-
 function factValue(key: string, value: unknown, currency: string | null): string {
   if (typeof value === "number" && /minor$/i.test(key) && currency) return formatPrice(value, currency);
   if (typeof value === "number" && /(share|ratio)$/i.test(key)) return `${Math.round(value * 100)} %`;
@@ -68,11 +42,7 @@ function factValue(key: string, value: unknown, currency: string | null): string
 
 export async function flagView(f: DeskFlag): Promise<FlagView> {
   const details = f.details ?? {};
-  let pair: FlagView["pair"] = null;
-  if (f.kind === "copied_photo") {
-    const distance = typeof details.distance === "number" ? details.distance : null;
-    pair = { photo: await pairPhoto(details.photoId), matches: await pairPhoto(details.matchesPhotoId), distance };
-  }
+  const pair = f.kind === "copied_photo" ? await copiedPhotoPair(details) : null;
   const currency = typeof details.currency === "string" ? details.currency : null;
   const facts =
     f.kind === "copied_photo"

@@ -111,6 +111,19 @@ describe("a photo copied from another seller's listing", () => {
       .getByText(/a photo matches one on another seller's listing/)
       .first()
       .waitFor();
+
+    // Its page shows both photos side by side; the moderator removes the listing with a note.
+    await moderator.goto(`/desk/listings/${draft.id}`);
+    const pair = moderator.getByTestId("copied-photo-pair");
+    await pair.waitFor();
+    expect(await pair.getByTestId("copied-photo-this").getByRole("img").count()).toBe(1);
+    expect(await pair.getByTestId("copied-photo-other").getByRole("img").count()).toBe(1);
+    await screenshot(moderator, "desk-copied-photo-1280");
+    const note = "The front photo is another seller's: removed, and the seller asked to photograph their own unit.";
+    await moderator.getByLabel("Note", { exact: true }).fill(note);
+    await Promise.all([moderator.waitForLoadState("load"), moderator.getByRole("button", { name: "Remove the listing" }).click()]);
+    await moderator.getByText(note).first().waitFor();
+    expect((await Listing.findByPk(draft.id))?.status).toBe("removed");
     await desk.close();
   }, 180_000);
 });

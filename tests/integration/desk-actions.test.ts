@@ -26,7 +26,8 @@ const { testClock } = await import("../support/clock");
 const { makeAccount, readyDraft, withOwnCaptures } = await import("./listing-support");
 const { saveBenchSheet } = await import("~/listings/bench.server");
 const { exampleIntegratedAmplifierSheet } = await import("@shared/bench");
-const { liveUnit, person } = await import("./orders-support");
+const { liveUnit, orderIn, person } = await import("./orders-support");
+const { deskOrderPage } = await import("~/buying/desk-order.server");
 
 afterAll(() => sequelize.close());
 
@@ -197,6 +198,21 @@ describe("suspending an account", () => {
       ok: true,
     });
     expect((await User.findByPk(seller.id))?.status).toBe("active");
+  });
+
+  it("a suspended seller's open order runs on, marked for the desk as under watch", async () => {
+    const clock = testClock();
+    const { c, order } = await orderIn("shipped", clock);
+    const mod = await moderator("suspend-watch-mod");
+    expect((await deskOrderPage(mod, order.id, clock)).sellerSuspended).toBe(false);
+    expect(
+      await actOnUser(mod, c.seller.id, { intent: "suspend_account", note: "Buyers report parcels never sent." }, clock),
+    ).toMatchObject({
+      ok: true,
+    });
+    const page = await deskOrderPage(mod, order.id, clock);
+    expect(page.sellerSuspended).toBe(true);
+    expect(page.view.state).toBe("shipped");
   });
 
   it("a moderator cannot suspend themselves, and only an admin may suspend a moderator", async () => {

@@ -122,8 +122,7 @@ describe("claims", () => {
       ),
     );
     expect(results.filter((r) => r.status === "fulfilled")).toHaveLength(1);
-    for (const r of results.filter((r) => r.status === "rejected"))
-      expect((r).reason).toMatchObject({ code: "item_taken" });
+    for (const r of results.filter((r) => r.status === "rejected")) expect(r.reason).toMatchObject({ code: "item_taken" });
   });
 });
 

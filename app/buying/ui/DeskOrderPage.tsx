@@ -25,6 +25,7 @@ export interface DeskOrderData {
   claimMinutes: number;
   trail: AuditTrailLine[];
   thread: DeskThread | null;
+  sellerSuspended: boolean;
 }
 
 export function DeskOrderPage({ page, errors, values }: { page: DeskOrderData; errors: FieldErrors; values: Record<string, string> }) {
@@ -35,6 +36,16 @@ export function DeskOrderPage({ page, errors, values }: { page: DeskOrderData; e
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-6">
           {claim ? <ClaimBanner claim={claim} minutes={page.claimMinutes} /> : null}
+          {page.sellerSuspended ? (
+            <p
+              role="status"
+              className="rounded-md border border-fault bg-fault-wash px-4 py-3 text-sm text-ink"
+              data-testid="seller-suspended"
+            >
+              <strong className="font-semibold">Seller suspended, under watch.</strong> This order runs on to its end; check each step here
+              until it is released or refunded.
+            </p>
+          ) : null}
           <NextStep next={view.next} />
           {contest ? (
             <div className="grid gap-5 xl:grid-cols-2">

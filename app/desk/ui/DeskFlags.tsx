@@ -1,43 +1,13 @@
-import { Link } from "react-router";
 import { Card, CardTitle } from "~/components/Card";
 import { Badge } from "~/components/Badge";
-import type { FlagView, PairPhoto } from "../flag-view.server";
+import type { FlagView } from "../flag-view.server";
+import { CopiedPhotoPair } from "./CopiedPhotoPair";
 import type { ActionErrors } from "../listing-actions.server";
 import { deskMoment } from "../time";
 import { DismissFlagForm } from "./ListingActions";
 
 // A listing's open flags: a copied photo beside the photo it copies, a low price with the index behind
 // it, a report with its reason and note; each with its own dismissal.
-
-function Photo({ photo, caption }: { photo: PairPhoto | null; caption: string }) {
-  return (
-    <figure className="min-w-0 space-y-1">
-      {photo?.url ? (
-        <img
-          src={photo.url}
-          alt={`${caption}: ${photo.listingTitle}`}
-          className="aspect-[4/3] w-full rounded-md border border-rule object-cover"
-        />
-      ) : (
-        <div className="grid aspect-[4/3] place-items-center rounded-md border border-dashed border-rule text-xs text-ink-faint">
-          Photo no longer stored
-        </div>
-      )}
-      <figcaption className="text-xs text-ink-soft">
-        <span className="font-semibold text-ink">{caption}</span>
-        {photo ? (
-          <>
-            {" · "}
-            <Link to={`/desk/listings/${photo.listingId}`} className="underline decoration-walnut/40 underline-offset-2">
-              {photo.listingTitle}
-            </Link>{" "}
-            by {photo.seller}
-          </>
-        ) : null}
-      </figcaption>
-    </figure>
-  );
-}
 
 export function DeskFlags({
   flags,
@@ -71,17 +41,9 @@ export function DeskFlags({
             </p>
             {f.note ? <p className="whitespace-pre-line border-l-2 border-walnut/30 pl-3 text-sm text-ink-soft">{f.note}</p> : null}
             {f.pair ? (
-              <div className="space-y-2">
-                <div className="grid gap-3 sm:grid-cols-2">
-                  <Photo photo={f.pair.photo} caption="This listing's photo" />
-                  <Photo photo={f.pair.matches} caption="The photo it copies" />
-                </div>
-                {f.pair.distance !== null ? (
-                  <p className="text-xs text-ink-faint">
-                    Hash distance <span className="figures">{f.pair.distance}</span> of 64 bits
-                  </p>
-                ) : null}
-              </div>
+              <CopiedPhotoPair pair={f.pair} />
+            ) : f.kind === "copied_photo" ? (
+              <p className="text-sm text-ink-soft">One of the two photos is no longer stored.</p>
             ) : null}
             {f.facts.length ? (
               <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
