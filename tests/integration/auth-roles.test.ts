@@ -50,8 +50,8 @@ describe("an admin includes the moderator", () => {
   it("opens the review desk, and the held listing appears in its queue", async () => {
     const desk = await answer(() => deskLoader(routeArgs(get("/desk", cookies.admin), {})));
     expect(desk.status).toBe(200);
-    const queue = desk.body as { heldListings: { id: string }[] };
-    expect(queue.heldListings.map((l) => l.id)).toContain(held.listing.id);
+    const queue = desk.body as { items: { kind: string; subject: { id: string } }[] };
+    expect(queue.items.filter((i) => i.kind === "held_listing").map((i) => i.subject.id)).toContain(held.listing.id);
   });
 
   it("sees a held listing's page with the desk's reason", async () => {

@@ -263,7 +263,8 @@ describe("the desk's contested order", () => {
     const page = await run(() => deskOrder.loader(get(`/desk/orders/${order.id}`, { orderId: order.id }, cookie)));
     expect(page.body.contest.reason).toBe("Left channel hums.");
     const queue = await run(() => desk.loader(get("/desk", {}, cookie)));
-    expect(queue.body.contestedOrders.map((o: { id: string }) => o.id)).toContain(order.id);
+    const contested = queue.body.items.filter((i: { kind: string }) => i.kind === "contested_order");
+    expect(contested.map((i: { subject: { id: string } }) => i.subject.id)).toContain(order.id);
 
     const path = `/desk/orders/${order.id}`;
     const noNote = await run(() =>
