@@ -121,7 +121,9 @@ describe("a photo copied from another seller's listing", () => {
     await screenshot(moderator, "desk-copied-photo-1280");
     const note = "The front photo is another seller's: removed, and the seller asked to photograph their own unit.";
     await moderator.getByLabel("Note", { exact: true }).fill(note);
-    await Promise.all([moderator.waitForLoadState("load"), moderator.getByRole("button", { name: "Remove the listing" }).click()]);
+    await Promise.all([moderator.waitForURL(/\/desk(\?|$)/), moderator.getByRole("button", { name: "Remove the listing" }).click()]);
+    // Back at the queue; the listing's page keeps the trail with the note.
+    await moderator.goto(`/desk/listings/${draft.id}`);
     await moderator.getByText(note).first().waitFor();
     expect((await Listing.findByPk(draft.id))?.status).toBe("removed");
     await desk.close();

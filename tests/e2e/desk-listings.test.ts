@@ -3,11 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { Listing } from "~/models/index.server";
 import { hashPassword } from "~/auth/password.server";
-import { publishListing } from "~/listings/publish.server";
-import { launchBrowser, newContext } from "./support/browser";
+import { saveBenchSheet } from "~/listings/bench.server";
+import { exampleIntegratedAmplifierSheet } from "@shared/bench";
+import { baseUrl, launchBrowser, newContext } from "./support/browser";
 import { DEMO, signIn, submitSignIn } from "./support/accounts";
 import { shots } from "./support/buying";
-import { makeAccount, readyDraft, type Seller } from "../integration/listing-support";
+import { makeAccount, readyDraft, withOwnCaptures, type Seller } from "../integration/listing-support";
 
 // The review desk in a browser: a moderator (desk@) clears a held listing with a note; asks for
 // changes on another, the seller reads the note in the editor and publishes again, and it is back in
@@ -33,8 +34,8 @@ afterAll(async () => {
 /** A complete draft of the seller's, published and then held for the desk, as a moderator would find it. */
 async function heldUnit(model: string): Promise<Listing> {
   const draft = await readyDraft(seller);
-  await draft.update({ model });
-  const { listing } = await publishListing(draft.id, seller.session);
+  await saveBenchSheet(draft.id, seller.user.id, await withOwnCaptures(exampleIntegratedAmplifierSheet(), seller.user.id));
+  const listing = await draft.update({ model });
   await listing.update({
     status: "held",
     heldReason: "Power into 4 Ω is more than double the power into 8 Ω.",
@@ -52,7 +53,9 @@ async function moderatorPage(email: string): Promise<Page> {
 async function decide(page: Page, listingId: string, note: string, button: string) {
   await page.goto(`/desk/listings/${listingId}`);
   await page.getByLabel("Note", { exact: true }).fill(note);
-  await Promise.all([page.waitForLoadState("load"), page.getByRole("button", { name: button }).click()]);
+  await Promise.all([page.waitForURL(/\/desk(\?|$)/), page.getByRole("button", { name: button }).click()]);
+  // The desk goes back to the queue; the listing's page keeps the trail.
+  await page.goto(`/desk/listings/${listingId}`);
 }
 
 describe("the review desk", () => {
@@ -122,6 +125,7 @@ describe("the review desk", () => {
     // A post straight from the second moderator's session is refused on the server too.
     const refused = await second.request.post(`/desk/listings/${unit.id}`, {
       form: { intent: "clear_hold", note: "Second moderator trying to clear it." },
+      headers: { Origin: baseUrl() },
       maxRedirects: 0,
     });
     expect(refused.status()).toBe(409);
