@@ -6,7 +6,7 @@ import { hashPassword } from "~/auth/password.server";
 import { saveBenchSheet } from "~/listings/bench.server";
 import { exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { baseUrl, launchBrowser, newContext } from "./support/browser";
-import { DEMO, signIn, submitSignIn } from "./support/accounts";
+import { DEMO, signIn } from "./support/accounts";
 import { shots } from "./support/buying";
 import { makeAccount, readyDraft, withOwnCaptures, type Seller } from "../integration/listing-support";
 
@@ -78,6 +78,13 @@ describe("the review desk", () => {
     await decide(desk, unit.id, "Checked against the capture: the 4 Ω figure was a typing slip, corrected.", "Clear the hold");
     await desk.getByText("Checked against the capture: the 4 Ω figure was a typing slip").first().waitFor();
     expect((await Listing.findByPk(unit.id))?.status).toBe("live");
+    // From the listing's public page a moderator reaches its desk page and trail.
+    await desk.goto(`/listings/${unit.id}`);
+    await Promise.all([
+      desk.waitForURL(`**/desk/listings/${unit.id}`),
+      desk.getByRole("link", { name: "Its trail at the review desk" }).click(),
+    ]);
+    await desk.getByText("Checked against the capture: the 4 Ω figure was a typing slip").first().waitFor();
   }, 120_000);
 
   it("asks for changes: the seller reads the note, publishes again and the unit is back in the queue", async () => {
@@ -89,12 +96,12 @@ describe("the review desk", () => {
     expect((await Listing.findByPk(unit.id))?.status).toBe("draft");
 
     const own = await (await newContext(browser)).newPage();
-    await own.goto("/sign-in");
-    await submitSignIn(own, seller.user.email, password);
+    await signIn(own, seller.user.email, password);
     await own.goto(`/sell/${unit.id}/review`);
     await own.getByText(note).first().waitFor();
     await shots(own, "editor-changes-asked");
-    await Promise.all([own.waitForLoadState("load"), own.getByRole("button", { name: "Publish", exact: true }).click()]);
+    await own.getByRole("button", { name: "Publish", exact: true }).click();
+    await own.getByText(/is back at the review desk with your changes/).waitFor();
     const after = await Listing.findByPk(unit.id);
     expect(after?.status).toBe("held");
     expect(after?.heldReason).toMatch(/^Resubmitted after changes/);

@@ -140,10 +140,11 @@ export function OwnerLinks({ listing, viewer }: { listing: ListingHead; viewer: 
       </div>
     );
   }
-  if (viewer.isModerator && listing.status === "held") {
+  // Moderators act on a listing, and read its trail, on its desk page.
+  if (viewer.isModerator) {
     return (
-      <ButtonLink to="/desk" variant="secondary">
-        Back to the review desk
+      <ButtonLink to={`/desk/listings/${listing.id}`} variant="secondary">
+        {listing.status === "held" ? "Decide on it at the review desk" : "Its trail at the review desk"}
       </ButtonLink>
     );
   }
