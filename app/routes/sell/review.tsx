@@ -38,7 +38,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       listing.status === "held"
         ? listing.reviewNote
           ? `${title} is back at the review desk with your changes. It reaches the market once a moderator clears it.`
-          : `${title} is published and waiting at the review desk: the bench found an implausible outcome. It reaches the market once a moderator clears it.`
+          : `${title} is published and waiting at the review desk. ${sentence(listing.heldReason)}It reaches the market once a moderator clears it.`
         : listing.benchVerified
           ? `${title} is live and bench-verified.`
           : `${title} is live.${verdict ? " It does not carry the bench-verified mark; the verdict says why." : ""}`;
@@ -49,6 +49,12 @@ export async function action({ request, params }: Route.ActionArgs) {
     const failure = stepFailure(e);
     return data<Failure>({ formError: failure.ok ? undefined : failure.formError, issues: [] }, { status: 409 });
   }
+}
+
+/** The hold's reason as a sentence of its own, or nothing. */
+function sentence(reason: string | null): string {
+  const r = reason?.trim();
+  return r ? `${/[.!?]$/.test(r) ? r : `${r}.`} ` : "";
 }
 
 export default function ReviewStep({ actionData }: Route.ComponentProps) {
