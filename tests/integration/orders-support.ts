@@ -46,7 +46,8 @@ export async function liveUnit(sellerId: string, extra: Partial<CreationAttribut
       town: "Heddelstein",
       cosmeticGrade: "clean",
       serviceState: "serviced_measured",
-      publishedAt: new Date(),
+      // Back-dated: the browser suite that follows opens demo units from the market's newest-first first page.
+      publishedAt: new Date(Date.UTC(2020, 0, 1)),
       shippingOptions: [{ method: "parcel", prices: { domestic: 2_500, nearby: 4_000 } }, { method: "collection" }],
       handlingDays: 2,
       ...extra,
