@@ -32,8 +32,9 @@ describe("role-only pages", () => {
     await submitSignIn(page, DEMO.moderator, "bench-demo-2026");
     await page.waitForURL("**/desk");
     await page.getByRole("heading", { name: "Review desk" }).waitFor();
-    await page.getByRole("heading", { name: "Listings held for review" }).waitFor();
-    await page.getByRole("heading", { name: "Workshop applications" }).waitFor();
+    const kinds = page.getByRole("navigation", { name: "Filter by kind" });
+    await kinds.getByRole("link", { name: /^Held listings/ }).waitFor();
+    await kinds.getByRole("link", { name: /^Workshop applications/ }).waitFor();
     await screenshot(page, "auth-desk");
     // A moderator is not an admin.
     await expectForbidden(page, "/admin/users");
@@ -48,7 +49,8 @@ describe("role-only pages", () => {
     await submitSignIn(page, DEMO.admin, "bench-demo-2026");
     await page.waitForURL("**/admin/users");
     await page.getByRole("heading", { name: "Accounts" }).waitFor();
-    // The admin's own row cannot drop the admin role.
+    // The admin's own row (found by search: the newest accounts come first) cannot drop the admin role.
+    await page.goto(`/admin/users?q=${encodeURIComponent(DEMO.admin)}`);
     const own = page.getByRole("listitem", { name: DEMO.admin });
     expect(await own.getByRole("checkbox", { name: "Admin" }).isDisabled()).toBe(true);
     await screenshot(page, "auth-admin-users");
