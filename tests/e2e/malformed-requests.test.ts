@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Op } from "sequelize";
+import { ForeignKeyConstraintError, Op } from "sequelize";
 import { sequelize } from "~/db.server";
 import { User } from "~/models/user.server";
 import { Agent, inParallel, rawExchange } from "./support/http";
@@ -136,7 +136,12 @@ describe("malformed requests", () => {
   afterAll(async () => {
     await removeFixtures(f);
     // Accounts the sign-up shots made share the fixtures' prefix.
-    if (f) await User.destroy({ where: { email: { [Op.like]: `fuzz-${f.run}-%@example.test` } } });
+    // One at a time: an account an order, an application or the desk's trail still refers to stays behind.
+    const left = f ? await User.findAll({ where: { email: { [Op.like]: `fuzz-${f.run}-%@example.test` } } }) : [];
+    for (const u of left)
+      await u.destroy().catch((e: unknown) => {
+        if (!(e instanceof ForeignKeyConstraintError)) throw e;
+      });
     await sequelize.close();
   });
 
