@@ -66,13 +66,36 @@ export function dct2d(values: ArrayLike<number>, n: number, keep = n): Float64Ar
 
 /** 32 × 32 grey levels (Rec. 601 luma weights) by area average; the aspect ratio is not kept. */
 export function greyThumbnail(image: Bitmap): Float64Array {
-  const small = shrink(image, HASH_SIDE, HASH_SIDE);
+  const small = shrink(atLeastHashSide(image), HASH_SIDE, HASH_SIDE);
   const out = new Float64Array(HASH_SIDE * HASH_SIDE);
   for (let i = 0; i < out.length; i++) {
     const p = i * 4;
     out[i] = 0.299 * small.data[p] + 0.587 * small.data[p + 1] + 0.114 * small.data[p + 2];
   }
   return out;
+}
+
+/** A photo narrower or shorter than 32 px, its pixels repeated until both sides reach 32 (shrink only reduces). */
+function atLeastHashSide(image: Bitmap): Bitmap {
+  const kx = Math.ceil(HASH_SIDE / image.width);
+  const ky = Math.ceil(HASH_SIDE / image.height);
+  if (kx <= 1 && ky <= 1) return image;
+  const fx = Math.max(1, kx);
+  const fy = Math.max(1, ky);
+  const width = image.width * fx;
+  const height = image.height * fy;
+  const data = Buffer.alloc(width * height * 4);
+  for (let y = 0; y < height; y++) {
+    for (let x = 0; x < width; x++) {
+      image.data.copy(
+        data,
+        (y * width + x) * 4,
+        (Math.floor(y / fy) * image.width + Math.floor(x / fx)) * 4,
+        (Math.floor(y / fy) * image.width + Math.floor(x / fx)) * 4 + 4,
+      );
+    }
+  }
+  return { data, width, height };
 }
 
 /** The top-left 8 × 8 block of the grey picture's 2-D DCT, row-major (index 0 is the DC term). */

@@ -41,7 +41,9 @@ describe("the watch list", () => {
 
     await page.getByRole("link", { name: "Watching", exact: true }).click();
     await page.waitForURL("**/watching");
-    const watched = page.locator("article");
+    // The address changes before the new page is drawn: wait for the list itself, not the market's cards.
+    await page.getByRole("heading", { level: 2, name: "Watched units" }).waitFor({ state: "attached" });
+    const watched = page.getByRole("main").locator("article");
     await watched.first().waitFor();
     expect(await watched.count()).toBe(1);
     expect(await watched.getByRole("link", { name: title }).isVisible()).toBe(true);

@@ -135,6 +135,22 @@ describe("the 64-bit hash", () => {
     expect(greyThumbnail({ data, width: N, height: N })[0]).toBeCloseTo(0.299 * 200 + 0.587 * 100 + 0.114 * 50, 9);
   });
 
+  it("hashes a photo smaller than 32 px on a side (a thumbnail-sized upload) as its pixels enlarged, not an error", () => {
+    // 16 × 8, left half 0 and right half 255: each pixel repeated 2 × 4 times is the 32 × 32 picture.
+    const small = greyBitmap(
+      Array.from({ length: 16 * 8 }, (_, i) => (i % 16 < 8 ? 0 : 255)),
+      16,
+      8,
+    );
+    const large = greyBitmap(
+      grid((_y, x) => (x < 16 ? 0 : 255)),
+      N,
+      N,
+    );
+    expect(Array.from(greyThumbnail(small))).toEqual(Array.from(greyThumbnail(large)));
+    expect(dctHash(greyBitmap([90], 1, 1))).toMatch(/^[0-9a-f]{1,16}$/);
+  });
+
   it("counts differing bits", () => {
     expect(hashDistance("0000000000000000", "0000000000000000")).toBe(0);
     expect(hashDistance("ffffffffffffffff", "0000000000000000")).toBe(64);
