@@ -218,6 +218,13 @@ describe("buying in the browser", () => {
     expect(Buffer.from(await opened.body()).includes(Buffer.from("Exif"))).toBe(false);
     // The same link opens nothing for the seller.
     expect((await seller.context().request.get(href!)).status()).toBe(404);
+    // The buyer sees their own photo on their order, through a link of their own.
+    await buyer.goto(`/purchases/${orderId}`);
+    const own = buyer.getByRole("img", { name: "Your photo 1" });
+    await own.waitFor();
+    const ownHref = (await own.getAttribute("src"))!;
+    expect(ownHref).not.toBe(href);
+    expect((await buyer.context().request.get(ownHref)).status()).toBe(200);
     await shots(moderator, "desk-contested");
     await moderator.getByLabel("Refund the buyer in part").check();
     await moderator.getByLabel("Part refund (EUR)").fill("360");

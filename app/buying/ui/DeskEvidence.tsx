@@ -18,7 +18,7 @@ const CAPTURE_STATUS: Record<ContestCaptureView["status"], string> = {
   failed: "refused",
 };
 
-export function ContestPhotos({ photos }: { photos: ContestPhotoLink[] }) {
+export function ContestPhotos({ photos, whose = "The buyer's" }: { photos: ContestPhotoLink[]; whose?: "The buyer's" | "Your" }) {
   if (!photos.length) return null;
   return (
     <div className="space-y-2">
@@ -28,7 +28,7 @@ export function ContestPhotos({ photos }: { photos: ContestPhotoLink[] }) {
           <li key={p.href}>
             {p.ready ? (
               <a href={p.href} target="_blank" rel="noreferrer" className="block overflow-hidden rounded-md border border-rule bg-sunk">
-                <img src={p.href} alt={`The buyer's photo ${i + 1}`} loading="lazy" className="aspect-[4/3] w-full object-cover" />
+                <img src={p.href} alt={`${whose} photo ${i + 1}`} loading="lazy" className="aspect-[4/3] w-full object-cover" />
                 <span className={`block px-2 py-1 text-xs ${linkClass}`}>Open photo {i + 1}</span>
               </a>
             ) : (

@@ -6,6 +6,8 @@ import { ActionCard, IntentButton, type OrderActionData } from "./OrderActions";
 import { MoneyPanel, NextStep, OrderHead, Timeline, When } from "./OrderParts";
 import { HeavyUnit } from "~/components/cautions/HeavyUnit";
 import { ReviewLinkCard } from "~/reputation/ui/ReviewLinkCard";
+import type { ContestPhotoLink } from "~/orders/contest-photo-links.server";
+import { ContestPhotos } from "./DeskEvidence";
 
 // The buyer's order page: the next step first, the one form that step takes, then the timeline;
 // money and delivery at the side (below on a phone).
@@ -15,12 +17,15 @@ export function PurchasePage({
   paid,
   result,
   audition,
+  contestPhotos = [],
 }: {
   order: OrderDetailView;
   paid: boolean;
   result: OrderActionData | null;
   /** The audition window's panel (cautions, readings, accept, contest), given by the route. */
   audition?: ReactNode;
+  /** While contested: the buyer's own photos, through links made for them. */
+  contestPhotos?: ContestPhotoLink[];
 }) {
   return (
     <main className="mx-auto w-full max-w-6xl space-y-6 px-4 pb-16 pt-6 sm:px-6">
@@ -30,6 +35,15 @@ export function PurchasePage({
         <div className="min-w-0 space-y-6">
           <NextStep next={order.next} />
           <BuyerStep order={order} paid={paid} result={result} audition={audition} />
+          {order.state === "contested" ? (
+            <ActionCard title="Contested" id="contested-heading">
+              <p className="text-sm text-ink-soft">
+                You have contested the unit. Your money stays held while a moderator weighs your evidence against the listing and its bench
+                sheet; you hear the decision by e-mail. You can still write to the seller through your messages.
+              </p>
+              <ContestPhotos photos={contestPhotos} whose="Your" />
+            </ActionCard>
+          ) : null}
           {order.delivery.releasedAt ? <ReviewLinkCard orderId={order.id} side="buyer" /> : null}
           <Timeline events={order.events} />
         </div>

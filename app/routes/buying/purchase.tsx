@@ -8,6 +8,7 @@ import { buyerStep, orderPage } from "~/buying/orders-page.server";
 import { acceptFromForm, auditionFigures, contestFromForm } from "~/buying/audition.server";
 import { PurchasePage } from "~/buying/ui/PurchasePage";
 import { AuditionPanel, type AuditionResult } from "~/buying/ui/AuditionPanel";
+import { contestPhotoLinks } from "~/orders/contest-photo-links.server";
 
 // /purchases/:orderId: the buyer's order. Paying happens on the provider's page; coming back with
 // ?paid=1 shows "waiting for the payment provider" until the webhook has funded the order.
@@ -26,7 +27,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const paid = new URL(request.url).searchParams.has("paid");
   const auditioning = view.state === "audition" || view.state === "arrived";
   const figures = auditioning ? await auditionFigures(view.listing.id) : [];
-  return data({ view, paid, figures }, { headers: { "Cache-Control": "private, no-store" } });
+  // The buyer's own contest photos, each link made for them alone (none before a contest).
+  const contestPhotos = view.state === "contested" ? await contestPhotoLinks(view.id, user, await requestClock()) : [];
+  return data({ view, paid, figures, contestPhotos }, { headers: { "Cache-Control": "private, no-store" } });
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -53,7 +56,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function Purchase({ loaderData, actionData }: Route.ComponentProps) {
-  const { view, paid, figures } = loaderData;
+  const { view, paid, figures, contestPhotos } = loaderData;
   const result = actionData && "intent" in actionData ? actionData : null;
   const audition = actionData && "audition" in actionData ? actionData.audition : null;
   return (
@@ -61,6 +64,7 @@ export default function Purchase({ loaderData, actionData }: Route.ComponentProp
       order={view}
       paid={paid}
       result={result}
+      contestPhotos={contestPhotos}
       audition={<AuditionPanel order={view} figures={figures} weightG={view.listing.weightG} result={audition} />}
     />
   );
