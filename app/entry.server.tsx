@@ -1,7 +1,7 @@
 import { PassThrough } from "node:stream";
 import type { AppLoadContext, EntryContext } from "react-router";
 import { createReadableStreamFromReadable } from "@react-router/node";
-import { ServerRouter } from "react-router";
+import { isRouteErrorResponse, ServerRouter } from "react-router";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
@@ -91,5 +91,7 @@ export default function handleRequest(
  */
 export function handleError(error: unknown, { request }: { request: Request }) {
   if (request.signal.aborted) return;
+  // A refused method or a missing page is the client's mistake, answered with its status: not a server error.
+  if (isRouteErrorResponse(error) && error.status < 500) return;
   console.error(`[web] ${request.method} ${new URL(request.url).pathname}:`, loggable(error));
 }

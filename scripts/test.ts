@@ -22,6 +22,7 @@ const reports = path.join(p.dir, "reports");
 type Tally = { passed: number; failed: number; skipped: number };
 const total: Tally = { passed: 0, failed: 0, skipped: 0 };
 const failures: string[] = [];
+const retried: string[] = [];
 
 function count(name: string, file: string, exitCode: number) {
   if (!fs.existsSync(file)) {
@@ -34,6 +35,16 @@ function count(name: string, file: string, exitCode: number) {
   total.failed += r.numFailedTests;
   total.skipped += (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
   if (r.numFailedTests > 0) failures.push(`${name}: ${r.numFailedTests} failed`);
+  // Name each failed test (and each that passed only on CI's retry), so the summary at the end of a
+  // long log says which, without scrolling back through it.
+  type Assertion = { status: string; fullName: string; failureMessages: string[] | null };
+  for (const t of (r.testResults ?? []) as { name: string; assertionResults: Assertion[] }[]) {
+    const where = path.relative(process.cwd(), t.name);
+    for (const a of t.assertionResults) {
+      if (a.status === "failed") failures.push(`${name}: ${where} > ${a.fullName}`);
+      else if (a.status === "passed" && a.failureMessages?.length) retried.push(`${where} > ${a.fullName}`);
+    }
+  }
   // A suite that fails to load counts as a failure even when no test in it ran.
   const broken = (r.testResults ?? []).filter(
     (t: { status: string; assertionResults: unknown[] }) => t.status === "failed" && t.assertionResults.length === 0,
@@ -56,6 +67,9 @@ async function vitest(name: string, projects: string[], env: Record<string, stri
     "--reporter=default",
     "--reporter=json",
     `--outputFile.json=${file}`,
+    // On CI one retry, so a test that fails once under a loaded machine does not sink the run; the
+    // summary names every test that needed it.
+    ...(process.env.CI ? ["--retry", "1"] : []),
     ...(filters.length ? ["--passWithNoTests", ...filters] : []),
   ];
   const code = await finished(launch(bin("vitest"), args, env));
@@ -156,6 +170,7 @@ async function browserSuite(env: Record<string, string>) {
   }
 }
 
+if (retried.length) console.log(`\nPassed only on a retry:\n${retried.map((f) => `  - ${f}`).join("\n")}`);
 if (failures.length) console.log(`\nFailures:\n${failures.map((f) => `  - ${f}`).join("\n")}`);
 console.log(`\n${total.passed} passed, ${total.failed} failed${total.skipped ? `, ${total.skipped} skipped` : ""}`);
 process.exit(exitCode || (total.failed > 0 ? 1 : 0));

@@ -1,15 +1,13 @@
-import { randomBytes } from "node:crypto";
-import type { CreationAttributes } from "sequelize";
 import { Listing, User } from "~/models/index.server";
 import { Watch } from "~/models/watch.server";
-import type { Role } from "~/auth/roles";
-import { blankListing } from "../support/blank-listing";
+import { madeAccounts } from "../support/made-accounts";
 
 // Shared by the keeping-track suites: accounts and live listings made straight in the database, the
 // jobs run by hand as the worker would (the integration suite runs no worker), and clean-up.
 
-export const RUN = randomBytes(4).toString("hex");
-const made: string[] = [];
+const made = madeAccounts("alerts");
+export const RUN = made.run;
+export const { account, liveAmplifier, cleanUp } = made;
 
 export interface SentMail {
   to: string | string[];
@@ -17,38 +15,6 @@ export interface SentMail {
   text: string;
   html?: string;
   headers?: Record<string, string>;
-}
-
-export async function account(label: string, roles: Role[] = ["buyer"]): Promise<User> {
-  const user = await User.create({
-    email: `alerts-it-${RUN}-${label}@example.test`,
-    displayName: `Alerts ${label}`,
-    passwordHash: null,
-    roles,
-    emailVerifiedAt: new Date(),
-    lastSignInAt: null,
-  });
-  made.push(user.id);
-  return user;
-}
-
-/** A live amplifier of `sellerId`'s, €480 unless told otherwise. */
-export function liveAmplifier(sellerId: string, extra: Partial<CreationAttributes<Listing>> = {}): Promise<Listing> {
-  return Listing.create(
-    blankListing(sellerId, "integrated_amplifier", {
-      status: "live",
-      maker: "Fenwold Acoustics",
-      model: `FW-${randomBytes(2).toString("hex")}`,
-      priceMinor: 48_000,
-      currency: "EUR",
-      country: "DE",
-      town: "Oskerfeld",
-      cosmeticGrade: "clean",
-      serviceState: "serviced_measured",
-      publishedAt: new Date(),
-      ...extra,
-    }),
-  );
 }
 
 export async function watch(user: User, listing: Listing) {
@@ -90,9 +56,4 @@ export function unsubscribeToken(mail: SentMail): string {
   const m = /\/unsubscribe\/([A-Za-z0-9_-]{43})/.exec(mail.text);
   if (!m) throw new Error(`no unsubscribe link in "${mail.subject}"`);
   return m[1];
-}
-
-export async function cleanUp() {
-  await Listing.destroy({ where: { sellerId: made } });
-  await User.destroy({ where: { id: made } });
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { DatabaseError } from "sequelize";
+import { handleError } from "~/entry.server";
 import { loggable } from "~/http/log.server";
 
 // What the web process writes when a request fails: enough to find the fault, never the values a
@@ -20,5 +21,23 @@ describe("server error log lines", () => {
     const line = loggable(new TypeError("x is undefined"));
     expect(line.startsWith("TypeError: x is undefined\n")).toBe(true);
     expect(line).toContain("server-error-log.test.ts");
+  });
+
+  // React Router hands handleError its own error responses (status, statusText, internal, data).
+  it("name a route's error response by its status, and leave 4xx answers (a refused method, a missing page) out", () => {
+    const refused = { status: 405, statusText: "Method Not Allowed", internal: true, data: "" };
+    const broken = { status: 503, statusText: "Service Unavailable", internal: false, data: null };
+    expect(loggable(refused)).toBe("405 Method Not Allowed");
+    const lines: unknown[][] = [];
+    const log = console.error;
+    console.error = (...args: unknown[]) => void lines.push(args);
+    try {
+      const request = new Request("http://loadline.test/desk/documents/x", { method: "POST" });
+      handleError(refused, { request });
+      handleError(broken, { request });
+    } finally {
+      console.error = log;
+    }
+    expect(lines).toEqual([["[web] POST /desk/documents/x:", "503 Service Unavailable"]]);
   });
 });
