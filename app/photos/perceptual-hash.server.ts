@@ -77,22 +77,16 @@ export function greyThumbnail(image: Bitmap): Float64Array {
 
 /** A photo narrower or shorter than 32 px, its pixels repeated until both sides reach 32 (shrink only reduces). */
 function atLeastHashSide(image: Bitmap): Bitmap {
-  const kx = Math.ceil(HASH_SIDE / image.width);
-  const ky = Math.ceil(HASH_SIDE / image.height);
-  if (kx <= 1 && ky <= 1) return image;
-  const fx = Math.max(1, kx);
-  const fy = Math.max(1, ky);
+  const fx = Math.ceil(HASH_SIDE / image.width);
+  const fy = Math.ceil(HASH_SIDE / image.height);
+  if (fx === 1 && fy === 1) return image;
   const width = image.width * fx;
   const height = image.height * fy;
   const data = Buffer.alloc(width * height * 4);
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
-      image.data.copy(
-        data,
-        (y * width + x) * 4,
-        (Math.floor(y / fy) * image.width + Math.floor(x / fx)) * 4,
-        (Math.floor(y / fy) * image.width + Math.floor(x / fx)) * 4 + 4,
-      );
+      const from = (Math.floor(y / fy) * image.width + Math.floor(x / fx)) * 4;
+      image.data.copy(data, (y * width + x) * 4, from, from + 4);
     }
   }
   return { data, width, height };
