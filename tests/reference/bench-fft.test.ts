@@ -63,7 +63,7 @@ function windowResponse(w: Float64Array, deltaBins: number): number {
   return Math.hypot(re, im) / sum;
 }
 
-describe("windows (coefficients per scipy 1.17.1; figures from REFERENCES §8, Harris, Proc. IEEE 66(1), 1978)", () => {
+describe("windows (coefficients per scipy 1.17.1; figures computed; Harris, Proc. IEEE 66(1), 1978; docs/references.md §8)", () => {
   const figures: [WindowName, number, number, number][] = [
     // name, coherent gain, ENBW (bins), scalloping loss (dB at half a bin)
     ["blackman-harris-4", 0.35875, 2.004, -0.826],
@@ -80,7 +80,7 @@ describe("windows (coefficients per scipy 1.17.1; figures from REFERENCES §8, H
     expect(20 * Math.log10(windowResponse(w, 0.5))).toBeCloseTo(scallop, 2);
   });
 
-  it("single-bin amplitude read 0.3 bin off: 0.9664 (BH4), 1.0003 (flat-top), 0.9433 (Hann) — REFERENCES §8 worked example", () => {
+  it("single-bin amplitude read 0.3 bin off: 0.9664 (BH4), 1.0003 (flat-top), 0.9433 (Hann) — computed worked example, docs/references.md §8", () => {
     // The flat-top's response is normalised the same way; its passband ripples slightly above 1.
     const read = (name: WindowName) => windowResponse(computeWindow(name, 48_000 / 8), 0.3);
     expect(read("blackman-harris-4")).toBeCloseTo(0.9664, 4);
@@ -95,7 +95,7 @@ describe("windows (coefficients per scipy 1.17.1; figures from REFERENCES §8, H
     return worst;
   }
 
-  it("BH4's highest sidelobe is −92 dB (REFERENCES §8)", () => {
+  it("BH4's highest sidelobe is −92 dB (Harris, Proc. IEEE 66(1), 1978)", () => {
     expect(highestSidelobeDb("blackman-harris-4", 4.01)).toBeCloseTo(-92, 0);
   });
 

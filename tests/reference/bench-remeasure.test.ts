@@ -153,7 +153,7 @@ describe("turntables", () => {
     ],
     sweeps: [],
   };
-  it("a 3150 Hz tone read at 3159.45 Hz is +0.30 % fast ((f − f₀)/f₀, REFERENCES §6; tone per IEC 60386); +0.25 points from +0.05 %: within ±0.3", () => {
+  it("a 3150 Hz tone read at 3159.45 Hz is +0.30 % fast ((f − f₀)/f₀; tone per IEC 60386); +0.25 points from +0.05 %: within ±0.3", () => {
     const err = (3159.45 - 3150) / 3150;
     expect(err).toBeCloseTo(0.003, 9);
     const row = one(tt, { quantity: "speed_error", value: err, unit: "%", conditions: { speedRpm: 33.33, testToneHz: 3150 } });
@@ -209,7 +209,7 @@ describe("loudspeakers", () => {
 });
 
 describe("RIAA deviation read off the sheet's sweep", () => {
-  // The playback curve re 1 kHz, IEC 60098 time constants 3180/318/75 µs, REFERENCES §1 table [computed, rounded to 0.01 dB].
+  // The playback curve re 1 kHz, IEC 60098 time constants 3180/318/75 µs, docs/references.md §1 table [computed, rounded to 0.01 dB].
   const F = [20, 50, 100, 500, 1000, 2000, 5000, 10_000, 20_000];
   const DB = [19.27, 16.95, 13.09, 2.65, 0, -2.59, -8.21, -13.73, -19.62];
   const phono: BenchSheet = {

@@ -22,7 +22,7 @@ const sheet = (category: BenchSheet["category"], readings: Reading[], sweeps: Be
 const derived = (s: BenchSheet, prefix: string) => checkBenchSheet(s).derived.find((d) => d.id.startsWith(prefix));
 const outcome = (s: BenchSheet, id: string) => checkBenchSheet(s).results.find((x) => x.ruleId === id)?.outcome;
 
-describe("slew rate for full power (SR = 2π·f·Vpk, derivative of a sine; REFERENCES §7)", () => {
+describe("slew rate for full power (SR = 2π·f·Vpk, derivative of a sine, textbook calculus; docs/references.md §7)", () => {
   it("100 W into 8 Ω → 40 V peak → 5.03 V/µs at 20 kHz [computed worked example]", () => {
     const s = sheet("power_amplifier", [
       m("output_power", 100, "W", { loadOhm: 8, frequencyRange: { lowHz: 20, highHz: 20000 } }),
@@ -34,7 +34,7 @@ describe("slew rate for full power (SR = 2π·f·Vpk, derivative of a sine; REFE
   });
 });
 
-describe("rise time and bandwidth (single pole, 10–90 %: BW·t_r = ln9/2π; electronics textbook, REFERENCES §7)", () => {
+describe("rise time and bandwidth (single pole, 10–90 %: BW·t_r = ln9/2π; electronics textbook; docs/references.md §7)", () => {
   it("the product is 0.3497 ≈ 0.35", () => {
     expect(RISE_BW_PRODUCT).toBeCloseTo(0.3497, 4);
   });
@@ -44,7 +44,7 @@ describe("rise time and bandwidth (single pole, 10–90 %: BW·t_r = ln9/2π; el
     expect(bw.value).toBeLessThan(205e3);
     expect(bw.display).toBe("200 kHz");
   });
-  it("a 20 kHz bandwidth gives 17.5 µs [computed, REFERENCES §7]", () => {
+  it("a 20 kHz bandwidth gives 17.5 µs [computed from ln9/2π]", () => {
     expect((RISE_BW_PRODUCT / 20e3) * 1e6).toBeCloseTo(17.5, 1); // 17.48 µs
     expect(
       outcome(sheet("integrated_amplifier", [m("rise_time", 17.5e-6, "µs"), m("f3db_high", 20e3, "kHz")]), "rise-time-bandwidth"),
@@ -52,7 +52,7 @@ describe("rise time and bandwidth (single pole, 10–90 %: BW·t_r = ln9/2π; el
   });
 });
 
-describe("damping factor (DF = R_load / Z_out; audio glossaries, REFERENCES §7)", () => {
+describe("damping factor (DF = R_load / Z_out; audio glossaries; docs/references.md §7)", () => {
   it("8 Ω / 0.05 Ω = 160", () => {
     expect(derived(sheet("integrated_amplifier", [m("output_impedance", 0.05, "Ω")]), "damping-factor-from-impedance")!.value).toBeCloseTo(
       160,
@@ -67,7 +67,7 @@ describe("damping factor (DF = R_load / Z_out; audio glossaries, REFERENCES §7)
   });
 });
 
-describe("loudspeaker minimum impedance (IEC 60268-5: not below 80 % of rated; secondary glossary, REFERENCES §5)", () => {
+describe("loudspeaker minimum impedance (IEC 60268-5: not below 80 % of rated; secondary glossary; docs/references.md §5)", () => {
   const spk = (rated: number, min: number) => sheet("loudspeaker", [r("nominal_impedance", rated, "Ω"), m("impedance_minimum", min, "Ω")]);
   it("an 8 Ω speaker may dip to 6.4 Ω, not 6.3 Ω", () => {
     expect(outcome(spk(8, 6.4), "speaker-impedance-minimum")).toBe("consistent");
@@ -77,13 +77,13 @@ describe("loudspeaker minimum impedance (IEC 60268-5: not below 80 % of rated; s
     expect(outcome(spk(4, 3.2), "speaker-impedance-minimum")).toBe("consistent");
     expect(outcome(spk(4, 3.1), "speaker-impedance-minimum")).toBe("questionable");
   });
-  it("a dB/2.83 V figure exceeds the dB/W figure by 10·log10(8/Z): +3.01 dB at 4 Ω [computed, REFERENCES §5]", () => {
+  it("a dB/2.83 V figure exceeds the dB/W figure by 10·log10(8/Z): +3.01 dB at 4 Ω [computed: 2.83 V = √8 V is 1 W into 8 Ω]", () => {
     const s = sheet("loudspeaker", [r("nominal_impedance", 4, "Ω"), m("sensitivity", 90, "dB/2.83 V/1 m")]);
     expect(90 - derived(s, "sensitivity-per-watt")!.value).toBeCloseTo(3.01, 2);
   });
 });
 
-describe("RIAA playback (IEC 60098, time constants 3180/318/75 µs; REFERENCES §1 table [computed])", () => {
+describe("RIAA playback (IEC 60098, time constants 3180/318/75 µs; playback table re 1 kHz, docs/references.md §1 [computed from the time constants])", () => {
   // Published-style table, dB re 1 kHz, rounded to 0.01 dB.
   const TABLE: [number, number][] = [
     [20, 19.27],
@@ -139,7 +139,7 @@ describe("half-load power (ideal voltage source doubles into half the load; text
   });
 });
 
-describe("wow & flutter (IEC 60386 / AES6: 3150 Hz test tone, weighted; REFERENCES §6)", () => {
+describe("wow & flutter (IEC 60386 / AES6: 3150 Hz test tone, weighted; docs/references.md §6)", () => {
   it("accepts the IEC tone and refuses a figure without weighting", () => {
     expect(
       outcome(sheet("turntable", [m("wow_flutter", 0.001, "%", { weighting: "IEC-60386-peak", testToneHz: 3150 })]), "wow-flutter"),

@@ -7,7 +7,7 @@ import { singlePoleSquareCsv } from "../support/capture-files";
 const enc = (s: string) => new TextEncoder().encode(s);
 
 describe("rise time and bandwidth (single pole, 10–90 %)", () => {
-  it("t_r · f−3dB = ln 9 / 2π = 0.3497 (textbook single-pole derivation, REFERENCES §7)", () => {
+  it("t_r · f−3dB = ln 9 / 2π = 0.3497 (textbook single-pole derivation)", () => {
     expect(RISE_TIME_BANDWIDTH_EXACT).toBeCloseTo(0.3497, 4);
     for (const f3dB of [20e3, 100e3, 500e3]) {
       const csv = singlePoleSquareCsv({ f3dB, period: 20 / f3dB, dt: 1 / (500 * f3dB) });
@@ -17,7 +17,7 @@ describe("rise time and bandwidth (single pole, 10–90 %)", () => {
     }
   });
 
-  it("a 20 kHz bandwidth gives a 17.5 µs rise time (REFERENCES §7, computed)", () => {
+  it("a 20 kHz bandwidth gives a 17.5 µs rise time (computed from ln9/2π)", () => {
     const csv = singlePoleSquareCsv({ f3dB: 20e3, period: 0.5e-3, dt: 40e-9 });
     const r = analyseCapture(enc(csv), "scope.csv", { kind: "square" }, "cap");
     if (r.kind !== "square") throw new Error("expected a square-wave analysis");
@@ -85,7 +85,7 @@ describe("sweeps: deviation from flat and from the RIAA playback curve (IEC 6009
     expect(a.conditions.band).toEqual({ lowHz: 20, highHz: 20_000 });
   });
 
-  it("the IEC variant: a stage with the 7950 µs pole fits the IEC target, not the plain one (REFERENCES §1)", () => {
+  it("the IEC variant: a stage with the 7950 µs pole fits the IEC target, not the plain one (IEC 60098 amendment)", () => {
     const f = Float64Array.from(freqs);
     const levels = f.map((x) => riaaPlaybackDb(x, { iecPole: true }));
     expect(Math.abs(analyseSweep(f, levels, { reference: "riaa", iecPole: true }).worstDeviation.deviation.value)).toBeLessThan(1e-9);

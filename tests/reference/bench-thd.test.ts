@@ -6,7 +6,7 @@ import { toneSamples, toneWav, type WavBits } from "../support/capture-files";
 
 // THD of synthetic signals with known harmonic amplitudes, through the whole capture path
 // (WAV written by wavefile → decoded → windowed FFT → power-summed harmonics).
-// Definition: IEC 60268-3 / IEEE 1057 style THD_F = √(Σ U_n², n ≥ 2) / U_1 [REFERENCES §7].
+// Definition: IEC 60268-3 / IEEE 1057 style THD_F = √(Σ U_n², n ≥ 2) / U_1 [from memory; docs/references.md §7].
 
 const conditions = (extra: Partial<SineCaptureConditions> = {}): SineCaptureConditions => ({
   kind: "sine",
@@ -22,14 +22,14 @@ function analyse(bytes: Uint8Array, c = conditions()) {
   return r.analysis;
 }
 
-// REFERENCES §8 worked example: amplitudes (1, 0.01, 0.001) → THD = √(0.01² + 0.001²) = 1.0049876 %.
+// Worked example (computed; docs/references.md §8): amplitudes (1, 0.01, 0.001) → THD = √(0.01² + 0.001²) = 1.0049876 %.
 const EXACT_THD = Math.hypot(0.01, 0.001);
 
 // Quantisation noise that lands in the bins summed for each harmonic limits agreement: about −98 dB
 // of noise for 16-bit at half scale, so 1e-4 of a −40 dB harmonic; far less for deeper formats.
 const TOLERANCE: Record<WavBits, number> = { "8": 1, "16": 3e-4, "24": 3e-6, "32": 1e-7, "32f": 1e-6 };
 
-describe("THD from WAV captures of every accepted format (REFERENCES §8 worked example: 1.0049876 %)", () => {
+describe("THD from WAV captures of every accepted format (computed worked example: 1.0049876 %)", () => {
   const formats: WavBits[] = ["16", "24", "32", "32f"];
   const rates = [44_100, 48_000, 96_000, 192_000];
   const cases: [WavBits, 1 | 2, number, number][] = [];
@@ -57,7 +57,7 @@ describe("THD from WAV captures of every accepted format (REFERENCES §8 worked 
   });
 });
 
-describe("THD_F and THD_R (IEC 60268-3:2013 worked example via phonometry reference data, REFERENCES §7)", () => {
+describe("THD_F and THD_R (IEC 60268-3:2013 worked example via an open-source library's reference data)", () => {
   it("harmonics (1, 0.1, 0.05, 0.02) give THD_F = 0.11357817 and THD_R = 0.11285260", () => {
     for (const bits of ["32f", "24"] as const) {
       const a = analyse(
@@ -70,8 +70,8 @@ describe("THD_F and THD_R (IEC 60268-3:2013 worked example via phonometry refere
   });
 });
 
-describe("power-summing makes the window's choice and the cycle count immaterial (REFERENCES §8)", () => {
-  // REFERENCES §8 (computed): at f0 = 1000.3 Hz, power-summing the bins around each harmonic gives the
+describe("power-summing makes the window's choice and the cycle count immaterial (Harris, Proc. IEEE 66(1), 1978)", () => {
+  // Computed (docs/references.md §8): at f0 = 1000.3 Hz, power-summing the bins around each harmonic gives the
   // exact THD with Blackman-Harris 4-term, Hann or flat-top; a single-bin read would not.
   const windows: WindowName[] = ["blackman-harris-7", "blackman-harris-4", "hann", "flat-top"];
   it.each(windows)("%s, fs = 48 kHz, N = 48000, f0 = 1000.3 Hz: THD = 1.0049876 % and level exact", (window) => {
@@ -117,7 +117,7 @@ describe("levels, watts and the trade's rules of thumb", () => {
 describe("THD+N, noise, SNR, bandwidth and weighting", () => {
   const base = { sampleRate: 96_000, seconds: 1, f0: 1000, peak: 0.5, bits: "32" as const, channels: 1 as const };
 
-  it("THD+N counts a non-harmonic tone; THD does not; SNR is the fundamental over it (definitions, REFERENCES §7)", () => {
+  it("THD+N counts a non-harmonic tone; THD does not; SNR is the fundamental over it (definitions, IEC 60268-3 / AES17)", () => {
     const ch = analyse(toneWav({ ...base, harmonics: [1, 0.001], extra: [[5123, 1e-4]] })).channels[0];
     expect(ch.thd.ratio).toBeCloseTo(0.001, 7);
     expect(ch.thdN.ratio).toBeCloseTo(Math.hypot(0.001, 1e-4), 7);
@@ -125,7 +125,7 @@ describe("THD+N, noise, SNR, bandwidth and weighting", () => {
     expect(ch.noise.rms.value).toBeCloseTo((0.5 * 1e-4) / Math.SQRT2, 8);
   });
 
-  it("AES17's 20 kHz bandwidth leaves out a 25 kHz tone; a 30 kHz bandwidth takes it in (AES17 default, REFERENCES §7)", () => {
+  it("AES17's 20 kHz bandwidth leaves out a 25 kHz tone; a 30 kHz bandwidth takes it in (AES17 standard low-pass filter)", () => {
     const bytes = toneWav({ ...base, extra: [[25_000, 1e-3]] });
     expect(analyse(bytes).channels[0].thdN.ratio).toBeLessThan(1e-6);
     const wide = analyse(bytes, conditions({ bandwidth: { lowHz: 20, highHz: 30_000 } })).channels[0];

@@ -9,7 +9,7 @@ const v = (r: ParseResult) => {
   return r.value;
 };
 
-describe("levels (REFERENCES §7)", () => {
+describe("levels (definitions; docs/references.md §7)", () => {
   it("0 dBu = −2.218 dBV — audio glossaries quoting a measurement handbook; 0.7746 V = √(1 mW · 600 Ω)", () => {
     expect(toUnit(v(parseValue("0 dBu")), "dBV", "voltage")).toBeCloseTo(-2.218, 3);
   });
@@ -19,17 +19,17 @@ describe("levels (REFERENCES §7)", () => {
   it("−10 dBV = 0.316 V — same glossaries", () => {
     expect(v(parseValue("-10 dBV"))).toBeCloseTo(0.316, 3);
   });
-  it("dBW = 10·log10(P / 1 W): 20 dBW = 100 W — definition table, REFERENCES §7", () => {
+  it("dBW = 10·log10(P / 1 W): 20 dBW = 100 W — level definitions", () => {
     expect(v(parseValue("20 dBW"))).toBeCloseTo(100, 9);
   });
 });
 
-describe("sine relations (textbook; REFERENCES brief)", () => {
+describe("sine relations (textbook)", () => {
   it("Vrms = Vpk/√2 = Vpp/(2√2): 40 Vpk and 80 Vpp are both 28.28 Vrms", () => {
     expect(v(parseValue("40 Vpk"))).toBeCloseTo(40 / Math.SQRT2, 12);
     expect(v(parseValue("80 Vpp"))).toBeCloseTo(28.2843, 4);
   });
-  it("100 W into 8 Ω is 40 V peak — REFERENCES §7 worked example [computed]", () => {
+  it("100 W into 8 Ω is 40 V peak — worked example [computed: √(2·100·8)]", () => {
     expect(vpkFromPower(100, 8)).toBeCloseTo(40, 12);
     expect(formatValue(vrmsFromPower(v(parseValue("100 W")), 8), "voltage", { form: "peak" })).toBe("40 Vpk");
   });
@@ -49,7 +49,7 @@ describe("distortion ratios", () => {
   });
 });
 
-describe("loudspeaker drive (REFERENCES §5)", () => {
+describe("loudspeaker drive (IEC 60268-5; docs/references.md §5)", () => {
   it("2.83 V rms is 1.00 W into 8 Ω and 2.00 W into 4 Ω [computed: 2.83 ≈ √8]", () => {
     const volts = v(parseValue("2.83 V"));
     expect(powerFromVrms(volts, 8)).toBeCloseTo(1.0, 2);
