@@ -1,6 +1,6 @@
 // Small builders for bench-sheet tests.
 import { checkBenchSheet, type BenchSheet, type Category, type Conditions, type Reading, type Sweep, type Verdict } from "@shared/bench";
-import { riaaPlaybackDb } from "@shared/bench/curves";
+import { RIAA_IEC_TABLE, RIAA_PLAYBACK_TABLE, sweepFromTable } from "../support/published-tables";
 
 type Extra = Partial<Omit<Reading, "quantity" | "value" | "unit" | "conditions">>;
 
@@ -39,17 +39,12 @@ export const full8 = {
 };
 export const full4 = { ...full8, loadOhm: 4 };
 
-/** A phono stage's response sweep (1/6-octave, 20 Hz–20 kHz) following RIAA playback, with optional errors added. */
+/**
+ * A phono stage's response sweep typed from the published RIAA playback table (IEC 60098, rounded to
+ * 0.01 dB as printed; with the IEC 7950 µs pole when `iec`), shifted by the stage's gain and bent by
+ * `tiltDb`: never built with the curve the rule judges it by.
+ */
 export function riaaSweep(o: { offsetDb?: number; tiltDb?: (f: number) => number; iec?: boolean }): Sweep {
-  const points: Sweep["points"] = [];
-  for (let i = 0; i <= 60; i++) {
-    const f = Math.round(20 * 2 ** (i / 6) * 100) / 100;
-    if (f > 20000) break;
-    points.push({ frequencyHz: f, levelDb: (o.offsetDb ?? 0) + riaaPlaybackDb(f, { iecPole: o.iec }) + (o.tiltDb?.(f) ?? 0) });
-  }
-  if (!points.some((p) => p.frequencyHz === 1000)) {
-    points.push({ frequencyHz: 1000, levelDb: o.offsetDb ?? 0 });
-    points.sort((a, b) => a.frequencyHz - b.frequencyHz);
-  }
+  const points = sweepFromTable(o.iec ? RIAA_IEC_TABLE : RIAA_PLAYBACK_TABLE, o);
   return { kind: "riaa", origin: "typed", conditions: {}, points };
 }
