@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { analyseCapture } from "~/bench/captures.server";
 import { readConditions } from "~/bench/capture-form.server";
 import { parseBenchSheet } from "@shared/bench/schema";
-import { riaaPlaybackDb } from "@shared/bench/curves";
+import { RIAA_IEC_TABLE } from "../support/published-tables";
 import { singlePoleSquareCsv, toneWav } from "../support/capture-files";
 
 // Capture results become bench-sheet readings the sheet schema accepts, marked as coming from the capture.
@@ -66,8 +66,9 @@ describe("capture analyses as bench-sheet readings", () => {
   });
 
   it("a phono stage's sweep gives an RIAA sweep for the sheet plus deviation and −3 dB readings", () => {
-    const freqs = [10, 20, 50, 100, 1000, 10_000, 20_000, 50_000];
-    const rows = freqs.map((f) => `${f},${(30 + riaaPlaybackDb(f, { iecPole: true }) + (f === 20_000 ? -0.4 : 0)).toFixed(4)}`);
+    // Typed from IEC 60098's table with the 7950 µs pole (tests/support/published-tables.ts), 0.4 dB low at 20 kHz.
+    const freqs = RIAA_IEC_TABLE.map(([f]) => f);
+    const rows = RIAA_IEC_TABLE.map(([f, db]) => `${f},${(30 + db + (f === 20_000 ? -0.4 : 0)).toFixed(2)}`);
     const r = analyseCapture(
       enc(["frequency,level", ...rows].join("\n")),
       "riaa.csv",
@@ -78,7 +79,8 @@ describe("capture analyses as bench-sheet readings", () => {
     expect(r.sweep).toMatchObject({ kind: "riaa", variant: "riaa_iec", origin: "capture", captureId: "cap-9" });
     expect(r.sweep.points).toHaveLength(freqs.length);
     const dev = r.readings.find((x) => x.quantity === "riaa_deviation")!;
-    expect(dev.value).toBeCloseTo(0.4, 3);
+    // The table is rounded to 0.01 dB: the deviation reads 0.4 dB to within 0.006 dB.
+    expect(Math.abs(dev.value - 0.4)).toBeLessThanOrEqual(0.006);
     expect(dev.note).toBe("worst -0.40 dB at 20000 Hz, re 1 kHz");
     expect(parseBenchSheet({ category: "phono_stage", readings: r.readings, sweeps: [r.sweep] })).toMatchObject({ ok: true });
   });
