@@ -7,6 +7,7 @@
 //   npm run mutations -- --check      only check that each mutation still applies (no tests)
 //   npm run mutations -- power phono  only mutations whose file or description contains a word
 //   npm run mutations -- --workers=1  vitest workers (default 2; the machine is shared)
+//   npm run mutations -- --tests=tests/unit/bench/rule   only test files whose path contains this
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -23,6 +24,7 @@ const PER_RUN_TIMEOUT_MS = 240_000;
 const argv = process.argv.slice(2);
 const checkOnly = argv.includes("--check");
 const workers = Number(argv.find((a) => a.startsWith("--workers="))?.split("=")[1] ?? 2);
+const onlyTests = argv.find((a) => a.startsWith("--tests="))?.split("=")[1];
 const words = argv.filter((a) => !a.startsWith("--"));
 const chosen = words.length
   ? MUTATIONS.filter((m) => words.some((w) => m.file.includes(w) || m.why.toLowerCase().includes(w.toLowerCase())))
@@ -93,7 +95,7 @@ function testFiles(copy: string): string[] {
     };
     walk(dir);
   }
-  return [...new Set(out)].sort();
+  return [...new Set(out)].filter((f) => !onlyTests || f.includes(onlyTests)).sort();
 }
 
 type Run = { pass: boolean; timedOut: boolean; ms: number };
