@@ -86,6 +86,37 @@ describe("measured-vs-rated-power: more than 1.5× the rating questionable; any 
     const v = at(200, 0.002);
     expect(resultsFor(v, "measured-vs-rated-power").some((r) => /2\.00×/.test(r.detail))).toBe(false);
   });
+  it("a measurement is held against the rating only at the rated load (within 2 %) and channels driven", () => {
+    const c = { ...full8, atDistortion: { ratio: 0.001, measure: "thd" as const } };
+    const vs = (m: Reading) => resultsFor(checkBenchSheet(amp([rating, m])), "measured-vs-rated-power");
+    // 8.1 Ω is 1.2 % from 8 Ω: the same load. 7 Ω is not, and one channel driven is not both driven.
+    expect(vs(measured("output_power", 160, "W", { ...c, loadOhm: 8.1 })).map((r) => r.outcome)).toEqual(["questionable"]);
+    expect(vs(measured("output_power", 160, "W", { ...c, loadOhm: 7 }))).toEqual([]);
+    expect(vs(measured("output_power", 160, "W", { ...c, channelsDriven: "one" }))).toEqual([]);
+  });
+  it("the weakest channel's best figure stands for the unit", () => {
+    const c = { ...full8, atDistortion: { ratio: 0.001, measure: "thd" as const } };
+    const at = (hz: number) => ({ ...c, frequencyHz: hz });
+    // Left's best is 110 W (its 90 W is at 20 kHz), right's is 105 W: the unit makes 105 W, above its rating.
+    const v = checkBenchSheet(
+      amp([
+        rating,
+        measured("output_power", 90, "W", at(20_000), { channel: "left" }),
+        measured("output_power", 110, "W", at(1000), { channel: "left" }),
+        measured("output_power", 105, "W", at(1000), { channel: "right" }),
+      ]),
+    );
+    expect(resultsFor(v, "measured-vs-rated-power")[0].compared[1].value).toBe(105);
+    // Left 95 W, right 105 W: the unit is 5 % short of its rating.
+    const w = checkBenchSheet(
+      amp([
+        rating,
+        measured("output_power", 95, "W", c, { channel: "left" }),
+        measured("output_power", 105, "W", c, { channel: "right" }),
+      ]),
+    );
+    expect(w.shortfalls.map((s) => s.percent)).toEqual([5]);
+  });
   it("a power rated at a distortion limit needs the limit stated", () => {
     const s = amp([measured("output_power", 50, "W", { loadOhm: 8, frequencyHz: 1000, channelsDriven: "both" })]);
     const [r] = resultsFor(checkBenchSheet(s), "power-rating-conditions");
