@@ -109,11 +109,7 @@ describe("measured-vs-rated-power: more than 1.5× the rating questionable; any 
     expect(resultsFor(v, "measured-vs-rated-power")[0].compared[1].value).toBe(105);
     // Left 95 W, right 105 W: the unit is 5 % short of its rating.
     const w = checkBenchSheet(
-      amp([
-        rating,
-        measured("output_power", 95, "W", c, { channel: "left" }),
-        measured("output_power", 105, "W", c, { channel: "right" }),
-      ]),
+      amp([rating, measured("output_power", 95, "W", c, { channel: "left" }), measured("output_power", 105, "W", c, { channel: "right" })]),
     );
     expect(w.shortfalls.map((s) => s.percent)).toEqual([5]);
   });

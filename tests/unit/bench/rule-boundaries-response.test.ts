@@ -67,7 +67,7 @@ describe("damping-output-impedance: DF = R_load / Z_out (audio glossaries); ±18
 });
 
 describe("channel-balance: 0.5 dB (loudspeaker pairs 1 dB), distortion within 3× or both below 0.01 %", () => {
-  const lr = (q: Reading["quantity"], l: number, r: number, unit: string, c = full8) => [
+  const lr = (q: Reading["quantity"], l: number, r: number, unit: string, c: Reading["conditions"] = full8) => [
     measured(q, l, unit, c, { channel: "left" }),
     measured(q, r, unit, c, { channel: "right" }),
   ];
