@@ -8,6 +8,8 @@
 //   npm run mutations -- power phono  only mutations whose file or description contains a word
 //   npm run mutations -- --workers=1  vitest workers (default 2; the machine is shared)
 //   npm run mutations -- --tests=tests/unit/bench/rule   only test files whose path contains this
+//   npm run mutations -- --survivors=<log>   only the mutations an earlier run's output lists as SURVIVED
+//                                            (plus any chosen by words), to re-check after adding tests
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -26,9 +28,16 @@ const checkOnly = argv.includes("--check");
 const workers = Number(argv.find((a) => a.startsWith("--workers="))?.split("=")[1] ?? 2);
 const onlyTests = argv.find((a) => a.startsWith("--tests="))?.split("=")[1];
 const words = argv.filter((a) => !a.startsWith("--"));
-const chosen = words.length
-  ? MUTATIONS.filter((m) => words.some((w) => m.file.includes(w) || m.why.toLowerCase().includes(w.toLowerCase())))
-  : MUTATIONS;
+const survivorsLog = argv.find((a) => a.startsWith("--survivors="))?.split("=")[1];
+const survived = survivorsLog
+  ? fs
+      .readFileSync(survivorsLog, "utf8")
+      .split("\n")
+      .filter((l) => / SURVIVED /.test(l))
+      .map((l) => l.replace(/^\[\d+\/\d+\] SURVIVED\s+/, "").replace(/ \([\d.]+ s\)$/, ""))
+  : [];
+const byWord = (m: Mutation) => words.some((w) => m.file.includes(w) || m.why.toLowerCase().includes(w.toLowerCase()));
+const chosen = words.length || survivorsLog ? MUTATIONS.filter((m) => byWord(m) || survived.includes(`${m.file}: ${m.why}`)) : MUTATIONS;
 
 /** Where `from` sits in the file: it must occur exactly once, so the mutation is unambiguous. */
 function locate(text: string, m: Mutation): number | string {
