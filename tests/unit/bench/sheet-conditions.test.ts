@@ -2,6 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { sineCaptureConditionsSchema } from "@shared/bench/analysis";
 import { checkBenchSheet, parseBenchSheet } from "@shared/bench";
+import { checkBenchSheetJson, MAX_BODY_BYTES } from "@shared/bench/api";
 import { measured, riaaSweep, sheet } from "../bench-fixtures";
 
 describe("a sine capture's unstated conditions", () => {
@@ -29,5 +30,13 @@ describe("where a figure may stand", () => {
         .results.filter((r) => r.ruleId === "riaa-deviation")
         .map((r) => r.outcome),
     ).toEqual(["consistent"]);
+  });
+});
+
+describe("the check's body limit", () => {
+  it("a body just over 512 KB is refused as too large before it is parsed", () => {
+    expect(MAX_BODY_BYTES).toBe(512 * 1024);
+    expect(checkBenchSheetJson(" ".repeat(512 * 1024 + 1)).status).toBe(413);
+    expect(checkBenchSheetJson(" ".repeat(512 * 1024)).status).toBe(400);
   });
 });
