@@ -50,6 +50,21 @@ describe("half-load-power: ×2.06 consistent, ×2.3 implausible (P = V²/R; comm
   });
 });
 
+describe("readings pair only at the same distortion limit (within 5 %; common practice)", () => {
+  // 250 W into 4 Ω against 100 W into 8 Ω is 2.5×: implausible, but only if both were taken at one limit.
+  const at = (limit4: number) => {
+    const c = { frequencyHz: 1000, channelsDriven: "both" as const };
+    return amp([
+      measured("output_power", 100, "W", { ...c, loadOhm: 8, atDistortion: { ratio: 0.001, measure: "thd" } }),
+      measured("output_power", 250, "W", { ...c, loadOhm: 4, atDistortion: { ratio: limit4, measure: "thd" } }),
+    ]);
+  };
+  it("0.1 % and 0.104 % THD are one limit; 0.1 % and 0.14 % are not", () => {
+    expect(outcomes(at(0.00104), "half-load-power")).toEqual(["implausible"]);
+    expect(outcomes(at(0.0014), "half-load-power")).toEqual([]);
+  });
+});
+
 describe("peak-within-rails: Vpk = √(2·P·R) against the rail, 5 % allowance (textbook; common practice)", () => {
   // Vpk = 40 V × k needs P = (40k)²/(2·8) = 100·k² W into 8 Ω; ±40 V rails allow 40 V.
   const at = (k: number, rail: Reading) => amp([measured("output_power", 100 * k * k, "W", full8), rail]);
