@@ -12,3 +12,4 @@ export { riaaDeviation, bestRiaaFit, levelAt, type RiaaFit } from "./rules/phono
 export { keyFigures, sheetFilterFacets, KEY_FIGURES, type KeyFigure, type FigureKey, type SheetFacets } from "./figures";
 export { checkBenchSheetJson, type CheckResponse } from "./api";
 export { exampleIntegratedAmplifierSheet, doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierRequest } from "./examples";
+export { lowerLabel, categoryNoun, withArticle } from "./words";

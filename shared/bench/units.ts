@@ -50,14 +50,14 @@ type UnitDef = {
 };
 
 const KIND_NAMES: Record<Kind, string> = {
-  power: "a power (W, mW, dBW)",
-  voltage: "a voltage (V, mV, Vrms, Vpk, Vpp, dBV, dBu)",
+  power: "a power (W, mW, µW, nW, pW, dBW, dBm)",
+  voltage: "a voltage (V, mV, µV, nV, Vrms, Vpk, Vpp, dBV, dBu)",
   ratio: "a ratio (%, ppm or dB)",
   decibel: "a level in dB",
   frequency: "a frequency (Hz, kHz)",
-  time: "a time (s, ms, µs, ns)",
+  time: "a time (s, ms, µs, ns, ps)",
   resistance: "a resistance (Ω, ohm, R, kΩ)",
-  slewRate: "a slew rate (V/µs)",
+  slewRate: "a slew rate (V/µs, V/ns)",
   number: "a plain number",
 };
 
@@ -65,12 +65,17 @@ export function kindName(kind: Kind): string {
   return KIND_NAMES[kind];
 }
 
-const VOLT_PREFIX: [string, number][] = [
-  ["", 1],
-  ["m", 1e-3],
-  ["µ", 1e-6],
-  ["u", 1e-6],
-];
+// SI prefixes as bench meters show them (SI Brochure, 9th ed. 2019, Table 7). "u" stands in for "µ".
+// Each kind takes the prefixes its instruments display; the prefix letter is case-sensitive (mW ≠ MW).
+const PREFIX: Record<string, number> = { p: 1e-12, n: 1e-9, µ: 1e-6, u: 1e-6, m: 1e-3, "": 1, k: 1e3, M: 1e6, G: 1e9 };
+const PREFIXES_OF: Record<"power" | "voltage" | "time" | "frequency" | "resistance", string[]> = {
+  power: ["p", "n", "µ", "u", "m", "", "k"],
+  voltage: ["p", "n", "µ", "u", "m", "", "k"],
+  time: ["p", "n", "µ", "u", "m", ""],
+  frequency: ["m", "", "k", "M", "G"],
+  resistance: ["µ", "u", "m", "", "k", "M", "G"],
+};
+const shown = (prefix: string) => (prefix === "u" ? "µ" : prefix);
 const FORM_SPELLINGS: [VoltageForm | undefined, string[], string][] = [
   [undefined, [""], ""],
   ["rms", ["rms", "ac", "acrms"], "rms"],
@@ -79,31 +84,58 @@ const FORM_SPELLINGS: [VoltageForm | undefined, string[], string][] = [
   ["dc", ["dc"], " DC"],
 ];
 
-// Keys are lowercase with spaces removed; the Ω family is matched case-sensitively first (mΩ vs MΩ).
+// Two maps: EXACT keeps the case a prefix needs (mHz vs MHz, mΩ vs MΩ) and is tried first; TABLE is
+// lowercase for the spellings whose case does not matter ("WATTS", "khz", "Vrms"). Spaces are removed.
 const TABLE = new Map<string, UnitDef>();
 const EXACT = new Map<string, UnitDef>();
 
 function add(keys: string[], def: UnitDef) {
   for (const k of keys) TABLE.set(k.toLowerCase(), def);
 }
+function exact(keys: string[], def: UnitDef) {
+  for (const k of keys) EXACT.set(k, def);
+}
+/** A prefixed unit: exact spelling always; lowercase too unless it would clash (m/M: the milli reading wins for W and V, as today). */
+function prefixed(prefix: string, symbols: string[], def: UnitDef) {
+  exact(
+    symbols.map((s) => prefix + s),
+    def,
+  );
+  const clash = prefix === "M" || prefix === "G" || (prefix === "m" && (def.kind === "frequency" || def.kind === "resistance"));
+  if (!clash)
+    add(
+      symbols.map((s) => prefix + s),
+      def,
+    );
+}
 
 add(["W", "watt", "watts"], { kind: "power", unit: "W", factor: 1 });
-add(["mW"], { kind: "power", unit: "mW", factor: 1e-3 });
-add(["kW"], { kind: "power", unit: "kW", factor: 1e3 });
+for (const p of PREFIXES_OF.power) if (p) prefixed(p, ["W"], { kind: "power", unit: `${shown(p)}W`, factor: PREFIX[p] });
 add(["dBW"], { kind: "power", unit: "dBW", log: { ref: 1, per: 10 } });
+// dBm: decibels re 1 mW, 10·log10(P / 1 mW) (ITU-T V.574 / IEC 60027-3 level notation).
 add(["dBm"], { kind: "power", unit: "dBm", log: { ref: 1e-3, per: 10 } });
 
-for (const [prefix, factor] of VOLT_PREFIX) {
+for (const prefix of PREFIXES_OF.voltage) {
   for (const [form, spellings, suffix] of FORM_SPELLINGS) {
-    const unit = `${prefix === "u" ? "µ" : prefix}V${suffix}`;
-    for (const s of spellings) add([`${prefix}V${s}`], { kind: "voltage", unit, factor, form });
+    const unit = `${shown(prefix)}V${suffix}`;
+    const def: UnitDef = { kind: "voltage", unit, factor: PREFIX[prefix], form };
+    add(
+      spellings.map((s) => `${prefix}V${s}`),
+      def,
+    );
   }
 }
 add(["dBV"], { kind: "voltage", unit: "dBV", log: { ref: 1, per: 20 }, form: "rms" });
 add(["dBu"], { kind: "voltage", unit: "dBu", log: { ref: DBU_REF_V, per: 20 }, form: "rms" });
+// A voltage in dBm is the telephone trade's level across 600 Ω: 0 dBm = √(1 mW · 600 Ω) = 0.775 V, the same
+// reference as dBu (IEC 60268-2, 600 Ω reference impedance). Only where a voltage is expected.
+const DBM_600: UnitDef = { kind: "voltage", unit: "dBm (600 Ω)", log: { ref: DBU_REF_V, per: 20 }, form: "rms" };
+exact(["dBm(600Ω)", "dBm600", "dBm/600Ω"], DBM_600);
 
 add(["%", "percent"], { kind: "ratio", unit: "%", factor: 1e-2 });
 add(["ppm"], { kind: "ratio", unit: "ppm", factor: 1e-6 });
+// A distortion analyser's dBc (re the carrier, the test tone): 20·log10 of the ratio.
+add(["dBc"], { kind: "ratio", unit: "dBc", log: { ref: 1, per: 20 } });
 
 add(["dB"], { kind: "decibel", unit: "dB", factor: 1 });
 add(["dBA", "dB(A)", "dBA-wtd", "dB,A", "dBAwtd"], { kind: "decibel", unit: "dB(A)", factor: 1, weighting: "A" });
@@ -114,27 +146,19 @@ for (const k of ["dB/W", "dB/W/m", "dB/1W", "dB/1W/m", "dB/1W/1m", "dB/W/1m", "d
   add([k], { kind: "decibel", unit: "dB/1 W/1 m", factor: 1, sensitivityRef: "1W" });
 
 add(["Hz"], { kind: "frequency", unit: "Hz", factor: 1 });
-add(["kHz"], { kind: "frequency", unit: "kHz", factor: 1e3 });
+for (const p of PREFIXES_OF.frequency) if (p) prefixed(p, ["Hz"], { kind: "frequency", unit: `${p}Hz`, factor: PREFIX[p] });
+// "MHZ", "mhz": megahertz, as sellers mean it (millihertz only spelt exactly "mHz").
 add(["MHz"], { kind: "frequency", unit: "MHz", factor: 1e6 });
 
 add(["s", "sec"], { kind: "time", unit: "s", factor: 1 });
-add(["ms"], { kind: "time", unit: "ms", factor: 1e-3 });
-add(["µs", "us"], { kind: "time", unit: "µs", factor: 1e-6 });
-add(["ns"], { kind: "time", unit: "ns", factor: 1e-9 });
+for (const p of PREFIXES_OF.time) if (p) prefixed(p, ["s"], { kind: "time", unit: `${shown(p)}s`, factor: PREFIX[p] });
 
 add(["Ω", "ohm", "ohms", "R"], { kind: "resistance", unit: "Ω", factor: 1 });
-add(["kΩ", "kohm", "kohms"], { kind: "resistance", unit: "kΩ", factor: 1e3 });
-const CASE_SENSITIVE: [string, UnitDef][] = [
-  ["mΩ", { kind: "resistance", unit: "mΩ", factor: 1e-3 }],
-  ["mohm", { kind: "resistance", unit: "mΩ", factor: 1e-3 }],
-  ["mohms", { kind: "resistance", unit: "mΩ", factor: 1e-3 }],
-  ["MΩ", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
-  ["Mohm", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
-  ["Mohms", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
-  ["MOhm", { kind: "resistance", unit: "MΩ", factor: 1e6 }],
-];
-for (const [k, def] of CASE_SENSITIVE) EXACT.set(k, def);
+for (const p of PREFIXES_OF.resistance)
+  if (p) prefixed(p, ["Ω", "ohm", "ohms", "Ohm", "Ohms"], { kind: "resistance", unit: `${shown(p)}Ω`, factor: PREFIX[p] });
+exact(["MOhm", "MOhms"], { kind: "resistance", unit: "MΩ", factor: 1e6 });
 
+add(["V/ns"], { kind: "slewRate", unit: "V/ns", factor: 1e9 });
 add(["V/µs", "V/us"], { kind: "slewRate", unit: "V/µs", factor: 1e6 });
 add(["V/ms"], { kind: "slewRate", unit: "V/ms", factor: 1e3 });
 add(["V/s"], { kind: "slewRate", unit: "V/s", factor: 1 });
@@ -178,6 +202,7 @@ function lookupUncached(raw: string, kind: Kind | undefined): UnitDef | undefine
   }
   const def = TABLE.get(lower);
   if (def?.kind === "decibel" && def.unit === "dB" && kind === "ratio") return { kind: "ratio", unit: "dB", log: { ref: 1, per: 20 } };
+  if (def?.unit === "dBm" && kind === "voltage") return DBM_600;
   return def;
 }
 

@@ -1,5 +1,6 @@
 // Runs every rule over a sheet and decides bench-verified.
-import { CATEGORY_LABELS, QUANTITY_INFO, type Category, type Quantity } from "./quantities";
+import { QUANTITY_INFO, type Category, type Quantity } from "./quantities";
+import { categoryNoun } from "./words";
 import type { BenchSheet, Reading } from "./schema";
 import { formatReadingValue } from "./describe";
 import { RULES } from "./rules";
@@ -198,7 +199,7 @@ function summarise(
     ? ` ${shortfalls.length} figure${shortfalls.length > 1 ? "s fall" : " falls"} short of the rating: ${shortfalls[0].detail}`
     : "";
   if (verified)
-    return `Bench-verified ${CATEGORY_LABELS[category].toLowerCase()}: every required reading is measured and all ${counts.consistent} checks are consistent.${fromCaptures}${short}`;
+    return `Bench-verified ${categoryNoun(category)}: every required reading is measured and all ${counts.consistent} checks are consistent.${fromCaptures}${short}`;
   const tally = SEVERITY.filter((o) => counts[o])
     .map((o) => `${counts[o]} ${o}`)
     .join(", ");

@@ -9,7 +9,7 @@ import { Button } from "~/components/Button";
 import { FormError } from "~/components/Field";
 import { PageHeader } from "~/components/PageHeader";
 import { CATEGORIES, CATEGORY_LABELS } from "@shared/catalogue";
-import { REQUIRED_READINGS } from "@shared/bench";
+import { REQUIRED_READINGS, lowerLabel } from "@shared/bench";
 
 export const meta: Route.MetaFunction = () => [{ title: "List a unit · Sell · Loadline" }];
 
@@ -60,7 +60,7 @@ export default function NewListing({ loaderData, actionData }: Route.ComponentPr
                 <span className="space-y-1">
                   <span className="block font-serif text-lg font-semibold">{CATEGORY_LABELS[c].one}</span>
                   <span className="block text-sm text-ink-soft">
-                    Bench sheet asks for: {REQUIRED_READINGS[c].map((r) => r.label.replace(/ \(.*\)$/, "").toLowerCase()).join("; ")}.
+                    Bench sheet asks for: {REQUIRED_READINGS[c].map((r) => lowerLabel(r.label.replace(/ \(.*\)$/, ""))).join("; ")}.
                   </span>
                 </span>
               </label>

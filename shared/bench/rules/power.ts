@@ -3,7 +3,7 @@ import { AMPLIFIER_CATEGORIES } from "../quantities";
 import { formatReadingValue } from "../describe";
 import { powerFromVrms, SQRT2, vpkFromPower } from "../units";
 import { formatValue } from "../format";
-import { channelsCompatible, conditionsCompatible, nameOf, near, pct, weakestChannelBest } from "./match";
+import { channelsCompatible, conditionsCompatible, nameOf, near, pct } from "./match";
 import { fig, type Item, type Rule, type SheetIndex } from "./types";
 
 /** Power-voltage agreement, in power (2.5 % in voltage): meter and load tolerances. */
@@ -12,8 +12,6 @@ export const PV_QUESTIONABLE = 0.25;
 /** Half-load power ratio: 2 for an ideal voltage source, plus measurement tolerance. */
 export const HALF_LOAD_CONSISTENT = 2.06;
 export const HALF_LOAD_QUESTIONABLE = 2.3;
-/** Measured far above the rating (+1.8 dB): common practice. */
-export const FAR_ABOVE_RATED = 1.5;
 
 function hintFor(ratio: number): string {
   const hints: [number, string][] = [
@@ -179,64 +177,6 @@ export const peakWithinRails: Rule = {
       refs: [peak.from.ref],
       display: formatValue(peak.vpk / SQRT2, "voltage", { form: "peak" }),
     });
-  },
-};
-
-export const ratedVsMeasuredPower: Rule = {
-  id: "measured-vs-rated-power",
-  title: "Measured power against the maker's rating",
-  explanation:
-    "The weakest channel's measured power is compared with the maker's rating at the same load. Falling short is reported with the percentage (ageing parts and mains voltage matter); far above the rating suggests a different load, a looser distortion limit or a peak figure.",
-  source: "Maker's rating as the yardstick; more than 1.5× the rating is questionable (common practice)",
-  categories: AMPLIFIER_CATEGORIES,
-  evaluate(ix, out) {
-    const rated = ix.rated("output_power").filter((r) => r.conditions.loadOhm);
-    if (!rated.length) return "No maker's power rating with its load.";
-    let compared = 0;
-    for (const r of rated) {
-      const limit = r.conditions.atDistortion?.ratio;
-      const ms = ix
-        .measured("output_power")
-        .filter(
-          (m) =>
-            m.conditions.loadOhm !== undefined &&
-            near(m.conditions.loadOhm, r.conditions.loadOhm!) &&
-            conditionsCompatible(m.conditions, r.conditions, ["channelsDriven"]) &&
-            (limit === undefined || m.conditions.atDistortion === undefined || m.conditions.atDistortion.ratio <= limit * 1.05),
-        );
-      const m = weakestChannelBest(ms);
-      if (!m) continue;
-      compared++;
-      const ratio = m.value / r.value;
-      const load = formatValue(r.conditions.loadOhm!, "resistance");
-      const refs = [r.ref, m.ref];
-      const compared_ = [
-        fig("rated power", r.value, "power"),
-        fig("measured power (weakest channel)", m.value, "power"),
-        fig("measured ÷ rated", ratio, "number", { display: `${ratio.toFixed(2)}×` }),
-      ];
-      if (ratio > FAR_ABOVE_RATED) {
-        out.result({
-          outcome: "questionable",
-          detail: `${nameOf(m)} into ${load} is ${ratio.toFixed(2)}× the maker's ${formatReadingValue(r)}: check the load, the distortion limit and that the figure is average, not peak, power.`,
-          refs,
-          compared: compared_,
-        });
-      } else if (ratio < 1) {
-        const short = (1 - ratio) * 100;
-        const detail = `${nameOf(m)} into ${load} falls short of the maker's ${formatReadingValue(r)} by ${pct(short)}.`;
-        out.result({ outcome: "consistent", detail, refs, compared: compared_ });
-        out.shortfall({ detail, percent: Number(short.toFixed(1)), refs });
-      } else {
-        out.result({
-          outcome: "consistent",
-          detail: `${nameOf(m)} into ${load} meets the maker's ${formatReadingValue(r)} (${pct((ratio - 1) * 100)} above).`,
-          refs,
-          compared: compared_,
-        });
-      }
-    }
-    if (!compared) return "No measured power at a rated load.";
   },
 };
 

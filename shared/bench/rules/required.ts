@@ -1,5 +1,6 @@
 // The readings each category needs measured (not only rated) before a sheet can be bench-verified.
-import { CATEGORY_LABELS, QUANTITY_INFO, type Category, type Quantity } from "../quantities";
+import { QUANTITY_INFO, type Category, type Quantity } from "../quantities";
+import { categoryNoun, withArticle } from "../words";
 import type { Rule } from "./types";
 
 export type Requirement = {
@@ -79,7 +80,7 @@ export const requiredReadings: Rule = {
         const what = req.sweep === "riaa" ? "a response sweep of the phono stage" : names;
         out.result({
           outcome: "missing",
-          detail: `${req.label}: a ${CATEGORY_LABELS[ix.category].toLowerCase()} sheet needs ${what}.`,
+          detail: `${req.label}: ${withArticle(categoryNoun(ix.category))} sheet needs ${what}.`,
           refs: [],
         });
       }
