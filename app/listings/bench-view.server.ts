@@ -113,5 +113,6 @@ export function benchView(row: BenchSheetRow, sheet: BenchSheet, captures: Map<s
     shortfalls: (verdict.shortfalls ?? []).map((s) => s.detail),
     derived: (verdict.derived ?? []).map((d) => ({ label: d.label, display: d.display })),
     captureCount: captureRefs.size,
+    hazards: (verdict.hazards ?? []).map((h) => ({ title: h.title, detail: h.detail })),
   };
 }

@@ -2,7 +2,7 @@ import { Op, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { BenchSheet, Listing } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
-import { checkBenchSheet, parseBenchSheet, type BenchSheet as Sheet, type Verdict } from "@shared/bench";
+import { checkBenchSheet, lowerLabel, parseBenchSheet, type BenchSheet as Sheet, type Verdict } from "@shared/bench";
 import { listingFacets } from "@shared/listing-facets";
 import { CATEGORY_QUANTITIES } from "@shared/bench/quantities";
 import type { Reading, Sweep } from "@shared/bench/schema";
@@ -86,8 +86,16 @@ async function fromOwnCaptures(sheet: Sheet, sellerId: string, transaction: Tran
   return { ...sheet, readings, sweeps };
 }
 
-/** Why a sheet goes to the review desk instead of the market, or null. */
+/** The held reason's opening for a unit the bench found unsafe to connect; the desk filters on it. */
+export const UNSAFE_HELD_PREFIX = "Unsafe to connect";
+
+/** Why a sheet goes to the review desk instead of the market, or null. A reading that makes the unit unsafe comes first. */
 export function heldReasonFor(verdict: Verdict): string | null {
+  const hazards = verdict.hazards ?? [];
+  if (hazards.length) {
+    const more = hazards.length > 1 ? ` (and ${hazards.length - 1} more)` : "";
+    return `${UNSAFE_HELD_PREFIX}: ${lowerLabel(hazards[0].title)} — ${hazards[0].detail}${more}`.slice(0, 1000);
+  }
   const implausible = verdict.results.filter((r) => r.outcome === "implausible");
   if (!implausible.length) return null;
   const first = implausible[0];

@@ -131,6 +131,8 @@ export interface BenchView {
   shortfalls: string[];
   derived: { label: string; display: string }[];
   captureCount: number;
+  /** Readings that make the unit unsafe to connect, in plain words (the bench's hazards). */
+  hazards: { title: string; detail: string }[];
 }
 
 export interface SpectrumPlot {

@@ -69,6 +69,7 @@ export const CONDITION_FIELDS: Record<Quantity, ConditionField[]> = {
   speed_error: ["speed", "tone"],
   wow_flutter: ["weighting", "tone", "speed"],
   rumble: ["weighting", "speed"],
+  oscillation: ["load"],
 };
 
 export const FIELD_LABELS: Record<ConditionField, { label: string; placeholder: string }> = {

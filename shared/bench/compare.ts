@@ -39,6 +39,8 @@ const CONDITION_NAMES: Record<keyof Conditions, string> = {
   speedRpm: "platter speed",
   tapeSpeedCmS: "tape speed",
   supply: "supply",
+  sourceOhm: "source impedance",
+  temperatureC: "temperature",
 };
 
 /** Amplifiers of any kind are one family; the rest compare only within their own category. */

@@ -37,6 +37,8 @@ export function describeConditions(c: Conditions | undefined): string {
   if (c.speedRpm !== undefined) parts.push(`${formatNumberPlain(c.speedRpm)} rpm`);
   if (c.tapeSpeedCmS !== undefined) parts.push(`${formatNumberPlain(c.tapeSpeedCmS)} cm/s`);
   if (c.supply === "single") parts.push("single supply");
+  if (c.sourceOhm !== undefined) parts.push(`${formatValue(c.sourceOhm, "resistance")} source`);
+  if (c.temperatureC !== undefined) parts.push(`${formatNumberPlain(c.temperatureC)} °C`);
   if (c.mainsV !== undefined) parts.push(`${formatNumberPlain(c.mainsV)} V mains`);
   if (c.warmUpS !== undefined) parts.push(`after ${formatValue(c.warmUpS / 60, "number")} min warm-up`);
   return parts.join(", ");

@@ -5,7 +5,7 @@ export * from "./schema";
 export * from "./describe";
 export { checkBenchSheet, indexSheet, BENCH_RULES_VERSION, OUTCOMES, type Verdict, type CaptureFigure } from "./verdict";
 export { verdictSchema } from "./verdict-schema";
-export type { DerivedValue, Figure, Outcome, RuleResult, Shortfall, SkippedRule } from "./rules/types";
+export type { DerivedValue, Figure, Hazard, Outcome, RuleResult, Shortfall, SkippedRule } from "./rules/types";
 export { RULES, RULE_IDS, type Rule } from "./rules";
 export { REQUIRED_READINGS, type Requirement } from "./rules/required";
 export { riaaDeviation, bestRiaaFit, levelAt, type RiaaFit } from "./rules/phono";

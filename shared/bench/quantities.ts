@@ -56,6 +56,7 @@ export const QUANTITIES = [
   "speed_error",
   "wow_flutter",
   "rumble",
+  "oscillation",
 ] as const;
 export type Quantity = (typeof QUANTITIES)[number];
 
@@ -102,6 +103,8 @@ export const QUANTITY_INFO: Record<Quantity, QuantityInfo> = {
   speed_error: { label: "Speed error", kind: "ratio", baseUnit: "fraction (+0.002 = 0.2 % fast)", signed: true },
   wow_flutter: { label: "Wow & flutter", kind: "ratio", baseUnit: "fraction" },
   rumble: { label: "Rumble", kind: "decibel", baseUnit: "dB" },
+  /** An output seen oscillating on the bench (scope or analyser), at this frequency: a fault, never a rating. */
+  oscillation: { label: "Oscillation at the output", kind: "frequency", baseUnit: "Hz" },
 };
 
 /** Never empty: a category's readings form a zod enum. */
@@ -130,6 +133,7 @@ const AMP: QuantityList = [
   "crosstalk",
   "rail_voltage",
   "dc_offset",
+  "oscillation",
 ];
 const PHONO_INPUT: QuantityList = ["riaa_deviation", "overload_margin"];
 const LINE: QuantityList = [
@@ -152,6 +156,7 @@ const LINE: QuantityList = [
   "crosstalk",
   "rail_voltage",
   "dc_offset",
+  "oscillation",
 ];
 
 export const CATEGORY_QUANTITIES: Record<Category, QuantityList> = {

@@ -209,6 +209,13 @@ export const REMEASURE_RULES: Record<Quantity, RemeasureRule> = {
     conditions: [],
     better: "nearer_zero",
   },
+  oscillation: {
+    tolerance: { kind: "relative", fraction: 0.2 },
+    toleranceText: "±20 %",
+    source: "Common practice: a parasitic oscillation moves with the load, the cable and the unit's temperature",
+    conditions: ["loadOhm"],
+    better: null,
+  },
   riaa_deviation: {
     tolerance: { kind: "points", amount: 0.5 },
     toleranceText: "±0.5 dB",

@@ -118,6 +118,8 @@ const CONDITION_NAMES: Record<keyof Conditions, string> = {
   speedRpm: "platter speed",
   tapeSpeedCmS: "tape speed",
   supply: "supply",
+  sourceOhm: "source impedance",
+  temperatureC: "temperature",
 };
 
 /** Every figure of the sheet a buyer could re-measure, with its path; sweeps give their worst RIAA deviation. */

@@ -63,6 +63,10 @@ export const conditionsSchema = z.strictObject({
   tapeSpeedCmS: z.number().positive().max(500).optional(),
   /** Rails: "split" (± each rail, the default) or "single" (one rail to ground). */
   supply: z.enum(["split", "single"]).optional(),
+  /** Source impedance the input was terminated with for a noise figure, Ω (thermal-noise floor). */
+  sourceOhm: z.number().positive().max(100_000_000).optional(),
+  /** Ambient temperature of the measurement, °C (thermal-noise floor; 290 K ≈ 17 °C unless told). */
+  temperatureC: z.number().min(-50).max(150).optional(),
 });
 export type Conditions = z.infer<typeof conditionsSchema>;
 
@@ -135,6 +139,18 @@ export const sweepSchema = z
   });
 export type Sweep = z.infer<typeof sweepSchema>;
 
+/** The analyser that took the sheet's distortion and noise figures, as its maker or its own loopback states it. */
+export const analyserSchema = z.strictObject({
+  /** Residual THD+N (loopback), as a fraction. */
+  residualThdN: z.number().positive().max(1).optional(),
+  /** Residual THD (loopback), as a fraction. */
+  residualThd: z.number().positive().max(1).optional(),
+  /** Noise floor in its measurement bandwidth, V rms. */
+  noiseFloorV: z.number().positive().max(10).optional(),
+  /** Bandwidth of the analyser or oscilloscope, Hz: nothing it shows is faster than 0.35 / this. */
+  bandwidthHz: z.number().positive().max(100_000_000_000).optional(),
+});
+
 export const equipmentSchema = z.strictObject({
   maker: nameText("The equipment's maker").max(120).optional(),
   model: nameText("The equipment's model").max(120).optional(),
@@ -149,6 +165,7 @@ function sheetSchemaFor<C extends Category>(category: C) {
       id: z.string().max(64).optional(),
       category: z.literal(category),
       equipment: equipmentSchema.optional(),
+      analyser: analyserSchema.optional(),
       /** Channels the unit has; 2 unless told (1 for a mono block). */
       channelCount: z.int().min(1).max(8).optional(),
       /** Bridged (BTL) output: the peak swing may reach twice a rail. */
@@ -189,6 +206,7 @@ export const anySheetShape = z.strictObject({
   id: z.string().optional(),
   category: z.enum(CATEGORIES),
   equipment: equipmentSchema.optional(),
+  analyser: analyserSchema.optional(),
   channelCount: z.int().optional(),
   bridged: z.boolean().optional(),
   measuredOn: z.string().optional(),

@@ -41,6 +41,7 @@ export const verdictSchema = z.object({
       }),
     )
     .default([]),
+  hazards: z.array(z.object({ ruleId: z.string(), title: z.string(), detail: z.string(), refs })).default([]),
   rulesVersion: z.number().default(0),
 });
 

@@ -10,6 +10,7 @@ import {
   baseUnit,
   type DerivedValue,
   type Emit,
+  type Hazard,
   type Item,
   type Outcome,
   type Rule,
@@ -22,7 +23,7 @@ import {
 import { formatValue } from "./format";
 
 /** Bumped whenever a rule, threshold or requirement changes, so stored verdicts can be re-run. */
-export const BENCH_RULES_VERSION = 1;
+export const BENCH_RULES_VERSION = 2;
 
 export type CaptureFigure = { ref: string; quantity: Quantity | "sweep"; label: string; display: string; captureId?: string };
 
@@ -39,6 +40,8 @@ export type Verdict = {
   shortfalls: Shortfall[];
   /** Figures that came from captures (raw files analysed by the bench) rather than typed. */
   fromCaptures: CaptureFigure[];
+  /** Readings that make the unit unsafe to connect: no mark, a warning on the listing, held for the desk. */
+  hazards: Hazard[];
   rulesVersion: number;
 };
 
@@ -82,6 +85,7 @@ class Collector implements Emit {
   readonly results: RuleResult[] = [];
   readonly derived: DerivedValue[] = [];
   readonly shortfalls: Shortfall[] = [];
+  readonly hazards: Hazard[] = [];
   result(r: Parameters<Emit["result"]>[0]): void {
     const rule = this.rule!;
     this.results.push({
@@ -105,6 +109,10 @@ class Collector implements Emit {
       refs: d.refs,
     });
   }
+  hazard(h: Parameters<Emit["hazard"]>[0]): void {
+    const rule = this.rule!;
+    this.hazards.push({ ruleId: rule.id, title: rule.title, detail: sentence(h.detail), refs: h.refs });
+  }
   shortfall(s: Parameters<Emit["shortfall"]>[0]): void {
     this.shortfalls.push({ ruleId: this.rule?.id ?? "", detail: sentence(s.detail), percent: s.percent, refs: s.refs });
   }
@@ -125,7 +133,7 @@ function push<K, V>(m: Map<K, V[]>, k: K, v: V) {
 export function checkBenchSheet(sheet: BenchSheet): Verdict {
   const ix = new Index(sheet);
   const out = new Collector();
-  const { results, derived, shortfalls } = out;
+  const { results, derived, shortfalls, hazards } = out;
   const skipped: SkippedRule[] = [];
   for (const rule of RULES) {
     if (rule.categories && !rule.categories.includes(ix.category)) continue;
@@ -141,18 +149,21 @@ export function checkBenchSheet(sheet: BenchSheet): Verdict {
   const counts: Record<Outcome, number> = { consistent: 0, questionable: 0, implausible: 0, missing: 0 };
   for (const r of results) counts[r.outcome]++;
   const benchVerified =
-    counts.questionable + counts.implausible + counts.missing === 0 && results.some((r) => r.ruleId === "required-readings");
+    counts.questionable + counts.implausible + counts.missing === 0 &&
+    hazards.length === 0 &&
+    results.some((r) => r.ruleId === "required-readings");
   const fromCaptures = captureFigures(ix);
   return {
     category: sheet.category,
     benchVerified,
-    summary: summarise(sheet.category, benchVerified, counts, results, shortfalls, fromCaptures.length),
+    summary: summarise(sheet.category, benchVerified, counts, results, shortfalls, fromCaptures.length, hazards),
     counts,
     results,
     skipped,
     derived,
     shortfalls,
     fromCaptures,
+    hazards,
     rulesVersion: BENCH_RULES_VERSION,
   };
 }
@@ -193,6 +204,7 @@ function summarise(
   results: RuleResult[],
   shortfalls: Shortfall[],
   captures: number,
+  hazards: Hazard[] = [],
 ): string {
   const fromCaptures = captures ? ` ${captures} figure${captures > 1 ? "s" : ""} came from captures.` : "";
   const short = shortfalls.length
@@ -203,9 +215,11 @@ function summarise(
   const tally = SEVERITY.filter((o) => counts[o])
     .map((o) => `${counts[o]} ${o}`)
     .join(", ");
+  // A reading that makes the unit unsafe to connect is said first, whatever else the sheet shows.
+  if (hazards.length) return `Not bench-verified: unsafe to connect. ${hazards[0].detail} ${tally ? `(${tally})` : ""}`.trim();
   const first = SEVERITY.map((o) => results.find((r) => r.outcome === o)).find(Boolean);
   return `Not bench-verified: ${tally}. ${first ? `${first.title}: ${first.detail}` : ""}${fromCaptures}${short}`.trim();
 }
 
 export { OUTCOMES };
-export type { DerivedValue, Outcome, RuleResult, Shortfall, SkippedRule };
+export type { DerivedValue, Hazard, Outcome, RuleResult, Shortfall, SkippedRule };

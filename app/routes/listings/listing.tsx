@@ -9,6 +9,7 @@ import { CATEGORY_LABELS } from "@shared/catalogue";
 import { loadListingPage } from "~/listings/public.server";
 import { setWatch } from "~/listings/watch.server";
 import { BenchSheetSection, KeyFigures } from "~/listings/ui/BenchSheetSection";
+import { UnsafeToConnect } from "~/listings/ui/UnsafeToConnect";
 import { Gallery } from "~/listings/ui/Gallery";
 import { ListingTitle, OwnerLinks, PriceAndCondition, StatusBanner, WatchControl } from "~/listings/ui/ListingHeader";
 import { Plots } from "~/listings/ui/Plots";
@@ -100,6 +101,7 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
           <WatchControl listing={listing} viewer={viewer} />
           {listing.status === "live" || listing.status === "sold" ? <CompareToggle listingId={listing.id} layout="page" /> : null}
           <OwnerLinks listing={listing} viewer={viewer} />
+          {bench?.hazards.length ? <UnsafeToConnect hazards={bench.hazards} /> : null}
           <div className="border-t border-rule pt-5">
             <KeyFigures figures={keyFigures} verified={listing.benchVerified} />
           </div>

@@ -9,6 +9,11 @@ import { requiredReadings } from "./required";
 import { dampingVsImpedance, riseTimeBandwidth, slewRateFullPower } from "./response";
 import { speedError, wowFlutter } from "./transport";
 import type { Rule } from "./types";
+import { gainSensitivityOutput, snrNoiseReference } from "./cross-levels";
+import { powerAtDistortionLimit } from "./cross-distortion";
+import { typedVsCapture } from "./cross-capture";
+import { analyserFloor, instrumentBandwidth, slewRateRiseTime, thermalNoiseFloor } from "./floors";
+import { dcOffsetSafe, outputOscillation, turntableFarOffSpeed } from "./hazards";
 
 export const RULES: readonly Rule[] = [
   requiredReadings,
@@ -30,6 +35,18 @@ export const RULES: readonly Rule[] = [
   riaaAccuracy,
   speedError,
   wowFlutter,
+  // Cross-checks: figures physics ties together, physical floors, and faults that make a unit unsafe to connect.
+  snrNoiseReference,
+  gainSensitivityOutput,
+  powerAtDistortionLimit,
+  slewRateRiseTime,
+  typedVsCapture,
+  thermalNoiseFloor,
+  analyserFloor,
+  instrumentBandwidth,
+  dcOffsetSafe,
+  outputOscillation,
+  turntableFarOffSpeed,
 ];
 
 /** Rule ids are stable: listings, flags and the API refer to them. */

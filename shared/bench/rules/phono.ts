@@ -169,7 +169,7 @@ export function deriveFlatSweeps(ix: SheetIndex, out: Emit): void {
 }
 
 /** First frequency, walking from 1 kHz downwards ("down") or upwards ("up"), where the level falls to `level`. */
-function crossing(points: Pts, level: number, dir: "up" | "down"): number | undefined {
+export function crossing(points: Pts, level: number, dir: "up" | "down"): number | undefined {
   let i = points.findIndex((p) => p.frequencyHz >= 1000);
   if (i < 0) return undefined;
   const step = dir === "up" ? 1 : -1;

@@ -34,6 +34,12 @@ export type Shortfall = { ruleId: string; detail: string; percent: number; refs:
 
 export type SkippedRule = { ruleId: string; title: string; reason: string };
 
+/**
+ * A reading that means the unit is unsafe to connect (DC at a loudspeaker output, an oscillating output, a
+ * turntable far off speed): it blocks the mark, the listing shows a warning and the desk holds it.
+ */
+export type Hazard = { ruleId: string; title: string; detail: string; refs: string[] };
+
 export type Item = Reading & { ref: string };
 export type SweepItem = Sweep & { ref: string };
 
@@ -52,6 +58,7 @@ export type Emit = {
   result(r: { outcome: Outcome; detail: string; refs: string[]; compared?: Figure[] }): void;
   derive(d: { id: string; label: string; value: number; kind: Kind; refs: string[]; format?: FormatOptions; display?: string }): void;
   shortfall(s: { detail: string; percent: number; refs: string[] }): void;
+  hazard(h: { detail: string; refs: string[] }): void;
 };
 
 export type Rule = {
