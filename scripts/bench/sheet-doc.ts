@@ -7,6 +7,7 @@ import { exampleIntegratedAmplifierRequest } from "../../shared/bench/examples";
 import { CATEGORIES, CATEGORY_QUANTITIES, QUANTITIES, QUANTITY_INFO } from "../../shared/bench/quantities";
 import { RULES } from "../../shared/bench/rules";
 import { REQUIRED_READINGS } from "../../shared/bench/rules/required";
+import { crossChecksApiSection } from "./crosscheck-doc";
 
 const DOC = new URL("../../docs/api.md", import.meta.url);
 const HEADING = "## Check a bench sheet";
@@ -63,7 +64,9 @@ the browser while a seller types, and on the server as the authority when a list
 - \`400 {"error":"invalid_json","message"}\`: the body is not JSON.
 - \`400 {"error":"invalid_sheet","message","issues":[{"path","message"}]}\`: the JSON does not fit the
   schema; each issue names the path of the field, e.g. \`readings.0.value\`.
-- \`405 {"error":"method_not_allowed"}\` for anything but POST (with \`Allow: POST\`); \`413 {"error":"too_large"}\`.
+- \`405 {"error":"method_not_allowed","message"}\` for anything but POST (with \`Allow: POST\`);
+  \`413 {"error":"too_large","message":"A bench sheet may be at most 512 KB."}\`; \`415\` when the body is
+  not \`application/json\`; \`403 cross_origin\` from a page on another origin.
 
 > Safety: the figures on a bench sheet come from live, mains-powered units driving dummy loads. Mains
 > voltage and charged filter capacitors stay inside after unplugging, dummy loads and heatsinks get hot,
@@ -92,7 +95,7 @@ Each **reading**:
 | \`basis\` | \`"rated"\` (the maker's figure) or \`"measured"\` (this unit on the bench); the two are never mixed up |
 | \`origin\` | \`"typed"\` (default) or \`"capture"\`, with \`captureId\` (see *Analyse a capture*) |
 | \`channel\` | optional \`left · right · both · mono\` |
-| \`conditions\` | optional: \`loadOhm\`, \`frequencyHz\`, \`frequencyRange {lowHz, highHz}\`, \`powerW\` / \`voltageV\` (output level, or a loudspeaker's drive), \`atDistortion {ratio, measure: "thd" \\| "thd_n"}\`, \`bandwidth {lowHz, highHz}\`, \`weighting\` (\`A · CCIR-468 · unweighted · IEC-60386-peak · WRMS\`), \`channelsDriven\` (\`one · both · all\`), \`mainsV\`, \`warmUpS\`, \`testToneHz\`, \`distanceM\`, \`speedRpm\`, \`tapeSpeedCmS\`, \`supply\` (\`split · single\`) |
+| \`conditions\` | optional: \`loadOhm\`, \`frequencyHz\`, \`frequencyRange {lowHz, highHz}\`, \`powerW\` / \`voltageV\` (output level, or a loudspeaker's drive), \`atDistortion {ratio, measure: "thd" \\| "thd_n"}\`, \`bandwidth {lowHz, highHz}\`, \`weighting\` (\`A · CCIR-468 · unweighted · IEC-60386-peak · WRMS\`), \`channelsDriven\` (\`one · both · all\`), \`mainsV\`, \`warmUpS\`, \`testToneHz\`, \`distanceM\`, \`speedRpm\`, \`tapeSpeedCmS\`, \`supply\` (\`split · single\`), \`sourceOhm\` (the source a noise figure's input was terminated in), \`temperatureC\` |
 | \`text\`, \`note\`, \`id\` | optional: the value exactly as typed, a remark, a client key |
 
 Unknown fields are refused (so a misspelt \`load\` does not silently vanish). In TypeScript,
@@ -114,7 +117,8 @@ ${qRows}
 - \`counts\`, \`skipped[]\` (rules for the category that found nothing to check, with the reason),
   \`derived[]\` (values the bench worked out, e.g. the bandwidth a rise time implies),
   \`shortfalls[]\` (where the unit measures below its maker's rating: reported, never held against the
-  sheet), \`fromCaptures[]\` (figures that came from captures), \`rulesVersion\`.
+  sheet), \`fromCaptures[]\` (figures that came from captures), \`hazards[]\` (readings that make the unit
+  unsafe to connect; see *Cross-checks and safety*), \`rulesVersion\`.
 
 | rule | checks | rests on |
 |---|---|---|
@@ -160,7 +164,8 @@ A sheet that does not fit the schema (\`readings.0.value\` typed as text, an out
 HTTP/1.1 ${invRes.status}
 ${pretty(invRes.body)}
 \`\`\`
-`;
+
+${crossChecksApiSection(pretty)}`;
 }
 
 /** Replace the section in docs/api.md (or append it). */

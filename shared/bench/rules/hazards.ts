@@ -13,7 +13,7 @@ export const FAR_OFF_SPEED = 0.1;
 
 /** What every hazard's detail ends with: plain cautions, deferring to qualified hands and local rules. */
 export const HAZARD_CAUTION =
-  "Do not connect it to loudspeakers or other equipment until a qualified technician has looked at it; follow your local electrical-safety rules.";
+  "Do not connect it until a qualified technician has looked at it; follow your local electrical-safety rules.";
 
 export const dcOffsetSafe: Rule = {
   id: "dc-offset-safe",
