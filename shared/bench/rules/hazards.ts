@@ -12,8 +12,7 @@ export const DC_OFFSET_LIMIT_V = 0.05;
 export const FAR_OFF_SPEED = 0.1;
 
 /** What every hazard's detail ends with: plain cautions, deferring to qualified hands and local rules. */
-export const HAZARD_CAUTION =
-  "Do not connect it until a qualified technician has looked at it; follow your local electrical-safety rules.";
+export const HAZARD_CAUTION = "Do not connect it until a qualified technician has looked at it; follow your local electrical-safety rules.";
 
 export const dcOffsetSafe: Rule = {
   id: "dc-offset-safe",
