@@ -29,7 +29,8 @@ export const SEARCH_DEMO_UNITS: DemoUnit[] = [
     photos: 1,
     sheet: phonoSheet(who("Calvorne", "Tellis Phono IV MM", 1990, keswater, 8), {
       gainDb: 45,
-      snrDb: 84,
+      // 140 µV of output noise against 5 mV × 45 dB = 0.889 V out: 20·log10(0.889 / 140e-6) = 76 dB.
+      snrDb: 76,
       thdPct: 0.005,
       wobbleDb: 0.06,
       noiseUv: 140,
@@ -55,7 +56,8 @@ export const SEARCH_DEMO_UNITS: DemoUnit[] = [
     photos: 1,
     sheet: phonoSheet(who("Carrowain", "WQ 3ph", 1979, "Anneke Sollum", 10), {
       gainDb: 35,
-      snrDb: 70,
+      // 620 µV against 5 mV × 35 dB = 0.281 V out: 53 dB.
+      snrDb: 53,
       thdPct: 0.03,
       wobbleDb: 0.4,
       noiseUv: 620,
