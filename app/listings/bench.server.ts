@@ -2,7 +2,15 @@ import { Op, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 import { BenchSheet, Listing } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
-import { checkBenchSheet, lowerLabel, parseBenchSheet, type BenchSheet as Sheet, type Verdict } from "@shared/bench";
+import {
+  categoryNoun,
+  checkBenchSheet,
+  lowerLabel,
+  parseBenchSheet,
+  withArticle,
+  type BenchSheet as Sheet,
+  type Verdict,
+} from "@shared/bench";
 import { listingFacets } from "@shared/listing-facets";
 import { CATEGORY_QUANTITIES } from "@shared/bench/quantities";
 import type { Reading, Sweep } from "@shared/bench/schema";
@@ -127,7 +135,7 @@ export async function saveBenchSheet(
     assertEditable(listing);
     if (parsed.sheet.category !== listing.category)
       throw new ListingInputError([
-        { path: "category", message: `This listing is for a ${listing.category.replace(/_/g, " ")}; the sheet must be too.` },
+        { path: "category", message: `This listing is for ${withArticle(categoryNoun(listing.category))}; the sheet must be too.` },
       ]);
     const merged = await fromOwnCaptures(parsed.sheet, sellerId, transaction);
     const again = parseBenchSheet(merged);

@@ -21,10 +21,17 @@ export function categoryNoun(category: Category): string {
   return lowerLabel(CATEGORY_LABELS[category]);
 }
 
-/** "a" or "an" by the sound of the next word: vowels take "an"; so do abbreviations read letter by letter from a vowel sound (an RIAA, an SNR). */
+/** Numbers read aloud from a vowel: 8, 80–89, 800…, 11 and 18 (and their thousands: "eleven thousand"). */
+const VOWEL_NUMBER = /^(8|1[18](?![\d,])|1[18][\d,]{3}(?![\d]))/;
+
+/** "a" or "an" by the sound of the next word: vowels take "an"; so do abbreviations read letter by letter from a vowel sound (an RIAA, an SNR) and numbers said from one (an 8 Ω load). */
 export function withArticle(phrase: string): string {
   const first = phrase.trim().split(/\s+/)[0] ?? "";
   const spelled = /^[A-Z]{2,}/.test(first);
-  const an = spelled ? /^[AEFHILMNORSX]/.test(first) : /^[aeiou]/i.test(first) && !/^(one|uni|use|eu)/i.test(first);
+  const an = /^\d/.test(first)
+    ? VOWEL_NUMBER.test(first)
+    : spelled
+      ? /^[AEFHILMNORSX]/.test(first)
+      : /^[aeiou]/i.test(first) && !/^(one|uni|use|eu)/i.test(first);
   return `${an ? "an" : "a"} ${phrase}`;
 }

@@ -3,6 +3,7 @@
 import { AMPLIFIER_CATEGORIES, STEREO_ELECTRONICS } from "../quantities";
 import { formatReadingValue } from "../describe";
 import { formatValue } from "../format";
+import { withArticle } from "../words";
 import type { Outcome } from "./types";
 import { channelsCompatible, nameOf } from "./match";
 import { fig, type Item, type Rule, type SheetIndex } from "./types";
@@ -69,7 +70,7 @@ export const snrNoiseReference: Rule = {
       const diff = s.value - best;
       out.result({
         outcome: levelOutcome(diff),
-        detail: `${nameOf(n)} against a ${formatValue(viaInput ? refs[1] : vref, "voltage")} reference${viaInput ? ` (the ${formatValue(vref, "voltage")} input times the ${formatReadingValue(g)} gain)` : ""} gives ${db(best)}; the sheet says ${formatReadingValue(s)} (${db(Math.abs(diff))} apart).`,
+        detail: `${nameOf(n)} against ${withArticle(formatValue(viaInput ? refs[1] : vref, "voltage"))} reference${viaInput ? ` (the ${formatValue(vref, "voltage")} input times the ${formatReadingValue(g)} gain)` : ""} gives ${db(best)}; the sheet says ${formatReadingValue(s)} (${db(Math.abs(diff))} apart).`,
         refs: [s.ref, n.ref, ...(viaInput ? [g.ref] : [])],
         compared: [
           fig("SNR on the sheet", s.value, "decibel"),

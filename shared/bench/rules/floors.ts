@@ -2,6 +2,7 @@
 // nothing faster than the instrument's bandwidth; and the slew rate a measured edge implies.
 import { formatReadingValue } from "../describe";
 import { formatValue } from "../format";
+import { withArticle } from "../words";
 import { channelsCompatible, nameOf, near } from "./match";
 import { RISE_BW_PRODUCT } from "./response";
 import { fig, type Outcome, type Rule } from "./types";
@@ -118,7 +119,7 @@ export const instrumentBandwidth: Rule = {
       const outcome = floorOutcome(t.value / fastest, 0.9);
       out.result({
         outcome,
-        detail: `${nameOf(t)} against ${formatValue(fastest, "time")}, the rise time of a ${formatValue(bw, "frequency")} instrument${outcome === "consistent" ? "." : ": it cannot show a faster edge."}`,
+        detail: `${nameOf(t)} against ${formatValue(fastest, "time")}, the rise time of ${withArticle(formatValue(bw, "frequency"))} instrument${outcome === "consistent" ? "." : ": it cannot show a faster edge."}`,
         refs: [t.ref],
         compared: [
           fig("rise time", t.value, "time"),

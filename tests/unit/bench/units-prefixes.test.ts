@@ -90,6 +90,14 @@ describe("words in sentences", () => {
     expect(withArticle(categoryNoun("phono_stage"))).toBe("a phono stage");
     expect(withArticle(categoryNoun("loudspeaker"))).toBe("a loudspeaker");
     expect(withArticle("RIAA sweep")).toBe("an RIAA sweep");
+    expect(withArticle("8 Ω load")).toBe("an 8 Ω load");
+    expect(withArticle("80 kHz instrument")).toBe("an 80 kHz instrument");
+    expect(withArticle("18 V reference")).toBe("an 18 V reference");
+    expect(withArticle("11.5 V reference")).toBe("an 11.5 V reference");
+    expect(withArticle("1.8 V reference")).toBe("a 1.8 V reference");
+    expect(withArticle("110 V reference")).toBe("a 110 V reference");
+    expect(withArticle("500 kHz instrument")).toBe("a 500 kHz instrument");
+    expect(withArticle("unit")).toBe("a unit");
   });
   it("lower-cases labels but keeps the trade's abbreviations", () => {
     expect(lowerLabel("THD or THD+N")).toBe("THD or THD+N");
