@@ -21,8 +21,10 @@ import {
   type SquareAnalysis,
   type SweepAnalysis,
   type SweepCaptureConditions,
+  type ImpedanceAnalysis,
 } from "@shared/bench/analysis";
 import type { Reading, Sweep } from "@shared/bench/schema";
+import { analyseImpedanceCsv } from "./impedance.server";
 import { sniff } from "./sniff.server";
 import { decodeWavData, readWavFormat, type DecodedWav, type WavFormat } from "./wav.server";
 
@@ -36,6 +38,7 @@ export type CaptureFormat = ({ file: "wav" } & WavFormat) | { file: "csv"; rows:
 
 export type CaptureAnalysis =
   | { kind: "sine"; analysis: SineAnalysis; readings: Reading[]; format: CaptureFormat }
+  | { kind: "impedance"; analysis: ImpedanceAnalysis; readings: Reading[]; format: CaptureFormat }
   | { kind: "square"; analysis: SquareAnalysis; readings: Reading[]; format: CaptureFormat }
   | { kind: "sweep"; analysis: SweepAnalysis; readings: Reading[]; sweep: Sweep; format: CaptureFormat };
 
@@ -72,15 +75,17 @@ export function inferKind(bytes: Uint8Array, file: CaptureFileKind): CaptureKind
   const head = new TextDecoder().decode(bytes.subarray(0, 2048)).toLowerCase();
   const firstLine = head.split(/\r?\n/).find((l) => l.trim() !== "" && !l.trim().startsWith("#")) ?? "";
   if (/\btime\b|^\s*t\s*[,;\t]/.test(firstLine)) return "square";
+  if (/freq|hz/.test(firstLine) && /ohm|impedance|\u03a9|\u2126|\|z\|/.test(firstLine)) return "impedance";
   if (/freq|hz/.test(firstLine)) return "sweep";
   return null;
 }
 
-const FILE_FOR_KIND: Record<CaptureKind, CaptureFileKind> = { sine: "wav", square: "csv", sweep: "csv" };
+const FILE_FOR_KIND: Record<CaptureKind, CaptureFileKind> = { sine: "wav", square: "csv", sweep: "csv", impedance: "csv" };
 const KIND_WORDS: Record<CaptureKind, string> = {
   sine: "a sine capture (WAV)",
   square: "a square-wave response (CSV time,volts)",
   sweep: "a frequency sweep (CSV frequency,level)",
+  impedance: "an impedance sweep (CSV frequency,ohms[,phase])",
 };
 
 function checkKind(kind: CaptureKind, file: CaptureFileKind) {
@@ -199,6 +204,7 @@ export function analyseCapture(bytes: Uint8Array, filename: string, conditions: 
     const { samples: _omit, positiveFullScale: _pfs, ...format } = d;
     return { kind: "sine", analysis, readings: sineToReadings(analysis, conditions, captureId), format: { file: "wav", ...format } };
   }
+  if (conditions.kind === "impedance") return analyseImpedanceCsv(bytes, conditions, captureId);
   const cols = readCsv(bytes, conditions.kind);
   const format: CaptureFormat = { file: "csv", rows: cols.x.length, header: cols.header };
   if (conditions.kind === "square") {

@@ -70,6 +70,7 @@ export const CONDITION_FIELDS: Record<Quantity, ConditionField[]> = {
   wow_flutter: ["weighting", "tone", "speed"],
   rumble: ["weighting", "speed"],
   oscillation: ["load"],
+  resonance_frequency: [],
 };
 
 export const FIELD_LABELS: Record<ConditionField, { label: string; placeholder: string }> = {

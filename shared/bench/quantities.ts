@@ -57,6 +57,7 @@ export const QUANTITIES = [
   "wow_flutter",
   "rumble",
   "oscillation",
+  "resonance_frequency",
 ] as const;
 export type Quantity = (typeof QUANTITIES)[number];
 
@@ -105,6 +106,7 @@ export const QUANTITY_INFO: Record<Quantity, QuantityInfo> = {
   rumble: { label: "Rumble", kind: "decibel", baseUnit: "dB" },
   /** An output seen oscillating on the bench (scope or analyser), at this frequency: a fault, never a rating. */
   oscillation: { label: "Oscillation at the output", kind: "frequency", baseUnit: "Hz" },
+  resonance_frequency: { label: "Resonance frequency (impedance peak)", kind: "frequency", baseUnit: "Hz" },
 };
 
 /** Never empty: a category's readings form a zod enum. */
@@ -175,6 +177,7 @@ export const CATEGORY_QUANTITIES: Record<Category, QuantityList> = {
     "thd",
     "power_handling",
     "channel_balance",
+    "resonance_frequency",
   ],
   turntable: ["speed_error", "wow_flutter", "rumble", "channel_balance", "crosstalk"],
   tape_deck: [

@@ -280,4 +280,11 @@ export const REMEASURE_RULES: Record<Quantity, RemeasureRule> = {
     conditions: ["weighting", "speedRpm"],
     better: "higher",
   },
+  resonance_frequency: {
+    tolerance: { kind: "relative", fraction: 0.15 },
+    toleranceText: "±15 %",
+    source: "Common practice: a driver's resonance moves with its suspension's temperature and recent exercise by up to a tenth or more",
+    conditions: [],
+    better: null,
+  },
 };

@@ -64,10 +64,23 @@ export const sweepCaptureConditionsSchema = z.strictObject({
   loadOhm: z.number().positive().max(1_000_000).optional(),
 });
 
+/** A loudspeaker's impedance sweep: frequency, ohms and optionally phase (CSV). */
+export const impedanceCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("impedance"),
+  /** The rated (nominal) impedance, for the 80 % check (IEC 60268-5 §16.1). */
+  ratedOhm: z.number().positive().max(1_000).optional(),
+  /** The rated frequency range: the minimum is sought within it. */
+  band: band.optional(),
+  channel: channel.optional(),
+  /** Drive level of the sweep, volts rms, for the record. */
+  driveV: z.number().positive().max(100).optional(),
+});
+
 export const captureConditionsSchema = z.discriminatedUnion("kind", [
   sineCaptureConditionsSchema,
   squareCaptureConditionsSchema,
   sweepCaptureConditionsSchema,
+  impedanceCaptureConditionsSchema,
 ]);
 
 export type CaptureConditions = z.infer<typeof captureConditionsSchema>;
@@ -75,4 +88,5 @@ export type CaptureConditionsInput = z.input<typeof captureConditionsSchema>;
 export type SineCaptureConditions = z.infer<typeof sineCaptureConditionsSchema>;
 export type SquareCaptureConditions = z.infer<typeof squareCaptureConditionsSchema>;
 export type SweepCaptureConditions = z.infer<typeof sweepCaptureConditionsSchema>;
+export type ImpedanceCaptureConditions = z.infer<typeof impedanceCaptureConditionsSchema>;
 export type CaptureKind = CaptureConditions["kind"];

@@ -1,4 +1,8 @@
-// Two-column CSV as oscilloscopes and analysers export it: an optional header row, comma, semicolon or tab.
+// Column CSV as oscilloscopes, analysers and impedance bridges export it: an optional header row, comma,
+// semicolon or tab between fields, quoted fields, a byte-order mark, "#" comment lines. The splitting
+// is papaparse's (quotes and embedded delimiters are its job); which column is which, and the messages
+// naming the line and column that cannot be read, are ours.
+import Papa from "papaparse";
 import { CaptureError } from "./errors";
 
 export interface ColumnSpec {
@@ -14,6 +18,19 @@ export interface TwoColumns {
   y: Float64Array;
   /** The header as written, when the file had one. */
   header: [string, string] | null;
+}
+
+/** Two required columns and optional ones after them (e.g. an impedance sweep's phase). */
+export interface ColumnsSpec {
+  columns: { name: string; aliases: readonly string[]; optional?: boolean }[];
+  minRows: number;
+}
+
+export interface Columns {
+  /** One array per column of the spec; null for an optional column the file does not have. */
+  values: (Float64Array | null)[];
+  /** The header cells of the columns found, as written, when the file had a header. */
+  header: (string | null)[] | null;
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
@@ -33,72 +50,90 @@ export function headerUnit(s: string): string | null {
   return m ? m[1].toLowerCase() : null;
 }
 
-function detectDelimiter(line: string): string {
-  if (line.includes("\t")) return "\t";
-  if (line.includes(";")) return ";";
+/** The delimiter of the first non-comment line, counted outside quotes: tab, then semicolon, then comma. */
+function detectDelimiter(text: string): string {
+  const line = text.split(/\r\n|\n|\r/).find((l) => l.trim() !== "" && !l.trim().startsWith("#")) ?? "";
+  const bare = line.replace(/"[^"]*"/g, "");
+  if (bare.includes("\t")) return "\t";
+  if (bare.includes(";")) return ";";
   return ",";
 }
 
-export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
-  const lines = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
+const quoteList = (names: string[]) => names.map((n) => `'${n}'`).join(" and ");
+
+function expectedText(spec: ColumnsSpec): string {
+  const required = spec.columns.filter((c) => !c.optional).map((c) => c.name);
+  const optional = spec.columns.filter((c) => c.optional).map((c) => c.name);
+  return quoteList(required) + (optional.length ? ` (and optionally ${quoteList(optional)})` : "");
+}
+
+/** Read the columns a spec names, by header words when the first row is a header, else by position. */
+export function parseColumnsCsv(text: string, spec: ColumnsSpec): Columns {
+  const body = text.replace(/^\uFEFF/, "");
+  const delimiter = detectDelimiter(body);
+  const parsed = Papa.parse<string[]>(body, { delimiter, skipEmptyLines: false });
+  // Line numbers as the seller's editor shows them: a quoted field may itself hold line breaks.
   const rows: { line: number; cells: string[] }[] = [];
-  let delim: string | null = null;
-  for (let i = 0; i < lines.length; i++) {
-    const raw = lines[i].trim();
-    if (raw === "" || raw.startsWith("#")) continue;
-    delim ??= detectDelimiter(raw);
-    rows.push({ line: i + 1, cells: raw.split(delim).map((c) => c.trim().replace(/^"(.*)"$/, "$1")) });
+  let line = 1;
+  for (const raw of parsed.data) {
+    const cells = raw.map((c) => c.trim());
+    const breaks = raw.reduce((n, c) => n + (c.match(/\r\n|\n|\r/g)?.length ?? 0), 0);
+    if (!(cells.length === 1 && cells[0] === "") && !cells[0].startsWith("#")) rows.push({ line, cells });
+    line += 1 + breaks;
   }
-  const [nx, ny] = spec.names;
-  const expected = `'${nx}' and '${ny}'`;
+  const expected = expectedText(spec);
   if (rows.length === 0) throw new CaptureError("csv_columns_missing", `The CSV file is empty; expected columns ${expected}.`);
 
   // Semicolon files often use the decimal comma.
   const toNumber = (cell: string): number | null => {
-    const c = delim === ";" ? cell.replace(",", ".") : cell;
+    const c = delimiter === ";" ? cell.replace(",", ".") : cell;
     return NUMBER.test(c) ? Number(c) : null;
   };
 
-  let colX = 0;
-  let colY = 1;
-  let header: [string, string] | null = null;
+  let cols: number[] = spec.columns.map((_, i) => i);
+  let header: (string | null)[] | null = null;
   const first = rows[0];
   if (first.cells.some((c) => toNumber(c) === null)) {
     const words = first.cells.map(headerWord);
-    colX = words.findIndex((w) => spec.aliases[0].includes(w));
-    colY = words.findIndex((w, i) => i !== colX && spec.aliases[1].includes(w));
-    if (colX < 0 || colY < 0) {
-      const missing = [colX < 0 ? nx : null, colY < 0 ? ny : null].filter(Boolean).join("' and '");
+    cols = [];
+    for (const c of spec.columns) cols.push(words.findIndex((w, i) => !cols.includes(i) && c.aliases.includes(w)));
+    const missing = spec.columns.filter((c, i) => !c.optional && cols[i] < 0).map((c) => c.name);
+    if (missing.length) {
       throw new CaptureError(
         "csv_columns_missing",
-        `The CSV header (line ${first.line}: ${first.cells.join(", ")}) has no '${missing}' column; expected columns ${expected}.`,
+        `The CSV header (line ${first.line}: ${first.cells.join(", ")}) has no '${missing.join("' and '")}' column; expected columns ${expected}.`,
         { line: first.line, header: first.cells },
       );
     }
-    header = [first.cells[colX], first.cells[colY]];
+    header = cols.map((k) => (k < 0 ? null : first.cells[k]));
     rows.shift();
+  } else {
+    // No header: an optional column is there when the first row has a cell for it.
+    cols = cols.map((k, i) => (spec.columns[i].optional && k >= first.cells.length ? -1 : k));
   }
 
-  const need = Math.max(colX, colY) + 1;
-  const x = new Float64Array(rows.length);
-  const y = new Float64Array(rows.length);
+  const need = Math.max(...spec.columns.map((c, i) => (c.optional ? -1 : cols[i]))) + 1;
+  const values = spec.columns.map((_, i) => (cols[i] < 0 ? null : new Float64Array(rows.length)));
   for (let r = 0; r < rows.length; r++) {
-    const { line, cells } = rows[r];
+    const { line: at, cells } = rows[r];
     if (cells.length < need) {
       throw new CaptureError(
         "csv_columns_missing",
-        `Line ${line} has ${cells.length} column${cells.length === 1 ? "" : "s"}; expected columns ${expected}.`,
-        { line },
+        `Line ${at} has ${cells.length} column${cells.length === 1 ? "" : "s"}; expected columns ${expected}.`,
+        { line: at },
       );
     }
-    const vx = toNumber(cells[colX]);
-    const vy = toNumber(cells[colY]);
-    if (vx === null || vy === null) {
-      const [name, cell] = vx === null ? [nx, cells[colX]] : [ny, cells[colY]];
-      throw new CaptureError("csv_not_number", `Line ${line}, column '${name}': '${cell}' is not a number.`, { line, column: name });
+    for (let i = 0; i < spec.columns.length; i++) {
+      const out = values[i];
+      if (!out) continue;
+      const cell = cells[cols[i]] ?? "";
+      const v = toNumber(cell);
+      if (v === null) {
+        const name = spec.columns[i].name;
+        throw new CaptureError("csv_not_number", `Line ${at}, column '${name}': '${cell}' is not a number.`, { line: at, column: name });
+      }
+      out[r] = v;
     }
-    x[r] = vx;
-    y[r] = vy;
   }
   if (rows.length < spec.minRows) {
     throw new CaptureError(
@@ -107,7 +142,18 @@ export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
       { rows: rows.length, minRows: spec.minRows },
     );
   }
-  return { x, y, header };
+  return { values, header };
+}
+
+export function parseTwoColumnCsv(text: string, spec: ColumnSpec): TwoColumns {
+  const { values, header } = parseColumnsCsv(text, {
+    columns: [
+      { name: spec.names[0], aliases: spec.aliases[0] },
+      { name: spec.names[1], aliases: spec.aliases[1] },
+    ],
+    minRows: spec.minRows,
+  });
+  return { x: values[0]!, y: values[1]!, header: header ? [header[0] ?? "", header[1] ?? ""] : null };
 }
 
 export const SQUARE_COLUMNS: ColumnSpec = {
@@ -124,6 +170,16 @@ export const SWEEP_COLUMNS: ColumnSpec = {
   aliases: [
     ["frequency", "freq", "f", "hz"],
     ["level", "db", "dbv", "dbu", "dbr", "gain", "magnitude", "volts", "voltage", "v", "response"],
+  ],
+  minRows: 3,
+};
+
+/** A loudspeaker's impedance sweep: frequency, impedance modulus in ohms, and optionally phase in degrees. */
+export const IMPEDANCE_COLUMNS: ColumnsSpec = {
+  columns: [
+    { name: "frequency", aliases: ["frequency", "freq", "f", "hz"] },
+    { name: "ohms", aliases: ["ohms", "ohm", "impedance", "z", "magnitude", "mag", "modulus", "zohm", "zohms", "r"] },
+    { name: "phase", aliases: ["phase", "deg", "degrees", "angle", "phi", "zphase"], optional: true },
   ],
   minRows: 3,
 };

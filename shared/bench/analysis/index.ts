@@ -12,3 +12,5 @@ export { aWeightingPowerTable } from "./weighting";
 export * from "./conditions";
 export * from "./to-readings";
 export * from "./stored";
+export * from "./impedance";
+export * from "./impedance-readings";

@@ -5,8 +5,9 @@ import { z } from "zod";
 import type { SineAnalysis } from "./sine";
 import type { SquareAnalysis } from "./square";
 import type { SweepAnalysis } from "./sweep";
+import type { ImpedanceAnalysis } from "./impedance";
 
-export type AnyAnalysis = SineAnalysis | SquareAnalysis | SweepAnalysis;
+export type AnyAnalysis = SineAnalysis | SquareAnalysis | SweepAnalysis | ImpedanceAnalysis;
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);
 const isFigure = (x: unknown) => isRecord(x) && typeof x.value === "number";
@@ -31,6 +32,8 @@ function fits(x: unknown): x is AnyAnalysis {
       return [x.riseTime, x.overshoot, x.impliedBandwidth, x.amplitude].every(isFigure);
     case "sweep":
       return Array.isArray(x.points) && isRecord(x.worstDeviation) && isFigure(x.levelAt1kHz);
+    case "impedance":
+      return Array.isArray(x.points) && isRecord(x.minimum) && isFigure(x.minimum.ohms) && isFigure(x.minimum.frequency);
     default:
       return false;
   }
