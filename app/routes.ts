@@ -46,6 +46,7 @@ export default [
   // Capture analysis (the bench)
   route("api/v1/captures/analyze", "routes/api.v1.captures.analyze.ts"),
   route("api/v1/captures/:id", "routes/api.v1.captures.$id.ts"),
+  route("api/v1/captures/:id/retry", "routes/api.v1.captures.$id.retry.ts"),
   // Bench-sheet check (open to anyone)
   route("api/v1/bench-sheets/check", "routes/api.v1.bench-sheets.check.ts"),
   // The seller's path: your listings, a new draft, the editor's steps

@@ -19,6 +19,7 @@ import {
   type CaptureFileKind,
 } from "./captures.server";
 import { readConditions } from "./capture-form.server";
+import { RETRYABLE_FAILURE } from "./capture-job.server";
 
 // Multipart framing and the condition fields around the file.
 const FORM_OVERHEAD = 64 * 1024;
@@ -142,5 +143,37 @@ export function presentCapture(c: Capture) {
       ? { analysis: rounded(c.analysis), readings: rounded(c.readings), ...(c.sweep ? { sweep: rounded(c.sweep) } : {}) }
       : {}),
     ...(c.status === "failed" ? { error: { error: c.errorCode, message: c.errorMessage } } : {}),
+    ...(isRetryable(c) ? { retry: `${capturePath(c.id)}/retry` } : {}),
   };
+}
+
+/** Failed on our side (storage, database) with its file still stored: it may be analysed again. */
+export function isRetryable(c: Capture): boolean {
+  return c.status === "failed" && c.errorCode === RETRYABLE_FAILURE && !!c.storageKey;
+}
+
+/**
+ * Queue the owner's failed capture again, its attempts counted afresh; row and job in one transaction.
+ * Null when the capture is not the owner's; throws a 409 refusal when it is not retryable.
+ */
+export async function retryCapture(id: unknown, ownerId: string): Promise<Capture | null> {
+  const own = await findOwnCapture(id, ownerId);
+  if (!own) return null;
+  return sequelize.transaction(async (transaction) => {
+    const c = await Capture.findByPk(own.id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!c || !isRetryable(c)) {
+      throw refusal(
+        "conflict",
+        c?.status === "failed"
+          ? "This capture was refused for what its file holds; upload a corrected file instead."
+          : "Only a capture whose analysis failed on our side can be tried again.",
+      );
+    }
+    await c.update(
+      { status: "queued", attempts: 0, errorCode: null, errorMessage: null, startedAt: null, finishedAt: null },
+      { transaction },
+    );
+    await enqueue(QUEUES.captureAnalyze, { captureId: c.id }, { transaction });
+    return c;
+  });
 }

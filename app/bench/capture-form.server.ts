@@ -20,6 +20,8 @@ const NUMBER_FIELDS = [
   "bandwidthHighHz",
   "bandLowHz",
   "bandHighHz",
+  "ratedOhm",
+  "driveV",
 ];
 
 /** A form value as the schema wants it: numbers as numbers, "true"/"false" as booleans; blanks dropped. */
@@ -63,6 +65,8 @@ function flatConditions(form: FormData): Record<string, unknown> {
     reference: f("reference"),
     iecPole: f("iecPole"),
     band: band("bandLowHz", "bandHighHz"),
+    ratedOhm: f("ratedOhm"),
+    driveV: f("driveV"),
   };
   return Object.fromEntries(Object.entries(raw).filter(([, v]) => v !== undefined));
 }
@@ -115,6 +119,8 @@ const CONDITION_LABELS: Record<string, string> = {
   fundamentalHz: "Test frequency",
   mainsV: "Mains voltage",
   warmUpS: "Warm-up",
+  ratedOhm: "Rated impedance",
+  driveV: "Drive level",
 };
 
 const KIND_FIELDS: Record<string, string[]> = {
@@ -134,6 +140,7 @@ const KIND_FIELDS: Record<string, string[]> = {
   ],
   square: ["kind", "channel", "loadOhm", "frequencyHz"],
   sweep: ["kind", "levelUnit", "reference", "iecPole", "band", "channel", "loadOhm"],
+  impedance: ["kind", "ratedOhm", "band", "channel", "driveV"],
 };
 
 function onlyFieldsOfKind(raw: Record<string, unknown>): Record<string, unknown> {

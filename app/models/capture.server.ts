@@ -37,6 +37,8 @@ export class Capture extends Model<InferAttributes<Capture>, InferCreationAttrib
   declare sweep: CreationOptional<Sweep | null>;
   declare errorCode: CreationOptional<string | null>;
   declare errorMessage: CreationOptional<string | null>;
+  /** Times the analysis job has started on it since it was (re)queued. */
+  declare attempts: CreationOptional<number>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -115,6 +117,7 @@ Capture.init(
     },
     errorCode: { type: DataTypes.TEXT, allowNull: true },
     errorMessage: { type: DataTypes.TEXT, allowNull: true },
+    attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     startedAt: { type: DataTypes.DATE, allowNull: true },
     finishedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,

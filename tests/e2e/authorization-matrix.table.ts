@@ -557,6 +557,16 @@ export const MATRIX: Record<string, Entry> = {
       },
     ],
   },
+  // The owner may queue again a capture that failed on our side; the fixture's capture did not (409).
+  "/api/v1/captures/:id/retry": {
+    cases: [
+      {
+        params: (f) => ({ id: f.capture.id }),
+        get: everyone(405),
+        writes: { POST: { body: () => ({ json: {} }), expect: apiOwnerOnly(409) } },
+      },
+    ],
+  },
   // Any account may have a capture analysed; a form without a file is refused after the door.
   "/api/v1/captures/analyze": {
     cases: [{ get: everyone(405), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiSignedIn(400) } } }],
