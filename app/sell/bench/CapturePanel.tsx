@@ -7,7 +7,7 @@ import { z } from "zod";
 import { describeReading, readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench";
 import { isOneOf } from "@shared/one-of";
 
-const CAPTURE_KINDS = ["sine", "square", "sweep"] as const;
+const CAPTURE_KINDS = ["sine", "square", "sweep", "impedance"] as const;
 type CaptureKind = (typeof CAPTURE_KINDS)[number];
 
 // Raw measurement files (WAV, CSV) sent to the capture API with the conditions they were taken in; the
@@ -21,6 +21,8 @@ type Item = {
   progress: number;
   message?: string;
   result?: CaptureResult;
+  /** Where to queue it again, when it failed on our side rather than for what the file holds. */
+  retry?: string;
 };
 
 const selectClass = cx(controlClass, "h-9 py-1 text-sm appearance-auto");
@@ -36,6 +38,7 @@ const AnswerSchema = z
     readings: z.array(readingSchema),
     sweep: sweepSchema,
     message: z.string(),
+    retry: z.string(),
     error: z.union([z.string(), z.object({ message: z.string().nullable() })]),
   })
   .partial();
@@ -104,22 +107,39 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
       update(key, { state: "analysing", progress: 1 });
       answer = await poll(answer.body.poll);
     }
+    if (finish(key, file.name, answer)) {
+      form.reset();
+      setKind("sine");
+    }
+  }
+
+  /** Show the answer on the item; true when the capture's readings went to the sheet. */
+  function finish(key: number, fileName: string, answer: Answer): boolean {
     const b = answer.body;
     if (answer.status === 200 && b.status === "done" && b.id) {
       const result: CaptureResult = {
         id: b.id,
-        fileName: b.fileName ?? file.name,
+        fileName: b.fileName ?? fileName,
         readings: b.readings ?? [],
         ...(b.sweep ? { sweep: b.sweep } : {}),
       };
-      update(key, { state: "done", progress: 1, result });
+      update(key, { state: "done", progress: 1, result, message: undefined, retry: undefined });
       onCapture(result);
-      form.reset();
-      setKind("sine");
-    } else {
-      const message = (typeof b.error === "object" ? b.error.message : null) ?? b.message ?? `The server answered ${answer.status}.`;
-      update(key, { state: "failed", message });
+      return true;
     }
+    const message = (typeof b.error === "object" ? b.error.message : null) ?? b.message ?? `The server answered ${answer.status}.`;
+    update(key, { state: "failed", message, retry: b.retry });
+    return false;
+  }
+
+  /** Queue a capture that failed on our side again, then wait for it as for an upload. */
+  async function tryAgain(item: Item) {
+    if (!item.retry) return;
+    update(item.key, { state: "analysing", message: undefined, retry: undefined });
+    const res = await fetch(item.retry, { method: "POST", headers: { Accept: "application/json" } });
+    let answer = readAnswer(res.status, await res.json().catch(() => null));
+    if (answer.status === 202 && answer.body.poll) answer = await poll(answer.body.poll);
+    finish(item.key, item.fileName, answer);
   }
 
   return (
@@ -148,6 +168,7 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               <option value="sine">Sine at the output (distortion, level, noise)</option>
               <option value="square">Square wave (rise time)</option>
               <option value="sweep">Frequency sweep (response)</option>
+              <option value="impedance">Impedance sweep (loudspeaker)</option>
             </select>
           </Field>
           <Field label="Load">
@@ -248,6 +269,34 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               </Field>
             </>
           ) : null}
+          {kind === "impedance" ? (
+            <>
+              <Field label="Rated impedance (Ω)">
+                <input form={CAPTURE_FORM_ID} name="ratedOhm" inputMode="decimal" placeholder="8" className={inputClass} />
+              </Field>
+              <Field label="Rated frequency range (Hz)">
+                <div className="flex items-center gap-2">
+                  <input
+                    form={CAPTURE_FORM_ID}
+                    name="bandLowHz"
+                    inputMode="decimal"
+                    placeholder="20"
+                    className={inputClass}
+                    aria-label="Low end, Hz"
+                  />
+                  <span aria-hidden="true">–</span>
+                  <input
+                    form={CAPTURE_FORM_ID}
+                    name="bandHighHz"
+                    inputMode="decimal"
+                    placeholder="20000"
+                    className={inputClass}
+                    aria-label="High end, Hz"
+                  />
+                </div>
+              </Field>
+            </>
+          ) : null}
         </div>
         {problem ? (
           <p role="alert" className="text-sm font-medium text-fault">
@@ -277,7 +326,9 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
                       ? "Analysing"
                       : i.state === "done"
                         ? "Analysed"
-                        : "Refused"}
+                        : i.retry
+                          ? "Failed"
+                          : "Refused"}
                 </Badge>
               </div>
               {i.state === "uploading" || i.state === "analysing" ? (
@@ -292,6 +343,11 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
                 <p role="alert" className="text-fault">
                   {i.message}
                 </p>
+              ) : null}
+              {i.retry ? (
+                <Button variant="secondary" onClick={() => void tryAgain(i)}>
+                  Try the analysis again
+                </Button>
               ) : null}
               {i.result ? (
                 <ul className="text-xs text-ink-soft">
