@@ -14,7 +14,7 @@ import {
   CaptureError,
   HEADER_BYTES,
   checkHeader,
-  identifyCapture,
+  identifyCaptureFile,
   inferKind,
   type CaptureFileKind,
 } from "./captures.server";
@@ -89,7 +89,7 @@ async function receive(part: FilePart, written: string[]): Promise<Received> {
       part.stream.resume();
       return { key: "", fileName, file: "csv", head, bytes: 0 };
     }
-    const file = identifyCapture(head, fileName);
+    const file = await identifyCaptureFile(head, fileName);
     const key = randomKey("captures", file);
     written.push(key);
     const { bytes } = await putObjectStream(key, all, { contentType: file === "wav" ? "audio/wav" : "text/csv" });

@@ -25,7 +25,7 @@ import {
 } from "@shared/bench/analysis";
 import type { Reading, Sweep } from "@shared/bench/schema";
 import { analyseImpedanceCsv } from "./impedance.server";
-import { sniff } from "./sniff.server";
+import { describeBinary, sniff } from "./sniff.server";
 import { decodeWavData, readWavFormat, type DecodedWav, type WavFormat } from "./wav.server";
 
 export { CaptureError, isCaptureError } from "@shared/bench/analysis";
@@ -55,10 +55,13 @@ export function checkSize(byteLength: number): void {
   }
 }
 
-/** WAV or CSV, judged by content; the name only sharpens the message. */
-export function identifyCapture(bytes: Uint8Array, filename: string): CaptureFileKind {
+/**
+ * WAV or CSV, judged by content; the name only sharpens the message. `description` names a binary file
+ * (from `describeBinary`); `identifyCaptureFile` asks for it.
+ */
+export function identifyCapture(bytes: Uint8Array, filename: string, description?: string): CaptureFileKind {
   checkSize(bytes.length);
-  const s = sniff(bytes);
+  const s = sniff(bytes, description);
   const namedWav = /\.wave?$/i.test(filename);
   if (s.kind === "wav") return "wav";
   if (s.kind === "text") {
@@ -67,6 +70,13 @@ export function identifyCapture(bytes: Uint8Array, filename: string): CaptureFil
   }
   if (namedWav) throw new CaptureError("not_wav", `"${filename}" is named as a WAV but is ${s.description}.`);
   throw new CaptureError("unsupported_format", `The file is ${s.description}; upload a WAV (PCM or float) or a CSV.`);
+}
+
+/** `identifyCapture`, with a binary file named by its signature (file-type), as the upload checks it. */
+export async function identifyCaptureFile(bytes: Uint8Array, filename: string): Promise<CaptureFileKind> {
+  checkSize(bytes.length);
+  const other = sniff(bytes).kind === "other";
+  return identifyCapture(bytes, filename, other ? await describeBinary(bytes) : undefined);
 }
 
 /** The kind the file implies when the uploader did not say: WAV → sine; CSV by its header. */

@@ -1,4 +1,4 @@
-import { CaptureError, checkHeader, HEADER_BYTES as CAPTURE_HEADER_BYTES, identifyCapture } from "~/bench/captures.server";
+import { CaptureError, checkHeader, HEADER_BYTES as CAPTURE_HEADER_BYTES, identifyCaptureFile } from "~/bench/captures.server";
 import { readConditions } from "~/bench/capture-form.server";
 import { splitHead, type FilePart } from "~/http/multipart.server";
 import { putObjectStream, randomKey } from "~/services/storage.server";
@@ -24,7 +24,7 @@ export async function receiveCapture(part: FilePart, written: string[]): Promise
   const fileName = part.filename.slice(0, 255);
   const { head, all } = await splitHead(part.stream, CAPTURE_HEADER_BYTES);
   try {
-    if (identifyCapture(head, fileName) !== "wav")
+    if ((await identifyCaptureFile(head, fileName)) !== "wav")
       throw new CaptureError("unsupported_format", "A capture sent with a contest is a WAV file.");
   } catch (e) {
     part.stream.resume();

@@ -6,6 +6,7 @@ import {
   checkHeader,
   HEADER_BYTES,
   identifyCapture,
+  identifyCaptureFile,
   inferKind,
 } from "~/bench/captures.server";
 import type { CaptureConditions, SineCaptureConditions } from "@shared/bench/analysis";
@@ -34,6 +35,16 @@ const enc = (s: string) => new TextEncoder().encode(s);
 function refusal(run: () => unknown): CaptureError {
   try {
     run();
+  } catch (e) {
+    if (e instanceof CaptureError) return e;
+    throw e;
+  }
+  throw new Error("expected the file to be refused");
+}
+
+async function refusalOf(run: Promise<unknown>): Promise<CaptureError> {
+  try {
+    await run;
   } catch (e) {
     if (e instanceof CaptureError) return e;
     throw e;
@@ -86,11 +97,14 @@ describe("WAV files that cannot be measured", () => {
     expect(e.message).toBe('"capture.wav" is named as a WAV but holds text, not audio.');
   });
 
-  it("an MP3 file named .wav (ID3 tag), and a bare MPEG stream", () => {
-    const e = refused(mp3Bytes(), "take1.wav");
+  it("an MP3 file named .wav (ID3 tag), and a bare MPEG stream, named by file-type's signatures as the upload arrives", async () => {
+    expect(refused(mp3Bytes(), "take1.wav").code).toBe("not_wav");
+    const e = await refusalOf(identifyCaptureFile(mp3Bytes(), "take1.wav"));
     expect(e.code).toBe("not_wav");
-    expect(e.message).toContain("is an MP3 audio file");
-    expect(refused(mp3FrameOnly(), "take2.wav").message).toContain("MP3/MPEG audio stream");
+    expect(e.message).toBe('"take1.wav" is named as a WAV but is an MP3 audio file.');
+    expect((await refusalOf(identifyCaptureFile(mp3FrameOnly(), "take2.wav"))).message).toMatch(
+      /is an (MP3 audio file|MPEG audio stream)\.$/,
+    );
   });
 
   it("an MP3 stream inside a WAV container (format code 0x55)", () => {
@@ -212,11 +226,11 @@ describe("WAV files that cannot be measured", () => {
     expect(e.message).toBe("The file is 50.0 MB; captures are limited to 50.0 MB.");
   });
 
-  it("an empty file, and a file that is neither WAV nor CSV", () => {
+  it("an empty file, and a file that is neither WAV nor CSV", async () => {
     expect(refusal(() => identifyCapture(new Uint8Array(0), "x.wav")).code).toBe("empty_file");
-    const e = refusal(() => identifyCapture(mp3Bytes(), "take.mp3"));
+    const e = await refusalOf(identifyCaptureFile(mp3Bytes(), "take.mp3"));
     expect(e.code).toBe("unsupported_format");
-    expect(e.message).toBe("The file is an MP3 audio file (ID3 tag); upload a WAV (PCM or float) or a CSV.");
+    expect(e.message).toBe("The file is an MP3 audio file; upload a WAV (PCM or float) or a CSV.");
   });
 
   it("a WAV sent with sweep conditions", () => {
