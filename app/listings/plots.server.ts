@@ -3,6 +3,7 @@ import { parseTwoColumnCsv, SQUARE_COLUMNS, type SineAnalysis, type SquareCaptur
 import type { Capture } from "~/models/capture.server";
 import { getObjectBuffer } from "~/services/storage.server";
 import { dbDomain, decimateMinMax, responseSeries } from "./plot-math";
+import { impedancePlots } from "./plots-impedance.server";
 import type { PlotSet, ResponsePlot, SpectrumPlot, SquarePlot } from "./types";
 
 // Plot data for the listing page, from the bench sheet's sweeps and the seller's analysed captures.
@@ -21,6 +22,10 @@ export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, C
     spectra: spectra(list.filter((c) => c.kind === "sine")),
     responses: responses(sheet),
     squares: await squares(list.filter((c) => c.kind === "square")),
+    impedances: impedancePlots(
+      list.filter((c) => c.kind === "impedance"),
+      sheet.readings.find((r) => r.quantity === "nominal_impedance")?.value,
+    ),
   };
 }
 

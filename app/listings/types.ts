@@ -173,6 +173,19 @@ export interface PlotSet {
   spectra: SpectrumPlot[];
   responses: ResponsePlot[];
   squares: SquarePlot[];
+  /** Loudspeakers' impedance sweeps (app/listings/plots-impedance.server.ts). */
+  impedances?: ImpedancePlot[];
+}
+
+export interface ImpedancePlot {
+  id: string;
+  title: string;
+  conditions: string;
+  /** Modulus in Ω, and phase in degrees when the sweep has it; frequency in Hz, rising. */
+  points: { f: number; ohms: number; phase?: number }[];
+  /** 80 % of the rated impedance (IEC 60268-5 §16.1), drawn as a line when the rating is known. */
+  floorOhm: number | null;
+  figures: { label: string; display: string }[];
 }
 
 export interface RestorationReadingView {

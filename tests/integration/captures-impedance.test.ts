@@ -6,6 +6,7 @@ import { action as analyze } from "~/routes/api.v1.captures.analyze";
 import { loader as getCapture } from "~/routes/api.v1.captures.$id";
 import { action as retry } from "~/routes/api.v1.captures.$id.retry";
 import { createDraft } from "~/listings/drafts.server";
+import { impedancePlot } from "~/listings/plots-impedance.server";
 import { saveBenchSheet } from "~/listings/bench.server";
 import { answer } from "../support/bodies";
 import { impedanceCsv, logFrequencies, motional, parallelRlc, sum } from "../support/impedance-model";
@@ -87,6 +88,12 @@ describe("an impedance sweep through the capture API", { timeout: 60_000 }, () =
     expect(min.value).toBeCloseTo(6.3, 2);
     const fs = done.body.readings.find((r: { quantity: string }) => r.quantity === "resonance_frequency");
     expect(fs.value).toBeCloseTo(45, 0);
+
+    // Its plot: the points against frequency, the floor at 80 % of the stated 8 Ω.
+    const plot = impedancePlot((await Capture.findByPk(row!.id))!);
+    expect(plot).toMatchObject({ floorOhm: 6.4, title: "Impedance against frequency" });
+    expect(plot!.points.length).toBeGreaterThan(200);
+    expect(plot!.points.every((p, i, all) => i === 0 || p.f > all[i - 1].f)).toBe(true);
 
     // On a loudspeaker's sheet: rated 7.5 Ω is met (floor 6.0 Ω) and earns the mark; rated 8 Ω is not (floor 6.4 Ω).
     const draft = await createDraft(seller.session, "loudspeaker");

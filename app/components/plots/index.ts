@@ -3,3 +3,4 @@
 export { FrequencyResponsePlot, ResponseTable, Legend, describeResponses, type ResponseSeries } from "./FrequencyResponsePlot";
 export { HarmonicSpectrumPlot, describeHarmonics, type Harmonic } from "./HarmonicSpectrumPlot";
 export { TracePlot, describeTrace } from "./TracePlot";
+export { ImpedancePlot, describeImpedance, type ImpedancePoint } from "./ImpedancePlot";

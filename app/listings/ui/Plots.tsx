@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import type { PlotSet, ResponsePlot, SpectrumPlot } from "../types";
 import { CaptureTag } from "./CaptureTag";
-import { ResponseChart, SpectrumChart, SquareChart } from "./charts";
+import { ImpedanceChart, ResponseChart, SpectrumChart, SquareChart } from "./charts";
 
 // The plots are SVG drawn on the server: they show before any script runs, and the numbers behind
 // each are in a table beside it for readers who would rather read.
@@ -127,7 +127,7 @@ function FigureList({ figures }: { figures: { label: string; display: string }[]
 }
 
 export function Plots({ plots }: { plots: PlotSet }) {
-  const count = plots.spectra.length + plots.responses.length + plots.squares.length;
+  const count = plots.spectra.length + plots.responses.length + plots.squares.length + (plots.impedances?.length ?? 0);
   if (count === 0) return null;
   return (
     <section aria-labelledby="plots-heading" className="below-fold space-y-4">
@@ -160,6 +160,19 @@ export function Plots({ plots }: { plots: PlotSet }) {
             numbers={<FigureList figures={p.figures} />}
           >
             <SquareChart plot={p} />
+            <FigureList figures={p.figures} />
+          </PlotFigure>
+        ))}
+        {(plots.impedances ?? []).map((p) => (
+          <PlotFigure
+            key={p.id}
+            id={p.id}
+            title={p.title}
+            conditions={p.conditions}
+            fromCapture
+            numbers={<FigureList figures={p.figures} />}
+          >
+            <ImpedanceChart plot={p} />
             <FigureList figures={p.figures} />
           </PlotFigure>
         ))}

@@ -1,6 +1,6 @@
-import { FrequencyResponsePlot, HarmonicSpectrumPlot, TracePlot } from "~/components/plots";
+import { FrequencyResponsePlot, HarmonicSpectrumPlot, ImpedancePlot, TracePlot } from "~/components/plots";
 import { round125 } from "~/components/plots/scale";
-import type { ResponsePlot, SpectrumPlot, SquarePlot } from "../types";
+import type { ImpedancePlot as ImpedancePlotData, ResponsePlot, SpectrumPlot, SquarePlot } from "../types";
 
 // The listing's bench plots, drawn with the shared plot components on the server.
 
@@ -70,6 +70,16 @@ export function SquareChart({ plot }: { plot: SquarePlot }) {
       points={plot.points.map((p) => ({ x: p.t, y: p.v }))}
       x={{ label: "Time (µs)", unit: "µs", domain: [0, round125(last, true)] }}
       y={{ label: "Level (V)", unit: "V" }}
+    />
+  );
+}
+
+export function ImpedanceChart({ plot }: { plot: ImpedancePlotData }) {
+  return (
+    <ImpedancePlot
+      title={plot.title}
+      points={plot.points.map((p) => ({ hz: p.f, ohms: p.ohms, phase: p.phase }))}
+      floorOhm={plot.floorOhm}
     />
   );
 }
