@@ -11,6 +11,7 @@ import { listingFacets, publishState } from "@shared/listing-facets";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES, type AccountKey, type DemoUnit } from "./demo-data";
 import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
+import { seedDemoImpedance } from "./demo-impedance";
 import { seedDemoPayouts } from "./demo-payouts";
 import { seedDemoApplications } from "./demo-applications";
 import { seedDemoSales } from "./demo-sales";
@@ -61,6 +62,7 @@ export async function seedDemo(): Promise<SeedResult> {
   const orphans = uploadedKeys.filter((k) => !usedKeys.has(k));
   if (orphans.length) await deleteObjects(orphans);
   created = (await seedDemoCaptures()).created || created;
+  created = (await seedDemoImpedance()).created > 0 || created;
   created = (await seedDemoPayouts()).connected > 0 || created;
   created = (await seedDemoApplications()).created > 0 || created;
   // Completed sales (and their reviews) need the sellers' payout accounts connected just above.
