@@ -4,7 +4,7 @@ import { formatValue } from "../format";
 import { near } from "./match";
 import { fig, type Item, type Rule, type SheetIndex } from "./types";
 
-/** IEC 60268-5: the impedance modulus in the rated range stays at or above 80 % of the rated impedance. */
+/** IEC 60268-5:2003 §16.1: the impedance modulus in the rated range stays at or above 80 % of the rated impedance. */
 export const IMPEDANCE_FLOOR = 0.8;
 /** 2.83 V = √8 V: 1 W into 8 Ω. */
 export const SENSITIVITY_VOLTS = Math.sqrt(8);
@@ -19,7 +19,7 @@ export const speakerImpedanceMinimum: Rule = {
   title: "Impedance minimum within 80 % of the rating",
   explanation:
     "A loudspeaker's rated impedance is a promise to the amplifier: across the rated frequency range the impedance should not dip below 80 % of it (6.4 Ω for an 8 Ω speaker, 3.2 Ω for 4 Ω). A deeper dip makes it a harder load than the rating says.",
-  source: "IEC 60268-5 (rated impedance; minimum not below 80 %)",
+  source: "IEC 60268-5:2003 §16.1 (rated impedance: the lowest modulus within the rated frequency range not below 80 % of it)",
   categories: ["loudspeaker"],
   evaluate(ix, out) {
     const mins = ix.measured("impedance_minimum");
@@ -36,7 +36,10 @@ export const speakerImpedanceMinimum: Rule = {
     for (const m of mins) {
       const floor = nominal.value * IMPEDANCE_FLOOR;
       const ok = m.value >= floor - 1e-9;
-      const at = m.conditions.frequencyHz ? ` at ${formatValue(m.conditions.frequencyHz, "frequency")}` : "";
+      const range = m.conditions.frequencyRange;
+      const at =
+        (m.conditions.frequencyHz ? ` at ${formatValue(m.conditions.frequencyHz, "frequency")}` : "") +
+        (range ? ` (within ${formatValue(range.lowHz, "frequency")}–${formatValue(range.highHz, "frequency")})` : "");
       out.result({
         outcome: ok ? "consistent" : "questionable",
         detail: ok
