@@ -96,6 +96,16 @@ describe("refusals name the line and column", () => {
     expect(e.message).toBe("Line 3, column 'level': 'abc' is not a number.");
   });
 
+  it("numbers as benches write them, and not what JavaScript alone would take (hex, Infinity, blank)", () => {
+    const r = parseTwoColumnCsv("frequency,level\n 20 ,5.\n.5e3,-.25\n1E4,+1e-6\n", SWEEP_COLUMNS);
+    expect(Array.from(r.x)).toEqual([20, 500, 10_000]);
+    expect(Array.from(r.y)).toEqual([5, -0.25, 1e-6]);
+    for (const bad of ["0x10", "Infinity", "-Infinity", "", "1,5e", "NaN", "1_000"]) {
+      const e = refusal(() => parseTwoColumnCsv(`frequency;level\n20;1\n1000;${bad}\n20000;2\n`, SWEEP_COLUMNS));
+      expect(e.message).toBe(`Line 3, column 'level': '${bad}' is not a number.`);
+    }
+  });
+
   it("too few rows, and an empty file", () => {
     expect(refusal(() => parseTwoColumnCsv("frequency,level\n1000,0\n", SWEEP_COLUMNS)).message).toBe(
       "The CSV file has 1 data row; at least 3 are needed.",

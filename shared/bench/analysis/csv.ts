@@ -33,7 +33,20 @@ export interface Columns {
   header: (string | null)[] | null;
 }
 
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+/**
+ * A decimal number as benches write it (1, -0.5, .5, 5., 1e-6), or null. Number() alone would also take
+ * "0x10", "Infinity" and "": those are refused by their first characters and by finiteness.
+ */
+function readNumber(c: string): number | null {
+  const ch = c.charCodeAt(0);
+  if (!((ch >= 48 && ch <= 57) || ch === 43 || ch === 45 || ch === 46)) return null;
+  if (ch === 48 && c.length > 1) {
+    const next = c.charCodeAt(1) | 32;
+    if (next === 120 || next === 111 || next === 98) return null; // 0x, 0o, 0b
+  }
+  const v = Number(c);
+  return Number.isFinite(v) ? v : null;
+}
 
 /** "Time (s)" → "time", "level_dB" → "leveldb". */
 function headerWord(s: string): string {
@@ -52,7 +65,11 @@ export function headerUnit(s: string): string | null {
 
 /** The delimiter of the first non-comment line, counted outside quotes: tab, then semicolon, then comma. */
 function detectDelimiter(text: string): string {
-  const line = text.split(/\r\n|\n|\r/).find((l) => l.trim() !== "" && !l.trim().startsWith("#")) ?? "";
+  const line =
+    text
+      .slice(0, 65_536)
+      .split(/\r\n|\n|\r/)
+      .find((l) => l.trim() !== "" && !l.trim().startsWith("#")) ?? "";
   const bare = line.replace(/"[^"]*"/g, "");
   if (bare.includes("\t")) return "\t";
   if (bare.includes(";")) return ";";
@@ -71,28 +88,28 @@ function expectedText(spec: ColumnsSpec): string {
 export function parseColumnsCsv(text: string, spec: ColumnsSpec): Columns {
   const body = text.replace(/^\uFEFF/, "");
   const delimiter = detectDelimiter(body);
-  const parsed = Papa.parse<string[]>(body, { delimiter, skipEmptyLines: false });
+  // Without a quote anywhere, papaparse may split on the delimiter alone (its fast mode).
+  const quoted = body.includes('"');
+  const parsed = Papa.parse<string[]>(body, { delimiter, skipEmptyLines: false, fastMode: !quoted });
   // Line numbers as the seller's editor shows them: a quoted field may itself hold line breaks.
   const rows: { line: number; cells: string[] }[] = [];
   let line = 1;
-  for (const raw of parsed.data) {
-    const cells = raw.map((c) => c.trim());
-    const breaks = raw.reduce((n, c) => n + (c.match(/\r\n|\n|\r/g)?.length ?? 0), 0);
-    if (!(cells.length === 1 && cells[0] === "") && !cells[0].startsWith("#")) rows.push({ line, cells });
+  for (const cells of parsed.data) {
+    let breaks = 0;
+    if (quoted) for (const c of cells) if (c.includes("\n") || c.includes("\r")) breaks += c.match(/\r\n|\n|\r/g)?.length ?? 0;
+    const first = cells[0].trim();
+    if (!(cells.length === 1 && first === "") && !first.startsWith("#")) rows.push({ line, cells });
     line += 1 + breaks;
   }
   const expected = expectedText(spec);
   if (rows.length === 0) throw new CaptureError("csv_columns_missing", `The CSV file is empty; expected columns ${expected}.`);
 
   // Semicolon files often use the decimal comma.
-  const toNumber = (cell: string): number | null => {
-    const c = delimiter === ";" ? cell.replace(",", ".") : cell;
-    return NUMBER.test(c) ? Number(c) : null;
-  };
+  const toNumber = (cell: string): number | null => readNumber(delimiter === ";" ? cell.replace(",", ".") : cell);
 
   let cols: number[] = spec.columns.map((_, i) => i);
   let header: (string | null)[] | null = null;
-  const first = rows[0];
+  const first = { line: rows[0].line, cells: rows[0].cells.map((c) => c.trim()) };
   if (first.cells.some((c) => toNumber(c) === null)) {
     const words = first.cells.map(headerWord);
     cols = [];
@@ -126,7 +143,7 @@ export function parseColumnsCsv(text: string, spec: ColumnsSpec): Columns {
     for (let i = 0; i < spec.columns.length; i++) {
       const out = values[i];
       if (!out) continue;
-      const cell = cells[cols[i]] ?? "";
+      const cell = (cells[cols[i]] ?? "").trim();
       const v = toNumber(cell);
       if (v === null) {
         const name = spec.columns[i].name;

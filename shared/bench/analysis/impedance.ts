@@ -104,10 +104,11 @@ function phaseCrossing(lf: Float64Array, phase: Float64Array, z: Float64Array, i
   return best === null ? null : Math.exp(best);
 }
 
-function thin<T>(points: T[]): T[] {
-  if (points.length <= MAX_POINTS) return points;
-  const step = (points.length - 1) / (MAX_POINTS - 1);
-  return Array.from({ length: MAX_POINTS }, (_, i) => points[Math.round(i * step)]);
+/** At most MAX_POINTS indices, evenly spread, first and last kept. */
+function thinIndices(n: number): number[] {
+  if (n <= MAX_POINTS) return Array.from({ length: n }, (_, i) => i);
+  const step = (n - 1) / (MAX_POINTS - 1);
+  return Array.from({ length: MAX_POINTS }, (_, i) => Math.round(i * step));
 }
 
 export function analyseImpedance(
@@ -116,11 +117,14 @@ export function analyseImpedance(
   phaseDeg: Float64Array | null,
   c: ImpedanceConditions = {},
 ): ImpedanceAnalysis {
-  // Sweeps run either way; sort by frequency.
-  const order = Array.from(frequency.keys()).sort((a, b) => frequency[a] - frequency[b]);
-  const f = Float64Array.from(order, (i) => frequency[i]);
-  const z = Float64Array.from(order, (i) => ohms[i]);
-  const ph = phaseDeg ? Float64Array.from(order, (i) => phaseDeg[i]) : null;
+  // Sweeps run either way; sort by frequency (an analyser's rising sweep needs no sort).
+  let rising = true;
+  for (let i = 1; i < frequency.length && rising; i++) rising = frequency[i] >= frequency[i - 1];
+  const order = rising ? null : Array.from(frequency.keys()).sort((a, b) => frequency[a] - frequency[b]);
+  const sorted = (x: Float64Array) => (order ? Float64Array.from(order, (i) => x[i]) : x.slice());
+  const f = sorted(frequency);
+  const z = sorted(ohms);
+  const ph = phaseDeg ? sorted(phaseDeg) : null;
   for (let i = 0; i < f.length; i++) {
     if (!(f[i] > 0)) throw new CaptureError("sweep_invalid", `Frequencies must be above 0 Hz; found ${f[i]} Hz.`);
     if (i > 0 && f[i] === f[i - 1]) throw new CaptureError("sweep_invalid", `The frequency ${f[i]} Hz appears twice in the sweep.`);
@@ -173,7 +177,7 @@ export function analyseImpedance(
       c.ratedOhm !== undefined && floor !== null
         ? { rated: fig(c.ratedOhm, "Ω"), floor: fig(floor, "Ω"), meets: min.z >= floor - 1e-9 }
         : null,
-    points: thin(Array.from(f, (fi, i) => (ph ? { frequency: fi, ohms: z[i], phaseDeg: ph[i] } : { frequency: fi, ohms: z[i] }))),
+    points: thinIndices(f.length).map((i) => (ph ? { frequency: f[i], ohms: z[i], phaseDeg: ph[i] } : { frequency: f[i], ohms: z[i] })),
     conditions: {
       band,
       sweepRange: { lowHz: lo, highHz: hi },
