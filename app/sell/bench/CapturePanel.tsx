@@ -1,4 +1,4 @@
-import { useId, useState } from "react";
+import { useId, useRef, useState } from "react";
 import { Button } from "~/components/Button";
 import { Badge } from "~/components/Badge";
 import { controlClass } from "~/components/Field";
@@ -90,6 +90,7 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
   const fileId = useId();
   const [kind, setKind] = useState<CaptureKind>("sine");
   const [items, setItems] = useState<Item[]>([]);
+  const lastKey = useRef(0);
   const [problem, setProblem] = useState<string | null>(null);
   const update = (key: number, patch: Partial<Item>) => setItems((all) => all.map((i) => (i.key === key ? { ...i, ...patch } : i)));
 
@@ -100,7 +101,7 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
     setProblem(null);
     // Blank optional fields are left out so the API applies its defaults.
     for (const [k, v] of [...data.entries()]) if (typeof v === "string" && !v.trim()) data.delete(k);
-    const key = Date.now();
+    const key = ++lastKey.current;
     setItems((all) => [{ key, fileName: file.name, state: "uploading", progress: 0 }, ...all]);
     let answer = await upload(data, (p) => update(key, { progress: p }));
     if (answer.status === 202 && answer.body.poll) {
