@@ -90,6 +90,11 @@ describe("refusals name the line and column", () => {
     expect(e.details).toEqual({ line: 5 });
   });
 
+  it("a quoted header cell that spans two lines counts both", () => {
+    const e = refusal(() => parseTwoColumnCsv('"Frequency\n(Hz)",level\n20,1\n1000,x\n', SWEEP_COLUMNS));
+    expect(e.message).toBe("Line 4, column 'level': 'x' is not a number.");
+  });
+
   it("a cell that is not a number, even quoted", () => {
     const e = refusal(() => parseTwoColumnCsv('frequency,level\n20,-0.1\n"1000","abc"\n20000,-0.2\n', SWEEP_COLUMNS));
     expect(e.code).toBe("csv_not_number");
