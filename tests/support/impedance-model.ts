@@ -37,7 +37,11 @@ export function logFrequencies(lo: number, hi: number, perOctave: number): numbe
 }
 
 /** A CSV sweep: frequency, modulus (Ω) and, unless left out, phase (degrees). */
-export function impedanceCsv(freqs: number[], z: (f: number) => Complex, opts: { phase?: boolean; delimiter?: string; header?: string } = {}): string {
+export function impedanceCsv(
+  freqs: number[],
+  z: (f: number) => Complex,
+  opts: { phase?: boolean; delimiter?: string; header?: string } = {},
+): string {
   const d = opts.delimiter ?? ",";
   const phase = opts.phase ?? true;
   const rows = [opts.header ?? ["frequency (Hz)", "impedance (ohm)", ...(phase ? ["phase (deg)"] : [])].join(d)];
