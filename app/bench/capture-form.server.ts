@@ -22,6 +22,9 @@ const NUMBER_FIELDS = [
   "bandHighHz",
   "ratedOhm",
   "driveV",
+  "lowToneHz",
+  "highToneHz",
+  "nominalLoadOhm",
 ];
 
 /** A form value as the schema wants it: numbers as numbers, "true"/"false" as booleans; blanks dropped. */
@@ -35,6 +38,16 @@ function field(form: FormData, name: string): unknown {
   }
   if (s === "true" || s === "false") return s === "true";
   return s;
+}
+
+/** "100, 1000, 10000" as numbers; a bad entry is left for zod to name. */
+function frequencyList(form: FormData): unknown {
+  const v = form.get("frequenciesHz");
+  if (typeof v !== "string" || v.trim() === "") return undefined;
+  return v
+    .split(/[\s,;]+/)
+    .filter(Boolean)
+    .map((x) => (Number.isFinite(Number(x)) ? Number(x) : x));
 }
 
 function flatConditions(form: FormData): Record<string, unknown> {
@@ -67,6 +80,12 @@ function flatConditions(form: FormData): Record<string, unknown> {
     band: band("bandLowHz", "bandHighHz"),
     ratedOhm: f("ratedOhm"),
     driveV: f("driveV"),
+    driven: f("driven"),
+    frequenciesHz: frequencyList(form),
+    method: f("method"),
+    lowToneHz: f("lowToneHz"),
+    highToneHz: f("highToneHz"),
+    nominalLoadOhm: f("nominalLoadOhm"),
   };
   return Object.fromEntries(Object.entries(raw).filter(([, v]) => v !== undefined));
 }
@@ -91,7 +110,8 @@ export function readConditions(form: FormData, inferred: CaptureKind | null): Co
     if (!inferred) {
       return {
         ok: false,
-        message: "Say what the capture is: kind must be sine, square or sweep (the file alone does not tell).",
+        message:
+          "Say what the capture is: kind must be sine, square, sweep, separation, imd or output_impedance (the file alone does not tell).",
         issues: [{ path: "kind", message: "required" }],
       };
     }
@@ -121,6 +141,12 @@ const CONDITION_LABELS: Record<string, string> = {
   warmUpS: "Warm-up",
   ratedOhm: "Rated impedance",
   driveV: "Drive level",
+  method: "Method",
+  lowToneHz: "Low tone",
+  highToneHz: "High tone",
+  nominalLoadOhm: "Damping factor quoted into",
+  frequenciesHz: "Test tones",
+  driven: "Driven channel",
 };
 
 const KIND_FIELDS: Record<string, string[]> = {
@@ -141,6 +167,9 @@ const KIND_FIELDS: Record<string, string[]> = {
   square: ["kind", "channel", "loadOhm", "frequencyHz"],
   sweep: ["kind", "levelUnit", "reference", "iecPole", "band", "channel", "loadOhm"],
   impedance: ["kind", "ratedOhm", "band", "channel", "driveV"],
+  separation: ["kind", "driven", "frequenciesHz", "scale", "loadOhm"],
+  imd: ["kind", "method", "lowToneHz", "highToneHz", "scale", "loadOhm", "channel", "channelsDriven"],
+  output_impedance: ["kind", "loadOhm", "nominalLoadOhm", "frequencyHz", "scale", "channel"],
 };
 
 function onlyFieldsOfKind(raw: Record<string, unknown>): Record<string, unknown> {

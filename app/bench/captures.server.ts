@@ -11,6 +11,15 @@ import {
   sineToReadings,
   squareToReadings,
   sweepToSheet,
+  analyseImd,
+  analyseSeparation,
+  analyseOutputImpedance,
+  imdToReadings,
+  separationToReadings,
+  outputImpedanceToReadings,
+  type ImdAnalysis,
+  type SeparationAnalysis,
+  type OutputImpedanceAnalysis,
   SQUARE_COLUMNS,
   SWEEP_COLUMNS,
   SINE_DEFAULTS,
@@ -40,7 +49,10 @@ export type CaptureAnalysis =
   | { kind: "sine"; analysis: SineAnalysis; readings: Reading[]; format: CaptureFormat }
   | { kind: "impedance"; analysis: ImpedanceAnalysis; readings: Reading[]; format: CaptureFormat }
   | { kind: "square"; analysis: SquareAnalysis; readings: Reading[]; format: CaptureFormat }
-  | { kind: "sweep"; analysis: SweepAnalysis; readings: Reading[]; sweep: Sweep; format: CaptureFormat };
+  | { kind: "sweep"; analysis: SweepAnalysis; readings: Reading[]; sweep: Sweep; format: CaptureFormat }
+  | { kind: "separation"; analysis: SeparationAnalysis; readings: Reading[]; format: CaptureFormat }
+  | { kind: "imd"; analysis: ImdAnalysis; readings: Reading[]; format: CaptureFormat }
+  | { kind: "output_impedance"; analysis: OutputImpedanceAnalysis; readings: Reading[]; format: CaptureFormat };
 
 const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 
@@ -90,12 +102,23 @@ export function inferKind(bytes: Uint8Array, file: CaptureFileKind): CaptureKind
   return null;
 }
 
-const FILE_FOR_KIND: Record<CaptureKind, CaptureFileKind> = { sine: "wav", square: "csv", sweep: "csv", impedance: "csv" };
+const FILE_FOR_KIND: Record<CaptureKind, CaptureFileKind> = {
+  sine: "wav",
+  square: "csv",
+  sweep: "csv",
+  impedance: "csv",
+  separation: "wav",
+  imd: "wav",
+  output_impedance: "wav",
+};
 const KIND_WORDS: Record<CaptureKind, string> = {
   sine: "a sine capture (WAV)",
   square: "a square-wave response (CSV time,volts)",
   sweep: "a frequency sweep (CSV frequency,level)",
   impedance: "an impedance sweep (CSV frequency,ohms[,phase])",
+  separation: "a stereo capture with one channel driven (WAV)",
+  imd: "a two-tone capture (WAV)",
+  output_impedance: "a tone played open and then loaded (WAV)",
 };
 
 function checkKind(kind: CaptureKind, file: CaptureFileKind) {
@@ -107,7 +130,7 @@ function checkKind(kind: CaptureKind, file: CaptureFileKind) {
   }
 }
 
-function checkWav(w: WavFormat, c: SineCaptureConditions) {
+function checkWav(w: WavFormat, c: Pick<SineCaptureConditions, "resolutionHz">) {
   if (w.durationS > CAPTURE_LIMITS.maxSeconds) {
     throw new CaptureError(
       "too_long",
@@ -215,6 +238,9 @@ export function analyseCapture(bytes: Uint8Array, filename: string, conditions: 
     return { kind: "sine", analysis, readings: sineToReadings(analysis, conditions, captureId), format: { file: "wav", ...format } };
   }
   if (conditions.kind === "impedance") return analyseImpedanceCsv(bytes, conditions, captureId);
+  if (conditions.kind === "separation" || conditions.kind === "imd" || conditions.kind === "output_impedance") {
+    return analyseTwoToneKinds(bytes, conditions, captureId);
+  }
   const cols = readCsv(bytes, conditions.kind);
   const format: CaptureFormat = { file: "csv", rows: cols.x.length, header: cols.header };
   if (conditions.kind === "square") {
@@ -233,3 +259,53 @@ export function analyseCapture(bytes: Uint8Array, filename: string, conditions: 
 }
 
 export { captureConditionsSchema };
+
+type TwoToneKinds = Extract<CaptureConditions, { kind: "separation" | "imd" | "output_impedance" }>;
+
+/** Separation, intermodulation and output impedance: WAV captures past the sine's checks. */
+function analyseTwoToneKinds(bytes: Uint8Array, conditions: TwoToneKinds, captureId: string): CaptureAnalysis {
+  const { format: wavFormat, data } = readWavFormat(bytes);
+  checkWav(wavFormat, { resolutionHz: 5 });
+  const d = decodeWavData(wavFormat, data);
+  const { samples: _omit, positiveFullScale: _pfs, ...rest } = d;
+  const format: CaptureFormat = { file: "wav", ...rest };
+  if (conditions.kind === "separation") {
+    // The undriven side is the point: keep it, silent or not; clipping is still refused.
+    checkSamples(d);
+    const analysis = analyseSeparation(d.samples, d.sampleRate, {
+      driven: conditions.driven,
+      frequenciesHz: conditions.frequenciesHz,
+      scale: conditions.scale,
+      loadOhms: conditions.loadOhm,
+    });
+    return { kind: "separation", analysis, readings: separationToReadings(analysis, conditions, captureId), format };
+  }
+  const { samples, labels } = checkSamples(d);
+  if (conditions.kind === "imd") {
+    const analysis = analyseImd(
+      samples,
+      d.sampleRate,
+      {
+        method: conditions.method,
+        lowToneHz: conditions.lowToneHz,
+        highToneHz: conditions.highToneHz,
+        scale: conditions.scale,
+        loadOhms: conditions.loadOhm,
+      },
+      labels,
+    );
+    return { kind: "imd", analysis, readings: imdToReadings(analysis, conditions, captureId), format };
+  }
+  const analysis = analyseOutputImpedance(
+    samples,
+    d.sampleRate,
+    {
+      loadOhms: conditions.loadOhm,
+      nominalLoadOhms: conditions.nominalLoadOhm,
+      frequencyHz: conditions.frequencyHz,
+      scale: conditions.scale,
+    },
+    labels,
+  );
+  return { kind: "output_impedance", analysis, readings: outputImpedanceToReadings(analysis, conditions, captureId), format };
+}

@@ -25,7 +25,15 @@ export async function capturesForSheet(sheet: BenchSheet, sellerId: string): Pro
   return out;
 }
 
-const KIND_WORDS = { sine: "sine capture", square: "square-wave capture", sweep: "sweep capture", impedance: "impedance sweep" } as const;
+const KIND_WORDS = {
+  sine: "sine capture",
+  square: "square-wave capture",
+  sweep: "sweep capture",
+  impedance: "impedance sweep",
+  separation: "one-side-driven stereo capture",
+  imd: "two-tone capture",
+  output_impedance: "open-and-loaded capture",
+} as const;
 
 /** "from a sine capture (WAV, 48 kHz, 24-bit)" — how the figure was obtained, without the file's name. */
 export function captureNote(capture: Capture | undefined): string {

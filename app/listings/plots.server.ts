@@ -29,6 +29,11 @@ export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, C
   };
 }
 
+/** The channel a capture's conditions name, for the kinds that have one. */
+function statedChannel(c: Capture): string | undefined {
+  return c.conditions && "channel" in c.conditions ? c.conditions.channel : undefined;
+}
+
 // ---- harmonic spectrum ---------------------------------------------------------------------------
 
 function sineAnalysis(c: Capture): SineAnalysis | null {
@@ -46,14 +51,14 @@ function spectra(sines: Capture[]): SpectrumPlot[] {
     groups.set(key, [...(groups.get(key) ?? []), { capture, analysis }]);
   }
   const out: SpectrumPlot[] = [];
-  const side = (c: Capture) => ["left", "right", "mono", "both"].indexOf(c.conditions?.channel ?? "mono");
+  const side = (c: Capture) => ["left", "right", "mono", "both"].indexOf(statedChannel(c) ?? "mono");
   for (const [key, unsorted] of groups) {
     const members = [...unsorted].sort((a, b) => side(a.capture) - side(b.capture));
     const bars = new Map<number, SpectrumPlot["bars"][number]>();
     const channels: SpectrumPlot["channels"] = [];
     const levels: number[] = [];
     for (const { capture, analysis } of members) {
-      const stated = capture.conditions?.channel;
+      const stated = statedChannel(capture);
       for (const ch of analysis.channels) {
         const name = ch.channel === "mono" && stated ? stated : ch.channel;
         let chKey = name;

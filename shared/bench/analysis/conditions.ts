@@ -76,11 +76,56 @@ export const impedanceCaptureConditionsSchema = z.strictObject({
   driveV: z.number().positive().max(100).optional(),
 });
 
+/** A stereo WAV with one side driven: the leak into the other side at each test tone. */
+export const separationCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("separation"),
+  /** The driven side; by default the louder one. */
+  driven: z.enum(["left", "right"]).optional(),
+  /** The test tones; by default every harmonic-free tone on the driven side. */
+  frequenciesHz: z.array(hz).min(1).max(24).optional(),
+  /** Only for the driven level in volts; the separation itself is a ratio. */
+  scale: captureScaleSchema.optional(),
+  loadOhm: z.number().positive().max(1_000_000).optional(),
+});
+
+/** A two-tone WAV: SMPTE (60 Hz + 7 kHz, 4:1) or difference-frequency (19 + 20 kHz) intermodulation. */
+export const imdCaptureConditionsSchema = z
+  .strictObject({
+    kind: z.literal("imd"),
+    method: z.enum(["smpte", "dfd"]),
+    /** The tones, when they are not the method's usual pair. */
+    lowToneHz: hz.optional(),
+    highToneHz: hz.optional(),
+    scale: captureScaleSchema.optional(),
+    loadOhm: z.number().positive().max(1_000_000).optional(),
+    channel: channel.optional(),
+    channelsDriven: z.enum(["one", "both", "all"]).optional(),
+  })
+  .refine((c) => c.lowToneHz === undefined || c.highToneHz === undefined || c.lowToneHz < c.highToneHz, {
+    message: "The low tone must be below the high tone.",
+    path: ["highToneHz"],
+  });
+
+/** A WAV of one tone, played with the output open and then into a known load (either order). */
+export const outputImpedanceCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("output_impedance"),
+  /** The load of the loaded reading, Ω. */
+  loadOhm: z.number({ error: "type the load the second reading was taken into, e.g. 8" }).positive().max(1_000_000),
+  /** The load a damping factor is quoted into (8 Ω); leave out for a line output. */
+  nominalLoadOhm: z.number().positive().max(1_000).optional(),
+  frequencyHz: hz.optional(),
+  scale: captureScaleSchema.optional(),
+  channel: channel.optional(),
+});
+
 export const captureConditionsSchema = z.discriminatedUnion("kind", [
   sineCaptureConditionsSchema,
   squareCaptureConditionsSchema,
   sweepCaptureConditionsSchema,
   impedanceCaptureConditionsSchema,
+  separationCaptureConditionsSchema,
+  imdCaptureConditionsSchema,
+  outputImpedanceCaptureConditionsSchema,
 ]);
 
 export type CaptureConditions = z.infer<typeof captureConditionsSchema>;
@@ -90,3 +135,6 @@ export type SquareCaptureConditions = z.infer<typeof squareCaptureConditionsSche
 export type SweepCaptureConditions = z.infer<typeof sweepCaptureConditionsSchema>;
 export type ImpedanceCaptureConditions = z.infer<typeof impedanceCaptureConditionsSchema>;
 export type CaptureKind = CaptureConditions["kind"];
+export type SeparationCaptureConditions = z.infer<typeof separationCaptureConditionsSchema>;
+export type ImdCaptureConditions = z.infer<typeof imdCaptureConditionsSchema>;
+export type OutputImpedanceCaptureConditions = z.infer<typeof outputImpedanceCaptureConditionsSchema>;

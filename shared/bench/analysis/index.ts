@@ -14,3 +14,7 @@ export * from "./to-readings";
 export * from "./stored";
 export * from "./impedance";
 export * from "./impedance-readings";
+export * from "./imd";
+export * from "./separation";
+export * from "./output-impedance";
+export * from "./twotone-readings";

@@ -6,8 +6,16 @@ import type { SineAnalysis } from "./sine";
 import type { SquareAnalysis } from "./square";
 import type { SweepAnalysis } from "./sweep";
 import type { ImpedanceAnalysis } from "./impedance";
+import type { ImdAnalysis } from "./imd";
+import type { SeparationAnalysis } from "./separation";
+import type { OutputImpedanceAnalysis } from "./output-impedance";
 
-export type AnyAnalysis = SineAnalysis | SquareAnalysis | SweepAnalysis | ImpedanceAnalysis;
+export type AnyAnalysis =
+  | SineAnalysis
+  | SquareAnalysis
+  | SweepAnalysis
+  | ImpedanceAnalysis
+  | SeparationAnalysis | ImdAnalysis | OutputImpedanceAnalysis;
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);
 const isFigure = (x: unknown) => isRecord(x) && typeof x.value === "number";
@@ -34,6 +42,12 @@ function fits(x: unknown): x is AnyAnalysis {
       return Array.isArray(x.points) && isRecord(x.worstDeviation) && isFigure(x.levelAt1kHz);
     case "impedance":
       return Array.isArray(x.points) && isRecord(x.minimum) && isFigure(x.minimum.ohms) && isFigure(x.minimum.frequency);
+    case "separation":
+      return Array.isArray(x.points) && x.points.every((p) => isRecord(p) && isFigure(p.frequency) && isFigure(p.separation));
+    case "imd":
+      return Array.isArray(x.channels) && x.channels.every((c) => isRecord(c) && isRecord(c.imd) && Array.isArray(c.products));
+    case "output_impedance":
+      return Array.isArray(x.channels) && x.channels.every((c) => isRecord(c) && isFigure(c.outputImpedance) && Array.isArray(c.levels));
     default:
       return false;
   }
