@@ -60,8 +60,8 @@ export function strongestTone(spec: PowerSpectrum, lowHz: number, highHz: number
 }
 
 /**
- * Noise power a tone's zone would hold if it held only noise: the median bin between `lowHz` and
- * `highHz` times the zone's width. The median ignores the tones themselves.
+ * Noise power a tone's zone would hold if it held only noise: the mean noise bin between `lowHz` and
+ * `highHz` (from the median, which ignores the tones themselves) times the zone's width.
  */
 export function noisePerZone(spec: PowerSpectrum, lowHz: number, highHz: number): number {
   const kLo = Math.max(1, Math.ceil(lowHz / spec.binHz));
@@ -72,7 +72,8 @@ export function noisePerZone(spec: PowerSpectrum, lowHz: number, highHz: number)
   const bins: number[] = [];
   for (let k = kLo; k <= kHi; k += stride) bins.push(spec.power[k]);
   bins.sort((a, b) => a - b);
-  return bins[Math.floor(bins.length / 2)] * (2 * spec.toneHalfWidthBins + 1);
+  // A noise bin's power is exponentially distributed (χ² with two degrees of freedom): mean = median / ln 2.
+  return (bins[Math.floor(bins.length / 2)] / Math.LN2) * (2 * spec.toneHalfWidthBins + 1);
 }
 
 /** The middle of a capture longer than one FFT holds. */
