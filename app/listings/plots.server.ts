@@ -4,6 +4,7 @@ import type { Capture } from "~/models/capture.server";
 import { getObjectBuffer } from "~/services/storage.server";
 import { dbDomain, decimateMinMax, responseSeries } from "./plot-math";
 import { impedancePlots } from "./plots-impedance.server";
+import { imdPlots, outputImpedancePlots, separationPlots } from "./plots-twotone.server";
 import type { PlotSet, ResponsePlot, SpectrumPlot, SquarePlot } from "./types";
 
 // Plot data for the listing page, from the bench sheet's sweeps and the seller's analysed captures.
@@ -19,9 +20,9 @@ export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, C
   if (!sheet) return { spectra: [], responses: [], squares: [] };
   const list = [...captures.values()];
   return {
-    spectra: spectra(list.filter((c) => c.kind === "sine")),
+    spectra: [...spectra(list.filter((c) => c.kind === "sine")), ...imdPlots(list), ...separationPlots(list)],
     responses: responses(sheet),
-    squares: await squares(list.filter((c) => c.kind === "square")),
+    squares: [...(await squares(list.filter((c) => c.kind === "square"))), ...outputImpedancePlots(list)],
     impedances: impedancePlots(
       list.filter((c) => c.kind === "impedance"),
       sheet.readings.find((r) => r.quantity === "nominal_impedance")?.value,

@@ -145,6 +145,9 @@ export interface SpectrumPlot {
   bars: { order: number; label: string; frequencyHz: number; levels: Record<string, number> }[];
   channels: { key: string; label: string; thd: string }[];
   floorDb: number;
+  /** Axis titles for bars that are not harmonics (intermodulation products, separation per tone). */
+  xLabel?: string;
+  yLabel?: string;
 }
 
 export interface ResponsePlot {
@@ -167,6 +170,8 @@ export interface SquarePlot {
   /** Time in µs from the first sample, level in V. */
   points: { t: number; v: number }[];
   figures: { label: string; display: string }[];
+  /** Axes other than time in µs against volts (a level over seconds, for output impedance). */
+  axes?: { x: { label: string; unit: string }; y: { label: string; unit: string } };
 }
 
 export interface PlotSet {

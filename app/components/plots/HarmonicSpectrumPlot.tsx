@@ -34,6 +34,8 @@ export function HarmonicSpectrumPlot({
   channels,
   floorDb,
   height = 260,
+  xLabel,
+  yLabel,
 }: {
   title: string;
   fundamentalHz: number;
@@ -42,6 +44,9 @@ export function HarmonicSpectrumPlot({
   /** The bottom of the plot, dB re the fundamental (a multiple of 20). */
   floorDb: number;
   height?: number;
+  /** Axis titles when the bars are not harmonics (intermodulation products, separation per tone). */
+  xLabel?: string;
+  yLabel?: string;
 }) {
   const descriptionId = useId();
   const n = Math.max(1, harmonics.length);
@@ -55,12 +60,12 @@ export function HarmonicSpectrumPlot({
         descriptionId={descriptionId}
         height={height}
         x={{
-          label: `Harmonic of ${hzWords(fundamentalHz)}`,
+          label: xLabel ?? `Harmonic of ${hzWords(fundamentalHz)}`,
           scale: (i) => (i + 0.5) / n,
           ticks: harmonics.map((h, i) => ({ value: i, label: h.label })),
           noGrid: true,
         }}
-        y={{ label: "Level re fundamental (dB)", scale: sy, ticks: linearTicks([floorDb, 0], 20) }}
+        y={{ label: yLabel ?? "Level re fundamental (dB)", scale: sy, ticks: linearTicks([floorDb, 0], 20) }}
       >
         {channels.map((c, ci) =>
           harmonics.map((h, i) => {

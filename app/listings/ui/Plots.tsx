@@ -56,11 +56,11 @@ function SpectrumNumbers({ plot }: { plot: SpectrumPlot }) {
     <table className="min-w-full">
       <thead>
         <tr>
-          <th className={th}>Harmonic</th>
+          <th className={th}>{plot.xLabel ? "Component" : "Harmonic"}</th>
           <th className={th}>Frequency</th>
           {plot.channels.map((c) => (
             <th key={c.key} className={th}>
-              {c.label}, dB re fundamental
+              {c.label}, {plot.yLabel ? "dB" : "dB re fundamental"}
             </th>
           ))}
         </tr>

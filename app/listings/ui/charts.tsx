@@ -12,6 +12,8 @@ export function SpectrumChart({ plot }: { plot: SpectrumPlot }) {
       harmonics={plot.bars.map((b) => ({ label: b.label, hz: b.frequencyHz, levels: b.levels }))}
       channels={plot.channels}
       floorDb={plot.floorDb}
+      xLabel={plot.xLabel}
+      yLabel={plot.yLabel}
     />
   );
 }
@@ -68,8 +70,8 @@ export function SquareChart({ plot }: { plot: SquarePlot }) {
     <TracePlot
       title={plot.title}
       points={plot.points.map((p) => ({ x: p.t, y: p.v }))}
-      x={{ label: "Time (µs)", unit: "µs", domain: [0, round125(last, true)] }}
-      y={{ label: "Level (V)", unit: "V" }}
+      x={plot.axes ? plot.axes.x : { label: "Time (µs)", unit: "µs", domain: [0, round125(last, true)] }}
+      y={plot.axes ? plot.axes.y : { label: "Level (V)", unit: "V" }}
     />
   );
 }
