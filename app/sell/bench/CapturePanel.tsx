@@ -6,8 +6,9 @@ import { cx } from "~/components/cx";
 import { z } from "zod";
 import { describeReading, readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench";
 import { isOneOf } from "@shared/one-of";
+import { TwoToneFields } from "./TwoToneFields";
 
-const CAPTURE_KINDS = ["sine", "square", "sweep", "impedance"] as const;
+const CAPTURE_KINDS = ["sine", "square", "sweep", "impedance", "separation", "imd", "output_impedance"] as const;
 type CaptureKind = (typeof CAPTURE_KINDS)[number];
 
 // Raw measurement files (WAV, CSV) sent to the capture API with the conditions they were taken in; the
@@ -170,6 +171,9 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               <option value="square">Square wave (rise time)</option>
               <option value="sweep">Frequency sweep (response)</option>
               <option value="impedance">Impedance sweep (loudspeaker)</option>
+              <option value="separation">One channel driven (separation)</option>
+              <option value="imd">Two tones (intermodulation)</option>
+              <option value="output_impedance">Tone open, then loaded (output impedance)</option>
             </select>
           </Field>
           <Field label="Load">
@@ -254,6 +258,7 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               <input form={CAPTURE_FORM_ID} name="frequencyHz" inputMode="decimal" placeholder="10000" className={inputClass} />
             </Field>
           ) : null}
+          {kind === "separation" || kind === "imd" || kind === "output_impedance" ? <TwoToneFields kind={kind} /> : null}
           {kind === "sweep" ? (
             <>
               <Field label="Compare with">
