@@ -48,7 +48,8 @@ export const OUTPUT_IMPEDANCE_DEFINITION =
 const MAX_LEVELS = 600;
 
 /** Amplitude (rms) of the tone at `hz` in x[start, start+n), through a Hann window so other tones and the image leak nothing. */
-function blockRms(x: Float64Array, start: number, n: number, hz: number, fs: number): number {
+function blockRms(x: Float64Array, start: number, hann: Float64Array, hz: number, fs: number): number {
+  const n = hann.length;
   const w = (2 * Math.PI * hz) / fs;
   let re = 0;
   let im = 0;
@@ -59,7 +60,7 @@ function blockRms(x: Float64Array, start: number, n: number, hz: number, fs: num
   const cw = Math.cos(w);
   const sn = Math.sin(w);
   for (let i = 0; i < n; i++) {
-    const win = 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / n);
+    const win = hann[i];
     const v = x[start + i] * win;
     re += v * c;
     im -= v * s;
@@ -97,7 +98,9 @@ export function analyseOutputImpedanceChannel(
       `The capture holds ${(x.length / sampleRate).toFixed(2)} s; an open and a loaded reading need at least ${((8 * n) / sampleRate).toFixed(2)} s together.`,
     );
   }
-  const amps = Array.from({ length: count }, (_, b) => blockRms(x, b * n, n, hz, sampleRate));
+  const hann = new Float64Array(n);
+  for (let i = 0; i < n; i++) hann[i] = 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / n);
+  const amps = Array.from({ length: count }, (_, b) => blockRms(x, b * n, hann, hz, sampleRate));
   const loud = Math.max(...amps);
   // Blocks well below the loudest are the pause while the load is switched in.
   const live = amps.map((a) => a > 0.2 * loud);

@@ -25,10 +25,12 @@ function channelOf(name: string, stated: Channel | undefined): Channel {
 
 /** One crosstalk reading (Loadline's "Channel separation") per test tone, on the undriven side. */
 export function separationToReadings(a: SeparationAnalysis, c: SeparationCaptureConditions, captureId: string): Reading[] {
+  // A stepped capture holds each tone for part of its length only, so a level is known for a single tone alone.
+  const single = a.points.length === 1;
   return a.points.map((p) => {
-    const v = p.drivenRms?.value;
+    const v = single ? p.drivenRms?.value : undefined;
     const level: Conditions = v === undefined ? {} : c.loadOhm ? { powerW: sig((v * v) / c.loadOhm, 4) } : { voltageV: sig(v, 4) };
-    const leak = p.belowNoise ? "below the noise, so at least this" : `${(-p.separation.value).toFixed(1)} dB re the driven side`;
+    const leak = p.belowNoise ? "below the noise, so at least this" : `−${p.separation.value.toFixed(1)} dB re the driven side`;
     return captured(captureId, {
       quantity: "crosstalk",
       value: Math.round(p.separation.value * 10) / 10,
