@@ -186,6 +186,7 @@ async function serverFigures(): Promise<Section> {
 
 const figures = runs("capture") ? await captureFigures() : [];
 if (runs("capture")) figures.push(...(await import("./bench/capture-impedance")).impedanceCaptureFigures());
+if (runs("capture")) figures.push(...(await import("./bench/capture-twotone")).captureTwoToneFigures());
 const sheet: Awaited<ReturnType<typeof sheetFigures>> = runs("sheet") ? await sheetFigures() : { figures: [] };
 figures.push(...sheet.figures);
 const notes = [sheet.note];
