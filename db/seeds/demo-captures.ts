@@ -19,7 +19,7 @@ const TARGET_SERIAL = "CW-46I-017924";
 const FS = 48_000;
 
 /** 24-bit PCM WAV from channels scaled to ±1 full scale. */
-function wav24(channels: Float64Array[], sampleRate: number): Buffer {
+export function wav24(channels: Float64Array[], sampleRate: number): Buffer {
   const frames = channels[0].length;
   const n = channels.length;
   const data = Buffer.alloc(frames * n * 3);
@@ -49,7 +49,7 @@ function wav24(channels: Float64Array[], sampleRate: number): Buffer {
 }
 
 /** Deterministic noise (mulberry32), so every seed writes the same files. */
-function noise(seed: number): () => number {
+export function noise(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;

@@ -12,6 +12,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_UNITS, DEMO_WORKSHOPS, SELLER_PLACES
 import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 import { seedDemoImpedance } from "./demo-impedance";
+import { seedDemoUnitCaptures } from "./demo-captures-units";
 import { seedDemoPayouts } from "./demo-payouts";
 import { seedDemoApplications } from "./demo-applications";
 import { seedDemoSales } from "./demo-sales";
@@ -63,6 +64,7 @@ export async function seedDemo(): Promise<SeedResult> {
   if (orphans.length) await deleteObjects(orphans);
   created = (await seedDemoCaptures()).created || created;
   created = (await seedDemoImpedance()).created > 0 || created;
+  created = (await seedDemoUnitCaptures()).created > 0 || created;
   created = (await seedDemoPayouts()).connected > 0 || created;
   created = (await seedDemoApplications()).created > 0 || created;
   // Completed sales (and their reviews) need the sellers' payout accounts connected just above.
