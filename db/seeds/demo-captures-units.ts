@@ -32,7 +32,7 @@ interface Made {
   conditions: CaptureConditionsInput;
 }
 
-/** A 1 kHz tone whose second and third harmonics give `thd` (4:3 in amplitude) plus white noise of rms `noiseRms`, both re the fundamental. */
+/** A 1 kHz tone whose second and third harmonics give `thd` (4:3 in amplitude) plus white noise of rms `noiseRms`, both re the fundamental's rms. */
 function tone(peak: number, thd: number, noiseRms: number, seed: number): Float64Array {
   const n = FS * SECONDS;
   const x = new Float64Array(n);
@@ -40,8 +40,8 @@ function tone(peak: number, thd: number, noiseRms: number, seed: number): Float6
   const w = (2 * Math.PI * 1000) / FS;
   const h2 = thd * 0.8;
   const h3 = thd * 0.6; // √(0.8² + 0.6²) = 1
-  // Uniform noise in ±0.5 has rms 1/√12.
-  const k = noiseRms * Math.sqrt(12);
+  // Uniform noise in ±0.5 has rms 1/√12; the fundamental's rms is its peak / √2.
+  const k = (noiseRms * Math.sqrt(12)) / Math.SQRT2;
   for (let i = 0; i < n; i++) x[i] = peak * (Math.sin(w * i) + h2 * Math.sin(2 * w * i + 0.3) + h3 * Math.sin(3 * w * i + 1.1) + k * rnd());
   return x;
 }
@@ -66,7 +66,8 @@ function flatPoints(lowHz: number, highHz: number): { frequencyHz: number; level
   }).filter((p) => p.frequencyHz <= 200_000);
 }
 
-function filesFor(sheet: Sheet, serial: string, seed: number): Made[] {
+/** The files for one unit (exported for tests). */
+export function filesFor(sheet: Sheet, serial: string, seed: number): Made[] {
   const out: Made[] = [];
   const slug = serial.toLowerCase().replace(/[^a-z0-9]+/g, "-");
   const thdL = measured(sheet, "thd", "left");
