@@ -44,8 +44,8 @@ export function TwoToneFields({ kind }: { kind: "separation" | "imd" | "output_i
     );
   return (
     <>
-      <Field label="Damping factor quoted into (Ω)" hint="8 for a loudspeaker output; blank for a line output.">
-        <input form={CAPTURE_FORM_ID} name="nominalLoadOhm" inputMode="decimal" defaultValue="8" className={inputClass} />
+      <Field label="Damping factor quoted into (Ω)" hint="Type 8 for a loudspeaker output; leave blank for a line or phono output.">
+        <input form={CAPTURE_FORM_ID} name="nominalLoadOhm" inputMode="decimal" placeholder="8" className={inputClass} />
       </Field>
       <p className="text-xs text-ink-faint sm:col-span-2">
         Play one steady tone with the output open, then switch the load in (the Load field above) and keep playing, at least half a second
