@@ -15,8 +15,9 @@ import { DEMO_UNITS } from "./demo-data";
 // Synthesised captures behind the figures of every bench-verified demo amplifier, receiver and phono
 // stage, built from the sheet's own typed figures so the captures' readings agree with them: a stereo
 // 1 kHz sine at the THD figures' power (harmonics giving each channel's THD, noise giving the THD+N)
-// and a response sweep through the sheet's −3 dB corners (phono stages: their RIAA sweep as typed).
-// The captures' THD and THD+N replace the typed ones; the captured sweep replaces the typed sweep. A
+// and a response sweep through the sheet's −3 dB corners (phono stages: their RIAA sweep as typed),
+// and for a damping factor a tone played open and then into its load. The captures' THD, THD+N and
+// damping factor replace the typed ones; the captured sweep replaces the typed sweep. A
 // unit whose sheet would lose its mark is left as it was. Idempotent: a sheet with capture figures is
 // left alone. Half a second of 48 kHz audio per sine keeps the whole run to a second or two.
 
@@ -25,7 +26,7 @@ const SECONDS = 0.5;
 const CATEGORIES = ["integrated_amplifier", "power_amplifier", "receiver", "phono_stage"] as const;
 
 interface Made {
-  kind: "sine" | "sweep";
+  kind: "sine" | "sweep" | "output_impedance";
   fileName: string;
   contentType: string;
   bytes: Buffer;
@@ -101,6 +102,24 @@ export function filesFor(sheet: Sheet, serial: string, seed: number): Made[] {
       },
     });
   }
+  // The damping factor from a tone played open and then into 8 Ω: V_loaded = V_open·8/(8 + Z_out), Z_out = 8/DF.
+  const df = measured(sheet, "damping_factor");
+  const dfLoad = df?.conditions.loadOhm ?? 8;
+  if (df && df.value > 0) {
+    const zOut = dfLoad / df.value;
+    const rnd = noise(seed + 2);
+    const x = Float64Array.from({ length: Math.round(FS * 0.6) }, (_, i) => {
+      const level = i < FS * 0.3 ? 0.5 : (0.5 * dfLoad) / (dfLoad + zOut);
+      return level * Math.sin((2 * Math.PI * 1000 * i) / FS) + 2e-6 * rnd();
+    });
+    out.push({
+      kind: "output_impedance",
+      fileName: `${slug}-open-then-${dfLoad}ohm.wav`,
+      contentType: "audio/wav",
+      bytes: wav24([x], FS),
+      conditions: { kind: "output_impedance", loadOhm: dfLoad, nominalLoadOhm: dfLoad, channel: df.channel ?? "left", frequencyHz: 1000 },
+    });
+  }
   const typed = sheet.sweeps.find((s) => s.origin !== "capture");
   const low = measured(sheet, "f3db_low")?.value;
   const high = measured(sheet, "f3db_high")?.value;
@@ -130,6 +149,7 @@ function hasCaptures(sheet: Sheet | null): boolean {
 }
 
 const FROM_SINE = new Set<Reading["quantity"]>(["thd", "thd_n"]);
+const FROM_OUTPUT_IMPEDANCE = new Set<Reading["quantity"]>(["damping_factor", "output_impedance"]);
 
 /** One unit: files to storage, then captures and the changed sheet in one transaction. */
 async function seedUnit(listing: Listing): Promise<boolean> {
@@ -137,7 +157,7 @@ async function seedUnit(listing: Listing): Promise<boolean> {
   if (!row?.sheet || hasCaptures(row.sheet)) return false;
   const made = filesFor(row.sheet, listing.serialNumber ?? listing.id, listing.id.charCodeAt(0) * 7);
   if (!made.length) return false;
-  const files = made.map((f) => ({ ...f, key: randomKey("captures", f.kind === "sine" ? "wav" : "csv") }));
+  const files = made.map((f) => ({ ...f, key: randomKey("captures", f.kind === "sweep" ? "csv" : "wav") }));
   for (const f of files) await putObject(f.key, f.bytes, { contentType: f.contentType, contentLength: f.bytes.length });
   let kept = false;
   try {
@@ -173,6 +193,7 @@ async function seedUnit(listing: Listing): Promise<boolean> {
         });
         if (result.kind === "sine") added.push(...result.readings.filter((r) => FROM_SINE.has(r.quantity)));
         if (result.kind === "sweep") sweeps.push(result.sweep);
+        if (result.kind === "output_impedance") added.push(...result.readings.filter((r) => FROM_OUTPUT_IMPEDANCE.has(r.quantity)));
       }
       const replaced = new Set(added.map((r) => r.quantity));
       sheet.readings = [...sheet.readings.filter((r) => !(r.basis === "measured" && replaced.has(r.quantity))), ...added];
