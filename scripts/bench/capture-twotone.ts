@@ -38,13 +38,13 @@ const steps = (t: number) => 0.5 * Math.sin(TAU * [100, 1000, 10_000][Math.min(2
 const openLoaded = (t: number) => (t < SECONDS / 2 ? 1 : 8 / 8.05) * 0.5 * Math.sin(TAU * 1000 * t);
 
 const CASES: { name: string; bytes: () => Uint8Array; conditions: CaptureConditionsInput }[] = [
-  { name: "separation, three stepped tones", bytes: () => wav(steps, (t) => 1e-4 * steps(t)), conditions: { kind: "separation" } },
   { name: "SMPTE intermodulation", bytes: () => wav(smpte, smpte), conditions: { kind: "imd", method: "smpte" } },
   {
     name: "output impedance, open then loaded",
     bytes: () => wav(openLoaded, openLoaded),
     conditions: { kind: "output_impedance", loadOhm: 8, nominalLoadOhm: 8 },
   },
+  { name: "separation, three stepped tones", bytes: () => wav(steps, (t) => 1e-4 * steps(t)), conditions: { kind: "separation" } },
 ];
 
 const median = (a: number[]) => [...a].sort((x, y) => x - y)[a.length >> 1];

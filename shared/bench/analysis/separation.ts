@@ -83,7 +83,11 @@ export function analyseSeparation(channels: Float64Array[], sampleRate: number, 
   }
   const nyquist = sampleRate / 2;
   const [left, right] = channels.map((x) => powerSpectrum(middleStretch(x), sampleRate, "blackman-harris-7"));
-  const total = (s: PowerSpectrum) => s.power.reduce((a, b) => a + b, 0);
+  const total = (s: PowerSpectrum) => {
+    let sum = 0;
+    for (let k = 0; k < s.power.length; k++) sum += s.power[k];
+    return sum;
+  };
   const driven = c.driven ?? (total(left) >= total(right) ? "left" : "right");
   const [d, u] = driven === "left" ? [left, right] : [right, left];
   const undriven = driven === "left" ? "right" : "left";
