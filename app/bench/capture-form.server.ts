@@ -25,6 +25,9 @@ const NUMBER_FIELDS = [
   "lowToneHz",
   "highToneHz",
   "nominalLoadOhm",
+  "testToneHz",
+  "speedRpm",
+  "tapeSpeedCmS",
 ];
 
 /** A form value as the schema wants it: numbers as numbers, "true"/"false" as booleans; blanks dropped. */
@@ -86,6 +89,10 @@ function flatConditions(form: FormData): Record<string, unknown> {
     lowToneHz: f("lowToneHz"),
     highToneHz: f("highToneHz"),
     nominalLoadOhm: f("nominalLoadOhm"),
+    testToneHz: f("testToneHz"),
+    convention: f("convention"),
+    speedRpm: f("speedRpm"),
+    tapeSpeedCmS: f("tapeSpeedCmS"),
   };
   return Object.fromEntries(Object.entries(raw).filter(([, v]) => v !== undefined));
 }
@@ -111,7 +118,7 @@ export function readConditions(form: FormData, inferred: CaptureKind | null): Co
       return {
         ok: false,
         message:
-          "Say what the capture is: kind must be sine, square, sweep, separation, imd or output_impedance (the file alone does not tell).",
+          "Say what the capture is: kind must be sine, square, sweep, impedance, wow_flutter, separation, imd or output_impedance (the file alone does not tell).",
         issues: [{ path: "kind", message: "required" }],
       };
     }
@@ -147,6 +154,9 @@ const CONDITION_LABELS: Record<string, string> = {
   nominalLoadOhm: "Damping factor quoted into",
   frequenciesHz: "Test tones",
   driven: "Driven channel",
+  testToneHz: "Test tone",
+  speedRpm: "Speed",
+  tapeSpeedCmS: "Tape speed",
 };
 
 const KIND_FIELDS: Record<string, string[]> = {
@@ -170,6 +180,7 @@ const KIND_FIELDS: Record<string, string[]> = {
   separation: ["kind", "driven", "frequenciesHz", "scale", "loadOhm"],
   imd: ["kind", "method", "lowToneHz", "highToneHz", "scale", "loadOhm", "channel", "channelsDriven"],
   output_impedance: ["kind", "loadOhm", "nominalLoadOhm", "frequencyHz", "scale", "channel"],
+  wow_flutter: ["kind", "testToneHz", "convention", "speedRpm", "tapeSpeedCmS", "channel"],
 };
 
 function onlyFieldsOfKind(raw: Record<string, unknown>): Record<string, unknown> {

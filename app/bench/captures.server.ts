@@ -31,6 +31,11 @@ import {
   type SweepAnalysis,
   type SweepCaptureConditions,
   type ImpedanceAnalysis,
+  analyseWowFlutter,
+  wowFlutterConvention,
+  wowFlutterToReadings,
+  type WowFlutterAnalysis,
+  type WowFlutterCaptureConditions,
 } from "@shared/bench/analysis";
 import type { Reading, Sweep } from "@shared/bench/schema";
 import { analyseImpedanceCsv } from "./impedance.server";
@@ -52,7 +57,8 @@ export type CaptureAnalysis =
   | { kind: "sweep"; analysis: SweepAnalysis; readings: Reading[]; sweep: Sweep; format: CaptureFormat }
   | { kind: "separation"; analysis: SeparationAnalysis; readings: Reading[]; format: CaptureFormat }
   | { kind: "imd"; analysis: ImdAnalysis; readings: Reading[]; format: CaptureFormat }
-  | { kind: "output_impedance"; analysis: OutputImpedanceAnalysis; readings: Reading[]; format: CaptureFormat };
+  | { kind: "output_impedance"; analysis: OutputImpedanceAnalysis; readings: Reading[]; format: CaptureFormat }
+  | { kind: "wow_flutter"; analysis: WowFlutterAnalysis; readings: Reading[]; format: CaptureFormat };
 
 const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 
@@ -110,6 +116,7 @@ const FILE_FOR_KIND: Record<CaptureKind, CaptureFileKind> = {
   separation: "wav",
   imd: "wav",
   output_impedance: "wav",
+  wow_flutter: "wav",
 };
 const KIND_WORDS: Record<CaptureKind, string> = {
   sine: "a sine capture (WAV)",
@@ -119,6 +126,7 @@ const KIND_WORDS: Record<CaptureKind, string> = {
   separation: "a stereo capture with one channel driven (WAV)",
   imd: "a two-tone capture (WAV)",
   output_impedance: "a tone played open and then loaded (WAV)",
+  wow_flutter: "a wow & flutter test tone (WAV)",
 };
 
 function checkKind(kind: CaptureKind, file: CaptureFileKind) {
@@ -212,9 +220,34 @@ function sweepLevelUnit(c: SweepCaptureConditions, header: [string, string] | nu
   return /^(v|volts?|vrms|voltage)$/.test(unit.trim()) ? "V" : "dB";
 }
 
+/** A test tone from a test record or tape: the first live channel (or the one the conditions name) is read. */
+function analyseWowFlutterWav(bytes: Uint8Array, c: WowFlutterCaptureConditions, captureId: string): CaptureAnalysis {
+  const { format: wavFormat, data } = readWavFormat(bytes);
+  if (wavFormat.durationS > CAPTURE_LIMITS.maxSeconds) {
+    throw new CaptureError(
+      "too_long",
+      `The capture lasts ${wavFormat.durationS.toFixed(1)} s; captures are limited to ${CAPTURE_LIMITS.maxSeconds} s.`,
+      {
+        seconds: wavFormat.durationS,
+      },
+    );
+  }
+  const d = decodeWavData(wavFormat, data);
+  const { samples, labels } = checkSamples(d);
+  const pick = Math.max(0, c.channel ? labels.indexOf(c.channel) : 0);
+  const analysis = analyseWowFlutter(samples[pick], d.sampleRate, {
+    nominalHz: c.testToneHz,
+    convention: wowFlutterConvention(c),
+    channel: labels[pick],
+  });
+  const { samples: _omit, positiveFullScale: _pfs, ...format } = d;
+  return { kind: "wow_flutter", analysis, readings: wowFlutterToReadings(analysis, c, captureId), format: { file: "wav", ...format } };
+}
+
 export function analyseCapture(bytes: Uint8Array, filename: string, conditions: CaptureConditions, captureId: string): CaptureAnalysis {
   const file = identifyCapture(bytes, filename);
   checkKind(conditions.kind, file);
+  if (conditions.kind === "wow_flutter") return analyseWowFlutterWav(bytes, conditions, captureId);
   if (conditions.kind === "sine") {
     const { format: wavFormat, data } = readWavFormat(bytes);
     checkWav(wavFormat, conditions);

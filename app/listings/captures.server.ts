@@ -33,6 +33,7 @@ const KIND_WORDS = {
   separation: "one-side-driven stereo capture",
   imd: "two-tone capture",
   output_impedance: "open-and-loaded capture",
+  wow_flutter: "wow & flutter test-tone capture",
 } as const;
 
 /** "from a sine capture (WAV, 48 kHz, 24-bit)" — how the figure was obtained, without the file's name. */

@@ -117,6 +117,20 @@ export const outputImpedanceCaptureConditionsSchema = z.strictObject({
   scale: captureScaleSchema.optional(),
   channel: channel.optional(),
 });
+/** A test tone played from a test record or tape: 3150 Hz read as a weighted peak (IEC 60386), or 3000 Hz as WRMS. */
+export const wowFlutterCaptureConditionsSchema = z.strictObject({
+  kind: z.literal("wow_flutter"),
+  testToneHz: z.union([z.literal(3150), z.literal(3000)], { error: "the test tone is 3150 Hz (IEC 60386) or 3000 Hz (WRMS)" }),
+  /** Which reading goes on the sheet; without it, the tone's own convention (`wowFlutterConvention`). */
+  convention: z.enum(["IEC-60386-peak", "WRMS"]).optional(),
+  speedRpm: z.number().positive().max(100).optional(),
+  tapeSpeedCmS: z.number().positive().max(500).optional(),
+  channel: channel.optional(),
+});
+
+/** The stated convention, else 3000 Hz → WRMS and 3150 Hz → weighted peak. */
+export const wowFlutterConvention = (c: { testToneHz: number; convention?: "IEC-60386-peak" | "WRMS" }) =>
+  c.convention ?? (c.testToneHz === 3000 ? "WRMS" : "IEC-60386-peak");
 
 export const captureConditionsSchema = z.discriminatedUnion("kind", [
   sineCaptureConditionsSchema,
@@ -126,6 +140,7 @@ export const captureConditionsSchema = z.discriminatedUnion("kind", [
   separationCaptureConditionsSchema,
   imdCaptureConditionsSchema,
   outputImpedanceCaptureConditionsSchema,
+  wowFlutterCaptureConditionsSchema,
 ]);
 
 export type CaptureConditions = z.infer<typeof captureConditionsSchema>;
@@ -138,3 +153,4 @@ export type CaptureKind = CaptureConditions["kind"];
 export type SeparationCaptureConditions = z.infer<typeof separationCaptureConditionsSchema>;
 export type ImdCaptureConditions = z.infer<typeof imdCaptureConditionsSchema>;
 export type OutputImpedanceCaptureConditions = z.infer<typeof outputImpedanceCaptureConditionsSchema>;
+export type WowFlutterCaptureConditions = z.infer<typeof wowFlutterCaptureConditionsSchema>;

@@ -15,7 +15,8 @@ export type CaptureErrorCode =
   | "csv_not_increasing"
   | "sweep_invalid"
   | "square_no_edge"
-  | "kind_mismatch";
+  | "kind_mismatch"
+  | "wrong_test_tone";
 
 /** HTTP status that fits each code: 413 for size, 422 for a file we read but cannot accept. */
 export const CAPTURE_ERROR_STATUS: Record<CaptureErrorCode, 413 | 422> = {
@@ -34,6 +35,7 @@ export const CAPTURE_ERROR_STATUS: Record<CaptureErrorCode, 413 | 422> = {
   sweep_invalid: 422,
   square_no_edge: 422,
   kind_mismatch: 422,
+  wrong_test_tone: 422,
 };
 
 export class CaptureError extends Error {

@@ -18,3 +18,5 @@ export * from "./imd";
 export * from "./separation";
 export * from "./output-impedance";
 export * from "./twotone-readings";
+export * from "./wow-flutter";
+export { FLUTTER_WEIGHTING_PROTOTYPE, flutterWeighting, flutterWeightingDb, applyFlutterWeighting } from "./flutter-weighting";

@@ -9,13 +9,17 @@ import type { ImpedanceAnalysis } from "./impedance";
 import type { ImdAnalysis } from "./imd";
 import type { SeparationAnalysis } from "./separation";
 import type { OutputImpedanceAnalysis } from "./output-impedance";
+import type { WowFlutterAnalysis } from "./wow-flutter";
 
 export type AnyAnalysis =
   | SineAnalysis
   | SquareAnalysis
   | SweepAnalysis
   | ImpedanceAnalysis
-  | SeparationAnalysis | ImdAnalysis | OutputImpedanceAnalysis;
+  | SeparationAnalysis
+  | ImdAnalysis
+  | OutputImpedanceAnalysis
+  | WowFlutterAnalysis;
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);
 const isFigure = (x: unknown) => isRecord(x) && typeof x.value === "number";
@@ -48,6 +52,8 @@ function fits(x: unknown): x is AnyAnalysis {
       return Array.isArray(x.channels) && x.channels.every((c) => isRecord(c) && isRecord(c.imd) && Array.isArray(c.products));
     case "output_impedance":
       return Array.isArray(x.channels) && x.channels.every((c) => isRecord(c) && isFigure(c.outputImpedance) && Array.isArray(c.levels));
+    case "wow_flutter":
+      return [x.meanFrequency, x.speedError, x.weightedPeak, x.weightedRms].every(isFigure) && Array.isArray(x.trace);
     default:
       return false;
   }

@@ -4,7 +4,8 @@ import { isOneOf } from "../../one-of";
 import type { SineAnalysis } from "./sine";
 import type { SquareAnalysis } from "./square";
 import type { SweepAnalysis } from "./sweep";
-import type { SineCaptureConditions, SquareCaptureConditions, SweepCaptureConditions } from "./conditions";
+import type { SineCaptureConditions, SquareCaptureConditions, SweepCaptureConditions, WowFlutterCaptureConditions } from "./conditions";
+import type { WowFlutterAnalysis } from "./wow-flutter";
 
 type Channel = NonNullable<Reading["channel"]>;
 const MAX_SWEEP_POINTS = 4000;
@@ -154,4 +155,35 @@ export function sweepToSheet(a: SweepAnalysis, c: SweepCaptureConditions, captur
       }),
     );
   return { sweep, readings };
+}
+
+/** Percent with two decimals, for notes ("0.05 %"). */
+const pct2 = (ratio: number) => `${(ratio * 100).toFixed(3).replace(/0$/, "")} %`;
+
+/**
+ * A wow & flutter capture gives the speed error and one wow & flutter figure in the stated convention:
+ * the two-sigma weighted peak (IEC 60386 / AES6-2008, 3150 Hz) or the weighted rms (WRMS, 3000 Hz).
+ */
+export function wowFlutterToReadings(a: WowFlutterAnalysis, c: WowFlutterCaptureConditions, captureId: string): Reading[] {
+  const wrms = a.conditions.convention === "WRMS";
+  const conditions: Conditions = { testToneHz: c.testToneHz, speedRpm: c.speedRpm, tapeSpeedCmS: c.tapeSpeedCmS };
+  const over = `over ${a.conditions.analysedS.toFixed(1)} s`;
+  return [
+    reading(captureId, {
+      quantity: "speed_error",
+      value: a.speedError.value,
+      unit: "%",
+      conditions,
+      note: `mean tone ${a.meanFrequency.value.toFixed(2)} Hz against ${c.testToneHz} Hz, ${over}; drift ${pct2(a.drift.value)} (largest minus smallest 1 s average)`,
+    }),
+    reading(captureId, {
+      quantity: "wow_flutter",
+      value: wrms ? a.weightedRms.value : a.weightedPeak.value,
+      unit: "%",
+      conditions: { ...conditions, weighting: wrms ? "WRMS" : "IEC-60386-peak" },
+      note: wrms
+        ? `weighted rms ${over}; two-sigma weighted peak ${pct2(a.weightedPeak.value)}; unweighted ${pct2(a.unweightedPeak.value)}`
+        : `two-sigma weighted peak (AES6-2008) ${over}; WRMS ${pct2(a.weightedRms.value)}; unweighted ${pct2(a.unweightedPeak.value)}`,
+    }),
+  ];
 }
