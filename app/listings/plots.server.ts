@@ -1,14 +1,18 @@
 import { describeConditions, formatValue, type BenchSheet } from "@shared/bench";
 import { parseTwoColumnCsv, SQUARE_COLUMNS, type SineAnalysis, type SquareCaptureConditions } from "@shared/bench/analysis";
 import type { Capture } from "~/models/capture.server";
+import { ownListing } from "./access.server";
+import { storedSheet } from "./bench.server";
+import { capturesForSheet } from "./captures.server";
 import { getObjectBuffer } from "~/services/storage.server";
 import { dbDomain, decimateMinMax, responseSeries } from "./plot-math";
 import { impedancePlots } from "./plots-impedance.server";
 import { imdPlots, outputImpedancePlots, separationPlots } from "./plots-twotone.server";
-import type { PlotSet, ResponsePlot, SpectrumPlot, SquarePlot } from "./types";
+import type { PlotSet, ResponsePlot, SpectrumPlot, SpeedDriftPlot, SquarePlot } from "./types";
 
-// Plot data for the listing page, from the bench sheet's sweeps and the seller's analysed captures.
-// Only measured data is ever plotted; a sheet without sweeps or captures simply has no plots.
+// Plot data for the listing page and the seller's editor, from the bench sheet's sweeps and the seller's
+// analysed captures. Only measured data is ever plotted; a sheet without sweeps or captures simply has
+// no plots. Each capture kind has one function here that turns its captures into its plots.
 
 const MAX_PLOTS_EACH = 3;
 const CHANNEL_LABEL: Record<string, string> = { left: "Left", right: "Right", mono: "Mono", both: "Both channels" };
@@ -17,7 +21,7 @@ const CHANNEL_WORDS: Record<string, string> = { left: "left channel", right: "ri
 const tidy = (x: number) => Number(x.toPrecision(3));
 
 export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, Capture>): Promise<PlotSet> {
-  if (!sheet) return { spectra: [], responses: [], squares: [] };
+  if (!sheet) return { spectra: [], responses: [], squares: [], speedDrifts: [] };
   const list = [...captures.values()];
   return {
     spectra: [...spectra(list.filter((c) => c.kind === "sine")), ...imdPlots(list), ...separationPlots(list)],
@@ -27,7 +31,16 @@ export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, C
       list.filter((c) => c.kind === "impedance"),
       sheet.readings.find((r) => r.quantity === "nominal_impedance")?.value,
     ),
+    speedDrifts: speedDrifts(list.filter((c) => c.kind === "wow_flutter")),
   };
+}
+
+/** The seller's own view while editing: the plots of the saved sheet's captures, before publishing. */
+export async function plotsForDraft(listingId: string, userId: string): Promise<PlotSet> {
+  const listing = await ownListing(listingId, userId);
+  const { sheet } = await storedSheet(listing.id);
+  const captures = sheet ? await capturesForSheet(sheet, listing.sellerId) : new Map<string, Capture>();
+  return plotsFor(sheet, captures);
 }
 
 /** The channel a capture's conditions name, for the kinds that have one. */
@@ -194,6 +207,43 @@ async function squares(captures: Capture[]): Promise<SquarePlot[]> {
         { label: "Rise time (10–90 %)", display: formatValue(a.riseTime.value, "time") },
         { label: "Overshoot", display: `${a.overshoot.value.toFixed(1)} %` },
         { label: "Implied bandwidth (0.35 / t_rise)", display: formatValue(a.impliedBandwidth.value, "frequency") },
+      ],
+    });
+  }
+  return out;
+}
+
+// ---- speed drift (wow & flutter) -----------------------------------------------------------------
+
+const ratioPct = (r: number, signed = false) => {
+  const s = `${(Math.abs(r) * 100).toFixed(Math.abs(r) < 0.001 ? 3 : 2)} %`;
+  return signed ? `${r < 0 ? "−" : "+"}${s}` : s;
+};
+
+function speedDrifts(captures: Capture[]): SpeedDriftPlot[] {
+  const out: SpeedDriftPlot[] = [];
+  for (const capture of captures.slice(0, MAX_PLOTS_EACH)) {
+    const a = capture.analysis;
+    if (a?.kind !== "wow_flutter" || a.trace.length < 2) continue;
+    const c = capture.conditions?.kind === "wow_flutter" ? capture.conditions : null;
+    const conditions = [
+      `${formatValue(a.conditions.nominalHz, "frequency")} test tone`,
+      c?.speedRpm ? `${formatValue(c.speedRpm, "number")} rpm` : null,
+      c?.tapeSpeedCmS ? `${formatValue(c.tapeSpeedCmS, "number")} cm/s` : null,
+      `${a.conditions.analysedS.toFixed(1)} s read`,
+      `${formatValue(a.conditions.sampleRate, "frequency")} sampling`,
+    ];
+    out.push({
+      id: `speed-${out.length}`,
+      title: "Speed drift",
+      conditions: conditions.filter(Boolean).join(", "),
+      points: a.trace,
+      figures: [
+        { label: "Wow & flutter, weighted peak (IEC 60386, two-sigma)", display: `±${ratioPct(a.weightedPeak.value)}` },
+        { label: "Wow & flutter, weighted rms (WRMS)", display: ratioPct(a.weightedRms.value) },
+        { label: "Unweighted peak", display: `±${ratioPct(a.unweightedPeak.value)}` },
+        { label: "Speed error", display: ratioPct(a.speedError.value, true) },
+        { label: "Drift (1 s averages, largest − smallest)", display: ratioPct(a.drift.value) },
       ],
     });
   }

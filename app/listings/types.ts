@@ -174,12 +174,23 @@ export interface SquarePlot {
   axes?: { x: { label: string; unit: string }; y: { label: string; unit: string } };
 }
 
+/** A wow & flutter capture: the instantaneous speed against time, captioned with its weighted figures. */
+export interface SpeedDriftPlot {
+  id: string;
+  title: string;
+  conditions: string;
+  /** Time in s from the start of the tone; speed re nominal in %. */
+  points: { t: number; percent: number }[];
+  figures: { label: string; display: string }[];
+}
+
 export interface PlotSet {
   spectra: SpectrumPlot[];
   responses: ResponsePlot[];
   squares: SquarePlot[];
   /** Loudspeakers' impedance sweeps (app/listings/plots-impedance.server.ts). */
   impedances?: ImpedancePlot[];
+  speedDrifts: SpeedDriftPlot[];
 }
 
 export interface ImpedancePlot {

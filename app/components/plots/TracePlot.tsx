@@ -19,22 +19,22 @@ export function TracePlot({
   x,
   y,
   height = 240,
+  zero,
 }: {
   title: string;
   points: { x: number; y: number }[];
   /** Axis titles with their units, and the unit alone for the description: { label: "Time (µs)", unit: "µs" }. */
   x: { label: string; unit: string; domain?: [number, number] };
-  y: { label: string; unit: string };
+  /** includeZero: the axis reaches 0 (a speed plot shows where nominal is). */
+  y: { label: string; unit: string; includeZero?: boolean; minSpan?: number };
   height?: number;
+  /** A firmer line at this y value. */
+  zero?: number;
 }) {
   const descriptionId = useId();
   const xs = points.map((p) => p.x);
   const xDomain: [number, number] = x.domain ?? [Math.min(...xs), Math.max(...xs)];
-  const yFit = niceDomain(
-    points.map((p) => p.y),
-    0,
-    6,
-  );
+  const yFit = niceDomain(y.includeZero ? [0, ...points.map((p) => p.y)] : points.map((p) => p.y), y.minSpan ?? 0, 6);
   const sx = linearScale(xDomain);
   const sy = linearScale(yFit.domain);
   return (
@@ -45,6 +45,7 @@ export function TracePlot({
         height={height}
         x={{ label: x.label, scale: sx, ticks: linearTicks(xDomain, niceStep(xDomain[1] - xDomain[0], 5)) }}
         y={{ label: y.label, scale: sy, ticks: linearTicks(yFit.domain, yFit.step) }}
+        zero={zero}
       >
         <path
           data-series="trace"

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import type { PlotSet, ResponsePlot, SpectrumPlot } from "../types";
+import type { PlotSet, ResponsePlot, SpectrumPlot, SpeedDriftPlot } from "../types";
 import { CaptureTag } from "./CaptureTag";
-import { ImpedanceChart, ResponseChart, SpectrumChart, SquareChart } from "./charts";
+import { ImpedanceChart, ResponseChart, SpectrumChart, SpeedDriftChart, SquareChart } from "./charts";
 
 // The plots are SVG drawn on the server: they show before any script runs, and the numbers behind
 // each are in a table beside it for readers who would rather read.
@@ -113,6 +113,29 @@ function ResponseNumbers({ plot }: { plot: ResponsePlot }) {
   );
 }
 
+function SpeedNumbers({ plot }: { plot: SpeedDriftPlot }) {
+  const step = Math.max(1, Math.ceil(plot.points.length / 40));
+  const rows = plot.points.filter((_, i) => i % step === 0);
+  return (
+    <table className="min-w-full">
+      <thead>
+        <tr>
+          <th className={th}>Time, s</th>
+          <th className={th}>Speed re nominal, %</th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((p) => (
+          <tr key={p.t}>
+            <td className={td}>{p.t.toFixed(2)}</td>
+            <td className={td}>{`${p.percent >= 0 ? "+" : "−"}${Math.abs(p.percent).toFixed(3)}`}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 function FigureList({ figures }: { figures: { label: string; display: string }[] }) {
   return (
     <dl className="divide-y divide-rule/60 text-sm">
@@ -126,16 +149,24 @@ function FigureList({ figures }: { figures: { label: string; display: string }[]
   );
 }
 
-export function Plots({ plots }: { plots: PlotSet }) {
-  const count = plots.spectra.length + plots.responses.length + plots.squares.length + (plots.impedances?.length ?? 0);
+export function Plots({
+  plots,
+  heading = "What the bench saw",
+  lede = "Plotted from the seller's sweeps and captures, exactly as measured.",
+}: {
+  plots: PlotSet;
+  heading?: string;
+  lede?: string;
+}) {
+  const count = plots.spectra.length + plots.responses.length + plots.squares.length + plots.speedDrifts.length + (plots.impedances?.length ?? 0);
   if (count === 0) return null;
   return (
     <section aria-labelledby="plots-heading" className="below-fold space-y-4">
       <div className="space-y-1">
         <h2 id="plots-heading" className="text-2xl">
-          What the bench saw
+          {heading}
         </h2>
-        <p className="text-sm text-ink-soft">Plotted from the seller's sweeps and captures, exactly as measured.</p>
+        <p className="text-sm text-ink-soft">{lede}</p>
       </div>
       <div className="grid gap-4 xl:grid-cols-2">
         {plots.spectra.map((p) => (
@@ -173,6 +204,12 @@ export function Plots({ plots }: { plots: PlotSet }) {
             numbers={<FigureList figures={p.figures} />}
           >
             <ImpedanceChart plot={p} />
+              <FigureList figures={p.figures} />
+            </PlotFigure>
+          ))}
+        {plots.speedDrifts.map((p) => (
+          <PlotFigure key={p.id} wide id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<SpeedNumbers plot={p} />}>
+            <SpeedDriftChart plot={p} />
             <FigureList figures={p.figures} />
           </PlotFigure>
         ))}

@@ -1,6 +1,6 @@
 import { FrequencyResponsePlot, HarmonicSpectrumPlot, ImpedancePlot, TracePlot } from "~/components/plots";
 import { round125 } from "~/components/plots/scale";
-import type { ImpedancePlot as ImpedancePlotData, ResponsePlot, SpectrumPlot, SquarePlot } from "../types";
+import type { ImpedancePlot as ImpedancePlotData, ResponsePlot, SpectrumPlot, SpeedDriftPlot, SquarePlot } from "../types";
 
 // The listing's bench plots, drawn with the shared plot components on the server.
 
@@ -82,6 +82,19 @@ export function ImpedanceChart({ plot }: { plot: ImpedancePlotData }) {
       title={plot.title}
       points={plot.points.map((p) => ({ hz: p.f, ohms: p.ohms, phase: p.phase }))}
       floorOhm={plot.floorOhm}
+    />
+  );
+}
+
+export function SpeedDriftChart({ plot }: { plot: SpeedDriftPlot }) {
+  const last = plot.points[plot.points.length - 1]?.t || 1;
+  return (
+    <TracePlot
+      title={`${plot.title}: speed against time`}
+      points={plot.points.map((p) => ({ x: p.t, y: p.percent }))}
+      x={{ label: "Time (s)", unit: "s", domain: [0, Math.ceil(last)] }}
+      y={{ label: "Speed re nominal (%)", unit: "%", includeZero: true, minSpan: 0.1 }}
+      zero={0}
     />
   );
 }

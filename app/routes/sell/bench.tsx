@@ -8,11 +8,22 @@ import { saveBenchSheet } from "~/listings/bench.server";
 import { ListingInputError, ListingNotFound } from "~/listings/errors.server";
 import { notFoundPage, stepFailure } from "~/listings/http.server";
 import { BenchSheetEditor } from "~/sell/bench/BenchSheetEditor";
+import { plotsForDraft } from "~/listings/plots.server";
+import { Plots } from "~/listings/ui/Plots";
 import { useEditor } from "./editor";
 import { readSheetForm, readSheetState, sheetToState, type SheetFormState } from "@shared/bench-form/state";
 
 // The bench sheet step. Without JavaScript the whole form posts here and the server reads it the same
 // way the browser does; with it, the sheet autosaves through the listing API and outcomes update live.
+
+// The saved sheet's capture plots; autosave goes through a fetcher, so they refresh after each save.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const plots = await plotsForDraft(params.id, user.id).catch((e: unknown) =>
+    e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e),
+  );
+  return { plots };
+}
 
 type Failure = { ok: false; state: SheetFormState; formError?: string; issues: string[] };
 
@@ -51,7 +62,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-export default function BenchStep({ actionData }: Route.ComponentProps) {
+export default function BenchStep({ actionData, loaderData }: Route.ComponentProps) {
   const { listing, sheet } = useEditor();
   const busy = useNavigation().state === "submitting";
   const failed = actionData && !actionData.ok ? actionData : null;
@@ -66,6 +77,11 @@ export default function BenchStep({ actionData }: Route.ComponentProps) {
         formError={failed?.formError}
         busy={busy}
         notice={actionData?.ok ? actionData.notice : undefined}
+      />
+      <Plots
+        plots={loaderData.plots}
+        heading="Your captures, plotted"
+        lede="Drawn from the captures on the saved sheet, as buyers will see them once the listing is published."
       />
     </>
   );

@@ -205,10 +205,10 @@ export function BenchSheetEditor({
 
           <Section
             title="Captures"
-            lede="Upload the raw file behind a figure: a WAV of the output sine into the dummy load, a square-wave or sweep CSV. The bench analyses it and its figures join the sheet, marked as from a capture."
+            lede="Upload the raw file behind a figure: a WAV of the output sine into the dummy load, a square-wave or sweep CSV, or a WAV of the 3150 Hz test tone played from a test record or tape. The bench analyses it and its figures join the sheet, marked as from a capture."
           >
             {hydrated ? (
-              <CapturePanel onCapture={foldCapture} />
+              <CapturePanel onCapture={foldCapture} category={state.category} />
             ) : (
               <p className="text-sm text-ink-soft">Uploading captures needs JavaScript; typed readings work without it.</p>
             )}

@@ -7,8 +7,9 @@ import { z } from "zod";
 import { describeReading, readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench";
 import { isOneOf } from "@shared/one-of";
 import { TwoToneFields } from "./TwoToneFields";
+import type { Category } from "@shared/bench/quantities";
 
-const CAPTURE_KINDS = ["sine", "square", "sweep", "impedance", "separation", "imd", "output_impedance"] as const;
+const CAPTURE_KINDS = ["sine", "square", "sweep", "impedance", "separation", "imd", "output_impedance", "wow_flutter"] as const;
 type CaptureKind = (typeof CAPTURE_KINDS)[number];
 
 // Raw measurement files (WAV, CSV) sent to the capture API with the conditions they were taken in; the
@@ -84,12 +85,47 @@ function Field({ label, children, className }: { label: string; children: React.
   );
 }
 
+/** The test tone and the speed it was played at; the sheet's speed rule needs the speed. */
+function WowFlutterFields({ category }: { category?: Category }) {
+  return (
+    <>
+      <Field label="Test tone">
+        <select form={CAPTURE_FORM_ID} name="testToneHz" className={selectClass} defaultValue="3150">
+          <option value="3150">3150 Hz, weighted peak (IEC 60386)</option>
+          <option value="3000">3000 Hz, weighted rms (WRMS)</option>
+        </select>
+      </Field>
+      {category === "tape_deck" ? (
+        <Field label="Tape speed">
+          <select form={CAPTURE_FORM_ID} name="tapeSpeedCmS" className={selectClass} defaultValue="4.76">
+            <option value="4.76">4.76 cm/s</option>
+            <option value="9.5">9.5 cm/s</option>
+            <option value="19">19 cm/s</option>
+            <option value="38">38 cm/s</option>
+          </select>
+        </Field>
+      ) : (
+        <Field label="Speed">
+          <select form={CAPTURE_FORM_ID} name="speedRpm" className={selectClass} defaultValue="33.333">
+            <option value="33.333">33⅓ rpm</option>
+            <option value="45">45 rpm</option>
+            <option value="78">78 rpm</option>
+          </select>
+        </Field>
+      )}
+    </>
+  );
+}
+
 /** The id of the (empty) form the capture inputs belong to; it sits outside the sheet's form so the two never mix. */
 export const CAPTURE_FORM_ID = "capture-form";
 
-export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => void }) {
+/** Turntables and tape decks are measured from a test tone; everything else starts from a sine. */
+const firstKind = (category?: Category): CaptureKind => (category === "turntable" || category === "tape_deck" ? "wow_flutter" : "sine");
+
+export function CapturePanel({ onCapture, category }: { onCapture: (c: CaptureResult) => void; category?: Category }) {
   const fileId = useId();
-  const [kind, setKind] = useState<CaptureKind>("sine");
+  const [kind, setKind] = useState<CaptureKind>(firstKind(category));
   const [items, setItems] = useState<Item[]>([]);
   const lastKey = useRef(0);
   const [problem, setProblem] = useState<string | null>(null);
@@ -111,7 +147,7 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
     }
     if (finish(key, file.name, answer)) {
       form.reset();
-      setKind("sine");
+      setKind(firstKind(category));
     }
   }
 
@@ -174,21 +210,26 @@ export function CapturePanel({ onCapture }: { onCapture: (c: CaptureResult) => v
               <option value="separation">One channel driven (separation)</option>
               <option value="imd">Two tones (intermodulation)</option>
               <option value="output_impedance">Tone open, then loaded (output impedance)</option>
+              <option value="wow_flutter">Test tone from a test record or tape (wow & flutter, speed)</option>
             </select>
           </Field>
-          <Field label="Load">
-            <input
-              form={CAPTURE_FORM_ID}
-              name="loadOhm"
-              inputMode="decimal"
-              placeholder="8"
-              className={inputClass}
-              aria-describedby={`${fileId}-ohm`}
-            />
-            <span id={`${fileId}-ohm`} className="text-xs text-ink-faint">
-              Ω, the dummy load the output drove
-            </span>
-          </Field>
+          {kind === "wow_flutter" ? (
+            <WowFlutterFields category={category} />
+          ) : (
+            <Field label="Load">
+              <input
+                form={CAPTURE_FORM_ID}
+                name="loadOhm"
+                inputMode="decimal"
+                placeholder="8"
+                className={inputClass}
+                aria-describedby={`${fileId}-ohm`}
+              />
+              <span id={`${fileId}-ohm`} className="text-xs text-ink-faint">
+                Ω, the dummy load the output drove
+              </span>
+            </Field>
+          )}
           <Field label="Channel (for a mono file)">
             <select form={CAPTURE_FORM_ID} name="channel" className={selectClass} defaultValue="">
               <option value="">Stereo file: left, right</option>

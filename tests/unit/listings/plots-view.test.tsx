@@ -30,7 +30,7 @@ const riaa: ResponsePlot = {
 
 describe("the listing's plots", () => {
   it("draws an RIAA sweep as the measured level over the dashed curve, and the deviation beneath", () => {
-    const host = serverRender({ spectra: [], squares: [], responses: [riaa] });
+    const host = serverRender({ spectra: [], squares: [], responses: [riaa], speedDrifts: [] });
     const images = [...host.querySelectorAll('[role="img"]')];
     expect(images.map((i) => i.getAttribute("aria-label"))).toEqual([
       "Phono equalisation against the RIAA curve",
@@ -46,6 +46,6 @@ describe("the listing's plots", () => {
     expect(host.innerHTML).not.toContain("recharts");
   });
   it("shows nothing when the sheet has nothing to plot", () => {
-    expect(serverRender({ spectra: [], squares: [], responses: [] }).innerHTML).toBe("");
+    expect(serverRender({ spectra: [], squares: [], responses: [], speedDrifts: [] }).innerHTML).toBe("");
   });
 });
