@@ -13,6 +13,7 @@ import { drawDemoPhotos } from "./demo-photo-files";
 import { seedDemoCaptures } from "./demo-captures";
 import { seedDemoImpedance } from "./demo-impedance";
 import { seedDemoUnitCaptures } from "./demo-captures-units";
+import { seedDemoWowCaptures } from "./demo-wow-captures";
 import { seedDemoPayouts } from "./demo-payouts";
 import { seedDemoApplications } from "./demo-applications";
 import { seedDemoSales } from "./demo-sales";
@@ -65,6 +66,7 @@ export async function seedDemo(): Promise<SeedResult> {
   created = (await seedDemoCaptures()).created || created;
   created = (await seedDemoImpedance()).created > 0 || created;
   created = (await seedDemoUnitCaptures()).created > 0 || created;
+  created = (await seedDemoWowCaptures()).created > 0 || created;
   created = (await seedDemoPayouts()).connected > 0 || created;
   created = (await seedDemoApplications()).created > 0 || created;
   // Completed sales (and their reviews) need the sellers' payout accounts connected just above.
