@@ -187,6 +187,7 @@ async function serverFigures(): Promise<Section> {
 const figures = runs("capture") ? await captureFigures() : [];
 if (runs("capture")) figures.push(...(await import("./bench/capture-impedance")).impedanceCaptureFigures());
 if (runs("capture")) figures.push(...(await import("./bench/capture-twotone")).captureTwoToneFigures());
+if (runs("capture")) figures.push(...(await import("./bench/capture-wow-flutter")).wowFlutterFigures());
 const sheet: Awaited<ReturnType<typeof sheetFigures>> = runs("sheet") ? await sheetFigures() : { figures: [] };
 figures.push(...sheet.figures);
 const notes = [sheet.note];
