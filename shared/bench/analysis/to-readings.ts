@@ -157,8 +157,8 @@ export function sweepToSheet(a: SweepAnalysis, c: SweepCaptureConditions, captur
   return { sweep, readings };
 }
 
-/** Percent with two decimals, for notes ("0.05 %"). */
-const pct2 = (ratio: number) => `${(ratio * 100).toFixed(3).replace(/0$/, "")} %`;
+/** Percent to a thousandth, for notes ("0.050 %"). */
+const pct2 = (ratio: number) => `${(ratio * 100).toFixed(3)} %`;
 
 /**
  * A wow & flutter capture gives the speed error and one wow & flutter figure in the stated convention:
