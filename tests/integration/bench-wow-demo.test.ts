@@ -27,7 +27,7 @@ describe("demo turntables and tape decks measured from a test tone", () => {
       expect(wf, listing.serialNumber!).toHaveLength(1);
       expect(speed[0].origin).toBe("capture");
       expect(wf[0].captureId).toBe(speed[0].captureId);
-      const capture = (await Capture.findByPk(speed[0].captureId!))!;
+      const capture = (await Capture.findByPk(speed[0].captureId))!;
       expect(capture.kind).toBe("wow_flutter");
       expect(capture.ownerId).toBe(listing.sellerId);
       const a = capture.analysis!;

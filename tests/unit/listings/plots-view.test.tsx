@@ -45,6 +45,30 @@ describe("the listing's plots", () => {
     expect(images[1].textContent).toContain("Deviation (dB)");
     expect(host.innerHTML).not.toContain("recharts");
   });
+  it("draws a wow & flutter capture as speed against time, with a firm line at nominal and the weighted figures", () => {
+    const points = Array.from({ length: 50 }, (_, i) => ({ t: i * 0.2, percent: 0.1 + 0.05 * Math.sin(i) }));
+    const host = serverRender({
+      spectra: [],
+      squares: [],
+      responses: [],
+      speedDrifts: [
+        {
+          id: "speed-0",
+          title: "Speed drift",
+          conditions: "3.15 kHz test tone, 33.3 rpm",
+          points,
+          figures: [{ label: "Wow & flutter, weighted peak (IEC 60386, two-sigma)", display: "±0.050 %" }],
+        },
+      ],
+    });
+    const [image] = [...host.querySelectorAll('[role="img"]')];
+    expect(image.getAttribute("aria-label")).toBe("Speed drift: speed against time");
+    expect(image.textContent).toContain("Speed re nominal (%)");
+    expect(image.textContent).toContain("Time (s)");
+    // The axis reaches 0 %, so the trace sits visibly above nominal (0.05–0.15 % fast).
+    expect([...image.querySelectorAll("span")].map((s) => s.textContent)).toContain("0");
+    expect(host.querySelector("figure")?.textContent).toContain("±0.050 %");
+  });
   it("shows nothing when the sheet has nothing to plot", () => {
     expect(serverRender({ spectra: [], squares: [], responses: [], speedDrifts: [] }).innerHTML).toBe("");
   });
