@@ -227,8 +227,8 @@ function speedDrifts(captures: Capture[]): SpeedDriftPlot[] {
     if (a?.kind !== "wow_flutter" || a.trace.length < 2) continue;
     const c = capture.conditions?.kind === "wow_flutter" ? capture.conditions : null;
     const conditions = [
-      `${formatValue(a.conditions.nominalHz, "frequency")} test tone`,
-      c?.speedRpm ? `${formatValue(c.speedRpm, "number")} rpm` : null,
+      `${a.conditions.nominalHz} Hz test tone`,
+      c?.speedRpm ? `${Math.abs(c.speedRpm - 100 / 3) < 0.01 ? "33⅓" : formatValue(c.speedRpm, "number")} rpm` : null,
       c?.tapeSpeedCmS ? `${formatValue(c.tapeSpeedCmS, "number")} cm/s` : null,
       `${a.conditions.analysedS.toFixed(1)} s read`,
       `${formatValue(a.conditions.sampleRate, "frequency")} sampling`,

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { Listing } from "~/models/index.server";
-import { launchBrowser, newContext, screenshot } from "./support/browser";
+import path from "node:path";
+import { SCREEN_DIR, launchBrowser, newContext, screenshot } from "./support/browser";
 import { signIn } from "./support/accounts";
 import { twoToneJpeg } from "../support/photo-files";
 import { wavFromSamples } from "../support/capture-files";
@@ -66,6 +67,14 @@ describe("listing a turntable measured from a test record", () => {
     });
     expect(photo.status()).toBeLessThan(300);
 
+    // A serviced unit needs a restoration log entry.
+    await page.goto(`/sell/${id}/restoration`);
+    await page.getByLabel("Date").fill("2026-10-14");
+    await page.getByLabel("Done by").fill("Bench 1");
+    await page.getByLabel("Work done").fill("New belt, main bearing cleaned and re-oiled, speed set on a 3150 Hz test record.");
+    await page.getByRole("button", { name: "Add to the log" }).click();
+    await page.getByRole("article", { name: "Log entry of 2026-10-14" }).waitFor();
+
     // The bench step: for a turntable the capture form starts at the test tone, 3150 Hz, 33⅓ rpm.
     await page.goto(`/sell/${id}/bench`);
     expect(await page.locator('select[name="kind"][form="capture-form"]').inputValue()).toBe("wow_flutter");
@@ -86,10 +95,11 @@ describe("listing a turntable measured from a test record", () => {
     const plot = page.getByRole("figure", { name: "Speed drift" });
     await plot.waitFor({ timeout: 30_000 });
     await plot.getByRole("img", { name: /Speed drift: speed against time/ }).waitFor();
-    expect(await plot.textContent()).toMatch(/3\.15 kHz test tone, 33\.3 rpm/);
+    expect(await plot.textContent()).toMatch(/3150 Hz test tone, 33⅓ rpm/);
     expect(await plot.textContent()).toMatch(/Speed error\s*\+0\.20 %/);
     await plot.scrollIntoViewIfNeeded();
     await screenshot(page, "sell-turntable-speed-drift-1280");
+    await plot.screenshot({ path: path.join(SCREEN_DIR, "sell-turntable-speed-drift-plot-1280.png") });
 
     // Photos finish in the background; publishing waits for them.
     await page.goto(`/sell/${id}/photos`);
@@ -108,9 +118,10 @@ describe("listing a turntable measured from a test record", () => {
     expect(await published.textContent()).toMatch(/weighted peak \(IEC 60386, two-sigma\)\s*±0\.0[23]\d* %/);
     await published.scrollIntoViewIfNeeded();
     await screenshot(page, "listing-turntable-speed-drift-1280");
+    await published.screenshot({ path: path.join(SCREEN_DIR, "listing-turntable-speed-drift-plot-1280.png") });
     await page.setViewportSize({ width: 375, height: 812 });
     await published.scrollIntoViewIfNeeded();
-    await screenshot(page, "listing-turntable-speed-drift-375");
+    await published.screenshot({ path: path.join(SCREEN_DIR, "listing-turntable-speed-drift-plot-375.png") });
     await context.close();
   }, 300_000);
 });

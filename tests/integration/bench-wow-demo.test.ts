@@ -46,7 +46,7 @@ describe("demo turntables and tape decks measured from a test tone", () => {
     const body = (isData(value) ? value.data : value) as ListingPageData;
     const [plot] = body.plots.speedDrifts;
     expect(plot.title).toBe("Speed drift");
-    expect(plot.conditions).toContain("3.15 kHz test tone");
+    expect(plot.conditions).toContain("3150 Hz test tone, 33⅓ rpm");
     expect(plot.points.length).toBeGreaterThan(100);
     // The typed sheet said 0.10 % fast and 0.05 % weighted; the tone was made to read the same.
     const mean = plot.points.reduce((s, p) => s + p.percent, 0) / plot.points.length;

@@ -142,7 +142,7 @@ function FigureList({ figures }: { figures: { label: string; display: string }[]
       {figures.map((f) => (
         <div key={f.label} className="flex items-baseline justify-between gap-3 py-1">
           <dt className="text-ink-soft">{f.label}</dt>
-          <dd className="figures text-ink">{f.display}</dd>
+          <dd className="figures whitespace-nowrap text-ink">{f.display}</dd>
         </div>
       ))}
     </dl>

@@ -55,7 +55,7 @@ describe("the listing's plots", () => {
         {
           id: "speed-0",
           title: "Speed drift",
-          conditions: "3.15 kHz test tone, 33.3 rpm",
+          conditions: "3150 Hz test tone, 33⅓ rpm",
           points,
           figures: [{ label: "Wow & flutter, weighted peak (IEC 60386, two-sigma)", display: "±0.050 %" }],
         },
