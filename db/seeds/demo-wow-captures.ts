@@ -4,7 +4,7 @@ import { BenchSheet, Listing } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { analyseCapture } from "~/bench/captures.server";
 import { deleteObjects, putObject, randomKey } from "~/services/storage.server";
-import { captureConditionsSchema, flutterWeighting, flutterWeightingDb } from "@shared/bench/analysis";
+import { analyseWowFlutter, captureConditionsSchema, flutterWeighting, flutterWeightingDb } from "@shared/bench/analysis";
 import type { Reading } from "@shared/bench/schema";
 import { checkBenchSheet } from "@shared/bench/verdict";
 import { listingFacets } from "@shared/listing-facets";
@@ -26,12 +26,10 @@ function tone(carrierHz: number, offset: number, rateHz: number, relDeviation: n
   const x = new Float64Array(n);
   const fc = carrierHz * (1 + offset);
   const dev = carrierHz * relDeviation;
-  let seed = 0x5eed;
   for (let i = 0; i < n; i++) {
     const t = i / FS;
     const cycles = fc * t + (dev / (2 * Math.PI * rateHz)) * (1 - Math.cos(2 * Math.PI * rateHz * t));
-    seed = (seed * 1_103_515_245 + 12_345) >>> 0;
-    x[i] = 0.4 * Math.sin(2 * Math.PI * cycles) + 4e-4 * (seed / 2 ** 32 - 0.5);
+    x[i] = 0.4 * Math.sin(2 * Math.PI * cycles);
   }
   return x;
 }
@@ -56,7 +54,13 @@ async function seedOne(serial: string): Promise<boolean> {
   // Weighted peak of a sinusoidal modulation ≈ its peak × the weighting's gain there (the reading is the
   // 95 % point, 0.997 of the peak); WRMS is that over √2.
   const gain = 10 ** (flutterWeightingDb(flutterWeighting(2000), rateHz) / 20);
-  const relDeviation = (wf.value * (wrms ? Math.SQRT2 : 1 / 0.997)) / gain;
+  const guess = (wf.value * (wrms ? Math.SQRT2 : 1 / 0.997)) / gain;
+  // The reading is linear in the deviation: one trial run sets the scale exactly.
+  const trial = analyseWowFlutter(tone(testToneHz, speed.value, rateHz, guess), FS, {
+    nominalHz: testToneHz,
+    convention: wrms ? "WRMS" : "IEC-60386-peak",
+  });
+  const relDeviation = guess * (wf.value / (wrms ? trial.weightedRms.value : trial.weightedPeak.value));
   const conditions = captureConditionsSchema.parse({
     kind: "wow_flutter",
     testToneHz,
