@@ -21,7 +21,7 @@ const CHANNEL_WORDS: Record<string, string> = { left: "left channel", right: "ri
 const tidy = (x: number) => Number(x.toPrecision(3));
 
 export async function plotsFor(sheet: BenchSheet | null, captures: Map<string, Capture>): Promise<PlotSet> {
-  if (!sheet) return { spectra: [], responses: [], squares: [], speedDrifts: [] };
+  if (!sheet) return { spectra: [], responses: [], squares: [], impedances: [], speedDrifts: [] };
   const list = [...captures.values()];
   return {
     spectra: [...spectra(list.filter((c) => c.kind === "sine")), ...imdPlots(list), ...separationPlots(list)],

@@ -189,7 +189,7 @@ export interface PlotSet {
   responses: ResponsePlot[];
   squares: SquarePlot[];
   /** Loudspeakers' impedance sweeps (app/listings/plots-impedance.server.ts). */
-  impedances?: ImpedancePlot[];
+  impedances: ImpedancePlot[];
   speedDrifts: SpeedDriftPlot[];
 }
 

@@ -22,7 +22,7 @@ export const MUTATIONS: Mutation[] = [
     to: "HALF_LOAD_QUESTIONABLE = 2.8",
     why: "half-load implausible ×2.3 → ×2.8",
   },
-  { file: `${R}power.ts`, from: "FAR_ABOVE_RATED = 1.5", to: "FAR_ABOVE_RATED = 2", why: "measured far above rating ×1.5 → ×2" },
+  { file: `${R}rated-power.ts`, from: "FAR_ABOVE_RATED = 1.5", to: "FAR_ABOVE_RATED = 2", why: "measured far above rating ×1.5 → ×2" },
   {
     file: `${R}power.ts`,
     from: 'ratio <= 1.05 ? "questionable"',
@@ -36,7 +36,7 @@ export const MUTATIONS: Mutation[] = [
     why: "a single rail allows the whole rail voltage as peak swing",
   },
   {
-    file: `${R}power.ts`,
+    file: `${R}rated-power.ts`,
     from: "m.conditions.atDistortion.ratio <= limit * 1.05",
     to: "m.conditions.atDistortion.ratio <= limit * 3",
     why: "measured power at a looser distortion limit compared with the rating",
@@ -59,7 +59,7 @@ export const MUTATIONS: Mutation[] = [
     to: "",
     why: "a power figure need not state its distortion limit",
   },
-  { file: `${R}power.ts`, from: "} else if (ratio < 1) {", to: "} else if (ratio < 0.9) {", why: "a shortfall under 10 % goes unreported" },
+  { file: `${R}rated-power.ts`, from: "} else if (ratio < 1) {", to: "} else if (ratio < 0.9) {", why: "a shortfall under 10 % goes unreported" },
   // Pairing readings
   {
     file: `${R}match.ts`,
@@ -576,8 +576,8 @@ export const MUTATIONS: Mutation[] = [
   },
   {
     file: `${A}csv.ts`,
-    from: 'const c = delim === ";" ? cell.replace(",", ".") : cell;',
-    to: "const c = cell;",
+    from: 'readNumber(delimiter === ";" ? cell.replace(",", ".") : cell)',
+    to: "readNumber(cell)",
     why: "decimal commas in semicolon CSV refused",
   },
   {

@@ -37,7 +37,7 @@ describe("demo loudspeakers' impedance sweeps", () => {
       expect(capture).toMatchObject({ kind: "impedance", status: "done" });
       const plots = await plotsFor(sheet, await capturesForSheet(sheet, listing.sellerId));
       expect(plots.impedances).toHaveLength(1);
-      expect(plots.impedances![0].points.length).toBeGreaterThan(100);
+      expect(plots.impedances[0].points.length).toBeGreaterThan(100);
     }
   });
 });

@@ -158,7 +158,7 @@ export function Plots({
   heading?: string;
   lede?: string;
 }) {
-  const count = plots.spectra.length + plots.responses.length + plots.squares.length + plots.speedDrifts.length + (plots.impedances?.length ?? 0);
+  const count = plots.spectra.length + plots.responses.length + plots.squares.length + plots.speedDrifts.length + plots.impedances.length;
   if (count === 0) return null;
   return (
     <section aria-labelledby="plots-heading" className="below-fold space-y-4">
@@ -194,7 +194,7 @@ export function Plots({
             <FigureList figures={p.figures} />
           </PlotFigure>
         ))}
-        {(plots.impedances ?? []).map((p) => (
+        {plots.impedances.map((p) => (
           <PlotFigure
             key={p.id}
             id={p.id}
@@ -204,9 +204,9 @@ export function Plots({
             numbers={<FigureList figures={p.figures} />}
           >
             <ImpedanceChart plot={p} />
-              <FigureList figures={p.figures} />
-            </PlotFigure>
-          ))}
+            <FigureList figures={p.figures} />
+          </PlotFigure>
+        ))}
         {plots.speedDrifts.map((p) => (
           <PlotFigure key={p.id} wide id={p.id} title={p.title} conditions={p.conditions} fromCapture numbers={<SpeedNumbers plot={p} />}>
             <SpeedDriftChart plot={p} />

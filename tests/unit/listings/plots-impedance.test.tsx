@@ -8,7 +8,7 @@ import type { ImpedancePlot } from "~/listings/types";
 // the modulus over the 80 % line of the rated impedance, the phase beneath when the sweep has it.
 function render(impedances: ImpedancePlot[]): HTMLElement {
   const host = document.createElement("div");
-  host.innerHTML = renderToStaticMarkup(<Plots plots={{ spectra: [], responses: [], squares: [], impedances }} />);
+  host.innerHTML = renderToStaticMarkup(<Plots plots={{ spectra: [], responses: [], squares: [], impedances, speedDrifts: [] }} />);
   return host;
 }
 

@@ -30,7 +30,7 @@ const riaa: ResponsePlot = {
 
 describe("the listing's plots", () => {
   it("draws an RIAA sweep as the measured level over the dashed curve, and the deviation beneath", () => {
-    const host = serverRender({ spectra: [], squares: [], responses: [riaa], speedDrifts: [] });
+    const host = serverRender({ spectra: [], squares: [], responses: [riaa], impedances: [], speedDrifts: [] });
     const images = [...host.querySelectorAll('[role="img"]')];
     expect(images.map((i) => i.getAttribute("aria-label"))).toEqual([
       "Phono equalisation against the RIAA curve",
@@ -51,6 +51,7 @@ describe("the listing's plots", () => {
       spectra: [],
       squares: [],
       responses: [],
+      impedances: [],
       speedDrifts: [
         {
           id: "speed-0",
@@ -70,6 +71,6 @@ describe("the listing's plots", () => {
     expect(host.querySelector("figure")?.textContent).toContain("±0.050 %");
   });
   it("shows nothing when the sheet has nothing to plot", () => {
-    expect(serverRender({ spectra: [], squares: [], responses: [], speedDrifts: [] }).innerHTML).toBe("");
+    expect(serverRender({ spectra: [], squares: [], responses: [], impedances: [], speedDrifts: [] }).innerHTML).toBe("");
   });
 });
