@@ -197,6 +197,7 @@ export function Plots({
         {plots.impedances.map((p) => (
           <PlotFigure
             key={p.id}
+            wide
             id={p.id}
             title={p.title}
             conditions={p.conditions}
