@@ -59,7 +59,12 @@ export const MUTATIONS: Mutation[] = [
     to: "",
     why: "a power figure need not state its distortion limit",
   },
-  { file: `${R}rated-power.ts`, from: "} else if (ratio < 1) {", to: "} else if (ratio < 0.9) {", why: "a shortfall under 10 % goes unreported" },
+  {
+    file: `${R}rated-power.ts`,
+    from: "} else if (ratio < 1) {",
+    to: "} else if (ratio < 0.9) {",
+    why: "a shortfall under 10 % goes unreported",
+  },
   // Pairing readings
   {
     file: `${R}match.ts`,
