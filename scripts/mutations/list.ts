@@ -1,5 +1,8 @@
 // Realistic one-line slips in shared/bench, for scripts/mutations.ts. Each names its file, the exact
 // original text (it must occur once in the file), the replacement and what a technician would call it.
+import { ANALYSIS_MUTATIONS } from "./list-analyses";
+import { CROSS_MUTATIONS } from "./list-cross";
+
 export type Mutation = { file: string; from: string; to: string; why: string };
 
 const R = "shared/bench/rules/";
@@ -59,7 +62,12 @@ export const MUTATIONS: Mutation[] = [
     to: "",
     why: "a power figure need not state its distortion limit",
   },
-  { file: `${R}rated-power.ts`, from: "} else if (ratio < 1) {", to: "} else if (ratio < 0.9) {", why: "a shortfall under 10 % goes unreported" },
+  {
+    file: `${R}rated-power.ts`,
+    from: "} else if (ratio < 1) {",
+    to: "} else if (ratio < 0.9) {",
+    why: "a shortfall under 10 % goes unreported",
+  },
   // Pairing readings
   {
     file: `${R}match.ts`,
@@ -623,4 +631,6 @@ export const MUTATIONS: Mutation[] = [
     to: 'export const RIAA_CATEGORIES: readonly Category[] = ["phono_stage"];',
     why: "an integrated amplifier's phono input not checked against RIAA",
   },
+  ...ANALYSIS_MUTATIONS,
+  ...CROSS_MUTATIONS,
 ];
