@@ -1,5 +1,8 @@
 // Realistic one-line slips in shared/bench, for scripts/mutations.ts. Each names its file, the exact
 // original text (it must occur once in the file), the replacement and what a technician would call it.
+import { ANALYSIS_MUTATIONS } from "./list-analyses";
+import { CROSS_MUTATIONS } from "./list-cross";
+
 export type Mutation = { file: string; from: string; to: string; why: string };
 
 const R = "shared/bench/rules/";
@@ -628,4 +631,6 @@ export const MUTATIONS: Mutation[] = [
     to: 'export const RIAA_CATEGORIES: readonly Category[] = ["phono_stage"];',
     why: "an integrated amplifier's phono input not checked against RIAA",
   },
+  ...ANALYSIS_MUTATIONS,
+  ...CROSS_MUTATIONS,
 ];

@@ -147,3 +147,53 @@ describe("sweep data that cannot be measured", () => {
     );
   });
 });
+
+describe("a heavily damped driver's resonance still counts (model D)", () => {
+  // Model D: model A's driver with mechanical losses, Res = 4 Ω: at fs = 50 Hz |Z| = Re + Res = 10 Ω,
+  // falling towards Re = 6 Ω above it. 10/6 = 1.67 stands clear of our 1.25× prominence.
+  const D = motional(4, 50, 5);
+  const modelD = (f: number): Complex => sum({ re: 6, im: 0 }, parallelRlc(f, 4, D.l, D.c));
+  it("a 10 Ω peak over a 6 Ω floor is the resonance, at 50 Hz", () => {
+    const a = fromCsv(impedanceCsv(logFrequencies(20, 20_000, 24), modelD));
+    expect(a.resonance?.method).toBe("phase zero crossing");
+    expect(Math.abs(a.resonance!.frequency.value - 50)).toBeLessThan(0.25);
+    expect(a.resonance!.peak.value).toBeCloseTo(10, 1);
+  });
+});
+
+describe("the rated range and the 80 % floor at their edges (IEC 60268-5 §16.1)", () => {
+  it("a minimum of exactly 80 % of the rating meets it: 4.8 Ω against a rated 6 Ω", () => {
+    // §16.1: the modulus shall not fall below 80 % of the rated impedance; 4.8 Ω is 80 % of 6 Ω exactly
+    // (though 6 × 0.8 is 4.800000000000001 in binary floating point). The lowest point, 4.8 Ω at
+    // 20 Hz, is the sweep's first, so it is taken as it stands.
+    const a = analyseImpedance(Float64Array.from([20, 100, 1000, 20_000]), Float64Array.from([4.8, 5.5, 6.5, 7.5]), null, { ratedOhm: 6 });
+    expect(a.minimum.ohms.value).toBe(4.8);
+    expect(a.rated?.meets).toBe(true);
+  });
+
+  it("points below the rated range are not its minimum: a sweep from 10 Hz, rated range 20 Hz–20 kHz", () => {
+    // 4 Ω at 10 Hz and 5 Ω at 15 Hz lie below the range; within it the least is 6.5 Ω near 1 kHz (its
+    // refinement between the 100 Hz and 20 kHz neighbours can only lower it a little, never to 5 Ω).
+    const f = Float64Array.from([10, 15, 20, 50, 100, 1000, 20_000]);
+    const z = Float64Array.from([4, 5, 7, 30, 8, 6.5, 7]);
+    const a = analyseImpedance(f, z, null, { ratedOhm: 8 });
+    expect(a.conditions.band).toEqual({ lowHz: 20, highHz: 20_000 });
+    expect(a.minimum.frequency.value).toBeGreaterThan(100);
+    expect(a.minimum.ohms.value).toBeGreaterThan(6);
+    expect(a.minimum.ohms.value).toBeLessThanOrEqual(6.5);
+  });
+
+  it("the readings state the rated range and the minimum's frequency to four figures", () => {
+    // Model A with the rated range cut at 1 kHz: |Z| falls steadily above fs, so the minimum is the last
+    // point within the range, 20·2^(135/24) = 987.01 Hz, taken as it stands: 987.0 Hz to four figures.
+    const r = analyseCapture(
+      enc(impedanceCsv(logFrequencies(20, 20_000, 24), modelA)),
+      "speaker.csv",
+      { kind: "impedance", band: { lowHz: 20, highHz: 1000 } },
+      "cap-2",
+    );
+    const min = r.readings.find((x) => x.quantity === "impedance_minimum")!;
+    expect(min.conditions.frequencyRange).toEqual({ lowHz: 20, highHz: 1000 });
+    expect(min.conditions.frequencyHz).toBe(987);
+  });
+});

@@ -48,6 +48,11 @@ describe("power-at-distortion-limit (16 CFR 432.2(a))", () => {
     const d = measured("thd", 0.005, "%", { voltageV: 2, loadOhm: 8, frequencyHz: 1000 });
     expect(outcomes(sheet("integrated_amplifier", [measuredPower, d]), "power-at-distortion-limit")).toEqual(["questionable"]);
   });
+  it("P = V²/R: 1.5 V into 8 Ω is 0.28 W, within the range; 22 V is 60.5 W, above the 55 W and left out", () => {
+    const at = (voltageV: number) => measured("thd", 0.005, "%", { voltageV, loadOhm: 8, frequencyHz: 1000 });
+    expect(outcomes(sheet("integrated_amplifier", [measuredPower, at(1.5)]), "power-at-distortion-limit")).toEqual(["questionable"]);
+    expect(outcomes(sheet("integrated_amplifier", [measuredPower, at(22)]), "power-at-distortion-limit")).toEqual([]);
+  });
   it("leaves out readings into another load or outside the rated band", () => {
     expect(outcomes(sheet("integrated_amplifier", [rating, thdAt(0.005, 10, { loadOhm: 4 })]), "power-at-distortion-limit")).toEqual([]);
     expect(
