@@ -163,11 +163,13 @@ function decodedJpeg(input: Buffer): Decoded {
 }
 
 // A turned JPEG written again upright from its own planes (each read through a turned view), with
-// its own sampling turned too; CMYK and RGB files, rare, go through RGBA.
+// its own sampling turned too. Through RGBA instead: CMYK and RGB files, and sizes that are not whole
+// chroma samples (an odd width at 4:2:0), where a turned chroma grid would sit half a sample off.
 function uprightJpeg(p: JpegPlanes, orientation: number): Buffer {
   const n = p.components.length;
   const ycc = n === 3 && p.adobeTransform !== 0;
-  if (n !== 1 && !ycc) return encodeJpeg(planesToRgba(p, orientation), { quality: QUALITY.original, subsampling: "4:4:4" });
+  const whole = p.width % p.hMax === 0 && p.height % p.vMax === 0;
+  if (n !== 1 && (!ycc || !whole)) return encodeJpeg(planesToRgba(p, orientation), { quality: QUALITY.original });
   const swap = orientation >= 5;
   const views = p.components.map((c) => {
     const cw = Math.ceil((p.width * c.h) / p.hMax);
