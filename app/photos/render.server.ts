@@ -12,6 +12,7 @@ import { exifOrientation, pngOrientation, uprightLayout, uprightView } from "./e
 import { encodeJpeg, encodeJpegPlanes } from "./jpeg-encode.server";
 import { encodePng } from "./png-encode.server";
 import { stripJpegMetadata, stripPngMetadata } from "./strip.server";
+import { encodeJpegAside, sharedCopy, startEncoderThread } from "./encode-thread.server";
 import { dctHash, hashDistance } from "./perceptual-hash.server";
 
 // An upload that passed the checks becomes an upright, metadata-free original, three upright JPEG
@@ -49,28 +50,31 @@ const DAMAGED = "The photo could not be decoded";
 export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "image/png", timer?: PhaseTimer): Promise<RenderedPhoto> {
   const time = phases(timer);
   const header = checkedHeader(input, contentType);
+  void startEncoderThread(); // starts (once per process) while this photo decodes
   const decoded = await time("decode", () => decodeWithinBudget(input, header));
   // The original first: a transparent PNG's sizes are flattened onto white in place.
   const originalBody = await time("original", () => decoded.original());
   const original: RenderedImage = { body: originalBody, contentType, width: decoded.width, height: decoded.height };
-  let zoom = await time("resize", () => decoded.zoom());
+  const zoom = await time("resize", () => sharedCopy(decoded.zoom()));
   decoded.release(); // the full-size pixels or planes are garbage from here
 
+  // The zoom size is encoded on the encoder thread while this one makes and encodes the others.
+  const zoomBody = encodeJpegAside(zoom, QUALITY.zoom);
   const listingSize = fitWithin(zoom.width, zoom.height, PHOTO_SIZES.listing);
   const listing = await time("resize", () => shrink(zoom, listingSize.width, listingSize.height));
   const thumbSize = fitWithin(listing.width, listing.height, PHOTO_SIZES.thumb);
   const thumb = await time("resize", () => shrink(listing, thumbSize.width, thumbSize.height));
-  const encode = (bitmap: Bitmap, size: PhotoSize): RenderedImage => ({
-    body: encodeJpeg(bitmap, { quality: QUALITY[size] }),
+  const jpeg = (body: Buffer, bitmap: Bitmap): RenderedImage => ({
+    body,
     contentType: "image/jpeg",
     width: bitmap.width,
     height: bitmap.height,
   });
-  const zoomOut = await time("encode", () => encode(zoom, "zoom"));
-  zoom = { data: Buffer.alloc(0), width: 0, height: 0 };
-  const listingOut = await time("encode", () => encode(listing, "listing"));
-  const thumbOut = await time("encode", () => encode(thumb, "thumb"));
+  const listingOut = await time("encode", () => jpeg(encodeJpeg(listing, { quality: QUALITY.listing }), listing));
+  const thumbOut = await time("encode", () => jpeg(encodeJpeg(thumb, { quality: QUALITY.thumb }), thumb));
   const phash = await time("hash", () => dctHash(thumb));
+  // Only the part of the zoom's encoding not already overlapped counts as time of its own.
+  const zoomOut = await time("encode", async () => jpeg(await zoomBody, zoom));
   return { original, sizes: { zoom: zoomOut, listing: listingOut, thumb: thumbOut }, phash };
 }
 
