@@ -1,7 +1,7 @@
 import { Jimp } from "jimp";
 import { PHOTO_LIMITS, PHOTO_SIZES, type PhotoSize } from "./limits";
 import { fitWithin, flattenInPlace, hasTransparency, shrink, type Bitmap } from "./pixels.server";
-import { readJpegStructure } from "./jpeg-structure.server";
+import { readJpegStructure, type JpegStructure } from "./jpeg-structure.server";
 import { readPngStructure } from "./png-structure.server";
 import { budgetProblem, PHOTO_MEMORY_BUDGET, type PhotoHeader } from "./budget.server";
 import { decodePng, PngDataProblem } from "./png-decode.server";
@@ -116,7 +116,7 @@ async function decodeWithinBudget(input: Buffer, header: PhotoHeader): Promise<D
   try {
     if (header.type === "image/png") return await decodedPng(input);
     try {
-      return decodedJpeg(input);
+      return decodedJpeg(input, header.jpeg);
     } catch (error) {
       if (!(error instanceof ProgressiveJpeg)) throw error;
     }
@@ -147,9 +147,8 @@ function zoomOf(full: Bitmap): Bitmap {
   return shrink(full, size.width, size.height);
 }
 
-function decodedJpeg(input: Buffer): Decoded {
+function decodedJpeg(input: Buffer, structure: JpegStructure): Decoded {
   const orientation = exifOrientation(input);
-  const structure = readJpegStructure(input);
   const [w, h] = [structure.width!, structure.height!];
   const target = fitWithin(w, h, PHOTO_SIZES.zoom); // in the stored orientation
   // An upright upload's original is stripped, not re-encoded: only the zoom size's detail is needed.
