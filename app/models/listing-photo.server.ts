@@ -3,8 +3,9 @@ import { sequelize } from "~/db.server";
 import type { PhotoStatus } from "@shared/catalogue";
 
 /**
- * One photo of a listing. The original (as uploaded, possibly with metadata) stays private in S3;
- * only the three derived sizes, stripped of metadata, are ever served.
+ * One photo of a listing. The upload waits under incoming/ until the photo job has written the
+ * original (upright and metadata-free: docs/decisions/0034), which stays private in S3; only the
+ * three derived sizes, stripped of metadata, are ever served.
  */
 export class ListingPhoto extends Model<InferAttributes<ListingPhoto>, InferCreationAttributes<ListingPhoto>> {
   declare id: CreationOptional<string>;

@@ -42,7 +42,9 @@ export function processingCost(header: PhotoHeader): number {
   const rgba = width * height * 4;
   const encoded = width * height * 0.75;
   if (!header.jpeg.progressive) {
-    // One byte per sample per component (whole blocks), then RGBA.
+    // One byte per sample per component (whole blocks), then the worst case after decoding: a turned
+    // photo whose size is not whole chroma samples (or a CMYK one) goes through full-size RGBA to be
+    // written again upright. An upright one needs only its planes, often scaled, and the zoom size.
     return blocks * 64 + rgba + encoded + HEADROOM;
   }
   // jpeg-js: its blocks, its per-component lines and interleaved copy, RGBA, and the copy jimp

@@ -120,3 +120,52 @@ function fdct8(b: Float32Array, o: number, s: number) {
   b[o + s] = z11 + z4;
   b[o + 7 * s] = z11 - z4;
 }
+
+// Reduced inverse transforms for decoding at 1/2, 1/4 or 1/8 scale: each output sample is the exact
+// mean of the k × k samples (k = 8 / n) the full transform would give, taken straight from the
+// coefficients: M[m][u] = C(u)/2 · (1/k) Σ_j cos((2(k·m + j) + 1)·u·π/16) (ITU-T T.81, A.3.3).
+const REDUCE = new Map<number, Float32Array>();
+function reduceMatrix(n: number): Float32Array {
+  let m = REDUCE.get(n);
+  if (m) return m;
+  const k = 8 / n;
+  m = new Float32Array(n * 8);
+  for (let out = 0; out < n; out++) {
+    for (let u = 0; u < 8; u++) {
+      let sum = 0;
+      for (let j = 0; j < k; j++) sum += Math.cos(((2 * (k * out + j) + 1) * u * Math.PI) / 16);
+      m[out * 8 + u] = ((u === 0 ? Math.SQRT1_2 : 1) / 2) * (sum / k);
+    }
+  }
+  REDUCE.set(n, m);
+  return m;
+}
+
+/**
+ * Dequantised coefficients (row-major, not pre-scaled) in, an n × n block of samples out (n = 4, 2
+ * or 1; level-shifted by −128, not yet rounded). `tmp` holds 8 · n values.
+ */
+export function reducedIdct(b: Float32Array, n: number, out: Float32Array, tmp: Float32Array) {
+  if (n === 1) {
+    out[0] = b[0] / 8;
+    return;
+  }
+  const m = reduceMatrix(n);
+  for (let u = 0; u < 8; u++) {
+    const r = u * 8;
+    let any = false;
+    for (let v = 0; v < 8; v++) if (b[r + v] !== 0) any = true;
+    for (let x = 0; x < n; x++) {
+      let sum = 0;
+      if (any) for (let v = 0; v < 8; v++) sum += b[r + v] * m[x * 8 + v];
+      tmp[u * n + x] = sum;
+    }
+  }
+  for (let y = 0; y < n; y++) {
+    for (let x = 0; x < n; x++) {
+      let sum = 0;
+      for (let u = 0; u < 8; u++) sum += m[y * 8 + u] * tmp[u * n + x];
+      out[y * n + x] = sum;
+    }
+  }
+}

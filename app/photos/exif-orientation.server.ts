@@ -1,5 +1,6 @@
-// The EXIF orientation of a JPEG (CIPA DC-008: tag 0x0112 in IFD0 of the APP1 "Exif" segment),
-// 1–8, or 1 when absent or unreadable. Nothing else of the EXIF block is read or kept.
+// The EXIF orientation of a JPEG (CIPA DC-008: tag 0x0112 in IFD0 of the APP1 "Exif" segment) or
+// of a PNG (its eXIf chunk: the same TIFF structure without the "Exif\0\0" prefix, PNG third
+// edition, 11.3.6.1), 1–8, or 1 when absent or unreadable. Nothing else of the EXIF block is read.
 
 export function exifOrientation(jpeg: Buffer): number {
   let pos = 2;
@@ -15,11 +16,24 @@ export function exifOrientation(jpeg: Buffer): number {
   return 1;
 }
 
+/** The orientation of a PNG's first eXIf chunk; chunks were checked by readPngStructure. */
+export function pngOrientation(png: Buffer): number {
+  for (let pos = 8; pos + 12 <= png.length;) {
+    const length = png.readUInt32BE(pos);
+    const type = png.toString("latin1", pos + 4, pos + 8);
+    if (type === "IEND") break;
+    if (type === "eXIf") return orientationIn(png.subarray(pos + 8, pos + 8 + length));
+    pos += 12 + length;
+  }
+  return 1;
+}
+
 function orientationIn(tiff: Buffer): number {
   if (tiff.length < 8) return 1;
   const little = tiff.toString("latin1", 0, 2) === "II";
   const u16 = (at: number) => (little ? tiff.readUInt16LE(at) : tiff.readUInt16BE(at));
   const u32 = (at: number) => (little ? tiff.readUInt32LE(at) : tiff.readUInt32BE(at));
+  if (!little && tiff.toString("latin1", 0, 2) !== "MM") return 1;
   const ifd = u32(4);
   if (ifd + 2 > tiff.length) return 1;
   const entries = u16(ifd);
@@ -56,4 +70,26 @@ export function uprightLayout(width: number, height: number, orientation: number
   };
   const [start, dx, dy] = layouts[orientation] ?? layouts[1];
   return { width: W, height: H, start, dx, dy };
+}
+
+/**
+ * The upright picture read from a stored plane of `width` × `height` samples, `stride` apart: sample
+ * (X, Y) of the upright picture is at start + X · dx + Y · dy, in samples.
+ */
+export function uprightView(width: number, height: number, stride: number, orientation: number) {
+  const right = width - 1;
+  const bottom = (height - 1) * stride;
+  const views: Record<number, [number, number, number]> = {
+    1: [0, 1, stride],
+    2: [right, -1, stride],
+    3: [bottom + right, -1, -stride],
+    4: [bottom, 1, -stride],
+    5: [0, stride, 1],
+    6: [bottom, -stride, 1],
+    7: [bottom + right, -stride, -1],
+    8: [right, stride, -1],
+  };
+  const [start, dx, dy] = views[orientation] ?? views[1];
+  const swap = orientation >= 5 && orientation <= 8;
+  return { width: swap ? height : width, height: swap ? width : height, start, dx, dy };
 }

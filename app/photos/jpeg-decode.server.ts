@@ -1,16 +1,34 @@
-import { inverseDct, inverseScale } from "./dct";
+import { inverseDct, inverseScale, reducedIdct } from "./dct";
 import { ZIGZAG } from "./jpeg-tables";
-import { uprightLayout } from "./exif-orientation.server";
 import { BitReader, buildTable, JpegDataProblem, type Table } from "./jpeg-huffman.server";
+import { planesToRgba } from "./jpeg-colour.server";
 import type { Bitmap } from "./pixels.server";
 
-// Decodes a sequential (baseline or extended, 8-bit, Huffman) JPEG into upright 8-bit RGBA
-// (ITU-T T.81, Annex F). Memory is one byte per sample per component plus the RGBA output: each
-// block is transformed as soon as it is read, where a general decoder keeps every coefficient of the
-// image as a small array of its own. Progressive JPEGs are not handled here (ProgressiveJpeg).
-// The file has passed readJpegStructure (markers, frame header, scans followed to the end).
+// Decodes a sequential (baseline or extended, 8-bit, Huffman) JPEG (ITU-T T.81, Annex F) into one
+// 8-bit plane per component, at full size or at 1/2, 1/4 or 1/8 straight from the coefficients
+// (`scale`): memory is one byte per output sample, each block transformed as soon as it is read,
+// where a general decoder keeps every coefficient of the image as a small array of its own.
+// Colour conversion, resizing and turning upright are jpeg-colour.server.ts. Progressive JPEGs are
+// not handled here (ProgressiveJpeg). The file has passed readJpegStructure.
 
 export class ProgressiveJpeg extends Error {}
+
+export type PlaneComponent = { id: number; h: number; v: number; plane: Uint8Array; stride: number; rows: number };
+/** The decoded planes; `width` × `height` is the stored (not upright) size at the decoded scale. */
+export type JpegPlanes = {
+  width: number;
+  height: number;
+  /** The frame's own size, before any scaling. */
+  fullWidth: number;
+  fullHeight: number;
+  scale: 1 | 2 | 4 | 8;
+  components: PlaneComponent[];
+  hMax: number;
+  vMax: number;
+  adobeTransform: number | null;
+};
+
+type Quant = { aan: Float32Array; plain: Float32Array };
 
 type Component = {
   id: number;
@@ -25,10 +43,25 @@ type Component = {
   ac?: Table;
 };
 
-type Frame = { width: number; height: number; components: Component[]; hMax: number; vMax: number; mcusX: number; mcusY: number };
+type Frame = {
+  width: number;
+  height: number;
+  components: Component[];
+  hMax: number;
+  vMax: number;
+  mcusX: number;
+  mcusY: number;
+  /** Samples per block side in the planes: 8 / scale. */
+  n: number;
+};
 
+/** Upright 8-bit RGBA at full size. */
 export function decodeSequentialJpeg(jpeg: Buffer, orientation = 1): Bitmap {
-  const quant: (Float32Array | undefined)[] = [];
+  return planesToRgba(decodeJpegPlanes(jpeg), orientation);
+}
+
+export function decodeJpegPlanes(jpeg: Buffer, scale: 1 | 2 | 4 | 8 = 1): JpegPlanes {
+  const quant: (Quant | undefined)[] = [];
   const dcTables: (Table | undefined)[] = [];
   const acTables: (Table | undefined)[] = [];
   let frame: Frame | null = null;
@@ -56,17 +89,29 @@ export function decodeSequentialJpeg(jpeg: Buffer, orientation = 1): Bitmap {
     else if (marker === 0xdd) restartInterval = body.readUInt16BE(0);
     else if (marker === 0xee && body.toString("latin1", 0, 5) === "Adobe" && body.length >= 12) adobeTransform = body[11];
     else if (marker === 0xc2) throw new ProgressiveJpeg("a progressive JPEG");
-    else if (marker === 0xc0 || marker === 0xc1) frame = readFrame(body);
+    else if (marker === 0xc0 || marker === 0xc1) frame = readFrame(body, 8 / scale);
     else if (marker === 0xda) {
       if (!frame) throw new JpegDataProblem("its image data comes before the frame header");
       pos = decodeScan(jpeg, pos, body, frame, quant, dcTables, acTables, restartInterval);
     }
   }
   if (!frame) throw new JpegDataProblem("it has no frame header");
-  return toRgba(frame, adobeTransform, orientation);
+  const n = frame.components.length;
+  if (n !== 1 && n !== 3 && n !== 4) throw new JpegDataProblem(`it has ${n} colour components`);
+  return {
+    width: Math.ceil(frame.width / scale),
+    height: Math.ceil(frame.height / scale),
+    fullWidth: frame.width,
+    fullHeight: frame.height,
+    scale,
+    components: frame.components.map(({ id, h, v, plane, stride, rows }) => ({ id, h, v, plane, stride, rows })),
+    hMax: frame.hMax,
+    vMax: frame.vMax,
+    adobeTransform,
+  };
 }
 
-function readQuant(body: Buffer, quant: (Float32Array | undefined)[]) {
+function readQuant(body: Buffer, quant: (Quant | undefined)[]) {
   for (let p = 0; p < body.length;) {
     const precision = body[p] >> 4;
     const id = body[p] & 15;
@@ -74,7 +119,7 @@ function readQuant(body: Buffer, quant: (Float32Array | undefined)[]) {
     const natural = new Array<number>(64);
     for (let k = 0; k < 64; k++) natural[ZIGZAG[k]] = precision ? body.readUInt16BE(p + 2 * k) : body[p + k];
     p += precision ? 128 : 64;
-    quant[id] = inverseScale(natural);
+    quant[id] = { aan: inverseScale(natural), plain: Float32Array.from(natural) };
   }
 }
 
@@ -90,7 +135,7 @@ function readHuffman(body: Buffer, dc: (Table | undefined)[], ac: (Table | undef
   }
 }
 
-function readFrame(body: Buffer): Frame {
+function readFrame(body: Buffer, n: number): Frame {
   if (body[0] !== 8) throw new JpegDataProblem(`it uses ${body[0]}-bit samples; only 8-bit JPEGs can be read`);
   const height = body.readUInt16BE(1);
   const width = body.readUInt16BE(3);
@@ -109,11 +154,11 @@ function readFrame(body: Buffer): Frame {
   const mcusY = Math.ceil(height / (8 * vMax));
   // Each plane holds whole MCUs, so interleaved and single-component scans both fit.
   const components = specs.map((c): Component => {
-    const stride = mcusX * c.h * 8;
-    const rows = mcusY * c.v * 8;
+    const stride = mcusX * c.h * n;
+    const rows = mcusY * c.v * n;
     return { ...c, plane: new Uint8Array(stride * rows), stride, rows, pred: 0 };
   });
-  return { width, height, components, hMax, vMax, mcusX, mcusY };
+  return { width, height, components, hMax, vMax, mcusX, mcusY, n };
 }
 
 function decodeScan(
@@ -121,7 +166,7 @@ function decodeScan(
   start: number,
   header: Buffer,
   frame: Frame,
-  quant: (Float32Array | undefined)[],
+  quant: (Quant | undefined)[],
   dcTables: (Table | undefined)[],
   acTables: (Table | undefined)[],
   restartInterval: number,
@@ -139,9 +184,12 @@ function decodeScan(
   });
   const reader = new BitReader(jpeg, start);
   const block = new Float32Array(64);
+  const n = frame.n;
+  const small = new Float32Array(n * n);
+  const tmp = new Float32Array(8 * n);
 
   const decodeBlock = (c: Component, bx: number, by: number) => {
-    const q = quant[c.quant]!;
+    const q = n === 8 ? quant[c.quant]!.aan : quant[c.quant]!.plain;
     block.fill(0);
     const size = reader.decode(c.dc!);
     c.pred += size ? reader.value(size) : 0;
@@ -161,11 +209,13 @@ function decodeScan(
       block[z] = reader.value(bits) * q[z];
       k += 1;
     }
-    inverseDct(block);
-    let o = by * 8 * c.stride + bx * 8;
-    for (let r = 0; r < 64; r += 8, o += c.stride) {
-      for (let i = 0; i < 8; i++) {
-        const v = block[r + i] + 128.5;
+    const out = n === 8 ? block : small;
+    if (n === 8) inverseDct(block);
+    else reducedIdct(block, n, small, tmp);
+    let o = by * n * c.stride + bx * n;
+    for (let r = 0; r < n * n; r += n, o += c.stride) {
+      for (let i = 0; i < n; i++) {
+        const v = out[r + i] + 128.5;
         c.plane[o + i] = v < 0 ? 0 : v > 255 ? 255 : v;
       }
     }
@@ -192,52 +242,3 @@ function decodeScan(
   }
   return reader.end();
 }
-
-// Colour conversion (JFIF; Adobe's transform flag for RGB and CMYK files), chroma replicated to
-// full size, each pixel written straight to its upright place.
-function toRgba(frame: Frame, adobeTransform: number | null, orientation: number): Bitmap {
-  const { width, height, components, hMax, vMax } = frame;
-  const layout = uprightLayout(width, height, orientation);
-  const out = Buffer.alloc(width * height * 4);
-  const n = components.length;
-  if (n !== 1 && n !== 3 && n !== 4) throw new JpegDataProblem(`it has ${n} colour components`);
-  const columns = components.map((c) => Int32Array.from({ length: width }, (_, x) => ((x * c.h) / hMax) | 0));
-  const ycc = n === 3 ? adobeTransform !== 0 : adobeTransform === 2;
-  const [c0, c1, c2, c3] = components;
-  for (let y = 0; y < height; y++) {
-    const rows = components.map((c) => (((y * c.v) / vMax) | 0) * c.stride);
-    let o = layout.start + y * layout.dy;
-    for (let x = 0; x < width; x++, o += layout.dx) {
-      const a = c0.plane[rows[0] + columns[0][x]];
-      let r = a;
-      let g = a;
-      let b = a;
-      if (n > 1) {
-        const p = c1.plane[rows[1] + columns[1][x]];
-        const q = c2.plane[rows[2] + columns[2][x]];
-        if (ycc) {
-          r = a + 1.402 * (q - 128);
-          g = a - 0.3441363 * (p - 128) - 0.71413636 * (q - 128);
-          b = a + 1.772 * (p - 128);
-        } else {
-          g = p;
-          b = q;
-        }
-        if (n === 4) {
-          // Adobe stores CMYK inverted (255 = no ink): the light left is what both let through.
-          const k = c3.plane[rows[3] + columns[3][x]];
-          r = (clamp(r) * k) / 255;
-          g = (clamp(g) * k) / 255;
-          b = (clamp(b) * k) / 255;
-        }
-      }
-      out[o] = clamp(r);
-      out[o + 1] = clamp(g);
-      out[o + 2] = clamp(b);
-      out[o + 3] = 255;
-    }
-  }
-  return { data: out, width: layout.width, height: layout.height };
-}
-
-const clamp = (v: number) => (v < 0 ? 0 : v > 255 ? 255 : v + 0.5);

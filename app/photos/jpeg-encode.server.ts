@@ -13,10 +13,12 @@ import {
 } from "./jpeg-tables";
 import type { Bitmap } from "./pixels.server";
 
-// Encodes RGBA pixels as a baseline JFIF JPEG (ITU-T T.81): YCbCr with chroma halved both ways
-// (4:2:0, what cameras write), the example tables of Annex K scaled for the quality, and nothing
-// but pixels: no EXIF, no comments. The output grows in a byte buffer, so a large photo costs about
-// its own size; alpha is ignored (flatten first).
+// Encodes a baseline JFIF JPEG (ITU-T T.81) with the example tables of Annex K scaled for the
+// quality, and nothing but pixels: no EXIF, no comments. Two ways in: RGBA pixels (YCbCr with chroma
+// halved both ways, 4:2:0, what cameras write; alpha ignored, flatten first), or 8-bit planes read
+// through a view (start + x · dx + y · dy), which is how a decoded JPEG's own planes are written
+// again upright without a colour conversion either way. The output grows in a byte buffer, so a
+// large photo costs about its own size.
 
 export type JpegOptions = {
   quality: number;
@@ -74,13 +76,63 @@ type Coder = { code: Uint16Array; length: Uint8Array };
 
 const bitSize = (v: number) => (v === 0 ? 0 : 32 - Math.clz32(v < 0 ? -v : v));
 
+/** One component to encode: sample (x, y) of the upright picture is plane[start + x · dx + y · dy]. */
+export type PlaneView = { plane: Uint8Array; width: number; height: number; start: number; dx: number; dy: number; h: number; v: number };
+
 export function encodeJpeg(bitmap: Bitmap, { quality, subsampling = "4:2:0", restartInterval = 0, grey = false }: JpegOptions): Buffer {
-  const { width, height, data } = bitmap;
+  const [h, v] = grey ? [1, 1] : subsampling === "4:2:0" ? [2, 2] : subsampling === "4:2:2" ? [2, 1] : [1, 1];
+  return encodeJpegPlanes(bitmap.width, bitmap.height, rgbaPlanes(bitmap, h, v, grey), { quality, restartInterval });
+}
+
+// Y at full size, Cb and Cr each the mean of the h × v pixels a sample covers (JFIF's equations).
+function rgbaPlanes({ data, width, height }: Bitmap, h: number, v: number, grey: boolean): PlaneView[] {
+  const y = new Uint8Array(width * height);
+  for (let i = 0, p = 0; i < y.length; i++, p += 4) y[i] = 0.299 * data[p] + 0.587 * data[p + 1] + 0.114 * data[p + 2] + 0.5;
+  const luma: PlaneView = { plane: y, width, height, start: 0, dx: 1, dy: width, h, v };
+  if (grey) return [{ ...luma, h: 1, v: 1 }];
+  const cw = Math.ceil(width / h);
+  const ch = Math.ceil(height / v);
+  const cb = new Uint8Array(cw * ch);
+  const cr = new Uint8Array(cw * ch);
+  for (let cy = 0; cy < ch; cy++) {
+    const y1 = Math.min(height, cy * v + v);
+    for (let cx = 0; cx < cw; cx++) {
+      const x1 = Math.min(width, cx * h + h);
+      let sb = 0;
+      let sr = 0;
+      let count = 0;
+      for (let py = cy * v; py < y1; py++) {
+        for (let px = cx * h; px < x1; px++) {
+          const p = (py * width + px) * 4;
+          const r = data[p];
+          const g = data[p + 1];
+          const b = data[p + 2];
+          sb += -0.168736 * r - 0.331264 * g + 0.5 * b;
+          sr += 0.5 * r - 0.418688 * g - 0.081312 * b;
+          count++;
+        }
+      }
+      cb[cy * cw + cx] = 128.5 + sb / count;
+      cr[cy * cw + cx] = 128.5 + sr / count;
+    }
+  }
+  const chroma = (plane: Uint8Array): PlaneView => ({ plane, width: cw, height: ch, start: 0, dx: 1, dy: cw, h: 1, v: 1 });
+  return [luma, chroma(cb), chroma(cr)];
+}
+
+/** `comps`: one (grey) or three (Y, Cb, Cr); `width` × `height` is the picture's size. */
+export function encodeJpegPlanes(
+  width: number,
+  height: number,
+  comps: PlaneView[],
+  { quality, restartInterval = 0 }: { quality: number; restartInterval?: number },
+): Buffer {
+  const grey = comps.length === 1;
   const lumaQ = scaledQuant(LUMA_QUANT, quality);
   const chromaQ = scaledQuant(CHROMA_QUANT, quality);
-  const lumaScale = forwardScale(lumaQ);
-  const chromaScale = forwardScale(chromaQ);
-  const [h, v] = grey ? [1, 1] : subsampling === "4:2:0" ? [2, 2] : subsampling === "4:2:2" ? [2, 1] : [1, 1];
+  const scales = [forwardScale(lumaQ), forwardScale(chromaQ)];
+  const hMax = Math.max(...comps.map((c) => c.h));
+  const vMax = Math.max(...comps.map((c) => c.v));
   const out = new ByteWriter(Math.ceil(width * height * (quality >= 90 ? 0.6 : 0.3)) + 2048);
 
   // Headers: SOI, JFIF, tables, frame, Huffman tables, scan.
@@ -89,15 +141,13 @@ export function encodeJpeg(bitmap: Bitmap, { quality, subsampling = "4:2:0", res
     out.bytes([0xff, 0xdb, 0, 67, id]);
     for (let k = 0; k < 64; k++) out.byte(table[ZIGZAG[k]]);
   }
-  const comps = grey ? 1 : 3;
   out.bytes([0xff, 0xc0]);
-  out.u16(8 + comps * 3);
+  out.u16(8 + comps.length * 3);
   out.byte(8);
   out.u16(height);
   out.u16(width);
-  out.byte(comps);
-  out.bytes([1, (h << 4) | v, 0]);
-  if (!grey) out.bytes([2, 0x11, 1, 3, 0x11, 1]);
+  out.byte(comps.length);
+  comps.forEach((c, i) => out.bytes([i + 1, (c.h << 4) | c.v, i === 0 ? 0 : 1]));
   const specs: [number, HuffmanSpec][] = [
     [0x00, DC_LUMA],
     [0x10, AC_LUMA],
@@ -115,18 +165,19 @@ export function encodeJpeg(bitmap: Bitmap, { quality, subsampling = "4:2:0", res
     out.u16(restartInterval);
   }
   out.bytes([0xff, 0xda]);
-  out.u16(6 + comps * 2);
-  out.byte(comps);
+  out.u16(6 + comps.length * 2);
+  out.byte(comps.length);
   out.bytes([1, 0x00]);
   if (!grey) out.bytes([2, 0x11, 3, 0x11]);
   out.bytes([0, 63, 0]);
 
-  const dcL = huffmanCodes(DC_LUMA);
-  const acL = huffmanCodes(AC_LUMA);
-  const dcC = huffmanCodes(DC_CHROMA);
-  const acC = huffmanCodes(AC_CHROMA);
+  const coders = [
+    [huffmanCodes(DC_LUMA), huffmanCodes(AC_LUMA)],
+    [huffmanCodes(DC_CHROMA), huffmanCodes(AC_CHROMA)],
+  ];
   const block = new Float32Array(64);
   const preds = [0, 0, 0];
+  const xs = new Int32Array(8);
 
   const emit = (scale: Float32Array, dc: Coder, ac: Coder, comp: number) => {
     forwardDct(block);
@@ -157,17 +208,22 @@ export function encodeJpeg(bitmap: Bitmap, { quality, subsampling = "4:2:0", res
     if (run > 0) out.put(ac.code[0], ac.length[0]);
   };
 
-  // Samples are read with edge replication, so partial blocks at the right and bottom carry no
+  // Samples past the right and bottom edges repeat the last ones, so partial blocks carry no
   // stripes into the picture.
-  const px = (x: number, y: number) => ((y < height ? y : height - 1) * width + (x < width ? x : width - 1)) * 4;
-  const luma = (i: number) => 0.299 * data[i] + 0.587 * data[i + 1] + 0.114 * data[i + 2] - 128;
-  const cb = (i: number) => -0.168736 * data[i] - 0.331264 * data[i + 1] + 0.5 * data[i + 2];
-  const cr = (i: number) => 0.5 * data[i] - 0.418688 * data[i + 1] - 0.081312 * data[i + 2];
+  const load = (c: PlaneView, bx: number, by: number) => {
+    const x0 = bx * 8;
+    const y0 = by * 8;
+    for (let i = 0; i < 8; i++) xs[i] = c.start + Math.min(x0 + i, c.width - 1) * c.dx;
+    const d = c.plane;
+    for (let r = 0; r < 8; r++) {
+      const row = Math.min(y0 + r, c.height - 1) * c.dy;
+      const o = r * 8;
+      for (let i = 0; i < 8; i++) block[o + i] = d[row + xs[i]] - 128;
+    }
+  };
 
-  const mcuW = 8 * h;
-  const mcuH = 8 * v;
-  const mcusX = Math.ceil(width / mcuW);
-  const mcusY = Math.ceil(height / mcuH);
+  const mcusX = Math.ceil(width / (8 * hMax));
+  const mcusY = Math.ceil(height / (8 * vMax));
   let mcu = 0;
   for (let my = 0; my < mcusY; my++) {
     for (let mx = 0; mx < mcusX; mx++, mcu++) {
@@ -176,28 +232,15 @@ export function encodeJpeg(bitmap: Bitmap, { quality, subsampling = "4:2:0", res
         out.bytes([0xff, 0xd0 + ((mcu / restartInterval - 1) & 7)]);
         preds.fill(0);
       }
-      const x0 = mx * mcuW;
-      const y0 = my * mcuH;
-      for (let by = 0; by < v; by++) {
-        for (let bx = 0; bx < h; bx++) {
-          for (let i = 0; i < 64; i++) block[i] = luma(px(x0 + bx * 8 + (i & 7), y0 + by * 8 + (i >> 3)));
-          emit(lumaScale, dcL, acL, 0);
+      for (let i = 0; i < comps.length; i++) {
+        const c = comps[i];
+        const t = i === 0 ? 0 : 1;
+        for (let by = 0; by < c.v; by++) {
+          for (let bx = 0; bx < c.h; bx++) {
+            load(c, mx * c.h + bx, my * c.v + by);
+            emit(scales[t], coders[t][0], coders[t][1], i);
+          }
         }
-      }
-      if (grey) continue;
-      // Each chroma sample is the mean of the h × v pixels it covers.
-      for (const [comp, f] of [
-        [1, cb],
-        [2, cr],
-      ] as const) {
-        for (let i = 0; i < 64; i++) {
-          const sx = x0 + (i & 7) * h;
-          const sy = y0 + (i >> 3) * v;
-          let sum = 0;
-          for (let dy = 0; dy < v; dy++) for (let dx = 0; dx < h; dx++) sum += f(px(sx + dx, sy + dy));
-          block[i] = sum / (h * v);
-        }
-        emit(chromaScale, dcC, acC, comp);
       }
     }
   }

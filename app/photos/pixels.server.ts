@@ -66,10 +66,10 @@ export function shrink(src: Bitmap, width: number, height: number): Bitmap {
   return { data: out, width, height };
 }
 
-type Spans = { first: Int32Array; last: Int32Array; wFirst: Float64Array; wLast: Float64Array };
+export type Spans = { first: Int32Array; last: Int32Array; wFirst: Float64Array; wLast: Float64Array };
 
 // For each output column: the source columns it covers and the partial weights at either end.
-function spans(srcLen: number, outLen: number, scale: number): Spans {
+export function spans(srcLen: number, outLen: number, scale: number): Spans {
   const s: Spans = {
     first: new Int32Array(outLen),
     last: new Int32Array(outLen),

@@ -1,9 +1,11 @@
 import { createDeflate, crc32 } from "node:zlib";
 import type { Bitmap } from "./pixels.server";
+import { uprightView } from "./exif-orientation.server";
 
 // Encodes RGBA pixels as a PNG, one filtered scanline at a time into a deflate stream: memory is the
 // compressed output and two scanlines, never a filtered copy of the whole image. RGB when every
-// pixel is opaque, RGBA otherwise; nothing but IHDR, IDAT and IEND.
+// pixel is opaque, RGBA otherwise; nothing but IHDR, IDAT and IEND. Given an EXIF orientation, the
+// stored pixels are read through a turned view and written upright, with no turned copy.
 
 const SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
 
@@ -16,7 +18,10 @@ function chunk(type: string, body: Buffer): Buffer {
   return out;
 }
 
-export async function encodePng({ data, width, height }: Bitmap): Promise<Buffer> {
+export async function encodePng(bitmap: Bitmap, orientation = 1): Promise<Buffer> {
+  const { data } = bitmap;
+  const view = uprightView(bitmap.width, bitmap.height, bitmap.width, orientation);
+  const { width, height } = view;
   let opaque = true;
   for (let i = 3; i < data.length && opaque; i += 4) opaque = data[i] === 255;
   const channels = opaque ? 3 : 4;
@@ -39,9 +44,9 @@ export async function encodePng({ data, width, height }: Bitmap): Promise<Buffer
   let previous = Buffer.alloc(rowBytes);
   let current = Buffer.alloc(rowBytes);
   for (let y = 0; y < height; y++) {
-    const src = y * width * 4;
+    const src = view.start + y * view.dy;
     for (let x = 0, o = 0; x < width; x++) {
-      const i = src + x * 4;
+      const i = (src + x * view.dx) * 4;
       current[o++] = data[i];
       current[o++] = data[i + 1];
       current[o++] = data[i + 2];
