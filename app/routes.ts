@@ -100,4 +100,8 @@ export default [
   route("purchases/:orderId/review", "routes/buying/purchase-review.tsx"),
   route("sales/:orderId/review", "routes/buying/sale-review.tsx"),
   route("desk/reviews/:id", "routes/desk/review.tsx"),
+  // Bench certificates: the PDF of a bench-verified unit, the public page its QR code leads to, the same as JSON
+  route("listings/:id/certificate.pdf", "routes/listings/certificate.ts"),
+  route("certificates/:id", "routes/certificates/certificate.tsx"),
+  route("api/v1/certificates/:id", "routes/api.v1.certificates.$id.ts"),
 ] satisfies RouteConfig;
