@@ -24,7 +24,8 @@ export function MoneyChart({ book }: { book: CurrencyBook }) {
   const digits = 10 ** minorDigits(book.currency);
   const values = book.months.flatMap((m) => [m.salesMinor, m.feesMinor, m.payoutsMinor, m.pendingReleaseMinor].map((v) => v / digits));
   const { domain, step } = niceDomain([0, ...values], 1, 6);
-  const lo = Math.min(0, domain[0]);
+  // Amounts below zero are rare (none of these columns goes negative): the axis starts at 0 unless one does.
+  const lo = values.some((v) => v < 0) ? Math.min(0, domain[0]) : 0;
   const sy = linearScale([lo, domain[1]]);
   const n = Math.max(1, book.months.length);
   const group = SIZE / n;
