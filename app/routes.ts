@@ -100,4 +100,12 @@ export default [
   route("purchases/:orderId/review", "routes/buying/purchase-review.tsx"),
   route("sales/:orderId/review", "routes/buying/sale-review.tsx"),
   route("desk/reviews/:id", "routes/desk/review.tsx"),
+  // Bench certificates: the PDF of a bench-verified unit, the public page its QR code leads to, the same as JSON
+  route("listings/:id/certificate.pdf", "routes/listings/certificate.ts"),
+  route("certificates/:id", "routes/certificates/certificate.tsx"),
+  route("api/v1/certificates/:id", "routes/api.v1.certificates.$id.ts"),
+  // The seller's money per month from the escrow ledger: the page, its CSV, the same as JSON
+  route("sales/money", "routes/money/money.tsx"),
+  route("sales/money.csv", "routes/money/money-csv.ts"),
+  route("api/v1/sales/money", "routes/api.v1.sales.money.ts"),
 ] satisfies RouteConfig;

@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { plainPng } from "../support/photo-files";
 import type { Fixtures } from "./support/matrix-fixtures";
 import { apiOwnerOnly, apiSignedIn, everyone, ownerOnly, signedIn, type Entry } from "./support/matrix";
+import { certifiedDemoUnit } from "./support/certificate-fixture";
 
 // Who may reach what: every route in app/routes.ts, keyed by its URL pattern, with what each persona
 // (anonymous, buyer, the owner of the listing in the URL, another seller, workshop, moderator, admin)
@@ -14,6 +15,8 @@ const desk = { anonymous: "sign-in", moderator: "ok", admin: "ok", others: 403 }
 const form = (fields: Record<string, string>) => () => ({ form: fields });
 const LOG_ENTRY = { intent: "add", doneOn: "2025-02-20", work: "Cleaned the input selector.", technician: "Bench 1" };
 const png = await plainPng(32, 24);
+const certified = await certifiedDemoUnit();
+const sellers = { anonymous: "sign-in", owner: "ok", seller: "ok", workshop: "ok", others: 403 } as const;
 const photoUpload = () => {
   const multipart = new FormData();
   multipart.set("photo", new Blob([new Uint8Array(png)], { type: "image/png" }), "front.png");
@@ -584,4 +587,42 @@ export const MATRIX: Record<string, Entry> = {
   // Liveness and readiness for load balancers.
   "/healthz/live": { cases: [{ get: everyone("ok") }] },
   "/healthz/ready": { cases: [{ get: everyone("ok") }] },
+  // Bench certificates: the PDF for whoever may open a bench-verified unit's page (a unit without a
+  // bench sheet has none, not even for its seller); the page and JSON its QR code leads to, for anyone.
+  "/listings/:id/certificate.pdf": {
+    cases: [
+      { name: "a bench-verified demo unit", params: () => ({ id: certified.listingId }), get: everyone("ok") },
+      { name: "a live unit without a bench sheet", params: (f) => ({ id: f.live.id }), get: everyone(404) },
+      { name: "a draft", params: draft, get: everyone(404) },
+      { name: "no such listing", params: () => ({ id: randomUUID() }), get: everyone(404) },
+    ],
+  },
+  "/certificates/:id": {
+    cases: [
+      { name: "a certificate", params: () => ({ id: certified.certificateId }), get: everyone("ok") },
+      { name: "no such certificate", params: () => ({ id: randomUUID() }), get: everyone(404) },
+    ],
+  },
+  "/api/v1/certificates/:id": {
+    cases: [
+      {
+        name: "a certificate",
+        params: () => ({ id: certified.certificateId }),
+        get: everyone("ok"),
+        writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } },
+      },
+      { name: "no such certificate", params: () => ({ id: randomUUID() }), get: everyone(404) },
+    ],
+  },
+  // The money view: sellers (workshops included) see their own ledger's months; no one else's is reachable.
+  "/sales/money": { cases: [{ get: sellers }] },
+  "/sales/money.csv": { cases: [{ get: sellers }] },
+  "/api/v1/sales/money": {
+    cases: [
+      {
+        get: { anonymous: 401, owner: "ok", seller: "ok", workshop: "ok", others: 403 },
+        writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } },
+      },
+    ],
+  },
 };

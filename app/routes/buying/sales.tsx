@@ -3,6 +3,7 @@ import type { Route } from "./+types/sales";
 import { requireRole } from "~/auth/guards.server";
 import { salesPage } from "~/buying/orders-page.server";
 import { PageHeader } from "~/components/PageHeader";
+import { ButtonLink } from "~/components/Button";
 import { OrderRow } from "~/buying/ui/OrderParts";
 import { PayoutsPanel } from "~/buying/ui/PayoutsPanel";
 
@@ -23,6 +24,11 @@ export default function Sales({ loaderData }: Route.ComponentProps) {
         overline="Selling"
         title="Sales"
         lede="Units buyers have reserved or paid for. The money reaches you when the buyer accepts the unit or the audition window closes."
+        actions={
+          <ButtonLink to="/sales/money" variant="secondary">
+            Money per month
+          </ButtonLink>
+        }
       />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <section aria-labelledby="orders-heading" className="space-y-3">

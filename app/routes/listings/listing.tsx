@@ -22,6 +22,7 @@ import { buyState } from "~/buying/buy-state.server";
 import { BuyPanel } from "~/buying/ui/BuyPanel";
 import { listingReputation } from "~/reputation/listing-panels.server";
 import { SoldPriceIndexPanel } from "~/reputation/ui/SoldPriceIndexPanel";
+import { CertificateLink } from "~/certificates/ui/CertificateLink";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
@@ -105,6 +106,7 @@ export default function ListingPage({ loaderData }: Route.ComponentProps) {
           <div className="border-t border-rule pt-5">
             <KeyFigures figures={keyFigures} verified={listing.benchVerified} />
           </div>
+          {listing.benchVerified && bench?.verified ? <CertificateLink listingId={listing.id} isSeller={viewer.isSeller} /> : null}
         </div>
       </div>
 
