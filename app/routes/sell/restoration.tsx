@@ -10,6 +10,7 @@ import { RestorationEntryForm } from "~/sell/RestorationEntryForm";
 import { Section } from "~/sell/Section";
 import { useEditor } from "./editor";
 import { readRestorationForm, logValueText, type RestorationEntryView } from "@shared/restoration-form";
+import { dayText } from "@shared/dates";
 
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
@@ -47,14 +48,7 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
     <article className="space-y-3" aria-label={`Log entry of ${e.doneOn}`}>
       <header className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-base">
-          <time dateTime={e.doneOn}>
-            {new Date(`${e.doneOn}T00:00:00Z`).toLocaleDateString("en-GB", {
-              day: "numeric",
-              month: "long",
-              year: "numeric",
-              timeZone: "UTC",
-            })}
-          </time>
+          <time dateTime={e.doneOn}>{dayText(e.doneOn)}</time>
           {e.technician ? <span className="font-sans text-sm font-normal text-ink-soft"> · {e.technician}</span> : null}
         </h3>
         {editing ? null : (
