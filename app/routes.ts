@@ -100,4 +100,6 @@ export default [
   route("purchases/:orderId/review", "routes/buying/purchase-review.tsx"),
   route("sales/:orderId/review", "routes/buying/sale-review.tsx"),
   route("desk/reviews/:id", "routes/desk/review.tsx"),
+  // The editor: deleting a draft (asks once more; a job clears its stored files)
+  route("sell/:id/delete", "routes/sell/delete.tsx"),
 ] satisfies RouteConfig;
