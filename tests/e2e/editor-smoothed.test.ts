@@ -118,9 +118,9 @@ describe("the editor, smoothed", () => {
     expect(first.end).toBe("40px");
     expect(first.start).toBe("0px");
     await shot(page, "editor-steps-390");
-    await page.getByLabel("Country").selectOption("GB");
-    await page.getByLabel("Country").scrollIntoViewIfNeeded();
-    expect(await page.getByLabel("Currency").inputValue()).toBe("GBP");
+    await page.getByLabel("Country", { exact: true }).selectOption("GB");
+    await page.getByLabel("Country", { exact: true }).scrollIntoViewIfNeeded();
+    expect(await page.getByLabel("Currency", { exact: true }).inputValue()).toBe("GBP");
     await shot(page, "editor-currency-gb-390");
 
     // On a desktop the chips wrap and the steps fit: nothing fades.
