@@ -108,4 +108,6 @@ export default [
   route("sales/money", "routes/money/money.tsx"),
   route("sales/money.csv", "routes/money/money-csv.ts"),
   route("api/v1/sales/money", "routes/api.v1.sales.money.ts"),
+  // The editor: deleting a draft (asks once more; a job clears its stored files)
+  route("sell/:id/delete", "routes/sell/delete.tsx"),
 ] satisfies RouteConfig;

@@ -1,5 +1,6 @@
 // An order's words, for pages and mails alike (no zod, no server code). The states are Loadline's own;
 // the database's CHECK constraint lists the same ones (db/migrations/20261230-0100-orders.ts).
+import { momentText } from "./dates";
 
 export const ORDER_STATES = [
   "reserved",
@@ -66,20 +67,8 @@ export interface OrderStepView {
   transferId?: string | null;
 }
 
-/** "2 Dec 2026, 14:05": the one way the site writes a moment (UTC), as the order pages' timeline does. */
-export const ORDER_TIME_FORMAT = new Intl.DateTimeFormat("en-GB", {
-  day: "numeric",
-  month: "short",
-  year: "numeric",
-  hour: "2-digit",
-  minute: "2-digit",
-  timeZone: "UTC",
-});
-
 function when(value: Date | string | null | undefined): string {
-  if (!value) return "";
-  const d = typeof value === "string" ? new Date(value) : value;
-  return ` by ${ORDER_TIME_FORMAT.format(d)} UTC`;
+  return value ? ` by ${momentText(value)}` : "";
 }
 
 /** The order's next step and who owes it, worded for the one looking. */

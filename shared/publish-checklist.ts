@@ -31,6 +31,8 @@ export function publishChecklist(i: ChecklistInput): ChecklistItem[] {
   const shipped = l.shippingOptions.some((o) => o.method !== "collection");
   const faulty = l.serviceState === "needs_work" || l.serviceState === "parts_only";
   const measuredClaim = l.serviceState === "serviced_measured";
+  // Only what applies to this unit is listed: a serviced unit with no fault has no "fault, described"
+  // to tick off, a unit collected in person no handling time.
   const items: ChecklistItem[] = [
     { id: "title", step: "item", label: "Maker and model", ok: !!(l.maker && l.model), hint: "Buyers search by both." },
     { id: "price", step: "item", label: "Price", ok: l.priceMinor !== null, hint: "The asking price; say whether offers are welcome." },
@@ -49,37 +51,44 @@ export function publishChecklist(i: ChecklistInput): ChecklistItem[] {
       ok: l.shippingOptions.length > 0,
       hint: "Collection, parcel or freight, with a price per zone you ship to.",
     },
-    {
+  ];
+  if (shipped)
+    items.push({
       id: "handling",
       step: "item",
       label: "Handling time",
-      ok: !shipped || l.handlingDays !== null,
+      ok: l.handlingDays !== null,
       hint: "Days between payment and dispatch.",
-    },
+    });
+  items.push(
     { id: "grade", step: "condition", label: "Cosmetic grade", ok: !!l.cosmeticGrade, hint: "How it looks." },
     { id: "service", step: "condition", label: "Service state", ok: !!l.serviceState, hint: "What has been done to it." },
-    {
+  );
+  if (faulty)
+    items.push({
       id: "fault-note",
       step: "condition",
       label: "The fault, described",
-      ok: !faulty || !!l.conditionNote?.trim(),
+      ok: !!l.conditionNote?.trim(),
       hint: "A unit that needs work or is for parts says what is wrong in the condition note.",
-    },
-    {
-      id: "restoration",
-      step: "restoration",
-      label: "Restoration log",
-      ok: !measuredClaim || i.restorationEntries > 0,
-      hint: "“Serviced & measured” needs at least one entry saying what was done.",
-    },
-    {
-      id: "bench",
-      step: "bench",
-      label: "Bench sheet",
-      ok: !measuredClaim || (i.sheet?.measured ?? 0) > 0,
-      hint: "“Serviced & measured” needs a bench sheet with measured readings.",
-    },
-  ];
+    });
+  if (measuredClaim)
+    items.push(
+      {
+        id: "restoration",
+        step: "restoration",
+        label: "Restoration log",
+        ok: i.restorationEntries > 0,
+        hint: "“Serviced & measured” needs at least one entry saying what was done.",
+      },
+      {
+        id: "bench",
+        step: "bench",
+        label: "Bench sheet",
+        ok: (i.sheet?.measured ?? 0) > 0,
+        hint: "“Serviced & measured” needs a bench sheet with measured readings.",
+      },
+    );
   if (i.photos) {
     items.push({
       id: "photos",

@@ -1,5 +1,6 @@
 import { listOpenSessions } from "~/auth/session-store.server";
 import { describeBrowser } from "~/auth/browser-name";
+import { momentText } from "@shared/dates";
 
 // What /account shows of an account's open sessions. Only the row id leaves the server (the forms
 // post it back); the token never does.
@@ -16,8 +17,7 @@ export interface SessionRow {
 }
 
 // Formatted here, in UTC, so the page reads the same on the server and after hydration.
-const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
-const label = (d: Date) => `${when.format(d)} UTC`;
+const label = (d: Date) => momentText(d);
 
 export async function sessionList(userId: string, currentSessionId: string): Promise<SessionRow[]> {
   const rows = await listOpenSessions(userId);

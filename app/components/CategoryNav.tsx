@@ -22,7 +22,7 @@ export function CategoryNav({
     <span className={cx("figures text-xs", active ? "text-card/80" : "text-ink-faint")}>{n}</span>
   );
   return (
-    <nav aria-label="Categories" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+    <nav aria-label="Categories" className="scroll-hint -mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
       <ul className="flex gap-2 pb-1 sm:flex-wrap">
         <li>
           <Link to={hrefFor(null)} className={chip(current === null)} aria-current={current === null ? "page" : undefined}>

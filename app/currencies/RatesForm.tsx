@@ -7,6 +7,7 @@ import { CURRENCY_NAMES } from "@shared/currency";
 import { isCurrency } from "@shared/listing-input";
 import { BASE_CURRENCY, CONFIRM_ABOVE, changeShare, type RateChange } from "./rate-form";
 import type { RateChangeLine, RateRow } from "./rates.server";
+import { dayText, momentText, timeOfDayText } from "@shared/dates";
 
 // The admin's rate table: one field per currency, saved together; a large change asks again.
 
@@ -16,7 +17,6 @@ export type RatesActionData =
   | { kind: "saved"; saved: RateChange[]; repriced: number };
 
 const name = (code: string) => (isCurrency(code) ? CURRENCY_NAMES[code] : code);
-const when = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 export function RatesForm({ rates, result }: { rates: RateRow[]; result: RatesActionData | null }) {
   const navigation = useNavigation();
@@ -107,8 +107,8 @@ export function RatesForm({ rates, result }: { rates: RateRow[]; result: RatesAc
                     ) : null}
                   </td>
                   <td className="px-2 py-3 text-xs text-ink-soft sm:px-4 sm:text-sm">
-                    <span className="figures block whitespace-nowrap sm:inline">{r.updatedAt.slice(0, 10)}</span>{" "}
-                    <span className="figures whitespace-nowrap">{r.updatedAt.slice(11, 16)} UTC</span>
+                    <span className="figures block whitespace-nowrap sm:inline">{dayText(r.updatedAt)}</span>{" "}
+                    <span className="figures whitespace-nowrap">{timeOfDayText(r.updatedAt)}</span>
                     {r.updatedBy ? <span className="block text-xs text-ink-faint">by {r.updatedBy}</span> : null}
                   </td>
                 </tr>
@@ -143,7 +143,7 @@ export function RateChanges({ changes }: { changes: RateChangeLine[] }) {
                 {c.currency}: {c.oldPerEur} → {c.newPerEur}
               </span>
               <span className="text-ink-soft">
-                {c.changedBy} · <span className="figures">{when(c.changedAt)}</span>
+                {c.changedBy} · <span className="figures">{momentText(c.changedAt)}</span>
               </span>
             </li>
           ))}

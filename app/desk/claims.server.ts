@@ -3,7 +3,7 @@ import { sequelize } from "~/db.server";
 import { refusal } from "~/http/errors.server";
 import { systemClock, type Clock } from "~/orders/clock.server";
 import type { DeskSubject } from "./audit.server";
-import { untilTime } from "./time";
+import { timeOfDayText } from "@shared/dates";
 
 // Claims keep two moderators from acting on one item: opening an item's page takes it for
 // CLAIM_MINUTES (or renews one's own claim); an action takes the claim again inside its own
@@ -77,7 +77,7 @@ export async function requireClaim(
 ): Promise<void> {
   if (await take(subject, moderatorId, clock.now(), transaction)) return;
   const holder = await claimHolder(subject, clock, transaction);
-  const who = holder ? `${holder.by} until ${untilTime(holder.until)}` : "another moderator";
+  const who = holder ? `${holder.by} until ${timeOfDayText(holder.until)}` : "another moderator";
   throw refusal("item_taken", `Taken by ${who}: only they can act on it for now.`);
 }
 

@@ -16,6 +16,7 @@ import { deliverOfferMail } from "~/offers/offer-mail.server";
 import { expireOffer } from "~/offers/offers.server";
 import { deliverWorkshopMail } from "~/workshops/mail.server";
 import { deliverDeskMail } from "~/desk/mail.server";
+import { cleanDraftStorage } from "~/listings/delete-draft.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -52,4 +53,6 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.workshopMail]: deliverWorkshopMail,
   // The review desk: the mail about a moderator's action to the person it affects.
   [QUEUES.deskMail]: deliverDeskMail,
+  // The seller's editor: a deleted draft's photos and captures removed from storage.
+  [QUEUES.draftStorageClean]: cleanDraftStorage,
 };

@@ -13,6 +13,7 @@ import type { BenchSheet as BenchSheetRow } from "~/models/bench-sheet.server";
 import type { Capture } from "~/models/capture.server";
 import { captureNote } from "./captures.server";
 import type { BenchView, CheckRow, KeyFigureView } from "./types";
+import { dayText } from "@shared/dates";
 
 // The bench sheet as the listing page shows it: rows built field by field from the parsed sheet, so
 // nothing else stored in it (the equipment's serial number in particular) reaches the page.
@@ -22,12 +23,9 @@ function verdictFor(row: BenchSheetRow, sheet: BenchSheet): Verdict {
   return row.verdict ?? checkBenchSheet(sheet);
 }
 
-const dayFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
-
-/** "2025-03-14" → "14 March 2025"; anything else as written. */
-function dayText(iso: string): string {
-  const d = new Date(`${iso}T00:00:00Z`);
-  return /^\d{4}-\d{2}-\d{2}$/.test(iso) && !Number.isNaN(d.getTime()) ? dayFormat.format(d) : iso;
+/** "2025-03-14" → "14 Mar 2025"; anything else as written. */
+function measuredDay(iso: string): string {
+  return /^\d{4}-\d{2}-\d{2}$/.test(iso) && !Number.isNaN(new Date(iso).getTime()) ? dayText(iso) : iso;
 }
 
 /** "65" + "W" from "65 W"; "±0.3" + "dB"; a bare number has no unit. */
@@ -91,7 +89,7 @@ export function benchView(row: BenchSheetRow, sheet: BenchSheet, captures: Map<s
   ]);
   return {
     measuredBy: sheet.measuredBy ?? null,
-    measuredOn: sheet.measuredOn ? dayText(sheet.measuredOn) : null,
+    measuredOn: sheet.measuredOn ? measuredDay(sheet.measuredOn) : null,
     notes: sheet.notes ?? null,
     checkedAt: row.checkedAt ? row.checkedAt.toISOString() : null,
     summary: verdict.summary,

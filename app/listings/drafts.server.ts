@@ -5,7 +5,9 @@ import type { SessionUser } from "~/auth/guards.server";
 import { hasRole } from "~/auth/guards.server";
 import { normaliseRoles } from "~/auth/roles";
 import { CATEGORIES } from "@shared/catalogue";
-import { ConditionPatchSchema, ConditionSchema, ItemPatchSchema, ItemSchema } from "@shared/listing-draft";
+import { ConditionPatchSchema, ConditionSchema, ItemPatchSchema, ItemSchema, type ItemPatch } from "@shared/listing-draft";
+import { currencyAfterCountryChange, listingCurrencyFor, sameMinorDigits } from "@shared/listing-currency";
+import { isCurrency } from "@shared/listing-input";
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, ListingStateError, type Issue } from "./errors.server";
 import { NO_FACETS } from "@shared/listing-facets";
@@ -45,6 +47,7 @@ export async function createDraft(user: SessionUser, category: unknown): Promise
         boxedWidthMm: null,
         boxedHeightMm: null,
         priceMinor: null,
+        currency: listingCurrencyFor(workshop?.country),
         country: workshop?.country ?? null,
         region: workshop?.region ?? null,
         town: workshop?.town ?? null,
@@ -73,6 +76,22 @@ function keepPublishable(listing: Listing, next: Record<string, unknown>, prefix
   }));
 }
 
+/**
+ * A draft's currency moves with its country unless the seller chose it (shared/listing-currency.ts).
+ * The form does this as the seller picks; here for a plain form post or an API client. Only between
+ * currencies that read the typed prices alike, and never on a published listing, where the seller
+ * must see such a change before it is saved.
+ */
+function followCountry(listing: Listing, values: ItemPatch): ItemPatch {
+  if (listing.status !== "draft" || values.country === undefined) return values;
+  const sent = values.currency ?? listing.currency;
+  const next = currencyAfterCountryChange(
+    { country: listing.country, currency: listing.currency },
+    { country: values.country, currency: sent },
+  );
+  return next !== sent && isCurrency(next) && sameMinorDigits(next, sent) ? { ...values, currency: next } : values;
+}
+
 /** Save the item step (any subset of its fields). Returns the listing as saved. */
 export async function saveItem(listingId: string, sellerId: string, patch: unknown, opts: { transaction?: Transaction } = {}) {
   const parsed = ItemPatchSchema.safeParse(patch);
@@ -80,7 +99,7 @@ export async function saveItem(listingId: string, sellerId: string, patch: unkno
   const run = async (transaction: Transaction) => {
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
     assertEditable(listing);
-    const values = parsed.data;
+    const values = followCountry(listing, parsed.data);
     const current = ItemSchema.safeParse({ ...pickItem(listing), ...values });
     if (!current.success) throw new ListingInputError(zodIssues(current.error.issues));
     const issues = keepPublishable(listing, values, "");

@@ -9,6 +9,7 @@ import {
 import type { RestorationReading } from "@shared/catalogue-schemas";
 import type { Listing, RestorationEntry, User, Workshop } from "~/models/index.server";
 import type { RestorationEntryView, SellerCard, ShippingView } from "./types";
+import { dayText, monthText } from "@shared/dates";
 
 // The restoration log, the seller's card and the shipping options, as the listing page shows them.
 
@@ -29,8 +30,6 @@ export function placeText(town: string | null, region: string | null, country: s
 }
 
 // ---- restoration log ---------------------------------------------------------------------------
-
-const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
 
 function readingText(r: RestorationReading): string {
   const value = Number.isInteger(r.value) ? String(r.value) : String(Number(r.value.toPrecision(4)));
@@ -56,7 +55,7 @@ export function restorationLog(entries: RestorationEntry[]): RestorationEntryVie
     .map((e) => ({
       id: e.id,
       doneOn: e.doneOn,
-      doneOnText: dateFormat.format(new Date(`${e.doneOn}T00:00:00Z`)),
+      doneOnText: dayText(e.doneOn),
       work: e.work,
       technician: e.technician,
       parts: (e.parts ?? []).map((p) => ({ part: p.part, quantity: p.quantity, reference: p.reference ?? null })),
@@ -66,11 +65,9 @@ export function restorationLog(entries: RestorationEntry[]): RestorationEntryVie
 
 // ---- seller's card ---------------------------------------------------------------------------------
 
-const monthYear = new Intl.DateTimeFormat("en-GB", { month: "long", year: "numeric", timeZone: "UTC" });
-
 /** A workshop by its name and town; a private seller by display name and the listing's region. */
 export function sellerCard(listing: Listing, seller: User | null | undefined, workshop: Workshop | null | undefined): SellerCard {
-  const since = monthYear.format(workshop?.createdAt ?? seller?.createdAt ?? listing.createdAt);
+  const since = monthText(workshop?.createdAt ?? seller?.createdAt ?? listing.createdAt);
   if (workshop) {
     return {
       kind: "workshop",

@@ -5,6 +5,7 @@ import { formatPrice } from "@shared/money";
 import { Listing, User } from "~/models/index.server";
 import { Offer } from "~/models/offer.server";
 import { sendTalkMail, type TalkMail } from "~/messages/talk-mail.server";
+import { momentText } from "@shared/dates";
 
 // The 'offer-mail' job: each step of an offer mailed to the side that needs to know (both sides when
 // one is accepted or expires). Written as the offer stands when the job runs.
@@ -15,7 +16,7 @@ export type OfferMailEvent = (typeof OFFER_MAIL_EVENTS)[number];
 
 export const OfferMailJobSchema = z.object({ offerId: idSchema("offer"), event: z.enum(OFFER_MAIL_EVENTS) });
 
-const when = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+const when = (d: Date) => momentText(d);
 
 /** Sends the step's mails; returns how many went. */
 export async function deliverOfferMail(data: unknown): Promise<number> {

@@ -8,6 +8,7 @@ import { listingTitle, TWO_PERSON_LIFT_G } from "@shared/catalogue";
 import { formatPrice } from "@shared/money";
 import { nextStep } from "@shared/orders";
 import type { Audience } from "./step.server";
+import { momentText } from "@shared/dates";
 
 // The 'order-mail' worker: one mail to one side about one timeline row, in the notices' layout. The
 // job reads the order as it is when it runs but words the mail from the event it was queued for, so
@@ -21,7 +22,7 @@ const RECEIVING_CAUTION =
   "Before you measure: let a unit that arrived cold stand at room temperature for a few hours before switching it on, check that its mains voltage matches yours, and test amplifiers into a proper dummy load, never into nothing. Anything inside the case is for a qualified technician; follow your local electrical-safety rules.";
 
 function when(d: Date | null): string {
-  return d ? `${d.toISOString().slice(0, 16).replace("T", " ")} UTC` : "";
+  return d ? momentText(d) : "";
 }
 
 /** Subject and paragraphs for one side, from the event's change. */

@@ -6,6 +6,7 @@ import type { ListingSummary } from "~/catalogue/types";
 import { placeText } from "~/listings/sections.server";
 import { isId } from "@shared/ids";
 import { reviewView, type ReviewView } from "./reviews.server";
+import { monthText } from "@shared/dates";
 
 // A seller's public standing, for /sellers/:id and /workshops/:slug: the rating (average and count of
 // reviews a moderator has not hidden), the latest reviews, completed sales, the share of the listings
@@ -39,8 +40,6 @@ export interface SellerProfile extends Standing {
   seller: { id: string; name: string; memberSince: string };
   workshop: { name: string; slug: string; place: string | null; about: string | null; verified: boolean } | null;
 }
-
-const monthYear = new Intl.DateTimeFormat("en-GB", { month: "long", year: "numeric", timeZone: "UTC" });
 
 /** "Perrin Gadsby" → "Perrin G.": enough to tell reviews apart, not enough to find the buyer. */
 export function shortName(displayName: string | null | undefined): string {
@@ -129,7 +128,7 @@ export async function sellerProfile(id: string): Promise<SellerProfile | { redir
   const inMarket = await Listing.count({ where: { sellerId: user.id, status: [...MARKET_STATUSES] } });
   if (inMarket === 0) return null;
   return {
-    seller: { id: user.id, name: user.displayName, memberSince: monthYear.format(user.createdAt) },
+    seller: { id: user.id, name: user.displayName, memberSince: monthText(user.createdAt) },
     workshop: null,
     ...(await standingOf(user.id)),
   };
@@ -142,7 +141,7 @@ export async function workshopProfile(slug: string): Promise<SellerProfile | nul
   const owner = await User.findByPk(workshop.ownerId, { attributes: ["id", "displayName", "status", "createdAt"] });
   if (!owner || owner.status !== "active") return null;
   return {
-    seller: { id: owner.id, name: owner.displayName, memberSince: monthYear.format(workshop.createdAt) },
+    seller: { id: owner.id, name: owner.displayName, memberSince: monthText(workshop.createdAt) },
     workshop: {
       name: workshop.name,
       slug: workshop.slug,

@@ -15,6 +15,7 @@ import {
 import { countryOptions } from "@shared/countries";
 import { readItemForm, zoneField, type FieldErrors } from "@shared/listing-draft";
 import { CURRENCY_CODES, isCurrency, parseEra, parsePrice, parseWeight } from "@shared/listing-input";
+import { currencyAfterCountryChange } from "@shared/listing-currency";
 import { Caution, Section } from "./Section";
 import { SaveBar } from "./SaveBar";
 import { useAutosave } from "./useAutosave";
@@ -47,9 +48,18 @@ export function ItemForm({
   const on = (k: string) => values[k] === true;
   const liveText = (k: string) => (typeof live[k] === "string" ? live[k] : "");
 
-  const onChange = () => {
+  const onChange = (e: React.FormEvent<HTMLFormElement>) => {
     const form = formRef.current;
     if (!form) return;
+    // The currency follows the country until the seller picks one (shared/listing-currency.ts).
+    const currencySelect = form.elements.namedItem("currency");
+    if (e.target instanceof HTMLSelectElement && e.target.name === "country" && currencySelect instanceof HTMLSelectElement) {
+      const next = currencyAfterCountryChange(
+        { country: liveText("country") || null, currency: liveText("currency") || "EUR" },
+        { country: e.target.value || null, currency: currencySelect.value },
+      );
+      if (next !== currencySelect.value && [...currencySelect.options].some((o) => o.value === next)) currencySelect.value = next;
+    }
     const data = new FormData(form);
     setLive(Object.fromEntries([...data.entries()].map(([k, x]) => [k, typeof x === "string" ? x : ""])));
     autosave.schedule(() => {

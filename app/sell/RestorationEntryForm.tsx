@@ -1,4 +1,4 @@
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { Form, Link } from "react-router";
 import { Button } from "~/components/Button";
 import { controlClass, Field, FormError, TextareaField } from "~/components/Field";
@@ -53,6 +53,7 @@ export function RestorationEntryForm({
   formError,
   busy,
   cancelHref,
+  focusFirst = false,
 }: {
   entry?: RestorationEntryView;
   values?: Record<string, string>;
@@ -60,7 +61,13 @@ export function RestorationEntryForm({
   formError?: string;
   busy: boolean;
   cancelHref?: string;
+  /** Focus the first field on mounting: after an entry was added, ready for the next. */
+  focusFirst?: boolean;
 }) {
+  const formRef = useRef<HTMLFormElement>(null);
+  useEffect(() => {
+    if (focusFirst) formRef.current?.querySelector<HTMLElement>("input:not([type=hidden]), textarea, select")?.focus();
+  }, [focusFirst]);
   const fromEntry = (): { parts: Row[]; before: Row[]; after: Row[] } => ({
     parts: (entry?.parts ?? []).map((p) => ({ part: p.part, quantity: String(p.quantity), reference: p.reference ?? "" })),
     before: (entry?.readingsBefore ?? []).map((r) => ({ quantity: r.quantity, value: logValueText(r), conditions: r.conditions })),
@@ -93,7 +100,7 @@ export function RestorationEntryForm({
   ];
 
   return (
-    <Form method="post" className="space-y-5" noValidate aria-label={entry ? "Edit log entry" : "New log entry"}>
+    <Form method="post" ref={formRef} className="space-y-5" noValidate aria-label={entry ? "Edit log entry" : "New log entry"}>
       <FormError>{formError}</FormError>
       <input type="hidden" name="intent" value={entry ? "update" : "add"} />
       {entry ? <input type="hidden" name="entryId" value={entry.id} /> : null}

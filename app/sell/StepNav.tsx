@@ -12,7 +12,7 @@ export function StepNav({ listingId, done }: { listingId: string; done: Partial<
     nav.current?.querySelector('[aria-current="page"]')?.scrollIntoView({ block: "nearest", inline: "center" });
   }, [pathname]);
   return (
-    <nav ref={nav} aria-label="Listing steps" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+    <nav ref={nav} aria-label="Listing steps" className="scroll-hint -mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
       <ol className="flex min-w-max gap-1 border-b border-rule">
         {EDITOR_STEPS.map((s, i) => (
           <li key={s.id}>

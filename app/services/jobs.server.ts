@@ -33,6 +33,8 @@ export const QUEUES = {
   workshopMail: "workshop-mail",
   // The review desk (app/desk): the mail to the person a moderator's action affects, one per audit record.
   deskMail: "desk-mail",
+  // The seller's editor (app/listings/delete-draft.server.ts): a deleted draft's stored objects.
+  draftStorageClean: "draft-storage-clean",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

@@ -471,7 +471,13 @@ export const MATRIX: Record<string, Entry> = {
   },
   "/sell/:id/restoration": {
     // A new log entry: the owner is sent back to the log; nobody else gets that far.
-    cases: [{ params: draft, get: ownerOnly(), post: { body: form(LOG_ENTRY), expect: ownerOnly({ to: "/sell/:id/restoration" }) } }],
+    cases: [
+      {
+        params: draft,
+        get: ownerOnly(),
+        post: { body: form(LOG_ENTRY), expect: ownerOnly({ to: /^\/sell\/[0-9a-f-]{36}\/restoration\?added=[0-9a-f-]{36}$/ }) },
+      },
+    ],
   },
   "/sell/:id/photos": { cases: [{ params: draft, get: ownerOnly() }] },
   // An empty sheet is a sheet (saved and checked).
@@ -622,6 +628,19 @@ export const MATRIX: Record<string, Entry> = {
       {
         get: { anonymous: 401, owner: "ok", seller: "ok", workshop: "ok", others: 403 },
         writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } },
+      },
+    ],
+  },
+  // Deleting a draft: its seller alone (the probe does not confirm, so the fixture stays: 400); a
+  // published listing is never deleted (409), and someone else's is a 404 as ever.
+  "/sell/:id/delete": {
+    cases: [
+      { name: "draft", params: draft, get: ownerOnly(), post: { body: form({}), expect: ownerOnly(400) } },
+      {
+        name: "live",
+        params: (f) => ({ id: f.live.id }),
+        get: ownerOnly(),
+        post: { body: form({ confirm: "yes" }), expect: ownerOnly(409) },
       },
     ],
   },

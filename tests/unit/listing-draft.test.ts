@@ -302,4 +302,14 @@ describe("what publishing needs", () => {
     expect(open({ ...base, photos: { ready: 2, processing: 1, failed: 0 } })).toEqual(["photos"]);
     expect(open({ ...base, emailVerified: false })).toEqual(["email"]);
   });
+
+  it("lists only what applies: no fault note for a serviced unit, no handling time for collection", () => {
+    const ids = (i: ChecklistInput) => publishChecklist(i).map((c) => c.id);
+    const serviced = { ...base, listing: { ...base.listing, serviceState: "serviced_measured" as const } };
+    expect(ids(serviced)).not.toContain("fault-note");
+    expect(ids(serviced)).toEqual(expect.arrayContaining(["restoration", "bench"]));
+    expect(ids(base)).not.toContain("handling");
+    expect(ids(base)).not.toContain("restoration");
+    expect(ids({ ...base, listing: { ...base.listing, serviceState: "parts_only" } })).toContain("fault-note");
+  });
 });

@@ -3,7 +3,7 @@ import { Badge, type Tone } from "~/components/Badge";
 import { Card } from "~/components/Card";
 import { Price } from "~/components/Price";
 import { cx } from "~/components/cx";
-import { ORDER_TIME_FORMAT } from "@shared/orders";
+import { momentText } from "@shared/dates";
 import type { OrderDetailView, OrderEventView, OrderMoneyView, OrderSummaryView, OrderViewer } from "../order-view";
 import { Minus, Money } from "./Money";
 
@@ -32,8 +32,6 @@ export function StateBadge({ state, label }: { state: string; label: string }) {
   );
 }
 
-const when = ORDER_TIME_FORMAT;
-
 /** States in which the buyer's money has not (or never) reached escrow. */
 const UNPAID_STATES: readonly string[] = ["reserved", "cancelled"];
 
@@ -41,7 +39,7 @@ const UNPAID_STATES: readonly string[] = ["reserved", "cancelled"];
 export function When({ iso, className }: { iso: string; className?: string }) {
   return (
     <time dateTime={iso} className={cx("figures whitespace-nowrap", className)}>
-      {when.format(new Date(iso))} UTC
+      {momentText(iso)}
     </time>
   );
 }

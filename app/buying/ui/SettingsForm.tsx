@@ -7,6 +7,7 @@ import { cx } from "~/components/cx";
 import { CURRENCY_NAMES } from "@shared/currency";
 import { CURRENCY_CODES } from "@shared/listing-input";
 import { MAX_FEE_PERCENT, SETTING_BOUNDS, type TimingField } from "../settings-form";
+import { momentText } from "@shared/dates";
 
 // The admin's marketplace settings: the platform fee and the buying path's timings, one plain form.
 
@@ -131,8 +132,7 @@ export function SettingsForm({
         </Button>
         {updated ? (
           <p className="text-sm text-ink-faint">
-            Last changed <span className="figures">{updated.at.slice(0, 10)}</span>{" "}
-            <span className="figures">{updated.at.slice(11, 16)} UTC</span>
+            Last changed <span className="figures">{momentText(updated.at)}</span>
             {updated.by ? ` by ${updated.by}` : ""}
           </p>
         ) : null}

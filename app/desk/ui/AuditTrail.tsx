@@ -1,5 +1,5 @@
 import { Card, CardTitle } from "~/components/Card";
-import { deskMoment } from "../time";
+import { momentText } from "@shared/dates";
 
 /** A trail line as audit.server's auditTrail gives it (plain data from a loader). */
 export interface AuditTrailLine {
@@ -29,7 +29,7 @@ export function AuditTrail({ items, title = "Trail" }: { items: AuditTrailLine[]
               <p className="whitespace-pre-line text-sm text-ink-soft">{i.note}</p>
               <p className="text-xs text-ink-faint">
                 <time className="figures" dateTime={i.at}>
-                  {deskMoment(i.at)}
+                  {momentText(i.at)}
                 </time>
               </p>
             </li>

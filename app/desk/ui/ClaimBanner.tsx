@@ -1,4 +1,4 @@
-import { untilTime } from "../time";
+import { timeOfDayText } from "@shared/dates";
 
 /** What claimForViewer said, as plain loader data (until is an ISO time). */
 export type ClaimState = { mine: true } | { mine: false; by: string; until: string };
@@ -21,8 +21,8 @@ export function ClaimBanner({ claim, minutes }: { claim: ClaimState; minutes: nu
       className="rounded-panel border border-brass/50 bg-brass-wash px-4 py-2 text-sm text-brass-ink"
       data-testid="claim-banner"
     >
-      Taken by <strong className="font-semibold">{claim.by}</strong> until <span className="figures">{untilTime(claim.until)}</span>. Its
-      actions are closed to you until then.
+      Taken by <strong className="font-semibold">{claim.by}</strong> until <span className="figures">{timeOfDayText(claim.until)}</span>.
+      Its actions are closed to you until then.
     </p>
   );
 }

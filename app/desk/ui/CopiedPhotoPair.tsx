@@ -1,5 +1,5 @@
 import { Link } from "react-router";
-import { deskMoment } from "../time";
+import { momentText } from "@shared/dates";
 
 // A copied_photo flag on the desk: the flagged listing's photo beside the photo it matches, each
 // with its listing's title, state and seller, so a moderator judges the copy by eye. Stacked on a
@@ -70,7 +70,7 @@ function Side({ side, heading, testId }: { side: PairSide; heading: string; test
         {side.publishedAt ? (
           <div>
             <dt className="inline text-ink-soft">Published: </dt>
-            <dd className="inline figures">{deskMoment(side.publishedAt)}</dd>
+            <dd className="inline figures">{momentText(side.publishedAt)}</dd>
           </div>
         ) : null}
       </dl>

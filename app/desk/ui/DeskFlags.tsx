@@ -3,7 +3,7 @@ import { Badge } from "~/components/Badge";
 import type { FlagView } from "../flag-view.server";
 import { CopiedPhotoPair } from "./CopiedPhotoPair";
 import type { ActionErrors } from "../listing-actions.server";
-import { deskMoment } from "../time";
+import { momentText } from "@shared/dates";
 import { DismissFlagForm } from "./ListingActions";
 
 // A listing's open flags: a copied photo beside the photo it copies, a low price with the index behind
@@ -35,7 +35,7 @@ export function DeskFlags({
               <span className="text-xs text-ink-faint">
                 {f.reporter ? `by ${f.reporter} · ` : ""}
                 <time className="figures" dateTime={f.at}>
-                  {deskMoment(f.at)}
+                  {momentText(f.at)}
                 </time>
               </span>
             </p>

@@ -5,7 +5,7 @@ import { PageHeader } from "~/components/PageHeader";
 import { StatusBadge } from "~/sell/StatusBadge";
 import type { DeskListingPage as Page } from "../listing-page.server";
 import type { ActionErrors } from "../listing-actions.server";
-import { deskMoment } from "../time";
+import { momentText } from "@shared/dates";
 import { AuditTrail } from "./AuditTrail";
 import { ClaimBanner } from "./ClaimBanner";
 import { DeskFlags } from "./DeskFlags";
@@ -78,7 +78,7 @@ export function DeskListingPage({
                 <span id="desk-verdict-figures">The bench's verdict</span>
               </CardTitle>
               <p className="text-sm">{verdict.summary}</p>
-              {verdict.checkedAt ? <p className="text-xs text-ink-faint">Checked {deskMoment(verdict.checkedAt)}</p> : null}
+              {verdict.checkedAt ? <p className="text-xs text-ink-faint">Checked {momentText(verdict.checkedAt)}</p> : null}
               {verdict.lines.length ? (
                 <ul className="divide-y divide-rule">
                   {verdict.lines.map((l, i) => (

@@ -4,7 +4,7 @@ import { Card } from "~/components/Card";
 import { PageHeader } from "~/components/PageHeader";
 import { cx } from "~/components/cx";
 import type { DeskKind, DeskQueue as Queue } from "../queue.server";
-import { deskMoment } from "../time";
+import { momentText } from "@shared/dates";
 
 // The queue: a chip per kind with its count (a link, so the filter works without script), then every
 // item oldest first with what it is, how long it has waited and who has taken it.
@@ -72,7 +72,7 @@ export function DeskQueue({ queue }: { queue: Queue }) {
                 <p className="text-xs text-ink-faint">
                   waiting since{" "}
                   <time className="figures" dateTime={i.since}>
-                    {deskMoment(i.since)}
+                    {momentText(i.since)}
                   </time>
                 </p>
               </li>

@@ -5,7 +5,7 @@ import { Card, CardTitle } from "~/components/Card";
 import { FormError, TextareaField } from "~/components/Field";
 import { PageHeader } from "~/components/PageHeader";
 import type { DeskUserPage as Page, UserActionErrors } from "../user-desk.server";
-import { deskMoment } from "../time";
+import { momentText } from "@shared/dates";
 import { AuditTrail } from "./AuditTrail";
 import { ClaimBanner } from "./ClaimBanner";
 
@@ -25,7 +25,7 @@ export function DeskUserPage({ page, errors, values }: { page: Page; errors: Use
         {account.status === "suspended" ? <Badge tone="fault">Suspended</Badge> : <Badge tone="trace">Active</Badge>}
         <span className="text-ink-soft">{account.email}</span>
         <span className="text-ink-soft">{account.roles.join(", ")}</span>
-        <span className="text-xs text-ink-faint">joined {deskMoment(account.joined)}</span>
+        <span className="text-xs text-ink-faint">joined {momentText(account.joined)}</span>
       </div>
       <ClaimBanner claim={claim} minutes={page.claimMinutes} />
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">

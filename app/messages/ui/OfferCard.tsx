@@ -5,6 +5,7 @@ import { Button, ButtonLink } from "~/components/Button";
 import { Field } from "~/components/Field";
 import { Price } from "~/components/Price";
 import type { OfferItem, ThreadHead } from "../types";
+import { momentText } from "@shared/dates";
 
 // An offer inside the conversation, with what the viewer may do with it now, and the buyer's form to
 // make one. Plain forms posting to the thread page: they work without JavaScript.
@@ -15,8 +16,6 @@ export interface OfferFormErrors {
   counter?: { offerId: string; message: string };
   offer?: { offerId: string; message: string };
 }
-
-const dateTime = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 export function OfferCard({ offer, thread, errors }: { offer: OfferItem; thread: ThreadHead; errors?: OfferFormErrors }) {
   const who = offer.fromMe ? "You" : thread.otherName;
@@ -36,13 +35,13 @@ export function OfferCard({ offer, thread, errors }: { offer: OfferItem; thread:
       <Price minor={offer.amountMinor} currency={offer.currency} className="text-xl font-semibold text-ink" />
       {offer.state === "open" ? (
         <p className="text-xs text-ink-faint">
-          Open until <span className="figures">{dateTime(offer.expiresAt)}</span>
+          Open until <span className="figures">{momentText(offer.expiresAt)}</span>
         </p>
       ) : null}
       {offer.state === "accepted" && offer.checkoutUntil ? (
         <p className="text-sm text-ink">
           {thread.role === "buyer" ? "You can buy at this price until " : "The buyer can buy at this price until "}
-          <span className="figures">{dateTime(offer.checkoutUntil)}</span>.
+          <span className="figures">{momentText(offer.checkoutUntil)}</span>.
         </p>
       ) : null}
       {offer.state === "accepted" && thread.role === "buyer" && offer.checkoutUntil && offer.checkoutUntil > new Date().toISOString() ? (

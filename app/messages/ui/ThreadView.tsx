@@ -8,6 +8,7 @@ import { ThreadApiError } from "../thread-client";
 import type { Conversation, MessageItem } from "../types";
 import { useThread } from "./use-thread";
 import { MakeOfferForm, OfferCard, type OfferFormErrors } from "./OfferCard";
+import { momentText } from "@shared/dates";
 
 // One conversation: messages and offers in the order they happened, and the compose box. The box is
 // a plain form posting to the page (no JavaScript needed); with JavaScript it sends through the
@@ -16,8 +17,6 @@ import { MakeOfferForm, OfferCard, type OfferFormErrors } from "./OfferCard";
 export interface ThreadFormErrors extends OfferFormErrors {
   body?: string;
 }
-
-const dateTime = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 export function ThreadView({ initial, errors, draft }: { initial: Conversation; errors?: ThreadFormErrors; draft?: string }) {
   const { conversation, send } = useThread(initial);
@@ -102,7 +101,7 @@ function MessageBubble({ item }: { item: MessageItem }) {
         )}
       >
         <p className="mb-1 text-xs text-ink-faint">
-          <span className="font-medium text-ink-soft">{item.senderName}</span> · <span className="figures">{dateTime(item.at)}</span>
+          <span className="font-medium text-ink-soft">{item.senderName}</span> · <span className="figures">{momentText(item.at)}</span>
         </p>
         <p className="whitespace-pre-line break-words text-ink">{item.body}</p>
         {item.masked ? (

@@ -8,7 +8,7 @@ import { cx } from "~/components/cx";
 import { TextLink } from "~/auth/AuthPanel";
 import { AuditTrail } from "~/desk/ui/AuditTrail";
 import { ClaimBanner } from "~/desk/ui/ClaimBanner";
-import { deskMoment } from "~/desk/time";
+import { momentText } from "@shared/dates";
 import type { deskThreadPage, DeskReport, DismissErrors } from "../desk-thread.server";
 
 type Page = Awaited<ReturnType<typeof deskThreadPage>>;
@@ -60,7 +60,7 @@ export function DeskThreadPage({ page, errors, values }: { page: Page; errors: D
               )}
             >
               <p className="text-xs text-ink-faint">
-                {l.who} ({l.side}) · <span className="figures">{deskMoment(l.at)}</span>
+                {l.who} ({l.side}) · <span className="figures">{momentText(l.at)}</span>
                 {l.masked ? " · contact details masked" : ""}
               </p>
               <p className={cx("whitespace-pre-line text-sm", l.kind === "offer" && "font-medium")}>{l.text}</p>
@@ -94,7 +94,7 @@ function ReportLine({
       </p>
       {r.note ? <p className="whitespace-pre-line text-sm text-ink-soft">{r.note}</p> : null}
       <p className="text-xs text-ink-faint">
-        {r.reporter} · <span className="figures">{deskMoment(r.at)}</span>
+        {r.reporter} · <span className="figures">{momentText(r.at)}</span>
       </p>
       {r.resolution === null ? (
         <Form method="post" className="space-y-2">

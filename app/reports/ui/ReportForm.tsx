@@ -4,7 +4,7 @@ import { Card, CardTitle } from "~/components/Card";
 import { FormError, TextareaField } from "~/components/Field";
 import { PageHeader } from "~/components/PageHeader";
 import { Notice } from "~/auth/AuthPanel";
-import { dayText } from "~/workshops/words";
+import { dayText } from "@shared/dates";
 import type { ReportErrors, ReportPage } from "../reports.server";
 import { REPORT_NOTE_MAX } from "../words";
 

@@ -6,7 +6,7 @@ import { PageHeader } from "~/components/PageHeader";
 import type { FieldErrors } from "../review-form";
 import type { ReviewPage, ReviewView } from "../reviews.server";
 import { RatingPips } from "./RatingPips";
-import { reviewDate } from "./dates";
+import { dayText } from "@shared/dates";
 
 // The buyer's review of an order and the seller's answer to it: forms that work without JavaScript,
 // errors beside their fields, and the review as written once it exists.
@@ -24,7 +24,7 @@ export function ReviewShown({ review, sellerName }: { review: ReviewView; seller
       <div className="flex flex-wrap items-center justify-between gap-2">
         <RatingPips value={review.rating} />
         <time dateTime={review.createdAt} className="text-xs text-ink-faint">
-          {reviewDate(review.createdAt)}
+          {dayText(review.createdAt)}
         </time>
       </div>
       <p className="whitespace-pre-line leading-relaxed">{review.body}</p>
@@ -36,7 +36,7 @@ export function ReviewShown({ review, sellerName }: { review: ReviewView; seller
       ) : null}
       {review.hidden ? (
         <p className="rounded-md border border-rule-strong bg-sunk px-3 py-2 text-sm text-ink-soft">
-          The review desk hid this review on {reviewDate(review.hidden.at)}: {review.hidden.note}
+          The review desk hid this review on {dayText(review.hidden.at)}: {review.hidden.note}
         </p>
       ) : null}
     </Card>

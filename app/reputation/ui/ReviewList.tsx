@@ -1,6 +1,6 @@
 import type { PublicReview } from "../profile.server";
 import { RatingPips } from "./RatingPips";
-import { reviewDate } from "./dates";
+import { dayText } from "@shared/dates";
 
 /** The latest reviews, each with the seller's answer under it. */
 export function ReviewList({ reviews, sellerName }: { reviews: PublicReview[]; sellerName: string }) {
@@ -12,7 +12,7 @@ export function ReviewList({ reviews, sellerName }: { reviews: PublicReview[]; s
           <div className="flex flex-wrap items-center justify-between gap-2">
             <RatingPips value={r.rating} size="sm" />
             <p className="text-xs text-ink-faint">
-              {r.by} · bought {r.unit} · <time dateTime={r.createdAt}>{reviewDate(r.createdAt)}</time>
+              {r.by} · bought {r.unit} · <time dateTime={r.createdAt}>{dayText(r.createdAt)}</time>
             </p>
           </div>
           <p className="whitespace-pre-line text-[0.9375rem] leading-relaxed text-ink">{r.body}</p>

@@ -9,7 +9,8 @@ import { Notice, TextLink } from "~/auth/AuthPanel";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { requireUser } from "~/auth/guards.server";
 import { applicationState, submitApplication } from "~/workshops/apply.server";
-import { APPLICATION_STATUS_LABELS, dayText } from "~/workshops/words";
+import { APPLICATION_STATUS_LABELS } from "~/workshops/words";
+import { dayText } from "@shared/dates";
 import { countryOptions } from "@shared/countries";
 import type { ApplicationStatus } from "~/models/workshop-application.server";
 

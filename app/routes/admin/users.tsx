@@ -13,6 +13,7 @@ import { listAccounts, setAccountRoles, setAccountStatus, type AccountRow } from
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { readPageForm } from "~/http/body.server";
 import { requireRole } from "~/auth/guards.server";
+import { dayText } from "@shared/dates";
 
 export const meta: Route.MetaFunction = () => [{ title: "Accounts · Admin · Loadline" }];
 
@@ -46,7 +47,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 function date(iso: string | null) {
-  return iso ? new Date(iso).toISOString().slice(0, 10) : "never";
+  return iso ? dayText(iso) : "never";
 }
 
 export default function AdminUsers({ loaderData, actionData }: Route.ComponentProps) {

@@ -10,6 +10,7 @@ import { idSchema } from "@shared/ids";
 import { PageHeader } from "~/components/PageHeader";
 import { Badge } from "~/components/Badge";
 import { cx } from "~/components/cx";
+import { momentText } from "@shared/dates";
 
 // The user's conversations, those with something unread first. Its action is the listing page's
 // "Ask the seller" and "Make an offer": open (or find) the buyer's thread and go there.
@@ -35,8 +36,6 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Messages · Loadline" }, { name: "robots", content: "noindex" }];
-
-const dateTime = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 export default function Messages({ loaderData }: Route.ComponentProps) {
   const { threads } = loaderData;
@@ -70,7 +69,7 @@ export default function Messages({ loaderData }: Route.ComponentProps) {
               >
                 <span className="flex flex-wrap items-baseline justify-between gap-2">
                   <span className={cx("text-ink", t.unread ? "font-semibold" : "font-medium")}>{t.listingTitle}</span>
-                  {t.lastMessageAt ? <span className="figures text-xs text-ink-faint">{dateTime(t.lastMessageAt)}</span> : null}
+                  {t.lastMessageAt ? <span className="figures text-xs text-ink-faint">{momentText(t.lastMessageAt)}</span> : null}
                 </span>
                 <span className="mt-0.5 flex flex-wrap items-center gap-2 text-sm text-ink-soft">
                   {t.role === "buyer" ? `Seller: ${t.otherName}` : `Buyer: ${t.otherName}`}

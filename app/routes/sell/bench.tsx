@@ -11,6 +11,10 @@ import { BenchSheetEditor } from "~/sell/bench/BenchSheetEditor";
 import { plotsForDraft } from "~/listings/plots.server";
 import { Plots } from "~/listings/ui/Plots";
 import { useEditor } from "./editor";
+import { HttpError } from "~/http/errors.server";
+import { addCaptureToSheet, postCaptureForm, postedCapture } from "~/listings/capture-post.server";
+import { CAPTURE_KINDS } from "~/sell/bench/capture-kinds";
+import { isOneOf } from "@shared/one-of";
 import { readSheetForm, readSheetState, sheetToState, type SheetFormState } from "@shared/bench-form/state";
 
 // The bench sheet step. Without JavaScript the whole form posts here and the server reads it the same
@@ -22,18 +26,45 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const plots = await plotsForDraft(params.id, user.id).catch((e: unknown) =>
     e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e),
   );
-  return { plots };
+  // After a plain-form capture upload: that capture's outcome (`?capture=`), and the kind chosen (`?kind=`).
+  const url = new URL(request.url);
+  const posted = await postedCapture(params.id, user.id, url.searchParams.get("capture"));
+  const kind = url.searchParams.get("kind");
+  return { plots, posted, captureKind: isOneOf(CAPTURE_KINDS, kind) ? kind : null };
 }
 
 type Failure = { ok: false; state: SheetFormState; formError?: string; issues: string[] };
+type CaptureFailure = { ok: false; capture: { message: string; issues: string[] } };
+
+/** The capture form without JavaScript: multipart, so it never mixes with the sheet's own form. */
+async function captureAction(request: Request, listingId: string, userId: string) {
+  try {
+    const { captureId } = await postCaptureForm(request, listingId, userId);
+    return redirect(`/sell/${listingId}/bench?capture=${captureId}#captures`);
+  } catch (e) {
+    if (e instanceof ListingNotFound) notFoundPage();
+    if (e instanceof HttpError)
+      return data<CaptureFailure>(
+        { ok: false, capture: { message: e.message, issues: (e.issues ?? []).map((i) => i.message) } },
+        { status: e.status, headers: e.headers },
+      );
+    throw e;
+  }
+}
 
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
   const user = await requireUser(request);
+  if (request.headers.get("Content-Type")?.toLowerCase().startsWith("multipart/form-data"))
+    return captureAction(request, params.id, user.id);
   const listing = await ownListing(params.id, user.id).catch((e: unknown) =>
     e instanceof ListingNotFound ? notFoundPage() : Promise.reject(e),
   );
   const form = await readPageForm(request, { maxBytes: BODY_LIMITS.benchForm });
+  if (form.get("intent") === "add-capture") {
+    await addCaptureToSheet(params.id, user.id, form.get("captureId"));
+    return redirect(`/sell/${params.id}/bench?capture=${encodeURIComponent(String(form.get("captureId") ?? ""))}#captures`);
+  }
   const state = readSheetForm(form, listing.category);
   const read = readSheetState(state);
   if (!read.sheet)
@@ -65,7 +96,8 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function BenchStep({ actionData, loaderData }: Route.ComponentProps) {
   const { listing, sheet } = useEditor();
   const busy = useNavigation().state === "submitting";
-  const failed = actionData && !actionData.ok ? actionData : null;
+  const failed = actionData && !actionData.ok && "state" in actionData ? actionData : null;
+  const captureFailure = actionData && !actionData.ok && "capture" in actionData ? actionData.capture : null;
   const initial: SheetFormState = failed?.state ?? sheetToState(sheet, listing.category);
   return (
     <>
@@ -77,6 +109,7 @@ export default function BenchStep({ actionData, loaderData }: Route.ComponentPro
         formError={failed?.formError}
         busy={busy}
         notice={actionData?.ok ? actionData.notice : undefined}
+        capture={{ posted: loaderData.posted, failure: captureFailure, kind: loaderData.captureKind }}
       />
       <Plots
         plots={loaderData.plots}

@@ -1,4 +1,4 @@
-import { Outlet, useRouteLoaderData } from "react-router";
+import { Link, Outlet, useRouteLoaderData } from "react-router";
 import type { Route } from "./+types/editor";
 import { requireUser } from "~/auth/guards.server";
 import { editorData, type EditorData } from "~/listings/view.server";
@@ -61,6 +61,14 @@ export default function Editor({ loaderData }: Route.ComponentProps) {
           <ButtonLink to="/sell" variant="quiet" size="sm">
             All your listings
           </ButtonLink>
+          {listing.status === "draft" && !listing.publishedAt ? (
+            <Link
+              to={`/sell/${listing.id}/delete`}
+              className="inline-flex h-8 items-center rounded-md px-3 text-sm font-medium text-fault no-underline hover:bg-fault-wash"
+            >
+              Delete draft…
+            </Link>
+          ) : null}
           {listing.status === "live" ? (
             <ButtonLink to={`/listings/${listing.id}`} variant="secondary" size="sm">
               View public page

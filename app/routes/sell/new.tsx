@@ -56,7 +56,14 @@ export default function NewListing({ loaderData, actionData }: Route.ComponentPr
                 key={c}
                 className="flex cursor-pointer gap-3 rounded-panel border border-rule bg-card p-4 shadow-panel transition-colors hover:border-walnut has-[:checked]:border-walnut has-[:checked]:bg-walnut-wash"
               >
-                <input type="radio" name="category" value={c} required defaultChecked={i === 0} className="mt-1 size-4 accent-walnut" />
+                <input
+                  type="radio"
+                  name="category"
+                  value={c}
+                  required
+                  defaultChecked={i === 0}
+                  className="mt-1 size-4 shrink-0 accent-walnut"
+                />
                 <span className="space-y-1">
                   <span className="block font-serif text-lg font-semibold">{CATEGORY_LABELS[c].one}</span>
                   <span className="block text-sm text-ink-soft">

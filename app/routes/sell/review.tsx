@@ -12,6 +12,7 @@ import { BenchVerifiedMark } from "~/components/BenchVerifiedMark";
 import { FormError } from "~/components/Field";
 import { Section } from "~/sell/Section";
 import { OutcomeCounts } from "~/sell/bench/VerdictPanel";
+import { checklistHeading } from "~/sell/review-words";
 import { useEditor } from "./editor";
 import {
   COSMETIC_GRADE_TEXT,
@@ -64,10 +65,11 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
   const canPublish = (listing.status === "draft" || listing.status === "withdrawn") && open.length === 0;
   const ready = photos.filter((p) => p.status === "ready").length;
   const era = formatEra(listing.yearFrom, listing.yearTo);
+  const heading = checklistHeading(listing.status);
   return (
     <div className="grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="space-y-5">
-        <Section title="Before it goes on the market">
+        <Section title={heading.title} lede={heading.lede}>
           <ul className="space-y-2" aria-label="Publishing checklist">
             {checklist.map((c) => (
               <li key={c.id} className="flex items-start gap-3" data-check={c.id} data-ok={c.ok}>
@@ -101,7 +103,7 @@ export default function ReviewStep({ actionData }: Route.ComponentProps) {
             ))}
           </ul>
         </Section>
-        <Section title="What buyers will see">
+        <Section title={listing.status === "draft" || listing.status === "withdrawn" ? "What buyers will see" : "What buyers see"}>
           <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2">
             <div>
               <dt className="text-ink-faint">Unit</dt>

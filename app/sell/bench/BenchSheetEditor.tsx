@@ -3,14 +3,16 @@ import { Form } from "react-router";
 import { Button } from "~/components/Button";
 import { CheckboxField, Field, FormError, TextareaField } from "~/components/Field";
 import { checkBenchSheet, CATEGORY_QUANTITIES, type Outcome, type Verdict } from "@shared/bench";
+import { foldCapture, type CaptureResult } from "@shared/bench-form/capture-fold";
 import { AMPLIFIER_CATEGORIES } from "@shared/bench/quantities";
 import { blankRow, type SheetRow } from "@shared/bench-form/rows";
-import { readingToRow, readSheetState, type SheetFormState } from "@shared/bench-form/state";
+import { readSheetState, type SheetFormState } from "@shared/bench-form/state";
 import { SaveBar } from "../SaveBar";
 import { Section } from "../Section";
 import { useAutosave } from "../useAutosave";
 import { BenchCautions } from "./BenchCautions";
-import { CAPTURE_FORM_ID, CapturePanel, type CaptureResult } from "./CapturePanel";
+import { CAPTURE_ADD_FORM_ID, CAPTURE_FORM_ID, CapturePanel } from "./CapturePanel";
+import type { CaptureFormState } from "./capture-kinds";
 import { CaptureGroup, type CaptureItem } from "./CaptureGroup";
 import { ReadingRow } from "./ReadingRow";
 import { OutcomeCounts, VerdictPanel } from "./VerdictPanel";
@@ -40,8 +42,11 @@ export function BenchSheetEditor({
   formError,
   busy,
   notice,
+  capture,
 }: {
   notice?: string;
+  /** The plain-form capture path's outcome (see CapturePanel). */
+  capture?: CaptureFormState;
   listingId: string;
   initial: SheetFormState;
   published: boolean;
@@ -50,6 +55,7 @@ export function BenchSheetEditor({
   busy: boolean;
 }) {
   const hydrated = useHydrated();
+  const captureSubmit = useRef<((form: HTMLFormElement) => void) | null>(null);
   const [state, setState] = useState(() => withSpareRows(initial));
   const read = useMemo(() => readSheetState(state), [state]);
   const fresh = useMemo<Verdict | null>(() => (read.sheet ? checkBenchSheet(read.sheet) : null), [read.sheet]);
@@ -98,16 +104,7 @@ export function BenchSheetEditor({
   const removeCapture = (id: string | undefined) =>
     set((s) => ({ ...s, rows: s.rows.filter((r) => !r.capture || r.capture.captureId !== id) }));
   const setMeta = (patch: Partial<SheetFormState["meta"]>) => set((s) => ({ ...s, meta: { ...s.meta, ...patch } }));
-  const foldCapture = (c: CaptureResult) =>
-    set((s) => {
-      const allowed = CATEGORY_QUANTITIES[s.category];
-      const kept = s.rows.filter((r) => r.capture?.captureId !== c.id);
-      const added = c.readings.filter((r) => allowed.includes(r.quantity)).map((r, i) => readingToRow(r, `cap-${c.id}-${i}`));
-      const firstBlank = kept.findIndex((r) => r.basis === "measured" && !r.capture && !r.value.trim());
-      const at = firstBlank < 0 ? kept.length : firstBlank;
-      const sweeps = c.sweep ? [...s.sweeps.filter((x) => x.captureId !== c.id), c.sweep] : s.sweeps;
-      return { ...s, rows: [...kept.slice(0, at), ...added, ...kept.slice(at)], sweeps };
-    });
+  const foldIn = (c: CaptureResult) => set((s) => foldCapture(s, c));
 
   // Labels M1…, R1… in each group, and the worst outcome of any rule that compared a row.
   const labels = new Map<string, string>();
@@ -204,14 +201,18 @@ export function BenchSheetEditor({
           </Section>
 
           <Section
+            id="captures"
             title="Captures"
             lede="Upload the raw file behind a figure: a WAV of the output sine into the dummy load, a square-wave or sweep CSV, or a WAV of the 3150 Hz test tone played from a test record or tape. The bench analyses it and its figures join the sheet, marked as from a capture."
           >
-            {hydrated ? (
-              <CapturePanel onCapture={foldCapture} category={state.category} />
-            ) : (
-              <p className="text-sm text-ink-soft">Uploading captures needs JavaScript; typed readings work without it.</p>
-            )}
+            <CapturePanel
+              onCapture={foldIn}
+              category={state.category}
+              listingId={listingId}
+              hydrated={hydrated}
+              submitRef={captureSubmit}
+              form={capture}
+            />
             {state.sweeps.length ? (
               <ul className="space-y-1 text-sm">
                 {state.sweeps.map((s, i) => (
@@ -307,8 +308,24 @@ export function BenchSheetEditor({
           </Section>
           <SaveBar state={autosave.state} busy={busy} notice={notice} next={{ label: "Save and review", short: "Review" }} />
         </Form>
-        {/* The capture inputs belong to this form (form attribute), so they never post with the sheet. */}
-        <form id={CAPTURE_FORM_ID} hidden onSubmit={(e) => e.preventDefault()} />
+        {/* The capture inputs belong to this form (form attribute), so they never post with the sheet.
+            Without JavaScript it posts itself (multipart) to this step; with it, the panel uploads. */}
+        <form
+          id={CAPTURE_FORM_ID}
+          hidden
+          noValidate
+          method="post"
+          encType="multipart/form-data"
+          action={`/sell/${listingId}/bench`}
+          onSubmit={(e) => {
+            e.preventDefault();
+            captureSubmit.current?.(e.currentTarget);
+          }}
+        />
+        <form id={CAPTURE_ADD_FORM_ID} hidden method="post" action={`/sell/${listingId}/bench`}>
+          <input type="hidden" name="intent" value="add-capture" />
+          <input type="hidden" name="captureId" value={capture?.posted?.id ?? ""} />
+        </form>
         <aside className="space-y-3 lg:sticky lg:top-4">
           {standing ? (
             <p role="status" className="rounded-md border border-brass/50 bg-brass-wash px-3 py-2 text-sm text-brass-ink">

@@ -1,21 +1,23 @@
-import { useId, useRef, useState } from "react";
+import { useEffect, useId, useRef, useState } from "react";
 import { Button } from "~/components/Button";
 import { Badge } from "~/components/Badge";
 import { controlClass } from "~/components/Field";
 import { cx } from "~/components/cx";
 import { z } from "zod";
-import { describeReading, readingSchema, sweepSchema, type Reading, type Sweep } from "@shared/bench";
+import { describeReading, readingSchema, sweepSchema } from "@shared/bench";
+import type { CaptureResult } from "@shared/bench-form/capture-fold";
 import { isOneOf } from "@shared/one-of";
 import { TwoToneFields } from "./TwoToneFields";
 import type { Category } from "@shared/bench/quantities";
 
-const CAPTURE_KINDS = ["sine", "square", "sweep", "impedance", "separation", "imd", "output_impedance", "wow_flutter"] as const;
-type CaptureKind = (typeof CAPTURE_KINDS)[number];
+import { CAPTURE_FORM_ID, CAPTURE_KINDS, type CaptureFormState, type CaptureKind } from "./capture-kinds";
+import { PostedCapture } from "./PostedCapture";
 
 // Raw measurement files (WAV, CSV) sent to the capture API with the conditions they were taken in; the
-// analysis comes back as readings that the sheet takes over, marked as from a capture. Needs JavaScript.
+// analysis comes back as readings that the sheet takes over, marked as from a capture. Without
+// JavaScript the same fields post as a plain multipart form to the bench step, which runs the same
+// capture logic and shows the outcome here after the redirect (`form`).
 
-export type CaptureResult = { id: string; fileName: string; readings: Reading[]; sweep?: Sweep };
 type Item = {
   key: number;
   fileName: string;
@@ -117,15 +119,29 @@ function WowFlutterFields({ category }: { category?: Category }) {
   );
 }
 
-/** The id of the (empty) form the capture inputs belong to; it sits outside the sheet's form so the two never mix. */
-export const CAPTURE_FORM_ID = "capture-form";
+export { CAPTURE_ADD_FORM_ID, CAPTURE_FORM_ID } from "./capture-kinds";
 
 /** Turntables and tape decks are measured from a test tone; everything else starts from a sine. */
 const firstKind = (category?: Category): CaptureKind => (category === "turntable" || category === "tape_deck" ? "wow_flutter" : "sine");
 
-export function CapturePanel({ onCapture, category }: { onCapture: (c: CaptureResult) => void; category?: Category }) {
+export function CapturePanel({
+  onCapture,
+  category,
+  listingId,
+  hydrated = true,
+  submitRef,
+  form,
+}: {
+  onCapture: (c: CaptureResult) => void;
+  category?: Category;
+  listingId?: string;
+  hydrated?: boolean;
+  /** Set to the upload, for the capture form's submit event (JavaScript on). */
+  submitRef?: React.RefObject<((form: HTMLFormElement) => void) | null>;
+  form?: CaptureFormState;
+}) {
   const fileId = useId();
-  const [kind, setKind] = useState<CaptureKind>(firstKind(category));
+  const [kind, setKind] = useState<CaptureKind>(form?.kind ?? firstKind(category));
   const [items, setItems] = useState<Item[]>([]);
   const lastKey = useRef(0);
   const [problem, setProblem] = useState<string | null>(null);
@@ -150,6 +166,10 @@ export function CapturePanel({ onCapture, category }: { onCapture: (c: CaptureRe
       setKind(firstKind(category));
     }
   }
+
+  useEffect(() => {
+    if (submitRef) submitRef.current = (f) => void analyse(f);
+  });
 
   /** Show the answer on the item; true when the capture's readings went to the sheet. */
   function finish(key: number, fileName: string, answer: Answer): boolean {
@@ -350,16 +370,31 @@ export function CapturePanel({ onCapture, category }: { onCapture: (c: CaptureRe
             {problem}
           </p>
         ) : null}
-        <Button
-          variant="secondary"
-          onClick={() => {
-            const form = document.getElementById(CAPTURE_FORM_ID);
-            if (form instanceof HTMLFormElement) void analyse(form);
-          }}
-        >
-          Upload and analyse
-        </Button>
+        {form?.failure ? (
+          <div role="alert" className="space-y-1 text-sm font-medium text-fault">
+            <p>{form.failure.message}</p>
+            {form.failure.issues.length > 1 ? (
+              <ul className="list-disc pl-5 font-normal">
+                {form.failure.issues.map((m, n) => (
+                  <li key={n}>{m}</li>
+                ))}
+              </ul>
+            ) : null}
+          </div>
+        ) : null}
+        <div className="flex flex-wrap gap-2">
+          {/* Without JavaScript the fields above are the kind's shown on loading: this asks for another kind's. */}
+          {!hydrated && listingId ? (
+            <Button variant="quiet" type="submit" form={CAPTURE_FORM_ID} formMethod="get" formAction={`/sell/${listingId}/bench#captures`}>
+              Show the fields for this kind
+            </Button>
+          ) : null}
+          <Button variant="secondary" type="submit" form={CAPTURE_FORM_ID}>
+            Upload and analyse
+          </Button>
+        </div>
       </div>
+      {form?.posted ? <PostedCapture posted={form.posted} listingId={listingId} /> : null}
       {items.length ? (
         <ul className="space-y-2" aria-label="Captures">
           {items.map((i) => (

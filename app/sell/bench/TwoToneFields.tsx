@@ -1,6 +1,6 @@
 import { cx } from "~/components/cx";
 import { controlClass } from "~/components/Field";
-import { CAPTURE_FORM_ID } from "./CapturePanel";
+import { CAPTURE_FORM_ID } from "./capture-kinds";
 
 // The capture form's own fields for the separation, intermodulation and output-impedance kinds.
 

@@ -9,7 +9,8 @@ import { AuditTrail } from "~/desk/ui/AuditTrail";
 import { ClaimBanner } from "~/desk/ui/ClaimBanner";
 import type { deskWorkshopPage, DecisionErrors } from "../desk-page.server";
 import type { ApplicationView } from "../desk.server";
-import { APPLICATION_STATUS_LABELS, dayText, sizeText } from "../words";
+import { APPLICATION_STATUS_LABELS, sizeText } from "../words";
+import { dayText } from "@shared/dates";
 import { DOCUMENT_LINK_MINUTES } from "../document-link";
 
 type Page = Awaited<ReturnType<typeof deskWorkshopPage>>;
