@@ -100,4 +100,7 @@ export default [
   route("purchases/:orderId/review", "routes/buying/purchase-review.tsx"),
   route("sales/:orderId/review", "routes/buying/sale-review.tsx"),
   route("desk/reviews/:id", "routes/desk/review.tsx"),
+  // The workshop's inventory: the /sell table's data and bulk actions, and its CSV export
+  route("api/v1/inventory", "routes/api.v1.inventory.ts"),
+  route("sell/inventory.csv", "routes/sell/inventory-csv.ts"),
 ] satisfies RouteConfig;
