@@ -82,7 +82,10 @@ export function useInventoryAction(params: string, onDone?: (result: InventoryAc
       );
       onDone?.(result, action);
     },
-    // Counts per state, other pages and sorts by price may all have moved.
-    onSettled: () => client.invalidateQueries({ queryKey: ["inventory"] }),
+    // Counts per state, other pages and sorts by price may all have moved. Not awaited: the caller's
+    // own onError (the message beside the price) would otherwise wait for the refetch.
+    onSettled: () => {
+      void client.invalidateQueries({ queryKey: ["inventory"] });
+    },
   });
 }
