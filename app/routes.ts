@@ -110,4 +110,7 @@ export default [
   route("api/v1/sales/money", "routes/api.v1.sales.money.ts"),
   // The editor: deleting a draft (asks once more; a job clears its stored files)
   route("sell/:id/delete", "routes/sell/delete.tsx"),
+  // The workshop's inventory: the /sell table's data and bulk actions, and its CSV export
+  route("api/v1/inventory", "routes/api.v1.inventory.ts"),
+  route("sell/inventory.csv", "routes/sell/inventory-csv.ts"),
 ] satisfies RouteConfig;

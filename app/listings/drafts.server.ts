@@ -146,8 +146,8 @@ export async function saveCondition(listingId: string, sellerId: string, patch: 
 }
 
 /** Takes a live or held listing off the market; the seller can publish it again later. */
-export async function withdrawListing(listingId: string, sellerId: string): Promise<Listing> {
-  return sequelize.transaction(async (transaction) => {
+export async function withdrawListing(listingId: string, sellerId: string, opts: { transaction?: Transaction } = {}): Promise<Listing> {
+  const run = async (transaction: Transaction) => {
     const listing = await ownListing(listingId, sellerId, { transaction, lock: true });
     assertEditable(listing);
     if (!isPublished(listing))
@@ -160,7 +160,8 @@ export async function withdrawListing(listingId: string, sellerId: string): Prom
     await listing.update({ status: "withdrawn" }, { transaction });
     await queueWatchNotice({ kind: "withdrawn", listingId: listing.id }, transaction);
     return listing;
-  });
+  };
+  return opts.transaction ? run(opts.transaction) : sequelize.transaction(run);
 }
 
 export function pickItem(l: Listing) {

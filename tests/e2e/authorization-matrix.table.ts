@@ -438,7 +438,7 @@ export const MATRIX: Record<string, Entry> = {
       {
         get: signedIn("ok"),
         // A draft cannot be withdrawn, so the owner is told so (200 with a message); nobody else may try.
-        post: { body: (f) => ({ form: { intent: "withdraw", confirm: "yes", listingId: f.draft.id } }), expect: ownerOnly("ok") },
+        post: { body: (f) => ({ form: { intent: "withdraw", confirm: "yes", ids: f.draft.id } }), expect: ownerOnly("ok") },
       },
     ],
   },
@@ -589,6 +589,17 @@ export const MATRIX: Record<string, Entry> = {
       { get: everyone(405), writes: { POST: { body: () => ({ json: { type: "payment_intent.succeeded" } }), expect: everyone(400) } } },
     ],
   },
+  // The workshop's inventory: any account reads its own units; an action on a unit that is not yours is a
+  // 404 (the draft cannot be withdrawn, so its owner gets 409).
+  "/api/v1/inventory": {
+    cases: [
+      {
+        get: apiSignedIn("ok"),
+        writes: { POST: { body: (f) => ({ json: { action: "withdraw", ids: [f.draft.id] } }), expect: apiOwnerOnly(409) } },
+      },
+    ],
+  },
+  "/sell/inventory.csv": { cases: [{ get: signedIn("ok") }] },
   "/healthz": { cases: [{ get: everyone("ok") }] },
   // Liveness and readiness for load balancers.
   "/healthz/live": { cases: [{ get: everyone("ok") }] },

@@ -194,7 +194,7 @@ describe("listing a restored integrated amplifier", () => {
     await screenshot(page, "sell-review-published-1280");
 
     await page.goto("/sell");
-    const mine = page.locator(`li[data-listing="${id}"]`);
+    const mine = page.locator(`tr[data-listing="${id}"]`);
     await mine.getByText("Live", { exact: true }).waitFor();
     await mine.getByText("Bench-verified").waitFor();
 
@@ -260,7 +260,7 @@ describe("listing a restored integrated amplifier", () => {
     await page.getByText("Held for review.").first().waitFor();
 
     await page.goto("/sell");
-    const mine = page.locator(`li[data-listing="${id}"]`);
+    const mine = page.locator(`tr[data-listing="${id}"]`);
     await mine.getByText("Held for review", { exact: true }).waitFor();
     expect(await mine.getByText("Bench-verified").count()).toBe(0);
     expect(await mine.textContent()).toMatch(/half the load/);

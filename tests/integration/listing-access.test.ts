@@ -142,8 +142,8 @@ describe("through the pages", () => {
   it("the seller's list shows only their own listings", async () => {
     const mine = await call(() => sellLoader(args(get("/sell", owner.cookie), {})));
     const theirs = await call(() => sellLoader(args(get("/sell", other.cookie), {})));
-    expect(mine.body.listings.map((l: { id: string }) => l.id)).toContain(draftId);
-    expect(theirs.body.listings.map((l: { id: string }) => l.id)).not.toContain(draftId);
+    expect(mine.body.page.rows.map((l: { id: string }) => l.id)).toContain(draftId);
+    expect(theirs.body.page.rows.map((l: { id: string }) => l.id)).not.toContain(draftId);
   });
 
   it("the owner's form post saves without JavaScript: the typed price lands in minor units", async () => {

@@ -124,12 +124,12 @@ describe("withdrawing from the seller's list", () => {
           ),
         ),
       );
-    const unconfirmed = await post(seller.cookie, { intent: "withdraw", listingId: draft.id });
-    expect(unconfirmed.body).toMatchObject({ ok: false, formError: expect.stringMatching(/Confirm/) });
-    const stranger = await post(other.cookie, { intent: "withdraw", listingId: draft.id, confirm: "yes" });
+    const unconfirmed = await post(seller.cookie, { intent: "withdraw", ids: draft.id });
+    expect(unconfirmed.body).toMatchObject({ ok: false, confirm: true, formError: expect.stringMatching(/Confirm/) });
+    const stranger = await post(other.cookie, { intent: "withdraw", ids: draft.id, confirm: "yes" });
     expect(stranger.status).toBe(404);
     expect((await reload(draft.id)).listing.status).toBe("live");
-    const done = await post(seller.cookie, { intent: "withdraw", listingId: draft.id, confirm: "yes" });
+    const done = await post(seller.cookie, { intent: "withdraw", ids: draft.id, confirm: "yes" });
     expect(done.status).toBe(302);
     expect((await reload(draft.id)).listing.status).toBe("withdrawn");
   });
