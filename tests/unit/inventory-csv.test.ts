@@ -19,8 +19,8 @@ import { CATEGORY_QUANTITIES } from "@shared/bench/quantities";
 const AMP_ROW: Partial<InventoryRow> = {
   reference: "WS-0412",
   category: "integrated_amplifier",
-  maker: "Harwell Sound",
-  model: "IA-70",
+  maker: "Kelloran",
+  model: "ZK 7.0",
   era: "1978–80",
   cosmetic_grade: "clean",
   service_state: "serviced_measured",
@@ -90,8 +90,8 @@ describe("one row into draft input", () => {
     expect(d.category).toBe("integrated_amplifier");
     expect(d.item).toEqual({
       category: "integrated_amplifier",
-      maker: "Harwell Sound",
-      model: "IA-70",
+      maker: "Kelloran",
+      model: "ZK 7.0",
       yearFrom: 1978,
       yearTo: 1980,
       priceMinor: 124_900,
@@ -120,7 +120,7 @@ describe("one row into draft input", () => {
   });
 
   it("leaves the bench sheet out of a row without figures; blanks are nulls", () => {
-    const d = ok({ category: "turntable", maker: "Harwell Sound", model: "TT-2" });
+    const d = ok({ category: "turntable", maker: "Kelloran", model: "Rota 2" });
     expect(d.benchSheet).toBeNull();
     expect(d.reference).toBeNull();
     expect(d.item).toMatchObject({ priceMinor: null, yearFrom: null, weightG: null, country: null, currency: "EUR" });
@@ -185,8 +185,8 @@ describe("one listing as a row", () => {
     return {
       reference: d.reference,
       category: d.category,
-      maker: "Harwell Sound",
-      model: "IA-70",
+      maker: "Kelloran",
+      model: "ZK 7.0",
       yearFrom: 1978,
       yearTo: 1980,
       cosmeticGrade: "clean",
