@@ -16,6 +16,7 @@ import { deliverOfferMail } from "~/offers/offer-mail.server";
 import { expireOffer } from "~/offers/offers.server";
 import { deliverWorkshopMail } from "~/workshops/mail.server";
 import { deliverDeskMail } from "~/desk/mail.server";
+import { listingImportJob } from "~/imports/imports.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -52,4 +53,6 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.workshopMail]: deliverWorkshopMail,
   // The review desk: the mail about a moderator's action to the person it affects.
   [QUEUES.deskMail]: deliverDeskMail,
+  // Working in bulk: a workshop's CSV import, written as drafts in one transaction.
+  [QUEUES.listingImport]: (data) => listingImportJob(data),
 };

@@ -33,6 +33,8 @@ export const QUEUES = {
   workshopMail: "workshop-mail",
   // The review desk (app/desk): the mail to the person a moderator's action affects, one per audit record.
   deskMail: "desk-mail",
+  // Working in bulk (app/imports): a workshop's CSV import written as drafts, all or nothing.
+  listingImport: "listing-import",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

@@ -10,6 +10,14 @@ import { RestorationEntryForm } from "~/sell/RestorationEntryForm";
 import { Section } from "~/sell/Section";
 import { useEditor } from "./editor";
 import { readRestorationForm, logValueText, type RestorationEntryView } from "@shared/restoration-form";
+import { templatesForEditor } from "~/restoration-templates/templates.server";
+import { TemplatePicker } from "~/restoration-templates/ui/TemplatePicker";
+
+// A workshop's restoration templates: "Use a template" (?template=<id>) fills the new entry's form.
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  return { templates: await templatesForEditor(user, new URL(request.url).searchParams.get("template")) };
+}
 
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
@@ -111,7 +119,8 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
   );
 }
 
-export default function RestorationStep({ actionData }: Route.ComponentProps) {
+export default function RestorationStep({ actionData, loaderData }: Route.ComponentProps) {
+  const { templates } = loaderData;
   const { listing, restoration } = useEditor();
   const [params] = useSearchParams();
   const busy = useNavigation().state === "submitting";
@@ -154,8 +163,10 @@ export default function RestorationStep({ actionData }: Route.ComponentProps) {
         </Section>
         {editing ? null : (
           <Section title="Add an entry">
+            <TemplatePicker choices={templates.choices} chosenId={templates.chosenId} />
             <RestorationEntryForm
-              values={failedHere("add")?.values}
+              key={templates.chosenId ?? "blank"}
+              values={failedHere("add")?.values ?? templates.values ?? undefined}
               errors={failedHere("add")?.errors}
               formError={failedHere("add")?.formError}
               busy={busy}
