@@ -87,7 +87,9 @@ export function checkInventoryCsv(text: string): CsvCheck {
   for (const p of checkHeader(head.cells)) problems.push({ row: head.row, ...p });
   if (problems.length) return fail(records.length);
   if (!records.length) {
-    problems.push({ row: head.row + 1, column: "row", message: "The file has a header and no units; add a row per unit." });
+    // The row a first unit would take: after the header and any comment lines.
+    const next = parsed.data.findLastIndex((cells) => !isBlank(cells)) + 2;
+    problems.push({ row: next, column: "row", message: "The file has a header and no units; add a row per unit." });
     return fail(0);
   }
   if (records.length > MAX_INVENTORY_ROWS) {

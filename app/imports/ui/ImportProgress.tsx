@@ -52,7 +52,13 @@ export function ImportProgress({ initial }: { initial: ImportView }) {
           className="h-3 overflow-hidden rounded-full bg-sunk"
         >
           <div
-            className={i.status === "failed" ? "h-full bg-fault" : "h-full bg-walnut transition-[width] duration-500"}
+            className={
+              i.status === "failed"
+                ? "h-full bg-fault"
+                : running(i)
+                  ? "h-full bg-walnut transition-[width] duration-500"
+                  : "h-full bg-walnut"
+            }
             style={{ width: `${i.status === "done" ? 100 : i.status === "failed" ? 100 : percent}%` }}
           />
         </div>

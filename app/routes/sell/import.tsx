@@ -142,14 +142,14 @@ export default function ImportPage({ loaderData, actionData }: Route.ComponentPr
               <li>
                 <a href="/sell/import/template.csv" download>
                   The template
-                </a>{" "}
-                <span className="text-ink-soft">: the header and a line of help.</span>
+                </a>
+                <span className="block text-ink-soft">The header and a line of help.</span>
               </li>
               <li>
                 <a href="/sell/import/example.csv" download>
                   An example
-                </a>{" "}
-                <span className="text-ink-soft">: four units with figures.</span>
+                </a>
+                <span className="block text-ink-soft">Four invented units, three with measured figures.</span>
               </li>
             </ul>
           </Section>
