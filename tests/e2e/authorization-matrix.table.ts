@@ -595,7 +595,17 @@ export const MATRIX: Record<string, Entry> = {
       { get: apiWorkshopOnly("ok"), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiWorkshopOnly(400) } } },
     ],
   },
-  "/api/v1/imports/:id": { cases: [{ name: "no such import", params: () => ({ id: randomUUID() }), get: apiWorkshopOnly(404) }] },
+  // Read-only: writes get apiRoute's 405.
+  "/api/v1/imports/:id": {
+    cases: [
+      {
+        name: "no such import",
+        params: () => ({ id: randomUUID() }),
+        get: apiWorkshopOnly(404),
+        writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } },
+      },
+    ],
+  },
   "/sell/templates": {
     cases: [{ get: workshopOnly("ok"), post: { body: form({ intent: "add", title: "", work: "" }), expect: workshopOnly(400) } }],
   },
