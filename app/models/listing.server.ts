@@ -54,6 +54,8 @@ export class Listing extends Model<InferAttributes<Listing>, InferCreationAttrib
   declare heldReason: string | null;
   /** The moderator's note when they asked for changes; shown in the seller's editor. */
   declare reviewNote: CreationOptional<string | null>;
+  /** The workshop's own stock number (the inventory CSV's `reference`); the seller's eyes only. */
+  declare stockReference: CreationOptional<string | null>;
   declare power8ohmW: number | null;
   declare power4ohmW: number | null;
   declare thdPct: number | null;
@@ -132,6 +134,7 @@ Listing.init(
     publishedAt: nullable(DataTypes.DATE),
     heldReason: nullable(DataTypes.TEXT),
     reviewNote: nullable(DataTypes.TEXT),
+    stockReference: nullable(DataTypes.STRING(40)),
     // Facet columns, named for their units (shared/listing-facets.ts fills them).
     power8ohmW: facet("power_8ohm_w"),
     power4ohmW: facet("power_4ohm_w"),
