@@ -6,7 +6,7 @@ import { ListingImport } from "~/models/listing-import.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { holdsRole, normaliseRoles } from "~/auth/roles";
 import { refusal } from "~/http/errors.server";
-import { checkBenchSheet, parseBenchSheet } from "@shared/bench";
+import { parseBenchSheet } from "@shared/bench";
 import { InventoryRowSchema, rowToDraft, type InventoryDraft } from "@shared/inventory-csv";
 import { listingFacets } from "@shared/listing-facets";
 import { isId } from "@shared/ids";
@@ -154,9 +154,12 @@ function draftRecords(d: InventoryDraft, sellerId: string, workshop: Workshop | 
     conditionNote: d.condition.conditionNote,
     publishedAt: null,
     heldReason: null,
+    stockReference: d.reference,
     ...listingFacets(sheet),
   };
-  return { listing, sheet: sheet ? { sheet, verdict: checkBenchSheet(sheet), checkedAt: new Date() } : null };
+  // Stored without a verdict (the file's check already ran the bench on it): the bench step and publishing
+  // check a sheet afresh, as they do any sheet that has none, and a verdict per row would double the job's time.
+  return { listing, sheet: sheet ? { sheet, verdict: null, checkedAt: null } : null };
 }
 
 /** The job's entry: `{ importId }`. */
