@@ -102,5 +102,16 @@ describe("importing units from a CSV file", () => {
     // Unit 11 (row 12, the one whose price was wrong) was written with its fixed price: 411 EUR.
     expect(drafts.map((d) => d.priceMinor).sort((a, b) => a! - b!)[10]).toBe(41_100);
     await context.close();
+
+    // The same pages on a phone, for a person to look at.
+    const phone = await newContext(browser, { viewport: { width: 390, height: 844 } });
+    const small = await phone.newPage();
+    await signIn(small, WORKSHOP);
+    await send(small, "stock-with-mistakes.csv", csv(true));
+    await small.getByRole("heading", { name: /3 problems in 3 rows/ }).waitFor();
+    await screenshot(small, "import-problems-phone");
+    await small.goto("/sell/templates");
+    await screenshot(small, "templates-phone");
+    await phone.close();
   });
 });
