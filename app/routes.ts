@@ -113,4 +113,15 @@ export default [
   // The workshop's inventory: the /sell table's data and bulk actions, and its CSV export
   route("api/v1/inventory", "routes/api.v1.inventory.ts"),
   route("sell/inventory.csv", "routes/sell/inventory-csv.ts"),
+  // Working in bulk (workshops): CSV import of units as drafts (the template and example files, an
+  // import's progress page and API), restoration templates applied from the editor's restoration step
+  route("sell/import", "routes/sell/import.tsx"),
+  route("sell/import/template.csv", "routes/sell/import-file.ts", { id: "routes/sell/import-template" }),
+  route("sell/import/example.csv", "routes/sell/import-file.ts", { id: "routes/sell/import-example" }),
+  route("sell/import/:id", "routes/sell/import-status.tsx"),
+  route("api/v1/imports", "routes/api.v1.imports.ts"),
+  route("api/v1/imports/:id", "routes/api.v1.imports.$id.ts"),
+  route("sell/templates", "routes/sell/templates.tsx"),
+  route("api/v1/restoration-templates", "routes/api.v1.restoration-templates.ts"),
+  route("api/v1/restoration-templates/:id", "routes/api.v1.restoration-templates.$id.ts"),
 ] satisfies RouteConfig;

@@ -11,7 +11,7 @@ import { bareFft, nextPowerOfTwo } from "../shared/bench/analysis";
 
 // `npm run bench -- --only search` (or several parts, comma-separated) measures only those parts; the
 // scale seed runs whenever search or pages is among them. Without --only everything runs.
-const SECTIONS = ["capture", "sheet", "photos", "edge", "weight", "search", "pages", "account"] as const;
+const SECTIONS = ["capture", "sheet", "photos", "edge", "weight", "search", "pages", "account", "import"] as const;
 type SectionName = (typeof SECTIONS)[number];
 const onlyAt = process.argv.indexOf("--only");
 const only = onlyAt > 0 ? (process.argv[onlyAt + 1] ?? "").split(",").filter(Boolean) : null;
@@ -134,7 +134,7 @@ type Section = { figures: Figure[]; notes: string[]; failed?: boolean };
 // pace are measured at that size.
 async function serverFigures(): Promise<Section> {
   if (process.argv.includes("--no-server")) return { figures: [], notes: ["server figures left out (--no-server)"] };
-  if (!["edge", "weight", "search", "pages"].some((name) => runs(name as SectionName))) return { figures: [], notes: [] };
+  if (!["edge", "weight", "search", "pages", "import"].some((name) => runs(name as SectionName))) return { figures: [], notes: [] };
   const out: Section = { figures: [], notes: [] };
   const section = async (what: string, measure: () => Promise<{ figures: Figure[]; notes?: string[] }>) => {
     try {
@@ -157,6 +157,8 @@ async function serverFigures(): Promise<Section> {
     if (runs("edge")) await section("the request edge", async () => (await import("./bench/edge")).edgeFigures(app));
     // What a phone gets from the public pages, on the demo scenario (its listings have photos and plots).
     if (runs("weight")) await section("the page weights", async () => (await import("./bench/weight")).weightFigures(app.base));
+    // A workshop's 5,000-unit CSV import, upload to drafts written (before the scale seed, on the demo scenario).
+    if (runs("import")) await section("the CSV import", async () => (await import("./bench/import")).importFigures(app));
     if (!runs("search") && !runs("pages")) return out;
     const at = process.argv.indexOf("--listings");
     const listings = at > 0 ? Number(process.argv[at + 1]) : 100_000;

@@ -17,6 +17,7 @@ import { expireOffer } from "~/offers/offers.server";
 import { deliverWorkshopMail } from "~/workshops/mail.server";
 import { deliverDeskMail } from "~/desk/mail.server";
 import { cleanDraftStorage } from "~/listings/delete-draft.server";
+import { listingImportJob } from "~/imports/imports.server";
 
 // Every queue's handler, registered by the worker. A handler receives one job's data as stored (it
 // parses it) and throws to let pg-boss retry it.
@@ -55,4 +56,6 @@ export const handlers: Partial<Record<QueueName, JobHandler>> = {
   [QUEUES.deskMail]: deliverDeskMail,
   // The seller's editor: a deleted draft's photos and captures removed from storage.
   [QUEUES.draftStorageClean]: cleanDraftStorage,
+  // Working in bulk: a workshop's CSV import, written as drafts in one transaction.
+  [QUEUES.listingImport]: (data) => listingImportJob(data),
 };

@@ -5,6 +5,15 @@ import type { FieldErrors } from "@shared/listing-draft";
 import { logValueText, type RestorationEntryView } from "@shared/restoration-form";
 import { RestorationEntryForm } from "./RestorationEntryForm";
 import { Section } from "./Section";
+import { TemplatePicker } from "~/restoration-templates/ui/TemplatePicker";
+
+/** A workshop's restoration templates for the new entry (none offered to a private seller). */
+export type EntryTemplates = {
+  offered: boolean;
+  choices: { id: string; title: string }[];
+  chosenId: string | null;
+  values: Record<string, string> | null;
+};
 
 function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
   return (
@@ -81,10 +90,12 @@ export function RestorationLogStep({
   listingId,
   restoration,
   failure,
+  templates,
 }: {
   listingId: string;
   restoration: RestorationEntryView[];
   failure: RestorationFailure | null;
+  templates?: EntryTemplates;
 }) {
   const listing = { id: listingId };
   const [params] = useSearchParams();
@@ -134,10 +145,11 @@ export function RestorationLogStep({
                 Added to the log. The form is ready for the next entry.
               </p>
             ) : null}
+            {templates?.offered ? <TemplatePicker choices={templates.choices} chosenId={templates.chosenId} /> : null}
             <RestorationEntryForm
-              key={added ?? "first"}
+              key={`${added ?? "first"}-${templates?.chosenId ?? "blank"}`}
               focusFirst={!!added && !failedHere("add")}
-              values={failedHere("add")?.values}
+              values={failedHere("add")?.values ?? templates?.values ?? undefined}
               errors={failedHere("add")?.errors}
               formError={failedHere("add")?.formError}
               busy={busy}

@@ -35,6 +35,8 @@ export const QUEUES = {
   deskMail: "desk-mail",
   // The seller's editor (app/listings/delete-draft.server.ts): a deleted draft's stored objects.
   draftStorageClean: "draft-storage-clean",
+  // Working in bulk (app/imports): a workshop's CSV import written as drafts, all or nothing.
+  listingImport: "listing-import",
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

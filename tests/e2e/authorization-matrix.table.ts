@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { plainPng } from "../support/photo-files";
 import type { Fixtures } from "./support/matrix-fixtures";
-import { apiOwnerOnly, apiSignedIn, everyone, ownerOnly, signedIn, type Entry } from "./support/matrix";
+import { apiOwnerOnly, apiSignedIn, everyone, ownerOnly, signedIn, type Entry, type Outcome } from "./support/matrix";
 import { certifiedDemoUnit } from "./support/certificate-fixture";
 
 // Who may reach what: every route in app/routes.ts, keyed by its URL pattern, with what each persona
@@ -12,6 +12,8 @@ import { certifiedDemoUnit } from "./support/certificate-fixture";
 
 const draft = (f: Fixtures) => ({ id: f.draft.id });
 const desk = { anonymous: "sign-in", moderator: "ok", admin: "ok", others: 403 } as const;
+const workshopOnly = (o: Outcome) => ({ anonymous: "sign-in", workshop: o, others: 403 }) as const;
+const apiWorkshopOnly = (o: Outcome) => ({ anonymous: 401, workshop: o, others: 403 }) as const;
 const form = (fields: Record<string, string>) => () => ({ form: fields });
 const LOG_ENTRY = { intent: "add", doneOn: "2025-02-20", work: "Cleaned the input selector.", technician: "Bench 1" };
 const png = await plainPng(32, 24);
@@ -600,6 +602,52 @@ export const MATRIX: Record<string, Entry> = {
     ],
   },
   "/sell/inventory.csv": { cases: [{ get: signedIn("ok") }] },
+  // Working in bulk: workshops only (any other account 403), each its own imports and templates
+  // (another's, like a missing one, 404). The import's two files hold no one's data: open to all.
+  "/sell/import": {
+    cases: [{ get: workshopOnly("ok"), post: { body: () => ({ multipart: new FormData() }), expect: workshopOnly(400) } }],
+  },
+  "/sell/import/template.csv": { cases: [{ get: everyone("ok") }] },
+  "/sell/import/example.csv": { cases: [{ get: everyone("ok") }] },
+  "/sell/import/:id": { cases: [{ name: "no such import", params: () => ({ id: randomUUID() }), get: workshopOnly(404) }] },
+  "/api/v1/imports": {
+    cases: [
+      { get: apiWorkshopOnly("ok"), writes: { POST: { body: () => ({ multipart: new FormData() }), expect: apiWorkshopOnly(400) } } },
+    ],
+  },
+  // Read-only: writes get apiRoute's 405.
+  "/api/v1/imports/:id": {
+    cases: [
+      {
+        name: "no such import",
+        params: () => ({ id: randomUUID() }),
+        get: apiWorkshopOnly(404),
+        writes: { POST: { body: () => ({ json: {} }), expect: everyone(405) } },
+      },
+    ],
+  },
+  "/sell/templates": {
+    cases: [{ get: workshopOnly("ok"), post: { body: form({ intent: "add", title: "", work: "" }), expect: workshopOnly(400) } }],
+  },
+  "/api/v1/restoration-templates": {
+    cases: [{ get: apiWorkshopOnly("ok"), writes: { POST: { body: () => ({ json: {} }), expect: apiWorkshopOnly(400) } } }],
+  },
+  "/api/v1/restoration-templates/:id": {
+    cases: [
+      {
+        name: "no such template",
+        params: () => ({ id: randomUUID() }),
+        get: apiWorkshopOnly(404),
+        writes: {
+          PUT: {
+            body: () => ({ json: { title: "Matrix probe", work: "Cleaned the controls.", parts: [] } }),
+            expect: apiWorkshopOnly(404),
+          },
+          DELETE: { expect: apiWorkshopOnly(404) },
+        },
+      },
+    ],
+  },
   "/healthz": { cases: [{ get: everyone("ok") }] },
   // Liveness and readiness for load balancers.
   "/healthz/live": { cases: [{ get: everyone("ok") }] },

@@ -8,6 +8,13 @@ import { stepFailure } from "~/listings/http.server";
 import { RestorationLogStep } from "~/sell/RestorationLogStep";
 import { useEditor } from "./editor";
 import { readRestorationForm } from "@shared/restoration-form";
+import { templatesForEditor } from "~/restoration-templates/templates.server";
+
+// A workshop's restoration templates: "Use a template" (?template=<id>) fills the new entry's form.
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  return { templates: await templatesForEditor(user, new URL(request.url).searchParams.get("template")) };
+}
 
 export async function action({ request, params }: Route.ActionArgs) {
   assertSameOrigin(request);
@@ -44,7 +51,14 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-export default function RestorationStep({ actionData }: Route.ComponentProps) {
+export default function RestorationStep({ actionData, loaderData }: Route.ComponentProps) {
   const { listing, restoration } = useEditor();
-  return <RestorationLogStep listingId={listing.id} restoration={restoration} failure={actionData && !actionData.ok ? actionData : null} />;
+  return (
+    <RestorationLogStep
+      listingId={listing.id}
+      restoration={restoration}
+      failure={actionData && !actionData.ok ? actionData : null}
+      templates={loaderData.templates}
+    />
+  );
 }
