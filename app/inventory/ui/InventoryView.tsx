@@ -19,7 +19,8 @@ export function InventoryView({
   first,
   actionData,
 }: {
-  first: { page: InventoryPage; params: string };
+  /** `workshop`: the bulk import and restoration templates are offered (workshops only). */
+  first: { page: InventoryPage; params: string; workshop?: boolean };
   actionData: FormActionState | null;
 }) {
   const [searchParams] = useSearchParams();
@@ -79,6 +80,16 @@ export function InventoryView({
                 Export CSV
               </a>
             )}
+            {first.workshop ? (
+              <>
+                <ButtonLink to="/sell/import" variant="secondary">
+                  Import CSV
+                </ButtonLink>
+                <ButtonLink to="/sell/templates" variant="secondary">
+                  Templates
+                </ButtonLink>
+              </>
+            ) : null}
             <ButtonLink to="/sell/new">List a unit</ButtonLink>
           </>
         }

@@ -1,6 +1,6 @@
 import type { ShouldRevalidateFunctionArgs } from "react-router";
 import type { Route } from "./+types/index";
-import { requireUser } from "~/auth/guards.server";
+import { hasRole, requireUser } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
 import { readPageForm } from "~/http/body.server";
 import { redirectWithNotice } from "~/auth/session.server";
@@ -29,7 +29,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const query = readInventoryQuery(new URL(request.url).searchParams);
   const page = await inventoryPage(user.id, query);
-  return { page, params: inventoryParams({ ...query, page: page.page }).toString() };
+  return { page, params: inventoryParams({ ...query, page: page.page }).toString(), workshop: hasRole(user, "workshop") };
 }
 
 export async function action({ request }: Route.ActionArgs): Promise<FormActionState | Response> {
