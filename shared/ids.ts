@@ -1,11 +1,9 @@
 import { z } from "zod";
 
-// The one shape of a record id (PostgreSQL uuid), for route params, JSON bodies and job data.
-export const UUID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import { UUID_PATTERN } from "./id-pattern";
 
-export function isId(value: unknown): value is string {
-  return typeof value === "string" && UUID_PATTERN.test(value);
-}
+// The one shape of a record id (PostgreSQL uuid), for route params, JSON bodies and job data.
+export { UUID_PATTERN, isId } from "./id-pattern";
 
 /** zod schema for an id; `what` names it in the message ("must be a photo id"). */
 export function idSchema(what = "record") {

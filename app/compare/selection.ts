@@ -1,4 +1,4 @@
-import { UUID_PATTERN } from "@shared/ids";
+import { UUID_PATTERN } from "@shared/id-pattern";
 
 // Which units a buyer compares: at most four listing ids, in the order they were chosen. The page
 // reads them from `?ids=a,b,c` (shareable); the buyer's own list rides in a cookie (compare-list.server.ts).
