@@ -7,11 +7,14 @@ export function Pagination({
   pageCount,
   hrefFor,
   className,
+  labels = { previous: "← Newer", next: "Older →" },
 }: {
   page: number;
   pageCount: number;
   hrefFor: (page: number) => string;
   className?: string;
+  /** The links' words: newer/older for lists by date, previous/next where the order is the reader's choice. */
+  labels?: { previous: string; next: string };
 }) {
   if (pageCount <= 1) return null;
   const item = "inline-flex h-9 items-center rounded-md border px-3 text-sm font-medium no-underline";
@@ -21,11 +24,11 @@ export function Pagination({
     <nav aria-label="Pages" className={cx("flex items-center justify-between gap-3", className)}>
       {page > 1 ? (
         <Link to={hrefFor(page - 1)} rel="prev" className={cx(item, "border-rule-strong bg-card text-ink hover:border-walnut")}>
-          ← Newer
+          {labels.previous}
         </Link>
       ) : (
         <span className={spent} aria-hidden="true">
-          ← Newer
+          {labels.previous}
         </span>
       )}
       <p className="text-sm text-ink-soft">
@@ -33,11 +36,11 @@ export function Pagination({
       </p>
       {page < pageCount ? (
         <Link to={hrefFor(page + 1)} rel="next" className={cx(item, "border-rule-strong bg-card text-ink hover:border-walnut")}>
-          Older →
+          {labels.next}
         </Link>
       ) : (
         <span className={spent} aria-hidden="true">
-          Older →
+          {labels.next}
         </span>
       )}
     </nav>

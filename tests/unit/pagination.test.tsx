@@ -61,4 +61,20 @@ describe("Pagination", () => {
     const { container } = pager(1, 1);
     expect(container.innerHTML).toBe("");
   });
+
+  it("words its links Previous and Next where the order is the reader's choice (the inventory sorted by price)", () => {
+    render(
+      <MemoryRouter>
+        <Pagination
+          page={2}
+          pageCount={3}
+          hrefFor={(p) => `/sell?sort=price&page=${p}`}
+          labels={{ previous: "← Previous", next: "Next →" }}
+        />
+      </MemoryRouter>,
+    );
+    expect(screen.getByRole("link", { name: "← Previous" }).getAttribute("href")).toBe("/sell?sort=price&page=1");
+    expect(screen.getByRole("link", { name: "Next →" }).getAttribute("href")).toBe("/sell?sort=price&page=3");
+    expect(screen.queryByText(/Newer|Older/)).toBeNull();
+  });
 });

@@ -1,4 +1,5 @@
 import { Link } from "react-router";
+import { dayText } from "@shared/dates";
 import { CATEGORY_LABELS } from "@shared/catalogue";
 import {
   defaultDir,
@@ -19,8 +20,7 @@ import { PriceCell } from "./PriceCell";
 // works without JavaScript); on a phone each unit is a small card: the checkbox, the unit and its
 // state, then price and handling. The checkboxes belong to the bulk form around the table.
 
-const day = (iso: string) =>
-  new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+const day = dayText;
 
 function SortHeader({ sort, query, className }: { sort: InventorySort; query: InventoryQuery; className?: string }) {
   const active = query.sort === sort;
@@ -149,7 +149,9 @@ export function InventoryTable({
                 <span className="figures" data-handling={r.handlingDays ?? ""}>
                   {r.handlingDays === null ? "—" : `${r.handlingDays} ${r.handlingDays === 1 ? "day" : "days"}`}
                 </span>
-                <span className="sm:hidden"> to dispatch · saved {day(r.updatedAt)}</span>
+                <span className="sm:hidden">
+                  {r.handlingDays === null ? " no handling time set" : " to dispatch"} · saved {day(r.updatedAt)}
+                </span>
               </td>
               <td className="px-3 py-3 text-ink-faint max-lg:hidden">
                 <time dateTime={r.updatedAt}>{day(r.updatedAt)}</time>

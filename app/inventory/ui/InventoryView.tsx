@@ -146,6 +146,7 @@ export function InventoryView({
             page={page.page}
             pageCount={page.pageCount}
             hrefFor={(n) => `?${inventoryParams({ ...query, page: n })}`}
+            labels={{ previous: "← Previous", next: "Next →" }}
             className="pt-2"
           />
           <p className="text-sm text-ink-faint">

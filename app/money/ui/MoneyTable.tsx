@@ -19,7 +19,7 @@ const td = "border-b border-rule/60 px-3 py-2 text-right figures text-[0.8125rem
 
 export function MoneyTable({ book }: { book: CurrencyBook }) {
   return (
-    <div className="overflow-x-auto rounded-panel border border-rule bg-card">
+    <div className="scroll-hint overflow-x-auto rounded-panel border border-rule bg-card">
       <table className="min-w-full">
         <caption className="sr-only">{book.currency} per month</caption>
         <thead>
