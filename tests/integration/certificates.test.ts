@@ -36,7 +36,7 @@ describe("bench certificates", () => {
     const text = (await pdfPages(pdf)).join("\n");
     expect(text).toContain("Harrowgate Sound 120-HG");
     expect(text).toContain("Measured by Kestrel Lane Workshop");
-    expect(text).toContain("Measured on 14 March 2025");
+    expect(text).toContain("Measured on 14 Mar 2025");
     expect(text).toMatch(/Output power \(left\) 66 W into 8 Ω, 1 kHz, 0\.1 % THD/);
     expect(text).toMatch(/Output power \(right\) 65 W into 8 Ω/);
     expect(text).toMatch(/THD \(left\) 0\.012 % into 8 Ω, 1 kHz, at 60 W/);

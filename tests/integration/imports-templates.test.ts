@@ -136,6 +136,6 @@ describe("restoration templates", () => {
     // Someone else's template id fills nothing; a seller without the workshop role is offered none.
     expect((await templatesForEditor(other.session, t.id)).values).toBeNull();
     const seller = await makeAccount("tpl-seller");
-    expect(await templatesForEditor(seller.session, t.id)).toEqual({ choices: [], chosenId: null, values: null });
+    expect(await templatesForEditor(seller.session, t.id)).toEqual({ offered: false, choices: [], chosenId: null, values: null });
   });
 });
