@@ -2,7 +2,7 @@ import type { Route } from "./+types/api.v1.listings";
 import { apiRoute } from "~/http/api-route.server";
 import { refusal } from "~/http/errors.server";
 import { publicJson } from "~/catalogue/public-json.server";
-import { searchListings, DEFAULT_LIMIT, MAX_LIMIT } from "~/catalogue/search.server";
+import { searchListings, DEFAULT_LIMIT, MAX_LIMIT, type SearchTimings } from "~/catalogue/search.server";
 import { parseMarketFilters } from "@shared/market-filters";
 
 // GET /api/v1/listings: the market's search for anyone (docs/api.md, "Listings"). Every parameter is
@@ -24,7 +24,12 @@ const route = apiRoute<Route.LoaderArgs>({
         issues: issues.map((i) => ({ path: i.param, message: i.message })),
       });
     }
-    return publicJson(await searchListings(filters, { cursor: filters.cursor, limit }));
+    const timings: SearchTimings = { bounds: 0, page: 0, cards: 0 };
+    const response = publicJson(await searchListings(filters, { cursor: filters.cursor, limit }, timings));
+    // Beside the edge's own app;dur: where the search's time went.
+    for (const [name, ms] of Object.entries(timings) as [string, number][])
+      response.headers.append("Server-Timing", `${name};dur=${ms.toFixed(1)}`);
+    return response;
   },
 });
 export const loader = route.loader;

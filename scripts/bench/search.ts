@@ -58,11 +58,13 @@ export function indexesInPlan(plan: string): string[] {
   return [...new Set(names)];
 }
 
-type ApiTimes = { server: number[]; wall: number[]; total: number };
+/** The search's own phases, from the API's Server-Timing (app/routes/api.v1.listings.ts). */
+const PHASES = ["bounds", "page", "cards"] as const;
+type ApiTimes = { server: number[]; wall: number[]; total: number; phases: Record<(typeof PHASES)[number], number[]> };
 
 /** Calls `url` RUNS times after a warm-up; `before` runs ahead of each call (and is not timed). */
 async function timedApi(url: string, runs: number, before: () => Promise<unknown> = async () => {}): Promise<ApiTimes> {
-  const out: ApiTimes = { server: [], wall: [], total: 0 };
+  const out: ApiTimes = { server: [], wall: [], total: 0, phases: { bounds: [], page: [], cards: [] } };
   for (let i = 0; i < WARM_UP + runs; i++) {
     await before();
     const t = performance.now();
@@ -74,6 +76,9 @@ async function timedApi(url: string, runs: number, before: () => Promise<unknown
     if (dur === undefined) throw new Error(`${url}: no Server-Timing header`);
     if (i < WARM_UP) continue;
     out.server.push(Number(dur));
+    for (const phase of PHASES) {
+      out.phases[phase].push(Number(new RegExp(`${phase};dur=([\\d.]+)`).exec(res.headers.get("Server-Timing") ?? "")?.[1] ?? NaN));
+    }
     out.wall.push(took);
     out.total = body.total ?? 0;
   }
@@ -91,7 +96,7 @@ async function timedSql(db: pg.Client, q: { sql: string; bind: unknown[] }, runs
 }
 
 const apiFigure = (what: string, api: ApiTimes): Figure => ({
-  label: `${what}, ${api.server.length} calls: server p50 ${ms(pct(api.server, 50))} ms, wall p50 ${ms(pct(api.wall, 50))} / p95 ${ms(pct(api.wall, 95))} ms; server p95`,
+  label: `${what}, ${api.server.length} calls: server p50 ${ms(pct(api.server, 50))} ms (of which ${PHASES.map((p) => `${p} ${ms(pct(api.phases[p], 50))}`).join(", ")}), wall p50 ${ms(pct(api.wall, 50))} / p95 ${ms(pct(api.wall, 95))} ms; server p95`,
   value: ms(pct(api.server, 95)),
   unit: "ms",
   limit: BUDGET_MS,

@@ -31,6 +31,11 @@ async function kept(qs: string): Promise<string[]> {
   const matched = new Set(await listingsMatching(filters(qs), Object.values(ids)));
   return (await sorted("price_asc")).filter((k) => matched.has(ids[k as keyof typeof ids]));
 }
+/** Ours on the market's page for a price filter, cheapest first (the page converts the bounds to euros once). */
+async function paged(qs: string): Promise<string[]> {
+  const page = await searchListings(filters(`q=${TOKEN}&sort=price_asc&${qs}`), { limit: 10 });
+  return names(page.items.map((i) => i.id));
+}
 /** Ours in the market's price order (found by a word only they carry). */
 async function sorted(sort: string): Promise<string[]> {
   const page = await searchListings(filters(`q=${TOKEN}&sort=${sort}`), { limit: 10 });
@@ -74,6 +79,8 @@ describe("price filter and sort across currencies", () => {
     // In pounds: £950 = €1,104.65 keeps only the euro unit; £1,000 keeps the pound unit too (its own price, exactly).
     expect(await kept("priceMax=950&currency=GBP")).toEqual(["eur"]);
     expect(await kept("priceMax=1000&currency=GBP")).toEqual(["eur", "gbp"]);
+    expect(await paged("priceMax=1000&currency=GBP")).toEqual(["eur", "gbp"]);
+    expect(await paged("priceMax=1000&currency=GBP")).toEqual(["eur", "gbp"]); // the same bounds again, kept
     // In yen: ¥190,000 = €1,187.50.
     expect(await kept("priceMin=190000&currency=JPY")).toEqual(["jpy"]);
 
@@ -91,6 +98,8 @@ describe("price filter and sort across currencies", () => {
     // £950 = €1,217.95: still only the euro unit; £1,000 = €1,282.05 takes all three.
     expect(await kept("priceMax=950&currency=GBP")).toEqual(["eur"]);
     expect(await kept("priceMax=1000&currency=GBP")).toEqual(["eur", "jpy", "gbp"]);
+    // The page's bounds kept from before the change are not used at the new rate.
+    expect(await paged("priceMax=1000&currency=GBP")).toEqual(["eur", "jpy", "gbp"]);
     // ¥190,000 = €1,187.50: the pound unit (€1,282.05) is above it now.
     expect(await kept("priceMin=190000&currency=JPY")).toEqual(["jpy", "gbp"]);
   });
