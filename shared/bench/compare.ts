@@ -2,7 +2,7 @@
 // Which way each figure is better, and which conditions must match, live with the figures
 // (FIGURE_COMPARISON in figures.ts); this file only applies them.
 import { AMPLIFIER_CATEGORIES, type Category } from "./quantities";
-import type { Conditions } from "./schema";
+import { CONDITION_NAMES, sameConditionValue } from "./condition-match";
 import { FIGURE_COMPARISON, type FigureKey, type KeyFigure } from "./figures";
 
 /** What a row of figures says about the units in it. `strongest`: indexes into the row. */
@@ -22,44 +22,14 @@ export interface RowEntry {
   category: Category;
 }
 
-const CONDITION_NAMES: Record<keyof Conditions, string> = {
-  loadOhm: "load",
-  frequencyHz: "test frequency",
-  frequencyRange: "frequency range",
-  powerW: "output level",
-  voltageV: "signal level",
-  atDistortion: "distortion limit",
-  bandwidth: "measurement bandwidth",
-  weighting: "weighting",
-  channelsDriven: "channels driven",
-  mainsV: "mains voltage",
-  warmUpS: "warm-up",
-  testToneHz: "test tone",
-  distanceM: "measuring distance",
-  speedRpm: "platter speed",
-  tapeSpeedCmS: "tape speed",
-  supply: "supply",
-  sourceOhm: "source impedance",
-  temperatureC: "temperature",
-};
-
 /** Amplifiers of any kind are one family; the rest compare only within their own category. */
 export function compareFamily(category: Category): string {
   return AMPLIFIER_CATEGORIES.includes(category) ? "amplifier" : category;
 }
 
-/** Readings are typed, so 8 Ω and 8.000001 Ω are one load; a stated condition never matches an unstated one. */
-function sameValue(a: unknown, b: unknown): boolean {
-  if (a === undefined || b === undefined) return a === b;
-  if (typeof a === "number" && typeof b === "number") return Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b));
-  if (typeof a === "object" && typeof b === "object" && a !== null && b !== null) {
-    const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
-    return [...keys].every((k) => sameValue(Reflect.get(a, k), Reflect.get(b, k)));
-  }
-  return a === b;
-}
-
-const allSame = <T>(xs: T[]) => xs.every((x) => sameValue(x, xs[0]));
+// Listings' figures are typed, so 8 Ω and 8.000001 Ω are one load.
+const SAME_WITHIN = 1e-6;
+const allSame = <T>(xs: T[]) => xs.every((x) => sameConditionValue(x, xs[0], SAME_WITHIN));
 
 /** Judges one row: `entries[i]` is unit i's figure (null when its sheet has none). */
 export function judgeRow(key: FigureKey, entries: readonly (RowEntry | null)[]): RowJudgement {
@@ -78,6 +48,7 @@ export function judgeRow(key: FigureKey, entries: readonly (RowEntry | null)[]):
   const score = (v: number) => (better === "higher" ? v : better === "lower" ? -v : -Math.abs(v));
   const scores = present.map((e) => score(e.figure.value));
   const top = Math.max(...scores);
-  const strongest = present.filter((_, j) => sameValue(scores[j], top)).map((e) => e.i);
+  // Figures within the typing's rounding of the best tie with it.
+  const strongest = present.filter((_, j) => top - scores[j] <= SAME_WITHIN * Math.abs(top)).map((e) => e.i);
   return strongest.length === present.length ? { kind: "level" } : { kind: "stronger", strongest };
 }

@@ -6,6 +6,7 @@ import type { BenchSheet, Conditions, Reading } from "./schema";
 import { describeConditions, formatReadingValue, channelLabel } from "./describe";
 import { formatNumber, formatValue } from "./format";
 import { bestRiaaFit } from "./rules/phono";
+import { CONDITION_NAMES, sameConditionValue } from "./condition-match";
 import { REMEASURE_RULES, type RemeasureRule } from "./remeasure-tolerances";
 
 export { REMEASURE_RULES, type RemeasureRule, type Tolerance } from "./remeasure-tolerances";
@@ -101,27 +102,6 @@ export interface ListedFigure {
   conditions: Conditions;
 }
 
-const CONDITION_NAMES: Record<keyof Conditions, string> = {
-  loadOhm: "load",
-  frequencyHz: "test frequency",
-  frequencyRange: "frequency range",
-  powerW: "output level",
-  voltageV: "signal level",
-  atDistortion: "distortion limit",
-  bandwidth: "measurement bandwidth",
-  weighting: "weighting",
-  channelsDriven: "channels driven",
-  mainsV: "mains voltage",
-  warmUpS: "warm-up",
-  testToneHz: "test tone",
-  distanceM: "measuring distance",
-  speedRpm: "platter speed",
-  tapeSpeedCmS: "tape speed",
-  supply: "supply",
-  sourceOhm: "source impedance",
-  temperatureC: "temperature",
-};
-
 /** Every figure of the sheet a buyer could re-measure, with its path; sweeps give their worst RIAA deviation. */
 export function listedFigures(sheet: BenchSheet | null | undefined): ListedFigure[] {
   if (!sheet) return [];
@@ -154,20 +134,12 @@ export function listedFigures(sheet: BenchSheet | null | undefined): ListedFigur
   return out;
 }
 
-/** Typed numbers: 8 Ω and 8.0001 Ω are one load; a stated condition never matches an unstated one. */
-function sameCondition(a: unknown, b: unknown): boolean {
-  if (a === undefined || b === undefined) return a === b;
-  if (typeof a === "number" && typeof b === "number") return Math.abs(a - b) <= 0.01 * Math.max(Math.abs(a), Math.abs(b));
-  if (typeof a === "object" && typeof b === "object" && a !== null && b !== null) {
-    const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
-    return [...keys].every((k) => sameCondition(Reflect.get(a, k), Reflect.get(b, k)));
-  }
-  return a === b;
-}
+// A buyer's meter and the seller's differ a little: 8 Ω and 8.05 Ω are one load.
+const SAME_WITHIN = 0.01;
 
 /** The conditions (by name) that keep two readings of `quantity` apart; empty when they may be compared. Symmetric. */
 export function differingConditions(quantity: Quantity, a: Conditions, b: Conditions): string[] {
-  return REMEASURE_RULES[quantity].conditions.filter((k) => !sameCondition(a[k], b[k])).map((k) => CONDITION_NAMES[k]);
+  return REMEASURE_RULES[quantity].conditions.filter((k) => !sameConditionValue(a[k], b[k], SAME_WITHIN)).map((k) => CONDITION_NAMES[k]);
 }
 
 /** Channels pair when equal, or when either side is unstated or covers both. Symmetric. */
