@@ -1,4 +1,5 @@
 import { Form, Link, useNavigation, useSearchParams } from "react-router";
+import { PartsList } from "./PartsList";
 import { Button, ButtonLink } from "~/components/Button";
 import { dayText } from "@shared/dates";
 import type { FieldErrors } from "@shared/listing-draft";
@@ -44,16 +45,7 @@ function Entry({ e, editing }: { e: RestorationEntryView; editing: boolean }) {
         )}
       </header>
       <p className="whitespace-pre-line text-ink">{e.work}</p>
-      {e.parts.length ? (
-        <ul className="space-y-0.5 text-sm">
-          {e.parts.map((p, i) => (
-            <li key={i}>
-              <span className="figures">{p.quantity} ×</span> {p.part}
-              {p.reference ? <span className="text-ink-faint"> ({p.reference})</span> : null}
-            </li>
-          ))}
-        </ul>
-      ) : null}
+      <PartsList parts={e.parts} />
       {e.readingsBefore.length || e.readingsAfter.length ? (
         <dl className="grid gap-3 text-sm sm:grid-cols-2">
           {(["readingsBefore", "readingsAfter"] as const).map((k) =>

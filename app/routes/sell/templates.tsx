@@ -1,4 +1,5 @@
 import { data, Form, redirect, useNavigation, useSearchParams } from "react-router";
+import { PartsList } from "~/sell/PartsList";
 import type { Route } from "./+types/templates";
 import { requireRole } from "~/auth/guards.server";
 import { assertSameOrigin } from "~/auth/csrf.server";
@@ -73,16 +74,7 @@ function TemplateCard({ t, busy }: { t: RestorationTemplateView; busy: boolean }
         </div>
       </header>
       <p className="whitespace-pre-line text-sm text-ink">{t.work}</p>
-      {t.parts.length ? (
-        <ul className="space-y-0.5 text-sm text-ink-soft">
-          {t.parts.map((p, i) => (
-            <li key={i}>
-              <span className="figures">{p.quantity} ×</span> {p.part}
-              {p.reference ? <span className="text-ink-faint"> ({p.reference})</span> : null}
-            </li>
-          ))}
-        </ul>
-      ) : null}
+      <PartsList parts={t.parts} className="text-ink-soft" />
     </article>
   );
 }
