@@ -17,6 +17,7 @@ import type { Reading, Sweep } from "@shared/bench/schema";
 import { sheetFingerprint } from "@shared/bench-form/state";
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, type Issue } from "./errors.server";
+import { settleSheetCaptures } from "./captures.server";
 import { isId } from "@shared/ids";
 
 // The bench sheet step. The server is the authority: it re-reads the sheet, puts the readings of each
@@ -153,6 +154,8 @@ export async function saveBenchSheet(
       // The mark belongs to the sheet that was checked; a different sheet has none until the check below.
       await listing.update({ benchVerified: false }, { transaction });
     }
+    // Captures it names are tied to this listing; one it no longer names goes, with its file, by a job.
+    await settleSheetCaptures(listingId, sellerId, stored?.sheet, sheet, transaction);
     const record = checkedSheet(sheet);
     const { verdict } = record;
     if (stored) await stored.update(record, { transaction });
