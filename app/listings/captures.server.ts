@@ -3,6 +3,7 @@ import type { BenchSheet } from "@shared/bench";
 import { sequelize } from "~/db.server";
 import { Capture } from "~/models/capture.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
+import { ListingInputError } from "./errors.server";
 import { isId } from "@shared/ids";
 
 // The captures a listing's bench sheet points at. A sheet names captures by id; only finished
@@ -68,17 +69,25 @@ export function captureNote(capture: Capture | undefined): string {
 export async function releasableCaptures(ids: string[], listingId: string, sellerId: string, transaction: Transaction): Promise<Capture[]> {
   const own = ids.filter((id) => isId(id));
   if (!own.length) return [];
+  // Locked before the other sheets are read: a save that is adding one of them to its sheet holds it
+  // (settleSheetCaptures), so this reads that sheet once it is committed, or that save finds the row gone.
+  const rows = await Capture.findAll({
+    where: { id: own, ownerId: sellerId },
+    order: [["id", "ASC"]],
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
+  if (!rows.length) return [];
   const kept = await sequelize.query<{ id: string }>(
     `SELECT DISTINCT x.id FROM bench_sheets b,
        LATERAL (SELECT r->>'captureId' AS id FROM jsonb_array_elements(b.sheet->'readings') r
                 UNION SELECT s->>'captureId' FROM jsonb_array_elements(COALESCE(b.sheet->'sweeps', '[]'::jsonb)) s) x
      WHERE b.listing_id <> $1 AND x.id = ANY($2::text[])
      UNION SELECT unnest(capture_ids)::text FROM order_contests WHERE capture_ids && $2::uuid[]`,
-    { bind: [listingId, own], type: QueryTypes.SELECT, transaction },
+    { bind: [listingId, rows.map((r) => r.id)], type: QueryTypes.SELECT, transaction },
   );
   const keep = new Set(kept.map((r) => r.id));
-  const free = own.filter((id) => !keep.has(id));
-  return free.length ? Capture.findAll({ where: { id: free, ownerId: sellerId }, transaction, lock: transaction.LOCK.UPDATE }) : [];
+  return rows.filter((r) => !keep.has(r.id));
 }
 
 /** Removes capture rows in the caller's transaction; their stored files' keys, for the caller to queue in it. */
@@ -101,7 +110,23 @@ export async function settleSheetCaptures(
   transaction: Transaction,
 ): Promise<{ removedKeys: string[] }> {
   const named = namedCaptureIds(after);
-  if (named.length) await Capture.update({ listingId }, { where: { id: named, ownerId: sellerId, listingId: null }, transaction });
+  if (named.length) {
+    // Held until commit, so a save elsewhere cannot remove a capture this sheet is taking up (see releasableCaptures).
+    const held = await Capture.findAll({
+      where: { id: named, ownerId: sellerId },
+      attributes: ["id"],
+      order: [["id", "ASC"]],
+      transaction,
+      lock: transaction.LOCK.KEY_SHARE,
+    });
+    const present = new Set(held.map((c) => c.id));
+    const gone = captureIdsOf(after).filter((id) => !present.has(id));
+    if (gone.length)
+      throw new ListingInputError([
+        { path: "readings", message: "A capture on this sheet was removed meanwhile (taken off another sheet); upload its file again." },
+      ]);
+    await Capture.update({ listingId }, { where: { id: named, ownerId: sellerId, listingId: null }, transaction });
+  }
   const still = new Set(named);
   const dropped = namedCaptureIds(before).filter((id) => !still.has(id));
   const removable = await releasableCaptures(dropped, listingId, sellerId, transaction);

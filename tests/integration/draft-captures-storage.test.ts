@@ -9,6 +9,7 @@ import { createDraft } from "~/listings/drafts.server";
 import { saveBenchSheet } from "~/listings/bench.server";
 import { postCaptureForm } from "~/listings/capture-post.server";
 import { cleanDraftStorage, deleteDraft } from "~/listings/delete-draft.server";
+import { ListingInputError } from "~/listings/errors.server";
 import { analyseCaptureJob } from "~/bench/capture-job.server";
 import { processPhoto } from "~/photos/process.server";
 import { action as analyze } from "~/routes/api.v1.captures.analyze";
@@ -174,5 +175,44 @@ describe("a draft's capture files", () => {
     // Off the last sheet too: now they go, their files queued for the clean-up job.
     await saveBenchSheet(two.id, seller.user.id, typedOnly);
     expect(await Capture.count({ where: { id: ids } })).toBe(0);
+  });
+
+  it("never removes a capture that a save elsewhere is putting on its sheet at the same moment", async () => {
+    const seller = await makeAccount("capture-race");
+    const one = await createDraft(seller.session, "integrated_amplifier");
+    const two = await createDraft(seller.session, "integrated_amplifier");
+    const settled = (p: Promise<unknown>) =>
+      p.then(
+        () => "saved" as const,
+        (e: unknown) => e,
+      );
+    const pause = () => new Promise((r) => setTimeout(r, 300));
+    const idsOf = (sheet: { readings: { captureId?: string }[] }) => [
+      ...new Set(sheet.readings.flatMap((r) => (r.captureId ? [r.captureId] : []))),
+    ];
+
+    // Taken off the first sheet (not committed yet) while the second takes it up: the second save is refused.
+    const sheet = await withOwnCaptures(exampleIntegratedAmplifierSheet(), seller.user.id);
+    const typedOnly = { ...sheet, readings: sheet.readings.filter((r) => r.origin !== "capture") };
+    await saveBenchSheet(one.id, seller.user.id, sheet);
+    const t1 = await sequelize.transaction();
+    await saveBenchSheet(one.id, seller.user.id, typedOnly, { transaction: t1 });
+    const adding = settled(saveBenchSheet(two.id, seller.user.id, sheet));
+    await pause();
+    await t1.commit();
+    expect(await adding).toBeInstanceOf(ListingInputError);
+    expect(await BenchSheet.count({ where: { listingId: two.id } })).toBe(0);
+    expect(await Capture.count({ where: { id: idsOf(sheet) } })).toBe(0);
+
+    // Taken up by the second sheet (not committed yet) while the first lets go of it: it stays.
+    const again = await withOwnCaptures(exampleIntegratedAmplifierSheet(), seller.user.id);
+    await saveBenchSheet(one.id, seller.user.id, again);
+    const t2 = await sequelize.transaction();
+    await saveBenchSheet(two.id, seller.user.id, again, { transaction: t2 });
+    const dropping = settled(saveBenchSheet(one.id, seller.user.id, typedOnly));
+    await pause();
+    await t2.commit();
+    expect(await dropping).toBe("saved");
+    expect(await Capture.count({ where: { id: idsOf(again) } })).toBe(idsOf(again).length);
   });
 });
