@@ -29,8 +29,11 @@ const asRefusal = (e: unknown): unknown => (e instanceof CaptureError ? refusal(
 
 type Received = { key: string; fileName: string; file: CaptureFileKind; head: Uint8Array; bytes: number };
 
-/** The owner's new capture, queued for analysis; throws HttpError refusals. */
-export async function submitCapture(request: Request, ownerId: string): Promise<Capture> {
+/**
+ * The owner's new capture, queued for analysis; throws HttpError refusals. `listingId`, a listing of the
+ * owner's the caller has checked, ties it to that draft: deleting the draft removes it.
+ */
+export async function submitCapture(request: Request, ownerId: string, opts: { listingId?: string } = {}): Promise<Capture> {
   const written: string[] = [];
   try {
     const { fields, files } = await readMultipart(request, {
@@ -58,6 +61,7 @@ export async function submitCapture(request: Request, ownerId: string): Promise<
       const capture = await Capture.create(
         {
           ownerId,
+          listingId: opts.listingId ?? null,
           kind: read.conditions.kind,
           fileName: received.fileName,
           contentType: received.file === "wav" ? "audio/wav" : "text/csv",

@@ -56,10 +56,44 @@ export function benchProblems(draft: InventoryDraft, cells: InventoryRow, row: n
     .map((r) => ({ row, column: column(r.refs, withValues), message: `The bench finds this implausible (${r.title}): ${r.detail}` }));
 }
 
+const DELIMITERS = [",", ";", "\t"] as const;
+const KNOWN = new Set(INVENTORY_COLUMNS);
+
+/**
+ * The delimiter that splits the header into the layout's column names. The header decides: papaparse's
+ * guess counts fields over the first rows, and descriptions holding semicolons (a spreadsheet quotes a
+ * cell only for commas) outvote the commas of a 50-column header.
+ */
+function headerDelimiter(body: string): string | undefined {
+  const lines = body.split(/\r\n|\n|\r/, 50).filter((l) => l.trim() !== "" && !l.trim().startsWith("#"));
+  for (const line of lines) {
+    let best: string | undefined;
+    let most = 0;
+    for (const d of DELIMITERS) {
+      const known = line.split(d).filter((c) =>
+        KNOWN.has(
+          c
+            .trim()
+            .replace(/^"(.*)"$/, "$1")
+            .trim()
+            .toLowerCase(),
+        ),
+      ).length;
+      if (known > most) [best, most] = [d, known];
+    }
+    if (best) return best;
+  }
+  return undefined;
+}
+
 /** Reads and checks a whole file's text. Nothing here writes; the caller imports only an `ok` file. */
 export function checkInventoryCsv(text: string): CsvCheck {
   const body = text.replace(/^\uFEFF/, "");
-  const parsed = Papa.parse<string[]>(body, { skipEmptyLines: false, delimitersToGuess: [",", ";", "\t"] });
+  const delimiter = headerDelimiter(body);
+  const parsed = Papa.parse<string[]>(body, {
+    skipEmptyLines: false,
+    ...(delimiter ? { delimiter } : { delimitersToGuess: [...DELIMITERS] }),
+  });
   const problems: ImportProblem[] = [];
   const fail = (rowCount: number): CsvCheck => ({
     ok: false,

@@ -6,6 +6,7 @@ import { ListingImport } from "~/models/listing-import.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { holdsRole, normaliseRoles } from "~/auth/roles";
 import { refusal } from "~/http/errors.server";
+import { checkedSheet } from "~/listings/bench.server";
 import { parseBenchSheet } from "@shared/bench";
 import { InventoryRowSchema, rowToDraft, type InventoryDraft } from "@shared/inventory-csv";
 import { listingFacets } from "@shared/listing-facets";
@@ -157,9 +158,9 @@ function draftRecords(d: InventoryDraft, sellerId: string, workshop: Workshop | 
     stockReference: d.reference,
     ...listingFacets(sheet),
   };
-  // Stored without a verdict (the file's check already ran the bench on it): the bench step and publishing
-  // check a sheet afresh, as they do any sheet that has none, and a verdict per row would double the job's time.
-  return { listing, sheet: sheet ? { sheet, verdict: null, checkedAt: null } : null };
+  // Stored with its verdict exactly as the bench step stores a typed sheet: the editor's bench and review
+  // steps, its checklist, the inventory and the desk read the stored verdict and show none without one.
+  return { listing, sheet: sheet ? checkedSheet(sheet) : null };
 }
 
 /** The job's entry: `{ importId }`. */

@@ -17,6 +17,7 @@ import type { Reading, Sweep } from "@shared/bench/schema";
 import { sheetFingerprint } from "@shared/bench-form/state";
 import { assertEditable, isPublished, ownListing } from "./access.server";
 import { ListingInputError, type Issue } from "./errors.server";
+import { settleSheetCaptures } from "./captures.server";
 import { isId } from "@shared/ids";
 
 // The bench sheet step. The server is the authority: it re-reads the sheet, puts the readings of each
@@ -122,6 +123,11 @@ export function verdictUpdate(listing: Listing, sheet: Sheet | null, verdict: Ve
   return update;
 }
 
+/** A sheet as the bench step stores it: with the bench's verdict and when it was checked. The CSV import stores its sheets through this too. */
+export function checkedSheet(sheet: Sheet): { sheet: Sheet; verdict: Verdict; checkedAt: Date } {
+  return { sheet, verdict: checkBenchSheet(sheet), checkedAt: new Date() };
+}
+
 export async function saveBenchSheet(
   listingId: string,
   sellerId: string,
@@ -148,10 +154,12 @@ export async function saveBenchSheet(
       // The mark belongs to the sheet that was checked; a different sheet has none until the check below.
       await listing.update({ benchVerified: false }, { transaction });
     }
-    const verdict = checkBenchSheet(sheet);
-    const checkedAt = new Date();
-    if (stored) await stored.update({ sheet, verdict, checkedAt }, { transaction });
-    else await BenchSheet.create({ listingId, sheet, verdict, checkedAt }, { transaction });
+    // Captures it names are tied to this listing; one it no longer names goes, with its file, by a job.
+    await settleSheetCaptures(listingId, sellerId, stored?.sheet, sheet, transaction);
+    const record = checkedSheet(sheet);
+    const { verdict } = record;
+    if (stored) await stored.update(record, { transaction });
+    else await BenchSheet.create({ listingId, ...record }, { transaction });
     if (isPublished(listing)) await listing.update(verdictUpdate(listing, sheet, verdict), { transaction });
     else await listing.update(listingFacets(sheet), { transaction });
     return { listing, sheet, verdict, changed, wasVerified };

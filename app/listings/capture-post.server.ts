@@ -20,7 +20,7 @@ const WAIT_SECONDS = 8;
 export async function postCaptureForm(request: Request, listingId: string, sellerId: string): Promise<{ captureId: string }> {
   const listing = await ownListing(listingId, sellerId);
   assertEditable(listing);
-  const { id } = await submitCapture(request, sellerId);
+  const { id } = await submitCapture(request, sellerId, { listingId: listing.id });
   const finished = await awaitCapture(id, WAIT_SECONDS);
   if (finished?.status === "done") await addToSheet(listing.id, sellerId, finished);
   return { captureId: id };

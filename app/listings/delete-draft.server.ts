@@ -1,30 +1,22 @@
-// Deleting a draft: its row and everything hanging off it (photos, restoration log, bench sheet, the
-// captures its sheet used) go in one transaction; a `draft-storage-clean` job queued in that same
+// Deleting a draft: its row and everything hanging off it (photos, restoration log, bench sheet, every
+// capture it had: on its sheet, uploaded for it, or taken off its sheet since) go in one transaction; a `draft-storage-clean` job queued in that same
 // transaction then removes the stored objects (every photo size, the uploads still waiting, the
 // capture files). Only a draft never published, and only by its seller: someone else's is "not found".
-import { QueryTypes } from "sequelize";
 import { z } from "zod";
 import { sequelize } from "~/db.server";
 import { BenchSheet, ListingPhoto } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
-import { isId } from "@shared/ids";
 import { photoKeys } from "~/photos/access.server";
 import { enqueue, QUEUES } from "~/services/jobs.server";
 import { deleteObjects } from "~/services/storage.server";
 import { ownListing } from "./access.server";
+import { namedCaptureIds, releasableCaptures, removeCaptures } from "./captures.server";
 import { ListingStateError } from "./errors.server";
 import type { Listing } from "~/models/index.server";
 
 /** Whether the seller may delete this listing outright (else it is withdrawn, and kept as a record). */
 export function isDeletable(listing: Pick<Listing, "status" | "publishedAt">): boolean {
   return listing.status === "draft" && listing.publishedAt === null;
-}
-
-/** The capture ids a sheet's readings and sweeps name. */
-function captureIdsOf(sheet: BenchSheet["sheet"] | undefined): string[] {
-  if (!sheet) return [];
-  const ids = [...sheet.readings.map((r) => r.captureId), ...sheet.sweeps.map((s) => s.captureId)];
-  return [...new Set(ids.filter((id): id is string => !!id))];
 }
 
 /** Deletes the seller's draft; returns the storage keys queued for removal. */
@@ -38,22 +30,12 @@ export async function deleteDraft(listingId: unknown, sellerId: string): Promise
       );
     const photos = await ListingPhoto.findAll({ where: { listingId: listing.id }, transaction });
     const sheet = await BenchSheet.findOne({ where: { listingId: listing.id }, transaction });
-    const named = captureIdsOf(sheet?.sheet);
-    // The seller's captures on this sheet that no other listing's sheet uses.
-    const elsewhere = named.length
-      ? await sequelize.query<{ id: string }>(
-          `SELECT DISTINCT x.id FROM bench_sheets b,
-             LATERAL (SELECT r->>'captureId' AS id FROM jsonb_array_elements(b.sheet->'readings') r
-                      UNION SELECT s->>'captureId' FROM jsonb_array_elements(COALESCE(b.sheet->'sweeps', '[]'::jsonb)) s) x
-           WHERE b.listing_id <> $1 AND x.id = ANY($2::text[])`,
-          { bind: [listing.id, named], type: QueryTypes.SELECT, transaction },
-        )
-      : [];
-    const kept = new Set(elsewhere.map((r) => r.id));
-    const ids = named.filter((id) => !kept.has(id) && isId(id));
-    const captures = ids.length ? await Capture.findAll({ where: { id: ids, ownerId: sellerId }, transaction }) : [];
-    const keys = [...photos.flatMap(photoKeys), ...captures.map((c) => c.storageKey).filter((k): k is string => !!k)];
-    if (captures.length) await Capture.destroy({ where: { id: captures.map((c) => c.id) }, transaction });
+    // Its captures: those its sheet names and those uploaded for it or once on its sheet (also ones the
+    // seller took off it since), unless another listing's sheet or a contest still uses them.
+    const tied = await Capture.findAll({ where: { listingId: listing.id, ownerId: sellerId }, attributes: ["id"], transaction });
+    const ids = [...new Set([...namedCaptureIds(sheet?.sheet), ...tied.map((c) => c.id)])];
+    const captures = await releasableCaptures(ids, listing.id, sellerId, transaction);
+    const keys = [...photos.flatMap(photoKeys), ...(await removeCaptures(captures, transaction))];
     // Photos, the log and the sheet go with the row (ON DELETE CASCADE).
     await listing.destroy({ transaction });
     if (keys.length) await enqueue(QUEUES.draftStorageClean, { keys }, { transaction });

@@ -24,6 +24,8 @@ export type StoredCaptureFormat = CaptureFormat | { file: CaptureFileKind };
 export class Capture extends Model<InferAttributes<Capture>, InferCreationAttributes<Capture>> {
   declare id: CreationOptional<string>;
   declare ownerId: string;
+  /** The listing it was uploaded for or first used on (deleting that draft removes it); null for none. */
+  declare listingId: CreationOptional<string | null>;
   declare kind: CaptureKind;
   declare status: CreationOptional<CaptureStatus>;
   declare fileName: string;
@@ -74,6 +76,7 @@ Capture.init(
   {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
     ownerId: { type: DataTypes.UUID, allowNull: false },
+    listingId: { type: DataTypes.UUID, allowNull: true },
     kind: { type: DataTypes.TEXT, allowNull: false },
     status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "queued" },
     fileName: { type: DataTypes.TEXT, allowNull: false },

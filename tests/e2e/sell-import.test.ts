@@ -101,6 +101,12 @@ describe("importing units from a CSV file", () => {
     expect(drafts.every((d) => d.status === "draft")).toBe(true);
     // Unit 11 (row 12, the one whose price was wrong) was written with its fixed price: 411 EUR.
     expect(drafts.map((d) => d.priceMinor).sort((a, b) => a! - b!)[10]).toBe(41_100);
+    // An imported draft's review step shows the bench's verdict on its sheet, as for a sheet typed in.
+    const reviewed = drafts[0].id;
+    await page.goto(`/sell/${reviewed}/review`);
+    await page.getByRole("link", { name: "Open the bench sheet" }).waitFor();
+    expect(await page.getByText("No bench sheet yet").count()).toBe(0);
+    await screenshot(page, "import-draft-review-desktop");
     await context.close();
 
     // The same pages on a phone, for a person to look at.
@@ -110,6 +116,9 @@ describe("importing units from a CSV file", () => {
     await send(small, "stock-with-mistakes.csv", csv(true));
     await small.getByRole("heading", { name: /3 problems in 3 rows/ }).waitFor();
     await screenshot(small, "import-problems-phone");
+    await small.goto(`/sell/${reviewed}/review`);
+    await small.getByRole("link", { name: "Open the bench sheet" }).waitFor();
+    await screenshot(small, "import-draft-review-phone");
     await small.goto("/sell/templates");
     await screenshot(small, "templates-phone");
     await phone.close();

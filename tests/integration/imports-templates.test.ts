@@ -55,11 +55,12 @@ describe("importing a CSV file", () => {
     // "2 × 72 W" into "8 Ω": 72 W per channel is the market's 8 Ω power facet.
     expect(amp.power8ohmW).toBe(72);
     expect(drafts.map((d) => d.stockReference)).toEqual(["WB-1044", "WB-1043", "WB-1042", "WB-1041"]);
-    // The sheet holds the row's three figures (power, THD, DC offset); its verdict is made afresh by the
-    // bench step or at publishing, as for any sheet stored without one.
+    // The sheet holds the row's three figures (power, THD, DC offset), checked by the bench as the bench
+    // step stores a typed sheet (imports-verdict.test.ts compares the two).
     const sheet = await BenchSheet.findOne({ where: { listingId: amp.id } });
     expect(sheet?.sheet?.readings.map((r) => r.quantity)).toEqual(["output_power", "thd", "dc_offset"]);
-    expect([sheet?.verdict, sheet?.checkedAt]).toEqual([null, null]);
+    expect(sheet?.verdict?.category).toBe("integrated_amplifier");
+    expect(sheet?.checkedAt).toBeInstanceOf(Date);
     const stored = await ListingImport.findByPk(started.ok ? started.import.id : "");
     expect(stored?.rows).toBeNull();
   });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { checkInventoryCsv, MAX_LISTED_PROBLEMS } from "~/imports/check-csv";
 import { EXAMPLE_ROWS, exampleCsv, templateCsv } from "~/imports/files";
-import { INVENTORY_COLUMNS, MAX_INVENTORY_ROWS } from "@shared/inventory-csv";
+import { INVENTORY_COLUMNS, inventoryCsv, MAX_INVENTORY_ROWS } from "@shared/inventory-csv";
 
 // Row numbers are the spreadsheet's: the header is row 1, each record (a quoted cell may span lines) one row.
 const HEADER = "category,maker,model,price,currency,power,power_load,description";
@@ -59,6 +59,16 @@ describe("the import's check of a whole file", () => {
   it("reads a semicolon file as a European spreadsheet saves it", () => {
     const r = checkInventoryCsv("category;maker;model;price;currency\nturntable;Pellquist;DT 3;1.250,50;EUR\n");
     expect(r.ok).toBe(true);
+  });
+
+  it("takes the delimiter from the header, not from semicolons or commas inside descriptions", () => {
+    // The example's amplifier twice: its description holds two semicolons, unquoted (a spreadsheet quotes a
+    // cell only for commas), and the 50-column header says the file is comma-separated.
+    const amp = EXAMPLE_ROWS.find((r) => r.description.includes(";"))!;
+    const commas = checkInventoryCsv(inventoryCsv([amp, { ...amp, reference: "WB-2041" }]));
+    expect(commas.ok && commas.rows.map((r) => r.cells.description)).toEqual([amp.description, amp.description]);
+    const semicolons = checkInventoryCsv('category;maker;model;description\nturntable;Pellquist;DT 3;"Belt, mat, lid hinges."\n');
+    expect(semicolons.ok && semicolons.rows.map((r) => r.cells.description)).toEqual(["Belt, mat, lid hinges."]);
   });
 
   it(`refuses more than ${MAX_INVENTORY_ROWS} units with one message at the first row past the limit`, () => {

@@ -50,10 +50,11 @@ function readAnswer(status: number, body: unknown): Answer {
     : { status: status === 200 ? 502 : status, body: { message: "The server's answer could not be read." } };
 }
 
-function upload(form: FormData, onProgress: (p: number) => void): Promise<Answer> {
+function upload(form: FormData, listingId: string | undefined, onProgress: (p: number) => void): Promise<Answer> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
-    xhr.open("POST", "/api/v1/captures/analyze?wait=8");
+    // Uploaded for this listing: deleting the draft removes the capture even if it never reaches the sheet.
+    xhr.open("POST", `/api/v1/captures/analyze?wait=8${listingId ? `&listing=${encodeURIComponent(listingId)}` : ""}`);
     xhr.responseType = "json";
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
     xhr.onload = () => resolve(readAnswer(xhr.status, xhr.response));
@@ -110,7 +111,7 @@ export function CapturePanel({
     for (const [k, v] of [...data.entries()]) if (typeof v === "string" && !v.trim()) data.delete(k);
     const key = ++lastKey.current;
     setItems((all) => [{ key, fileName: file.name, state: "uploading", progress: 0 }, ...all]);
-    let answer = await upload(data, (p) => update(key, { progress: p }));
+    let answer = await upload(data, listingId, (p) => update(key, { progress: p }));
     if (answer.status === 202 && answer.body.poll) {
       update(key, { state: "analysing", progress: 1 });
       answer = await poll(answer.body.poll);
