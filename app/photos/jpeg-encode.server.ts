@@ -1,16 +1,6 @@
 import { forwardDct, forwardScale } from "./dct";
-import {
-  AC_CHROMA,
-  AC_LUMA,
-  CHROMA_QUANT,
-  DC_CHROMA,
-  DC_LUMA,
-  LUMA_QUANT,
-  ZIGZAG,
-  huffmanCodes,
-  scaledQuant,
-  type HuffmanSpec,
-} from "./jpeg-tables";
+import { AC_CHROMA, AC_LUMA, CHROMA_QUANT, DC_CHROMA, DC_LUMA, LUMA_QUANT, ZIGZAG, scaledQuant, type HuffmanSpec } from "./jpeg-tables";
+import { ByteWriter, codeBlock, PACKED } from "./jpeg-entropy-encode.server";
 import type { Bitmap } from "./pixels.server";
 
 // Encodes a baseline JFIF JPEG (ITU-T T.81) with the example tables of Annex K scaled for the
@@ -18,8 +8,8 @@ import type { Bitmap } from "./pixels.server";
 // halved both ways, 4:2:0, what cameras write; alpha ignored, flatten first), or 8-bit planes read
 // through a view (start + x · dx + y · dy), which is how a decoded JPEG's own planes are written
 // again upright without a colour conversion either way. The output grows in a byte buffer, so a
-// large photo costs about its own size. The block loop allocates nothing: one sample block, one
-// coefficient block, Huffman codes packed with their lengths, bits gathered in a 32-bit accumulator.
+// large photo costs about its own size. The block loop allocates nothing (one sample block; the
+// entropy coding in jpeg-entropy-encode.server.ts).
 
 export type JpegOptions = {
   quality: number;
@@ -29,120 +19,6 @@ export type JpegOptions = {
   restartInterval?: number;
   grey?: boolean;
 };
-
-class ByteWriter {
-  buf: Uint8Array;
-  length = 0;
-  acc = 0;
-  bits = 0;
-  constructor(capacity: number) {
-    this.buf = new Uint8Array(Math.max(1024, capacity));
-  }
-  /** Makes room for `n` more bytes; `put` itself does not check, so the block loop reserves per MCU. */
-  reserve(n: number) {
-    if (this.length + n <= this.buf.length) return;
-    const next = new Uint8Array(Math.max(this.buf.length * 2, this.length + n));
-    next.set(this.buf.subarray(0, this.length));
-    this.buf = next;
-  }
-  byte(v: number) {
-    this.reserve(1);
-    this.buf[this.length++] = v;
-  }
-  u16(v: number) {
-    this.byte(v >> 8);
-    this.byte(v & 0xff);
-  }
-  bytes(a: ArrayLike<number>) {
-    for (let i = 0; i < a.length; i++) this.byte(a[i]);
-  }
-  /**
-   * The low `count` bits of `value` (count ≤ 24), most significant first, with 0xFF stuffed by 0x00.
-   * Fewer than 8 bits wait between calls, so the accumulator never holds more than 31.
-   */
-  put(value: number, count: number) {
-    let bits = this.bits + count;
-    const acc = (this.acc << count) | (value & ((1 << count) - 1));
-    const buf = this.buf;
-    let at = this.length;
-    while (bits >= 8) {
-      bits -= 8;
-      const b = (acc >>> bits) & 0xff;
-      buf[at++] = b;
-      if (b === 0xff) buf[at++] = 0;
-    }
-    this.length = at;
-    this.acc = acc & ((1 << bits) - 1);
-    this.bits = bits;
-  }
-  /** Pads the last byte with 1-bits (F.1.2.3). */
-  flushBits() {
-    this.reserve(2);
-    if (this.bits > 0) this.put(0x7f, 8 - this.bits);
-  }
-}
-
-/** Per symbol: its code length (Annex C) in bits 16 and up, the code below; 0 for an unused symbol. */
-function packedCodes(spec: HuffmanSpec): Int32Array {
-  const { code, length } = huffmanCodes(spec);
-  return Int32Array.from(code, (c, symbol) => (length[symbol] << 16) | c);
-}
-const PACKED = {
-  dc: [packedCodes(DC_LUMA), packedCodes(DC_CHROMA)],
-  ac: [packedCodes(AC_LUMA), packedCodes(AC_CHROMA)],
-};
-
-// A copy of its own: the hot loop then reads a local array, not an import binding.
-const ZZ = Uint8Array.from(ZIGZAG);
-// Quantised coefficients of the current block in zig-zag order.
-const zz = new Int32Array(64);
-
-/**
- * Quantises one transformed block and writes its Huffman-coded DC difference and AC runs (F.1.2);
- * returns the block's DC value, the next prediction. Each code goes out with its extra bits in one
- * `put` when together they fit 24 bits.
- */
-function codeBlock(out: ByteWriter, block: Float32Array, scale: Float32Array, dc: Int32Array, ac: Int32Array, pred: number): number {
-  const value = Math.round(block[0] * scale[0]);
-  let last = 0;
-  for (let k = 1; k < 64; k++) {
-    const z = ZZ[k];
-    // Math.round(x) for x > −1024.5, as a truncation; anything lower is clamped to −1023 below anyway.
-    const raw = ((block[z] * scale[z] + 1024.5) | 0) - 1024;
-    const c = raw > 1023 ? 1023 : raw < -1023 ? -1023 : raw; // the tables code up to 10 bits
-    zz[k] = c;
-    if (c !== 0) last = k;
-  }
-  const diff = value - pred;
-  const size = diff === 0 ? 0 : 32 - Math.clz32(diff < 0 ? -diff : diff);
-  const d = dc[size];
-  out.put(((d & 0xffff) << size) | ((diff < 0 ? diff - 1 : diff) & ((1 << size) - 1)), (d >>> 16) + size);
-  let run = 0;
-  for (let k = 1; k <= last; k++) {
-    const c = zz[k];
-    if (c === 0) {
-      run += 1;
-      continue;
-    }
-    while (run > 15) {
-      const zrl = ac[0xf0];
-      out.put(zrl, zrl >>> 16);
-      run -= 16;
-    }
-    const s = 32 - Math.clz32(c < 0 ? -c : c);
-    const code = ac[(run << 4) | s];
-    const length = code >>> 16;
-    const extra = (c < 0 ? c - 1 : c) & ((1 << s) - 1);
-    if (length + s <= 24) out.put(((code & 0xffff) << s) | extra, length + s);
-    else {
-      out.put(code, length);
-      out.put(extra, s);
-    }
-    run = 0;
-  }
-  if (last < 63) out.put(ac[0], ac[0] >>> 16); // end of block
-  return value;
-}
 
 /** One component to encode: sample (x, y) of the upright picture is plane[start + x · dx + y · dy]. */
 export type PlaneView = { plane: Uint8Array; width: number; height: number; start: number; dx: number; dy: number; h: number; v: number };
@@ -217,22 +93,91 @@ function loadBlock(block: Float32Array, c: PlaneView, bx: number, by: number) {
   }
 }
 
-/** `comps`: one (grey) or three (Y, Cb, Cr); `width` × `height` is the picture's size. */
+/** MCU rows of a 4:2:0 picture `height` pixels high: the unit `encodeJpegSlice` splits it in. */
+export const mcuRows = (height: number) => Math.ceil(height / 16);
+
+/**
+ * MCU rows `from` to `to` (exclusive) of the 4:2:0 JPEG of `bitmap`, for encoding one picture on two
+ * threads: each row is a restart interval (T.81 B.2.4.4), so its coding depends on no other row, and
+ * the slices of 0–k and k–mcuRows(height), put end to end, are the whole file (headers in the first,
+ * EOI in the last). Empty when `from` ≥ `to`.
+ */
+export function encodeJpegSlice(bitmap: Bitmap, quality: number, from: number, to: number): Buffer {
+  if (from >= to) return Buffer.alloc(0);
+  const { width, height } = bitmap;
+  const y0 = from * 16;
+  const y1 = Math.min(height, to * 16);
+  const rows = { data: bitmap.data.subarray(y0 * width * 4, y1 * width * 4), width, height: y1 - y0 };
+  const perRow = Math.ceil(width / 16);
+  const part = { height, firstMcu: from * perRow, headers: from === 0, end: to >= mcuRows(height) };
+  return encodeJpegPlanes(width, rows.height, rgbaPlanes(rows, 2, 2, false), { quality, restartInterval: perRow, part });
+}
+
+/** Part of a picture: its full height, the index of the part's first MCU, and which ends it has. */
+type Part = { height: number; firstMcu: number; headers: boolean; end: boolean };
+
+/**
+ * `comps`: one (grey) or three (Y, Cb, Cr); `width` × `height` is the picture's size (or, with
+ * `part`, the size of the rows given).
+ */
 export function encodeJpegPlanes(
   width: number,
   height: number,
   comps: PlaneView[],
-  { quality, restartInterval = 0 }: { quality: number; restartInterval?: number },
+  { quality, restartInterval = 0, part }: { quality: number; restartInterval?: number; part?: Part },
 ): Buffer {
-  const grey = comps.length === 1;
   const lumaQ = scaledQuant(LUMA_QUANT, quality);
   const chromaQ = scaledQuant(CHROMA_QUANT, quality);
   const scales = [forwardScale(lumaQ), forwardScale(chromaQ)];
   const hMax = Math.max(...comps.map((c) => c.h));
   const vMax = Math.max(...comps.map((c) => c.v));
   const out = new ByteWriter(Math.ceil(width * height * (quality >= 90 ? 0.6 : 0.3)) + 2048);
+  if (part?.headers !== false) writeHeaders(out, width, part?.height ?? height, comps, lumaQ, chromaQ, restartInterval);
 
-  // Headers: SOI, JFIF, tables, frame, Huffman tables, scan.
+  const block = new Float32Array(64);
+  const preds = [0, 0, 0];
+  // A block's worst case is under 220 bytes of codes, twice that if every byte were 0xFF.
+  const mcuBytes = comps.reduce((n, c) => n + c.h * c.v, 0) * 512;
+  const mcusX = Math.ceil(width / (8 * hMax));
+  const mcusY = Math.ceil(height / (8 * vMax));
+  let mcu = part?.firstMcu ?? 0;
+  for (let my = 0; my < mcusY; my++) {
+    for (let mx = 0; mx < mcusX; mx++, mcu++) {
+      if (restartInterval && mcu > 0 && mcu % restartInterval === 0) {
+        out.flushBits();
+        out.bytes([0xff, 0xd0 + ((mcu / restartInterval - 1) & 7)]);
+        preds.fill(0);
+      }
+      out.reserve(mcuBytes);
+      for (let i = 0; i < comps.length; i++) {
+        const c = comps[i];
+        const t = i === 0 ? 0 : 1;
+        for (let by = 0; by < c.v; by++) {
+          for (let bx = 0; bx < c.h; bx++) {
+            loadBlock(block, c, mx * c.h + bx, my * c.v + by);
+            forwardDct(block);
+            preds[i] = codeBlock(out, block, scales[t], PACKED.dc[t], PACKED.ac[t], preds[i]);
+          }
+        }
+      }
+    }
+  }
+  out.flushBits();
+  if (part?.end !== false) out.bytes([0xff, 0xd9]);
+  return Buffer.from(out.buf.buffer, out.buf.byteOffset, out.length);
+}
+
+// SOI, JFIF, quantisation tables, frame, Huffman tables, restart interval and scan header.
+function writeHeaders(
+  out: ByteWriter,
+  width: number,
+  height: number,
+  comps: PlaneView[],
+  lumaQ: Uint8Array,
+  chromaQ: Uint8Array,
+  restartInterval: number,
+) {
+  const grey = comps.length === 1;
   out.bytes([0xff, 0xd8, 0xff, 0xe0, 0, 16, 0x4a, 0x46, 0x49, 0x46, 0, 1, 1, 0, 0, 1, 0, 1, 0, 0]);
   for (const [id, table] of (grey ? [lumaQ] : [lumaQ, chromaQ]).entries()) {
     out.bytes([0xff, 0xdb, 0, 67, id]);
@@ -267,36 +212,4 @@ export function encodeJpegPlanes(
   out.bytes([1, 0x00]);
   if (!grey) out.bytes([2, 0x11, 3, 0x11]);
   out.bytes([0, 63, 0]);
-
-  const block = new Float32Array(64);
-  const preds = [0, 0, 0];
-  // A block's worst case is under 220 bytes of codes, twice that if every byte were 0xFF.
-  const mcuBytes = comps.reduce((n, c) => n + c.h * c.v, 0) * 512;
-  const mcusX = Math.ceil(width / (8 * hMax));
-  const mcusY = Math.ceil(height / (8 * vMax));
-  let mcu = 0;
-  for (let my = 0; my < mcusY; my++) {
-    for (let mx = 0; mx < mcusX; mx++, mcu++) {
-      if (restartInterval && mcu > 0 && mcu % restartInterval === 0) {
-        out.flushBits();
-        out.bytes([0xff, 0xd0 + ((mcu / restartInterval - 1) & 7)]);
-        preds.fill(0);
-      }
-      out.reserve(mcuBytes);
-      for (let i = 0; i < comps.length; i++) {
-        const c = comps[i];
-        const t = i === 0 ? 0 : 1;
-        for (let by = 0; by < c.v; by++) {
-          for (let bx = 0; bx < c.h; bx++) {
-            loadBlock(block, c, mx * c.h + bx, my * c.v + by);
-            forwardDct(block);
-            preds[i] = codeBlock(out, block, scales[t], PACKED.dc[t], PACKED.ac[t], preds[i]);
-          }
-        }
-      }
-    }
-  }
-  out.flushBits();
-  out.bytes([0xff, 0xd9]);
-  return Buffer.from(out.buf.buffer, out.buf.byteOffset, out.length);
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { Jimp } from "jimp";
-import { encodeJpeg } from "~/photos/jpeg-encode.server";
+import { encodeJpeg, encodeJpegSlice, mcuRows } from "~/photos/jpeg-encode.server";
 import type { Bitmap } from "~/photos/pixels.server";
 
 // The encoder's block path — transform, quantisation, Huffman coding and bit packing — read back by
@@ -103,5 +103,25 @@ describe("JPEG encoding, block by block", () => {
     // 30 dB is the usual floor for an acceptable lossy picture (common practice); at these qualities
     // the picture clears it by a margin (35.4–38.5 dB when written), so a broken coder cannot pass.
     expect(psnr(source, decoded)).toBeGreaterThanOrEqual(33);
+  });
+
+  it("slices of MCU rows, put end to end, are a file that decodes to the same pixels as the whole", async () => {
+    // 203 × 157 is 10 MCU rows, the last partial: each row is a restart interval, so only the DC
+    // prediction differs from a file without restarts, and the coefficients, hence pixels, are equal.
+    const width = 203;
+    const height = 157;
+    const data = Buffer.alloc(width * height * 4, 255);
+    for (let i = 0; i < width * height; i++) data.set([random() * 256, (i % width) + random() * 40, (i / width) % 256], i * 4);
+    const source = { data, width, height };
+    const whole = (await Jimp.fromBuffer(encodeJpeg(source, { quality: 86 }))).bitmap;
+    expect(mcuRows(height)).toBe(10);
+    for (const split of [0, 3, 8, 10]) {
+      const file = Buffer.concat([encodeJpegSlice(source, 86, 0, split), encodeJpegSlice(source, 86, split, 10)]);
+      expect(file.indexOf(Buffer.from([0xff, 0xdd]))).toBeGreaterThan(0); // DRI
+      expect(file.subarray(-2)).toEqual(Buffer.from([0xff, 0xd9]));
+      const decoded = (await Jimp.fromBuffer(file)).bitmap;
+      expect([decoded.width, decoded.height]).toEqual([width, height]);
+      expect(Buffer.compare(decoded.data, whole.data), `split at row ${split}`).toBe(0);
+    }
   });
 });
