@@ -2,12 +2,12 @@ import { createRequire } from "node:module";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
-import { encodeJpeg } from "./jpeg-encode.server";
+import { encodeJpegSlice, mcuRows } from "./jpeg-encode.server";
 import type { Bitmap } from "./pixels.server";
 
 // One long-lived thread that encodes a JPEG while the job's own thread goes on: the photo job hands
-// it the zoom size (the largest, about half the encoding) and makes and encodes the two smaller
-// sizes meanwhile (docs/decisions/0034). The pixels are shared, not copied; the thread is started
+// it most of the zoom size (the largest, about three quarters of the encoding) and makes and encodes
+// the two smaller sizes and the rest of the zoom size meanwhile (docs/decisions/0034). The pixels are shared, not copied; the thread is started
 // at the first photo, alongside its decoding, and never keeps the process alive. If it cannot start
 // or fails, the work is done on the calling thread: a photo never waits on a missing thread.
 // `PHOTO_THREADS=0` turns it off.
@@ -61,20 +61,28 @@ export function startEncoderThread(): Promise<Worker | null> {
   return thread;
 }
 
-/** The JPEG of `bitmap`, encoded on the thread when it runs; `bitmap.data` should sit in shared memory. */
-export async function encodeJpegAside(bitmap: Bitmap, quality: number): Promise<Buffer> {
+/**
+ * The 4:2:0 JPEG of `bitmap`, or of its MCU rows `rows` (`encodeJpegSlice`), encoded on the thread
+ * when it runs; `bitmap.data` should sit in shared memory.
+ */
+export async function encodeJpegAside(
+  bitmap: Bitmap,
+  quality: number,
+  rows: [number, number] = [0, mcuRows(bitmap.height)],
+): Promise<Buffer> {
   const worker = await startEncoderThread();
   const shared = bitmap.data.buffer instanceof SharedArrayBuffer;
-  if (!worker || !shared) return encodeJpeg(bitmap, { quality });
+  const here = () => encodeJpegSlice(bitmap, quality, rows[0], rows[1]);
+  if (!worker || !shared) return here();
   const id = nextId++;
   try {
     return await new Promise<Buffer>((resolve, reject) => {
       waiting.set(id, { resolve, reject });
       worker.ref();
-      worker.postMessage({ id, data: bitmap.data, width: bitmap.width, height: bitmap.height, quality });
+      worker.postMessage({ id, data: bitmap.data, width: bitmap.width, height: bitmap.height, quality, rows });
     });
   } catch {
-    return encodeJpeg(bitmap, { quality });
+    return here();
   }
 }
 

@@ -9,7 +9,7 @@ import { decodeJpegPlanes, ProgressiveJpeg, type JpegPlanes } from "./jpeg-decod
 import { planesToRgba } from "./jpeg-colour.server";
 import { JpegDataProblem } from "./jpeg-huffman.server";
 import { exifOrientation, pngOrientation, uprightLayout, uprightView } from "./exif-orientation.server";
-import { encodeJpeg, encodeJpegPlanes } from "./jpeg-encode.server";
+import { encodeJpeg, encodeJpegPlanes, encodeJpegSlice, mcuRows } from "./jpeg-encode.server";
 import { encodePng } from "./png-encode.server";
 import { stripJpegMetadata, stripPngMetadata } from "./strip.server";
 import { encodeJpegAside, sharedCopy, startEncoderThread } from "./encode-thread.server";
@@ -58,8 +58,13 @@ export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "im
   const zoom = await time("resize", () => sharedCopy(decoded.zoom()));
   decoded.release(); // the full-size pixels or planes are garbage from here
 
-  // The zoom size is encoded on the encoder thread while this one makes and encodes the others.
-  const zoomBody = encodeJpegAside(zoom, QUALITY.zoom);
+  // The zoom size is encoded in two slices of MCU rows: the top on the encoder thread while this one
+  // makes and encodes the other sizes, then the bottom here: three quarters to one quarter, as the
+  // listing size, thumbnail and their shrinking take this thread about half as long as the zoom
+  // size's encoding (measured with npx tsx scripts/bench/photos.ts).
+  const rows = mcuRows(zoom.height);
+  const split = Math.ceil((rows * 3) / 4);
+  const zoomTop = encodeJpegAside(zoom, QUALITY.zoom, [0, split]);
   const listingSize = fitWithin(zoom.width, zoom.height, PHOTO_SIZES.listing);
   const listing = await time("resize", () => shrink(zoom, listingSize.width, listingSize.height));
   const thumbSize = fitWithin(listing.width, listing.height, PHOTO_SIZES.thumb);
@@ -73,8 +78,9 @@ export async function renderPhoto(input: Buffer, contentType: "image/jpeg" | "im
   const listingOut = await time("encode", () => jpeg(encodeJpeg(listing, { quality: QUALITY.listing }), listing));
   const thumbOut = await time("encode", () => jpeg(encodeJpeg(thumb, { quality: QUALITY.thumb }), thumb));
   const phash = await time("hash", () => dctHash(thumb));
-  // Only the part of the zoom's encoding not already overlapped counts as time of its own.
-  const zoomOut = await time("encode", async () => jpeg(await zoomBody, zoom));
+  const zoomBottom = await time("encode", () => encodeJpegSlice(zoom, QUALITY.zoom, split, rows));
+  // Only the part of the thread's encoding not already overlapped counts as time of its own.
+  const zoomOut = await time("encode", async () => jpeg(Buffer.concat([await zoomTop, zoomBottom]), zoom));
   return { original, sizes: { zoom: zoomOut, listing: listingOut, thumb: thumbOut }, phash };
 }
 
