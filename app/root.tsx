@@ -7,7 +7,6 @@ import {
   Links,
   Meta,
   Outlet,
-  Scripts,
   ScrollRestoration,
   useRouteLoaderData,
   type ShouldRevalidateFunctionArgs,
@@ -18,6 +17,7 @@ import { takeNotice } from "~/auth/session.server";
 import { SiteFooter, SiteHeader, type HeaderUser } from "~/components/SiteChrome";
 import { ErrorPage } from "~/components/ErrorPage";
 import { NavigationProgress, useNavigating } from "~/components/NavigationProgress";
+import { PaintFirstScripts } from "~/components/PaintFirstScripts";
 import { PricingProvider } from "~/components/Price";
 import { pricingFor } from "~/currencies/display.server";
 import { loggable } from "~/http/log.server";
@@ -90,7 +90,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
           <SiteFooter display={root?.pricing?.display ?? null} />
         </PricingProvider>
         <ScrollRestoration />
-        <Scripts />
+        <PaintFirstScripts />
       </body>
     </html>
   );

@@ -1,19 +1,25 @@
 // What a phone gets from each public page: the JavaScript it loads (every chunk, lazy ones included,
-// gzipped as sent), its element count, and Lighthouse's four scores (phone profile, median of 3).
+// gzipped as sent), its element count and HTML size, and Lighthouse's four scores (phone profile, median of 3)
+// with the metrics behind the performance score and the main thread's costliest work (./lighthouse.ts).
 // Headless Chromium from Debian; the limits are the budgets: 150 kB of script, 95 for every score.
 import { gzipSync } from "node:zlib";
-import { createRequire } from "node:module";
 import os from "node:os";
 import { chromium, type Browser } from "playwright-core";
 import type { Figure } from "./served-app";
+import { CATEGORIES, describeCost, runLighthouse } from "./lighthouse";
 
 export const JS_BUDGET_KB = 150;
 export const SCORE_FLOOR = 95;
 const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 const FLAGS = ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--no-first-run"];
-const CATEGORIES = ["performance", "accessibility", "best-practices", "seo"] as const;
 
-export type PageWeight = { path: string; scripts: { url: string; gzip: number; raw: number }[]; totalGzip: number; elements: number };
+export type PageWeight = {
+  path: string;
+  scripts: { url: string; gzip: number; raw: number }[];
+  totalGzip: number;
+  elements: number;
+  html: { raw: number; gzip: number };
+};
 
 /** The pages a buyer lands on: home, the market and a listing with plots (found through the market). */
 export async function publicPages(base: string): Promise<[string, string][]> {
@@ -37,6 +43,7 @@ export async function publicPages(base: string): Promise<[string, string][]> {
 async function weigh(browser: Browser, base: string, pagePath: string): Promise<PageWeight> {
   const context = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
   const page = await context.newPage();
+  let html = { raw: 0, gzip: 0 };
   const bodies: Promise<{ url: string; gzip: number; raw: number } | null>[] = [];
   page.on("response", (r) => {
     if (r.request().resourceType() !== "script") return;
@@ -47,7 +54,11 @@ async function weigh(browser: Browser, base: string, pagePath: string): Promise<
       ),
     );
   });
-  await page.goto(base + pagePath, { waitUntil: "networkidle" });
+  const doc = await page.goto(base + pagePath, { waitUntil: "networkidle" });
+  if (doc) {
+    const b = await doc.body();
+    html = { raw: b.length, gzip: gzipSync(b).length };
+  }
   // Whatever loads on the way down the page (lazy chunks below the fold) counts too.
   await page.evaluate(async () => {
     for (let y = 0; y < document.body.scrollHeight; y += 600) {
@@ -59,7 +70,7 @@ async function weigh(browser: Browser, base: string, pagePath: string): Promise<
   const elements = await page.evaluate(() => document.body.getElementsByTagName("*").length);
   await context.close();
   const scripts = (await Promise.all(bodies)).filter((s) => s !== null).sort((a, b) => b.gzip - a.gzip);
-  return { path: pagePath, scripts, totalGzip: scripts.reduce((n, s) => n + s.gzip, 0), elements };
+  return { path: pagePath, scripts, totalGzip: scripts.reduce((n, s) => n + s.gzip, 0), elements, html };
 }
 
 export async function measureWeights(base: string, pages: [string, string][]): Promise<Map<string, PageWeight>> {
@@ -71,44 +82,6 @@ export async function measureWeights(base: string, pages: [string, string][]): P
   } finally {
     await browser.close();
   }
-}
-
-type ChromeLauncher = {
-  launch(opts: { chromePath: string; chromeFlags: string[] }): Promise<{ port: number; kill(): Promise<void> | void }>;
-};
-
-export type Scores = { scores: Record<(typeof CATEGORIES)[number], number | null>; runs: number; errors: string[] };
-
-/** Lighthouse's four scores for one page: phone profile (its default), the median of `runs`. */
-export async function lighthouseScores(url: string, runs = 3): Promise<Scores> {
-  const { default: lighthouse } = await import("lighthouse");
-  const launcher = createRequire(import.meta.url)("chrome-launcher") as ChromeLauncher;
-  const chrome = await launcher.launch({ chromePath: CHROMIUM, chromeFlags: ["--headless=new", ...FLAGS] });
-  const per: Record<string, number[]> = Object.fromEntries(CATEGORIES.map((c) => [c, []]));
-  const errors = new Set<string>();
-  try {
-    // A run whose trace fails altogether (NO_NAVSTART now and then) is run again, twice at most.
-    for (let attempt = 0; per.performance.length < runs && attempt < runs + 2; attempt++) {
-      const result = await lighthouse(url, { port: chrome.port, output: "json", logLevel: "silent", onlyCategories: [...CATEGORIES] });
-      if (!result) continue;
-      if (result.lhr.runtimeError) {
-        errors.add(`a run failed: ${result.lhr.runtimeError.code}`);
-        continue;
-      }
-      for (const c of CATEGORIES) {
-        const s = result.lhr.categories[c]?.score;
-        if (typeof s === "number") per[c].push(Math.round(s * 100));
-      }
-      for (const [id, audit] of Object.entries(result.lhr.audits)) {
-        if (audit.errorMessage) errors.add(id);
-      }
-    }
-  } finally {
-    await chrome.kill();
-  }
-  const median = (a: number[]) => (a.length ? [...a].sort((x, y) => x - y)[a.length >> 1] : null);
-  const scores = Object.fromEntries(CATEGORIES.map((c) => [c, median(per[c])])) as Scores["scores"];
-  return { scores, runs: per.performance.length, errors: [...errors] };
 }
 
 const kb = (bytes: number) => Math.round(bytes / 102.4) / 10;
@@ -132,10 +105,12 @@ export async function weightFigures(base: string, { lighthouseRuns = 3 } = {}): 
       limit: JS_BUDGET_KB,
     });
     figures.push({ label: `${name} (${p}): elements in the page`, value: w.elements, unit: "elements" });
+    figures.push({ label: `${name} (${p}): HTML document, ${kb(w.html.raw)} kB raw, gzipped`, value: kb(w.html.gzip), unit: "kB" });
   }
   if (lighthouseRuns > 0) {
     for (const [name, p] of pages) {
-      const { scores, errors, runs } = await lighthouseScores(base + p, lighthouseRuns);
+      const lh = await runLighthouse(base + p, lighthouseRuns);
+      const { scores, errors, runs } = lh;
       for (const c of CATEGORIES)
         figures.push({
           label: `${name} (${p}): Lighthouse 12 ${c}, phone, median of ${runs}`,
@@ -144,6 +119,14 @@ export async function weightFigures(base: string, { lighthouseRuns = 3 } = {}): 
           limit: SCORE_FLOOR,
           atLeast: true,
         });
+      for (const m of lh.metrics)
+        if (m.value !== null)
+          figures.push({
+            label: `${name} (${p}): Lighthouse ${m.name}, median of ${runs}`,
+            value: m.unit ? Math.round(m.value) : Math.round(m.value * 1000) / 1000,
+            unit: m.unit,
+          });
+      notes.push(...describeCost(name, lh));
       if (errors.length)
         notes.push(`Lighthouse on ${name}: these audits errored (their trace gatherers fail with this chromium): ${errors.join(", ")}`);
     }

@@ -43,4 +43,32 @@ describe("the public pages' scripts", () => {
     expect(found).toEqual([]);
     await context.close();
   });
+
+  // docs/decisions/0035: the server's HTML is painted before any script is fetched, then the page hydrates.
+  it("home, the market and a listing fetch no script before their first paint, then hydrate", async () => {
+    const context = await newContext(browser, { viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    await page.goto("/market?category=integrated-amplifiers", { waitUntil: "networkidle" });
+    const listing = await page.getByRole("link", { name: "Carrowain WQ 46i" }).getAttribute("href");
+    for (const path of ["/", "/market", listing!]) {
+      await page.goto(path, { waitUntil: "networkidle" });
+      const timing = await page.evaluate(() => ({
+        paint: performance.getEntriesByName("first-contentful-paint")[0]?.startTime,
+        scripts: performance
+          .getEntriesByType("resource")
+          .filter((e) => new URL(e.name).pathname.endsWith(".js"))
+          .map((e) => e.startTime),
+      }));
+      expect(timing.paint, path).toBeGreaterThan(0);
+      expect(timing.scripts.length, path).toBeGreaterThan(0);
+      expect(Math.min(...timing.scripts), path).toBeGreaterThanOrEqual(timing.paint);
+    }
+    // Hydrated: a link is followed by the client router (the document stays, a marker on window survives).
+    await page.evaluate(() => Object.assign(window, { samePage: true }));
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Market" }).click();
+    await page.waitForURL(/\/market$/);
+    await page.getByRole("heading", { level: 1 }).waitFor();
+    expect(await page.evaluate(() => "samePage" in window)).toBe(true);
+    await context.close();
+  });
 });
