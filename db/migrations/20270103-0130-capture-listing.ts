@@ -1,7 +1,7 @@
 import type { Migration } from "../migrator";
 
 // The listing a capture was uploaded for or first used on: deleting a draft removes the captures it
-// ever had, also those no longer on its sheet (docs/decisions/0037). A capture still belongs to its
+// ever had, also those no longer on its sheet (docs/decisions/0036). A capture still belongs to its
 // owner; the link is cleared, not cascaded, if the listing goes some other way.
 
 export const up: Migration = async ({ context: qi }) => {
