@@ -7,7 +7,9 @@ import {
   Links,
   Meta,
   Outlet,
+  Scripts,
   ScrollRestoration,
+  useMatches,
   useRouteLoaderData,
   type ShouldRevalidateFunctionArgs,
 } from "react-router";
@@ -54,10 +56,18 @@ export const meta: Route.MetaFunction = () => [
   },
 ];
 
+/** Home, the market and a listing page: where a buyer arrives, often on a phone (route ids from routes.ts). */
+const PAINT_FIRST_ROUTES = new Set(["routes/home", "routes/market", "routes/listings/listing"]);
+
 export function Layout({ children }: { children: React.ReactNode }) {
   // Undefined when the root loader itself failed; the header then shows the signed-out state.
   const root = useRouteLoaderData<typeof loader>("root");
   const navigating = useNavigating();
+  // The pages a buyer lands on paint before their scripts are fetched (docs/decisions/0035); the working
+  // pages (editor, desk, account) hydrate at once, so what is typed straight away gets its live checks.
+  // Chosen on the first render only: the server and the hydrating browser agree, and it stays put.
+  const matches = useMatches();
+  const [paintFirst] = useState(() => matches.some((m) => PAINT_FIRST_ROUTES.has(m.id)));
   return (
     <html lang="en-GB">
       <head>
@@ -90,7 +100,7 @@ export function Layout({ children }: { children: React.ReactNode }) {
           <SiteFooter display={root?.pricing?.display ?? null} />
         </PricingProvider>
         <ScrollRestoration />
-        <PaintFirstScripts />
+        {paintFirst ? <PaintFirstScripts /> : <Scripts />}
       </body>
     </html>
   );
