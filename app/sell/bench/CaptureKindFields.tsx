@@ -84,25 +84,7 @@ export function KindFields({ kind }: { kind: CaptureKind }) {
             </select>
           </Field>
           <Field label="Measurement bandwidth (Hz)">
-            <div className="flex items-center gap-2">
-              <input
-                form={CAPTURE_FORM_ID}
-                name="bandwidthLowHz"
-                inputMode="decimal"
-                defaultValue="20"
-                className={inputClass}
-                aria-label="Low end, Hz"
-              />
-              <span aria-hidden="true">–</span>
-              <input
-                form={CAPTURE_FORM_ID}
-                name="bandwidthHighHz"
-                inputMode="decimal"
-                defaultValue="20000"
-                className={inputClass}
-                aria-label="High end, Hz"
-              />
-            </div>
+            <HzRange low="bandwidthLowHz" high="bandwidthHighHz" defaults={["20", "20000"]} />
           </Field>
         </>
       ) : null}
@@ -134,28 +116,42 @@ export function KindFields({ kind }: { kind: CaptureKind }) {
             <input form={CAPTURE_FORM_ID} name="ratedOhm" inputMode="decimal" placeholder="8" className={inputClass} />
           </Field>
           <Field label="Rated frequency range (Hz)">
-            <div className="flex items-center gap-2">
-              <input
-                form={CAPTURE_FORM_ID}
-                name="bandLowHz"
-                inputMode="decimal"
-                placeholder="20"
-                className={inputClass}
-                aria-label="Low end, Hz"
-              />
-              <span aria-hidden="true">–</span>
-              <input
-                form={CAPTURE_FORM_ID}
-                name="bandHighHz"
-                inputMode="decimal"
-                placeholder="20000"
-                className={inputClass}
-                aria-label="High end, Hz"
-              />
-            </div>
+            <HzRange low="bandLowHz" high="bandHighHz" placeholders={["20", "20000"]} />
           </Field>
         </>
       ) : null}
     </>
+  );
+}
+
+/** A frequency band as two inputs, low and high, in Hz. */
+function HzRange({
+  low,
+  high,
+  defaults,
+  placeholders,
+}: {
+  low: string;
+  high: string;
+  defaults?: [string, string];
+  placeholders?: [string, string];
+}) {
+  const input = (name: string, end: 0 | 1) => (
+    <input
+      form={CAPTURE_FORM_ID}
+      name={name}
+      inputMode="decimal"
+      defaultValue={defaults?.[end]}
+      placeholder={placeholders?.[end]}
+      className={inputClass}
+      aria-label={end === 0 ? "Low end, Hz" : "High end, Hz"}
+    />
+  );
+  return (
+    <div className="flex items-center gap-2">
+      {input(low, 0)}
+      <span aria-hidden="true">–</span>
+      {input(high, 1)}
+    </div>
   );
 }
