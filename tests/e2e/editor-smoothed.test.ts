@@ -1,16 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { ListObjectsV2Command } from "@aws-sdk/client-s3";
-import { env } from "~/env.server";
 import { ListingPhoto } from "~/models/index.server";
 import { photoKeys } from "~/photos/access.server";
-import { createStorageClient } from "~/services/storage.server";
 import fs from "node:fs";
 import path from "node:path";
 import { baseUrl, launchBrowser, newContext, SCREEN_DIR } from "./support/browser";
 import { signIn } from "./support/accounts";
 import { twoToneJpeg } from "../support/photo-files";
 import { toneWav } from "../support/capture-files";
+import { bucketKeys } from "../support/bucket-keys";
 
 // The editor, smoothed: the new-listing cards line up, sideways rows show there is more, a capture
 // uploads with JavaScript off, and a deleted draft leaves nothing in storage.
@@ -31,18 +29,6 @@ async function startDraft(page: Page, kind: RegExp): Promise<string> {
   await page.getByRole("button", { name: "Start the draft" }).click();
   await page.waitForURL(/\/sell\/[0-9a-f-]{36}\/item$/);
   return new URL(page.url()).pathname.split("/")[2];
-}
-
-async function storedKeys(): Promise<Set<string>> {
-  const client = createStorageClient();
-  const keys = new Set<string>();
-  let token: string | undefined;
-  do {
-    const out = await client.send(new ListObjectsV2Command({ Bucket: env().s3.bucket, ContinuationToken: token }));
-    for (const o of out.Contents ?? []) keys.add(o.Key!);
-    token = out.IsTruncated ? out.NextContinuationToken : undefined;
-  } while (token);
-  return keys;
 }
 
 /** What the viewport shows (the full page of a long market is no picture to look at). */
@@ -188,7 +174,7 @@ describe("the editor, smoothed", () => {
     const photos = await ListingPhoto.findAll({ where: { listingId: id } });
     const keys = photos.flatMap(photoKeys).filter((k) => !k.startsWith("incoming/"));
     expect(keys).toHaveLength(8);
-    const before = await storedKeys();
+    const before = await bucketKeys();
     for (const k of keys) expect(before.has(k), k).toBe(true);
 
     await page.getByRole("link", { name: "Delete draft…" }).click();
@@ -205,7 +191,7 @@ describe("the editor, smoothed", () => {
     let left = keys;
     while (left.length && Date.now() < deadline) {
       await new Promise((r) => setTimeout(r, 500));
-      const now = await storedKeys();
+      const now = await bucketKeys();
       left = keys.filter((k) => now.has(k));
     }
     expect(left).toEqual([]);

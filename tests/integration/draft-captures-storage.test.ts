@@ -1,8 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { sequelize } from "~/db.server";
-import { env } from "~/env.server";
 import { BenchSheet, ListingPhoto } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { createDraft } from "~/listings/drafts.server";
@@ -13,11 +11,12 @@ import { ListingInputError } from "~/listings/errors.server";
 import { analyseCaptureJob } from "~/bench/capture-job.server";
 import { processPhoto } from "~/photos/process.server";
 import { action as analyze } from "~/routes/api.v1.captures.analyze";
-import { createStorageClient, ensureBucket } from "~/services/storage.server";
+import { ensureBucket } from "~/services/storage.server";
 import { QUEUES } from "~/services/jobs.server";
 import { toneWav } from "../support/capture-files";
 import { routeArgs } from "../support/route-args";
 import { plainPng } from "../support/photo-files";
+import { bucketKeys } from "../support/bucket-keys";
 import { BASE, cleanUp, makeAccount, withOwnCaptures, type Seller } from "./listing-support";
 import { exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { removePhoto, upload as uploadPhoto } from "./photos-support";
@@ -26,18 +25,6 @@ import { removePhoto, upload as uploadPhoto } from "./photos-support";
 // no file behind, and deleting the draft leaves nothing of it in the bucket, whatever it once had.
 beforeAll(ensureBucket);
 afterAll(cleanUp);
-
-async function bucketKeys(): Promise<Set<string>> {
-  const client = createStorageClient();
-  const keys = new Set<string>();
-  let token: string | undefined;
-  do {
-    const out = await client.send(new ListObjectsV2Command({ Bucket: env().s3.bucket, ContinuationToken: token }));
-    for (const o of out.Contents ?? []) keys.add(o.Key!);
-    token = out.IsTruncated ? out.NextContinuationToken : undefined;
-  } while (token);
-  return keys;
-}
 
 /** Runs every queued clean-up job naming one of these keys, as the worker would (twice: a retry is harmless). */
 async function runCleanJobs(keys: string[]): Promise<number> {

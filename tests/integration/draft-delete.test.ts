@@ -1,8 +1,6 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { sequelize } from "~/db.server";
-import { env } from "~/env.server";
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry, Workshop } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { createDraft, saveItem } from "~/listings/drafts.server";
@@ -11,28 +9,16 @@ import { addRestorationEntry } from "~/listings/restoration.server";
 import { cleanDraftStorage, deleteDraft } from "~/listings/delete-draft.server";
 import { ListingNotFound, ListingStateError } from "~/listings/errors.server";
 import { processPhoto } from "~/photos/process.server";
-import { createStorageClient, putObject } from "~/services/storage.server";
+import { putObject } from "~/services/storage.server";
 import { QUEUES } from "~/services/jobs.server";
 import { exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { readItemForm } from "@shared/listing-draft";
 import { plainPng } from "../support/photo-files";
+import { bucketKeys } from "../support/bucket-keys";
 import { AMP_ITEM, cleanUp, makeAccount, readyDraft, withOwnCaptures } from "./listing-support";
 import { upload } from "./photos-support";
 
 afterAll(cleanUp);
-
-/** Every key in the media bucket: the test looks at storage itself, not at what the rows say. */
-async function bucketKeys(): Promise<Set<string>> {
-  const client = createStorageClient();
-  const keys = new Set<string>();
-  let token: string | undefined;
-  do {
-    const out = await client.send(new ListObjectsV2Command({ Bucket: env().s3.bucket, ContinuationToken: token }));
-    for (const o of out.Contents ?? []) keys.add(o.Key!);
-    token = out.IsTruncated ? out.NextContinuationToken : undefined;
-  } while (token);
-  return keys;
-}
 
 async function cleanJobsFor(key: string): Promise<{ data: unknown }[]> {
   return sequelize.query<{ data: unknown }>(`SELECT data FROM pgboss.job WHERE name = $1 AND data->'keys' @> to_jsonb(ARRAY[$2::text])`, {
