@@ -62,27 +62,54 @@ export function indexesInPlan(plan: string): string[] {
 const PHASES = ["bounds", "page", "cards"] as const;
 type ApiTimes = { server: number[]; wall: number[]; total: number; phases: Record<(typeof PHASES)[number], number[]> };
 
-/** Calls `url` RUNS times after a warm-up; `before` runs ahead of each call (and is not timed). */
-async function timedApi(url: string, runs: number, before: () => Promise<unknown> = async () => {}): Promise<ApiTimes> {
-  const out: ApiTimes = { server: [], wall: [], total: 0, phases: { bounds: [], page: [], cards: [] } };
+/** One API call: its server time, phases and wall time; throws on anything but a 200 with Server-Timing. */
+async function callApi(url: string) {
+  const t = performance.now();
+  const res = await fetch(url);
+  const body = (await res.json()) as { total?: number; error?: string; message?: string };
+  const wall = performance.now() - t;
+  if (res.status !== 200) throw new Error(`${url}: ${res.status} ${body.error ?? ""} ${body.message ?? ""}`);
+  const timing = res.headers.get("Server-Timing") ?? "";
+  const dur = /app;dur=([\d.]+)/.exec(timing)?.[1];
+  if (dur === undefined) throw new Error(`${url}: no Server-Timing header`);
+  const phase = (name: string) => Number(new RegExp(`${name};dur=([\\d.]+)`).exec(timing)?.[1] ?? NaN);
+  return { server: Number(dur), wall, total: body.total ?? 0, phases: Object.fromEntries(PHASES.map((p) => [p, phase(p)])) };
+}
+
+const noApiTimes = (): ApiTimes => ({ server: [], wall: [], total: 0, phases: { bounds: [], page: [], cards: [] } });
+function record(out: ApiTimes, call: Awaited<ReturnType<typeof callApi>>) {
+  out.server.push(call.server);
+  out.wall.push(call.wall);
+  out.total = call.total;
+  for (const phase of PHASES) out.phases[phase].push(call.phases[phase]);
+}
+
+/** Calls `url` `runs` times after a warm-up; `before` runs ahead of each call (and is not timed). */
+async function timedApi(url: string, runs: number, before: () => Promise<unknown>): Promise<ApiTimes> {
+  const out = noApiTimes();
   for (let i = 0; i < WARM_UP + runs; i++) {
     await before();
-    const t = performance.now();
-    const res = await fetch(url);
-    const body = (await res.json()) as { total?: number; error?: string; message?: string };
-    const took = performance.now() - t;
-    if (res.status !== 200) throw new Error(`${url}: ${res.status} ${body.error ?? ""} ${body.message ?? ""}`);
-    const dur = /app;dur=([\d.]+)/.exec(res.headers.get("Server-Timing") ?? "")?.[1];
-    if (dur === undefined) throw new Error(`${url}: no Server-Timing header`);
-    if (i < WARM_UP) continue;
-    out.server.push(Number(dur));
-    for (const phase of PHASES) {
-      out.phases[phase].push(Number(new RegExp(`${phase};dur=([\\d.]+)`).exec(res.headers.get("Server-Timing") ?? "")?.[1] ?? NaN));
-    }
-    out.wall.push(took);
-    out.total = body.total ?? 0;
+    const call = await callApi(url);
+    if (i >= WARM_UP) record(out, call);
   }
   return out;
+}
+
+// The API and its bare SQL take turns, call by call: a ratio of two batches timed minutes apart
+// measures the machine's load as much as the API, on a shared machine.
+async function timedApiAndSql(url: string, db: pg.Client, q: { sql: string; bind: unknown[] }, runs: number) {
+  const api = noApiTimes();
+  const sql: number[] = [];
+  for (let i = 0; i < WARM_UP + runs; i++) {
+    const call = await callApi(url);
+    const t = performance.now();
+    await db.query(q.sql, q.bind);
+    const took = performance.now() - t;
+    if (i < WARM_UP) continue;
+    record(api, call);
+    sql.push(took);
+  }
+  return { api, sql };
 }
 
 async function timedSql(db: pg.Client, q: { sql: string; bind: unknown[] }, runs: number): Promise<number[]> {
@@ -122,9 +149,8 @@ export async function searchFigures(app: ServedApp): Promise<{ figures: Figure[]
       // the last search like theirs (the epoch moved before each call: the kept counts are served and
       // recounted in the background at most every 15 s), then with the market still.
       const fresh = await timedApi(url, SLOW_RUNS, () => db.query(`SELECT nextval('market_epoch')`));
-      const kept = await timedApi(url, RUNS);
       const q = await sqlOf(db, params);
-      const page = await timedSql(db, q.page, RUNS);
+      const { api: kept, sql: page } = await timedApiAndSql(url, db, q.page, RUNS);
       const counts = await timedSql(db, q.counts, SLOW_RUNS);
       const pagePlan = await explain(db, q.page);
       const countsPlan = await explain(db, q.counts);
