@@ -1,12 +1,12 @@
 import { useContext, useMemo } from "react";
 import {
-  matchRoutes,
   Scripts,
   UNSAFE_DataRouterContext as DataRouterContext,
   UNSAFE_DataRouterStateContext as DataRouterStateContext,
   UNSAFE_FrameworkContext as FrameworkContext,
 } from "react-router";
 import { paintFirstLoader, type LoaderPlan } from "./paint-first-loader";
+import { parentRouteIds } from "./parent-route-ids";
 
 /**
  * React Router's <Scripts>, except that the page's JavaScript is fetched only once the server's HTML has
@@ -91,10 +91,7 @@ function serverScripts(...[framework, dataRouter, state]: Contexts) {
   if (fogOfWar) {
     // As React Router's own: the matched routes and those of every parent path, for the first navigations.
     const ids = new Set(state.matches.map((m) => m.route.id));
-    const segments = state.location.pathname.split("/").filter(Boolean);
-    const paths = ["/"];
-    for (segments.pop(); segments.length; segments.pop()) paths.push(`/${segments.join("/")}`);
-    for (const p of paths) for (const m of matchRoutes(router.routes, p, router.basename || "/") ?? []) ids.add(m.route.id);
+    for (const id of parentRouteIds(manifest, router.routes, state.location.pathname, router.basename || "/")) ids.add(id);
     plan.partialManifest = { ...manifest, sri: undefined, routes: Object.fromEntries([...ids].map((id) => [id, manifest.routes[id]])) };
   }
   const stream =
