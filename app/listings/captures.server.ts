@@ -29,7 +29,7 @@ export async function capturesForSheet(sheet: BenchSheet, sellerId: string): Pro
   if (ids.length === 0) return out;
   const rows = await Capture.findAll({
     where: { id: { [Op.in]: ids }, ownerId: sellerId, status: "done" },
-    attributes: ["id", "kind", "storageKey", "format", "conditions", "analysis", "createdAt"],
+    attributes: ["id", "kind", "storageKey", "format", "conditions", "analysis", "createdAt", "updatedAt"],
   });
   for (const c of rows) out.set(c.id, c);
   return out;

@@ -11,10 +11,7 @@ import {
 import { mediaUrl } from "~/catalogue/media-url";
 import { signInPath } from "~/auth/redirect";
 import { BenchSheet, Listing, ListingPhoto, RestorationEntry, User, Workshop } from "~/models/index.server";
-import type { Capture } from "~/models/capture.server";
-import { benchView, keyFigureViews } from "./bench-view.server";
-import { capturesForSheet } from "./captures.server";
-import { plotsFor } from "./plots.server";
+import { benchSection } from "./bench-section.server";
 import { countryName, restorationLog, sellerCard, shippingView } from "./sections.server";
 import type { GalleryPhoto, ListingHead, ListingPageData, UnitDetails } from "./types";
 import { canViewListing, isModerator, type Viewer } from "./visibility";
@@ -47,22 +44,22 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
         as: "workshop",
         attributes: ["id", "name", "about", "town", "region", "country", "verificationStatus", "verifiedAt", "createdAt"],
       },
-      { model: BenchSheet, as: "benchSheet", attributes: ["id", "sheet", "verdict", "checkedAt"] },
+      // The sheet itself only when its section is not kept (bench-section.server.ts).
+      { model: BenchSheet, as: "benchSheet", attributes: ["id", "updatedAt"] },
     ],
   });
   if (!listing) return null;
   // A watcher keeps reading a unit its seller withdrew: the watch notice links here.
   const watcherOfWithdrawn = async () => listing.status === "withdrawn" && !!req.viewer && (await isWatching(req.viewer.id, listing.id));
   if (!canViewListing(listing.status, listing.sellerId, req.viewer) && !(await watcherOfWithdrawn())) return null;
-  const sheet = listing.benchSheet?.sheet ?? null;
-  const [photos, entries, captures, watching, serialOnFile] = await Promise.all([
+  const [photos, entries, bench, watching, serialOnFile] = await Promise.all([
     ListingPhoto.findAll({
       where: { listingId: listing.id, status: "ready" },
       attributes: ["id", "position", "isCover", "thumbKey", "listingKey", "zoomKey", "width", "height"],
       order: [["position", "ASC"]],
     }),
     RestorationEntry.findAll({ where: { listingId: listing.id } }),
-    sheet ? capturesForSheet(sheet, listing.sellerId) : Promise.resolve(new Map<string, Capture>()),
+    benchSection(listing.benchSheet, listing.sellerId),
     req.viewer ? isWatching(req.viewer.id, listing.id) : Promise.resolve(false),
     hasSerial(listing.id),
   ]);
@@ -84,9 +81,7 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
       signInHref: signInPath(`/listings/${listing.id}`),
     },
     photos: gallery(photos, title),
-    keyFigures: keyFigureViews(sheet),
-    bench: listing.benchSheet && sheet ? benchView(listing.benchSheet, sheet, captures) : null,
-    plots: await plotsFor(sheet, captures),
+    ...bench,
     restoration: restorationLog(entries),
     seller: sellerCard(listing, listing.seller, listing.workshop),
     shipping: shippingView(listing, zone, req.zone ? null : guessed ? countryName(guessed) : null),
