@@ -1,4 +1,4 @@
-import { QueryTypes } from "sequelize";
+import { literal } from "sequelize";
 import {
   CATEGORY_LABELS,
   COSMETIC_GRADE_TEXT,
@@ -25,6 +25,8 @@ import { idSchema } from "@shared/ids";
 
 export const ListingIdSchema = idSchema("listing");
 
+const SERIAL_ON_FILE = literal(`("Listing"."serial_number" IS NOT NULL AND btrim("Listing"."serial_number") <> '')`);
+
 export interface PageRequest {
   id: string;
   viewer: Viewer | null;
@@ -37,6 +39,8 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
   const id = ListingIdSchema.safeParse(req.id);
   if (!id.success) return null;
   const listing = await Listing.findByPk(id.data, {
+    // Whether a serial number is on file, asked without ever loading the number.
+    attributes: { include: [[SERIAL_ON_FILE, "serialOnFile"]] },
     include: [
       { model: User, as: "seller", attributes: ["id", "displayName", "createdAt"] },
       {
@@ -52,7 +56,8 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
   // A watcher keeps reading a unit its seller withdrew: the watch notice links here.
   const watcherOfWithdrawn = async () => listing.status === "withdrawn" && !!req.viewer && (await isWatching(req.viewer.id, listing.id));
   if (!canViewListing(listing.status, listing.sellerId, req.viewer) && !(await watcherOfWithdrawn())) return null;
-  const [photos, entries, bench, watching, serialOnFile] = await Promise.all([
+  const serialOnFile = listing.get("serialOnFile") === true;
+  const [photos, entries, bench, watching] = await Promise.all([
     ListingPhoto.findAll({
       where: { listingId: listing.id, status: "ready" },
       attributes: ["id", "position", "isCover", "thumbKey", "listingKey", "zoomKey", "width", "height"],
@@ -61,7 +66,6 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
     RestorationEntry.findAll({ where: { listingId: listing.id } }),
     benchSection(listing.benchSheet, listing.sellerId),
     req.viewer ? isWatching(req.viewer.id, listing.id) : Promise.resolve(false),
-    hasSerial(listing.id),
   ]);
 
   const isSeller = req.viewer?.id === listing.sellerId;
@@ -86,15 +90,6 @@ export async function loadListingPage(req: PageRequest): Promise<ListingPageData
     seller: sellerCard(listing, listing.seller, listing.workshop),
     shipping: shippingView(listing, zone, req.zone ? null : guessed ? countryName(guessed) : null),
   };
-}
-
-/** Whether a serial number is on file, asked without ever loading the number. */
-async function hasSerial(listingId: string): Promise<boolean> {
-  const rows = await Listing.sequelize!.query<{ on_file: boolean }>(
-    "SELECT serial_number IS NOT NULL AND btrim(serial_number) <> '' AS on_file FROM listings WHERE id = :id",
-    { replacements: { id: listingId }, type: QueryTypes.SELECT },
-  );
-  return Boolean(rows[0]?.on_file);
 }
 
 function head(listing: Listing, title: string, mayReadHeldReason: boolean, serialOnFile: boolean): ListingHead {

@@ -140,6 +140,16 @@ describe("what the page carries", () => {
     }
   });
 
+  it("says no serial number is on file when the seller's is blank or only spaces", async () => {
+    for (const blank of [null, "   "]) {
+      await Listing.scope("withSerial").update({ serialNumber: blank }, { where: { id: draft.listing.id } });
+      const res = await open(draft.listing.id, cookies.draftSeller);
+      expect(res.body!.listing.unit.serialOnFile).toBe(false);
+    }
+    await Listing.scope("withSerial").update({ serialNumber: FIXTURE_SERIAL }, { where: { id: draft.listing.id } });
+    expect((await open(draft.listing.id, cookies.draftSeller)).body!.listing.unit.serialOnFile).toBe(true);
+  });
+
   it("the key figures lead with power into 8 Ω and 4 Ω, distortion at rated power and bandwidth, each with unit and conditions", async () => {
     const { body } = await open(live.listing.id);
     const figures = Object.fromEntries(body!.keyFigures.map((f) => [f.key, f]));
