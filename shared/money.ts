@@ -20,10 +20,23 @@ function priceFormat(locale: string, currency: string, fractionDigits?: [number,
   return fmt;
 }
 
+// Reading a format's options builds a fresh object each time: a currency's decimals are kept too.
+const digitsOf = new Map<string, number>();
+function currencyDigits(locale: string, currency: string): number {
+  const key = `${locale}|${currency}`;
+  let digits = digitsOf.get(key);
+  if (digits === undefined) {
+    digits = priceFormat(locale, currency).resolvedOptions().maximumFractionDigits ?? 2;
+    if (digitsOf.size > 200) digitsOf.clear();
+    digitsOf.set(key, digits);
+  }
+  return digits;
+}
+
 /** Integer minor units to a display price, respecting the currency's own decimals (JPY has none). */
 export function formatPrice(minorUnits: number, currency: string, opts: { locale?: string } = {}): string {
   const locale = opts.locale ?? "en-GB";
-  const digits = priceFormat(locale, currency).resolvedOptions().maximumFractionDigits ?? 2;
+  const digits = currencyDigits(locale, currency);
   const major = minorUnits / 10 ** digits;
   // Whole prices read calmer without ".00".
   const whole = Number.isInteger(major);
