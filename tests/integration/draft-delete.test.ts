@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import { sequelize } from "~/db.server";
-import { BenchSheet, Listing, ListingPhoto, RestorationEntry, Workshop } from "~/models/index.server";
+import { BenchSheet, Listing, ListingPhoto, RestorationEntry } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { createDraft, saveItem } from "~/listings/drafts.server";
 import { saveBenchSheet } from "~/listings/bench.server";
@@ -15,7 +15,7 @@ import { exampleIntegratedAmplifierSheet } from "@shared/bench";
 import { readItemForm } from "@shared/listing-draft";
 import { plainPng } from "../support/photo-files";
 import { bucketKeys } from "../support/bucket-keys";
-import { AMP_ITEM, cleanUp, makeAccount, readyDraft, withOwnCaptures } from "./listing-support";
+import { AMP_ITEM, cleanUp, makeAccount, makeWorkshopAccount, readyDraft, withOwnCaptures } from "./listing-support";
 import { upload } from "./photos-support";
 
 afterAll(cleanUp);
@@ -113,18 +113,7 @@ describe("deleting a draft", () => {
 
 describe("a draft's currency", () => {
   it("starts in the currency of the workshop's country", async () => {
-    const shop = await makeAccount("uk-shop", ["workshop"]);
-    await Workshop.create({
-      ownerId: shop.user.id,
-      name: "Fenwold Bench",
-      slug: `fenwold-${shop.user.id.slice(0, 8)}`,
-      about: null,
-      country: "GB",
-      region: "Marrowshire",
-      town: "Fenwold",
-      verificationStatus: "applied",
-      verifiedAt: null,
-    });
+    const shop = await makeWorkshopAccount("uk-shop", { name: "Fenwold Bench", country: "GB", region: "Marrowshire", town: "Fenwold" });
     const draft = await createDraft(shop.session, "integrated_amplifier");
     expect([draft.country, draft.currency]).toEqual(["GB", "GBP"]);
   });

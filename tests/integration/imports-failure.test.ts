@@ -1,9 +1,9 @@
 import { afterAll, afterEach, describe, expect, it, vi } from "vitest";
-import { BenchSheet, Listing, ListingPhoto, Workshop } from "~/models/index.server";
+import { BenchSheet, Listing, ListingPhoto } from "~/models/index.server";
 import { Capture } from "~/models/capture.server";
 import { ListingImport } from "~/models/listing-import.server";
 import { ownImport, runImport, startImport } from "~/imports/imports.server";
-import { cleanUp, makeAccount, RUN } from "./listing-support";
+import { cleanUp, makeWorkshopAccount } from "./listing-support";
 
 // An import that fails on our side after a batch of drafts and sheets was written leaves nothing: no
 // draft, no sheet, no stored rows. (An import writes no object to storage: it has no photos or captures.)
@@ -20,18 +20,7 @@ const turntables = (n: number) =>
 
 describe("an import that fails midway", () => {
   it("leaves no draft, sheet or row behind when the database fails after the first batch", async () => {
-    const shop = await makeAccount("fails-midway", ["workshop"]);
-    await Workshop.create({
-      ownerId: shop.user.id,
-      name: "Midway Bench",
-      slug: `midway-bench-${RUN}`,
-      about: null,
-      country: "DE",
-      region: "Ostmark",
-      town: "Kellbach",
-      verificationStatus: "applied",
-      verifiedAt: null,
-    });
+    const shop = await makeWorkshopAccount("fails-midway", { name: "Midway Bench" });
     // 300 units: the job writes 250, then the second batch's sheets fail to insert.
     const started = await startImport(shop.user.id, "midway.csv", turntables(300));
     expect(started.ok && started.import.status).toBe("queued");

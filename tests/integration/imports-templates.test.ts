@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { BenchSheet, Listing, Workshop } from "~/models/index.server";
+import { BenchSheet, Listing } from "~/models/index.server";
 import { ListingImport } from "~/models/listing-import.server";
 import { HttpError } from "~/http/errors.server";
 import { ownImport, runImport, startImport } from "~/imports/imports.server";
@@ -12,26 +12,12 @@ import {
   templatesForEditor,
   updateTemplate,
 } from "~/restoration-templates/templates.server";
-import { cleanUp, makeAccount, RUN } from "./listing-support";
+import { cleanUp, makeAccount, makeWorkshopAccount } from "./listing-support";
 
 // Imports and templates go with their accounts (ON DELETE CASCADE).
 afterAll(cleanUp);
 
-async function workshopAccount(label: string) {
-  const shop = await makeAccount(label, ["workshop"]);
-  await Workshop.create({
-    ownerId: shop.user.id,
-    name: `Import Bench ${label}`,
-    slug: `import-bench-${label}-${RUN}`,
-    about: null,
-    country: "DE",
-    region: "Ostmark",
-    town: "Kellbach",
-    verificationStatus: "applied",
-    verifiedAt: null,
-  });
-  return shop;
-}
+const workshopAccount = (label: string) => makeWorkshopAccount(label, { name: `Import Bench ${label}` });
 
 const rows = (n: number) =>
   ["category,maker,model,price,currency", ...Array.from({ length: n }, (_, i) => `turntable,Pellquist,DT ${i + 1},${300 + i},EUR`)].join(

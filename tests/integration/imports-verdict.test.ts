@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { BenchSheet, Listing, Workshop } from "~/models/index.server";
+import { BenchSheet, Listing } from "~/models/index.server";
 import { startImport } from "~/imports/imports.server";
 import { EXAMPLE_ROWS } from "~/imports/files";
 import { createDraft } from "~/listings/drafts.server";
@@ -7,7 +7,7 @@ import { saveBenchSheet } from "~/listings/bench.server";
 import { editorData } from "~/listings/view.server";
 import { deskListingPage } from "~/desk/listing-page.server";
 import { inventoryCsv } from "@shared/inventory-csv";
-import { cleanUp, makeAccount, RUN } from "./listing-support";
+import { cleanUp, makeWorkshopAccount } from "./listing-support";
 
 // An imported draft's bench sheet is stored as the bench step stores a typed one: with the bench's
 // verdict, so the editor's bench and review steps, its checklist and the desk show the same outcome.
@@ -15,21 +15,7 @@ afterAll(cleanUp);
 
 const AMP = EXAMPLE_ROWS.find((r) => r.category === "integrated_amplifier")!;
 
-async function workshop(label: string) {
-  const shop = await makeAccount(label, ["workshop"]);
-  await Workshop.create({
-    ownerId: shop.user.id,
-    name: `Verdict Bench ${label}`,
-    slug: `verdict-bench-${label}-${RUN}`,
-    about: null,
-    country: "DE",
-    region: "Ostmark",
-    town: "Kellbach",
-    verificationStatus: "applied",
-    verifiedAt: null,
-  });
-  return shop;
-}
+const workshop = (label: string) => makeWorkshopAccount(label, { name: `Verdict Bench ${label}` });
 
 describe("an imported draft's bench verdict", () => {
   it("shows a failed check on the draft as the editor would, and a passed one as passed, as the bench step would for the same sheet", async () => {

@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { User, Workshop } from "~/models/index.server";
+import { User } from "~/models/index.server";
 import { createDraft, saveCondition, saveItem } from "~/listings/drafts.server";
 import { saveBenchSheet } from "~/listings/bench.server";
 import { ListingInputError } from "~/listings/errors.server";
@@ -7,7 +7,7 @@ import { publishListing } from "~/listings/publish.server";
 import { addRestorationEntry, deleteRestorationEntry, restorationLog, updateRestorationEntry } from "~/listings/restoration.server";
 import { readItemForm } from "@shared/listing-draft";
 import { exampleIntegratedAmplifierSheet } from "@shared/bench";
-import { AMP_ITEM, cleanUp, inputError, makeAccount, readyDraft, reload, withOwnCaptures } from "./listing-support";
+import { AMP_ITEM, cleanUp, inputError, makeAccount, makeWorkshopAccount, readyDraft, reload, withOwnCaptures } from "./listing-support";
 
 afterAll(cleanUp);
 
@@ -21,17 +21,11 @@ describe("starting a draft", () => {
   });
 
   it("lists a workshop's unit under the workshop, starting from its location", async () => {
-    const shop = await makeAccount("shop", ["workshop"]);
-    const workshop = await Workshop.create({
-      ownerId: shop.user.id,
+    const { workshop, ...shop } = await makeWorkshopAccount("shop", {
       name: "Test Bench Works",
-      slug: `test-bench-${shop.user.id.slice(0, 8)}`,
-      about: null,
       country: "NL",
       region: "Veldmark",
       town: "Ossendam",
-      verificationStatus: "applied",
-      verifiedAt: null,
     });
     const draft = await createDraft(shop.session, "integrated_amplifier");
     expect(draft.workshopId).toBe(workshop.id);

@@ -44,6 +44,26 @@ export async function makeAccount(label: string, roles: Role[] = ["seller"], opt
   };
 }
 
+/** A workshop account with its workshop, an applicant (not verified), at `place` (Kellbach, Germany unless told). */
+export async function makeWorkshopAccount(
+  label: string,
+  place: { name?: string; country?: string; region?: string; town?: string } = {},
+): Promise<Seller & { workshop: Workshop }> {
+  const shop = await makeAccount(label, ["workshop"]);
+  const workshop = await Workshop.create({
+    ownerId: shop.user.id,
+    name: place.name ?? `Bench ${label}`,
+    slug: `bench-${label}-${RUN}`,
+    about: null,
+    country: place.country ?? "DE",
+    region: place.region ?? "Ostmark",
+    town: place.town ?? "Kellbach",
+    verificationStatus: "applied",
+    verifiedAt: null,
+  });
+  return { ...shop, workshop };
+}
+
 export async function cleanUp() {
   const listings = await Listing.findAll({ where: { sellerId: made }, attributes: ["id"] });
   await Listing.destroy({ where: { id: listings.map((l) => l.id) } });
