@@ -1,5 +1,4 @@
 import { COSMETIC_GRADE_TEXT, SERVICE_STATE_TEXT, formatPrice, type Category } from "@shared/catalogue";
-import { countryName } from "@shared/countries";
 import {
   DEFAULT_FILTERS,
   MEASURED_FILTERS,
@@ -68,8 +67,12 @@ export interface AppliedFilter {
   without: MarketFilters;
 }
 
-/** Every filter the buyer set, in panel order; the category is not among them (the category links show it). */
-export function appliedFilters(f: MarketFilters): AppliedFilter[] {
+/**
+ * Every filter the buyer set, in panel order; the category is not among them (the category links show it).
+ * `countryName` names the "Delivers to" country: the market's loader names the countries (the browser
+ * builds no Intl object for them); without it the chip shows the code.
+ */
+export function appliedFilters(f: MarketFilters, countryName: (code: string) => string = (code) => code): AppliedFilter[] {
   const out: AppliedFilter[] = [];
   const add = (id: string, label: string, without: Partial<MarketFilters>) =>
     out.push({ id, label, without: { ...withoutPaging(f), ...without } });

@@ -1,13 +1,16 @@
 import type { ShouldRevalidateFunctionArgs } from "react-router";
 import type { Route } from "./+types/market";
 import { CATEGORY_LABELS } from "@shared/catalogue";
+import { countryOptions } from "@shared/countries";
 import { parseMarketFilters } from "@shared/market-filters";
 import { marketPageData } from "~/catalogue/market-page.server";
 import { MarketExplorer } from "~/catalogue/ui/MarketExplorer";
 import { marketDescription } from "~/meta";
 
-export function loader({ request }: Route.LoaderArgs) {
-  return marketPageData(request);
+export async function loader({ request }: Route.LoaderArgs) {
+  // The country names come from the server's locale data: named in the browser, they made the first
+  // Intl object of the page, whose locale data loads in one long task while the filters hydrate.
+  return { ...(await marketPageData(request)), countries: countryOptions() };
 }
 
 // In the browser the panel fetches its own results from /api/v1/listings: a change of filters only

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import type { Browser, Page } from "playwright-core";
 import { sequelize } from "~/db.server";
-import { baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
+import { baseUrl, launchBrowser, newContext, screenshot, waitForHydration } from "./support/browser";
 import { signIn } from "./support/accounts";
 
 // The market's filters in a browser: an amplifier of at least 100 W into 8 Ω at no more than 0.05 % THD.
@@ -157,6 +157,7 @@ describe("the market's filters", () => {
     await signIn(page, "buyer@loadline.test");
     await page.goto("/market?category=turntables");
     await page.locator("main article").first().waitFor();
+    await waitForHydration(page);
     await Promise.all([
       page.waitForResponse((r) => new URL(r.url()).pathname === "/api/v1/listings"),
       page
@@ -176,6 +177,7 @@ describe("the market's filters", () => {
     const page = await context.newPage();
     await page.goto("/market");
     await page.locator("main article").first().waitFor();
+    await waitForHydration(page);
     // Hold the next page's data back, as a slow network would.
     let release!: () => void;
     const gate = new Promise<void>((r) => (release = r));

@@ -1,5 +1,5 @@
 import fc from "fast-check";
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import {
   CATEGORIES,
   CATEGORY_LABELS,
@@ -11,6 +11,7 @@ import {
   formatWeight,
 } from "@shared/catalogue";
 import { ShippingOptionsSchema } from "@shared/catalogue-schemas";
+import { CURRENCY_CODES } from "@shared/listing-input";
 import { leadFigure, listingFacets, publishState } from "@shared/listing-facets";
 import { checkBenchSheet, doctoredIntegratedAmplifierSheet, exampleIntegratedAmplifierSheet } from "@shared/bench";
 
@@ -84,6 +85,38 @@ describe("formatting", () => {
         },
       ),
     );
+  });
+
+  it("writes every listing currency in en-GB exactly as Intl.NumberFormat does, without building one", () => {
+    // The oracle is the runtime's ICU (CLDR's en-GB symbols and grouping); formatPrice writes these by hand
+    // so that a page hydrating its prices does not load the locale data.
+    const viaIntl = (minor: number, currency: string) => {
+      const digits = new Intl.NumberFormat("en-GB", { style: "currency", currency }).resolvedOptions().maximumFractionDigits ?? 2;
+      const major = minor / 10 ** digits;
+      const min = Number.isInteger(major) ? 0 : digits;
+      return new Intl.NumberFormat("en-GB", {
+        style: "currency",
+        currency,
+        minimumFractionDigits: min,
+        maximumFractionDigits: digits,
+      }).format(major);
+    };
+    const pairs = fc.sample(fc.tuple(fc.integer({ min: -1e12, max: 1e12 }), fc.constantFrom(...CURRENCY_CODES)), {
+      numRuns: 2000,
+      seed: 41,
+    });
+    const cases = [
+      ...CURRENCY_CODES.flatMap((c) => [0, 1, 5, -5, 99, 100, 68_500, 68_550, 100_000_000].map((m) => [m, c] as const)),
+      ...pairs,
+    ];
+    const expected = cases.map(([minor, currency]) => viaIntl(minor, currency));
+    const built = vi.spyOn(Intl, "NumberFormat");
+    try {
+      expect(cases.map(([minor, currency]) => formatPrice(minor, currency))).toEqual(expected);
+      expect(built).not.toHaveBeenCalled();
+    } finally {
+      built.mockRestore();
+    }
   });
 
   it("writes weights in kg above a kilogram", () => {

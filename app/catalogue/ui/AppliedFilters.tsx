@@ -2,6 +2,7 @@ import { Link } from "react-router";
 import type { FilterCounts, MarketFilters } from "@shared/market-filters";
 import { appliedFilters, clearedFilters, marketHref, type AppliedFilter } from "~/catalogue/market-view";
 import { cx } from "~/components/cx";
+import type { CountryOption } from "./FilterPanel";
 
 // The filters in use as chips, each a link to the same search without it (so they work without
 // JavaScript too), and "Clear all".
@@ -13,16 +14,19 @@ const chip =
 export function AppliedFilters({
   filters,
   counts,
+  countries,
   showCounts = false,
   className,
 }: {
   filters: MarketFilters;
+  /** The countries as the market's loader named them, for the "Delivers to" chip. */
+  countries: readonly CountryOption[];
   counts: FilterCounts | null;
   /** Beside each chip, how many units there would be without it (where the counts say). */
   showCounts?: boolean;
   className?: string;
 }) {
-  const applied = appliedFilters(filters);
+  const applied = appliedFilters(filters, (code) => countries.find((c) => c.value === code)?.label ?? code);
   if (applied.length === 0) return null;
   return (
     <ul aria-label="Filters in use" className={cx("flex flex-wrap items-center gap-2", className)}>

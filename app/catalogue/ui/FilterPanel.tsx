@@ -1,5 +1,4 @@
 import { COSMETIC_GRADES, COSMETIC_GRADE_TEXT, SERVICE_STATES, SERVICE_STATE_TEXT, CATEGORY_LABELS } from "@shared/catalogue";
-import { countryOptions } from "@shared/countries";
 import { CURRENCIES, isCurrency, type Currency } from "@shared/listing-input";
 import { defaultSort, type FilterCounts } from "@shared/market-filters";
 import { Field, SelectField } from "~/components/Field";
@@ -15,11 +14,15 @@ import { Choice, Legend } from "./Choice";
 
 const MAINS_VOLTS = [100, 120, 230];
 
+/** A country for "Delivers to", named and sorted on the server (the market's loader). */
+export type CountryOption = { value: string; label: string };
+
 export function FilterPanel({
   state,
   counts,
   errors,
   total,
+  countries,
   onDone,
 }: {
   state: MarketState;
@@ -27,6 +30,7 @@ export function FilterPanel({
   /** Messages by parameter: the panel's own reading of what was typed, and the server's. */
   errors: ReadonlyMap<string, string>;
   total: number;
+  countries: CountryOption[];
   /** The phone's drawer: close it and show the results. */
   onDone?: () => void;
 }) {
@@ -169,7 +173,7 @@ export function FilterPanel({
           name="deliverTo"
           value={draft.get("deliverTo")?.toUpperCase() ?? ""}
           onChange={(e) => state.choose("deliverTo", e.target.value || null)}
-          options={countryOptions()}
+          options={countries}
           placeholder="Any country"
           hint="By parcel or freight; collection in person is always possible."
           error={errors.get("deliverTo")}

@@ -9,7 +9,7 @@ import { PageHeader } from "~/components/PageHeader";
 import { cx } from "~/components/cx";
 import { useMarketState } from "./use-market-state";
 import { useMarketResults, type FirstPage } from "./use-market-results";
-import { FilterPanel } from "./FilterPanel";
+import { FilterPanel, type CountryOption } from "./FilterPanel";
 import { useHydrated } from "./use-hydrated";
 import { MarketResults } from "./MarketResults";
 
@@ -39,7 +39,7 @@ export interface MarketView {
   signedIn: boolean;
 }
 
-export function MarketExplorer({ first, pager, watching, signedIn }: MarketView) {
+export function MarketExplorer({ first, pager, watching, signedIn, countries }: MarketView & { countries: CountryOption[] }) {
   const state = useMarketState();
   const results = useMarketResults(state.canonical, first);
   const { filters } = state;
@@ -105,9 +105,17 @@ export function MarketExplorer({ first, pager, watching, signedIn }: MarketView)
           <h2 id="filters-title" className="mb-4 text-lg">
             Filters
           </h2>
-          <FilterPanel state={state} counts={counts} errors={errors} total={results.total} onDone={done} />
+          <FilterPanel state={state} counts={counts} errors={errors} total={results.total} countries={countries} onDone={done} />
         </aside>
-        <MarketResults results={results} filters={filters} pager={pager} watching={watching} signedIn={signedIn} problem={problem} />
+        <MarketResults
+          results={results}
+          filters={filters}
+          pager={pager}
+          watching={watching}
+          signedIn={signedIn}
+          problem={problem}
+          countries={countries}
+        />
       </div>
     </>
   );

@@ -10,6 +10,7 @@ import { Button } from "~/components/Button";
 import { cx } from "~/components/cx";
 import type { useMarketResults } from "./use-market-results";
 import { AppliedFilters } from "./AppliedFilters";
+import type { CountryOption } from "./FilterPanel";
 import { useHydrated } from "./use-hydrated";
 
 // The results beside the panel: how many units, the filters in use, the cards, and more of them. While
@@ -24,6 +25,7 @@ export function MarketResults({
   watching,
   signedIn,
   problem,
+  countries,
 }: {
   results: Results;
   filters: MarketFilters;
@@ -33,6 +35,7 @@ export function MarketResults({
   signedIn: boolean;
   /** A refusal or failure not tied to one field. */
   problem: string | null;
+  countries: readonly CountryOption[];
 }) {
   const { items, total, counts, updating, loading } = results;
   // Queries run only in the browser: on the server this asks nothing.
@@ -62,7 +65,7 @@ export function MarketResults({
           </Link>
         ) : null}
       </div>
-      <AppliedFilters filters={filters} counts={counts} />
+      <AppliedFilters filters={filters} counts={counts} countries={countries} />
       {problem ? (
         <div
           role="alert"
@@ -103,7 +106,7 @@ export function MarketResults({
           ))}
         </ul>
       ) : (
-        <Empty filters={filters} results={results} />
+        <Empty filters={filters} results={results} countries={countries} />
       )}
       <MoreResults results={results} filters={filters} pager={pager} units={units} />
     </section>
@@ -134,7 +137,7 @@ function MoreResults({
   ) : null;
 }
 
-function Empty({ filters, results }: { filters: MarketFilters; results: Results }) {
+function Empty({ filters, results, countries }: { filters: MarketFilters; results: Results; countries: readonly CountryOption[] }) {
   const applied = appliedFilters(filters);
   const what = filters.category ? CATEGORY_LABELS[filters.category].many.toLowerCase() : "units";
   return (
@@ -143,7 +146,7 @@ function Empty({ filters, results }: { filters: MarketFilters; results: Results 
       {applied.length ? (
         <>
           <p className="mt-2 text-ink-soft">Loosen one of these filters, or clear them all:</p>
-          <AppliedFilters filters={filters} counts={results.counts} showCounts className="mt-4 justify-center" />
+          <AppliedFilters filters={filters} counts={results.counts} countries={countries} showCounts className="mt-4 justify-center" />
         </>
       ) : (
         <p className="mt-2 text-ink-soft">

@@ -60,3 +60,12 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 export function uniqueEmail(label: string): string {
   return `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 7)}@example.test`;
 }
+
+/**
+ * React has taken the document over: home, the market and a listing paint before their scripts are fetched
+ * (docs/decisions/0035), so a click on what is painted may still be the browser's own until then. From here
+ * on a click is the client router's (React hydrates a clicked part at once if it has not reached it yet).
+ */
+export async function waitForHydration(page: Page): Promise<void> {
+  await page.waitForFunction(() => Object.keys(document).some((k) => k.startsWith("__reactContainer$")));
+}

@@ -4,6 +4,7 @@ import { createMemoryRouter, RouterProvider } from "react-router";
 import { CATEGORIES, COSMETIC_GRADES, SERVICE_STATES } from "@shared/catalogue";
 import { MEASURED_FILTERS, SELLER_KINDS, type FilterCounts, type ListingsPage } from "@shared/market-filters";
 import type { ListingSummary } from "~/catalogue/types";
+import { countryOptions } from "@shared/countries";
 import { MarketExplorer } from "~/catalogue/ui/MarketExplorer";
 
 // The market's panel and results in a memory router, as the page mounts them, with made-up answers.
@@ -63,7 +64,9 @@ export function mountMarket(url: string, first: { params: string; page: Listings
     [
       {
         path: "/market",
-        element: <MarketExplorer first={first} pager={{ page: 1, pageCount: 1 }} watching={{}} signedIn={false} />,
+        element: (
+          <MarketExplorer first={first} pager={{ page: 1, pageCount: 1 }} watching={{}} signedIn={false} countries={countryOptions()} />
+        ),
       },
     ],
     { initialEntries: [url] },

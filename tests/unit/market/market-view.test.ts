@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { COSMETIC_GRADES } from "@shared/catalogue";
+import { countryOptions } from "@shared/countries";
 import { MEASURED_FILTERS, marketFiltersToParams, parseMarketFilters, type MarketFilters } from "@shared/market-filters";
 import { appliedFilters, clearedFilters, inCategory, marketHref, sortOptions } from "~/catalogue/market-view";
 
@@ -19,6 +20,13 @@ describe("the applied filters", () => {
       "THD ≤ 0.05 %",
       "RIAA deviation ≤ ±0.2 dB",
     ]);
+  });
+
+  it("names the delivery country as the page names it (the market's loader), else shows its code", () => {
+    const f = read("deliverTo=DE");
+    const names = new Map(countryOptions().map((c) => [c.value, c.label]));
+    expect(appliedFilters(f, (code) => names.get(code) ?? code).map((a) => a.label)).toEqual(["Delivers to Germany"]);
+    expect(appliedFilters(f).map((a) => a.label)).toEqual(["Delivers to DE"]);
   });
 
   it("removing a chip removes that filter alone; Clear all keeps the category", () => {

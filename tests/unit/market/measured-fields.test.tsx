@@ -4,6 +4,7 @@ import { renderToString } from "react-dom/server";
 import { cleanup, fireEvent, screen } from "@testing-library/react";
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { createMemoryRouter, RouterProvider } from "react-router";
+import { countryOptions } from "@shared/countries";
 import { MarketExplorer } from "~/catalogue/ui/MarketExplorer";
 import { mountMarket, page, unit } from "./market-fixtures";
 
@@ -15,7 +16,14 @@ const first = { params: "", page: page([unit("Orrin A-60")]) };
 /** The market's HTML as the server sends it (no effects run). */
 function serverHtml(url: string): string {
   const router = createMemoryRouter(
-    [{ path: "/market", element: <MarketExplorer first={first} pager={{ page: 1, pageCount: 1 }} watching={{}} signedIn={false} /> }],
+    [
+      {
+        path: "/market",
+        element: (
+          <MarketExplorer first={first} pager={{ page: 1, pageCount: 1 }} watching={{}} signedIn={false} countries={countryOptions()} />
+        ),
+      },
+    ],
     { initialEntries: [url] },
   );
   return renderToString(
