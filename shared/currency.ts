@@ -102,7 +102,10 @@ export function readCurrency(value: unknown): Currency | null {
   return isCurrency(code) ? code : null;
 }
 
-/** Names for the selector. */
+/**
+ * Names for the selector. The zloty as ISO 4217 names it (Zloty), without the ł: that one letter in every
+ * page's footer fetched the fonts' Latin Extended subset and laid the whole page out again.
+ */
 export const CURRENCY_NAMES: Record<Currency, string> = {
   EUR: "Euro",
   GBP: "Pound sterling",
@@ -111,7 +114,7 @@ export const CURRENCY_NAMES: Record<Currency, string> = {
   SEK: "Swedish krona",
   NOK: "Norwegian krone",
   DKK: "Danish krone",
-  PLN: "Polish złoty",
+  PLN: "Polish zloty",
   CZK: "Czech koruna",
   CAD: "Canadian dollar",
   AUD: "Australian dollar",
