@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { Listing, User } from "~/models/index.server";
 import { blankListing } from "../support/blank-listing";
-import { launchBrowser, newContext, screenshot, uniqueEmail } from "./support/browser";
+import { launchBrowser, newContext, screenshot, uniqueEmail, waitForHydration } from "./support/browser";
 import { DEMO_PASSWORD, signIn, signUpAndConfirm } from "./support/accounts";
 import { extractLink, waitForMail } from "./support/mail";
 
@@ -45,6 +45,8 @@ describe("watch notices", () => {
     await signUpAndConfirm(buyer, { name: "Orla Brackwater", email, password: "a-long-enough-password" });
     await buyer.goto(`/listings/${listing.id}`);
     await buyer.getByRole("heading", { level: 1, name: title }).waitFor();
+    // The page paints before its scripts are fetched: a press before React takes over is the plain form's.
+    await waitForHydration(buyer);
     await Promise.all([
       buyer.waitForResponse((r) => r.request().method() === "PUT" && r.url().includes(`/api/v1/watches/${listing.id}`) && r.ok()),
       buyer.getByRole("button", { name: "Watch this unit" }).click(),

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { SCREEN_DIR, baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
+import { SCREEN_DIR, baseUrl, launchBrowser, newContext, screenshot, waitForHydration } from "./support/browser";
 
 // A buyer picks three of the demo amplifiers in the market, opens compare and sees them side by side:
 // three columns, the stronger power marked, their responses on one plot. Then the same without JavaScript.
@@ -34,6 +34,8 @@ describe("compare", () => {
     const context = await newContext(browser);
     const page = await context.newPage();
     await page.goto("/market?category=integrated-amplifiers");
+    // The market paints before its scripts are fetched: a press before React takes over is the plain form's.
+    await waitForHydration(page);
     for (const title of AMPS) await addToCompare(page, title);
 
     // The tray and the header follow once the list has reloaded.

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { baseUrl, launchBrowser, newContext, screenshot } from "./support/browser";
+import { baseUrl, launchBrowser, newContext, screenshot, waitForHydration } from "./support/browser";
 import { DEMO, DEMO_PASSWORD, submitSignIn } from "./support/accounts";
 
 // A buyer finds the seeded, bench-verified Carrowain WQ 46i in the market and reads its page: the mark,
@@ -108,6 +108,8 @@ describe("the listing page", () => {
     await page.waitForURL("**/sign-in?**");
     await submitSignIn(page, DEMO.buyer, DEMO_PASSWORD);
     await page.waitForURL((url) => url.pathname === path);
+    // The page paints before its scripts are fetched: a press before React takes over is the plain form's.
+    await waitForHydration(page);
 
     const watch = page.getByRole("button", { name: /Watch this unit|Watching/ });
     // Leave the demo as found, whatever an earlier run did.

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { baseUrl, launchBrowser, newContext, screenshot, uniqueEmail } from "./support/browser";
+import { baseUrl, launchBrowser, newContext, screenshot, uniqueEmail, waitForHydration } from "./support/browser";
 import { signUpAndConfirm } from "./support/accounts";
 
 // A new buyer watches a unit from the market, finds it on the watch list, and stops watching it there.
@@ -33,6 +33,8 @@ describe("the watch list", () => {
     expect(await page.getByRole("main").getByRole("link", { name: "Browse the market" }).getAttribute("href")).toBe("/market");
 
     await page.goto("/market");
+    // The page paints before its scripts are fetched: a press before React takes over is the plain form's.
+    await waitForHydration(page);
     const card = page.locator("article").first();
     const title = (await card.getByRole("heading", { level: 3 }).textContent())!.trim();
     const watch = card.getByRole("button", { name: "Watch this unit" });
